@@ -1,0 +1,33 @@
+import { Column, CreateDateColumn, Entity, Index, PrimaryGeneratedColumn } from 'typeorm'
+
+export type TokenPurpose = 'verify-email' | 'password-reset' | 'crew-invite'
+
+/** A single-use link token. Only its SHA-256 is stored, so a leaked table opens no accounts. */
+@Entity({ name: 'auth_tokens' })
+export class AuthToken {
+  @PrimaryGeneratedColumn('uuid')
+  id: string
+
+  @Index('auth_tokens_hash_key', { unique: true })
+  @Column({ name: 'token_hash', type: 'text' })
+  tokenHash: string
+
+  @Column({ type: 'text' })
+  purpose: TokenPurpose
+
+  @Column({ name: 'user_id', type: 'uuid', nullable: true })
+  userId: string | null
+
+  /** Purpose-specific facts, e.g. the studio and address a crew invitation is for. */
+  @Column({ type: 'jsonb', default: {} })
+  data: Record<string, unknown>
+
+  @Column({ name: 'expires_at', type: 'timestamptz' })
+  expiresAt: Date
+
+  @Column({ name: 'used_at', type: 'timestamptz', nullable: true })
+  usedAt: Date | null
+
+  @CreateDateColumn({ name: 'created_at', type: 'timestamptz' })
+  createdAt: Date
+}

@@ -1,0 +1,37 @@
+import { Column, CreateDateColumn, Entity, Index, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm'
+import type { UserRole, UnitSystem } from '../../shared/schemas/auth'
+
+@Entity({ name: 'users' })
+export class User {
+  @PrimaryGeneratedColumn('uuid')
+  id: string
+
+  /** Stored lower-cased; the unique index is what stops two accounts sharing an address. */
+  @Index('users_email_key', { unique: true })
+  @Column({ type: 'text' })
+  email: string
+
+  @Column({ name: 'password_hash', type: 'text' })
+  passwordHash: string
+
+  @Column({ name: 'display_name', type: 'text' })
+  displayName: string
+
+  @Column({ type: 'text', enum: ['potter', 'host', 'crew', 'admin'] })
+  role: UserRole
+
+  @Column({ name: 'unit_system', type: 'text', default: 'imperial' })
+  unitSystem: UnitSystem
+
+  @Column({ name: 'email_verified_at', type: 'timestamptz', nullable: true })
+  emailVerifiedAt: Date | null
+
+  @Column({ name: 'suspended_at', type: 'timestamptz', nullable: true })
+  suspendedAt: Date | null
+
+  @CreateDateColumn({ name: 'created_at', type: 'timestamptz' })
+  createdAt: Date
+
+  @UpdateDateColumn({ name: 'updated_at', type: 'timestamptz' })
+  updatedAt: Date
+}

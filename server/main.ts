@@ -1,0 +1,46 @@
+// The server process: migrate, seed (when asked), start the queue worker, serve. Configured only by
+// its environment; `npm start` sets that environment for the local stand-ins.
+import type { Server } from 'node:http'
+import { createApp } from './app'
+import { loadConfig } from './config'
+import { consoleLogger, type AppContext } from './context'
+import { createDataSource } from './db/data-source'
+import { seedDemo } from './db/seed'
+import { migrateQueue, startWorker } from './jobs/worker'
+
+const log = consoleLogger()
+const config = loadConfig()
+const db = createDataSource(config.databaseUrl)
+await db.initialize()
+const ctx: AppContext = { config, db, log }
+
+if (process.env.MIGRATE !== 'false') {
+  const applied = await db.runMigrations()
+  if (applied.length) log.info(`applied ${applied.length} migration(s)`)
+}
+await migrateQueue(ctx)
+if (process.env.SEED_DEMO === 'true') {
+  await seedDemo(ctx)
+  log.info('demo data is in place')
+}
+
+const worker = config.runWorker ? await startWorker(ctx) : null
+const { app, close } = createApp(ctx)
+const server: Server = app.listen(config.port, config.host, () => {
+  log.info(`listening on ${config.publicUrl}`)
+})
+
+let stopping = false
+async function shutdown(signal: string) {
+  if (stopping) return
+  stopping = true
+  log.info(`${signal}: stopping`)
+  server.close()
+  server.closeAllConnections()
+  await worker?.stop()
+  close()
+  await db.destroy()
+  process.exit(0)
+}
+process.on('SIGTERM', () => void shutdown('SIGTERM'))
+process.on('SIGINT', () => void shutdown('SIGINT'))

@@ -1,0 +1,96 @@
+import { Router, type RequestHandler } from 'express'
+import type { PassportStatic } from 'passport'
+import {
+  loginSchema,
+  passwordResetConfirmSchema,
+  passwordResetRequestSchema,
+  preferencesSchema,
+  registerSchema,
+  verifyEmailSchema,
+} from '../../shared/schemas/auth'
+import { requireAuth } from '../auth/guards'
+import { accountKey, makeLimiter } from '../auth/rate-limit'
+import type { AppContext } from '../context'
+import type { User } from '../entities/User'
+import { forbidden, HttpError } from '../http/errors'
+import { validateBody } from '../http/validate'
+import {
+  confirmPasswordReset,
+  registerUser,
+  requestPasswordReset,
+  resendVerification,
+  toPublicUser,
+  verifyEmail,
+} from '../services/users'
+
+const WINDOW = 15 * 60_000
+
+export function authRouter(ctx: AppContext, passport: PassportStatic, csrfToken: RequestHandler) {
+  const router = Router()
+  const { authPerIpPer15Min, authPerAccountPer15Min } = ctx.config.rateLimits
+  const perIp = makeLimiter(ctx.db, 'auth-ip', { limit: authPerIpPer15Min, windowMs: WINDOW })
+  const perAccount = makeLimiter(ctx.db, 'auth-account', {
+    limit: authPerAccountPer15Min,
+    windowMs: WINDOW,
+    key: accountKey,
+    onlyFailures: true,
+  })
+  const resetPerAccount = makeLimiter(ctx.db, 'reset-account', { limit: 5, windowMs: WINDOW, key: accountKey })
+
+  const signIn = (req: Parameters<RequestHandler>[0], user: User) =>
+    new Promise<void>((resolve, reject) => req.login(user, (error) => (error ? reject(error) : resolve())))
+
+  router.get('/csrf', csrfToken)
+
+  router.post('/register', perIp, validateBody(registerSchema), async (req, res) => {
+    const user = await registerUser(ctx, req.body)
+    await signIn(req, user)
+    res.status(201).json(toPublicUser(user))
+  })
+
+  router.post('/login', perIp, perAccount, validateBody(loginSchema), (req, res, next) => {
+    passport.authenticate('local', { session: false }, (error: unknown, user: User | false) => {
+      if (error) return next(error)
+      if (!user) return next(new HttpError(401, 'bad-credentials', 'That e-mail and password do not match an account.'))
+      if (user.suspendedAt) return next(forbidden('This account is suspended. Write to the Conewright team.', 'suspended'))
+      signIn(req, user).then(() => res.json(toPublicUser(user)), next)
+    })(req, res, next)
+  })
+
+  router.post('/logout', (req, res, next) => {
+    req.logout((error) => (error ? next(error) : res.status(204).end()))
+  })
+
+  router.get('/me', requireAuth, (req, res) => {
+    res.json(toPublicUser(req.user!))
+  })
+
+  router.patch('/me', requireAuth, validateBody(preferencesSchema), async (req, res) => {
+    const user = req.user!
+    Object.assign(user, req.body)
+    await ctx.db.getRepository('User').save(user)
+    res.json(toPublicUser(user))
+  })
+
+  router.post('/password-reset/request', perIp, resetPerAccount, validateBody(passwordResetRequestSchema), async (req, res) => {
+    await requestPasswordReset(ctx, req.body.email)
+    res.status(202).json({ ok: true })
+  })
+
+  router.post('/password-reset/confirm', perIp, validateBody(passwordResetConfirmSchema), async (req, res) => {
+    await confirmPasswordReset(ctx, req.body.token, req.body.password)
+    res.status(204).end()
+  })
+
+  router.post('/verify-email', perIp, validateBody(verifyEmailSchema), async (req, res) => {
+    await verifyEmail(ctx, req.body.token)
+    res.status(204).end()
+  })
+
+  router.post('/verify-email/resend', requireAuth, perIp, async (req, res) => {
+    await resendVerification(ctx, req.user!)
+    res.status(202).json({ ok: true })
+  })
+
+  return router
+}

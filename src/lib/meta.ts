@@ -1,0 +1,12 @@
+import { useQuery } from '@tanstack/react-query'
+import { api } from './api'
+
+/** Facts about this installation the client needs: where caught mail is, which basemap to draw. */
+export interface SiteMeta {
+  mailInboxUrl: string | null
+  tileUrl: string | null
+}
+
+export function useSiteMeta() {
+  return useQuery({ queryKey: ['meta'], queryFn: () => api<SiteMeta>('/api/meta'), staleTime: Infinity })
+}

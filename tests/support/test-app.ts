@@ -1,0 +1,64 @@
+import type { AddressInfo } from 'node:net'
+import type { Server } from 'node:http'
+import type { Runner } from 'graphile-worker'
+import { freePort } from '../../scripts/lib/system.mjs'
+import { createApp } from '../../server/app'
+import { loadConfig, type Config } from '../../server/config'
+import { silentLogger, type AppContext } from '../../server/context'
+import { createDataSource } from '../../server/db/data-source'
+import { startWorker } from '../../server/jobs/worker'
+import { startMailCatcher, type MailCatcher } from '../../server/fakes/mail-catcher'
+import { createTestDatabase } from './database'
+
+export interface TestApp {
+  url: string
+  ctx: AppContext
+  mail: MailCatcher | null
+  close(): Promise<void>
+}
+
+/**
+ * The real server on a random loopback port over its own cloned database, with the queue worker
+ * and (when asked) a mail catcher. Nothing is mocked.
+ */
+export async function startTestApp(
+  options: { mail?: boolean; worker?: boolean; config?: Partial<Config>; serveClient?: boolean } = {},
+): Promise<TestApp> {
+  const database = await createTestDatabase()
+  const mail = options.mail ? await startMailCatcher({ smtpPort: await freePort(), webPort: await freePort() }) : null
+  const config = loadConfig(
+    {},
+    {
+      databaseUrl: database.url,
+      smtpUrl: mail?.smtpUrl ?? 'smtp://127.0.0.1:9',
+      mailInboxUrl: mail?.webUrl ?? null,
+      serveClient: options.serveClient ?? false,
+      workerConcurrency: 2,
+      ...options.config,
+    },
+  )
+  const db = createDataSource(database.url, { poolSize: 10, applicationName: 'conewright-test' })
+  await db.initialize()
+  const ctx: AppContext = { config, db, log: process.env.TEST_LOG ? { ...console, warn: console.warn } : silentLogger }
+  const worker: Runner | null = options.worker === false ? null : await startWorker(ctx)
+  const { app, close } = createApp(ctx)
+  const server: Server = await new Promise((resolve) => {
+    const s = app.listen(0, '127.0.0.1', () => resolve(s))
+  })
+  const url = `http://127.0.0.1:${(server.address() as AddressInfo).port}`
+  if (!options.config?.publicUrl) config.publicUrl = url
+  return {
+    url,
+    ctx,
+    mail,
+    async close() {
+      server.closeAllConnections()
+      await new Promise((r) => server.close(r))
+      await worker?.stop()
+      close()
+      await db.destroy()
+      await mail?.close()
+      await database.drop()
+    },
+  }
+}
