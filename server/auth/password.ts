@@ -28,7 +28,9 @@ export function verifyPassword(password: string, hash: string | null): Promise<b
  * passwords, names and keyboard patterns; below 3 is guessable by an offline attack.
  */
 export function passwordProblem(password: string, userInputs: string[] = []): string | null {
-  const result = zxcvbn.check(password, userInputs.filter(Boolean))
+  // Whole inputs and their pieces: "hazel.quist@example.test" also counts "hazel" and "quist".
+  const words = userInputs.flatMap((input) => [input, ...input.toLowerCase().split(/[^a-z0-9]+/)]).filter((w) => w.length >= 3)
+  const result = zxcvbn.check(password, words)
   if (result.score >= 3) return null
   const why = result.feedback.warning || 'This password is too easy to guess.'
   const tip = result.feedback.suggestions[0] ?? 'Add more words or characters.'
