@@ -1,0 +1,226 @@
+// The hosted payment page a Checkout Session's `url` points at: a plain server-rendered form, clearly
+// marked as a local test page, that takes Stripe's test card numbers. Submitting it confirms the
+// session's payment the way Stripe's page does, then sends the customer to `success_url`.
+//
+// Form contract (for tests driving it without a browser): POST /checkout/:sessionId, urlencoded, fields
+// email, cardNumber, expiry ("MM / YY"), cvc, cardholderName, postalCode. Answers 303 to the success URL
+// on success, 402 with the page and its error on a decline, 400 for a card number or field the form refuses.
+import express, { type Request, type Response, type Router } from 'express'
+import type { CustomerEntry, TestModeAccount } from './account'
+import { formatAmount } from './currency'
+import { StripeApiError } from './errors'
+import type { LineItemObject, SessionObject } from './objects'
+import { checkCardEntry, type CardEntry } from './test-cards'
+
+export const CHECKOUT_PAGE_PATH = '/checkout'
+
+interface FormState {
+  email: string
+  cardNumber: string
+  expiry: string
+  cvc: string
+  cardholderName: string
+  postalCode: string
+}
+
+const EMPTY_FORM: FormState = { email: '', cardNumber: '', expiry: '', cvc: '', cardholderName: '', postalCode: '' }
+
+function escapeHtml(text: string): string {
+  return text
+    .replaceAll('&', '&amp;')
+    .replaceAll('<', '&lt;')
+    .replaceAll('>', '&gt;')
+    .replaceAll('"', '&quot;')
+    .replaceAll("'", '&#39;')
+}
+
+const STYLE = `
+  :root { --ink: #1f2428; --muted: #5b6470; --line: #d5d9de; --accent: #2f5d8a; --warn-bg: #fff4d6;
+    --warn-line: #e0b84c; --error-bg: #fdecec; --error-line: #c94a4a; --radius: 6px; }
+  * { box-sizing: border-box; }
+  body { margin: 0; font: 16px/1.45 system-ui, sans-serif; color: var(--ink); background: #f4f5f7; }
+  .test-banner { background: var(--warn-bg); border-bottom: 2px solid var(--warn-line); padding: .6rem 1rem;
+    text-align: center; font-weight: 600; }
+  main { max-width: 28rem; margin: 1.5rem auto; padding: 0 1rem; }
+  .panel { background: #fff; border: 1px solid var(--line); border-radius: var(--radius); padding: 1.25rem; }
+  h1 { font-size: 1.25rem; margin: 0 0 .75rem; }
+  .lines { list-style: none; margin: 0 0 .5rem; padding: 0; }
+  .lines li { display: flex; justify-content: space-between; gap: 1rem; padding: .25rem 0; }
+  .total { display: flex; justify-content: space-between; font-weight: 700; border-top: 1px solid var(--line);
+    padding-top: .5rem; margin-bottom: 1rem; }
+  label { display: block; font-size: .9rem; color: var(--muted); margin: .75rem 0 .25rem; }
+  input { width: 100%; padding: .55rem .6rem; border: 1px solid var(--line); border-radius: var(--radius); font: inherit; }
+  .row { display: flex; gap: .75rem; } .row > div { flex: 1; }
+  button { width: 100%; margin-top: 1.25rem; padding: .7rem; border: 0; border-radius: var(--radius);
+    background: var(--accent); color: #fff; font: inherit; font-weight: 600; cursor: pointer; }
+  .error { background: var(--error-bg); border: 1px solid var(--error-line); border-radius: var(--radius);
+    padding: .6rem .75rem; margin-bottom: 1rem; }
+  .cancel { display: inline-block; margin-top: 1rem; color: var(--accent); }
+  details { margin-top: 1rem; font-size: .9rem; color: var(--muted); }
+  code { font-size: .9em; }
+`
+
+function page(title: string, body: string): string {
+  return `<!doctype html>
+<html lang="en">
+<head>
+<meta charset="utf-8">
+<meta name="viewport" content="width=device-width, initial-scale=1">
+<meta name="robots" content="noindex">
+<title>${escapeHtml(title)} · Local test payment page</title>
+<style>${STYLE}</style>
+</head>
+<body>
+<div class="test-banner" role="note">Local test payment page (Stripe stand-in). No card is charged and no money moves.</div>
+<main>${body}</main>
+</body>
+</html>`
+}
+
+function submitLabel(session: SessionObject): string {
+  const amount = formatAmount(session.amount_total ?? 0, session.currency ?? 'usd')
+  if (session.submit_type === 'book') return `Book · ${amount}`
+  if (session.submit_type === 'donate') return `Donate ${amount}`
+  return `Pay ${amount}`
+}
+
+function field(name: keyof FormState, label: string, value: string, attributes: string): string {
+  return `<label for="${name}">${escapeHtml(label)}</label>
+<input id="${name}" name="${name}" value="${escapeHtml(value)}" ${attributes}>`
+}
+
+function renderCheckout(session: SessionObject, lineItems: LineItemObject[], form: FormState, error: string | null): string {
+  const currency = session.currency ?? 'usd'
+  const lines = lineItems
+    .map(
+      (item) =>
+        `<li><span>${escapeHtml(item.description ?? '')}${item.quantity && item.quantity > 1 ? ` × ${item.quantity}` : ''}</span>` +
+        `<span>${escapeHtml(formatAmount(item.amount_total, currency))}</span></li>`,
+    )
+    .join('')
+  const email = session.customer_email ?? form.email
+  const emailAttributes = session.customer_email
+    ? 'type="email" autocomplete="email" readonly'
+    : 'type="email" autocomplete="email" required'
+  const cancel = session.cancel_url
+    ? `<a class="cancel" href="${escapeHtml(session.cancel_url)}">Cancel and go back</a>`
+    : ''
+  return page(
+    'Pay',
+    `<div class="panel">
+<h1>Checkout</h1>
+<ul class="lines">${lines}</ul>
+<div class="total"><span>Total due</span><span data-testid="total">${escapeHtml(formatAmount(session.amount_total ?? 0, currency))}</span></div>
+${error ? `<div class="error" role="alert">${escapeHtml(error)}</div>` : ''}
+<form method="post" novalidate>
+${field('email', 'Email', email, emailAttributes)}
+${field('cardNumber', 'Card number', form.cardNumber, 'inputmode="numeric" autocomplete="cc-number" placeholder="1234 1234 1234 1234" required')}
+<div class="row">
+<div>${field('expiry', 'Expiry (MM / YY)', form.expiry, 'inputmode="numeric" autocomplete="cc-exp" placeholder="MM / YY" required')}</div>
+<div>${field('cvc', 'CVC', form.cvc, 'inputmode="numeric" autocomplete="cc-csc" placeholder="123" required')}</div>
+</div>
+${field('cardholderName', 'Name on card', form.cardholderName, 'autocomplete="cc-name"')}
+${field('postalCode', 'Postal code', form.postalCode, 'autocomplete="postal-code" required')}
+<button type="submit">${escapeHtml(submitLabel(session))}</button>
+</form>
+${cancel}
+<details>
+<summary>Test cards</summary>
+<p><code>4242 4242 4242 4242</code> succeeds; <code>4000 0000 0000 0002</code> is declined;
+<code>4000 0000 0000 9995</code> is declined for insufficient funds. Any future expiry, any 3-digit CVC.</p>
+</details>
+</div>`,
+  )
+}
+
+function renderNotice(title: string, message: string, link: { href: string; text: string } | null): string {
+  const anchor = link ? `<a class="cancel" href="${escapeHtml(link.href)}">${escapeHtml(link.text)}</a>` : ''
+  return page(title, `<div class="panel"><h1>${escapeHtml(title)}</h1><p>${escapeHtml(message)}</p>${anchor}</div>`)
+}
+
+// Stripe fills the `{CHECKOUT_SESSION_ID}` template in success_url with the session's id.
+export function successRedirect(session: SessionObject): string | null {
+  return session.success_url ? session.success_url.replaceAll('{CHECKOUT_SESSION_ID}', session.id) : null
+}
+
+function readForm(body: unknown): FormState {
+  const source = (typeof body === 'object' && body !== null ? body : {}) as Record<string, unknown>
+  const text = (name: keyof FormState) => (typeof source[name] === 'string' ? (source[name] as string) : '')
+  return {
+    email: text('email').trim(),
+    cardNumber: text('cardNumber'),
+    expiry: text('expiry'),
+    cvc: text('cvc'),
+    cardholderName: text('cardholderName').trim(),
+    postalCode: text('postalCode').trim(),
+  }
+}
+
+const EMAIL_PATTERN = /^[^\s@]+@[^\s@]+\.[^\s@]+$/
+
+export function createHostedCheckoutRouter(account: TestModeAccount, now: () => number): Router {
+  const router = express.Router()
+  router.use(express.urlencoded({ extended: false, limit: '16kb' }))
+
+  // Loads the session or answers for a session that cannot take a payment; null means "already answered".
+  const openSession = (req: Request, res: Response): SessionObject | null => {
+    let session: SessionObject
+    try {
+      session = account.session(String(req.params.id))
+    } catch (error) {
+      if (!(error instanceof StripeApiError)) throw error
+      res.status(404).type('html').send(renderNotice('Checkout not found', 'There is no checkout session at this address.', null))
+      return null
+    }
+    if (session.status === 'complete') {
+      const target = successRedirect(session)
+      if (target) res.redirect(303, target)
+      else res.status(200).type('html').send(renderNotice('Payment complete', 'This checkout session has been paid.', null))
+      return null
+    }
+    if (session.status === 'expired') {
+      const back = session.cancel_url ? { href: session.cancel_url, text: 'Go back' } : null
+      res.status(410).type('html').send(renderNotice('Checkout expired', 'This checkout session has expired. No payment was taken.', back))
+      return null
+    }
+    return session
+  }
+
+  router.get('/:id', (req, res) => {
+    const session = openSession(req, res)
+    if (!session) return
+    res.status(200).type('html').send(renderCheckout(session, account.lineItems(session.id), EMPTY_FORM, null))
+  })
+
+  router.post('/:id', (req, res) => {
+    const session = openSession(req, res)
+    if (!session) return
+    const form = readForm(req.body)
+    const lineItems = account.lineItems(session.id)
+    const refuse = (status: number, message: string) =>
+      res.status(status).type('html').send(renderCheckout(session, lineItems, form, message))
+
+    const email = session.customer_email ?? form.email
+    if (!EMAIL_PATTERN.test(email)) {
+      refuse(400, 'Your email address is incomplete.')
+      return
+    }
+    const entry: CardEntry = { number: form.cardNumber, expiry: form.expiry, cvc: form.cvc, postalCode: form.postalCode }
+    const checked = checkCardEntry(entry, new Date(now()))
+    if (!checked.ok) {
+      refuse(400, checked.message)
+      return
+    }
+    const customer: CustomerEntry = { email, name: form.cardholderName, postalCode: form.postalCode }
+    const attempt = account.payCheckoutSession(session.id, checked.card, customer)
+    if (attempt.result === 'declined') {
+      refuse(402, `${attempt.message} Try another card.`)
+      return
+    }
+    const target = successRedirect(attempt.session)
+    if (target) res.redirect(303, target)
+    else res.status(200).type('html').send(renderNotice('Payment complete', 'Thank you, your payment went through.', null))
+  })
+
+  return router
+}
