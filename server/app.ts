@@ -11,8 +11,13 @@ import type { AppContext } from './context'
 import { errorHandler, notFoundApi } from './http/errors'
 import { poolOf } from './jobs/worker'
 import { authRouter } from './routes/auth'
+import { firingsRouter } from './routes/firings'
 import { healthRouter } from './routes/health'
+import { invitesRouter } from './routes/invites'
+import { kilnsRouter } from './routes/kilns'
 import { metaRouter } from './routes/meta'
+import { studiosRouter } from './routes/studios'
+import { wareChecksRouter } from './routes/ware-checks'
 
 export interface App {
   app: Express
@@ -89,6 +94,12 @@ export function createApp(ctx: AppContext): App {
   })
 
   app.use('/api/auth', authRouter(ctx, passport, csrfToken))
+  app.use('/api', wareChecksRouter(ctx))
+
+  app.use('/api', studiosRouter(ctx))
+  app.use('/api', kilnsRouter(ctx))
+  app.use('/api', firingsRouter(ctx))
+  app.use('/api', invitesRouter(ctx))
 
   app.use('/api', notFoundApi)
 

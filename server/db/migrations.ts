@@ -1,5 +1,7 @@
 // Every migration in the order it runs. `npm run migration:generate -- Name` writes a new file into
 // ./migrations; add its class to the end of this list.
 import { Foundation1796149373286 } from './migrations/1796149373286-Foundation'
+import { StudiosKilnsFirings1796150510924 } from './migrations/1796150510924-StudiosKilnsFirings'
+import { FiringRequests1796150607023 } from './migrations/1796150607023-FiringRequests'
 
-export const migrations: Function[] = [Foundation1796149373286]
+export const migrations: Function[] = [Foundation1796149373286, StudiosKilnsFirings1796150510924, FiringRequests1796150607023]

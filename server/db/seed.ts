@@ -3,6 +3,7 @@ import type { UserRole } from '../../shared/schemas/auth'
 import { hashPassword } from '../auth/password'
 import type { AppContext } from '../context'
 import { User } from '../entities/User'
+import { seedDemoStudios } from './demo-studios'
 
 /** Every demo account shares this password; the README lists the accounts. */
 export const DEMO_PASSWORD = 'glaze-and-fire-demo'
@@ -16,7 +17,6 @@ export interface DemoPerson {
 export const DEMO_PEOPLE: DemoPerson[] = [
   { email: 'wren.alvarado@demo.conewright.test', displayName: 'Wren Alvarado', role: 'potter' },
   { email: 'theo.marsh@demo.conewright.test', displayName: 'Theo Marsh', role: 'potter' },
-  { email: 'marisol.okafor@demo.conewright.test', displayName: 'Marisol Okafor', role: 'host' },
   { email: 'admin@demo.conewright.test', displayName: 'Conewright Desk', role: 'admin' },
 ]
 
@@ -36,5 +36,6 @@ export async function seedDemo(ctx: AppContext) {
     // One seed at a time, even with several processes starting together.
     await manager.query(`SELECT pg_advisory_xact_lock(hashtext('conewright-demo-seed'))`)
     for (const person of DEMO_PEOPLE) await ensureDemoUser(manager, person, passwordHash)
+    await seedDemoStudios(manager, (person) => ensureDemoUser(manager, person, passwordHash))
   })
 }

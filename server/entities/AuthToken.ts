@@ -1,9 +1,11 @@
-import { Column, CreateDateColumn, Entity, Index, PrimaryGeneratedColumn } from 'typeorm'
+import { Check, Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn } from 'typeorm'
+import type { User } from './User'
 
 export type TokenPurpose = 'verify-email' | 'password-reset' | 'crew-invite'
 
 /** A single-use link token. Only its SHA-256 is stored, so a leaked table opens no accounts. */
 @Entity({ name: 'auth_tokens' })
+@Check('auth_tokens_purpose_check', `"purpose" IN ('verify-email', 'password-reset', 'crew-invite')`)
 export class AuthToken {
   @PrimaryGeneratedColumn('uuid')
   id: string
@@ -17,6 +19,10 @@ export class AuthToken {
 
   @Column({ name: 'user_id', type: 'uuid', nullable: true })
   userId: string | null
+
+  @ManyToOne('User', { onDelete: 'CASCADE', nullable: true })
+  @JoinColumn({ name: 'user_id', foreignKeyConstraintName: 'auth_tokens_user_fk' })
+  user: User | null
 
   /** Purpose-specific facts, e.g. the studio and address a crew invitation is for. */
   @Column({ type: 'jsonb', default: {} })

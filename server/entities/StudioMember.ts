@@ -1,10 +1,12 @@
-import { Column, CreateDateColumn, Entity, JoinColumn, ManyToOne, PrimaryGeneratedColumn, Unique } from 'typeorm'
+import { Check, Column, Index, CreateDateColumn, Entity, JoinColumn, ManyToOne, PrimaryGeneratedColumn, Unique } from 'typeorm'
 import type { Studio } from './Studio'
 import type { User } from './User'
 
 export type StudioRole = 'owner' | 'crew'
 
 @Entity({ name: 'studio_members' })
+@Index('studio_members_user_idx', ['userId'])
+@Check('studio_members_role_check', `"role" IN ('owner', 'crew')`)
 @Unique('studio_members_studio_user_key', ['studioId', 'userId'])
 export class StudioMember {
   @PrimaryGeneratedColumn('uuid')

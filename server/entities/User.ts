@@ -1,7 +1,10 @@
-import { Column, CreateDateColumn, Entity, Index, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm'
+import { Check, Column, CreateDateColumn, Entity, Index, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm'
 import type { UserRole, UnitSystem } from '../../shared/schemas/auth'
 
 @Entity({ name: 'users' })
+@Check('users_role_check', `"role" IN ('potter', 'host', 'crew', 'admin')`)
+@Check('users_unit_system_check', `"unit_system" IN ('imperial', 'metric')`)
+@Check('users_email_lower_check', `"email" = lower("email")`)
 export class User {
   @PrimaryGeneratedColumn('uuid')
   id: string

@@ -1,6 +1,7 @@
 import { Router, type RequestHandler } from 'express'
 import type { PassportStatic } from 'passport'
 import {
+  type RegisterBody,
   loginSchema,
   passwordResetConfirmSchema,
   passwordResetRequestSchema,
@@ -13,13 +14,14 @@ import { accountKey, makeLimiter } from '../auth/rate-limit'
 import type { AppContext } from '../context'
 import type { User } from '../entities/User'
 import { forbidden, HttpError } from '../http/errors'
+import { acceptInvite, inviteForRegistration } from '../services/crew'
 import { validateBody } from '../http/validate'
 import {
   confirmPasswordReset,
   registerUser,
   requestPasswordReset,
   resendVerification,
-  toPublicUser,
+  publicUserWithStudios,
   verifyEmail,
 } from '../services/users'
 
@@ -43,9 +45,22 @@ export function authRouter(ctx: AppContext, passport: PassportStatic, csrfToken:
   router.get('/csrf', csrfToken)
 
   router.post('/register', perIp, validateBody(registerSchema), async (req, res) => {
-    const user = await registerUser(ctx, req.body)
+    const { inviteToken, ...body } = req.body as RegisterBody
+    // Registering through a crew invitation: the account joins the studio, and the mailed link has
+    // already proven the address.
+    if (inviteToken) await inviteForRegistration(ctx, inviteToken, body.email)
+    const user = await registerUser(
+      ctx,
+      { ...body, role: inviteToken ? 'crew' : body.role },
+      inviteToken
+        ? async (manager, created) => {
+            await acceptInvite(manager, created, inviteToken)
+            return { addressProven: true }
+          }
+        : undefined,
+    )
     await signIn(req, user)
-    res.status(201).json(toPublicUser(user))
+    res.status(201).json(await publicUserWithStudios(ctx, user))
   })
 
   router.post('/login', perIp, perAccount, validateBody(loginSchema), (req, res, next) => {
@@ -53,7 +68,9 @@ export function authRouter(ctx: AppContext, passport: PassportStatic, csrfToken:
       if (error) return next(error)
       if (!user) return next(new HttpError(401, 'bad-credentials', 'That e-mail and password do not match an account.'))
       if (user.suspendedAt) return next(forbidden('This account is suspended. Write to the Conewright team.', 'suspended'))
-      signIn(req, user).then(() => res.json(toPublicUser(user)), next)
+      signIn(req, user)
+        .then(() => publicUserWithStudios(ctx, user))
+        .then((json) => res.json(json), next)
     })(req, res, next)
   })
 
@@ -61,15 +78,15 @@ export function authRouter(ctx: AppContext, passport: PassportStatic, csrfToken:
     req.logout((error) => (error ? next(error) : res.status(204).end()))
   })
 
-  router.get('/me', requireAuth, (req, res) => {
-    res.json(toPublicUser(req.user!))
+  router.get('/me', requireAuth, async (req, res) => {
+    res.json(await publicUserWithStudios(ctx, req.user!))
   })
 
   router.patch('/me', requireAuth, validateBody(preferencesSchema), async (req, res) => {
     const user = req.user!
     Object.assign(user, req.body)
     await ctx.db.getRepository('User').save(user)
-    res.json(toPublicUser(user))
+    res.json(await publicUserWithStudios(ctx, user))
   })
 
   router.post('/password-reset/request', perIp, resetPerAccount, validateBody(passwordResetRequestSchema), async (req, res) => {

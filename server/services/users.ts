@@ -19,6 +19,15 @@ export function toPublicUser(user: User): PublicUser {
   }
 }
 
+/** The user with the studios they belong to, so the client can offer each studio's board. */
+export async function publicUserWithStudios(ctx: AppContext, user: User): Promise<PublicUser> {
+  const rows: { id: string; name: string; role: 'owner' | 'crew' }[] = await ctx.db.query(
+    `SELECT s.id, s.name, m.role FROM studio_members m JOIN studios s ON s.id = m.studio_id WHERE m.user_id = $1 ORDER BY m.created_at`,
+    [user.id],
+  )
+  return { ...toPublicUser(user), studios: rows }
+}
+
 function assertStrongPassword(password: string, inputs: string[]) {
   const problem = passwordProblem(password, inputs)
   if (problem) throw badRequest('Choose a stronger password.', { password: problem }, 'weak-password')
@@ -32,12 +41,13 @@ export async function sendVerificationMail(ctx: AppContext, manager: EntityManag
 
 /**
  * Creates an account and queues its verification mail in one transaction. `hook` lets a caller do
- * more in the same transaction (joining a studio from an invitation, say).
+ * more in the same transaction (joining a studio from an invitation, say); when it answers
+ * `{ addressProven: true }` the address counts as confirmed and no confirmation mail is sent.
  */
 export async function registerUser(
   ctx: AppContext,
   input: Omit<RegisterBody, 'role' | 'inviteToken'> & { role: UserRole },
-  hook?: (manager: EntityManager, user: User) => Promise<void>,
+  hook?: (manager: EntityManager, user: User) => Promise<{ addressProven: boolean } | void>,
 ): Promise<User> {
   assertStrongPassword(input.password, [input.email, input.displayName, 'conewright'])
   const passwordHash = await hashPassword(input.password)
@@ -56,8 +66,13 @@ export async function registerUser(
         suspendedAt: null,
       }),
     )
-    await hook?.(manager, user)
-    await sendVerificationMail(ctx, manager, user)
+    const outcome = await hook?.(manager, user)
+    if (outcome?.addressProven) {
+      user.emailVerifiedAt = new Date()
+      await manager.update(User, user.id, { emailVerifiedAt: user.emailVerifiedAt })
+    } else {
+      await sendVerificationMail(ctx, manager, user)
+    }
     return user
   })
 }

@@ -5,17 +5,19 @@
 import { coneReached, coneTemperatureC, type Cone } from './cones'
 import type { FiringKind, Kiln, Piece } from './check'
 
-export type SegmentZone =
-  | 'water-smoking'
-  | 'candling'
-  | 'ramp'
-  | 'dehydroxylation'
-  | 'quartz-inversion'
-  | 'burnout'
-  | 'final-100'
-  | 'cool'
-  | 'quartz-inversion-cool'
-  | 'cristobalite-cool'
+export const SEGMENT_ZONES = [
+  'water-smoking',
+  'candling',
+  'ramp',
+  'dehydroxylation',
+  'quartz-inversion',
+  'burnout',
+  'final-100',
+  'cool',
+  'quartz-inversion-cool',
+  'cristobalite-cool',
+] as const
+export type SegmentZone = (typeof SEGMENT_ZONES)[number]
 
 /**
  * One controller step: climb (toC > fromC) or cool (toC < fromC) at rateCPerHour, then hold at toC

@@ -12,6 +12,8 @@ export interface PublicUser {
   role: UserRole
   emailVerified: boolean
   unitSystem: UnitSystem
+  /** The studios this person owns or crews for. */
+  studios?: { id: string; name: string; role: 'owner' | 'crew' }[]
 }
 
 const email = z

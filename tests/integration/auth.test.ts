@@ -224,17 +224,3 @@ describe('password reset', () => {
   })
 })
 
-describe('cookies behind TLS', () => {
-  it('marks the session cookie Secure when the public address is https', async () => {
-    const tls = await startTestApp({ worker: false, config: { publicUrl: 'https://kilns.example.test', secureCookies: true } })
-    try {
-      // The TLS terminator in front says the request came in over https.
-      const res = await fetch(`${tls.url}/api/auth/csrf`, { headers: { 'X-Forwarded-Proto': 'https' } })
-      const cookie = res.headers.getSetCookie().find((c) => c.startsWith('cw.sid='))!
-      expect(cookie).toMatch(/; Secure/i)
-      expect(cookie).toMatch(/HttpOnly/i)
-    } finally {
-      await tls.close()
-    }
-  })
-})

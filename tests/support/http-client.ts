@@ -41,7 +41,7 @@ export class HttpSession {
     method: string,
     path: string,
     body?: unknown,
-    options: { csrf?: boolean; headers?: Record<string, string>; raw?: string | Buffer | FormData } = {},
+    options: { csrf?: boolean; headers?: Record<string, string>; raw?: string | Uint8Array<ArrayBuffer> | FormData } = {},
   ): Promise<Reply<T>> {
     const headers: Record<string, string> = { Accept: 'application/json' }
     // Fetching the token may start the session, so it comes before the cookie header is written.

@@ -1,0 +1,24 @@
+import { Router } from 'express'
+import { placesQuerySchema, type PlacesQuery } from '../../shared/schemas/places'
+import { makeLimiter } from '../auth/rate-limit'
+import type { AppContext } from '../context'
+import { validateQuery } from '../http/validate'
+import { lookupPlace, searchPlaces, type Place } from '../services/gazetteer'
+
+export function placesRouter(ctx: AppContext) {
+  const router = Router()
+  const perIp = makeLimiter(ctx.db, 'places', { limit: ctx.config.rateLimits.openApiPerIpPerMin, windowMs: 60_000 })
+
+  // Open: the studio form and the search box both look places up before anyone signs in.
+  router.get('/places', perIp, validateQuery(placesQuerySchema), (_req, res) => {
+    const { q, limit = 8 } = res.locals.query as PlacesQuery
+    // A whole address or postcode resolves to one place; what follows are completions of the prefix.
+    const places = new Map<string, Place>()
+    for (const place of [lookupPlace(q), ...searchPlaces(q, limit)]) {
+      if (place && !places.has(place.label)) places.set(place.label, place)
+    }
+    res.json({ places: [...places.values()].slice(0, limit) })
+  })
+
+  return router
+}

@@ -1,0 +1,151 @@
+// Bodies of the studio, kiln, price list and firing routes. The editors use the same schemas.
+import { z } from 'zod'
+import { coneSchema, atmosphereSchema, kilnSchema, priceListSchema } from './firing'
+import { FIRING_STATUSES } from '../workflow/firing-status'
+import { SEGMENT_ZONES } from '../firing/schedule'
+
+export const CLAY_BODIES = ['earthenware', 'stoneware', 'porcelain', 'other'] as const
+
+export function isTimeZone(zone: string): boolean {
+  try {
+    new Intl.DateTimeFormat('en-US', { timeZone: zone })
+    return true
+  } catch {
+    return false
+  }
+}
+
+const text = (max: number, what: string) => z.string({ error: `Enter the ${what}.` }).trim().max(max, `Keep the ${what} under ${max} characters.`)
+
+export const studioPoliciesSchema = z.object({
+  clayBodies: z
+    .array(z.enum(CLAY_BODIES, { error: 'Choose from earthenware, stoneware, porcelain and other.' }))
+    .min(1, 'Accept at least one clay body.')
+    .max(4)
+    .refine((bodies) => new Set(bodies).size === bodies.length, 'List each clay body once.'),
+  wareRequirements: text(2000, 'ware requirements'),
+  cancellation: z.object({
+    fullRefundDaysBefore: z
+      .number({ error: 'Enter a number of days.' })
+      .int('Enter whole days.')
+      .min(0, 'Days cannot be negative.')
+      .max(90, 'At most 90 days.'),
+    laterRefundPercent: z.number({ error: 'Enter a percent.' }).min(0, 'At least 0 %.').max(100, 'At most 100 %.'),
+  }),
+  /** How long an accepted request may wait for its deposit before its space is released. */
+  depositHoldHours: z.number({ error: 'Enter a number of hours.' }).int('Enter whole hours.').min(1, 'At least 1 hour.').max(336, 'At most 14 days.'),
+})
+export type StudioPolicies = z.infer<typeof studioPoliciesSchema>
+
+export const DEFAULT_POLICIES: StudioPolicies = {
+  clayBodies: ['stoneware', 'porcelain'],
+  wareRequirements: 'Bone dry or bisqued; no glaze within 1/4 inch of the foot; runny glazes on a cookie.',
+  cancellation: { fullRefundDaysBefore: 7, laterRefundPercent: 50 },
+  depositHoldHours: 48,
+}
+
+const name = z.string({ error: 'Enter the studio’s name.' }).trim().min(2, 'Enter the studio’s name.').max(120, 'Keep the name under 120 characters.')
+const postalCode = z.string().trim().min(3, 'Enter a postal or ZIP code.').max(12, 'That postal code is too long.')
+const address = z.string().trim().min(5, 'Enter the street address with its town or ZIP code.').max(300, 'That address is too long.')
+
+export const studioCreateSchema = z
+  .object({ name, postalCode: postalCode.optional(), address: address.optional() })
+  .refine((s) => s.postalCode || s.address, { message: 'Enter a postal code or an address so potters can find you.', path: ['postalCode'] })
+export type StudioCreateBody = z.infer<typeof studioCreateSchema>
+
+export const studioPatchSchema = z
+  .object({
+    name,
+    description: text(4000, 'description'),
+    address: address.nullable(),
+    postalCode,
+    lat: z.number().min(-90).max(90),
+    lng: z.number().min(-180).max(180),
+    timezone: z.string().refine(isTimeZone, 'Choose a time zone from the list.'),
+    currency: z.string().trim().toUpperCase().regex(/^[A-Z]{3}$/, 'Use a three-letter currency code, like USD.'),
+    dropOffHours: text(300, 'drop-off hours'),
+    policies: studioPoliciesSchema,
+    published: z.boolean(),
+  })
+  .partial()
+  .refine((s) => (s.lat === undefined) === (s.lng === undefined), { message: 'Move the pin to set both latitude and longitude.', path: ['lat'] })
+export type StudioPatchBody = z.infer<typeof studioPatchSchema>
+
+const kilnExtras = z.object({
+  name: z.string({ error: 'Name the kiln.' }).trim().min(1, 'Name the kiln.').max(80, 'Keep the name under 80 characters.'),
+  shelfCount: z.number({ error: 'Enter how many shelves.' }).int('Enter a whole number of shelves.').min(0).max(60),
+  shelfWidthMm: z.number().positive('The shelf size must be more than 0.').max(5000).nullable().optional(),
+  shelfDepthMm: z.number().positive('The shelf size must be more than 0.').max(5000).nullable().optional(),
+  notes: text(2000, 'notes').optional(),
+})
+
+/** A kiln record: its limits (the Kiln of shared/firing/check.ts) and what a host adds. */
+export const kilnBodySchema = z.intersection(kilnExtras, kilnSchema)
+export type KilnBody = z.infer<typeof kilnBodySchema>
+
+/** Any subset; the server merges it with the stored kiln and checks the whole again. */
+export const kilnPatchSchema = z.record(z.string(), z.unknown())
+
+export const priceListBodySchema = priceListSchema
+export type PriceListBody = z.infer<typeof priceListBodySchema>
+
+const instant = (what: string) => z.iso.datetime({ offset: true, error: `Enter the ${what} as a date and time.` })
+
+const segmentSchema = z.object({
+  fromC: z.number().min(-50).max(2000),
+  toC: z.number().min(-50).max(2000),
+  rateCPerHour: z.number().positive().max(5000),
+  holdMinutes: z.number().min(0).max(10_000),
+  zone: z.enum(SEGMENT_ZONES),
+})
+
+const firingFields = {
+  kind: z.enum(['bisque', 'glaze', 'single'], { error: 'Choose bisque, glaze or single firing.' }),
+  cone: coneSchema,
+  atmosphere: atmosphereSchema,
+  slowCool: z.boolean().optional(),
+  dropOffBy: instant('drop-off deadline'),
+  firingDate: instant('firing date'),
+  readyBy: instant('ready-by date'),
+  capacityL: z.number({ error: 'Enter the space on sale, in litres.' }).positive('The space on sale must be more than 0.').max(100_000),
+  notes: text(2000, 'notes').optional(),
+  schedule: z.array(segmentSchema).max(60).nullable().optional(),
+}
+
+function datesInOrder(f: { dropOffBy?: string; firingDate?: string; readyBy?: string }, ctx: z.RefinementCtx) {
+  const t = (s?: string) => (s ? Date.parse(s) : undefined)
+  const [drop, fire, ready] = [t(f.dropOffBy), t(f.firingDate), t(f.readyBy)]
+  if (drop !== undefined && fire !== undefined && drop > fire)
+    ctx.addIssue({ code: 'custom', path: ['dropOffBy'], message: 'Drop-off must close before the firing starts.' })
+  if (fire !== undefined && ready !== undefined && fire > ready)
+    ctx.addIssue({ code: 'custom', path: ['readyBy'], message: 'Ware can be ready only after the firing.' })
+}
+
+export const firingCreateSchema = z
+  .object({
+    ...firingFields,
+    repeat: z
+      .object({
+        everyWeeks: z.number().int().min(1, 'Repeat at least every week.').max(8, 'Repeat at most every 8 weeks.'),
+        times: z.number().int().min(2, 'A repeat makes at least 2 firings.').max(26, 'At most 26 firings at once.'),
+      })
+      .optional(),
+  })
+  .superRefine(datesInOrder)
+export type FiringCreateBody = z.infer<typeof firingCreateSchema>
+
+export const firingPatchSchema = z
+  .object({ ...firingFields, status: z.enum(FIRING_STATUSES, { error: 'Unknown firing status.' }) })
+  .partial()
+  .superRefine(datesInOrder)
+export type FiringPatchBody = z.infer<typeof firingPatchSchema>
+
+export const firingCancelSchema = z.object({
+  reason: z.string({ error: 'Say why the firing is cancelled; potters holding space will read it.' }).trim().min(3, 'Say why the firing is cancelled.').max(500),
+})
+
+export const crewInviteSchema = z.object({
+  email: z.string().trim().toLowerCase().pipe(z.email({ error: 'Enter a valid e-mail address.' })),
+})
+
+export const inviteAcceptSchema = z.object({ token: z.string().min(10).max(200) })
