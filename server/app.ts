@@ -16,6 +16,7 @@ import { healthRouter } from './routes/health'
 import { invitesRouter } from './routes/invites'
 import { kilnsRouter } from './routes/kilns'
 import { metaRouter } from './routes/meta'
+import { placesRouter } from './routes/places'
 import { studiosRouter } from './routes/studios'
 import { wareChecksRouter } from './routes/ware-checks'
 
@@ -100,6 +101,7 @@ export function createApp(ctx: AppContext): App {
   app.use('/api', kilnsRouter(ctx))
   app.use('/api', firingsRouter(ctx))
   app.use('/api', invitesRouter(ctx))
+  app.use('/api', placesRouter(ctx))
 
   app.use('/api', notFoundApi)
 

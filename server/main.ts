@@ -7,6 +7,7 @@ import { consoleLogger, type AppContext } from './context'
 import { createDataSource } from './db/data-source'
 import { seedDemo } from './db/seed'
 import { migrateQueue, startWorker } from './jobs/worker'
+import { warmGazetteer } from './services/gazetteer'
 
 const log = consoleLogger()
 const config = loadConfig()
@@ -24,10 +25,12 @@ if (process.env.SEED_DEMO === 'true') {
   log.info('demo data is in place')
 }
 
+// Load the place data now rather than on the first request that needs it.
+warmGazetteer()
 const worker = config.runWorker ? await startWorker(ctx) : null
 const { app, close } = createApp(ctx)
 const server: Server = app.listen(config.port, config.host, () => {
-  log.info(`listening on ${config.publicUrl}`)
+  log.info(`listening on http://${config.host}:${config.port} (public address ${config.publicUrl})`)
 })
 
 let stopping = false

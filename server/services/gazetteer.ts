@@ -243,8 +243,8 @@ function gazetteer(): Index {
 }
 
 /**
- * The centroid of a town's ZIP positions, counting each position once and leaving out those more
- * than 50 km from the median: post-office-box ZIPs often share one placeholder point far from town.
+ * The centroid of a town's ZIP positions, counting each position once (its post-office-box ZIPs
+ * often share one placeholder point) and leaving out any more than 50 km from the median.
  */
 function townCentre(positions: [number, number][]): [number, number] {
   const median = (values: number[]) => {
