@@ -9,6 +9,7 @@ import { KilnRoomPage } from '../features/home/pages/KilnRoomPage'
 import { LandingPage } from '../features/home/pages/LandingPage'
 import { MyWarePage } from '../features/home/pages/MyWarePage'
 import { SafetyPage } from '../features/home/pages/SafetyPage'
+import { PlannerPage } from '../features/planner/pages/PlannerPage'
 import { ErrorPage, NotFoundPage } from './ErrorPage'
 import { Layout } from './Layout'
 import { RequireRole } from './RequireRole'
@@ -25,6 +26,7 @@ export const router = createBrowserRouter([
       { path: 'forgot-password', element: <ForgotPasswordPage /> },
       { path: 'reset-password', element: <ResetPasswordPage /> },
       { path: 'safety', element: <SafetyPage /> },
+      { path: 'planner', element: <PlannerPage /> },
       { path: 'my-ware', element: <RequireRole roles={['potter']}><MyWarePage /></RequireRole> },
       { path: 'kiln-room', element: <RequireRole roles={['host', 'crew']}><KilnRoomPage /></RequireRole> },
       { path: 'front-desk', element: <RequireRole roles={['admin']}><FrontDeskPage /></RequireRole> },

@@ -1,0 +1,122 @@
+import { Controller, useWatch } from 'react-hook-form'
+import type { Atmosphere } from '../../../../shared/firing/check'
+import { Checkbox, Field, Select } from '../../../components/ui/Field'
+import { DEMO_KILNS } from '../demoKilns'
+import { lengthMeasure, rateMeasure, temperatureMeasure } from '../units'
+import { ConeField } from './ConeField'
+import type { FormSectionProps } from './sectionProps'
+import { FormSection } from './FormSection'
+import { MeasureField } from './MeasureField'
+
+const KINDS = [
+  ['electric', 'Electric'],
+  ['gas', 'Gas'],
+  ['wood', 'Wood'],
+  ['soda', 'Soda'],
+  ['salt', 'Salt'],
+  ['raku', 'Raku'],
+] as const
+
+export const ATMOSPHERES: readonly { value: Atmosphere; label: string }[] = [
+  { value: 'oxidation', label: 'Oxidation' },
+  { value: 'reduction', label: 'Reduction' },
+  { value: 'neutral', label: 'Neutral' },
+]
+
+export function KilnFields({ control, register, messages, units, onPickDemo }: FormSectionProps & { onPickDemo: (id: string) => void }) {
+  const shape = useWatch({ control, name: 'kiln.interior.shape' })
+  const length = lengthMeasure(units)
+  const shared = { control, messages }
+
+  return (
+    <FormSection title="Kiln" lead="Its real limits: what it can reach, hold and fit.">
+      <div className="grid gap-4 sm:grid-cols-2">
+        <Field label="Start from a demo kiln" hint="Invented examples; change anything that differs in yours." className="sm:col-span-2">
+          {(a11y) => (
+            <Select {...a11y} {...register('demoKilnId', { onChange: (event) => onPickDemo(event.target.value) })}>
+              <option value="">My own kiln</option>
+              {DEMO_KILNS.map((demo) => (
+                <option key={demo.id} value={demo.id}>
+                  {demo.name}
+                </option>
+              ))}
+            </Select>
+          )}
+        </Field>
+        <Field label="Kind" error={messages['kiln.kind']}>
+          {(a11y) => (
+            <Select {...a11y} {...register('kiln.kind')}>
+              {KINDS.map(([value, label]) => (
+                <option key={value} value={value}>
+                  {label}
+                </option>
+              ))}
+            </Select>
+          )}
+        </Field>
+        <Controller
+          control={control}
+          name="kiln.atmospheres"
+          render={({ field }) => (
+            <fieldset>
+              <legend className="block text-sm font-medium text-slip-800">Atmospheres it can fire</legend>
+              <div className="mt-2 flex flex-wrap gap-x-4 gap-y-1">
+                {ATMOSPHERES.map((atmosphere) => (
+                  <Checkbox
+                    key={atmosphere.value}
+                    label={atmosphere.label}
+                    checked={field.value.includes(atmosphere.value)}
+                    onChange={(event) =>
+                      field.onChange(
+                        event.target.checked
+                          ? ATMOSPHERES.map((a) => a.value).filter((a) => a === atmosphere.value || field.value.includes(a))
+                          : field.value.filter((a) => a !== atmosphere.value),
+                      )
+                    }
+                  />
+                ))}
+              </div>
+              {messages['kiln.atmospheres'] && (
+                <p className="mt-1 text-xs font-medium text-danger-700" role="alert">
+                  {messages['kiln.atmospheres']}
+                </p>
+              )}
+            </fieldset>
+          )}
+        />
+        <Field label="Inside shape" error={messages['kiln.interior']}>
+          {(a11y) => (
+            <Select {...a11y} {...register('kiln.interior.shape')}>
+              <option value="round">Round</option>
+              <option value="box">Box</option>
+            </Select>
+          )}
+        </Field>
+        {shape === 'round' ? (
+          <MeasureField {...shared} name="kiln.interior.diameterMm" label="Inside diameter" measure={length} />
+        ) : (
+          <>
+            <MeasureField {...shared} name="kiln.interior.widthMm" label="Inside width" measure={length} />
+            <MeasureField {...shared} name="kiln.interior.depthMm" label="Inside depth" measure={length} />
+          </>
+        )}
+        <MeasureField {...shared} name="kiln.interior.heightMm" label="Inside height" measure={length} />
+        <MeasureField
+          {...shared}
+          name="kiln.usableHeightMm"
+          label="Usable height"
+          measure={length}
+          hint="Optional. Left empty: the inside height less one shelf and headroom."
+        />
+        <ConeField register={register} messages={messages} name="kiln.minCone" label="Coolest cone" />
+        <ConeField register={register} messages={messages} name="kiln.maxCone" label="Hottest cone" />
+        <MeasureField {...shared} name="kiln.maxTempC" label="Top temperature" measure={temperatureMeasure(units)} />
+        <MeasureField {...shared} name="kiln.maxRampCPerHour" label="Fastest climb" measure={rateMeasure(units)} />
+        <div className="space-y-2 sm:col-span-2">
+          <Checkbox label="Can hold a low preheat (candling)" {...register('kiln.preheatHold')} />
+          <Checkbox label="Can control its cooling (slow cool, fire down)" {...register('kiln.controlledCooling')} />
+        </div>
+      </div>
+    </FormSection>
+  )
+}

@@ -1,0 +1,267 @@
+// The planner form's values, kept in SI (mm, °C, °C/h, cents) as the firing science takes them, and
+// read through the shared schemas on every change: what parses is checked, what does not gets the
+// schema's own message beside its field.
+
+import { z, type ZodError } from 'zod'
+import type {
+  Atmosphere,
+  ClayBody,
+  Firing,
+  FiringKind,
+  Kiln,
+  KilnKind,
+  Piece,
+  PieceState,
+} from '../../../shared/firing/check'
+import type { PriceList, PricingModel } from '../../../shared/firing/quote'
+import { firingSpecSchema, kilnSchema, piecesSchema, priceListSchema } from '../../../shared/schemas/firing'
+import { DEMO_KILNS } from './demoKilns'
+import { localiseMessage, type UnitSystem } from './units'
+
+/** A number field's value: undefined while empty, NaN while it holds something that is not a number. */
+export type NumberDraft = number | undefined
+
+export interface KilnDraft {
+  kind: KilnKind
+  atmospheres: Atmosphere[]
+  interior: { shape: 'round' | 'box'; diameterMm: NumberDraft; widthMm: NumberDraft; depthMm: NumberDraft; heightMm: NumberDraft }
+  usableHeightMm: NumberDraft
+  minCone: string
+  maxCone: string
+  maxTempC: NumberDraft
+  maxRampCPerHour: NumberDraft
+  preheatHold: boolean
+  controlledCooling: boolean
+}
+
+export interface FiringDraft {
+  kind: FiringKind
+  cone: string
+  atmosphere: Atmosphere
+  slowCool: boolean
+}
+
+export interface PieceDraft {
+  label: string
+  quantity: NumberDraft
+  heightMm: NumberDraft
+  /** The diameter when round. */
+  widthMm: NumberDraft
+  depthMm: NumberDraft
+  round: boolean
+  wallThicknessMm: NumberDraft
+  clay: { body: ClayBody; minCone: string; maxCone: string }
+  state: PieceState
+  boneDry: boolean
+  glazed: boolean
+  glaze: { minCone: string; maxCone: string; runny: boolean; onFoot: boolean; onCookie: boolean }
+}
+
+export interface PriceListDraft {
+  currency: string
+  model: PricingModel
+  volumeUnit: 'cubicInch' | 'litre'
+  centsPerCubicInch: NumberDraft
+  centsPerLitre: NumberDraft
+  shelfCents: NumberDraft
+  shelfStep: number
+  kilnCents: NumberDraft
+  minimumPerPieceCents: NumberDraft
+  surcharges: { reduction: NumberDraft; slowCool: NumberDraft; preheat: NumberDraft }
+  depositKind: 'percent' | 'fixed'
+  deposit: { percent: NumberDraft; fixedCents: NumberDraft }
+}
+
+export interface PlannerValues {
+  demoKilnId: string
+  kiln: KilnDraft
+  firing: FiringDraft
+  pieces: PieceDraft[]
+  quoteOn: boolean
+  priceList: PriceListDraft
+}
+
+export function kilnDraftOf(kiln: Kiln): KilnDraft {
+  const interior = kiln.interior
+  return {
+    kind: kiln.kind,
+    atmospheres: [...kiln.atmospheres],
+    interior:
+      interior.shape === 'round'
+        ? { shape: 'round', diameterMm: interior.diameterMm, widthMm: undefined, depthMm: undefined, heightMm: interior.heightMm }
+        : { shape: 'box', diameterMm: undefined, widthMm: interior.widthMm, depthMm: interior.depthMm, heightMm: interior.heightMm },
+    usableHeightMm: kiln.usableHeightMm,
+    minCone: kiln.minCone,
+    maxCone: kiln.maxCone,
+    maxTempC: kiln.maxTempC,
+    maxRampCPerHour: kiln.maxRampCPerHour,
+    preheatHold: kiln.preheatHold,
+    controlledCooling: kiln.controlledCooling,
+  }
+}
+
+/** A new row: a 4 in mug, bisqued, in a mid-fire stoneware under a cone 5–6 glaze. */
+export function newPiece(): PieceDraft {
+  return {
+    label: '',
+    quantity: 1,
+    heightMm: 101.6,
+    widthMm: 88.9,
+    depthMm: 88.9,
+    round: true,
+    wallThicknessMm: 6.35,
+    clay: { body: 'stoneware', minCone: '5', maxCone: '10' },
+    state: 'bisque',
+    boneDry: false,
+    glazed: true,
+    glaze: { minCone: '5', maxCone: '6', runny: false, onFoot: false, onCookie: false },
+  }
+}
+
+export function plannerDefaults(): PlannerValues {
+  const demo = DEMO_KILNS[0]
+  return {
+    demoKilnId: demo.id,
+    kiln: kilnDraftOf(demo.kiln),
+    firing: { kind: 'glaze', cone: '6', atmosphere: 'oxidation', slowCool: false },
+    pieces: [{ ...newPiece(), label: 'Mug', quantity: 4 }],
+    quoteOn: false,
+    // An example community-studio rate, not advice: 4 ¢ per cubic inch, half down.
+    priceList: {
+      currency: 'USD',
+      model: 'volume',
+      volumeUnit: 'cubicInch',
+      centsPerCubicInch: 4,
+      centsPerLitre: 250,
+      shelfCents: 4000,
+      shelfStep: 0.25,
+      kilnCents: 25000,
+      minimumPerPieceCents: 300,
+      surcharges: { reduction: 15, slowCool: 10, preheat: 10 },
+      depositKind: 'percent',
+      deposit: { percent: 50, fixedCents: 1000 },
+    },
+  }
+}
+
+/** The form's kiln, firing and pieces in the shape the shared schemas read. */
+export function checkInputOf(values: PlannerValues) {
+  const { kiln, firing } = values
+  const interior = kiln.interior
+  return {
+    kiln: {
+      kind: kiln.kind,
+      atmospheres: kiln.atmospheres,
+      interior:
+        interior.shape === 'round'
+          ? { shape: 'round', diameterMm: interior.diameterMm, heightMm: interior.heightMm }
+          : { shape: 'box', widthMm: interior.widthMm, depthMm: interior.depthMm, heightMm: interior.heightMm },
+      usableHeightMm: kiln.usableHeightMm,
+      minCone: kiln.minCone,
+      maxCone: kiln.maxCone,
+      maxTempC: kiln.maxTempC,
+      maxRampCPerHour: kiln.maxRampCPerHour,
+      preheatHold: kiln.preheatHold,
+      controlledCooling: kiln.controlledCooling,
+    },
+    firing: { kind: firing.kind, cone: firing.cone, atmosphere: firing.atmosphere, slowCool: firing.slowCool },
+    pieces: values.pieces.map((piece) => ({
+      label: piece.label,
+      quantity: piece.quantity,
+      heightMm: piece.heightMm,
+      widthMm: piece.widthMm,
+      // A round piece is as deep as it is wide; the depth field is hidden then.
+      depthMm: piece.round ? piece.widthMm : piece.depthMm,
+      round: piece.round,
+      wallThicknessMm: piece.wallThicknessMm,
+      clay: piece.clay,
+      state: piece.state,
+      boneDry: piece.state === 'greenware' ? piece.boneDry : undefined,
+      glaze: piece.glazed ? piece.glaze : undefined,
+    })),
+  }
+}
+
+/** The price list in the schema's shape: only the fields its pricing model uses. */
+export function priceListInputOf(draft: PriceListDraft) {
+  const byModel =
+    draft.model === 'volume'
+      ? draft.volumeUnit === 'cubicInch'
+        ? { centsPerCubicInch: draft.centsPerCubicInch }
+        : { centsPerLitre: draft.centsPerLitre }
+      : draft.model === 'shelf'
+        ? { shelfCents: draft.shelfCents, shelfStep: draft.shelfStep }
+        : { kilnCents: draft.kilnCents }
+  return {
+    currency: draft.currency,
+    model: draft.model,
+    ...byModel,
+    minimumPerPieceCents: draft.minimumPerPieceCents,
+    surcharges: draft.surcharges,
+    deposit: draft.depositKind === 'percent' ? { percent: draft.deposit.percent } : { fixedCents: draft.deposit.fixedCents },
+  }
+}
+
+const checkInputSchema = z.object({ kiln: kilnSchema, firing: firingSpecSchema, pieces: piecesSchema })
+
+export interface CheckInput {
+  kiln: Kiln
+  firing: Firing
+  pieces: Piece[]
+}
+
+/** Field name (as the form names it) → the schema's message, in the units on screen. */
+export type FieldMessages = Record<string, string>
+
+export interface ParsedPlanner {
+  /** null while any kiln, firing or piece field does not parse. */
+  input: CheckInput | null
+  /** null when no quote is asked for or the price list does not parse. */
+  priceList: PriceList | null
+  messages: FieldMessages
+}
+
+type Issue = ZodError['issues'][number]
+
+function valueAt(root: unknown, path: readonly PropertyKey[]): unknown {
+  let value = root
+  for (const key of path) value = typeof value === 'object' && value !== null ? (value as Record<PropertyKey, unknown>)[key] : undefined
+  return value
+}
+
+/**
+ * A union that fails names no field ("give the deposit as a percent or a fixed sum"). The branch
+ * meant is the one whose complaints are all about fields the form gave; its messages are the useful ones.
+ */
+function branchMeant(issue: Issue, input: unknown): Issue[] | null {
+  if (issue.code !== 'invalid_union') return null
+  const given = valueAt(input, issue.path)
+  if (typeof given !== 'object' || given === null) return null
+  const keys = Object.keys(given)
+  const branch = issue.errors.find((issues) => issues.length > 0 && issues.every((nested) => keys.includes(String(nested.path[0]))))
+  return branch ? branch.map((nested) => ({ ...nested, path: [...issue.path, ...nested.path] })) : null
+}
+
+function collect(messages: FieldMessages, error: ZodError, input: unknown, prefix: string, units: UnitSystem) {
+  for (const issue of error.issues) {
+    for (const meant of branchMeant(issue, input) ?? [issue]) {
+      const key = prefix + meant.path.map(String).join('.')
+      messages[key || '_'] ??= localiseMessage(meant.message, units)
+    }
+  }
+}
+
+export function parsePlanner(values: PlannerValues, units: UnitSystem): ParsedPlanner {
+  const messages: FieldMessages = {}
+  const coreInput = checkInputOf(values)
+  const core = checkInputSchema.safeParse(coreInput)
+  if (!core.success) collect(messages, core.error, coreInput, '', units)
+  let priceList: PriceList | null = null
+  if (values.quoteOn) {
+    const priceInput = priceListInputOf(values.priceList)
+    const parsed = priceListSchema.safeParse(priceInput)
+    if (parsed.success) priceList = parsed.data
+    else collect(messages, parsed.error, priceInput, 'priceList.', units)
+  }
+  return { input: core.success ? core.data : null, priceList, messages }
+}

@@ -1,0 +1,115 @@
+// The planner's edges: what the potter reads and types (inches or mm, °F or °C, dollars) against the
+// SI values kept in the form (mm, °C, °C/h, cents). Conversions come from shared/firing/units.ts.
+
+import type { UnitSystem } from '../../../shared/schemas/auth'
+import { cToF, fToC, inToMm, litresToCubicInches, mmToIn, rateCToF, rateFToC } from '../../../shared/firing/units'
+
+export type { UnitSystem }
+export type TemperatureScale = 'F' | 'C'
+
+export const scaleOf = (units: UnitSystem): TemperatureScale => (units === 'metric' ? 'C' : 'F')
+
+/** How one kind of number is shown and typed: the stored SI value ↔ the value on screen. */
+export interface Measure {
+  suffix: string
+  toShown(stored: number): number
+  fromShown(shown: number): number
+  /** Decimals shown when the value is written into the field. */
+  decimals: number
+}
+
+const same = (value: number) => value
+
+export const INCHES: Measure = { suffix: 'in', toShown: mmToIn, fromShown: inToMm, decimals: 2 }
+export const MILLIMETRES: Measure = { suffix: 'mm', toShown: same, fromShown: same, decimals: 1 }
+export const FAHRENHEIT: Measure = { suffix: '°F', toShown: cToF, fromShown: fToC, decimals: 0 }
+export const CELSIUS: Measure = { suffix: '°C', toShown: same, fromShown: same, decimals: 0 }
+export const FAHRENHEIT_PER_HOUR: Measure = { suffix: '°F/h', toShown: rateCToF, fromShown: rateFToC, decimals: 0 }
+export const CELSIUS_PER_HOUR: Measure = { suffix: '°C/h', toShown: same, fromShown: same, decimals: 0 }
+export const COUNT: Measure = { suffix: '', toShown: same, fromShown: same, decimals: 0 }
+export const PERCENT: Measure = { suffix: '%', toShown: same, fromShown: same, decimals: 2 }
+export const FRACTIONAL_CENTS: Measure = { suffix: '¢', toShown: same, fromShown: same, decimals: 3 }
+
+/** Money is typed in whole currency units with cents and kept in integer cents. */
+const moneyMeasures = new Map<string, Measure>()
+export function moneyMeasure(currency: string): Measure {
+  const suffix = /^[A-Za-z]{3}$/.test(currency.trim()) ? currency.trim().toUpperCase() : ''
+  let measure = moneyMeasures.get(suffix)
+  if (!measure) {
+    measure = { suffix, toShown: (cents) => cents / 100, fromShown: (amount) => Math.round(amount * 100), decimals: 2 }
+    moneyMeasures.set(suffix, measure)
+  }
+  return measure
+}
+
+export const lengthMeasure = (units: UnitSystem) => (units === 'metric' ? MILLIMETRES : INCHES)
+export const temperatureMeasure = (units: UnitSystem) => (units === 'metric' ? CELSIUS : FAHRENHEIT)
+export const rateMeasure = (units: UnitSystem) => (units === 'metric' ? CELSIUS_PER_HOUR : FAHRENHEIT_PER_HOUR)
+
+/** A number as it goes into a field: rounded to the measure's decimals, no trailing zeros. */
+export function shownText(stored: number | undefined, measure: Measure): string {
+  if (stored === undefined || !Number.isFinite(stored)) return ''
+  return String(Number(measure.toShown(stored).toFixed(measure.decimals)))
+}
+
+/** What a field's text means: undefined when empty, NaN when it is not a number (the schema says so). */
+export function parseShown(text: string): number | undefined {
+  const trimmed = text.trim().replace(',', '.')
+  if (trimmed === '') return undefined
+  return /^[-+]?(\d+\.?\d*|\.\d+)$/.test(trimmed) ? Number(trimmed) : Number.NaN
+}
+
+function trimmed(value: number, decimals: number): string {
+  return String(Number(value.toFixed(decimals)))
+}
+
+export function formatLength(mm: number, units: UnitSystem): string {
+  return units === 'metric' ? `${Math.round(mm)} mm` : `${trimmed(mmToIn(mm), 1)} in`
+}
+
+export function formatTemperature(celsius: number, scale: TemperatureScale): string {
+  return scale === 'C' ? `${Math.round(celsius)} °C` : `${Math.round(cToF(celsius))} °F`
+}
+
+export function formatRate(celsiusPerHour: number, scale: TemperatureScale): string {
+  return scale === 'C' ? `${Math.round(celsiusPerHour)} °C/h` : `${Math.round(rateCToF(celsiusPerHour))} °F/h`
+}
+
+const CUBIC_INCHES_PER_CUBIC_FOOT = 12 * 12 * 12
+
+export function formatVolume(litres: number, units: UnitSystem): string {
+  if (units === 'metric') return `${trimmed(litres, 1)} L`
+  return `${trimmed(litresToCubicInches(litres) / CUBIC_INCHES_PER_CUBIC_FOOT, 2)} cu ft`
+}
+
+export function formatDuration(minutes: number): string {
+  const whole = Math.round(minutes)
+  const hours = Math.floor(whole / 60)
+  const rest = whole % 60
+  if (hours === 0) return `${rest} min`
+  return rest === 0 ? `${hours} h` : `${hours} h ${rest} min`
+}
+
+export function formatMoney(cents: number, currency: string): string {
+  try {
+    return new Intl.NumberFormat(undefined, { style: 'currency', currency }).format(cents / 100)
+  } catch {
+    // A code Intl does not know still shows the amount.
+    return `${(cents / 100).toFixed(2)} ${currency}`
+  }
+}
+
+/**
+ * The shared schemas speak SI ("more than 0 mm", "at least 100 °C"); on an imperial form the same
+ * message is shown in the units the potter typed.
+ */
+export function localiseMessage(message: string, units: UnitSystem): string {
+  if (units === 'metric') return message
+  return message
+    .replace(/(-?\d[\d ]*(?:\.\d+)?) °C per hour/g, (_, n: string) => `${trimmed(rateCToF(Number(n.replace(/ /g, ''))), 1)} °F per hour`)
+    .replace(/ in °C per hour/g, ' in °F per hour')
+    .replace(/(-?\d[\d ]*(?:\.\d+)?) °C/g, (_, n: string) => `${Math.round(cToF(Number(n.replace(/ /g, ''))))} °F`)
+    .replace(/ in °C/g, ' in °F')
+    .replace(/(-?\d[\d ]*(?:\.\d+)?) mm\b/g, (_, n: string) => `${trimmed(mmToIn(Number(n.replace(/ /g, ''))), 2)} in`)
+    .replace(/ in millimetres/g, ' in inches')
+}

@@ -1,0 +1,93 @@
+// The firing planner in a real browser against the real server, as a visitor: pick a demo kiln, put
+// in a greenware piece, see the wet-greenware block come and go, the curve drawn, and °C on request.
+import type { Browser, Page } from 'playwright-core'
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { launchBrowser, watchPageErrors } from '../support/browser'
+import { startTestApp, type TestApp } from '../support/test-app'
+
+let app: TestApp
+let browser: Browser
+
+beforeAll(async () => {
+  app = await startTestApp({ worker: false, serveClient: true })
+  browser = await launchBrowser()
+}, 90_000)
+
+afterAll(async () => {
+  await browser?.close()
+  await app?.close()
+})
+
+async function newPage(): Promise<{ page: Page; errors: string[] }> {
+  const context = await browser.newContext({ baseURL: app.url, viewport: { width: 1280, height: 900 } })
+  const page = await context.newPage()
+  page.setDefaultTimeout(15_000)
+  return { page, errors: watchPageErrors(page) }
+}
+
+describe('the firing planner', () => {
+  it('blocks wet greenware until it is marked bone dry, draws the curve and switches to °C', async () => {
+    const { page, errors } = await newPage()
+    await page.goto('/planner')
+    await page.getByRole('heading', { name: 'Firing planner' }).waitFor()
+
+    await page.getByLabel('Start from a demo kiln').selectOption({ label: 'Small test kiln, 9 in box, to cone 6' })
+    const kiln = page.getByRole('region', { name: 'Kiln' })
+    // 9 in inside, as the demo kiln says, shown in inches for a visitor.
+    expect(await kiln.getByLabel('Inside width (in)').inputValue()).toBe('9')
+
+    const firing = page.getByRole('region', { name: 'Firing' })
+    // A single firing takes raw greenware to its final cone in one go.
+    await firing.getByLabel('Firing', { exact: true }).selectOption('single')
+    await firing.getByLabel('Cone').fill('6')
+
+    const piece = page.getByRole('group', { name: 'Piece 1' })
+    await piece.getByLabel('Glazed').uncheck()
+    await piece.getByLabel('State').selectOption('greenware')
+
+    const wet = page.locator('[data-finding="wet-greenware"]')
+    await wet.waitFor()
+    expect(await wet.textContent()).toContain('is not marked bone dry')
+    expect(await page.getByTestId('verdict').getAttribute('data-verdict')).toBe('block')
+    expect(await page.getByTestId('verdict').textContent()).toContain('Blocked')
+    // The server, asked once typing stops, says the same.
+    await page.locator('[data-testid="server-verdict"][data-verdict="block"]').waitFor()
+
+    await piece.getByLabel(/Bone dry/).check()
+    await wet.waitFor({ state: 'detached' })
+    expect(await page.getByTestId('verdict').getAttribute('data-verdict')).toBe('ok')
+    await page.locator('[data-testid="server-verdict"][data-verdict="ok"]').waitFor()
+
+    await page.locator('[data-testid="firing-curve"] svg.recharts-surface').waitFor()
+    expect(await page.locator('[data-testid="firing-curve"] .recharts-line path').count()).toBeGreaterThan(0)
+    expect(await page.getByTestId('peak-temperature').textContent()).toMatch(/^\d+ °F$/)
+
+    // The radios are drawn as a switch; a pointer clicks the visible choice, as a person would.
+    await page.getByText('°C', { exact: true }).click()
+    expect(await page.getByRole('radio', { name: '°C', exact: true }).isChecked()).toBe(true)
+    // Orton's temperature-equivalent chart, self-supporting cones: cone 6 bends at 1222 °C when the last
+    // 100 °C are climbed at 60 °C/h, the rate this plan sets the cone at.
+    expect(await page.getByTestId('peak-temperature').textContent()).toBe('1222 °C')
+    expect(await page.getByTestId('predicted-cone').textContent()).toBe('cone 6')
+    expect(errors).toEqual([])
+  })
+
+  it('never breaks on half-typed input: the field says what is wrong and the check waits', async () => {
+    const { page, errors } = await newPage()
+    await page.goto('/planner')
+    const piece = page.getByRole('group', { name: 'Piece 1' })
+    const height = piece.getByLabel('Height (in)')
+    await height.fill('')
+    await piece.getByText('Enter the height in inches.').waitFor()
+    expect(await page.getByTestId('verdict').getAttribute('data-verdict')).toBe('incomplete')
+    await height.fill('4.')
+    await piece.getByText('Enter the height in inches.').waitFor({ state: 'detached' })
+    expect(await height.inputValue()).toBe('4.')
+    expect(await page.getByTestId('verdict').getAttribute('data-verdict')).toBe('ok')
+
+    await page.getByText('mm · °C', { exact: true }).click()
+    // 4 in = 101.6 mm exactly (NIST SP 811).
+    expect(await piece.getByLabel('Height (mm)').inputValue()).toBe('101.6')
+    expect(errors).toEqual([])
+  })
+})
