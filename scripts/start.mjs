@@ -138,7 +138,7 @@ async function main() {
 
   const tsx = ['--import', 'tsx']
   const standInEnv = {}
-  if (!env.SMTP_URL) {
+  if (!env.SMTP_URL || !env.MEILI_HOST) {
     const { standIns } = startChild('the local stand-ins', process.execPath, [...tsx, 'server/fakes/main.ts'], {}, { captureStandIns: true })
     Object.assign(standInEnv, await standIns)
   }

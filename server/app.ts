@@ -17,6 +17,7 @@ import { invitesRouter } from './routes/invites'
 import { kilnsRouter } from './routes/kilns'
 import { metaRouter } from './routes/meta'
 import { placesRouter } from './routes/places'
+import { searchRouter } from './routes/search'
 import { studiosRouter } from './routes/studios'
 import { wareChecksRouter } from './routes/ware-checks'
 
@@ -102,6 +103,7 @@ export function createApp(ctx: AppContext): App {
   app.use('/api', firingsRouter(ctx))
   app.use('/api', invitesRouter(ctx))
   app.use('/api', placesRouter(ctx))
+  app.use('/api', searchRouter(ctx))
 
   app.use('/api', notFoundApi)
 

@@ -8,6 +8,7 @@ import { createDataSource } from './db/data-source'
 import { seedDemo } from './db/seed'
 import { migrateQueue, startWorker } from './jobs/worker'
 import { warmGazetteer } from './services/gazetteer'
+import { enqueueReindex } from '../search/sync'
 
 const log = consoleLogger()
 const config = loadConfig()
@@ -25,6 +26,8 @@ if (process.env.SEED_DEMO === 'true') {
   log.info('demo data is in place')
 }
 
+// The engine's copy is derived: rebuild it from PostgreSQL on every start (the local stand-in starts empty).
+await db.transaction((manager) => enqueueReindex(manager))
 // Load the place data now rather than on the first request that needs it.
 warmGazetteer()
 const worker = config.runWorker ? await startWorker(ctx) : null

@@ -23,11 +23,17 @@ export interface SearchEngineOptions {
   port?: number
   /** When set, every route but /health needs `Authorization: Bearer <masterKey>`. */
   masterKey?: string
+  /**
+   * The indexes and tasks of an engine stopped earlier: a restart that keeps its data, as a real
+   * engine's does. A fresh, empty state when left out.
+   */
+  state?: EngineState
 }
 
 export interface RunningSearchEngine {
   url: string
   port: number
+  state: EngineState
   close(): Promise<void>
 }
 
@@ -79,7 +85,8 @@ function send(response: ServerResponse, result: EngineResponse): void {
 
 export async function startSearchEngine(options: SearchEngineOptions = {}): Promise<RunningSearchEngine> {
   const host = options.host ?? '127.0.0.1'
-  const state = new EngineState()
+  const state = options.state ?? new EngineState()
+  if (options.state) state.tasks.reopen()
 
   const server = createServer((request, response) => {
     const url = new URL(request.url ?? '/', 'http://engine.local')
@@ -115,6 +122,7 @@ export async function startSearchEngine(options: SearchEngineOptions = {}): Prom
   return {
     url: `http://${urlHost}:${port}`,
     port,
+    state,
     close: () =>
       new Promise<void>((resolve, reject) => {
         state.tasks.close()

@@ -120,6 +120,12 @@ export class TaskQueue {
     this.closed = true
   }
 
+  /** Takes work again after close(), running whatever was left enqueued. */
+  reopen(): void {
+    this.closed = false
+    this.schedule()
+  }
+
   private schedule(): void {
     if (this.running || this.closed) return
     const next = this.tasks.find((task) => task.status === 'enqueued')

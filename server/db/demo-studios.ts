@@ -282,8 +282,13 @@ export function occurrences(rule: FiringRule, timezone: string, now: Date, weeks
  * Creates the demo studios (once, found again by name) and tops their calendars up to eight weeks
  * ahead; a firing already on a kiln at the same time is not added twice.
  */
-export async function seedDemoStudios(manager: EntityManager, userFor: (person: DemoPerson) => Promise<{ id: string }>, now = new Date()) {
-  for (const demo of DEMO_STUDIOS) {
+export async function seedDemoStudios(
+  manager: EntityManager,
+  studios: DemoStudio[],
+  userFor: (person: DemoPerson) => Promise<{ id: string }>,
+  now = new Date(),
+) {
+  for (const demo of studios) {
     const owner = await userFor(demo.owner)
     let studio = await manager.getRepository(Studio).findOne({ where: { name: demo.name } })
     if (!studio) {

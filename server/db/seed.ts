@@ -3,7 +3,8 @@ import type { UserRole } from '../../shared/schemas/auth'
 import { hashPassword } from '../auth/password'
 import type { AppContext } from '../context'
 import { User } from '../entities/User'
-import { seedDemoStudios } from './demo-studios'
+import { regionalDemoStudios } from './demo-region'
+import { DEMO_STUDIOS, seedDemoStudios } from './demo-studios'
 
 /** Every demo account shares this password; the README lists the accounts. */
 export const DEMO_PASSWORD = 'glaze-and-fire-demo'
@@ -36,6 +37,6 @@ export async function seedDemo(ctx: AppContext) {
     // One seed at a time, even with several processes starting together.
     await manager.query(`SELECT pg_advisory_xact_lock(hashtext('conewright-demo-seed'))`)
     for (const person of DEMO_PEOPLE) await ensureDemoUser(manager, person, passwordHash)
-    await seedDemoStudios(manager, (person) => ensureDemoUser(manager, person, passwordHash))
+    await seedDemoStudios(manager, [...DEMO_STUDIOS, ...regionalDemoStudios()], (person) => ensureDemoUser(manager, person, passwordHash))
   })
 }

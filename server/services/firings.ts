@@ -9,6 +9,7 @@ import { plannedFinalRateCPerHour } from '../../shared/firing/schedule'
 import type { FiringCreateBody, FiringPatchBody } from '../../shared/schemas/studios'
 import { canMoveFiring, nextFiringStatuses, type FiringStatus } from '../../shared/workflow/firing-status'
 import { HOLDING_STATES } from '../../shared/workflow/request-states'
+import { enqueueStudioSync } from '../../search/sync'
 import type { AppContext } from '../context'
 import { Firing } from '../entities/Firing'
 import { FiringRequest } from '../entities/FiringRequest'
@@ -143,7 +144,9 @@ export async function createFirings(ctx: AppContext, kilnId: string, body: Firin
         cancelledReason: null,
       }),
     )
-    return manager.getRepository(Firing).save(firings)
+    const saved = await manager.getRepository(Firing).save(firings)
+    await enqueueStudioSync(manager, kiln.studioId)
+    return saved
   })
 }
 
@@ -180,7 +183,10 @@ export async function updateFiring(ctx: AppContext, id: string, patch: FiringPat
       }
       Object.assign(firing, { ...fields, ...next })
     }
-    return manager.getRepository(Firing).save(firing)
+    const saved = await manager.getRepository(Firing).save(firing)
+    const { studioId } = await manager.getRepository(Kiln).findOneByOrFail({ id: firing.kilnId })
+    await enqueueStudioSync(manager, studioId)
+    return saved
   })
 }
 
@@ -204,6 +210,7 @@ export async function cancelFiring(ctx: AppContext, id: string, reason: string, 
 
     const kiln = await manager.getRepository(Kiln).findOneByOrFail({ id: firing.kilnId })
     const studio = await manager.getRepository(Studio).findOneByOrFail({ id: kiln.studioId })
+    await enqueueStudioSync(manager, studio.id)
     const requests = await manager.getRepository(FiringRequest).find({ where: { firingId: id, state: In([...LIVE_REQUEST_STATES]) }, lock: { mode: 'pessimistic_write' } })
     for (const request of requests) {
       await manager.getRepository(RequestEvent).save({ requestId: request.id, actorId, fromState: request.state, toState: 'cancelled', reason: `Firing cancelled: ${reason}`, data: { by: 'studio' } })
@@ -256,6 +263,7 @@ export async function loadFiringForCheck(
   ctx: AppContext,
   firingId: string,
 ): Promise<{ kiln: KilnSpec; firing: FiringSpec; priceList: PriceList | null } | null> {
+  if (!/^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i.test(firingId)) return null
   const firing = await ctx.db.getRepository(Firing).findOne({ where: { id: firingId } })
   if (!firing || firing.status === 'cancelled') return null
   const kiln = await ctx.db.getRepository(Kiln).findOneByOrFail({ id: firing.kilnId })

@@ -3,6 +3,7 @@ import { kilnVolumeL, usableHeightMm, type Kiln as KilnSpec } from '../../shared
 import { quoteRequest, type PriceList, type Quote } from '../../shared/firing/quote'
 import { EXAMPLE_PIECES } from '../../shared/firing/examples'
 import { kilnBodySchema, type KilnBody, type PriceListBody } from '../../shared/schemas/studios'
+import { enqueueStudioSync } from '../../search/sync'
 import type { AppContext } from '../context'
 import { Kiln } from '../entities/Kiln'
 import { KilnPriceList } from '../entities/KilnPriceList'
@@ -90,8 +91,11 @@ export async function getKiln(manager: EntityManager, id: string): Promise<Kiln>
 }
 
 export async function createKiln(ctx: AppContext, studioId: string, body: KilnBody): Promise<Kiln> {
-  const repo = ctx.db.getRepository(Kiln)
-  return repo.save(repo.create({ ...kilnColumns(body), studioId, retiredAt: null }))
+  return ctx.db.transaction(async (manager) => {
+    const kiln = await manager.getRepository(Kiln).save(manager.getRepository(Kiln).create({ ...kilnColumns(body), studioId, retiredAt: null }))
+    await enqueueStudioSync(manager, studioId)
+    return kiln
+  })
 }
 
 /** Merges a partial change with the stored kiln and checks the whole kiln again, so ranges stay whole. */
@@ -120,7 +124,9 @@ export async function updateKiln(ctx: AppContext, id: string, patch: Record<stri
     const parsed = kilnBodySchema.safeParse(merged)
     if (!parsed.success) throw new HttpError(400, 'invalid-input', 'Some fields need fixing.', fieldErrorsFrom(parsed.error))
     Object.assign(kiln, kilnColumns(parsed.data))
-    return manager.getRepository(Kiln).save(kiln)
+    const saved = await manager.getRepository(Kiln).save(kiln)
+    await enqueueStudioSync(manager, kiln.studioId)
+    return saved
   })
 }
 
@@ -134,6 +140,7 @@ export async function removeKiln(ctx: AppContext, id: string): Promise<'deleted'
       [id],
     )
     if (upcoming > 0) throw conflict('This kiln has firings coming up. Cancel them first.', 'has-upcoming-firings')
+    await enqueueStudioSync(manager, kiln.studioId)
     if (total === 0) {
       await manager.delete(Kiln, { id })
       return 'deleted'
@@ -193,9 +200,12 @@ export function priceListColumns(p: PriceList): Omit<KilnPriceList, 'kilnId' | '
 }
 
 export async function putPriceList(ctx: AppContext, kilnId: string, body: PriceListBody): Promise<PriceList> {
-  const repo = ctx.db.getRepository(KilnPriceList)
-  await repo.save(repo.create({ kilnId, ...priceListColumns(body) }))
-  return (await getPriceList(ctx.db.manager, kilnId))!
+  return ctx.db.transaction(async (manager) => {
+    const kiln = await getKiln(manager, kilnId)
+    await manager.getRepository(KilnPriceList).save(manager.getRepository(KilnPriceList).create({ kilnId, ...priceListColumns(body) }))
+    await enqueueStudioSync(manager, kiln.studioId)
+    return (await getPriceList(manager, kilnId))!
+  })
 }
 
 /** Prices of the reference pieces in a cone 6 oxidation glaze firing of this kiln. */

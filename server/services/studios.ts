@@ -5,6 +5,7 @@ import { Studio } from '../entities/Studio'
 import { StudioMember, type StudioRole } from '../entities/StudioMember'
 import type { User } from '../entities/User'
 import { badRequest, conflict, notFound } from '../http/errors'
+import { enqueueStudioSync } from '../../search/sync'
 import { lookupPlace, timezoneAt, type Place } from './gazetteer'
 
 /** What anyone may see of a published studio. */
@@ -131,7 +132,9 @@ export async function updateStudio(ctx: AppContext, id: string, patch: StudioPat
       studio.policies = policies
       studio.policiesVersion += 1
     }
-    return manager.getRepository(Studio).save(studio)
+    const saved = await manager.getRepository(Studio).save(studio)
+    await enqueueStudioSync(manager, id)
+    return saved
   })
 }
 
@@ -147,6 +150,7 @@ export async function deleteStudio(ctx: AppContext, id: string) {
       throw conflict('This studio has firings on record, so it cannot be deleted. Unpublish it instead.', 'has-history')
     }
     await manager.delete(Studio, { id })
+    await enqueueStudioSync(manager, id)
   })
 }
 
@@ -160,7 +164,11 @@ export async function listMyStudios(ctx: AppContext, userId: string): Promise<{ 
 }
 
 export async function setVerified(ctx: AppContext, id: string, verified: boolean): Promise<Studio> {
-  const studio = await getStudio(ctx.db.manager, id)
-  studio.verifiedAt = verified ? (studio.verifiedAt ?? new Date()) : null
-  return ctx.db.getRepository(Studio).save(studio)
+  return ctx.db.transaction(async (manager) => {
+    const studio = await getStudio(manager, id)
+    studio.verifiedAt = verified ? (studio.verifiedAt ?? new Date()) : null
+    const saved = await manager.getRepository(Studio).save(studio)
+    await enqueueStudioSync(manager, id)
+    return saved
+  })
 }

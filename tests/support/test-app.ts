@@ -8,12 +8,14 @@ import { silentLogger, type AppContext } from '../../server/context'
 import { createDataSource } from '../../server/db/data-source'
 import { startWorker } from '../../server/jobs/worker'
 import { startMailCatcher, type MailCatcher } from '../../server/fakes/mail-catcher'
+import { startSearchEngine, type RunningSearchEngine } from '../../search/engine/server'
 import { createTestDatabase } from './database'
 
 export interface TestApp {
   url: string
   ctx: AppContext
   mail: MailCatcher | null
+  search: RunningSearchEngine | null
   close(): Promise<void>
 }
 
@@ -22,16 +24,20 @@ export interface TestApp {
  * and (when asked) a mail catcher. Nothing is mocked.
  */
 export async function startTestApp(
-  options: { mail?: boolean; worker?: boolean; config?: Partial<Config>; serveClient?: boolean } = {},
+  options: { mail?: boolean; search?: boolean; worker?: boolean; config?: Partial<Config>; serveClient?: boolean } = {},
 ): Promise<TestApp> {
   const database = await createTestDatabase()
   const mail = options.mail ? await startMailCatcher({ smtpPort: await freePort(), webPort: await freePort() }) : null
+  const search = options.search ? await startSearchEngine({ port: 0, masterKey: 'test-search-key' }) : null
   const config = loadConfig(
     {},
     {
       databaseUrl: database.url,
       smtpUrl: mail?.smtpUrl ?? 'smtp://127.0.0.1:9',
       mailInboxUrl: mail?.webUrl ?? null,
+      // Without a search engine, searches take the PostgreSQL path (port 9 answers nothing).
+      meiliHost: search?.url ?? 'http://127.0.0.1:9',
+      meiliApiKey: 'test-search-key',
       serveClient: options.serveClient ?? false,
       workerConcurrency: 2,
       ...options.config,
@@ -47,10 +53,11 @@ export async function startTestApp(
   })
   const url = `http://127.0.0.1:${(server.address() as AddressInfo).port}`
   if (!options.config?.publicUrl) config.publicUrl = url
-  return {
+  const testApp: TestApp = {
     url,
     ctx,
     mail,
+    search,
     async close() {
       server.closeAllConnections()
       await new Promise((r) => server.close(r))
@@ -58,7 +65,10 @@ export async function startTestApp(
       close()
       await db.destroy()
       await mail?.close()
+      // A test may have restarted the engine: close the one running now.
+      await testApp.search?.close()
       await database.drop()
     },
   }
+  return testApp
 }
