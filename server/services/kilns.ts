@@ -121,6 +121,8 @@ export async function updateKiln(ctx: AppContext, id: string, patch: Record<stri
       notes: current.notes,
       ...patch,
     }
+    // null clears the usable height, which then follows from the interior again.
+    if (merged.usableHeightMm === null) delete (merged as Record<string, unknown>).usableHeightMm
     const parsed = kilnBodySchema.safeParse(merged)
     if (!parsed.success) throw new HttpError(400, 'invalid-input', 'Some fields need fixing.', fieldErrorsFrom(parsed.error))
     Object.assign(kiln, kilnColumns(parsed.data))

@@ -15,9 +15,12 @@ interface NavItem {
 /** The navigation each kind of account sees; pages a role cannot use are not offered. */
 export function navFor(user: PublicUser | null | undefined): NavItem[] {
   const planner = { to: '/planner', label: 'Firing planner' }
-  if (!user) return [planner]
+  const find = { to: '/find', label: 'Find a firing' }
+  if (!user) return [find, planner]
   const home = { to: homePath(user), label: user.role === 'admin' ? 'Front desk' : user.role === 'potter' ? 'My ware' : 'Kiln room' }
-  return [home, planner]
+  // A potter who also crews for a studio gets that studio's board too.
+  const crewBoard = user.role === 'potter' && (user.studios?.length ?? 0) > 0 ? [{ to: '/kiln-room', label: 'Kiln room' }] : []
+  return user.role === 'potter' ? [home, ...crewBoard, find, planner] : [home, planner]
 }
 
 function VerifyBanner({ user }: { user: PublicUser }) {

@@ -5,11 +5,19 @@ import { ResetPasswordPage } from '../features/auth/pages/ResetPasswordPage'
 import { SignInPage } from '../features/auth/pages/SignInPage'
 import { VerifyEmailPage } from '../features/auth/pages/VerifyEmailPage'
 import { FrontDeskPage } from '../features/home/pages/FrontDeskPage'
-import { KilnRoomPage } from '../features/home/pages/KilnRoomPage'
 import { LandingPage } from '../features/home/pages/LandingPage'
 import { MyWarePage } from '../features/home/pages/MyWarePage'
 import { SafetyPage } from '../features/home/pages/SafetyPage'
 import { PlannerPage } from '../features/planner/pages/PlannerPage'
+import { FindFiringPage } from '../features/search/pages/FindFiringPage'
+import { CalendarPage } from '../features/studios/pages/CalendarPage'
+import { CrewPage } from '../features/studios/pages/CrewPage'
+import { JoinStudioPage } from '../features/studios/pages/JoinStudioPage'
+import { KilnEditorPage, NewKilnPage } from '../features/studios/pages/KilnEditorPage'
+import { KilnPage } from '../features/studios/pages/KilnPage'
+import { KilnRoomPage } from '../features/studios/pages/KilnRoomPage'
+import { PublicStudioPage } from '../features/studios/pages/PublicStudioPage'
+import { StudioEditorPage } from '../features/studios/pages/StudioEditorPage'
 import { ErrorPage, NotFoundPage } from './ErrorPage'
 import { Layout } from './Layout'
 import { RequireRole } from './RequireRole'
@@ -27,8 +35,17 @@ export const router = createBrowserRouter([
       { path: 'reset-password', element: <ResetPasswordPage /> },
       { path: 'safety', element: <SafetyPage /> },
       { path: 'planner', element: <PlannerPage /> },
+      { path: 'find', element: <FindFiringPage /> },
       { path: 'my-ware', element: <RequireRole roles={['potter']}><MyWarePage /></RequireRole> },
       { path: 'kiln-room', element: <RequireRole roles={['host', 'crew']}><KilnRoomPage /></RequireRole> },
+      { path: 'studios/:id', element: <PublicStudioPage /> },
+      { path: 'studios/:id/edit', element: <RequireRole roles={['host', 'crew']}><StudioEditorPage /></RequireRole> },
+      { path: 'studios/:id/calendar', element: <RequireRole roles={['host', 'crew']}><CalendarPage /></RequireRole> },
+      { path: 'studios/:id/crew', element: <RequireRole roles={['host', 'crew']}><CrewPage /></RequireRole> },
+      { path: 'studios/:id/kilns/new', element: <RequireRole roles={['host', 'crew']}><NewKilnPage /></RequireRole> },
+      { path: 'kilns/:id', element: <RequireRole roles={['host', 'crew']}><KilnPage /></RequireRole> },
+      { path: 'kilns/:id/edit', element: <RequireRole roles={['host', 'crew']}><KilnEditorPage /></RequireRole> },
+      { path: 'join-studio', element: <JoinStudioPage /> },
       { path: 'front-desk', element: <RequireRole roles={['admin']}><FrontDeskPage /></RequireRole> },
       { path: '*', element: <NotFoundPage /> },
     ],

@@ -1,0 +1,47 @@
+import type { ReactNode, TdHTMLAttributes, ThHTMLAttributes } from 'react'
+
+/** A bordered table that scrolls sideways on a narrow screen instead of squeezing its columns. */
+export function Table({ caption, children, className = '' }: { caption?: ReactNode; children: ReactNode; className?: string }) {
+  return (
+    <div className={`overflow-x-auto rounded-card border border-slip-200 bg-white ${className}`}>
+      <table className="min-w-full divide-y divide-slip-200 text-left text-sm">
+        {caption && <caption className="sr-only">{caption}</caption>}
+        {children}
+      </table>
+    </div>
+  )
+}
+
+export type SortDirection = 'asc' | 'desc' | false
+
+const ariaSort = (direction: SortDirection) => (direction === 'asc' ? 'ascending' : direction === 'desc' ? 'descending' : 'none')
+
+interface ThProps extends ThHTMLAttributes<HTMLTableCellElement> {
+  /** Set on sortable columns: the header becomes a button that reports its order. */
+  sort?: { direction: SortDirection; onToggle: () => void }
+}
+
+export function Th({ sort, children, className = '', ...rest }: ThProps) {
+  return (
+    <th scope="col" aria-sort={sort ? ariaSort(sort.direction) : undefined} className={`whitespace-nowrap bg-slip-50 px-3 py-2 text-xs font-semibold uppercase tracking-wide text-slip-600 ${className}`} {...rest}>
+      {sort ? (
+        <button type="button" onClick={sort.onToggle} className="inline-flex items-center gap-1 uppercase hover:text-slip-900">
+          {children}
+          <span aria-hidden className="text-slip-400">
+            {sort.direction === 'asc' ? '▲' : sort.direction === 'desc' ? '▼' : '↕'}
+          </span>
+        </button>
+      ) : (
+        children
+      )}
+    </th>
+  )
+}
+
+export function Td({ children, className = '', ...rest }: TdHTMLAttributes<HTMLTableCellElement>) {
+  return (
+    <td className={`px-3 py-2 align-top text-slip-800 ${className}`} {...rest}>
+      {children}
+    </td>
+  )
+}

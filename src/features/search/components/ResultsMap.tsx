@@ -1,0 +1,161 @@
+import L, { type Map as LeafletMap } from 'leaflet'
+import { useEffect, useRef, useState } from 'react'
+import { Circle } from 'react-leaflet'
+import type { SearchHit, SearchResponse } from '../../../../shared/schemas/search'
+import { Basemap, type LatLngPair } from '../../../components/map/Basemap'
+import { ClusteredMarkers, StudioMarker } from '../../../components/map/markers'
+import { Button } from '../../../components/ui/Button'
+
+/** Where the map opens before the first answer: the lower 48 states. */
+const START: { center: LatLngPair; zoom: number } = { center: [39.5, -98.35], zoom: 4 }
+const FIT_PADDING: [number, number] = [36, 36]
+/** Close enough to see the studios apart, far enough to see what is around them. */
+const FIT_MAX_ZOOM = 12
+const MAX_RADIUS_KM = 2000
+
+export interface MapStudio {
+  id: string
+  name: string
+  position: LatLngPair
+}
+
+/** One pin per studio: a studio's firings all stand at the same place. */
+export function studiosOf(hits: readonly SearchHit[]): MapStudio[] {
+  const seen = new Map<string, MapStudio>()
+  for (const hit of hits) {
+    if (!seen.has(hit.studio.id)) seen.set(hit.studio.id, { id: hit.studio.id, name: hit.studio.name, position: [hit.studio.lat, hit.studio.lng] })
+  }
+  return [...seen.values()]
+}
+
+/** The view a set of results is shown in: the searched place and the studios found around it. */
+export interface MapFit {
+  /** Changes when the map should go somewhere else (a new place or distance), not for a new cone. */
+  key: string
+  origin: SearchResponse['origin']
+  radiusKm: number | null
+  studios: MapStudio[]
+}
+
+export interface AreaSearch {
+  near: string
+  radiusKm: string
+}
+
+interface ResultsMapProps {
+  studios: MapStudio[]
+  selectedStudioId: string | null
+  onSelectStudio: (studioId: string) => void
+  /** Set once fresh results are in; the map goes to them when the key changes. */
+  fit: MapFit | null
+  origin: SearchResponse['origin']
+  radiusKm: number | null
+  onSearchArea: (area: AreaSearch) => void
+  className?: string
+}
+
+/**
+ * The results on the map. Moves the app makes (going to a new search, bringing a chosen studio into
+ * view) are made without animation, so they are over by the time the call returns and are told
+ * apart from the potter's own: only those offer "Search this area".
+ */
+export function ResultsMap({ studios, selectedStudioId, onSelectStudio, fit, origin, radiusKm, onSearchArea, className = '' }: ResultsMapProps) {
+  const mapRef = useRef<LeafletMap | null>(null)
+  const moving = useRef(false)
+  const fittedKey = useRef<string | null>(null)
+  const keepViewOnce = useRef(false)
+  const [movedByHand, setMovedByHand] = useState(false)
+
+  const moveMap = (move: (map: LeafletMap) => void) => {
+    const map = mapRef.current
+    if (!map) return
+    moving.current = true
+    try {
+      move(map)
+    } finally {
+      moving.current = false
+    }
+  }
+
+  useEffect(() => {
+    if (!fit || fit.key === fittedKey.current) return
+    fittedKey.current = fit.key
+    setMovedByHand(false)
+    // The potter asked for the area they were looking at: it stays in view as they left it.
+    if (keepViewOnce.current) {
+      keepViewOnce.current = false
+      return
+    }
+    const points = fit.studios.map((s) => L.latLng(s.position[0], s.position[1]))
+    if (fit.origin) points.push(L.latLng(fit.origin.lat, fit.origin.lng))
+    if (points.length === 0) return
+    let bounds = L.latLngBounds(points)
+    if (fit.origin && fit.studios.length === 0 && fit.radiusKm) bounds = L.latLng(fit.origin.lat, fit.origin.lng).toBounds(fit.radiusKm * 2000)
+    moveMap((map) => {
+      if (points.length === 1 && !(fit.origin && fit.studios.length === 0 && fit.radiusKm)) map.setView(points[0], 11, { animate: false })
+      else map.fitBounds(bounds, { padding: FIT_PADDING, maxZoom: FIT_MAX_ZOOM, animate: false })
+    })
+  }, [fit])
+
+  useEffect(() => {
+    const studio = studios.find((s) => s.id === selectedStudioId)
+    if (!studio) return
+    moveMap((map) => {
+      if (!map.getBounds().contains(studio.position)) map.panTo(studio.position, { animate: false })
+    })
+  }, [selectedStudioId, studios])
+
+  const searchArea = () => {
+    const map = mapRef.current
+    if (!map) return
+    const center = map.getCenter()
+    // Roughly the half-diagonal: the circle through the corners holds everything on screen.
+    const km = Math.min(MAX_RADIUS_KM, Math.max(1, center.distanceTo(map.getBounds().getNorthEast()) / 1000))
+    keepViewOnce.current = true
+    setMovedByHand(false)
+    onSearchArea({ near: `${center.lat.toFixed(4)},${center.lng.toFixed(4)}`, radiusKm: String(Math.round(km * 10) / 10) })
+  }
+
+  return (
+    <div className={`relative ${className}`}>
+      <Basemap
+        ref={mapRef}
+        center={START.center}
+        zoom={START.zoom}
+        label="Map of the firings found"
+        className="size-full rounded-card border border-slip-200"
+        onMoveEnd={() => {
+          if (!moving.current) setMovedByHand(true)
+        }}
+      >
+        {origin && radiusKm && (
+          <Circle
+            center={[origin.lat, origin.lng]}
+            radius={radiusKm * 1000}
+            interactive={false}
+            pathOptions={{ className: 'stroke-clay-400 fill-clay-200', weight: 1.5, dashArray: '6 4', fillOpacity: 0.08 }}
+          />
+        )}
+        <ClusteredMarkers>
+          {studios.map((studio) => (
+            <StudioMarker
+              key={studio.id}
+              position={studio.position}
+              title={studio.name}
+              label={studio.id === selectedStudioId ? studio.name : undefined}
+              selected={studio.id === selectedStudioId}
+              onSelect={() => onSelectStudio(studio.id)}
+            />
+          ))}
+        </ClusteredMarkers>
+      </Basemap>
+      {movedByHand && (
+        <div className="pointer-events-none absolute inset-x-0 top-3 z-[1000] flex justify-center">
+          <Button size="sm" className="pointer-events-auto shadow-card" onClick={searchArea}>
+            Search this area
+          </Button>
+        </div>
+      )}
+    </div>
+  )
+}

@@ -1,0 +1,22 @@
+// One key factory for the studio feature. Everything under a studio's detail key belongs to that
+// studio, so a change to its firings can invalidate exactly `firings(studioId)`.
+
+export const studioKeys = {
+  all: ['studios'] as const,
+  mine: () => ['studios', 'mine'] as const,
+  detail: (studioId: string) => ['studios', 'detail', studioId] as const,
+  kilns: (studioId: string) => ['studios', 'detail', studioId, 'kilns'] as const,
+  firings: (studioId: string) => ['studios', 'detail', studioId, 'firings'] as const,
+  firingsIn: (studioId: string, window: FiringWindow) => ['studios', 'detail', studioId, 'firings', window] as const,
+  crew: (studioId: string) => ['studios', 'detail', studioId, 'crew'] as const,
+  kiln: (kilnId: string) => ['studios', 'kiln', kilnId] as const,
+  priceList: (kilnId: string) => ['studios', 'kiln', kilnId, 'price-list'] as const,
+  invite: (token: string) => ['studios', 'invite', token] as const,
+}
+
+/** Which of a studio's firings to fetch: instants as ISO strings, open-ended when left out. */
+export interface FiringWindow {
+  from?: string
+  to?: string
+  includeCancelled?: boolean
+}

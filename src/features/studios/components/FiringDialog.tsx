@@ -1,0 +1,172 @@
+import { zodResolver } from '@hookform/resolvers/zod'
+import { useState } from 'react'
+import { useForm } from 'react-hook-form'
+import type { z } from 'zod'
+import { formatDateTime } from '../../../../shared/dates'
+import { firingCancelSchema } from '../../../../shared/schemas/studios'
+import type { FiringStatus } from '../../../../shared/workflow/firing-status'
+import { Alert } from '../../../components/ui/Alert'
+import { Button } from '../../../components/ui/Button'
+import { Dialog } from '../../../components/ui/Dialog'
+import { Field, TextArea } from '../../../components/ui/Field'
+import { applyServerErrors } from '../../../lib/forms'
+import { useCancelFiring, useUpdateFiring } from '../api/firings'
+import type { FiringRecord } from '../api/types'
+import type { UnitSystem } from '../units'
+import { firingInWords } from '../words'
+import { FillGauge } from './FillGauge'
+import { FiringStatusBadge } from './FiringStatusBadge'
+
+/** What the studio does to move a firing on, in its words. */
+const STATUS_ACTIONS: Record<Exclude<FiringStatus, 'cancelled'>, string> = {
+  open: 'Take ware again',
+  full: 'Mark full',
+  closed: 'Stop taking ware',
+  loading: 'Start loading',
+  firing: 'Kiln is firing',
+  cooling: 'Kiln is cooling',
+  unloaded: 'Kiln unloaded',
+}
+
+interface FiringDialogProps {
+  firing: FiringRecord | null
+  kilnName: string
+  zone: string
+  units: UnitSystem
+  onClose: () => void
+}
+
+/** One firing: its dates in the studio's zone, space held, the status moves allowed now, and cancel. */
+export function FiringDialog({ firing, kilnName, zone, units, onClose }: FiringDialogProps) {
+  const [cancelling, setCancelling] = useState(false)
+  return (
+    <Dialog
+      open={firing !== null}
+      onClose={() => {
+        setCancelling(false)
+        onClose()
+      }}
+      title={firing ? firingInWords(firing) : ''}
+      description={firing ? `${kilnName} · fires ${formatDateTime(firing.firingDate, zone)}` : undefined}
+    >
+      {firing && (cancelling ? <CancelFiring firing={firing} onDone={() => setCancelling(false)} /> : <FiringDetails firing={firing} zone={zone} units={units} onCancel={() => setCancelling(true)} />)}
+    </Dialog>
+  )
+}
+
+function FiringDetails({ firing, zone, units, onCancel }: { firing: FiringRecord; zone: string; units: UnitSystem; onCancel: () => void }) {
+  const update = useUpdateFiring(firing.studioId)
+  const moves = firing.nextStatuses.filter((s): s is Exclude<FiringStatus, 'cancelled'> => s !== 'cancelled')
+  const canCancel = firing.nextStatuses.includes('cancelled')
+  return (
+    <div className="space-y-4">
+      <div className="flex flex-wrap items-center gap-3">
+        <FiringStatusBadge status={firing.status} />
+        {firing.seriesId && <span className="text-xs text-slip-500">Part of a repeating series</span>}
+      </div>
+      <dl className="grid gap-x-4 gap-y-2 text-sm sm:grid-cols-[auto_1fr]">
+        <dt className="font-medium text-slip-600">Drop-off closes</dt>
+        <dd>{formatDateTime(firing.dropOffBy, zone)}</dd>
+        <dt className="font-medium text-slip-600">Firing</dt>
+        <dd>{formatDateTime(firing.firingDate, zone)}</dd>
+        <dt className="font-medium text-slip-600">Ready by</dt>
+        <dd>{formatDateTime(firing.readyBy, zone)}</dd>
+        <dt className="font-medium text-slip-600">Space</dt>
+        <dd>
+          <FillGauge firing={firing} units={units} />
+        </dd>
+        {firing.notes && (
+          <>
+            <dt className="font-medium text-slip-600">Notes</dt>
+            <dd className="whitespace-pre-line">{firing.notes}</dd>
+          </>
+        )}
+        {firing.cancelledReason && (
+          <>
+            <dt className="font-medium text-slip-600">Cancelled because</dt>
+            <dd>{firing.cancelledReason}</dd>
+          </>
+        )}
+      </dl>
+      {update.isError && <Alert tone="danger">{update.error.message}</Alert>}
+      {moves.length > 0 || canCancel ? (
+        <div className="space-y-2">
+          <p className="text-sm font-medium text-slip-800">Move this firing on</p>
+          <div className="flex flex-wrap gap-2" role="group" aria-label="Change status">
+            {moves.map((status) => (
+              <Button
+                key={status}
+                variant="secondary"
+                size="sm"
+                busy={update.isPending && update.variables?.body.status === status}
+                disabled={update.isPending}
+                onClick={() => update.mutate({ firingId: firing.id, body: { status } })}
+              >
+                {STATUS_ACTIONS[status]}
+              </Button>
+            ))}
+            {canCancel && (
+              <button type="button" onClick={onCancel} className="rounded-control px-3 py-1.5 text-sm font-semibold text-danger-700 hover:bg-danger-50">
+                Cancel this firing…
+              </button>
+            )}
+          </div>
+        </div>
+      ) : (
+        <p className="text-sm text-slip-600">This firing is {firing.status === 'cancelled' ? 'cancelled' : 'done'}; nothing more to change.</p>
+      )}
+    </div>
+  )
+}
+
+type CancelInput = z.input<typeof firingCancelSchema>
+
+function CancelFiring({ firing, onDone }: { firing: FiringRecord; onDone: () => void }) {
+  const cancel = useCancelFiring(firing.studioId)
+  const [formError, setFormError] = useState<string | null>(null)
+  const { register, handleSubmit, setError, formState } = useForm<CancelInput, unknown, z.output<typeof firingCancelSchema>>({
+    resolver: zodResolver(firingCancelSchema),
+  })
+  if (cancel.isSuccess) {
+    const told = cancel.data.cancelledRequests
+    return (
+      <div className="space-y-3">
+        <Alert tone="success" title="Firing cancelled">
+          {told === 0 ? 'No requests were holding space in it.' : `${told} ${told === 1 ? 'request was' : 'requests were'} cancelled; the potters are told by mail.`}
+        </Alert>
+        <Button variant="secondary" onClick={onDone}>
+          Back to the firing
+        </Button>
+      </div>
+    )
+  }
+  const onSubmit = handleSubmit(async ({ reason }) => {
+    setFormError(null)
+    try {
+      await cancel.mutateAsync({ firingId: firing.id, reason })
+    } catch (error) {
+      setFormError(applyServerErrors(error, setError))
+    }
+  })
+  return (
+    <form onSubmit={onSubmit} noValidate className="space-y-4">
+      <Alert tone="warning" title="Potters holding space are told by mail">
+        {firing.heldL > 0
+          ? `Requests hold ${firing.heldL} L in this firing. Each potter gets a mail with your reason, and paid deposits are refunded.`
+          : 'No space is held yet, but anyone with a request in this firing gets a mail with your reason.'}
+      </Alert>
+      {formError && <Alert tone="danger">{formError}</Alert>}
+      <Field label="Why is it cancelled?" hint="Potters read this, e.g. “An element failed; the next firing is on the 14th.”" error={formState.errors.reason?.message}>
+        {(a11y) => <TextArea {...a11y} rows={3} {...register('reason')} />}
+      </Field>
+      <div className="flex flex-wrap justify-end gap-2">
+        <Button variant="secondary" onClick={onDone}>
+          Keep the firing
+        </Button>
+        <Button type="submit" variant="danger" busy={formState.isSubmitting}>
+          Cancel the firing
+        </Button>
+      </div>
+    </form>
+  )
+}

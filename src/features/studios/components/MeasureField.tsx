@@ -1,0 +1,66 @@
+import { useEffect, useRef, useState, type ReactNode } from 'react'
+import { useController, type Control, type FieldValues, type Path } from 'react-hook-form'
+import { Field, TextInput } from '../../../components/ui/Field'
+import { localiseMessage, parseShown, shownText, type Measure, type UnitSystem } from '../units'
+
+interface MeasureFieldProps<T extends FieldValues> {
+  control: Control<T>
+  name: Path<T>
+  label: string
+  measure: Measure
+  /** The schemas' messages speak SI; they are shown in these units. */
+  units: UnitSystem
+  hint?: ReactNode
+  className?: string
+  disabled?: boolean
+  /** The value kept when the field is emptied: undefined for "not given", null to clear a stored one. */
+  empty?: undefined | null
+}
+
+const sameNumber = (a: unknown, b: unknown) => a === b || (typeof a === 'number' && typeof b === 'number' && Number.isNaN(a) && Number.isNaN(b))
+
+/**
+ * A number typed in the units on screen and kept in the form in SI (or cents). The field keeps its
+ * own text while it is typed ("12." stays "12.") and is rewritten only when the value or the units
+ * change from elsewhere (a reset, the unit switch).
+ */
+export function MeasureField<T extends FieldValues>({ control, name, label, measure, units, hint, className, disabled, empty }: MeasureFieldProps<T>) {
+  const { field, fieldState } = useController({ control, name })
+  const value = field.value as unknown
+  const [text, setText] = useState(() => shownText(value as number | undefined, measure))
+  const typed = useRef({ value, measure })
+
+  useEffect(() => {
+    const last = typed.current
+    if (last.measure !== measure || !sameNumber(last.value, value)) {
+      setText(shownText(value as number | undefined, measure))
+      typed.current = { value, measure }
+    }
+  }, [value, measure])
+
+  const error = fieldState.error?.message
+  return (
+    <Field label={measure.suffix ? `${label} (${measure.suffix})` : label} hint={hint} error={error ? localiseMessage(error, units) : undefined} className={className}>
+      {(a11y) => (
+        <TextInput
+          {...a11y}
+          ref={field.ref}
+          name={field.name}
+          inputMode="decimal"
+          autoComplete="off"
+          disabled={disabled}
+          value={text}
+          onBlur={field.onBlur}
+          onChange={(event) => {
+            const next = event.target.value
+            setText(next)
+            const shown = parseShown(next)
+            const stored = shown === undefined ? empty : Number.isNaN(shown) ? shown : measure.fromShown(shown)
+            typed.current = { value: stored, measure }
+            field.onChange(stored)
+          }}
+        />
+      )}
+    </Field>
+  )
+}

@@ -1,0 +1,206 @@
+import { useState } from 'react'
+import { useParams } from 'react-router-dom'
+import { formatMoney } from '../../../../shared/dates'
+import { Basemap } from '../../../components/map/Basemap'
+import { StudioMarker } from '../../../components/map/markers'
+import { Alert } from '../../../components/ui/Alert'
+import { Badge } from '../../../components/ui/Badge'
+import { Card, EmptyState } from '../../../components/ui/Card'
+import { Spinner } from '../../../components/ui/Spinner'
+import { Table, Td, Th } from '../../../components/ui/Table'
+import { useMe } from '../../auth/api/auth'
+import { useStudioFirings } from '../api/firings'
+import { useStudioKilns } from '../api/kilns'
+import { useStudio } from '../api/studios'
+import { isMemberView, type KilnWithPrices, type Studio } from '../api/types'
+import { ApiProblem } from '../components/ApiProblem'
+import { FiringRows } from '../components/FiringRows'
+import { StudioNav } from '../components/StudioNav'
+import type { UnitSystem } from '../units'
+import { kilnLimitsInWords, policiesInWords } from '../words'
+import { zoneAbbreviation } from '../zonedTime'
+
+/** /studios/:id: what a potter needs to choose this studio: kilns, coming firings, policies, prices, place. */
+export function PublicStudioPage() {
+  const { id = '' } = useParams()
+  const studio = useStudio(id)
+  if (studio.isPending) return <Spinner label="Loading the studio…" />
+  if (studio.isError) return <ApiProblem error={studio.error} what="this studio" onRetry={() => studio.refetch()} />
+  return <StudioProfile key={studio.data.id} studio={studio.data} />
+}
+
+function StudioProfile({ studio }: { studio: Studio }) {
+  const me = useMe()
+  const units: UnitSystem = me.data?.unitSystem ?? 'imperial'
+  const [from] = useState(() => new Date().toISOString())
+  const kilns = useStudioKilns(studio.id)
+  const firings = useStudioFirings(studio.id, { from })
+  const zone = studio.timezone
+  const member = isMemberView(studio) ? studio : null
+  const kilnName = (kilnId: string) => kilns.data?.find((k) => k.id === kilnId)?.name ?? 'Kiln'
+  const place = [studio.city, studio.region].filter(Boolean).join(', ')
+  const calendarPath = `/api/studios/${studio.id}/calendar.ics`
+  const subscribeUrl = `webcal://${window.location.host}${calendarPath}`
+
+  return (
+    <article className="space-y-8">
+      {member && <StudioNav studioId={studio.id} role={member.myRole} />}
+      {member && !studio.published && (
+        <Alert tone="warning" title="Draft: only your studio sees this page">
+          {member.myRole === 'owner' ? 'Publish the studio in its settings when it is ready for potters.' : 'The owner publishes it when it is ready.'}
+        </Alert>
+      )}
+      <header>
+        <div className="flex flex-wrap items-center gap-3">
+          <h1 className="text-3xl font-bold tracking-tight">{studio.name}</h1>
+          {studio.verified && (
+            <span data-testid="verified-badge">
+              <Badge tone="celadon">✓ Verified studio</Badge>
+            </span>
+          )}
+        </div>
+        <p className="mt-1 text-slip-600">{place || studio.country}</p>
+        {studio.description && <p className="mt-4 max-w-3xl whitespace-pre-line text-slip-800">{studio.description}</p>}
+      </header>
+
+      <div className="grid gap-8 lg:grid-cols-[1fr_22rem]">
+        <section aria-labelledby="firings-heading" className="space-y-3">
+          <div className="flex flex-wrap items-baseline justify-between gap-2">
+            <h2 id="firings-heading" className="text-xl font-bold tracking-tight">
+              Coming firings
+            </h2>
+            <p className="text-sm text-slip-600">
+              Times in the studio’s zone: {zone.replace(/_/g, ' ')} ({zoneAbbreviation(zone)})
+            </p>
+          </div>
+          {firings.isPending ? (
+            <Spinner label="Loading firings…" />
+          ) : firings.isError ? (
+            <ApiProblem error={firings.error} what="the firings" onRetry={() => firings.refetch()} />
+          ) : firings.data.length === 0 ? (
+            <EmptyState title="No firings posted yet">Subscribe to the calendar to hear when the next one is posted.</EmptyState>
+          ) : (
+            <FiringRows firings={firings.data} kilnName={kilnName} zone={zone} units={units} />
+          )}
+        </section>
+
+        <aside className="space-y-4">
+          <Basemap center={[studio.lat, studio.lng]} zoom={12} className="h-64 rounded-card border border-slip-200" label={`Where ${studio.name} is`}>
+            <StudioMarker position={[studio.lat, studio.lng]} title={studio.name} label={studio.name} selected />
+          </Basemap>
+          <Card as="div">
+            <h2 className="font-semibold">Drop-off</h2>
+            <p className="mt-1 text-sm text-slip-700">{studio.dropOffHours || 'Hours are given when your request is accepted.'}</p>
+            <p className="mt-2 text-xs text-slip-500">The street address is shared once a request is accepted.</p>
+          </Card>
+          <Card as="div">
+            <h2 className="font-semibold">Firing calendar</h2>
+            <p className="mt-1 text-sm text-slip-600">New firings appear in your calendar app.</p>
+            <div className="mt-3 flex flex-wrap gap-3 text-sm">
+              <a href={subscribeUrl} className="font-semibold text-clay-700 hover:underline" data-testid="calendar-subscribe">
+                Subscribe
+              </a>
+              <a href={calendarPath} download={`${studio.name}.ics`} className="font-semibold text-clay-700 hover:underline" data-testid="calendar-download">
+                Download .ics
+              </a>
+            </div>
+          </Card>
+        </aside>
+      </div>
+
+      <section aria-labelledby="kilns-heading" className="space-y-3">
+        <h2 id="kilns-heading" className="text-xl font-bold tracking-tight">
+          Kilns
+        </h2>
+        {kilns.isPending ? (
+          <Spinner label="Loading kilns…" />
+        ) : kilns.isError ? (
+          <ApiProblem error={kilns.error} what="the kilns" />
+        ) : kilns.data.length === 0 ? (
+          <EmptyState title="No kilns listed yet" />
+        ) : (
+          <>
+            <ul className="grid gap-3 md:grid-cols-2">
+              {kilns.data
+                .filter((k) => !k.retired)
+                .map((kiln) => (
+                  <Card as="li" key={kiln.id}>
+                    <h3 className="font-semibold">{kiln.name}</h3>
+                    <p className="mt-1 text-sm text-slip-700" data-testid="kiln-limits">
+                      {kilnLimitsInWords(kiln, units)}
+                    </p>
+                    {kiln.notes && <p className="mt-2 text-sm text-slip-600">{kiln.notes}</p>}
+                  </Card>
+                ))}
+            </ul>
+            <ExamplePrices kilns={kilns.data.filter((k) => !k.retired)} />
+          </>
+        )}
+      </section>
+
+      <section aria-labelledby="policies-heading" className="space-y-3">
+        <h2 id="policies-heading" className="text-xl font-bold tracking-tight">
+          Policies
+        </h2>
+        <Card>
+          <ul className="list-disc space-y-1 pl-5 text-sm text-slip-800" data-testid="policies">
+            {policiesInWords(studio.policies).map((line) => (
+              <li key={line}>{line}</li>
+            ))}
+          </ul>
+          {studio.policies.wareRequirements && (
+            <>
+              <h3 className="mt-4 text-sm font-semibold">What ware must be like</h3>
+              <p className="mt-1 whitespace-pre-line text-sm text-slip-700">{studio.policies.wareRequirements}</p>
+            </>
+          )}
+        </Card>
+      </section>
+    </article>
+  )
+}
+
+/** The same reference pieces priced in every kiln, so studios and pricing models compare at a glance. */
+function ExamplePrices({ kilns }: { kilns: KilnWithPrices[] }) {
+  const priced = kilns.filter((k) => k.examplePrices.length > 0)
+  if (priced.length === 0) return <p className="text-sm text-slip-600">Prices are given on request.</p>
+  const pieces = priced[0].examplePrices.map((e) => e.label)
+  return (
+    <div className="space-y-2">
+      <h3 className="font-semibold">Example prices</h3>
+      <p className="text-sm text-slip-600">Reference pieces in a cone 6 glaze firing; your own ware is priced the same way.</p>
+      <Table caption="Example prices per kiln">
+        <thead>
+          <tr>
+            <Th>Piece</Th>
+            {priced.map((kiln) => (
+              <Th key={kiln.id}>{kiln.name}</Th>
+            ))}
+          </tr>
+        </thead>
+        <tbody className="divide-y divide-slip-100">
+          {pieces.map((label) => (
+            <tr key={label}>
+              <Td className="font-medium">{label}</Td>
+              {priced.map((kiln) => {
+                const example = kiln.examplePrices.find((e) => e.label === label)
+                return (
+                  <Td key={kiln.id} data-testid="example-price">
+                    {example ? (
+                      <>
+                        {formatMoney(example.quote.totalCents, example.quote.currency)}
+                        <span className="block text-xs text-slip-500">deposit {formatMoney(example.quote.depositCents, example.quote.currency)}</span>
+                      </>
+                    ) : (
+                      '—'
+                    )}
+                  </Td>
+                )
+              })}
+            </tr>
+          ))}
+        </tbody>
+      </Table>
+    </div>
+  )
+}

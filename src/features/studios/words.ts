@@ -1,0 +1,74 @@
+// Kilns, firings and policies in plain words, as a potter reads them on a studio's page.
+import type { Atmosphere, KilnInterior, KilnKind } from '../../../shared/firing/check'
+import { formatCone } from '../../../shared/firing/cones'
+import type { StudioPolicies } from '../../../shared/schemas/studios'
+import type { FiringRecord, KilnRecord } from './api/types'
+import { formatLength, type UnitSystem } from './units'
+
+export const KILN_KINDS: readonly { value: KilnKind; label: string }[] = [
+  { value: 'electric', label: 'Electric' },
+  { value: 'gas', label: 'Gas' },
+  { value: 'wood', label: 'Wood' },
+  { value: 'soda', label: 'Soda' },
+  { value: 'salt', label: 'Salt' },
+  { value: 'raku', label: 'Raku' },
+]
+
+export const ATMOSPHERES: readonly { value: Atmosphere; label: string }[] = [
+  { value: 'oxidation', label: 'Oxidation' },
+  { value: 'reduction', label: 'Reduction' },
+  { value: 'neutral', label: 'Neutral' },
+]
+
+export const FIRING_KINDS: readonly { value: FiringRecord['kind']; label: string }[] = [
+  { value: 'bisque', label: 'Bisque' },
+  { value: 'glaze', label: 'Glaze' },
+  { value: 'single', label: 'Single firing' },
+]
+
+const kindLabel = (kind: KilnKind) => KILN_KINDS.find((k) => k.value === kind)?.label ?? kind
+export const firingKindLabel = (kind: FiringRecord['kind']) => FIRING_KINDS.find((k) => k.value === kind)?.label ?? kind
+
+/** "a, b and c" */
+export function listInWords(items: readonly string[], last = 'and'): string {
+  if (items.length <= 1) return items.join('')
+  return `${items.slice(0, -1).join(', ')} ${last} ${items[items.length - 1]}`
+}
+
+export function interiorInWords(interior: KilnInterior, units: UnitSystem): string {
+  const tall = `${formatLength(interior.heightMm, units)} tall`
+  if (interior.shape === 'round') return `${formatLength(interior.diameterMm, units)} across × ${tall}`
+  return `${formatLength(interior.widthMm, units)} wide × ${formatLength(interior.depthMm, units)} deep × ${tall}`
+}
+
+/** "Electric, oxidation, cone 022 to 10, 28 in across × 27 in tall, usable 25.4 in" */
+export function kilnLimitsInWords(kiln: KilnRecord, units: UnitSystem): string {
+  return [
+    kindLabel(kiln.kind),
+    listInWords(kiln.atmospheres, 'or'),
+    `cone ${kiln.minCone} to ${kiln.maxCone}`,
+    interiorInWords(kiln.interior, units),
+    `usable ${formatLength(kiln.effectiveUsableHeightMm, units)}`,
+  ].join(', ')
+}
+
+/** "Glaze, cone 6 oxidation" (with slow cooling when asked). */
+export function firingInWords(firing: Pick<FiringRecord, 'kind' | 'cone' | 'atmosphere' | 'slowCool'>): string {
+  return `${firingKindLabel(firing.kind)}, ${formatCone(firing.cone)} ${firing.atmosphere}${firing.slowCool ? ', slow cooled' : ''}`
+}
+
+export function policiesInWords(policies: StudioPolicies): string[] {
+  const { fullRefundDaysBefore: days, laterRefundPercent: percent } = policies.cancellation
+  const later = percent >= 100 ? 'and in full after that too' : percent <= 0 ? 'and nothing after that' : `and ${percent} % back after that`
+  const refund =
+    days === 0
+      ? percent >= 100
+        ? 'Cancel any time before the firing for a full refund.'
+        : `Cancel before the firing for ${percent} % back.`
+      : `Cancel up to ${days} ${days === 1 ? 'day' : 'days'} before the firing for a full refund, ${later}.`
+  return [
+    `Accepts ${listInWords(policies.clayBodies)} clay bodies.`,
+    refund,
+    `Once a request is accepted, its space is held ${policies.depositHoldHours} hours for the deposit.`,
+  ]
+}
