@@ -17,8 +17,10 @@ import { invitesRouter } from './routes/invites'
 import { kilnsRouter } from './routes/kilns'
 import { metaRouter } from './routes/meta'
 import { placesRouter } from './routes/places'
+import { requestsRouter } from './routes/requests'
 import { searchRouter } from './routes/search'
 import { studiosRouter } from './routes/studios'
+import { webhooksRouter } from './routes/webhooks'
 import { wareChecksRouter } from './routes/ware-checks'
 
 export interface App {
@@ -54,6 +56,8 @@ export function createApp(ctx: AppContext): App {
 
   app.use('/api', healthRouter(ctx))
   app.use('/api', metaRouter(ctx))
+
+  app.use('/api', webhooksRouter(ctx))
 
   app.use('/api', express.json({ limit: '1mb' }))
 
@@ -104,6 +108,7 @@ export function createApp(ctx: AppContext): App {
   app.use('/api', invitesRouter(ctx))
   app.use('/api', placesRouter(ctx))
   app.use('/api', searchRouter(ctx))
+  app.use('/api', requestsRouter(ctx))
 
   app.use('/api', notFoundApi)
 

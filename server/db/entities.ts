@@ -3,13 +3,17 @@ import { AuthToken } from '../entities/AuthToken'
 import { Firing } from '../entities/Firing'
 import { FiringRequest } from '../entities/FiringRequest'
 import { Kiln } from '../entities/Kiln'
+import { LedgerEntry } from '../entities/LedgerEntry'
+import { Payment } from '../entities/Payment'
 import { KilnPriceList } from '../entities/KilnPriceList'
 import { OutboundMail } from '../entities/OutboundMail'
 import { Rating } from '../entities/Rating'
 import { RequestEvent } from '../entities/RequestEvent'
+import { RequestMessage } from '../entities/RequestMessage'
 import { SearchDocument } from '../entities/SearchDocument'
+import { StripeEvent } from '../entities/StripeEvent'
 import { Studio } from '../entities/Studio'
 import { StudioMember } from '../entities/StudioMember'
 import { User } from '../entities/User'
 
-export const entities = [User, Studio, StudioMember, AuthToken, OutboundMail, Kiln, KilnPriceList, Firing, FiringRequest, RequestEvent, Rating, SearchDocument]
+export const entities = [User, Studio, StudioMember, AuthToken, OutboundMail, Kiln, KilnPriceList, Firing, FiringRequest, RequestEvent, Rating, SearchDocument, LedgerEntry, Payment, StripeEvent, RequestMessage]

@@ -4,5 +4,6 @@ import { Foundation1796149373286 } from './migrations/1796149373286-Foundation'
 import { StudiosKilnsFirings1796150510924 } from './migrations/1796150510924-StudiosKilnsFirings'
 import { FiringRequests1796150607023 } from './migrations/1796150607023-FiringRequests'
 import { SearchAndRatings1796151307684 } from './migrations/1796151307684-SearchAndRatings'
+import { PaymentsAndMessages1796151940233 } from './migrations/1796151940233-PaymentsAndMessages'
 
-export const migrations: Function[] = [Foundation1796149373286, StudiosKilnsFirings1796150510924, FiringRequests1796150607023, SearchAndRatings1796151307684]
+export const migrations: Function[] = [Foundation1796149373286, StudiosKilnsFirings1796150510924, FiringRequests1796150607023, SearchAndRatings1796151307684, PaymentsAndMessages1796151940233]

@@ -3,6 +3,7 @@
 // stand-ins' state. It prints one line, STANDINS {json}, with the environment that points the app at them.
 import { startSearchEngine } from '../../search/engine/server'
 import { startMailCatcher } from './mail-catcher'
+import { startStripeStandIn } from './stripe/standin'
 
 const int = (value: string | undefined, fallback: number) => (value ? Number(value) : fallback)
 const env: Record<string, string> = {}
@@ -23,6 +24,20 @@ if (!process.env.MEILI_HOST) {
   const search = await startSearchEngine({ port: int(process.env.SEARCH_PORT, 4617), masterKey })
   Object.assign(env, { MEILI_HOST: search.url, MEILI_API_KEY: masterKey })
   closers.push(() => search.close())
+}
+
+if (!process.env.STRIPE_API_BASE) {
+  const secretKey = process.env.STRIPE_SECRET_KEY ?? 'sk_test_conewright_local'
+  const webhookSecret = process.env.STRIPE_WEBHOOK_SECRET ?? 'whsec_conewright_local'
+  const stripe = await startStripeStandIn({
+    port: int(process.env.STRIPE_PORT, 4612),
+    secretKey,
+    webhookSecret,
+    // The app's webhook endpoint, as a Stripe account's endpoint setting would name it.
+    webhookUrl: process.env.APP_WEBHOOK_URL,
+  })
+  Object.assign(env, { STRIPE_API_BASE: stripe.url, STRIPE_SECRET_KEY: secretKey, STRIPE_WEBHOOK_SECRET: webhookSecret })
+  closers.push(() => stripe.close())
 }
 
 process.stdout.write(`STANDINS ${JSON.stringify(env)}\n`)

@@ -1,7 +1,12 @@
 import type { TaskList } from 'graphile-worker'
 import { REINDEX_TASK, reindexAll, SYNC_STUDIO_TASK, syncStudio } from '../../search/sync'
 import type { AppContext } from '../context'
+import { FiringRequest } from '../entities/FiringRequest'
 import { sendQueuedMail } from '../services/mail'
+import { MESSAGE_DIGEST_TASK, sendMessageDigest } from '../services/messages'
+import { makeRefund, OPEN_CHECKOUT_TASK, openCheckout, REFUND_TASK } from '../services/payments'
+import { DEPOSIT_EXPIRY_TASK, expireDepositHold } from '../services/requests'
+import { expireOpenCheckouts } from '../services/payments'
 import { engineIsBack } from '../services/search'
 
 /** Every background task by name. Handlers are thin: the work lives in services. */
@@ -13,6 +18,23 @@ export function taskList(ctx: AppContext): TaskList {
     [SYNC_STUDIO_TASK]: async (payload) => {
       await syncStudio(ctx, (payload as { studioId: string }).studioId)
       engineIsBack()
+    },
+    [REFUND_TASK]: async (payload) => {
+      await makeRefund(ctx, payload as { requestId: string; amountCents: number; reason: string; key: string })
+    },
+    [OPEN_CHECKOUT_TASK]: async (payload) => {
+      const { requestId, purpose, amountCents } = payload as { requestId: string; purpose: 'deposit' | 'balance'; amountCents: number }
+      // The request may have moved on (withdrawn, paid) before the job ran.
+      const { state } = await ctx.db.getRepository(FiringRequest).findOneByOrFail({ id: requestId })
+      if ((purpose === 'deposit' && state === 'accepted') || (purpose === 'balance' && state === 'ready')) await openCheckout(ctx, requestId, purpose, amountCents)
+    },
+    [DEPOSIT_EXPIRY_TASK]: async (payload) => {
+      const { requestId } = payload as { requestId: string }
+      if (await expireDepositHold(ctx, requestId)) await expireOpenCheckouts(ctx, requestId)
+    },
+    [MESSAGE_DIGEST_TASK]: async (payload) => {
+      const { requestId, to } = payload as { requestId: string; to: 'potter' | 'studio' }
+      await sendMessageDigest(ctx, requestId, to)
     },
     [REINDEX_TASK]: async () => {
       const { documents } = await reindexAll(ctx)

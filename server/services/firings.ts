@@ -21,6 +21,7 @@ import { badRequest, conflict, type FieldErrors, HttpError, notFound } from '../
 import { firingCancelledMail } from '../mail/templates/firings'
 import { getKiln, getPriceList, kilnSpec } from './kilns'
 import { queueMail } from './mail'
+import { refundCancelledByFiring } from './requests'
 
 export interface FiringJson {
   id: string
@@ -193,10 +194,7 @@ export async function updateFiring(ctx: AppContext, id: string, patch: FiringPat
 /** Requests that still expect this firing to happen. */
 const LIVE_REQUEST_STATES = ['draft', 'sent', 'accepted', 'deposit_paid'] as const
 
-/**
- * Cancels a firing and every live request in it, and mails each potter. Refunds of paid deposits are
- * made by the request workflow (see services/requests.ts) from the `cancelled` events written here.
- */
+/** Cancels a firing and every live request in it, refunds what was paid in full and mails each potter. */
 export async function cancelFiring(ctx: AppContext, id: string, reason: string, actorId: string): Promise<{ firing: Firing; requestIds: string[] }> {
   return ctx.db.transaction(async (manager) => {
     const firing = await getFiring(manager, id, true)
@@ -229,6 +227,8 @@ export async function cancelFiring(ctx: AppContext, id: string, reason: string, 
         ),
       )
     }
+    // Everything paid for those requests goes back in full.
+    await refundCancelledByFiring(manager, requests.map((r) => r.id))
     return { firing, requestIds: requests.map((r) => r.id) }
   })
 }

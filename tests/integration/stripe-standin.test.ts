@@ -14,6 +14,7 @@ import { randomUUID } from 'node:crypto'
 import { createServer, type Server } from 'node:http'
 import type { AddressInfo } from 'node:net'
 import Stripe from 'stripe'
+import { CARD_DECLINED, CARD_INSUFFICIENT_FUNDS, CARD_SUCCEEDS, submitCard } from '../support/checkout'
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest'
 import { startStripeStandIn, type StripeStandIn } from '../../server/fakes/stripe/standin'
 import { passesLuhn } from '../../server/fakes/stripe/test-cards'
@@ -341,37 +342,6 @@ async function startReceiver(stripe: Stripe): Promise<WebhookReceiver> {
   receiver.url = `http://127.0.0.1:${(server.address() as AddressInfo).port}/api/webhooks/stripe`
   return receiver
 }
-
-interface CardForm {
-  cardNumber: string
-  expiry?: string
-  cvc?: string
-  postalCode?: string
-  email?: string
-}
-
-// Submits the hosted page's form as a browser would, without following the redirect.
-async function submitCard(sessionUrl: string, card: CardForm): Promise<{ status: number; location: string | null; html: string }> {
-  const response = await fetch(sessionUrl, {
-    method: 'POST',
-    headers: { 'Content-Type': 'application/x-www-form-urlencoded' },
-    body: new URLSearchParams({
-      email: card.email ?? 'potter@example.com',
-      cardNumber: card.cardNumber,
-      expiry: card.expiry ?? '12 / 34',
-      cvc: card.cvc ?? '123',
-      cardholderName: 'Test Potter',
-      postalCode: card.postalCode ?? '97201',
-    }),
-    redirect: 'manual',
-  })
-  return { status: response.status, location: response.headers.get('location'), html: await response.text() }
-}
-
-// Test card numbers from Stripe's testing docs (docs.stripe.com/testing).
-const CARD_SUCCEEDS = '4242 4242 4242 4242'
-const CARD_DECLINED = '4000 0000 0000 0002'
-const CARD_INSUFFICIENT_FUNDS = '4000 0000 0000 9995'
 
 describe.skipIf(againstRealStripe)('hosted page, webhooks and refunds (stand-in only)', () => {
   let standIn: StripeStandIn

@@ -9,6 +9,7 @@ import { createDataSource } from '../../server/db/data-source'
 import { startWorker } from '../../server/jobs/worker'
 import { startMailCatcher, type MailCatcher } from '../../server/fakes/mail-catcher'
 import { startSearchEngine, type RunningSearchEngine } from '../../search/engine/server'
+import { startStripeStandIn, type StripeStandIn } from '../../server/fakes/stripe/standin'
 import { createTestDatabase } from './database'
 
 export interface TestApp {
@@ -16,6 +17,7 @@ export interface TestApp {
   ctx: AppContext
   mail: MailCatcher | null
   search: RunningSearchEngine | null
+  stripe: StripeStandIn | null
   close(): Promise<void>
 }
 
@@ -24,11 +26,12 @@ export interface TestApp {
  * and (when asked) a mail catcher. Nothing is mocked.
  */
 export async function startTestApp(
-  options: { mail?: boolean; search?: boolean; worker?: boolean; config?: Partial<Config>; serveClient?: boolean } = {},
+  options: { mail?: boolean; search?: boolean; stripe?: boolean; worker?: boolean; config?: Partial<Config>; serveClient?: boolean } = {},
 ): Promise<TestApp> {
   const database = await createTestDatabase()
   const mail = options.mail ? await startMailCatcher({ smtpPort: await freePort(), webPort: await freePort() }) : null
   const search = options.search ? await startSearchEngine({ port: 0, masterKey: 'test-search-key' }) : null
+  const stripe = options.stripe ? await startStripeStandIn({ port: 0, secretKey: 'sk_test_conewright_tests', webhookSecret: 'whsec_conewright_tests', webhookRetry: { baseDelayMs: 100 } }) : null
   const config = loadConfig(
     {},
     {
@@ -38,6 +41,10 @@ export async function startTestApp(
       // Without a search engine, searches take the PostgreSQL path (port 9 answers nothing).
       meiliHost: search?.url ?? 'http://127.0.0.1:9',
       meiliApiKey: 'test-search-key',
+      stripeSecretKey: 'sk_test_conewright_tests',
+      stripeWebhookSecret: 'whsec_conewright_tests',
+      // Without the stand-in, Stripe calls go to a port that answers nothing.
+      stripeApiBase: stripe?.url ?? 'http://127.0.0.1:9',
       serveClient: options.serveClient ?? false,
       workerConcurrency: 2,
       ...options.config,
@@ -53,11 +60,13 @@ export async function startTestApp(
   })
   const url = `http://127.0.0.1:${(server.address() as AddressInfo).port}`
   if (!options.config?.publicUrl) config.publicUrl = url
+  stripe?.setWebhookUrl(`${url}/api/webhooks/stripe`)
   const testApp: TestApp = {
     url,
     ctx,
     mail,
     search,
+    stripe,
     async close() {
       server.closeAllConnections()
       await new Promise((r) => server.close(r))
@@ -67,6 +76,7 @@ export async function startTestApp(
       await mail?.close()
       // A test may have restarted the engine: close the one running now.
       await testApp.search?.close()
+      await stripe?.close()
       await database.drop()
     },
   }

@@ -1,0 +1,49 @@
+import { Check, Column, CreateDateColumn, Entity, Index, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm'
+
+/** A Stripe Checkout Session opened for a request's deposit or balance. */
+@Entity({ name: 'payments' })
+@Index('payments_request_idx', ['requestId', 'purpose'])
+@Check('payments_purpose_check', `"purpose" IN ('deposit', 'balance')`)
+@Check('payments_status_check', `"status" IN ('open', 'paid', 'expired', 'failed')`)
+export class Payment {
+  @PrimaryGeneratedColumn('uuid')
+  id: string
+
+  @Column({ name: 'request_id', type: 'uuid' })
+  requestId: string
+
+  @Column({ type: 'text' })
+  purpose: 'deposit' | 'balance'
+
+  @Index('payments_session_key', { unique: true })
+  @Column({ name: 'stripe_session_id', type: 'text' })
+  stripeSessionId: string
+
+  @Column({ name: 'checkout_url', type: 'text' })
+  checkoutUrl: string
+
+  @Column({ name: 'amount_cents', type: 'integer' })
+  amountCents: number
+
+  @Column({ type: 'char', length: 3 })
+  currency: string
+
+  @Column({ type: 'text', default: 'open' })
+  status: 'open' | 'paid' | 'expired' | 'failed'
+
+  @Column({ name: 'stripe_payment_intent_id', type: 'text', nullable: true })
+  stripePaymentIntentId: string | null
+
+  /** Why the last attempt on the hosted page failed, as Stripe said it. */
+  @Column({ name: 'failure_message', type: 'text', nullable: true })
+  failureMessage: string | null
+
+  @Column({ name: 'expires_at', type: 'timestamptz' })
+  expiresAt: Date
+
+  @CreateDateColumn({ name: 'created_at', type: 'timestamptz' })
+  createdAt: Date
+
+  @UpdateDateColumn({ name: 'updated_at', type: 'timestamptz' })
+  updatedAt: Date
+}

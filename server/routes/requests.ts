@@ -1,0 +1,123 @@
+import { Router } from 'express'
+import { z } from 'zod'
+import {
+  messageSchema,
+  requestCreateSchema,
+  requestDeclineSchema,
+  requestMoveSchema,
+  requestPatchSchema,
+  requestSendSchema,
+  requestWithdrawSchema,
+} from '../../shared/schemas/requests'
+import { REQUEST_STATES } from '../../shared/workflow/request-states'
+import { requireAuth, requireRole } from '../auth/guards'
+import type { AppContext } from '../context'
+import { FiringRequest } from '../entities/FiringRequest'
+import { StudioMember } from '../entities/StudioMember'
+import { conflict } from '../http/errors'
+import { requireUuidParams, validateBody, validateQuery } from '../http/validate'
+import { listMessages, postMessage } from '../services/messages'
+import { moneyOf, openCheckout } from '../services/payments'
+import { loadRequest, viewerOf } from '../services/request-context'
+import { requestJson, requestRows } from '../services/request-views'
+import { acceptRequest, answerMove, createDraft, declineRequest, proposeMove, sendRequest, updateDraft, withdrawRequest } from '../services/requests'
+
+const listQuery = z.object({
+  firingId: z.uuid().optional(),
+  studioId: z.uuid().optional(),
+  state: z.enum(REQUEST_STATES).optional(),
+  as: z.enum(['potter', 'studio']).optional(),
+})
+
+export function requestsRouter(ctx: AppContext) {
+  const router = Router()
+  const id = requireUuidParams('id')
+
+  const show = async (requestId: string, user: Express.User) => {
+    const rc = await loadRequest(ctx.db.manager, requestId)
+    return requestJson(ctx.db.manager, rc, await viewerOf(ctx.db.manager, rc, user))
+  }
+
+  router.post('/firings/:id/requests', requireRole('potter'), id, validateBody(requestCreateSchema), async (req, res) => {
+    const requestId = await createDraft(ctx, req.user!, String(req.params.id), req.body)
+    res.status(201).json(await show(requestId, req.user!))
+  })
+
+  // Mine: a potter's own requests, and for studio people the requests to their studios.
+  router.get('/requests', requireAuth, validateQuery(listQuery), async (req, res) => {
+    const q = res.locals.query as z.infer<typeof listQuery>
+    const user = req.user!
+    const memberships = await ctx.db.getRepository(StudioMember).find({ where: { userId: user.id } })
+    const studioIds = memberships.map((m) => m.studioId).filter((sid) => !q.studioId || sid === q.studioId)
+    const qb = ctx.db.getRepository(FiringRequest).createQueryBuilder('r').innerJoin('r.firing', 'f').innerJoin('f.kiln', 'k').orderBy('r.updatedAt', 'DESC').take(200)
+    const asPotter = q.as !== 'studio'
+    const asStudio = q.as !== 'potter' && studioIds.length > 0
+    if (asPotter && asStudio) qb.where('(r.potter_id = :me OR (k.studio_id IN (:...studioIds) AND r.state <> :draft))', { me: user.id, studioIds, draft: 'draft' })
+    else if (asStudio) qb.where('k.studio_id IN (:...studioIds) AND r.state <> :draft', { studioIds, draft: 'draft' })
+    else qb.where('r.potter_id = :me', { me: user.id })
+    if (q.firingId) qb.andWhere('r.firing_id = :firingId', { firingId: q.firingId })
+    if (q.state) qb.andWhere('r.state = :state', { state: q.state })
+    res.json({ requests: await requestRows(ctx.db.manager, await qb.getMany()) })
+  })
+
+  router.get('/requests/:id', requireAuth, id, async (req, res) => {
+    res.json(await show(String(req.params.id), req.user!))
+  })
+
+  router.patch('/requests/:id', requireAuth, id, validateBody(requestPatchSchema), async (req, res) => {
+    await updateDraft(ctx, req.user!, String(req.params.id), req.body)
+    res.json(await show(String(req.params.id), req.user!))
+  })
+
+  router.post('/requests/:id/send', requireAuth, id, validateBody(requestSendSchema), async (req, res) => {
+    await sendRequest(ctx, req.user!, String(req.params.id), req.body)
+    res.json(await show(String(req.params.id), req.user!))
+  })
+
+  router.post('/requests/:id/accept', requireAuth, id, async (req, res) => {
+    await acceptRequest(ctx, req.user!, String(req.params.id))
+    res.json(await show(String(req.params.id), req.user!))
+  })
+
+  router.post('/requests/:id/decline', requireAuth, id, validateBody(requestDeclineSchema), async (req, res) => {
+    await declineRequest(ctx, req.user!, String(req.params.id), req.body.reason)
+    res.json(await show(String(req.params.id), req.user!))
+  })
+
+  router.post('/requests/:id/move', requireAuth, id, validateBody(requestMoveSchema), async (req, res) => {
+    await proposeMove(ctx, req.user!, String(req.params.id), req.body.firingId)
+    res.json(await show(String(req.params.id), req.user!))
+  })
+
+  router.post('/requests/:id/move/:answer', requireAuth, id, async (req, res) => {
+    const answer = String(req.params.answer)
+    if (answer !== 'accept' && answer !== 'refuse') throw conflict('Answer a move with accept or refuse.', 'bad-answer')
+    await answerMove(ctx, req.user!, String(req.params.id), answer === 'accept')
+    res.json(await show(String(req.params.id), req.user!))
+  })
+
+  router.post('/requests/:id/withdraw', requireAuth, id, validateBody(requestWithdrawSchema), async (req, res) => {
+    await withdrawRequest(ctx, req.user!, String(req.params.id), req.body.reason)
+    res.json(await show(String(req.params.id), req.user!))
+  })
+
+  router.post('/requests/:id/deposit', requireAuth, id, async (req, res) => {
+    const rc = await loadRequest(ctx.db.manager, String(req.params.id))
+    const viewer = await viewerOf(ctx.db.manager, rc, req.user!)
+    if (viewer.side === 'studio') throw conflict('The potter pays the deposit.', 'not-the-potter')
+    if (rc.request.state !== 'accepted' || !rc.request.depositDueAt) throw conflict('No deposit is due for this request.', 'nothing-owed', { state: rc.request.state })
+    const { depositPaid } = await moneyOf(ctx.db.manager, rc.request.id)
+    const payment = await openCheckout(ctx, rc.request.id, 'deposit', (rc.request.quote?.depositCents ?? 0) - depositPaid)
+    res.json({ checkoutUrl: payment.checkoutUrl, expiresAt: payment.expiresAt.toISOString() })
+  })
+
+  router.get('/requests/:id/messages', requireAuth, id, async (req, res) => {
+    res.json({ messages: await listMessages(ctx, req.user!, String(req.params.id)) })
+  })
+
+  router.post('/requests/:id/messages', requireAuth, id, validateBody(messageSchema), async (req, res) => {
+    res.status(201).json(await postMessage(ctx, req.user!, String(req.params.id), req.body.body))
+  })
+
+  return router
+}

@@ -1,0 +1,94 @@
+import type { EntityManager } from 'typeorm'
+import { canMoveRequest, nextRequestStates, type RequestState } from '../../shared/workflow/request-states'
+import { Firing } from '../entities/Firing'
+import { FiringRequest } from '../entities/FiringRequest'
+import { Kiln } from '../entities/Kiln'
+import { RequestEvent } from '../entities/RequestEvent'
+import { Studio } from '../entities/Studio'
+import { StudioMember } from '../entities/StudioMember'
+import { User } from '../entities/User'
+import { conflict, notFound } from '../http/errors'
+import type { RequestFacts } from '../mail/templates/requests'
+
+/** A request with everything around it that the workflow and the views need. */
+export interface RequestContext {
+  request: FiringRequest
+  firing: Firing
+  kiln: Kiln
+  studio: Studio
+  potter: User
+}
+
+/** Who is looking at a request: its potter, one of the studio's people, or an admin. */
+export type Viewer = { side: 'potter' } | { side: 'studio'; role: 'owner' | 'crew' } | { side: 'admin' }
+
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i
+
+export async function loadRequest(manager: EntityManager, id: string, { lock = false } = {}): Promise<RequestContext> {
+  if (!UUID.test(id)) throw notFound('That request')
+  const request = await manager.getRepository(FiringRequest).findOne({ where: { id }, ...(lock ? { lock: { mode: 'pessimistic_write' as const } } : {}) })
+  if (!request) throw notFound('That request')
+  const firing = await manager.getRepository(Firing).findOneByOrFail({ id: request.firingId })
+  const kiln = await manager.getRepository(Kiln).findOneByOrFail({ id: firing.kilnId })
+  const studio = await manager.getRepository(Studio).findOneByOrFail({ id: kiln.studioId })
+  const potter = await manager.getRepository(User).findOneByOrFail({ id: request.potterId })
+  return { request, firing, kiln, studio, potter }
+}
+
+/**
+ * The viewer's standing on a request, or a 404 as if it did not exist: the one place that decides
+ * who may see a request.
+ */
+export async function viewerOf(manager: EntityManager, rc: RequestContext, user: Pick<User, 'id' | 'role'>): Promise<Viewer> {
+  if (user.role === 'admin') return { side: 'admin' }
+  if (rc.request.potterId === user.id) return { side: 'potter' }
+  const member = await manager.getRepository(StudioMember).findOne({ where: { studioId: rc.studio.id, userId: user.id } })
+  // A draft is the potter's own until it is sent.
+  if (member && rc.request.state !== 'draft') return { side: 'studio', role: member.role }
+  throw notFound('That request')
+}
+
+/** Moves a request along the one state machine, recording who, when, from, to and why. */
+export async function moveRequest(
+  manager: EntityManager,
+  request: FiringRequest,
+  to: RequestState,
+  actorId: string | null,
+  reason = '',
+  data: Record<string, unknown> = {},
+) {
+  if (!canMoveRequest(request.state, to)) {
+    throw conflict(`A request that is ${request.state.replace('_', ' ')} cannot become ${to.replace('_', ' ')}.`, 'bad-state-change', {
+      state: request.state,
+      allowed: nextRequestStates(request.state),
+    })
+  }
+  await manager.getRepository(RequestEvent).save({ requestId: request.id, actorId, fromState: request.state, toState: to, reason, data })
+  request.state = to
+  await manager.update(FiringRequest, request.id, { state: to })
+}
+
+/** Everyone on the studio's side who hears about its requests: the owner and the crew. */
+export async function studioPeople(manager: EntityManager, studioId: string): Promise<User[]> {
+  const members = await manager.getRepository(StudioMember).find({ where: { studioId }, relations: { user: true } })
+  return members.map((m) => m.user)
+}
+
+export function factsOf(rc: RequestContext, publicUrl: string): RequestFacts {
+  return {
+    requestUrl: `${publicUrl}/requests/${rc.request.id}`,
+    potterName: rc.potter.displayName,
+    studioName: rc.studio.name,
+    kilnName: rc.kiln.name,
+    cone: rc.firing.cone,
+    atmosphere: rc.firing.atmosphere,
+    kind: rc.firing.kind,
+    firingDate: rc.firing.firingDate,
+    dropOffBy: rc.firing.dropOffBy,
+    timezone: rc.studio.timezone,
+    pieceCount: rc.request.pieces.reduce((n, p) => n + p.quantity, 0),
+    currency: rc.request.quote?.currency ?? rc.studio.currency,
+    totalCents: rc.request.quote?.totalCents ?? 0,
+    depositCents: rc.request.quote?.depositCents ?? 0,
+  }
+}

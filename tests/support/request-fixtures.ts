@@ -1,0 +1,30 @@
+import type { HttpSession } from './http-client'
+
+/** A bisqued stoneware mug with a cone 5–10 glaze: fine in a cone 6 oxidation glaze firing. */
+export const mug = (overrides: Record<string, unknown> = {}) => ({
+  label: 'Mug',
+  quantity: 4,
+  heightMm: 100,
+  widthMm: 90,
+  depthMm: 115,
+  wallThicknessMm: 6,
+  clay: { body: 'stoneware', minCone: '5', maxCone: '10' },
+  state: 'bisque',
+  boneDry: true,
+  glaze: { minCone: '5', maxCone: '10' },
+  ...overrides,
+})
+
+/** The same mug with a runny glaze: a warning (set it on a catch tray), not a block. */
+export const runnyMug = () => mug({ label: 'Runny mug', quantity: 1, glaze: { minCone: '5', maxCone: '10', runny: true } })
+
+/** Greenware not declared bone dry: blocked in any firing. */
+export const wetBowl = () => mug({ label: 'Wet bowl', quantity: 1, state: 'greenware', boneDry: false, glaze: undefined })
+
+export async function draftAndSend(potter: HttpSession, firingId: string, pieces: unknown[], acknowledged: string[] = []) {
+  const draft = await potter.post(`/api/firings/${firingId}/requests`, { pieces })
+  if (draft.status !== 201) throw new Error(`draft: ${draft.status} ${JSON.stringify(draft.body)}`)
+  const sent = await potter.post(`/api/requests/${draft.body.id}/send`, { acknowledged, agreePolicies: true, policiesVersion: draft.body.studio.policiesVersion })
+  if (sent.status !== 200) throw new Error(`send: ${sent.status} ${JSON.stringify(sent.body)}`)
+  return sent.body as { id: string; state: string; volumeL: number; quote: { totalCents: number; depositCents: number } }
+}
