@@ -6,7 +6,6 @@ import { roundHalfUpCents } from '../../shared/firing/quote'
 import type { AppContext } from '../context'
 import { LedgerEntry } from '../entities/LedgerEntry'
 import { Payment } from '../entities/Payment'
-import { StripeEvent } from '../entities/StripeEvent'
 import { badRequest, conflict } from '../http/errors'
 import { enqueueJob } from '../jobs/queue'
 import { depositReceivedMail, refundedMail } from '../mail/templates/requests'
@@ -67,21 +66,27 @@ export async function openCheckout(ctx: AppContext, requestId: string, purpose: 
     },
     { idempotencyKey: `${purpose}:${requestId}:${attempt}:${amountCents}` },
   )
-  if (open) await payments.update(open.id, { status: 'expired' })
-  const existing = await payments.findOne({ where: { stripeSessionId: session.id } })
-  if (existing) return existing
-  return payments.save({
-    requestId,
-    purpose,
-    stripeSessionId: session.id,
-    checkoutUrl: session.url!,
-    amountCents,
-    currency: currency.toUpperCase(),
-    status: 'open',
-    stripePaymentIntentId: null,
-    failureMessage: null,
-    expiresAt: new Date((session.expires_at ?? Math.floor(Date.now() / 1000) + CHECKOUT_LIFETIME_S) * 1000),
-  })
+  if (open && open.stripeSessionId !== session.id) await payments.update(open.id, { status: 'expired' })
+  // The job and the route may open the same attempt at once: Stripe answers both with one session
+  // (same idempotency key) and the first to record it wins.
+  await payments
+    .createQueryBuilder()
+    .insert()
+    .values({
+      requestId,
+      purpose,
+      stripeSessionId: session.id,
+      checkoutUrl: session.url!,
+      amountCents,
+      currency: currency.toUpperCase(),
+      status: 'open',
+      stripePaymentIntentId: null,
+      failureMessage: null,
+      expiresAt: new Date((session.expires_at ?? Math.floor(Date.now() / 1000) + CHECKOUT_LIFETIME_S) * 1000),
+    })
+    .orIgnore()
+    .execute()
+  return payments.findOneByOrFail({ stripeSessionId: session.id })
 }
 
 /** Queues the deposit's checkout session so it exists by the time the potter opens the request. */
@@ -128,24 +133,19 @@ export async function makeRefund(ctx: AppContext, payload: { requestId: string; 
 /** Books a Stripe refund once (the ledger's refund id is unique) and tells the potter. */
 async function bookRefund(ctx: AppContext, requestId: string, refund: Stripe.Refund, note: string) {
   await ctx.db.transaction(async (manager) => {
-    const inserted = await manager
-      .createQueryBuilder()
-      .insert()
-      .into(LedgerEntry)
-      .values({
+    const inserted: unknown[] = await manager.query(
+      `INSERT INTO ledger_entries (request_id, direction, kind, amount_cents, currency, stripe_refund_id, stripe_payment_intent_id, note)
+       VALUES ($1, 'out', 'refund', $2, $3, $4, $5, $6) ON CONFLICT (stripe_refund_id) WHERE stripe_refund_id IS NOT NULL DO NOTHING RETURNING id`,
+      [
         requestId,
-        direction: 'out',
-        kind: 'refund',
-        amountCents: refund.amount,
-        currency: refund.currency.toUpperCase(),
-        stripeRefundId: refund.id,
-        stripePaymentIntentId: typeof refund.payment_intent === 'string' ? refund.payment_intent : (refund.payment_intent?.id ?? null),
-        stripeSessionId: null,
+        refund.amount,
+        refund.currency.toUpperCase(),
+        refund.id,
+        typeof refund.payment_intent === 'string' ? refund.payment_intent : (refund.payment_intent?.id ?? null),
         note,
-      })
-      .orIgnore()
-      .execute()
-    if (!inserted.identifiers.length || !inserted.identifiers[0]) return
+      ],
+    )
+    if (!inserted.length) return
     const rc = await loadRequest(manager, requestId)
     await queueMail(manager, rc.potter.email, 'refunded', refundedMail(factsOf(rc, ctx.config.publicUrl), refund.amount))
   })
@@ -172,14 +172,11 @@ const metadataOf = (object: { metadata?: Stripe.Metadata | null }) => ({
  */
 export async function handleStripeEvent(ctx: AppContext, event: Stripe.Event): Promise<'handled' | 'duplicate'> {
   return ctx.db.transaction(async (manager) => {
-    const recorded = await manager
-      .createQueryBuilder()
-      .insert()
-      .into(StripeEvent)
-      .values({ id: event.id, type: event.type, payload: event as never })
-      .orIgnore()
-      .execute()
-    if (!recorded.identifiers[0]) return 'duplicate'
+    const recorded: unknown[] = await manager.query(
+      `INSERT INTO stripe_events (id, type, payload) VALUES ($1, $2, $3) ON CONFLICT (id) DO NOTHING RETURNING id`,
+      [event.id, event.type, JSON.stringify(event)],
+    )
+    if (!recorded.length) return 'duplicate'
 
     switch (event.type) {
       case 'checkout.session.completed': {
