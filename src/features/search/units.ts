@@ -48,9 +48,12 @@ export function formatDistance(km: number, units: UnitSystem): string {
   return `${trimmed(shown, shown < 10 ? 1 : 0)} ${units === 'metric' ? 'km' : 'mi'}`
 }
 
-/** Distances offered in the filter, in the reader's units, as the kilometres the query carries. */
+/**
+ * Distances offered in the filter, in the reader's units, as the kilometres the query carries. The
+ * server's usual reach (80 km, about 50 mi) is the filter's empty choice, so it is not offered twice.
+ */
 export function distanceChoices(units: UnitSystem): { km: string; label: string }[] {
-  const steps = units === 'metric' ? [10, 25, 50, 80, 150, 300, 800] : [5, 10, 25, 50, 100, 250, 500]
+  const steps = units === 'metric' ? [10, 25, 50, 150, 300, 800] : [5, 10, 25, 100, 250, 500]
   return steps.map((step) => {
     const km = units === 'metric' ? step : step * KM_PER_MILE
     return { km: trimmed(km, 1), label: `Within ${step} ${units === 'metric' ? 'km' : 'mi'}` }

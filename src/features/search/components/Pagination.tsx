@@ -49,7 +49,7 @@ export function Pagination({ state, total, page, perPage, onSearch }: Pagination
         )}
       </div>
       <label className="flex items-center gap-2">
-        <span>Per page</span>
+        <span className="whitespace-nowrap">Per page</span>
         <Select className="w-auto" value={String(perPage)} onChange={(e) => onSearch(withFilters(state, { perPage: e.target.value }))}>
           {PER_PAGE_CHOICES.map((n) => (
             <option key={n} value={n}>

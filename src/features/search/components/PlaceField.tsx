@@ -66,7 +66,7 @@ export function PlaceField({ value, onChange, onChoose, error, hint }: PlaceFiel
   }
 
   return (
-    <Field label="Place" hint={hint ?? 'A town, or a ZIP or postal code.'} error={error}>
+    <Field label="Place" hint={hint} error={error}>
       {(control) => (
         <div className="relative">
           <TextInput
@@ -77,7 +77,7 @@ export function PlaceField({ value, onChange, onChoose, error, hint }: PlaceFiel
             aria-controls={listId}
             aria-activedescendant={shown && active >= 0 && active < places.length ? `${listId}-${active}` : undefined}
             autoComplete="off"
-            placeholder="Portland, OR or 97214"
+            placeholder="A town or ZIP, like Portland, OR"
             value={value}
             onChange={(event) => {
               onChange(event.target.value)

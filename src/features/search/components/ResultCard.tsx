@@ -87,7 +87,7 @@ export const ResultCard = forwardRef<HTMLElement, ResultCardProps>(function Resu
           onClick={onSelect}
           className="rounded-control border border-slip-300 px-3 py-1.5 text-sm font-medium text-slip-800 hover:bg-slip-100 aria-pressed:border-celadon-500 aria-pressed:bg-celadon-50 aria-pressed:text-celadon-700"
         >
-          {selected ? 'Shown on the map' : 'Show on the map'}
+          Show on the map
         </button>
         <Link to={`/studios/${hit.studio.id}`} className="rounded-control px-3 py-1.5 text-sm font-semibold text-clay-700 hover:bg-clay-50">
           See the studio<span className="sr-only"> {hit.studio.name}</span>

@@ -5,6 +5,7 @@ import type { SearchHit, SearchResponse } from '../../../../shared/schemas/searc
 import { Basemap, type LatLngPair } from '../../../components/map/Basemap'
 import { ClusteredMarkers, StudioMarker } from '../../../components/map/markers'
 import { Button } from '../../../components/ui/Button'
+import { whereKey } from '../searchState'
 
 /** Where the map opens before the first answer: the lower 48 states. */
 const START: { center: LatLngPair; zoom: number } = { center: [39.5, -98.35], zoom: 4 }
@@ -30,7 +31,7 @@ export function studiosOf(hits: readonly SearchHit[]): MapStudio[] {
 
 /** The view a set of results is shown in: the searched place and the studios found around it. */
 export interface MapFit {
-  /** Changes when the map should go somewhere else (a new place or distance), not for a new cone. */
+  /** Changes when the map should go somewhere else (a new place or distance), not for a new cone: `whereKey`. */
   key: string
   origin: SearchResponse['origin']
   radiusKm: number | null
@@ -41,6 +42,8 @@ export interface AreaSearch {
   near: string
   radiusKm: string
 }
+
+const areaKey = (area: AreaSearch) => whereKey({ near: area.near, radiusKm: area.radiusKm })
 
 interface ResultsMapProps {
   studios: MapStudio[]
@@ -63,7 +66,7 @@ export function ResultsMap({ studios, selectedStudioId, onSelectStudio, fit, ori
   const mapRef = useRef<LeafletMap | null>(null)
   const moving = useRef(false)
   const fittedKey = useRef<string | null>(null)
-  const keepViewOnce = useRef(false)
+  const keepViewFor = useRef<string | null>(null)
   const [movedByHand, setMovedByHand] = useState(false)
 
   const moveMap = (move: (map: LeafletMap) => void) => {
@@ -82,8 +85,8 @@ export function ResultsMap({ studios, selectedStudioId, onSelectStudio, fit, ori
     fittedKey.current = fit.key
     setMovedByHand(false)
     // The potter asked for the area they were looking at: it stays in view as they left it.
-    if (keepViewOnce.current) {
-      keepViewOnce.current = false
+    if (keepViewFor.current === fit.key) {
+      keepViewFor.current = null
       return
     }
     const points = fit.studios.map((s) => L.latLng(s.position[0], s.position[1]))
@@ -111,9 +114,10 @@ export function ResultsMap({ studios, selectedStudioId, onSelectStudio, fit, ori
     const center = map.getCenter()
     // Roughly the half-diagonal: the circle through the corners holds everything on screen.
     const km = Math.min(MAX_RADIUS_KM, Math.max(1, center.distanceTo(map.getBounds().getNorthEast()) / 1000))
-    keepViewOnce.current = true
+    const area = { near: `${center.lat.toFixed(4)},${center.lng.toFixed(4)}`, radiusKm: String(Math.round(km * 10) / 10) }
+    keepViewFor.current = areaKey(area)
     setMovedByHand(false)
-    onSearchArea({ near: `${center.lat.toFixed(4)},${center.lng.toFixed(4)}`, radiusKm: String(Math.round(km * 10) / 10) })
+    onSearchArea(area)
   }
 
   return (
@@ -133,7 +137,9 @@ export function ResultsMap({ studios, selectedStudioId, onSelectStudio, fit, ori
             center={[origin.lat, origin.lng]}
             radius={radiusKm * 1000}
             interactive={false}
-            pathOptions={{ className: 'stroke-clay-400 fill-clay-200', weight: 1.5, dashArray: '6 4', fillOpacity: 0.08 }}
+            // The class is read once, when the path is made; setStyle (pathOptions) never applies it.
+            className="stroke-clay-400 fill-clay-200"
+            pathOptions={{ weight: 1.5, dashArray: '6 4', fillOpacity: 0.15 }}
           />
         )}
         <ClusteredMarkers>

@@ -1,4 +1,4 @@
-import { useId, useState, type FormEvent, type ReactNode } from 'react'
+import { useId, useState, type FormEvent } from 'react'
 import { CONES } from '../../../../shared/firing/cones'
 import { Button, ButtonLink } from '../../../components/ui/Button'
 import { Field, Select, TextInput } from '../../../components/ui/Field'
@@ -88,6 +88,13 @@ export function SearchFilters({ state, units, onUnitsChange, errors, facets, onS
     onUnitsChange(next)
   }
 
+  // On a phone the place comes first and the rest folds away, unless one of them needs fixing.
+  const moreId = useId()
+  const [showMore, setShowMore] = useState(false)
+  const setCount = Object.keys(state).filter((key) => !['place', 'near', 'page', 'perPage'].includes(key)).length
+  const mustShow = Object.keys(errors).some((key) => key !== 'place' && key !== 'near')
+  const more = showMore || mustShow ? '' : 'max-sm:hidden'
+
   const [coneLow, coneHigh] = splitCone(state.cone)
   const located = hasOrigin(state)
   const counts = (facet: string, value: string, filtered: boolean) => {
@@ -96,36 +103,52 @@ export function SearchFilters({ state, units, onUnitsChange, errors, facets, onS
     return count === undefined ? '' : ` (${count})`
   }
 
-  const distances = distanceChoices(units)
-  const customDistance = state.radiusKm && !distances.some((d) => d.km === state.radiusKm) ? state.radiusKm : null
+  // The usual reach is the empty choice; a distance set from the map joins the list where it falls.
+  const offered = distanceChoices(units)
+  const distances = [
+    { km: '', label: `Within ${formatDistance(DEFAULT_RADIUS_KM, units)} (usual)`, order: DEFAULT_RADIUS_KM },
+    ...offered.map((d) => ({ ...d, order: Number(d.km) })),
+    ...(state.radiusKm && !offered.some((d) => d.km === state.radiusKm)
+      ? [{ km: state.radiusKm, label: `Within ${formatDistance(Number(state.radiusKm), units)} (map area)`, order: Number(state.radiusKm) }]
+      : []),
+  ].sort((a, b) => a.order - b.order)
   const suffix = lengthSuffix(units)
 
+  const placeField = (
+    <PlaceField
+      value={draft.place}
+      onChange={edit('place')}
+      onChoose={(label) => searchWith({}, { ...draft, place: label })}
+      error={errors.place ?? errors.near}
+      hint={
+        state.near && !draft.place ? (
+          <span data-testid="map-area-note">
+            Searching the area you picked on the map.{' '}
+            <button type="button" className="font-semibold underline" onClick={() => searchWith({ near: undefined })}>
+              Forget it
+            </button>
+          </span>
+        ) : undefined
+      }
+    />
+  )
+
   return (
-    <form role="search" aria-label="Find a firing" noValidate onSubmit={onSubmit} className="space-y-4 rounded-card border border-slip-200 bg-white p-4 shadow-card sm:p-5">
-      <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-4">
-        <div className="sm:col-span-2">
-          <PlaceField
-            value={draft.place}
-            onChange={edit('place')}
-            onChoose={(label) => searchWith({}, { ...draft, place: label })}
-            error={errors.place ?? errors.near}
-            hint={
-              state.near && !draft.place ? (
-                <span data-testid="map-area-note">
-                  Searching the area you picked on the map.{' '}
-                  <button type="button" className="font-semibold underline" onClick={() => searchWith({ near: undefined })}>
-                    Forget it
-                  </button>
-                </span>
-              ) : undefined
-            }
-          />
-        </div>
-        <Field label="Distance" hint={located ? undefined : 'Give a place to search around it.'} error={errors.radiusKm}>
+    <form role="search" aria-label="Find a firing" noValidate onSubmit={onSubmit} className="rounded-card border border-slip-200 bg-white p-4 shadow-card">
+      <div id={moreId} className="grid items-start gap-x-3 gap-y-3 sm:grid-cols-2 lg:grid-cols-6">
+        <div className="sm:col-span-2">{placeField}</div>
+        <button
+          type="button"
+          className="justify-self-start text-sm font-semibold text-clay-700 underline sm:hidden"
+          aria-expanded={Boolean(showMore || mustShow)}
+          aria-controls={moreId}
+          onClick={() => setShowMore((open) => !open)}
+        >
+          {showMore || mustShow ? 'Fewer filters' : `More filters${setCount ? ` (${setCount} set)` : ''}`}
+        </button>
+        <Field className={more} label="Distance" hint={located ? undefined : 'Give a place first.'} error={errors.radiusKm}>
           {(control) => (
             <Select {...control} disabled={!located} value={state.radiusKm ?? ''} onChange={(e) => searchWith({ radiusKm: e.target.value || undefined })}>
-              <option value="">{`Within ${formatDistance(DEFAULT_RADIUS_KM, units)} (usual)`}</option>
-              {customDistance && <option value={customDistance}>{`Within ${formatDistance(Number(customDistance), units)} (map area)`}</option>}
               {distances.map((d) => (
                 <option key={d.km} value={d.km}>
                   {d.label}
@@ -134,19 +157,7 @@ export function SearchFilters({ state, units, onUnitsChange, errors, facets, onS
             </Select>
           )}
         </Field>
-        <Field label="Sort" error={errors.sort}>
-          {(control) => (
-            <Select {...control} value={state.sort ?? (located ? 'distance' : 'soonest')} onChange={(e) => searchWith({ sort: e.target.value })}>
-              {SORT_CHOICES.map((choice) => (
-                <option key={choice.value} value={choice.value} disabled={choice.value === 'distance' && !located}>
-                  {choice.label}
-                </option>
-              ))}
-            </Select>
-          )}
-        </Field>
-
-        <Field label="Cone" error={errors.cone}>
+        <Field className={more} label="Cone" error={errors.cone}>
           {(control) => (
             <Select {...control} value={coneLow} onChange={(e) => searchWith({ cone: joinCone(e.target.value, e.target.value ? coneHigh : '') })}>
               <option value="">Any cone</option>
@@ -159,7 +170,7 @@ export function SearchFilters({ state, units, onUnitsChange, errors, facets, onS
             </Select>
           )}
         </Field>
-        <Field label="Up to cone" hint="For a range of cones.">
+        <Field className={more} label="Up to cone">
           {(control) => (
             <Select {...control} disabled={!coneLow} value={coneHigh} onChange={(e) => searchWith({ cone: joinCone(coneLow, e.target.value) })}>
               <option value="">{coneLow ? `Just cone ${coneLow}` : 'Pick a cone first'}</option>
@@ -172,7 +183,7 @@ export function SearchFilters({ state, units, onUnitsChange, errors, facets, onS
             </Select>
           )}
         </Field>
-        <Field label="Atmosphere" error={errors.atmosphere}>
+        <Field className={more} label="Atmosphere" error={errors.atmosphere}>
           {(control) => (
             <Select {...control} value={state.atmosphere ?? ''} onChange={(e) => searchWith({ atmosphere: e.target.value || undefined })}>
               <option value="">Any atmosphere</option>
@@ -184,7 +195,8 @@ export function SearchFilters({ state, units, onUnitsChange, errors, facets, onS
             </Select>
           )}
         </Field>
-        <Field label="Firing" error={errors.kind}>
+
+        <Field className={more} label="Firing" error={errors.kind}>
           {(control) => (
             <Select {...control} value={state.kind ?? ''} onChange={(e) => searchWith({ kind: e.target.value || undefined })}>
               <option value="">Any firing</option>
@@ -196,42 +208,53 @@ export function SearchFilters({ state, units, onUnitsChange, errors, facets, onS
             </Select>
           )}
         </Field>
-
-        <Field label="Drop off from" error={errors.from}>
+        <Field className={more} label="Drop off from" error={errors.from}>
           {(control) => <TextInput {...control} type="date" value={draft.from} onChange={(e) => edit('from')(e.target.value)} />}
         </Field>
-        <Field label="Drop off until" error={errors.to}>
+        <Field className={more} label="Drop off until" error={errors.to}>
           {(control) => <TextInput {...control} type="date" value={draft.to} min={draft.from || undefined} onChange={(e) => edit('to')(e.target.value)} />}
         </Field>
-        <Field label="Words" hint="A studio, town or kiln name." error={errors.q} className="sm:col-span-2">
-          {(control) => <TextInput {...control} type="search" value={draft.q} onChange={(e) => edit('q')(e.target.value)} />}
+        <Field label="Words" error={errors.q} className={`sm:col-span-2 ${more}`}>
+          {(control) => <TextInput {...control} type="search" placeholder="A studio, town or kiln" value={draft.q} onChange={(e) => edit('q')(e.target.value)} />}
         </Field>
-      </div>
+        <Field className={more} label="Sort" error={errors.sort}>
+          {(control) => (
+            <Select {...control} value={state.sort ?? (located ? 'distance' : 'soonest')} onChange={(e) => searchWith({ sort: e.target.value })}>
+              {SORT_CHOICES.map((choice) => (
+                <option key={choice.value} value={choice.value} disabled={choice.value === 'distance' && !located}>
+                  {choice.label}
+                </option>
+              ))}
+            </Select>
+          )}
+        </Field>
 
-      <fieldset className="rounded-control border border-slip-200 p-3">
-        <legend className="px-1 text-sm font-semibold text-slip-800">Fits my piece</legend>
-        <div className="grid items-start gap-4 sm:grid-cols-2 lg:grid-cols-4">
-          <SizeField label={`Height (${suffix})`} value={draft.height} onChange={edit('height')} error={errors.fitsHeightMm} />
-          <SizeField label={`Width (${suffix})`} value={draft.width} onChange={edit('width')} error={errors.fitsWidthMm} hint="Across, for a round piece." />
-          <SizeField label={`Depth (${suffix})`} value={draft.depth} onChange={edit('depth')} error={errors.fitsDepthMm} hint="Leave empty for a round piece." />
-          <UnitChoice value={units} onChange={switchUnits} />
+        <fieldset className={`sm:col-span-2 lg:col-span-4 ${more}`}>
+          <legend className="text-sm font-semibold text-slip-800">
+            Fits my piece <span className="font-normal text-slip-500">— a width alone means a round piece that wide</span>
+          </legend>
+          <div className="mt-1 grid grid-cols-3 items-start gap-3 sm:grid-cols-4">
+            <SizeField label={`Height (${suffix})`} value={draft.height} onChange={edit('height')} error={errors.fitsHeightMm} />
+            <SizeField label={`Width (${suffix})`} value={draft.width} onChange={edit('width')} error={errors.fitsWidthMm} />
+            <SizeField label={`Depth (${suffix})`} value={draft.depth} onChange={edit('depth')} error={errors.fitsDepthMm} />
+            <UnitChoice value={units} onChange={switchUnits} />
+          </div>
+        </fieldset>
+        <div className="flex flex-wrap items-center gap-2 self-end sm:col-span-2">
+          <Button type="submit">Search</Button>
+          <ButtonLink to="/find" variant="ghost">
+            Clear all
+          </ButtonLink>
+          <p className="w-full text-xs text-slip-500">Lists apply at once; typed fields on Search or Enter.</p>
         </div>
-      </fieldset>
-
-      <div className="flex flex-wrap items-center gap-3">
-        <Button type="submit">Search</Button>
-        <ButtonLink to="/find" variant="ghost">
-          Clear all
-        </ButtonLink>
-        <p className="text-xs text-slip-500">Lists apply at once; typed fields when you press Search or Enter.</p>
       </div>
     </form>
   )
 }
 
-function SizeField({ label, value, onChange, error, hint }: { label: string; value: string; onChange: (text: string) => void; error?: string; hint?: ReactNode }) {
+function SizeField({ label, value, onChange, error }: { label: string; value: string; onChange: (text: string) => void; error?: string }) {
   return (
-    <Field label={label} error={error} hint={hint}>
+    <Field label={label} error={error}>
       {(control) => <TextInput {...control} inputMode="decimal" value={value} onChange={(e) => onChange(e.target.value)} />}
     </Field>
   )

@@ -74,7 +74,7 @@ export function FindFiringPage() {
 
   return (
     <>
-      <PageHeader title="Find a firing" lead="Open firings near you that can take your ware: the right cone and atmosphere, a drop-off date that suits, and room for your piece." />
+      <PageHeader title="Find a firing" lead="Open firings that can take your ware: the right cone and atmosphere, a drop-off date that suits, room for your piece." />
       <SearchFilters state={state} units={units} onUnitsChange={setChosenUnits} errors={fieldErrors} facets={response?.facets} onSearch={onSearch} />
 
       {response?.degraded && !search.isPlaceholderData && (
@@ -83,7 +83,7 @@ export function FindFiringPage() {
         </Alert>
       )}
 
-      <div className="mt-6 grid gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,1fr)] lg:items-start">
+      <div className="mt-4 grid gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,1fr)] lg:items-start">
         <ResultsMap
           className="h-72 sm:h-96 lg:sticky lg:top-4 lg:order-2 lg:h-[calc(100vh-2rem)] lg:max-h-[44rem]"
           studios={studios}
