@@ -138,8 +138,9 @@ async function main() {
 
   const tsx = ['--import', 'tsx']
   const standInEnv = {}
-  if (!env.SMTP_URL || !env.MEILI_HOST) {
-    const { standIns } = startChild('the local stand-ins', process.execPath, [...tsx, 'server/fakes/main.ts'], {}, { captureStandIns: true })
+  if (!env.SMTP_URL || !env.MEILI_HOST || !env.STRIPE_API_BASE) {
+    const apiPort = dev ? port + 1 : port
+    const { standIns } = startChild('the local stand-ins', process.execPath, [...tsx, 'server/fakes/main.ts'], { APP_WEBHOOK_URL: `http://127.0.0.1:${apiPort}/api/webhooks/stripe` }, { captureStandIns: true })
     Object.assign(standInEnv, await standIns)
   }
 

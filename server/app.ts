@@ -16,7 +16,10 @@ import { healthRouter } from './routes/health'
 import { invitesRouter } from './routes/invites'
 import { kilnsRouter } from './routes/kilns'
 import { metaRouter } from './routes/meta'
+import { photosRouter } from './routes/photos'
+import { pickupRouter } from './routes/pickup'
 import { placesRouter } from './routes/places'
+import { ratingsRouter } from './routes/ratings'
 import { requestsRouter } from './routes/requests'
 import { searchRouter } from './routes/search'
 import { studiosRouter } from './routes/studios'
@@ -109,6 +112,9 @@ export function createApp(ctx: AppContext): App {
   app.use('/api', placesRouter(ctx))
   app.use('/api', searchRouter(ctx))
   app.use('/api', requestsRouter(ctx))
+  app.use('/api', pickupRouter(ctx))
+  app.use('/api', photosRouter(ctx))
+  app.use('/api', ratingsRouter(ctx))
 
   app.use('/api', notFoundApi)
 

@@ -1,19 +1,23 @@
 // Every entity, listed once for the data source (esbuild-based runners cannot glob decorated classes).
 import { AuthToken } from '../entities/AuthToken'
+import { CheckIn } from '../entities/CheckIn'
 import { Firing } from '../entities/Firing'
+import { FiringLog } from '../entities/FiringLog'
 import { FiringRequest } from '../entities/FiringRequest'
 import { Kiln } from '../entities/Kiln'
 import { LedgerEntry } from '../entities/LedgerEntry'
 import { Payment } from '../entities/Payment'
+import { Photo } from '../entities/Photo'
 import { KilnPriceList } from '../entities/KilnPriceList'
 import { OutboundMail } from '../entities/OutboundMail'
 import { Rating } from '../entities/Rating'
 import { RequestEvent } from '../entities/RequestEvent'
 import { RequestMessage } from '../entities/RequestMessage'
+import { RequestResult } from '../entities/RequestResult'
 import { SearchDocument } from '../entities/SearchDocument'
 import { StripeEvent } from '../entities/StripeEvent'
 import { Studio } from '../entities/Studio'
 import { StudioMember } from '../entities/StudioMember'
 import { User } from '../entities/User'
 
-export const entities = [User, Studio, StudioMember, AuthToken, OutboundMail, Kiln, KilnPriceList, Firing, FiringRequest, RequestEvent, Rating, SearchDocument, LedgerEntry, Payment, StripeEvent, RequestMessage]
+export const entities = [User, Studio, StudioMember, AuthToken, OutboundMail, Kiln, KilnPriceList, Firing, FiringRequest, RequestEvent, Rating, SearchDocument, LedgerEntry, Payment, StripeEvent, RequestMessage, CheckIn, Photo, FiringLog, RequestResult]

@@ -21,7 +21,7 @@ export function firingsRouter(ctx: AppContext) {
 
   // Crew run the board: dates, space and status are theirs to change as well as the owner's.
   router.patch('/firings/:id', member, validateBody(firingPatchSchema), async (req, res) => {
-    const updated = await updateFiring(ctx, String(req.params.id), req.body)
+    const updated = await updateFiring(ctx, String(req.params.id), req.body, req.user!.id)
     const [json] = await firingsJson(ctx.db.manager, [updated], res.locals.studioId)
     res.json(json)
   })

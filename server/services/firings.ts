@@ -21,6 +21,7 @@ import { badRequest, conflict, type FieldErrors, HttpError, notFound } from '../
 import { firingCancelledMail } from '../mail/templates/firings'
 import { getKiln, getPriceList, kilnSpec } from './kilns'
 import { queueMail } from './mail'
+import { onFiringStatus } from './pickup'
 import { refundCancelledByFiring } from './requests'
 
 export interface FiringJson {
@@ -151,7 +152,7 @@ export async function createFirings(ctx: AppContext, kilnId: string, body: Firin
   })
 }
 
-export async function updateFiring(ctx: AppContext, id: string, patch: FiringPatchBody): Promise<Firing> {
+export async function updateFiring(ctx: AppContext, id: string, patch: FiringPatchBody, actorId: string): Promise<Firing> {
   return ctx.db.transaction(async (manager) => {
     const firing = await getFiring(manager, id, true)
     const { status, ...fields } = patch
@@ -162,6 +163,7 @@ export async function updateFiring(ctx: AppContext, id: string, patch: FiringPat
         throw conflict(`A firing that is ${firing.status} cannot become ${status}.`, 'bad-status-change', { allowed: nextFiringStatuses(firing.status) })
       }
       firing.status = status
+      await onFiringStatus(ctx, manager, firing, status, actorId)
     }
     if (Object.keys(fields).length) {
       const kiln = await getKiln(manager, firing.kilnId)

@@ -12,6 +12,7 @@ import { depositReceivedMail, refundedMail } from '../mail/templates/requests'
 import { queueMail } from './mail'
 import { factsOf, loadRequest, moveRequest, studioPeople, type RequestContext } from './request-context'
 import { stripeFor } from './stripe'
+import { settleBalance } from './pickup'
 import { enqueueStudioSync } from '../../search/sync'
 
 export const REFUND_TASK = 'refund-payment'
@@ -202,6 +203,7 @@ export async function handleStripeEvent(ctx: AppContext, event: Stripe.Event): P
         })
         const rc = await loadRequest(manager, requestId, { lock: true })
         if (purpose === 'deposit') await settleDeposit(ctx, manager, rc, payment)
+        else await settleBalance(ctx, manager, rc, payment)
         break
       }
       case 'checkout.session.expired': {

@@ -8,9 +8,12 @@ import { kilnJson } from './kilns'
 import { moneyOf, openPaymentsOf } from './payments'
 import type { RequestContext, Viewer } from './request-context'
 import { potterRecord } from './requests'
+import { requestPhotos } from './photos'
+import { pickupJson } from './pickup'
+import { ratingsOfRequest } from './ratings'
 
 /** What each side may do next with a request, for the page to offer (the server still checks). */
-function actionsFor(rc: RequestContext, viewer: Viewer): string[] {
+function actionsFor(rc: RequestContext, viewer: Viewer, pickup: Awaited<ReturnType<typeof pickupJson>>): string[] {
   const state = rc.request.state
   const studio = viewer.side !== 'potter'
   const potter = viewer.side === 'potter' || viewer.side === 'admin'
@@ -21,6 +24,15 @@ function actionsFor(rc: RequestContext, viewer: Viewer): string[] {
   if (potter && state === 'sent' && rc.request.proposedFiringId) actions.push('answer-move')
   if (studio && state === 'sent') actions.push('accept', 'decline', 'move')
   if (studio && ['accepted', 'deposit_paid'].includes(state)) actions.push('cancel')
+  if (studio && state === 'deposit_paid') actions.push('check-in')
+  if (studio && (state === 'accepted' || (state === 'ready' && pickup.owedCents > 0))) actions.push('counter-payment')
+  if (studio && ['fired', 'ready'].includes(state)) actions.push('results')
+  if (studio && state === 'fired') actions.push('ready')
+  if (studio && state === 'ready' && pickup.owedCents === 0) actions.push('collected')
+  if (potter && state === 'received' && pickup.checkIn && !pickup.checkIn.priceConfirmedAt) actions.push('confirm-price')
+  if (potter && state === 'ready' && pickup.owedCents > 0) actions.push('pay-balance')
+  if (['collected', 'disputed'].includes(state) && viewer.side !== 'admin') actions.push('rate')
+  if (studio && ['collected', 'disputed'].includes(state)) actions.push('reply')
   return actions
 }
 
@@ -30,6 +42,7 @@ export async function requestJson(manager: EntityManager, rc: RequestContext, vi
   const money = await moneyOf(manager, rc.request.id)
   const payments = await openPaymentsOf(manager, rc.request.id)
   const held = (await heldLitres(manager, [rc.firing.id])).get(rc.firing.id) ?? 0
+  const pickup = await pickupJson(manager, rc)
   const proposed = rc.request.proposedFiringId ? await manager.getRepository('Firing').findOneBy({ id: rc.request.proposedFiringId }) : null
   // The street address goes to a potter only once the studio has agreed to take the ware.
   const showAddress = viewer.side !== 'potter' || ['accepted', 'deposit_paid', 'received', 'fired', 'ready', 'collected', 'disputed'].includes(rc.request.state)
@@ -37,7 +50,7 @@ export async function requestJson(manager: EntityManager, rc: RequestContext, vi
     id: rc.request.id,
     state: rc.request.state,
     nextStates: nextRequestStates(rc.request.state),
-    actions: actionsFor(rc, viewer),
+    actions: actionsFor(rc, viewer, pickup),
     viewer: viewer.side,
     pieces: rc.request.pieces,
     notes: rc.request.notes,
@@ -88,6 +101,9 @@ export async function requestJson(manager: EntityManager, rc: RequestContext, vi
       note: e.note,
     })),
     paid: { inCents: money.paidIn, refundedCents: money.refunded, depositCents: money.depositPaid },
+    ...pickup,
+    photos: await requestPhotos(manager, rc.request.id),
+    ratings: await ratingsOfRequest(manager, rc.request.id),
     payments: payments.map((p) => ({
       purpose: p.purpose,
       status: p.status,

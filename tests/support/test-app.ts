@@ -1,4 +1,7 @@
+import { mkdtempSync, rmSync } from 'node:fs'
 import type { AddressInfo } from 'node:net'
+import os from 'node:os'
+import path from 'node:path'
 import type { Server } from 'node:http'
 import type { Runner } from 'graphile-worker'
 import { freePort } from '../../scripts/lib/system.mjs'
@@ -32,6 +35,7 @@ export async function startTestApp(
   const mail = options.mail ? await startMailCatcher({ smtpPort: await freePort(), webPort: await freePort() }) : null
   const search = options.search ? await startSearchEngine({ port: 0, masterKey: 'test-search-key' }) : null
   const stripe = options.stripe ? await startStripeStandIn({ port: 0, secretKey: 'sk_test_conewright_tests', webhookSecret: 'whsec_conewright_tests', webhookRetry: { baseDelayMs: 100 } }) : null
+  const storageDir = mkdtempSync(path.join(os.tmpdir(), 'conewright-storage-'))
   const config = loadConfig(
     {},
     {
@@ -46,6 +50,7 @@ export async function startTestApp(
       // Without the stand-in, Stripe calls go to a port that answers nothing.
       stripeApiBase: stripe?.url ?? 'http://127.0.0.1:9',
       serveClient: options.serveClient ?? false,
+      storageDir,
       workerConcurrency: 2,
       ...options.config,
     },
@@ -78,6 +83,7 @@ export async function startTestApp(
       await testApp.search?.close()
       await stripe?.close()
       await database.drop()
+      rmSync(storageDir, { recursive: true, force: true })
     },
   }
   return testApp

@@ -1,0 +1,50 @@
+import { Check, Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn } from 'typeorm'
+import type { FiringRequest } from './FiringRequest'
+
+export type PhotoKind = 'ware' | 'check-in' | 'result' | 'refusal'
+
+/**
+ * A photo of a request's ware, stored re-encoded and without metadata under a random name. The
+ * potter may let result photos show on the studio's public page.
+ */
+@Entity({ name: 'photos' })
+@Index('photos_request_idx', ['requestId', 'kind'])
+@Check('photos_kind_check', `"kind" IN ('ware', 'check-in', 'result', 'refusal')`)
+export class Photo {
+  @PrimaryGeneratedColumn('uuid')
+  id: string
+
+  @Column({ name: 'request_id', type: 'uuid' })
+  requestId: string
+
+  @ManyToOne('FiringRequest', { onDelete: 'CASCADE' })
+  @JoinColumn({ name: 'request_id' })
+  request: FiringRequest
+
+  @Column({ type: 'text' })
+  kind: PhotoKind
+
+  @Column({ name: 'storage_key', type: 'text' })
+  storageKey: string
+
+  @Column({ name: 'thumb_key', type: 'text' })
+  thumbKey: string
+
+  @Column({ type: 'integer' })
+  width: number
+
+  @Column({ type: 'integer' })
+  height: number
+
+  @Column({ type: 'integer' })
+  bytes: number
+
+  @Column({ name: 'uploaded_by', type: 'uuid' })
+  uploadedBy: string
+
+  @Column({ name: 'public_opt_in', type: 'boolean', default: false })
+  publicOptIn: boolean
+
+  @CreateDateColumn({ name: 'created_at', type: 'timestamptz' })
+  createdAt: Date
+}

@@ -1,0 +1,94 @@
+import { formatDateTime, formatMoney } from '../../../shared/dates'
+import { formatCone } from '../../../shared/firing/cones'
+import type { MailContent } from '../render'
+import type { RequestFacts } from './requests'
+
+const title = (r: RequestFacts) => `${formatCone(r.cone)} ${r.atmosphere} ${r.kind} firing at ${r.studioName}`
+
+export interface CheckInFacts {
+  rows: { label: string; declared: number; received: number; measured?: string }[]
+  conditionNotes: string
+  quoteBeforeCents: number
+  quoteAfterCents: number
+  needsConfirmation: boolean
+}
+
+export function dropOffMail(r: RequestFacts, c: CheckInFacts): MailContent {
+  const changed = c.quoteAfterCents !== c.quoteBeforeCents
+  return {
+    subject: `Ware received at ${r.studioName}`,
+    greeting: `Hello ${r.potterName},`,
+    paragraphs: [
+      `${r.studioName} checked your ware in for the ${title(r)} on ${formatDateTime(new Date(), r.timezone)}. This is what they recorded.`,
+      c.conditionNotes ? `Condition at drop-off: ${c.conditionNotes}` : 'No damage was noted at drop-off.',
+      ...(changed
+        ? [
+            `The measured ware changes the price from ${formatMoney(c.quoteBeforeCents, r.currency)} to ${formatMoney(c.quoteAfterCents, r.currency)}.${c.needsConfirmation ? ' Please confirm the new price on the request before the firing.' : ''}`,
+          ]
+        : []),
+    ],
+    details: c.rows.map((row) => [row.label, `${row.received} of ${row.declared} received${row.measured ? `, measured ${row.measured}` : ''}`] as [string, string]),
+    action: { label: changed && c.needsConfirmation ? 'Confirm the new price' : 'See the request', url: r.requestUrl },
+  }
+}
+
+export function refusedMail(r: RequestFacts, reason: string, refundCents: number): MailContent {
+  return {
+    subject: `Ware not accepted at ${r.studioName}`,
+    greeting: `Hello ${r.potterName},`,
+    paragraphs: [
+      `${r.studioName} could not take your ware into the ${title(r)}.`,
+      `Their reason: “${reason}”`,
+      refundCents > 0 ? `Under the studio’s cancellation terms ${formatMoney(refundCents, r.currency)} is refunded to you.` : 'Under the studio’s cancellation terms the deposit is not refunded.',
+    ],
+    action: { label: 'See the request', url: r.requestUrl },
+  }
+}
+
+export function noShowMail(r: RequestFacts, refundCents: number): MailContent {
+  return {
+    subject: `The ${title(r)} was loaded without your ware`,
+    greeting: `Hello ${r.potterName},`,
+    paragraphs: [
+      `Your ware was not dropped off before ${r.studioName} loaded the kiln, so your place in this firing has lapsed.`,
+      refundCents > 0 ? `Under the studio’s cancellation terms ${formatMoney(refundCents, r.currency)} is refunded to you.` : 'Under the studio’s cancellation terms the deposit is not refunded.',
+    ],
+    action: { label: 'See the request', url: r.requestUrl },
+  }
+}
+
+export function readyMail(r: RequestFacts, dropOffHours: string, owedCents: number): MailContent {
+  return {
+    subject: `Ready for pickup: your ware from the ${title(r)}`,
+    greeting: `Hello ${r.potterName},`,
+    paragraphs: [
+      `Your ware is out of the kiln and ready to collect at ${r.studioName}. The results and photos are on the request.`,
+      owedCents > 0 ? `${formatMoney(owedCents, r.currency)} is still owed: pay it on the request before you come, or at the counter.` : 'Everything is paid.',
+    ],
+    details: [['Pickup hours', dropOffHours || 'Ask the studio'], ['Still owed', formatMoney(owedCents, r.currency)]],
+    action: { label: owedCents > 0 ? 'Pay and see the results' : 'See the results', url: r.requestUrl },
+  }
+}
+
+export function pickupMail(r: RequestFacts, receipt: { label: string; amountCents: number }[], paidCents: number, refundedCents: number): MailContent {
+  return {
+    subject: `Collected: your receipt from ${r.studioName}`,
+    greeting: `Hello ${r.potterName},`,
+    paragraphs: [`You collected your ware from the ${title(r)} on ${formatDateTime(new Date(), r.timezone)}. Thank you. This is your receipt.`, 'Once you have looked everything over, rate the exchange on the request: it helps other potters and the studio.'],
+    details: [
+      ...receipt.map((line) => [line.label, formatMoney(line.amountCents, r.currency)] as [string, string]),
+      ['Paid', formatMoney(paidCents, r.currency)],
+      ...(refundedCents ? [['Refunded', formatMoney(refundedCents, r.currency)] as [string, string]] : []),
+    ],
+    action: { label: 'Rate the exchange', url: r.requestUrl },
+  }
+}
+
+export function firingProgressMail(r: RequestFacts, stage: 'firing' | 'unloaded'): MailContent {
+  return {
+    subject: stage === 'firing' ? `Your ware is firing at ${r.studioName}` : `Unloaded: the ${title(r)}`,
+    greeting: `Hello ${r.potterName},`,
+    paragraphs: [stage === 'firing' ? `The ${title(r)} has started. The firing log is on your request.` : 'The kiln is open and the studio is looking over the ware. Results and photos follow on your request.'],
+    action: { label: 'See the request', url: r.requestUrl },
+  }
+}

@@ -1,0 +1,65 @@
+import { Router } from 'express'
+import { checkInSchema, counterPaymentSchema, firingLogSchema, resultsSchema } from '../../shared/schemas/pickup'
+import { requireAuth } from '../auth/guards'
+import { requireStudioRole, studioOfFiring } from '../auth/studio-access'
+import type { AppContext } from '../context'
+import { requireUuidParams, validateBody } from '../http/validate'
+import { checkIn, confirmPrice, counterPayment, firingLogJson, markCollected, markReady, openBalance, postResults, putFiringLog } from '../services/pickup'
+import { loadRequest, viewerOf } from '../services/request-context'
+import { requestJson } from '../services/request-views'
+
+export function pickupRouter(ctx: AppContext) {
+  const router = Router()
+  const id = requireUuidParams('id')
+  const firingMember = requireStudioRole(ctx, ['owner', 'crew'], studioOfFiring(ctx))
+
+  const show = async (requestId: string, user: Express.User) => {
+    const rc = await loadRequest(ctx.db.manager, requestId)
+    return requestJson(ctx.db.manager, rc, await viewerOf(ctx.db.manager, rc, user))
+  }
+
+  router.post('/requests/:id/check-in', requireAuth, id, validateBody(checkInSchema), async (req, res) => {
+    const outcome = await checkIn(ctx, req.user!, String(req.params.id), req.body)
+    res.json({ ...outcome, request: await show(String(req.params.id), req.user!) })
+  })
+
+  router.post('/requests/:id/confirm-price', requireAuth, id, async (req, res) => {
+    await confirmPrice(ctx, req.user!, String(req.params.id))
+    res.json(await show(String(req.params.id), req.user!))
+  })
+
+  router.post('/requests/:id/results', requireAuth, id, validateBody(resultsSchema), async (req, res) => {
+    await postResults(ctx, req.user!, String(req.params.id), req.body)
+    res.json(await show(String(req.params.id), req.user!))
+  })
+
+  router.post('/requests/:id/ready', requireAuth, id, async (req, res) => {
+    await markReady(ctx, req.user!, String(req.params.id))
+    res.json(await show(String(req.params.id), req.user!))
+  })
+
+  router.post('/requests/:id/balance', requireAuth, id, async (req, res) => {
+    const payment = await openBalance(ctx, req.user!, String(req.params.id))
+    res.json({ checkoutUrl: payment.checkoutUrl, amountCents: payment.amountCents, expiresAt: payment.expiresAt.toISOString() })
+  })
+
+  router.post('/requests/:id/balance/counter', requireAuth, id, validateBody(counterPaymentSchema), async (req, res) => {
+    await counterPayment(ctx, req.user!, String(req.params.id), req.body)
+    res.json(await show(String(req.params.id), req.user!))
+  })
+
+  router.post('/requests/:id/collected', requireAuth, id, async (req, res) => {
+    await markCollected(ctx, req.user!, String(req.params.id))
+    res.json(await show(String(req.params.id), req.user!))
+  })
+
+  router.put('/firings/:id/log', firingMember, validateBody(firingLogSchema), async (req, res) => {
+    res.json(await putFiringLog(ctx, req.user!.id, String(req.params.id), req.body))
+  })
+
+  router.get('/firings/:id/log', firingMember, async (req, res) => {
+    res.json((await firingLogJson(ctx.db.manager, String(req.params.id))) ?? { witnessCones: [], coneCheck: null })
+  })
+
+  return router
+}

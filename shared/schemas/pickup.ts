@@ -1,0 +1,65 @@
+// Bodies of the drop-off-to-pickup routes: check-in, the firing log, results, balance, ratings.
+import { z } from 'zod'
+import { coneSchema } from './firing'
+
+const mm = (what: string) => z.number({ error: `Enter the measured ${what}.` }).positive(`The ${what} must be more than 0.`).max(3000)
+const instant = z.iso.datetime({ offset: true, error: 'Enter a date and time.' })
+
+export const checkInSchema = z
+  .object({
+    pieces: z
+      .array(
+        z.object({
+          pieceIndex: z.number().int().min(0),
+          received: z.number({ error: 'Enter how many came in.' }).int('Count whole pieces.').min(0).max(500),
+          measured: z.object({ heightMm: mm('height'), widthMm: mm('width'), depthMm: mm('depth') }).optional(),
+        }),
+      )
+      .max(200),
+    conditionNotes: z.string().trim().max(4000).optional(),
+    refuse: z.object({ reason: z.string().trim().min(3, 'Say why the ware is refused.').max(1000) }).optional(),
+  })
+  .refine((b) => b.refuse || b.pieces.some((p) => p.received > 0), { message: 'Record the pieces received, or refuse the ware with a reason.', path: ['pieces'] })
+
+export const CONE_BENDS = ['standing', 'three-oclock', 'touching'] as const
+
+export const firingLogSchema = z.object({
+  loadedAt: instant.nullable().optional(),
+  startedAt: instant.nullable().optional(),
+  peakC: z.number().min(0).max(2000).nullable().optional(),
+  finalRateCPerHour: z.number().positive().max(2000).nullable().optional(),
+  holdMinutes: z.number().min(0).max(10_000).nullable().optional(),
+  offAt: instant.nullable().optional(),
+  openedAt: instant.nullable().optional(),
+  witnessCones: z.array(z.object({ cone: coneSchema, bend: z.enum(CONE_BENDS, { error: 'Say how far the cone bent.' }), position: z.string().trim().max(80).optional() })).max(30).default([]),
+  notes: z.string().trim().max(4000).optional(),
+})
+export type FiringLogBody = z.infer<typeof firingLogSchema>
+
+export const PIECE_OUTCOMES = ['fine', 'cracked', 'blown-out', 'glaze-ran', 'stuck-to-shelf', 'other'] as const
+
+export const resultsSchema = z.object({
+  outcomes: z.array(z.object({ pieceIndex: z.number().int().min(0), outcome: z.enum(PIECE_OUTCOMES), notes: z.string().trim().max(1000).optional() })).min(1).max(200),
+  notes: z.string().trim().max(4000).optional(),
+})
+
+const stars = (what: string) => z.number({ error: `Give ${what} 1 to 5 stars.` }).int().min(1, '1 to 5 stars.').max(5, '1 to 5 stars.')
+
+export const ratingSchema = z.object({
+  stars: stars('the exchange'),
+  care: stars('care of the ware').optional(),
+  communication: stars('communication').optional(),
+  results: stars('the results').optional(),
+  asDeclared: stars('ware as declared').optional(),
+  onTime: stars('being on time').optional(),
+  text: z.string().trim().max(2000, 'Keep it under 2000 characters.').default(''),
+})
+
+export const ratingReplySchema = z.object({ text: z.string().trim().min(2, 'Write a reply.').max(2000) })
+
+export const counterPaymentSchema = z.object({
+  amountCents: z.number().int('Whole cents.').positive('Enter what was paid.').max(100_000_000).optional(),
+  note: z.string().trim().max(300).optional(),
+})
+
+export const photoPatchSchema = z.object({ public: z.boolean() })
