@@ -35,7 +35,7 @@ async function jpegWithGps(width = 640, height = 480) {
 async function upload(session: HttpSession, files: { name: string; bytes: Uint8Array; type?: string }[], kind = 'check-in') {
   const form = new FormData()
   form.append('kind', kind)
-  for (const f of files) form.append('photos', new Blob([f.bytes], { type: f.type ?? 'image/jpeg' }), f.name)
+  for (const f of files) form.append('photos', new Blob([new Uint8Array(f.bytes)], { type: f.type ?? 'image/jpeg' }), f.name)
   return session.request('POST', `/api/requests/${requestId}/photos`, undefined, { raw: form })
 }
 
