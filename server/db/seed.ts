@@ -4,6 +4,7 @@ import { hashPassword } from '../auth/password'
 import type { AppContext } from '../context'
 import { User } from '../entities/User'
 import { regionalDemoStudios } from './demo-region'
+import { seedDemoRequests } from './demo-requests'
 import { DEMO_STUDIOS, seedDemoStudios } from './demo-studios'
 
 /** Every demo account shares this password; the README lists the accounts. */
@@ -38,5 +39,6 @@ export async function seedDemo(ctx: AppContext) {
     await manager.query(`SELECT pg_advisory_xact_lock(hashtext('conewright-demo-seed'))`)
     for (const person of DEMO_PEOPLE) await ensureDemoUser(manager, person, passwordHash)
     await seedDemoStudios(manager, [...DEMO_STUDIOS, ...regionalDemoStudios()], (person) => ensureDemoUser(manager, person, passwordHash))
+    await seedDemoRequests(manager, async (email) => (await manager.getRepository(User).findOneByOrFail({ email })).id)
   })
 }

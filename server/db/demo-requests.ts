@@ -1,0 +1,138 @@
+// Demo requests, so the board has life on first start: a firing nearly full, requests waiting for a
+// decision, a paid deposit, a draft, and a past firing collected and rated. Money in the demo was
+// taken "at the counter", so seeding never calls Stripe. Each is found again by its key in the notes.
+import type { EntityManager } from 'typeorm'
+import type { Piece } from '../../shared/firing/check'
+import type { RequestState } from '../../shared/workflow/request-states'
+import { Firing } from '../entities/Firing'
+import { FiringRequest } from '../entities/FiringRequest'
+import { Kiln } from '../entities/Kiln'
+import { LedgerEntry } from '../entities/LedgerEntry'
+import { Rating } from '../entities/Rating'
+import { RequestEvent } from '../entities/RequestEvent'
+import { Studio } from '../entities/Studio'
+import { checkAgainstFiring } from '../services/requests'
+
+const stoneware = { body: 'stoneware' as const, minCone: '5', maxCone: '10' }
+const glaze6 = { minCone: '5', maxCone: '7' }
+
+const MUGS: Piece = { label: 'Ash-glazed mugs', quantity: 6, heightMm: 105, widthMm: 90, depthMm: 120, wallThicknessMm: 6, clay: stoneware, state: 'bisque', boneDry: true, glaze: glaze6 }
+const VASES: Piece = { label: 'Tall vases', quantity: 5, heightMm: 400, widthMm: 250, depthMm: 250, round: true, wallThicknessMm: 9, clay: stoneware, state: 'bisque', boneDry: true, glaze: glaze6 }
+const CELADON_BOWLS: Piece = { label: 'Celadon bowls', quantity: 4, heightMm: 90, widthMm: 200, depthMm: 200, round: true, wallThicknessMm: 7, clay: { body: 'porcelain', minCone: '9', maxCone: '11' }, state: 'bisque', boneDry: true, glaze: { minCone: '9', maxCone: '11', runny: true, onCookie: true } }
+const GREEN_PLATES: Piece = { label: 'Greenware plates', quantity: 8, heightMm: 30, widthMm: 260, depthMm: 260, round: true, wallThicknessMm: 8, clay: stoneware, state: 'greenware', boneDry: true }
+
+interface DemoRequest {
+  key: string
+  studio: string
+  kiln: string
+  /** Which firing of that kiln: the nth upcoming one (0 = next), or a past one made for the purpose. */
+  firing: number | 'past'
+  potter: string
+  pieces: Piece[]
+  state: RequestState
+  acknowledged?: string[]
+  rating?: { stars: number; text: string; care: number; communication: number; results: number }
+}
+
+const DEMO_REQUESTS: DemoRequest[] = [
+  { key: 'near-full', studio: 'Alder Street Clay Commons', kiln: 'Big Ten', firing: 0, potter: 'theo.marsh@demo.conewright.test', pieces: [VASES], state: 'deposit_paid' },
+  { key: 'mugs-paid', studio: 'Alder Street Clay Commons', kiln: 'Big Ten', firing: 0, potter: 'wren.alvarado@demo.conewright.test', pieces: [MUGS], state: 'deposit_paid' },
+  { key: 'celadon-waiting', studio: 'Fernhollow Gas Works', kiln: 'The Car', firing: 0, potter: 'wren.alvarado@demo.conewright.test', pieces: [CELADON_BOWLS], state: 'sent', acknowledged: [] },
+  { key: 'mugs-waiting', studio: 'Alder Street Clay Commons', kiln: 'Big Ten', firing: 1, potter: 'theo.marsh@demo.conewright.test', pieces: [MUGS], state: 'sent' },
+  { key: 'plates-draft', studio: 'Mudlark Clay Supply', kiln: 'Bisque Bay', firing: 0, potter: 'wren.alvarado@demo.conewright.test', pieces: [GREEN_PLATES], state: 'draft' },
+  {
+    key: 'past-collected',
+    studio: 'Alder Street Clay Commons',
+    kiln: 'Big Ten',
+    firing: 'past',
+    potter: 'wren.alvarado@demo.conewright.test',
+    pieces: [MUGS],
+    state: 'collected',
+    rating: { stars: 5, care: 5, communication: 5, results: 4, text: 'Marisol slow-cooled the load as promised; the matte glazes came out buttery.' },
+  },
+]
+
+/** The path a demo request walks to reach its state. */
+const PATH: Record<string, RequestState[]> = {
+  draft: ['draft'],
+  sent: ['draft', 'sent'],
+  deposit_paid: ['draft', 'sent', 'accepted', 'deposit_paid'],
+  collected: ['draft', 'sent', 'accepted', 'deposit_paid', 'received', 'fired', 'ready', 'collected'],
+}
+
+export async function seedDemoRequests(manager: EntityManager, userIdOf: (email: string) => Promise<string>) {
+  for (const demo of DEMO_REQUESTS) {
+    const marker = `demo:${demo.key}`
+    if (await manager.getRepository(FiringRequest).exists({ where: { notes: marker } })) continue
+    const studio = await manager.getRepository(Studio).findOneBy({ name: demo.studio })
+    const kiln = studio && (await manager.getRepository(Kiln).findOneBy({ studioId: studio.id, name: demo.kiln }))
+    if (!kiln || !studio) continue
+    let firing: Firing | null
+    if (demo.firing === 'past') {
+      const fired = new Date(Date.now() - 16 * 86400_000)
+      firing = await manager.getRepository(Firing).save(
+        manager.getRepository(Firing).create({
+          kilnId: kiln.id,
+          kind: 'glaze',
+          cone: '6',
+          atmosphere: 'oxidation',
+          slowCool: true,
+          dropOffBy: new Date(fired.getTime() - 2 * 86400_000),
+          firingDate: fired,
+          readyBy: new Date(fired.getTime() + 3 * 86400_000),
+          capacityL: 140,
+          status: 'unloaded',
+          schedule: null,
+          notes: 'Slow cool through 1900 °F.',
+          seriesId: null,
+          cancelledReason: null,
+        }),
+      )
+    } else {
+      const upcoming = await manager
+        .getRepository(Firing)
+        .createQueryBuilder('f')
+        .where('f.kiln_id = :kilnId', { kilnId: kiln.id })
+        .andWhere(`f.status = 'open'`)
+        .andWhere('f.drop_off_by > now()')
+        .orderBy('f.firing_date', 'ASC')
+        .getMany()
+      firing = upcoming[demo.firing] ?? null
+    }
+    if (!firing) continue
+    const potterId = await userIdOf(demo.potter)
+    const { check, quote, volumeL } = await checkAgainstFiring(manager, firing, demo.pieces)
+    const request = await manager.getRepository(FiringRequest).save({
+      firingId: firing.id,
+      potterId,
+      state: demo.state,
+      pieces: demo.pieces,
+      notes: marker,
+      volumeL,
+      verdict: check.verdict,
+      findings: check.findings,
+      acknowledgedWarnings: check.findings.filter((f) => f.severity === 'warn').map((f) => f.code),
+      quote,
+      policiesVersion: demo.state === 'draft' ? null : studio.policiesVersion,
+      depositDueAt: null,
+      proposedFiringId: null,
+      sentAt: demo.state === 'draft' ? null : new Date(),
+    })
+    const path = PATH[demo.state]
+    for (let i = 0; i < path.length; i++) {
+      const actor = ['sent', 'draft'].includes(path[i]) ? potterId : null
+      await manager.getRepository(RequestEvent).save({ requestId: request.id, actorId: actor, fromState: i ? path[i - 1] : null, toState: path[i], reason: i ? 'Demo data' : '', data: {} })
+    }
+    const currency = quote?.currency ?? 'USD'
+    if (path.includes('deposit_paid') && quote && quote.depositCents > 0) {
+      await manager.getRepository(LedgerEntry).save({ requestId: request.id, direction: 'in', kind: 'counter', amountCents: quote.depositCents, currency, stripeSessionId: null, stripePaymentIntentId: null, stripeRefundId: null, note: 'Deposit paid at the counter' })
+    }
+    if (demo.state === 'collected' && quote) {
+      const rest = quote.totalCents - quote.depositCents
+      if (rest > 0) await manager.getRepository(LedgerEntry).save({ requestId: request.id, direction: 'in', kind: 'counter', amountCents: rest, currency, stripeSessionId: null, stripePaymentIntentId: null, stripeRefundId: null, note: 'Balance paid at the counter' })
+    }
+    if (demo.rating) {
+      await manager.getRepository(Rating).save({ requestId: request.id, direction: 'potter-rates-studio', studioId: studio.id, potterId, authorId: potterId, stars: demo.rating.stars, care: demo.rating.care, communication: demo.rating.communication, results: demo.rating.results, asDeclared: null, onTime: null, text: demo.rating.text, studioReply: 'Thank you, Wren. See you at the next cone 6.', studioReplyAt: new Date() })
+    }
+  }
+}

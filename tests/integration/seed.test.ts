@@ -1,0 +1,49 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { seedDemo, DEMO_PASSWORD } from '../../server/db/seed'
+import { HttpSession } from '../support/http-client'
+import { startTestApp, type TestApp } from '../support/test-app'
+
+let app: TestApp
+
+beforeAll(async () => {
+  app = await startTestApp({ worker: false })
+}, 60_000)
+afterAll(async () => {
+  await app?.close()
+})
+
+const counts = async () =>
+  (await app.ctx.db.query(
+    `SELECT (SELECT count(*) FROM users)::int AS users, (SELECT count(*) FROM studios)::int AS studios, (SELECT count(*) FROM kilns)::int AS kilns,
+            (SELECT count(*) FROM firings)::int AS firings, (SELECT count(*) FROM firing_requests)::int AS requests, (SELECT count(*) FROM ratings)::int AS ratings`,
+  ))[0]
+
+describe('the demo data', () => {
+  it('seeds forty studios with kilns, firings eight weeks ahead, requests and a rating, and adds nothing the second time', async () => {
+    await seedDemo(app.ctx)
+    const first = await counts()
+    expect(first.studios).toBe(40)
+    expect(first.kilns).toBeGreaterThanOrEqual(40)
+    expect(first.requests).toBeGreaterThanOrEqual(5)
+    expect(first.ratings).toBe(1)
+    await seedDemo(app.ctx)
+    expect(await counts()).toEqual(first)
+  }, 120_000)
+
+  it('lets the documented demo accounts sign in, each to their own studio', async () => {
+    const host = new HttpSession(app.url)
+    const reply = await host.signIn('marisol.okafor@demo.conewright.test', DEMO_PASSWORD)
+    expect(reply.status).toBe(200)
+    expect(reply.body.studios).toEqual([expect.objectContaining({ name: 'Alder Street Clay Commons', role: 'owner' })])
+    const crew = await new HttpSession(app.url).signIn('dev.ramanathan@demo.conewright.test', DEMO_PASSWORD)
+    expect(crew.body).toMatchObject({ role: 'crew', studios: [expect.objectContaining({ name: 'Alder Street Clay Commons', role: 'crew' })] })
+  })
+
+  it('has a firing nearly full', async () => {
+    const rows = await app.ctx.db.query(
+      `SELECT f.capacity_l, sum(r.volume_l) AS held FROM firings f JOIN firing_requests r ON r.firing_id = f.id
+       WHERE r.state IN ('accepted', 'deposit_paid') GROUP BY f.id, f.capacity_l`,
+    )
+    expect(rows.some((r: { capacity_l: number; held: number }) => r.held / r.capacity_l > 0.8)).toBe(true)
+  })
+})
