@@ -30,6 +30,8 @@ function rowOf(doc: FiringDocument): Omit<SearchDocument, 'updatedAt'> {
     coneRank: doc.coneRank,
     atmosphere: doc.atmosphere,
     kind: doc.kind,
+    cone: doc.cone,
+    kilnKind: doc.kilnKind,
     dropOffByTs: doc.dropOffByTs,
     firingDateTs: doc.firingDateTs,
     spaceLeftL: doc.spaceLeftL,

@@ -61,6 +61,8 @@ export function createApp(ctx: AppContext): App {
   app.use('/api', metaRouter(ctx))
 
   app.use('/api', webhooksRouter(ctx))
+  // Public reads that need no session: answered before the session, passport and CSRF layers.
+  app.use('/api', searchRouter(ctx))
 
   app.use('/api', express.json({ limit: '1mb' }))
 
@@ -110,7 +112,6 @@ export function createApp(ctx: AppContext): App {
   app.use('/api', firingsRouter(ctx))
   app.use('/api', invitesRouter(ctx))
   app.use('/api', placesRouter(ctx))
-  app.use('/api', searchRouter(ctx))
   app.use('/api', requestsRouter(ctx))
   app.use('/api', pickupRouter(ctx))
   app.use('/api', photosRouter(ctx))

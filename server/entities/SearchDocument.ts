@@ -33,6 +33,13 @@ export class SearchDocument {
   @Column({ type: 'text' })
   kind: string
 
+  /** Facet values kept as plain columns, so counting them never opens the document. */
+  @Column({ type: 'text' })
+  cone: string
+
+  @Column({ name: 'kiln_kind', type: 'text' })
+  kilnKind: string
+
   @Column({ name: 'drop_off_by_ts', type: 'bigint', transformer: { to: (v: number) => v, from: (v: string) => Number(v) } })
   dropOffByTs: number
 
