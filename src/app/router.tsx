@@ -6,9 +6,12 @@ import { SignInPage } from '../features/auth/pages/SignInPage'
 import { VerifyEmailPage } from '../features/auth/pages/VerifyEmailPage'
 import { FrontDeskPage } from '../features/home/pages/FrontDeskPage'
 import { LandingPage } from '../features/home/pages/LandingPage'
-import { MyWarePage } from '../features/home/pages/MyWarePage'
 import { SafetyPage } from '../features/home/pages/SafetyPage'
 import { PlannerPage } from '../features/planner/pages/PlannerPage'
+import { ComposeRequestPage } from '../features/requests/pages/ComposeRequestPage'
+import { MyWarePage } from '../features/requests/pages/MyWarePage'
+import { RequestPage } from '../features/requests/pages/RequestPage'
+import { FiringInboxPage, StudioInboxPage } from '../features/requests/pages/StudioInboxPage'
 import { FindFiringPage } from '../features/search/pages/FindFiringPage'
 import { CalendarPage } from '../features/studios/pages/CalendarPage'
 import { CrewPage } from '../features/studios/pages/CrewPage'
@@ -43,6 +46,10 @@ export const router = createBrowserRouter([
       { path: 'studios/:id/calendar', element: <RequireRole roles={['host', 'crew']}><CalendarPage /></RequireRole> },
       { path: 'studios/:id/crew', element: <RequireRole roles={['host', 'crew']}><CrewPage /></RequireRole> },
       { path: 'studios/:id/kilns/new', element: <RequireRole roles={['host', 'crew']}><NewKilnPage /></RequireRole> },
+      { path: 'studios/:id/requests', element: <RequireRole roles={['host', 'crew']}><StudioInboxPage /></RequireRole> },
+      { path: 'firings/:firingId/request', element: <RequireRole roles={['potter']}><ComposeRequestPage /></RequireRole> },
+      { path: 'firings/:firingId/requests', element: <RequireRole roles={['host', 'crew']}><FiringInboxPage /></RequireRole> },
+      { path: 'requests/:id', element: <RequireRole roles={['potter', 'host', 'crew']}><RequestPage /></RequireRole> },
       { path: 'kilns/:id', element: <RequireRole roles={['host', 'crew']}><KilnPage /></RequireRole> },
       { path: 'kilns/:id/edit', element: <RequireRole roles={['host', 'crew']}><KilnEditorPage /></RequireRole> },
       { path: 'join-studio', element: <JoinStudioPage /> },

@@ -2,7 +2,7 @@
 
 import { ROOM_C, zoneLabel, type FiringSchedule, type SegmentZone } from '../../../shared/firing/schedule'
 import { rateCToF } from '../../../shared/firing/units'
-import type { TemperatureScale } from './units'
+import type { TemperatureScale } from '../../lib/units'
 
 export interface CurvePoint {
   hours: number

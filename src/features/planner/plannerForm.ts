@@ -2,24 +2,14 @@
 // read through the shared schemas on every change: what parses is checked, what does not gets the
 // schema's own message beside its field.
 
-import { z, type ZodError } from 'zod'
-import type {
-  Atmosphere,
-  ClayBody,
-  Firing,
-  FiringKind,
-  Kiln,
-  KilnKind,
-  Piece,
-  PieceState,
-} from '../../../shared/firing/check'
+import { z } from 'zod'
+import type { Atmosphere, Firing, FiringKind, Kiln, KilnKind, Piece } from '../../../shared/firing/check'
 import type { PriceList, PricingModel } from '../../../shared/firing/quote'
 import { firingSpecSchema, kilnSchema, piecesSchema, priceListSchema } from '../../../shared/schemas/firing'
+import { newPiece, pieceInputOf, type NumberDraft, type PieceDraft } from '../../lib/pieceDraft'
+import { collectMessages, type FieldMessages } from '../../lib/schemaMessages'
+import type { UnitSystem } from '../../lib/units'
 import { DEMO_KILNS } from './demoKilns'
-import { localiseMessage, type UnitSystem } from './units'
-
-/** A number field's value: undefined while empty, NaN while it holds something that is not a number. */
-export type NumberDraft = number | undefined
 
 export interface KilnDraft {
   kind: KilnKind
@@ -39,22 +29,6 @@ export interface FiringDraft {
   cone: string
   atmosphere: Atmosphere
   slowCool: boolean
-}
-
-export interface PieceDraft {
-  label: string
-  quantity: NumberDraft
-  heightMm: NumberDraft
-  /** The diameter when round. */
-  widthMm: NumberDraft
-  depthMm: NumberDraft
-  round: boolean
-  wallThicknessMm: NumberDraft
-  clay: { body: ClayBody; minCone: string; maxCone: string }
-  state: PieceState
-  boneDry: boolean
-  glazed: boolean
-  glaze: { minCone: string; maxCone: string; runny: boolean; onFoot: boolean; onCookie: boolean }
 }
 
 export interface PriceListDraft {
@@ -97,24 +71,6 @@ export function kilnDraftOf(kiln: Kiln): KilnDraft {
     maxRampCPerHour: kiln.maxRampCPerHour,
     preheatHold: kiln.preheatHold,
     controlledCooling: kiln.controlledCooling,
-  }
-}
-
-/** A new row: a 4 in mug, bisqued, in a mid-fire stoneware under a cone 5–6 glaze. */
-export function newPiece(): PieceDraft {
-  return {
-    label: '',
-    quantity: 1,
-    heightMm: 101.6,
-    widthMm: 88.9,
-    depthMm: 88.9,
-    round: true,
-    wallThicknessMm: 6.35,
-    clay: { body: 'stoneware', minCone: '5', maxCone: '10' },
-    state: 'bisque',
-    boneDry: false,
-    glazed: true,
-    glaze: { minCone: '5', maxCone: '6', runny: false, onFoot: false, onCookie: false },
   }
 }
 
@@ -165,20 +121,7 @@ export function checkInputOf(values: PlannerValues) {
       controlledCooling: kiln.controlledCooling,
     },
     firing: { kind: firing.kind, cone: firing.cone, atmosphere: firing.atmosphere, slowCool: firing.slowCool },
-    pieces: values.pieces.map((piece) => ({
-      label: piece.label,
-      quantity: piece.quantity,
-      heightMm: piece.heightMm,
-      widthMm: piece.widthMm,
-      // A round piece is as deep as it is wide; the depth field is hidden then.
-      depthMm: piece.round ? piece.widthMm : piece.depthMm,
-      round: piece.round,
-      wallThicknessMm: piece.wallThicknessMm,
-      clay: piece.clay,
-      state: piece.state,
-      boneDry: piece.state === 'greenware' ? piece.boneDry : undefined,
-      glaze: piece.glazed ? piece.glaze : undefined,
-    })),
+    pieces: values.pieces.map(pieceInputOf),
   }
 }
 
@@ -210,9 +153,6 @@ export interface CheckInput {
   pieces: Piece[]
 }
 
-/** Field name (as the form names it) → the schema's message, in the units on screen. */
-export type FieldMessages = Record<string, string>
-
 export interface ParsedPlanner {
   /** null while any kiln, firing or piece field does not parse. */
   input: CheckInput | null
@@ -221,47 +161,17 @@ export interface ParsedPlanner {
   messages: FieldMessages
 }
 
-type Issue = ZodError['issues'][number]
-
-function valueAt(root: unknown, path: readonly PropertyKey[]): unknown {
-  let value = root
-  for (const key of path) value = typeof value === 'object' && value !== null ? (value as Record<PropertyKey, unknown>)[key] : undefined
-  return value
-}
-
-/**
- * A union that fails names no field ("give the deposit as a percent or a fixed sum"). The branch
- * meant is the one whose complaints are all about fields the form gave; its messages are the useful ones.
- */
-function branchMeant(issue: Issue, input: unknown): Issue[] | null {
-  if (issue.code !== 'invalid_union') return null
-  const given = valueAt(input, issue.path)
-  if (typeof given !== 'object' || given === null) return null
-  const keys = Object.keys(given)
-  const branch = issue.errors.find((issues) => issues.length > 0 && issues.every((nested) => keys.includes(String(nested.path[0]))))
-  return branch ? branch.map((nested) => ({ ...nested, path: [...issue.path, ...nested.path] })) : null
-}
-
-function collect(messages: FieldMessages, error: ZodError, input: unknown, prefix: string, units: UnitSystem) {
-  for (const issue of error.issues) {
-    for (const meant of branchMeant(issue, input) ?? [issue]) {
-      const key = prefix + meant.path.map(String).join('.')
-      messages[key || '_'] ??= localiseMessage(meant.message, units)
-    }
-  }
-}
-
 export function parsePlanner(values: PlannerValues, units: UnitSystem): ParsedPlanner {
   const messages: FieldMessages = {}
   const coreInput = checkInputOf(values)
   const core = checkInputSchema.safeParse(coreInput)
-  if (!core.success) collect(messages, core.error, coreInput, '', units)
+  if (!core.success) collectMessages(messages, core.error, coreInput, '', units)
   let priceList: PriceList | null = null
   if (values.quoteOn) {
     const priceInput = priceListInputOf(values.priceList)
     const parsed = priceListSchema.safeParse(priceInput)
     if (parsed.success) priceList = parsed.data
-    else collect(messages, parsed.error, priceInput, 'priceList.', units)
+    else collectMessages(messages, parsed.error, priceInput, 'priceList.', units)
   }
   return { input: core.success ? core.data : null, priceList, messages }
 }

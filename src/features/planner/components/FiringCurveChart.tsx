@@ -2,7 +2,7 @@ import { CartesianGrid, Line, LineChart, ReferenceArea, ResponsiveContainer, Too
 import type { FiringSchedule, SegmentZone } from '../../../../shared/firing/schedule'
 import { cToF } from '../../../../shared/firing/units'
 import { curvePoints, zoneName, zoneSpans } from '../firingCurve'
-import { formatDuration, formatRate, formatTemperature, type TemperatureScale } from '../units'
+import { formatDuration, formatRate, formatTemperature, type TemperatureScale } from '../../../lib/units'
 import { ChoiceSwitch } from './ChoiceSwitch'
 
 // Zones where the clay is changing are tinted by what is happening: water (celadon), gases leaving

@@ -1,7 +1,7 @@
 import { Checkbox, Field, Select } from '../../../components/ui/Field'
-import { ConeField } from './ConeField'
+import { FormSection } from '../../../components/ui/FormSection'
+import { ConeField } from '../../../components/ware/ConeField'
 import type { FormSectionProps } from './sectionProps'
-import { FormSection } from './FormSection'
 import { ATMOSPHERES } from './KilnFields'
 
 export function FiringFields({ register, messages }: FormSectionProps) {
@@ -17,7 +17,7 @@ export function FiringFields({ register, messages }: FormSectionProps) {
             </Select>
           )}
         </Field>
-        <ConeField register={register} messages={messages} name="firing.cone" label="Cone" />
+        <ConeField register={register} error={messages['firing.cone']} name="firing.cone" label="Cone" />
         <Field label="Atmosphere" error={messages['firing.atmosphere']}>
           {(a11y) => (
             <Select {...a11y} {...register('firing.atmosphere')}>

@@ -2,11 +2,11 @@ import { Controller, useWatch } from 'react-hook-form'
 import type { Atmosphere } from '../../../../shared/firing/check'
 import { Checkbox, Field, Select } from '../../../components/ui/Field'
 import { DEMO_KILNS } from '../demoKilns'
-import { lengthMeasure, rateMeasure, temperatureMeasure } from '../units'
-import { ConeField } from './ConeField'
+import { FormSection } from '../../../components/ui/FormSection'
+import { MeasureField } from '../../../components/ui/MeasureField'
+import { ConeField } from '../../../components/ware/ConeField'
+import { lengthMeasure, rateMeasure, temperatureMeasure } from '../../../lib/units'
 import type { FormSectionProps } from './sectionProps'
-import { FormSection } from './FormSection'
-import { MeasureField } from './MeasureField'
 
 const KINDS = [
   ['electric', 'Electric'],
@@ -26,7 +26,8 @@ export const ATMOSPHERES: readonly { value: Atmosphere; label: string }[] = [
 export function KilnFields({ control, register, messages, units, onPickDemo }: FormSectionProps & { onPickDemo: (id: string) => void }) {
   const shape = useWatch({ control, name: 'kiln.interior.shape' })
   const length = lengthMeasure(units)
-  const shared = { control, messages }
+  const shared = { control, units }
+  const m = (name: string) => messages[name]
 
   return (
     <FormSection title="Kiln" lead="Its real limits: what it can reach, hold and fit.">
@@ -93,25 +94,26 @@ export function KilnFields({ control, register, messages, units, onPickDemo }: F
           )}
         </Field>
         {shape === 'round' ? (
-          <MeasureField {...shared} name="kiln.interior.diameterMm" label="Inside diameter" measure={length} />
+          <MeasureField {...shared} name="kiln.interior.diameterMm" error={m('kiln.interior.diameterMm')} label="Inside diameter" measure={length} />
         ) : (
           <>
-            <MeasureField {...shared} name="kiln.interior.widthMm" label="Inside width" measure={length} />
-            <MeasureField {...shared} name="kiln.interior.depthMm" label="Inside depth" measure={length} />
+            <MeasureField {...shared} name="kiln.interior.widthMm" error={m('kiln.interior.widthMm')} label="Inside width" measure={length} />
+            <MeasureField {...shared} name="kiln.interior.depthMm" error={m('kiln.interior.depthMm')} label="Inside depth" measure={length} />
           </>
         )}
-        <MeasureField {...shared} name="kiln.interior.heightMm" label="Inside height" measure={length} />
+        <MeasureField {...shared} name="kiln.interior.heightMm" error={m('kiln.interior.heightMm')} label="Inside height" measure={length} />
         <MeasureField
           {...shared}
           name="kiln.usableHeightMm"
+          error={m('kiln.usableHeightMm')}
           label="Usable height"
           measure={length}
           hint="Optional. Left empty: the inside height less one shelf and headroom."
         />
-        <ConeField register={register} messages={messages} name="kiln.minCone" label="Coolest cone" />
-        <ConeField register={register} messages={messages} name="kiln.maxCone" label="Hottest cone" />
-        <MeasureField {...shared} name="kiln.maxTempC" label="Top temperature" measure={temperatureMeasure(units)} />
-        <MeasureField {...shared} name="kiln.maxRampCPerHour" label="Fastest climb" measure={rateMeasure(units)} />
+        <ConeField register={register} error={m('kiln.minCone')} name="kiln.minCone" label="Coolest cone" />
+        <ConeField register={register} error={m('kiln.maxCone')} name="kiln.maxCone" label="Hottest cone" />
+        <MeasureField {...shared} name="kiln.maxTempC" error={m('kiln.maxTempC')} label="Top temperature" measure={temperatureMeasure(units)} />
+        <MeasureField {...shared} name="kiln.maxRampCPerHour" error={m('kiln.maxRampCPerHour')} label="Fastest climb" measure={rateMeasure(units)} />
         <div className="space-y-2 sm:col-span-2">
           <Checkbox label="Can hold a low preheat (candling)" {...register('kiln.preheatHold')} />
           <Checkbox label="Can control its cooling (slow cool, fire down)" {...register('kiln.controlledCooling')} />

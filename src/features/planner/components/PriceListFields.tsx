@@ -1,9 +1,9 @@
 import { useWatch } from 'react-hook-form'
 import { Checkbox, Field, Select, TextInput } from '../../../components/ui/Field'
-import { FRACTIONAL_CENTS, moneyMeasure, PERCENT } from '../units'
+import { FormSection } from '../../../components/ui/FormSection'
+import { MeasureField } from '../../../components/ui/MeasureField'
+import { FRACTIONAL_CENTS, moneyMeasure, PERCENT } from '../../../lib/units'
 import type { FormSectionProps } from './sectionProps'
-import { FormSection } from './FormSection'
-import { MeasureField } from './MeasureField'
 
 const SHELF_STEPS = [
   [0.25, 'Quarter shelves'],
@@ -12,13 +12,13 @@ const SHELF_STEPS = [
   [1, 'Whole shelves'],
 ] as const
 
-export function PriceListFields({ control, register, messages }: FormSectionProps) {
+export function PriceListFields({ control, register, messages, units }: FormSectionProps) {
   const [quoteOn, model, volumeUnit, depositKind, currency] = useWatch({
     control,
     name: ['quoteOn', 'priceList.model', 'priceList.volumeUnit', 'priceList.depositKind', 'priceList.currency'],
   })
   const money = moneyMeasure(currency)
-  const shared = { control, messages }
+  const shared = { control, units }
   const m = (name: string) => messages[`priceList.${name}`]
 
   return (
@@ -49,16 +49,16 @@ export function PriceListFields({ control, register, messages }: FormSectionProp
                 )}
               </Field>
               {volumeUnit === 'cubicInch' ? (
-                <MeasureField {...shared} name="priceList.centsPerCubicInch" label="Price per cubic inch" measure={FRACTIONAL_CENTS} />
+                <MeasureField {...shared} name="priceList.centsPerCubicInch" error={m('centsPerCubicInch')} label="Price per cubic inch" measure={FRACTIONAL_CENTS} />
               ) : (
-                <MeasureField {...shared} name="priceList.centsPerLitre" label="Price per litre" measure={FRACTIONAL_CENTS} />
+                <MeasureField {...shared} name="priceList.centsPerLitre" error={m('centsPerLitre')} label="Price per litre" measure={FRACTIONAL_CENTS} />
               )}
               {volumeUnit === 'litre' && m('centsPerCubicInch') && <p className="text-xs font-medium text-danger-700 sm:col-span-2">{m('centsPerCubicInch')}</p>}
             </>
           )}
           {model === 'shelf' && (
             <>
-              <MeasureField {...shared} name="priceList.shelfCents" label="Price of a whole shelf" measure={money} />
+              <MeasureField {...shared} name="priceList.shelfCents" error={m('shelfCents')} label="Price of a whole shelf" measure={money} />
               <Field label="Sold in" error={m('shelfStep')}>
                 {(a11y) => (
                   <Select {...a11y} {...register('priceList.shelfStep', { setValueAs: Number })}>
@@ -72,11 +72,11 @@ export function PriceListFields({ control, register, messages }: FormSectionProp
               </Field>
             </>
           )}
-          {model === 'kiln' && <MeasureField {...shared} name="priceList.kilnCents" label="Price of the whole kiln" measure={money} />}
-          <MeasureField {...shared} name="priceList.minimumPerPieceCents" label="Minimum per piece" measure={money} hint="Optional." />
-          <MeasureField {...shared} name="priceList.surcharges.reduction" label="Reduction surcharge" measure={PERCENT} hint="Optional, of the base price." />
-          <MeasureField {...shared} name="priceList.surcharges.slowCool" label="Slow-cool surcharge" measure={PERCENT} hint="Optional." />
-          <MeasureField {...shared} name="priceList.surcharges.preheat" label="Long-preheat surcharge" measure={PERCENT} hint="Optional." />
+          {model === 'kiln' && <MeasureField {...shared} name="priceList.kilnCents" error={m('kilnCents')} label="Price of the whole kiln" measure={money} />}
+          <MeasureField {...shared} name="priceList.minimumPerPieceCents" error={m('minimumPerPieceCents')} label="Minimum per piece" measure={money} hint="Optional." />
+          <MeasureField {...shared} name="priceList.surcharges.reduction" error={m('surcharges.reduction')} label="Reduction surcharge" measure={PERCENT} hint="Optional, of the base price." />
+          <MeasureField {...shared} name="priceList.surcharges.slowCool" error={m('surcharges.slowCool')} label="Slow-cool surcharge" measure={PERCENT} hint="Optional." />
+          <MeasureField {...shared} name="priceList.surcharges.preheat" error={m('surcharges.preheat')} label="Long-preheat surcharge" measure={PERCENT} hint="Optional." />
           <Field label="Deposit as" error={m('deposit')}>
             {(a11y) => (
               <Select {...a11y} {...register('priceList.depositKind')}>
@@ -86,9 +86,9 @@ export function PriceListFields({ control, register, messages }: FormSectionProp
             )}
           </Field>
           {depositKind === 'percent' ? (
-            <MeasureField {...shared} name="priceList.deposit.percent" label="Deposit" measure={PERCENT} />
+            <MeasureField {...shared} name="priceList.deposit.percent" error={m('deposit.percent')} label="Deposit" measure={PERCENT} />
           ) : (
-            <MeasureField {...shared} name="priceList.deposit.fixedCents" label="Deposit" measure={money} />
+            <MeasureField {...shared} name="priceList.deposit.fixedCents" error={m('deposit.fixedCents')} label="Deposit" measure={money} />
           )}
         </div>
       )}

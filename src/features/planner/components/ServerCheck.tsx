@@ -3,7 +3,7 @@ import { Alert } from '../../../components/ui/Alert'
 import { Button } from '../../../components/ui/Button'
 import { ApiError } from '../../../lib/api'
 import type { useServerWareCheck } from '../api/wareChecks'
-import { VerdictLine } from './CheckResults'
+import { VerdictLine } from '../../../components/ware/CheckResults'
 
 const codesOf = (check: WareCheck) => check.findings.map((finding) => `${finding.code}:${finding.pieceIndex ?? ''}`).sort().join(' ')
 

@@ -1,6 +1,7 @@
 import type { Control, UseFormRegister } from 'react-hook-form'
-import type { FieldMessages, PlannerValues } from '../plannerForm'
-import type { UnitSystem } from '../units'
+import type { FieldMessages } from '../../../lib/schemaMessages'
+import type { UnitSystem } from '../../../lib/units'
+import type { PlannerValues } from '../plannerForm'
 
 /** What every part of the planner form is drawn from. */
 export interface FormSectionProps {

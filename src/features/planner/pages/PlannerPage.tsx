@@ -4,23 +4,23 @@ import { checkWare, type WareCheck } from '../../../../shared/firing/check'
 import { quoteRequest, type Quote } from '../../../../shared/firing/quote'
 import { SafetyNote } from '../../../components/SafetyNote'
 import { Alert } from '../../../components/ui/Alert'
-import { Badge } from '../../../components/ui/Badge'
 import { Card, PageHeader } from '../../../components/ui/Card'
+import { CheckCard, VerdictBar } from '../../../components/ware/CheckCard'
+import { ConeSuggestions } from '../../../components/ware/ConeField'
+import { PieceRows } from '../../../components/ware/PieceRows'
+import { QuoteSummary } from '../../../components/ware/QuoteSummary'
+import { scaleOf, type TemperatureScale, type UnitSystem } from '../../../lib/units'
 import { useMe } from '../../auth/api/auth'
 import { useServerWareCheck, type WareCheckRequest } from '../api/wareChecks'
 import { ChoiceSwitch } from '../components/ChoiceSwitch'
-import { FindingsList, FitSummary, VERDICT_WORDS, VerdictLine } from '../components/CheckResults'
-import { ConeSuggestions } from '../components/ConeField'
 import { FiringCurveChart } from '../components/FiringCurveChart'
 import { FiringFields } from '../components/FiringFields'
+import { FitSummary } from '../components/FitSummary'
 import { KilnFields } from '../components/KilnFields'
-import { PieceRows } from '../components/PieceRows'
 import { PriceListFields } from '../components/PriceListFields'
-import { QuoteSummary } from '../components/QuoteSummary'
 import { ServerCheck } from '../components/ServerCheck'
 import { demoKiln } from '../demoKilns'
 import { kilnDraftOf, parsePlanner, plannerDefaults, type CheckInput, type PlannerValues } from '../plannerForm'
-import { scaleOf, type TemperatureScale, type UnitSystem } from '../units'
 
 const UNIT_CHOICES = [
   { value: 'imperial', label: 'in · °F' },
@@ -100,28 +100,9 @@ export function PlannerPage() {
         </form>
 
         <div className="min-w-0 space-y-6">
-          <Card>
-            <h2 id={CHECK_ID} className="mb-3 scroll-mt-4 text-lg font-semibold text-slip-900">
-              The check
-            </h2>
-            {result ? (
-              <div className="space-y-4">
-                <div aria-live="polite">
-                  <VerdictLine verdict={result.check.verdict} testId="verdict" />
-                </div>
-                <FindingsList findings={result.check.findings} pieces={parsed.input!.pieces} />
-                <ServerCheck server={server} local={result.check} />
-              </div>
-            ) : typeof outcome === 'string' ? (
-              <Alert tone="danger" title="These inputs could not be checked">
-                {outcome}
-              </Alert>
-            ) : (
-              <p className="text-sm text-slip-600" data-testid="verdict" data-verdict="incomplete">
-                Fix the fields marked in red and the check comes back.
-              </p>
-            )}
-          </Card>
+          <CheckCard id={CHECK_ID} check={result?.check ?? null} problem={typeof outcome === 'string' ? outcome : null} pieces={parsed.input?.pieces ?? []}>
+            {result && <ServerCheck server={server} local={result.check} />}
+          </CheckCard>
 
           {result && (
             <Card>
@@ -151,13 +132,7 @@ export function PlannerPage() {
         </div>
       </div>
 
-      {/* On a phone the results sit below a long form; the verdict stays in sight while typing. */}
-      <div className="fixed inset-x-0 bottom-0 z-30 flex items-center justify-between gap-3 border-t border-slip-200 bg-white/95 px-4 py-2 backdrop-blur lg:hidden">
-        {result ? <Badge tone={VERDICT_WORDS[result.check.verdict].tone}>{VERDICT_WORDS[result.check.verdict].title}</Badge> : <span className="text-sm text-slip-600">Some fields need fixing</span>}
-        <a href={`#${CHECK_ID}`} className="text-sm font-semibold text-clay-700 hover:underline">
-          See the check
-        </a>
-      </div>
+      <VerdictBar verdict={result?.check.verdict ?? null} checkId={CHECK_ID} />
     </>
   )
 }

@@ -92,6 +92,9 @@ export const ResultCard = forwardRef<HTMLElement, ResultCardProps>(function Resu
         <Link to={`/studios/${hit.studio.id}`} className="rounded-control px-3 py-1.5 text-sm font-semibold text-clay-700 hover:bg-clay-50">
           See the studio<span className="sr-only"> {hit.studio.name}</span>
         </Link>
+        <Link to={`/firings/${hit.firingId}/request`} className="rounded-control bg-clay-600 px-3 py-1.5 text-sm font-semibold text-white hover:bg-clay-700">
+          Request space<span className="sr-only"> at {hit.studio.name}</span>
+        </Link>
       </div>
     </article>
   )

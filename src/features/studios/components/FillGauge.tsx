@@ -1,6 +1,6 @@
 import { Gauge } from '../../../components/ui/Gauge'
 import type { FiringRecord } from '../api/types'
-import { formatLitres, formatSpace, type UnitSystem } from '../units'
+import { formatLitres, formatSpace, type UnitSystem } from '../../../lib/units'
 
 /** Space held against space on sale, with the space left in words beside it. */
 export function FillGauge({ firing, units }: { firing: Pick<FiringRecord, 'heldL' | 'capacityL' | 'spaceLeftL'>; units: UnitSystem }) {

@@ -11,10 +11,10 @@ import { Checkbox, Field, Select, TextArea, TextInput } from '../../../component
 import { applyServerErrors } from '../../../lib/forms'
 import { useCreateFirings } from '../api/firings'
 import type { FiringRecord, KilnRecord } from '../api/types'
-import { capacityMeasure, formatSpace, type UnitSystem } from '../units'
+import { capacityMeasure, formatSpace, type UnitSystem } from '../../../lib/units'
 import { weekdayIn } from '../zonedTime'
-import { ATMOSPHERES, FIRING_KINDS } from '../words'
-import { MeasureField } from './MeasureField'
+import { ATMOSPHERES, FIRING_KINDS } from '../../../lib/firingWords'
+import { MeasureField } from '../../../components/ui/MeasureField'
 import { ZonedDateTimeField } from './ZonedDateTimeField'
 
 type FiringInput = z.input<typeof firingCreateSchema>

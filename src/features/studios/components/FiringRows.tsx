@@ -1,8 +1,9 @@
+import type { ReactNode } from 'react'
 import { formatDateTime } from '../../../../shared/dates'
 import { Button } from '../../../components/ui/Button'
 import type { FiringRecord } from '../api/types'
-import type { UnitSystem } from '../units'
-import { firingInWords } from '../words'
+import type { UnitSystem } from '../../../lib/units'
+import { firingInWords } from '../../../lib/firingWords'
 import { FillGauge } from './FillGauge'
 import { FiringStatusBadge } from './FiringStatusBadge'
 
@@ -13,10 +14,12 @@ interface FiringRowsProps {
   units: UnitSystem
   /** Given on the studio's own pages: each row gets a button that opens the firing. */
   onOpen?: (firing: FiringRecord) => void
+  /** More for a row's end: a link to request space, a count of requests waiting. */
+  extra?: (firing: FiringRecord) => ReactNode
 }
 
 /** Upcoming firings as a list that reads well on a phone: when, what, how full, and its status. */
-export function FiringRows({ firings, kilnName, zone, units, onOpen }: FiringRowsProps) {
+export function FiringRows({ firings, kilnName, zone, units, onOpen, extra }: FiringRowsProps) {
   return (
     <ul className="divide-y divide-slip-200 rounded-card border border-slip-200 bg-white">
       {firings.map((firing) => (
@@ -29,8 +32,9 @@ export function FiringRows({ firings, kilnName, zone, units, onOpen }: FiringRow
             <p className="text-xs text-slip-500">Drop-off by {formatDateTime(firing.dropOffBy, zone)}</p>
           </div>
           <FillGauge firing={firing} units={units} />
-          <div className="flex items-center gap-2 sm:justify-end">
+          <div className="flex flex-wrap items-center gap-2 sm:justify-end">
             <FiringStatusBadge status={firing.status} />
+            {extra?.(firing)}
             {onOpen && (
               <Button variant="secondary" size="sm" onClick={() => onOpen(firing)} aria-label={`Manage the firing on ${formatDateTime(firing.firingDate, zone)}`}>
                 Manage

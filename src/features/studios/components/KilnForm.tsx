@@ -9,9 +9,9 @@ import { Button } from '../../../components/ui/Button'
 import { Card } from '../../../components/ui/Card'
 import { Checkbox, Field, Select, TextArea, TextInput } from '../../../components/ui/Field'
 import { applyServerErrors } from '../../../lib/forms'
-import { lengthMeasure, localiseMessage, rateMeasure, temperatureMeasure, type UnitSystem } from '../units'
-import { ATMOSPHERES, KILN_KINDS } from '../words'
-import { MeasureField } from './MeasureField'
+import { lengthMeasure, localiseMessage, rateMeasure, temperatureMeasure, type UnitSystem } from '../../../lib/units'
+import { ATMOSPHERES, KILN_KINDS } from '../../../lib/firingWords'
+import { MeasureField } from '../../../components/ui/MeasureField'
 import { UnitSwitch } from './UnitSwitch'
 
 export type KilnInput = z.input<typeof kilnBodySchema>

@@ -12,8 +12,8 @@ import { Card } from '../../../components/ui/Card'
 import { Field, Select, TextInput } from '../../../components/ui/Field'
 import { applyServerErrors } from '../../../lib/forms'
 import type { KilnRecord } from '../api/types'
-import { moneyMeasure, PERCENT, type UnitSystem } from '../units'
-import { MeasureField } from './MeasureField'
+import { moneyMeasure, PERCENT, type UnitSystem } from '../../../lib/units'
+import { MeasureField } from '../../../components/ui/MeasureField'
 
 type PriceListInput = z.input<typeof priceListSchema>
 type PriceListOutput = z.output<typeof priceListSchema>

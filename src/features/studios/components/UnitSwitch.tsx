@@ -1,5 +1,5 @@
 import { useId } from 'react'
-import type { UnitSystem } from '../units'
+import type { UnitSystem } from '../../../lib/units'
 
 const CHOICES: readonly { value: UnitSystem; label: string }[] = [
   { value: 'imperial', label: 'in · °F' },

@@ -19,7 +19,7 @@ import { FiringMonth } from '../components/FiringMonth'
 import { FiringTable } from '../components/FiringTable'
 import { StudioNav } from '../components/StudioNav'
 import { useSelectedFiring } from '../hooks/useSelectedFiring'
-import type { UnitSystem } from '../units'
+import type { UnitSystem } from '../../../lib/units'
 import { dayKey, monthGrid, monthOf, shiftMonth } from '../zonedTime'
 
 type View = 'month' | 'list'

@@ -9,8 +9,8 @@ import { ApiProblem } from '../components/ApiProblem'
 import { KilnGate, KilnTitle } from '../components/KilnGate'
 import { PriceListForm } from '../components/PriceListForm'
 import { StudioNav } from '../components/StudioNav'
-import { formatRate, formatSpace, formatTemperature, type UnitSystem } from '../units'
-import { kilnLimitsInWords } from '../words'
+import { formatRate, formatSpace, formatTemperature, scaleOf, type UnitSystem } from '../../../lib/units'
+import { kilnLimitsInWords } from '../../../lib/firingWords'
 
 /** /kilns/:id: the kiln in plain words and its price list (the owner edits it, crew read it). */
 export function KilnPage() {
@@ -41,7 +41,7 @@ function KilnOverview({ kiln, studio }: { kiln: KilnRecord; studio: MemberStudio
           {kilnLimitsInWords(kiln, units)}
         </p>
         <p className="mt-1 text-sm text-slip-600">
-          Tops out at {formatTemperature(kiln.maxTempC, units)}, climbs at most {formatRate(kiln.maxRampCPerHour, units)}; holds about {formatSpace(kiln.volumeL, units)}.
+          Tops out at {formatTemperature(kiln.maxTempC, scaleOf(units))}, climbs at most {formatRate(kiln.maxRampCPerHour, scaleOf(units))}; holds about {formatSpace(kiln.volumeL, units)}.
           {kiln.preheatHold ? ' Can candle.' : ''}
           {kiln.controlledCooling ? ' Can slow cool.' : ''}
         </p>

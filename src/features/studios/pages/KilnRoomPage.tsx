@@ -10,14 +10,15 @@ import { useMe } from '../../auth/api/auth'
 import { useStudioFirings } from '../api/firings'
 import { useStudioKilns } from '../api/kilns'
 import { useMyStudios, useUpdateStudio } from '../api/studios'
-import type { MemberStudio } from '../api/types'
+import { useWaitingRequests } from '../api/waitingRequests'
+import type { FiringRecord, MemberStudio } from '../api/types'
 import { ApiProblem } from '../components/ApiProblem'
 import { FiringDialog } from '../components/FiringDialog'
 import { FiringForm } from '../components/FiringForm'
 import { FiringRows } from '../components/FiringRows'
 import { StudioCreateForm } from '../components/StudioCreateForm'
 import { useSelectedFiring } from '../hooks/useSelectedFiring'
-import type { UnitSystem } from '../units'
+import type { UnitSystem } from '../../../lib/units'
 
 /** How many upcoming firings each studio shows here; the calendar has the rest. */
 const UPCOMING_SHOWN = 8
@@ -89,12 +90,21 @@ function StudioPanel({ studio, units }: { studio: MemberStudio; units: UnitSyste
   const kilns = useStudioKilns(studio.id)
   const firings = useStudioFirings(studio.id, { from })
   const publish = useUpdateStudio(studio.id)
+  const waiting = useWaitingRequests(studio.id)
   const [posting, setPosting] = useState(false)
   const dialog = useSelectedFiring(firings.data)
   const isOwner = studio.myRole === 'owner'
   const liveKilns = kilns.data?.filter((k) => !k.retired) ?? []
   const kilnName = (id: string) => kilns.data?.find((k) => k.id === id)?.name ?? 'Kiln'
   const upcoming = firings.data?.slice(0, UPCOMING_SHOWN) ?? []
+  const waitingLink = (firing: FiringRecord) => {
+    const count = waiting.data?.perFiring.get(firing.id) ?? 0
+    return count > 0 ? (
+      <Link to={`/firings/${firing.id}/requests`} className="text-sm font-semibold text-clay-700 hover:underline" data-testid="waiting-requests">
+        {count} {count === 1 ? 'request' : 'requests'} waiting
+      </Link>
+    ) : null
+  }
 
   return (
     <section aria-labelledby={`studio-${studio.id}`} className="space-y-4" data-testid="studio-panel">
@@ -116,6 +126,9 @@ function StudioPanel({ studio, units }: { studio: MemberStudio; units: UnitSyste
           <Button onClick={() => setPosting(true)} disabled={liveKilns.length === 0}>
             Post a firing
           </Button>
+          <ButtonLink to={`/studios/${studio.id}/requests`} variant="secondary">
+            Requests{waiting.data && waiting.data.total > 0 ? ` (${waiting.data.total} waiting)` : ''}
+          </ButtonLink>
           <ButtonLink to={`/studios/${studio.id}/calendar`} variant="secondary">
             Open calendar
           </ButtonLink>
@@ -170,7 +183,7 @@ function StudioPanel({ studio, units }: { studio: MemberStudio; units: UnitSyste
             </EmptyState>
           ) : (
             <>
-              <FiringRows firings={upcoming} kilnName={kilnName} zone={studio.timezone} units={units} onOpen={dialog.open} />
+              <FiringRows firings={upcoming} kilnName={kilnName} zone={studio.timezone} units={units} onOpen={dialog.open} extra={waitingLink} />
               {firings.data.length > UPCOMING_SHOWN && (
                 <Link to={`/studios/${studio.id}/calendar`} className="text-sm font-medium text-clay-700 hover:underline">
                   {firings.data.length - UPCOMING_SHOWN} more in the calendar

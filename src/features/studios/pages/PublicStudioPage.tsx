@@ -1,10 +1,12 @@
 import { useState } from 'react'
 import { useParams } from 'react-router-dom'
-import { formatMoney } from '../../../../shared/dates'
+import { formatDateTime, formatMoney } from '../../../../shared/dates'
+import { takesRequests } from '../../../../shared/workflow/firing-status'
 import { Basemap } from '../../../components/map/Basemap'
 import { StudioMarker } from '../../../components/map/markers'
 import { Alert } from '../../../components/ui/Alert'
 import { Badge } from '../../../components/ui/Badge'
+import { ButtonLink } from '../../../components/ui/Button'
 import { Card, EmptyState } from '../../../components/ui/Card'
 import { Spinner } from '../../../components/ui/Spinner'
 import { Table, Td, Th } from '../../../components/ui/Table'
@@ -12,12 +14,12 @@ import { useMe } from '../../auth/api/auth'
 import { useStudioFirings } from '../api/firings'
 import { useStudioKilns } from '../api/kilns'
 import { useStudio } from '../api/studios'
-import { isMemberView, type KilnWithPrices, type Studio } from '../api/types'
+import { isMemberView, type FiringRecord, type KilnWithPrices, type Studio } from '../api/types'
 import { ApiProblem } from '../components/ApiProblem'
 import { FiringRows } from '../components/FiringRows'
 import { StudioNav } from '../components/StudioNav'
-import type { UnitSystem } from '../units'
-import { kilnLimitsInWords, policiesInWords } from '../words'
+import type { UnitSystem } from '../../../lib/units'
+import { kilnLimitsInWords, policiesInWords } from '../../../lib/firingWords'
 import { zoneAbbreviation } from '../zonedTime'
 
 /** /studios/:id: what a potter needs to choose this studio: kilns, coming firings, policies, prices, place. */
@@ -41,6 +43,14 @@ function StudioProfile({ studio }: { studio: Studio }) {
   const place = [studio.city, studio.region].filter(Boolean).join(', ')
   const calendarPath = `/api/studios/${studio.id}/calendar.ics`
   const subscribeUrl = `webcal://${window.location.host}${calendarPath}`
+  // Visitors and potters ask for space (visitors sign in first); the studio's own people do not.
+  const mayRequest = !member && (!me.data || me.data.role === 'potter')
+  const requestLink = (firing: FiringRecord) =>
+    mayRequest && takesRequests(firing.status) && new Date(firing.dropOffBy).getTime() > Date.now() ? (
+      <ButtonLink to={`/firings/${firing.id}/request`} size="sm" aria-label={`Request space in the firing on ${formatDateTime(firing.firingDate, zone)}`}>
+        Request space
+      </ButtonLink>
+    ) : null
 
   return (
     <article className="space-y-8">
@@ -80,7 +90,7 @@ function StudioProfile({ studio }: { studio: Studio }) {
           ) : firings.data.length === 0 ? (
             <EmptyState title="No firings posted yet">Subscribe to the calendar to hear when the next one is posted.</EmptyState>
           ) : (
-            <FiringRows firings={firings.data} kilnName={kilnName} zone={zone} units={units} />
+            <FiringRows firings={firings.data} kilnName={kilnName} zone={zone} units={units} extra={requestLink} />
           )}
         </section>
 

@@ -1,6 +1,6 @@
 import { useId, type ReactNode } from 'react'
 
-/** One titled part of the planner form, announced as a region by its heading. */
+/** One titled part of a long form, announced as a region by its heading. */
 export function FormSection({ title, lead, children, actions }: { title: string; lead?: ReactNode; children: ReactNode; actions?: ReactNode }) {
   const id = useId()
   return (

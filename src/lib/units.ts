@@ -1,10 +1,14 @@
-// The studio pages' edges: what hosts and potters read and type (inches or mm, °F or °C, litres or
-// cubic feet, dollars) against the SI values the API keeps. Conversions come from shared/firing/units.ts.
+// The client's edges: what people read and type (inches or mm, °F or °C, cubic feet or litres, money)
+// against the SI values the API and the firing science keep (mm, °C, °C/h, litres, cents).
+// Conversions come from shared/firing/units.ts.
 
-import type { UnitSystem } from '../../../shared/schemas/auth'
-import { cToF, fToC, inToMm, litresToCubicInches, cubicInchesToLitres, mmToIn, rateCToF, rateFToC } from '../../../shared/firing/units'
+import type { UnitSystem } from '../../shared/schemas/auth'
+import { cToF, cubicInchesToLitres, fToC, inToMm, litresToCubicInches, mmToIn, rateCToF, rateFToC } from '../../shared/firing/units'
 
 export type { UnitSystem }
+export type TemperatureScale = 'F' | 'C'
+
+export const scaleOf = (units: UnitSystem): TemperatureScale => (units === 'metric' ? 'C' : 'F')
 
 /** How one kind of number is shown and typed: the stored SI value ↔ the value on screen. */
 export interface Measure {
@@ -18,28 +22,35 @@ export interface Measure {
 const same = (value: number) => value
 const CUBIC_INCHES_PER_CUBIC_FOOT = 12 * 12 * 12
 
-const INCHES: Measure = { suffix: 'in', toShown: mmToIn, fromShown: inToMm, decimals: 2 }
-const MILLIMETRES: Measure = { suffix: 'mm', toShown: same, fromShown: same, decimals: 0 }
-const FAHRENHEIT: Measure = { suffix: '°F', toShown: cToF, fromShown: fToC, decimals: 0 }
-const CELSIUS: Measure = { suffix: '°C', toShown: same, fromShown: same, decimals: 0 }
-const FAHRENHEIT_PER_HOUR: Measure = { suffix: '°F/h', toShown: rateCToF, fromShown: rateFToC, decimals: 0 }
-const CELSIUS_PER_HOUR: Measure = { suffix: '°C/h', toShown: same, fromShown: same, decimals: 0 }
-const LITRES: Measure = { suffix: 'L', toShown: same, fromShown: same, decimals: 1 }
-const CUBIC_FEET: Measure = {
+export const INCHES: Measure = { suffix: 'in', toShown: mmToIn, fromShown: inToMm, decimals: 2 }
+// A tenth of a millimetre keeps an inch figure typed elsewhere (4 in = 101.6 mm) as it was.
+export const MILLIMETRES: Measure = { suffix: 'mm', toShown: same, fromShown: same, decimals: 1 }
+export const FAHRENHEIT: Measure = { suffix: '°F', toShown: cToF, fromShown: fToC, decimals: 0 }
+export const CELSIUS: Measure = { suffix: '°C', toShown: same, fromShown: same, decimals: 0 }
+export const FAHRENHEIT_PER_HOUR: Measure = { suffix: '°F/h', toShown: rateCToF, fromShown: rateFToC, decimals: 0 }
+export const CELSIUS_PER_HOUR: Measure = { suffix: '°C/h', toShown: same, fromShown: same, decimals: 0 }
+export const LITRES: Measure = { suffix: 'L', toShown: same, fromShown: same, decimals: 1 }
+export const CUBIC_FEET: Measure = {
   suffix: 'cu ft',
   toShown: (litres) => litresToCubicInches(litres) / CUBIC_INCHES_PER_CUBIC_FOOT,
   fromShown: (cubicFeet) => cubicInchesToLitres(cubicFeet * CUBIC_INCHES_PER_CUBIC_FOOT),
   decimals: 2,
 }
+export const COUNT: Measure = { suffix: '', toShown: same, fromShown: same, decimals: 0 }
+export const PLAIN_NUMBER: Measure = { suffix: '', toShown: same, fromShown: same, decimals: 2 }
+export const PERCENT: Measure = { suffix: '%', toShown: same, fromShown: same, decimals: 2 }
+/** A rate kept in cents and typed in cents, fractions allowed (4.5 ¢ per cubic inch). */
+export const FRACTIONAL_CENTS: Measure = { suffix: '¢', toShown: same, fromShown: same, decimals: 3 }
 
 export const lengthMeasure = (units: UnitSystem) => (units === 'metric' ? MILLIMETRES : INCHES)
 export const temperatureMeasure = (units: UnitSystem) => (units === 'metric' ? CELSIUS : FAHRENHEIT)
 export const rateMeasure = (units: UnitSystem) => (units === 'metric' ? CELSIUS_PER_HOUR : FAHRENHEIT_PER_HOUR)
 export const capacityMeasure = (units: UnitSystem) => (units === 'metric' ? LITRES : CUBIC_FEET)
-export const PLAIN_NUMBER: Measure = { suffix: '', toShown: same, fromShown: same, decimals: 2 }
-export const PERCENT: Measure = { suffix: '%', toShown: same, fromShown: same, decimals: 2 }
 
-/** Money is typed in currency units and kept in cents; rates (per cubic inch) keep fractions of a cent. */
+/**
+ * Money is typed in currency units and kept in cents. Whole prices round to the cent; rates (per
+ * cubic inch) keep `decimals` places of the currency unit, so fractions of a cent survive.
+ */
 const moneyMeasures = new Map<string, Measure>()
 export function moneyMeasure(currency: string, decimals = 2): Measure {
   const code = /^[A-Za-z]{3}$/.test(currency.trim()) ? currency.trim().toUpperCase() : ''
@@ -72,12 +83,18 @@ export function formatLength(mm: number, units: UnitSystem): string {
   return units === 'metric' ? `${Math.round(mm)} mm` : `${trimmed(mmToIn(mm), 1)} in`
 }
 
-export function formatTemperature(celsius: number, units: UnitSystem): string {
-  return units === 'metric' ? `${Math.round(celsius)} °C` : `${Math.round(cToF(celsius))} °F`
+export function formatTemperature(celsius: number, scale: TemperatureScale): string {
+  return scale === 'C' ? `${Math.round(celsius)} °C` : `${Math.round(cToF(celsius))} °F`
 }
 
-export function formatRate(celsiusPerHour: number, units: UnitSystem): string {
-  return units === 'metric' ? `${Math.round(celsiusPerHour)} °C per hour` : `${Math.round(rateCToF(celsiusPerHour))} °F per hour`
+export function formatRate(celsiusPerHour: number, scale: TemperatureScale): string {
+  return scale === 'C' ? `${Math.round(celsiusPerHour)} °C/h` : `${Math.round(rateCToF(celsiusPerHour))} °F/h`
+}
+
+/** Litres for metric readers, cubic feet for imperial ones. */
+export function formatVolume(litres: number, units: UnitSystem): string {
+  if (units === 'metric') return `${trimmed(litres, 1)} L`
+  return `${trimmed(litresToCubicInches(litres) / CUBIC_INCHES_PER_CUBIC_FOOT, 2)} cu ft`
 }
 
 export function formatLitres(litres: number): string {
@@ -90,9 +107,17 @@ export function formatSpace(litres: number, units: UnitSystem): string {
   return `${formatLitres(litres)} (${trimmed(CUBIC_FEET.toShown(litres), 2)} cu ft)`
 }
 
+export function formatDuration(minutes: number): string {
+  const whole = Math.round(minutes)
+  const hours = Math.floor(whole / 60)
+  const rest = whole % 60
+  if (hours === 0) return `${rest} min`
+  return rest === 0 ? `${hours} h` : `${hours} h ${rest} min`
+}
+
 /**
  * The shared schemas speak SI ("more than 0 mm", "at least 100 °C"); on an imperial form the same
- * message is shown in the units the host typed.
+ * message is shown in the units the person typed.
  */
 export function localiseMessage(message: string, units: UnitSystem): string {
   if (units === 'metric') return message

@@ -1,6 +1,7 @@
-import type { Quote } from '../../../../shared/firing/quote'
-import { formatMoney } from '../units'
+import { formatMoney } from '../../../shared/dates'
+import type { Quote } from '../../../shared/firing/quote'
 
+/** A quote's lines, its total and the deposit that books the space. */
 export function QuoteSummary({ quote }: { quote: Quote }) {
   const money = (cents: number) => formatMoney(cents, quote.currency)
   return (

@@ -1,15 +1,17 @@
 import { useEffect, useRef, useState, type ReactNode } from 'react'
 import { useController, type Control, type FieldValues, type Path } from 'react-hook-form'
-import { Field, TextInput } from '../../../components/ui/Field'
-import { localiseMessage, parseShown, shownText, type Measure, type UnitSystem } from '../units'
+import { localiseMessage, parseShown, shownText, type Measure, type UnitSystem } from '../../lib/units'
+import { Field, TextInput } from './Field'
 
 interface MeasureFieldProps<T extends FieldValues> {
   control: Control<T>
   name: Path<T>
   label: string
   measure: Measure
-  /** The schemas' messages speak SI; they are shown in these units. */
+  /** The schemas' messages speak SI; the form's own errors are shown in these units. */
   units: UnitSystem
+  /** A message worked out elsewhere (a form that checks itself on every change); it wins over the form's own error. */
+  error?: string
   hint?: ReactNode
   className?: string
   disabled?: boolean
@@ -22,9 +24,9 @@ const sameNumber = (a: unknown, b: unknown) => a === b || (typeof a === 'number'
 /**
  * A number typed in the units on screen and kept in the form in SI (or cents). The field keeps its
  * own text while it is typed ("12." stays "12.") and is rewritten only when the value or the units
- * change from elsewhere (a reset, the unit switch).
+ * change from elsewhere (a reset, a demo kiln, the unit switch).
  */
-export function MeasureField<T extends FieldValues>({ control, name, label, measure, units, hint, className, disabled, empty }: MeasureFieldProps<T>) {
+export function MeasureField<T extends FieldValues>({ control, name, label, measure, units, error, hint, className, disabled, empty }: MeasureFieldProps<T>) {
   const { field, fieldState } = useController({ control, name })
   const value = field.value as unknown
   const [text, setText] = useState(() => shownText(value as number | undefined, measure))
@@ -38,9 +40,10 @@ export function MeasureField<T extends FieldValues>({ control, name, label, meas
     }
   }, [value, measure])
 
-  const error = fieldState.error?.message
+  const own = fieldState.error?.message
+  const message = error ?? (own ? localiseMessage(own, units) : undefined)
   return (
-    <Field label={measure.suffix ? `${label} (${measure.suffix})` : label} hint={hint} error={error ? localiseMessage(error, units) : undefined} className={className}>
+    <Field label={measure.suffix ? `${label} (${measure.suffix})` : label} hint={hint} error={message} className={className}>
       {(a11y) => (
         <TextInput
           {...a11y}

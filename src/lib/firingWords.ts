@@ -1,8 +1,7 @@
-// Kilns, firings and policies in plain words, as a potter reads them on a studio's page.
-import type { Atmosphere, KilnInterior, KilnKind } from '../../../shared/firing/check'
-import { formatCone } from '../../../shared/firing/cones'
-import type { StudioPolicies } from '../../../shared/schemas/studios'
-import type { FiringRecord, KilnRecord } from './api/types'
+// Kilns, firings and policies in plain words, as potters and hosts read them.
+import type { Atmosphere, FiringKind, Kiln, KilnInterior, KilnKind } from '../../shared/firing/check'
+import { formatCone } from '../../shared/firing/cones'
+import type { StudioPolicies } from '../../shared/schemas/studios'
 import { formatLength, type UnitSystem } from './units'
 
 export const KILN_KINDS: readonly { value: KilnKind; label: string }[] = [
@@ -20,14 +19,14 @@ export const ATMOSPHERES: readonly { value: Atmosphere; label: string }[] = [
   { value: 'neutral', label: 'Neutral' },
 ]
 
-export const FIRING_KINDS: readonly { value: FiringRecord['kind']; label: string }[] = [
+export const FIRING_KINDS: readonly { value: FiringKind; label: string }[] = [
   { value: 'bisque', label: 'Bisque' },
   { value: 'glaze', label: 'Glaze' },
   { value: 'single', label: 'Single firing' },
 ]
 
 const kindLabel = (kind: KilnKind) => KILN_KINDS.find((k) => k.value === kind)?.label ?? kind
-export const firingKindLabel = (kind: FiringRecord['kind']) => FIRING_KINDS.find((k) => k.value === kind)?.label ?? kind
+export const firingKindLabel = (kind: FiringKind) => FIRING_KINDS.find((k) => k.value === kind)?.label ?? kind
 
 /** "a, b and c" */
 export function listInWords(items: readonly string[], last = 'and'): string {
@@ -42,7 +41,7 @@ export function interiorInWords(interior: KilnInterior, units: UnitSystem): stri
 }
 
 /** "Electric, oxidation, cone 022 to 10, 28 in across × 27 in tall, usable 25.4 in" */
-export function kilnLimitsInWords(kiln: KilnRecord, units: UnitSystem): string {
+export function kilnLimitsInWords(kiln: Pick<Kiln, 'kind' | 'atmospheres' | 'minCone' | 'maxCone' | 'interior'> & { effectiveUsableHeightMm: number }, units: UnitSystem): string {
   return [
     kindLabel(kiln.kind),
     listInWords(kiln.atmospheres, 'or'),
@@ -53,7 +52,7 @@ export function kilnLimitsInWords(kiln: KilnRecord, units: UnitSystem): string {
 }
 
 /** "Glaze, cone 6 oxidation" (with slow cooling when asked). */
-export function firingInWords(firing: Pick<FiringRecord, 'kind' | 'cone' | 'atmosphere' | 'slowCool'>): string {
+export function firingInWords(firing: { kind: FiringKind; cone: string; atmosphere: Atmosphere; slowCool?: boolean }): string {
   return `${firingKindLabel(firing.kind)}, ${formatCone(firing.cone)} ${firing.atmosphere}${firing.slowCool ? ', slow cooled' : ''}`
 }
 

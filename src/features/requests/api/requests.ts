@@ -1,0 +1,109 @@
+import { useMutation, useQuery, useQueryClient, type Query } from '@tanstack/react-query'
+import type { Piece } from '../../../../shared/firing/check'
+import { api } from '../../../lib/api'
+import { requestKeys } from './keys'
+import type { RequestFilter, RequestMessage, RequestRow, RequestView } from './types'
+
+function listPath(filter: RequestFilter): string {
+  const query = new URLSearchParams()
+  for (const [key, value] of Object.entries(filter)) if (value) query.set(key, value)
+  const qs = query.toString()
+  return `/api/requests${qs ? `?${qs}` : ''}`
+}
+
+export function useRequests(filter: RequestFilter, { enabled = true }: { enabled?: boolean } = {}) {
+  return useQuery({
+    queryKey: requestKeys.list(filter),
+    queryFn: () => api<{ requests: RequestRow[] }>(listPath(filter)).then((r) => r.requests),
+    enabled,
+  })
+}
+
+/** Milliseconds until the next refetch, or false; decided from the request on hand. */
+export type RequestPolling = (view: RequestView | undefined) => number | false
+
+export function useRequest(id: string | undefined, polling?: RequestPolling) {
+  return useQuery({
+    queryKey: requestKeys.detail(id ?? ''),
+    queryFn: () => api<RequestView>(`/api/requests/${id}`),
+    enabled: Boolean(id),
+    refetchInterval: polling ? (query: Query<RequestView>) => polling(query.state.data) : undefined,
+  })
+}
+
+/** Every change answers with the request as it now stands: it replaces the cached one and lists refresh. */
+function useRequestChange<TVariables>(request: (variables: TVariables) => Promise<RequestView>) {
+  const queryClient = useQueryClient()
+  return useMutation({
+    mutationFn: request,
+    onSuccess: (view) => {
+      queryClient.setQueryData(requestKeys.detail(view.id), view)
+      return queryClient.invalidateQueries({ queryKey: requestKeys.lists() })
+    },
+  })
+}
+
+export interface DraftBody {
+  pieces: Piece[]
+  notes: string
+}
+
+/** Creates the draft the first time, then saves over it. */
+export function useSaveDraft(firingId: string) {
+  return useRequestChange(({ id, body }: { id: string | null; body: DraftBody }) =>
+    id ? api<RequestView>(`/api/requests/${id}`, { method: 'PATCH', body }) : api<RequestView>(`/api/firings/${firingId}/requests`, { method: 'POST', body }),
+  )
+}
+
+export function useSendRequest() {
+  return useRequestChange(({ id, acknowledged, policiesVersion }: { id: string; acknowledged: string[]; policiesVersion: number }) =>
+    api<RequestView>(`/api/requests/${id}/send`, { method: 'POST', body: { acknowledged, agreePolicies: true, policiesVersion } }),
+  )
+}
+
+export function useAcceptRequest() {
+  return useRequestChange((id: string) => api<RequestView>(`/api/requests/${id}/accept`, { method: 'POST' }))
+}
+
+/** Declines a sent request; on an accepted or paid one it cancels it, refunding the potter in full. */
+export function useDeclineRequest() {
+  return useRequestChange(({ id, reason }: { id: string; reason: string }) => api<RequestView>(`/api/requests/${id}/decline`, { method: 'POST', body: { reason } }))
+}
+
+export function useProposeMove() {
+  return useRequestChange(({ id, firingId }: { id: string; firingId: string }) => api<RequestView>(`/api/requests/${id}/move`, { method: 'POST', body: { firingId } }))
+}
+
+export function useAnswerMove() {
+  return useRequestChange(({ id, accept }: { id: string; accept: boolean }) => api<RequestView>(`/api/requests/${id}/move/${accept ? 'accept' : 'refuse'}`, { method: 'POST' }))
+}
+
+export function useWithdrawRequest() {
+  return useRequestChange(({ id, reason }: { id: string; reason?: string }) => api<RequestView>(`/api/requests/${id}/withdraw`, { method: 'POST', body: reason ? { reason } : {} }))
+}
+
+/** Opens (or reuses) the hosted checkout for the deposit; the page then leaves for it. */
+export function useOpenDepositCheckout() {
+  return useMutation({
+    mutationFn: (id: string) => api<{ checkoutUrl: string; expiresAt: string }>(`/api/requests/${id}/deposit`, { method: 'POST' }),
+  })
+}
+
+/** How often an open thread asks for new messages. */
+export const THREAD_REFRESH_MS = 10_000
+
+export function useMessages(id: string) {
+  return useQuery({
+    queryKey: requestKeys.messages(id),
+    queryFn: () => api<{ messages: RequestMessage[] }>(`/api/requests/${id}/messages`).then((r) => r.messages),
+    refetchInterval: THREAD_REFRESH_MS,
+  })
+}
+
+export function usePostMessage(id: string) {
+  const queryClient = useQueryClient()
+  return useMutation({
+    mutationFn: (body: string) => api(`/api/requests/${id}/messages`, { method: 'POST', body: { body } }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: requestKeys.messages(id) }),
+  })
+}

@@ -1,0 +1,164 @@
+// The shapes the requests API answers with (server/services/request-views.ts), and the firing,
+// kiln and studio records the compose page reads (server/services/firings.ts, kilns.ts, studios.ts).
+import type { Finding, Kiln, Piece, Verdict } from '../../../../shared/firing/check'
+import type { PriceList, Quote } from '../../../../shared/firing/quote'
+import type { StudioPolicies } from '../../../../shared/schemas/studios'
+import type { FiringStatus } from '../../../../shared/workflow/firing-status'
+import type { RequestState } from '../../../../shared/workflow/request-states'
+
+export interface FiringRecord {
+  id: string
+  kilnId: string
+  studioId: string
+  kind: 'bisque' | 'glaze' | 'single'
+  cone: string
+  atmosphere: 'oxidation' | 'reduction' | 'neutral'
+  slowCool: boolean
+  dropOffBy: string
+  firingDate: string
+  readyBy: string
+  capacityL: number
+  heldL: number
+  spaceLeftL: number
+  status: FiringStatus
+  notes: string
+}
+
+export interface KilnRecord extends Kiln {
+  id: string
+  studioId: string
+  name: string
+  notes: string
+  retired: boolean
+  effectiveUsableHeightMm: number
+  volumeL: number
+}
+
+export interface PriceListAnswer {
+  priceList: PriceList
+}
+
+/** The studio as a potter sees it before sending (the public side). */
+export interface StudioRecord {
+  id: string
+  name: string
+  city: string
+  region: string
+  timezone: string
+  currency: string
+  dropOffHours: string
+  policies: StudioPolicies
+  policiesVersion: number
+  published: boolean
+}
+
+export type RequestAction = 'message' | 'edit' | 'send' | 'withdraw' | 'pay-deposit' | 'answer-move' | 'accept' | 'decline' | 'move' | 'cancel'
+
+export interface PotterRecord {
+  requests: number
+  collected: number
+  noShows: number
+  rating: { mean: number; count: number } | null
+}
+
+export interface TimelineEntry {
+  at: string
+  from: RequestState | null
+  to: RequestState
+  by: string
+  reason: string
+}
+
+export interface LedgerEntry {
+  at: string
+  direction: 'in' | 'out'
+  kind: string
+  amountCents: number
+  currency: string
+  stripeSessionId: string | null
+  stripePaymentIntentId: string | null
+  stripeRefundId: string | null
+  note: string
+}
+
+export interface PaymentRecord {
+  purpose: 'deposit' | 'balance'
+  status: 'open' | 'paid' | 'expired' | 'failed'
+  amountCents: number
+  currency: string
+  checkoutUrl: string | null
+  failureMessage: string | null
+  expiresAt: string
+}
+
+export interface RequestView {
+  id: string
+  state: RequestState
+  nextStates: RequestState[]
+  actions: RequestAction[]
+  viewer: 'potter' | 'studio' | 'admin'
+  pieces: Piece[]
+  notes: string
+  volumeL: number
+  verdict: Verdict
+  findings: Finding[]
+  acknowledgedWarnings: string[]
+  quote: Quote | null
+  policiesVersion: number | null
+  depositDueAt: string | null
+  sentAt: string | null
+  createdAt: string
+  firing: FiringRecord
+  proposedFiring: FiringRecord | null
+  kiln: KilnRecord
+  studio: {
+    id: string
+    name: string
+    city: string
+    region: string
+    timezone: string
+    dropOffHours: string
+    policies: StudioPolicies
+    policiesVersion: number
+    address: string | null
+  }
+  potter: { id: string; displayName: string; email?: string; record?: PotterRecord }
+  timeline: TimelineEntry[]
+  ledger: LedgerEntry[]
+  paid: { inCents: number; refundedCents: number; depositCents: number }
+  payments: PaymentRecord[]
+}
+
+/** One line of a request list. */
+export interface RequestRow {
+  id: string
+  state: RequestState
+  verdict: Verdict
+  /** How many findings the server's check made. */
+  findings: number
+  volumeL: number
+  pieceCount: number
+  quote: { totalCents: number; depositCents: number; currency: string } | null
+  depositDueAt: string | null
+  proposedFiringId: string | null
+  updatedAt: string
+  potterName: string
+  firing: { id: string; firingDate: string; dropOffBy: string; cone: string; atmosphere: FiringRecord['atmosphere']; kind: FiringRecord['kind']; kilnName: string }
+  studio: { id: string; name: string; timezone: string }
+}
+
+export interface RequestMessage {
+  id: string
+  side: 'potter' | 'studio'
+  author: string
+  body: string
+  at: string
+  mine: boolean
+}
+
+export interface RequestFilter {
+  as?: 'potter' | 'studio'
+  studioId?: string
+  firingId?: string
+  state?: RequestState
+}

@@ -1,0 +1,153 @@
+import { useState } from 'react'
+import { formatDate, formatDateTime, formatMoney } from '../../../../shared/dates'
+import { requestWithdrawSchema } from '../../../../shared/schemas/requests'
+import { Alert } from '../../../components/ui/Alert'
+import { Button, ButtonLink } from '../../../components/ui/Button'
+import { Dialog } from '../../../components/ui/Dialog'
+import { Field, TextArea } from '../../../components/ui/Field'
+import { ApiError } from '../../../lib/api'
+import { firingInWords } from '../../../lib/firingWords'
+import { formatSpace, type UnitSystem } from '../../../lib/units'
+import { useAnswerMove, useOpenDepositCheckout, useWithdrawRequest } from '../api/requests'
+import type { RequestView } from '../api/types'
+import { refundIfWithdrawn } from '../requestWords'
+import { SendDialog } from './SendDialog'
+
+const problemOf = (error: unknown) => (error instanceof ApiError ? error.message : 'Something went wrong. Please try again.')
+
+/** The deposit still owed: the quote's deposit less what has come in for it. */
+export const depositOwedCents = (view: RequestView) => Math.max(0, (view.quote?.depositCents ?? 0) - view.paid.depositCents)
+
+/** Opens the hosted payment page for the deposit and leaves for it. */
+export function PayDepositButton({ view, label }: { view: RequestView; label?: string }) {
+  const checkout = useOpenDepositCheckout()
+  const currency = view.quote?.currency ?? 'USD'
+  return (
+    <div className="space-y-2">
+      <Button
+        busy={checkout.isPending || checkout.isSuccess}
+        onClick={() => checkout.mutate(view.id, { onSuccess: ({ checkoutUrl }) => window.location.assign(checkoutUrl) })}
+      >
+        {label ?? `Pay the deposit · ${formatMoney(depositOwedCents(view), currency)}`}
+      </Button>
+      {checkout.isError && <p className="text-sm font-medium text-danger-700" role="alert">{problemOf(checkout.error)}</p>}
+    </div>
+  )
+}
+
+/** What the potter can do with their request now (the server lists the actions; it still checks each). */
+export function PotterActions({ view, units }: { view: RequestView; units: UnitSystem }) {
+  const [sending, setSending] = useState(false)
+  const [withdrawing, setWithdrawing] = useState(false)
+  const answer = useAnswerMove()
+  const can = (action: RequestView['actions'][number]) => view.actions.includes(action)
+  const zone = view.studio.timezone
+
+  return (
+    <div className="space-y-4">
+      {can('answer-move') && view.proposedFiring && (
+        <div className="rounded-control border border-ember-300 bg-ember-100/40 p-4" data-testid="proposed-move">
+          <h3 className="font-semibold">{view.studio.name} suggests another firing</h3>
+          <p className="mt-1 text-sm text-slip-800">{firingInWords(view.proposedFiring)}</p>
+          <p className="text-sm text-slip-700">
+            Drop off by {formatDateTime(view.proposedFiring.dropOffBy, zone)}; fired {formatDateTime(view.proposedFiring.firingDate, zone)}.
+          </p>
+          <p className="text-xs text-slip-600">{formatSpace(view.proposedFiring.spaceLeftL, units)} left in it.</p>
+          <div className="mt-3 flex flex-wrap gap-2">
+            <Button busy={answer.isPending && answer.variables?.accept === true} onClick={() => answer.mutate({ id: view.id, accept: true })}>
+              Move my ware there
+            </Button>
+            <Button variant="secondary" busy={answer.isPending && answer.variables?.accept === false} onClick={() => answer.mutate({ id: view.id, accept: false })}>
+              Keep the first firing
+            </Button>
+          </div>
+          {answer.isError && <p className="mt-2 text-sm font-medium text-danger-700" role="alert">{problemOf(answer.error)}</p>}
+          <p className="mt-2 text-xs text-slip-600">Moving means the studio has accepted your ware in that firing; you then pay the deposit.</p>
+        </div>
+      )}
+
+      {can('pay-deposit') && (
+        <div className="space-y-1">
+          <PayDepositButton view={view} />
+          {view.depositDueAt && <p className="text-xs text-slip-600">Pay by {formatDateTime(view.depositDueAt, zone)} or the space is released.</p>}
+        </div>
+      )}
+
+      <div className="flex flex-wrap gap-2">
+        {can('edit') && (
+          <ButtonLink variant={can('send') ? 'secondary' : 'primary'} to={`/firings/${view.firing.id}/request?draft=${view.id}`}>
+            Edit the pieces
+          </ButtonLink>
+        )}
+        {can('send') && <Button onClick={() => setSending(true)} disabled={view.verdict === 'block'}>Send…</Button>}
+        {can('withdraw') && (
+          <Button variant="ghost" onClick={() => setWithdrawing(true)}>
+            Withdraw…
+          </Button>
+        )}
+      </div>
+      {can('send') && view.verdict === 'block' && <p className="text-sm text-slip-600">The check blocks this ware: edit the pieces before sending.</p>}
+
+      <SendDialog requestId={sending ? view.id : null} onClose={() => setSending(false)} onSent={() => setSending(false)} />
+      <WithdrawDialog view={view} open={withdrawing} onClose={() => setWithdrawing(false)} />
+    </div>
+  )
+}
+
+function WithdrawDialog({ view, open, onClose }: { view: RequestView; open: boolean; onClose: () => void }) {
+  const withdraw = useWithdrawRequest()
+  const [reason, setReason] = useState('')
+  const paidCents = view.paid.inCents - view.paid.refundedCents
+  const terms = view.studio.policies.cancellation
+  const preview = refundIfWithdrawn(paidCents, view.firing.firingDate, terms)
+  const currency = view.quote?.currency ?? view.ledger[0]?.currency ?? 'USD'
+  const money = (cents: number) => formatMoney(cents, currency)
+  const parsed = requestWithdrawSchema.safeParse({ reason })
+
+  return (
+    <Dialog
+      open={open}
+      onClose={onClose}
+      title="Withdraw this request?"
+      description="The studio is told, and any space held for you is released."
+      footer={
+        <>
+          <Button variant="ghost" onClick={onClose}>
+            Keep the request
+          </Button>
+          <Button
+            variant="danger"
+            busy={withdraw.isPending}
+            disabled={!parsed.success}
+            onClick={() => withdraw.mutate({ id: view.id, reason: reason.trim() || undefined }, { onSuccess: onClose })}
+          >
+            Withdraw
+          </Button>
+        </>
+      }
+    >
+      <div className="space-y-4">
+        <div className="rounded-control border border-slip-200 bg-slip-50 p-3 text-sm" data-testid="withdraw-refund">
+          {paidCents <= 0 ? (
+            <p>Nothing has been paid, so there is nothing to refund.</p>
+          ) : (
+            <>
+              <p className="font-semibold">
+                You get {money(preview.refundCents)} back of the {money(paidCents)} paid.
+              </p>
+              <p className="mt-1 text-slip-700">
+                {preview.full
+                  ? `Full refunds run until ${formatDate(preview.fullUntil, view.studio.timezone)}, ${terms.fullRefundDaysBefore} ${terms.fullRefundDaysBefore === 1 ? 'day' : 'days'} before the firing.`
+                  : `Full refunds ended ${formatDate(preview.fullUntil, view.studio.timezone)}; after that the studio’s terms give ${terms.laterRefundPercent} % back.`}
+              </p>
+            </>
+          )}
+        </div>
+        <Field label="Why (optional)" hint="The studio sees this." error={parsed.success ? undefined : parsed.error.issues[0]?.message}>
+          {(a11y) => <TextArea {...a11y} rows={3} value={reason} onChange={(event) => setReason(event.target.value)} />}
+        </Field>
+        {withdraw.isError && <Alert tone="danger">{problemOf(withdraw.error)}</Alert>}
+      </div>
+    </Dialog>
+  )
+}

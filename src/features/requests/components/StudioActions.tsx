@@ -1,0 +1,178 @@
+import { useState } from 'react'
+import { formatDateTime, formatMoney } from '../../../../shared/dates'
+import { requestDeclineSchema } from '../../../../shared/schemas/requests'
+import { takesRequests } from '../../../../shared/workflow/firing-status'
+import { Alert } from '../../../components/ui/Alert'
+import { Button } from '../../../components/ui/Button'
+import { Dialog } from '../../../components/ui/Dialog'
+import { Field, Select, TextArea } from '../../../components/ui/Field'
+import { Spinner } from '../../../components/ui/Spinner'
+import { ApiError } from '../../../lib/api'
+import { firingInWords } from '../../../lib/firingWords'
+import { formatSpace, type UnitSystem } from '../../../lib/units'
+import { useStudioFirings } from '../api/firings'
+import { useAcceptRequest, useDeclineRequest, useProposeMove } from '../api/requests'
+import type { RequestView } from '../api/types'
+
+const problemOf = (error: unknown) => (error instanceof ApiError ? error.message : 'Something went wrong. Please try again.')
+
+/** Accepting holds the space; the server refuses it when the firing has filled up meanwhile. */
+export function AcceptButton({ requestId, size = 'md' }: { requestId: string; size?: 'sm' | 'md' }) {
+  const accept = useAcceptRequest()
+  return (
+    <span className="inline-flex flex-col gap-1">
+      <Button size={size} busy={accept.isPending} onClick={() => accept.mutate(requestId)}>
+        Accept
+      </Button>
+      {accept.isError && <span className="text-xs font-medium text-danger-700" role="alert">{problemOf(accept.error)}</span>}
+    </span>
+  )
+}
+
+interface ReasonDialogProps {
+  requestId: string
+  open: boolean
+  onClose: () => void
+  /** Declining a sent request, or cancelling one the studio already took. */
+  mode: 'decline' | 'cancel'
+  refundText?: string
+}
+
+/** Decline (or, after accepting, cancel) with a reason the potter reads. */
+export function ReasonDialog({ requestId, open, onClose, mode, refundText }: ReasonDialogProps) {
+  const decline = useDeclineRequest()
+  const [reason, setReason] = useState('')
+  const [touched, setTouched] = useState(false)
+  const parsed = requestDeclineSchema.safeParse({ reason })
+  const cancelling = mode === 'cancel'
+  return (
+    <Dialog
+      open={open}
+      onClose={onClose}
+      title={cancelling ? 'Cancel this request?' : 'Decline this request?'}
+      description={cancelling ? 'The space is released and the potter is told why.' : 'The potter is told why and can look for another firing.'}
+      footer={
+        <>
+          <Button variant="ghost" onClick={onClose}>
+            Go back
+          </Button>
+          <Button
+            variant="danger"
+            busy={decline.isPending}
+            onClick={() => {
+              setTouched(true)
+              if (parsed.success) decline.mutate({ id: requestId, reason: parsed.data.reason }, { onSuccess: onClose })
+            }}
+          >
+            {cancelling ? 'Cancel the request' : 'Decline'}
+          </Button>
+        </>
+      }
+    >
+      <div className="space-y-4">
+        {cancelling && (
+          <Alert tone="warning" title="The potter is refunded in full">
+            {refundText ?? 'Everything they paid goes back to their card.'}
+          </Alert>
+        )}
+        <Field label="Reason" hint="A sentence is enough: what would have to change, or what you can offer instead." error={touched && !parsed.success ? parsed.error.issues[0]?.message : undefined}>
+          {(a11y) => <TextArea {...a11y} rows={3} value={reason} onChange={(event) => setReason(event.target.value)} onBlur={() => setTouched(true)} />}
+        </Field>
+        {decline.isError && <Alert tone="danger">{problemOf(decline.error)}</Alert>}
+      </div>
+    </Dialog>
+  )
+}
+
+/** Suggest another of the studio's open firings; the potter accepts or refuses the move. */
+export function MoveDialog({ view, open, onClose, units }: { view: RequestView; open: boolean; onClose: () => void; units: UnitSystem }) {
+  const firings = useStudioFirings(view.studio.id, { enabled: open })
+  const move = useProposeMove()
+  const [firingId, setFiringId] = useState('')
+  const zone = view.studio.timezone
+  const now = Date.now()
+  const choices = (firings.data ?? []).filter((f) => f.id !== view.firing.id && takesRequests(f.status) && new Date(f.dropOffBy).getTime() > now)
+  return (
+    <Dialog
+      open={open}
+      onClose={onClose}
+      title="Suggest another firing"
+      description="The potter chooses whether to move; until then the request stays as it is."
+      footer={
+        <>
+          <Button variant="ghost" onClick={onClose}>
+            Go back
+          </Button>
+          <Button busy={move.isPending} disabled={!firingId} onClick={() => move.mutate({ id: view.id, firingId }, { onSuccess: onClose })}>
+            Suggest it
+          </Button>
+        </>
+      }
+    >
+      {firings.isPending ? (
+        <Spinner label="Loading your firings…" />
+      ) : firings.isError ? (
+        <Alert tone="danger">{problemOf(firings.error)}</Alert>
+      ) : choices.length === 0 ? (
+        <p className="text-sm text-slip-600">No other firing of this studio is taking ware. Post one in the calendar first, or decline with a reason.</p>
+      ) : (
+        <div className="space-y-3">
+          <Field label="Firing" hint={`Times in ${zone.replace(/_/g, ' ')}. The ware needs ${formatSpace(view.volumeL, units)}.`}>
+            {(a11y) => (
+              <Select {...a11y} value={firingId} onChange={(event) => setFiringId(event.target.value)}>
+                <option value="">Choose a firing</option>
+                {choices.map((f) => (
+                  <option key={f.id} value={f.id} disabled={f.spaceLeftL < view.volumeL}>
+                    {formatDateTime(f.firingDate, zone)} · {firingInWords(f)} · {formatSpace(f.spaceLeftL, units)} left
+                  </option>
+                ))}
+              </Select>
+            )}
+          </Field>
+          {move.isError && <Alert tone="danger">{problemOf(move.error)}</Alert>}
+        </div>
+      )}
+    </Dialog>
+  )
+}
+
+/** What the studio can do with a request now (the server lists the actions; it still checks each). */
+export function StudioActions({ view, units }: { view: RequestView; units: UnitSystem }) {
+  const [dialog, setDialog] = useState<'decline' | 'cancel' | 'move' | null>(null)
+  const can = (action: RequestView['actions'][number]) => view.actions.includes(action)
+  const paid = view.paid.inCents - view.paid.refundedCents
+  const currency = view.quote?.currency ?? view.ledger[0]?.currency ?? 'USD'
+  if (!can('accept') && !can('decline') && !can('move') && !can('cancel')) return null
+  return (
+    <div className="space-y-3">
+      <div className="flex flex-wrap items-start gap-2">
+        {can('accept') && <AcceptButton requestId={view.id} />}
+        {can('decline') && view.state === 'sent' && (
+          <Button variant="secondary" onClick={() => setDialog('decline')}>
+            Decline…
+          </Button>
+        )}
+        {can('move') && (
+          <Button variant="secondary" onClick={() => setDialog('move')}>
+            Suggest another firing…
+          </Button>
+        )}
+        {can('cancel') && (
+          <Button variant="ghost" onClick={() => setDialog('cancel')}>
+            Cancel the request…
+          </Button>
+        )}
+      </div>
+      {can('accept') && <p className="text-xs text-slip-600">Accepting holds {formatSpace(view.volumeL, units)} and asks the potter for the deposit.</p>}
+      <ReasonDialog requestId={view.id} open={dialog === 'decline'} onClose={() => setDialog(null)} mode="decline" />
+      <ReasonDialog
+        requestId={view.id}
+        open={dialog === 'cancel'}
+        onClose={() => setDialog(null)}
+        mode="cancel"
+        refundText={paid > 0 ? `${formatMoney(paid, currency)} goes back to their card.` : 'Nothing has been paid yet, so nothing is refunded.'}
+      />
+      <MoveDialog view={view} open={dialog === 'move'} onClose={() => setDialog(null)} units={units} />
+    </div>
+  )
+}

@@ -1,0 +1,30 @@
+import { formatDateTime } from '../../../../shared/dates'
+import type { TimelineEntry } from '../api/types'
+import { stateLabel } from '../requestWords'
+
+/** Every change of the request: who, when, from what to what, and why. */
+export function Timeline({ entries, zone }: { entries: TimelineEntry[]; zone: string }) {
+  if (entries.length === 0) return <p className="text-sm text-slip-600">Nothing has happened yet.</p>
+  return (
+    <ol className="relative space-y-4 border-l-2 border-slip-200 pl-5" data-testid="timeline">
+      {entries.map((entry, index) => (
+        <li key={`${entry.at}-${index}`} className="relative">
+          <span className="absolute -left-[1.72rem] top-1 size-3 rounded-full border-2 border-white bg-clay-500" aria-hidden />
+          <p className="text-sm text-slip-900">
+            {entry.from ? (
+              <>
+                {stateLabel(entry.from)} <span aria-label="to">→</span> <strong className="font-semibold">{stateLabel(entry.to)}</strong>
+              </>
+            ) : (
+              <strong className="font-semibold">{stateLabel(entry.to)}</strong>
+            )}
+          </p>
+          <p className="text-xs text-slip-600">
+            {entry.by} · <time dateTime={entry.at}>{formatDateTime(entry.at, zone)}</time>
+          </p>
+          {entry.reason && <p className="mt-0.5 text-sm text-slip-700">“{entry.reason}”</p>}
+        </li>
+      ))}
+    </ol>
+  )
+}

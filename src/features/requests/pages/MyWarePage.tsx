@@ -1,0 +1,89 @@
+import { Link } from 'react-router-dom'
+import { formatDateTime, formatMoney } from '../../../../shared/dates'
+import { ButtonLink } from '../../../components/ui/Button'
+import { EmptyState, PageHeader } from '../../../components/ui/Card'
+import { Spinner } from '../../../components/ui/Spinner'
+import { firingInWords } from '../../../lib/firingWords'
+import { formatSpace, type UnitSystem } from '../../../lib/units'
+import { useMe } from '../../auth/api/auth'
+import { useRequests } from '../api/requests'
+import type { RequestRow } from '../api/types'
+import { RequestProblem } from '../components/RequestProblem'
+import { RequestStateBadge } from '../components/RequestStateBadge'
+import { potterNextStep } from '../requestWords'
+
+/** Drafts first (they wait on the potter), then the rest as the server orders them: latest change first. */
+function inOrder(requests: RequestRow[]): RequestRow[] {
+  return [...requests.filter((r) => r.state === 'draft'), ...requests.filter((r) => r.state !== 'draft')]
+}
+
+/** The potter's home: every request with its state and what happens next. */
+export function MyWarePage() {
+  const me = useMe()
+  const requests = useRequests({ as: 'potter' })
+  const units: UnitSystem = me.data?.unitSystem ?? 'imperial'
+  return (
+    <>
+      <PageHeader
+        title="My ware"
+        lead={`Welcome, ${me.data?.displayName ?? ''}. Your firing requests and what happens next with each.`}
+        actions={requests.data && requests.data.length > 0 ? <ButtonLink to="/find">Find a firing</ButtonLink> : undefined}
+      />
+      {requests.isPending ? (
+        <Spinner label="Loading your requests…" />
+      ) : requests.isError ? (
+        <RequestProblem error={requests.error} what="your requests" onRetry={() => requests.refetch()} />
+      ) : requests.data.length === 0 ? (
+        <EmptyState
+          title="No ware in a firing yet"
+          action={
+            <div className="flex flex-wrap justify-center gap-2">
+              <ButtonLink to="/find">Find a firing near you</ButtonLink>
+              <ButtonLink to="/planner" variant="secondary">
+                Check a piece against a kiln
+              </ButtonLink>
+            </div>
+          }
+        >
+          Find a studio firing at your cone and atmosphere, describe your pieces and request space. Or try the firing planner first to see what a kiln can take.
+        </EmptyState>
+      ) : (
+        <ul className="space-y-3" aria-label="Your requests">
+          {inOrder(requests.data).map((row) => (
+            <RequestCard key={row.id} row={row} units={units} />
+          ))}
+        </ul>
+      )}
+    </>
+  )
+}
+
+function RequestCard({ row, units }: { row: RequestRow; units: UnitSystem }) {
+  const zone = row.studio.timezone
+  const next = potterNextStep({ ...row, dropOffBy: row.firing.dropOffBy, timezone: zone })
+  const needsMe = ['draft', 'accepted'].includes(row.state) || (row.state === 'sent' && row.proposedFiringId !== null)
+  return (
+    <li data-testid="my-request" data-request-id={row.id} data-state={row.state} className={`rounded-card border bg-white p-4 shadow-card ${needsMe ? 'border-clay-300' : 'border-slip-200'}`}>
+      <div className="flex flex-wrap items-start justify-between gap-2">
+        <div className="min-w-0">
+          <h2 className="font-semibold text-slip-900">
+            <Link to={`/requests/${row.id}`} className="hover:underline">
+              {row.studio.name}: {firingInWords(row.firing)}
+            </Link>
+          </h2>
+          <p className="text-sm text-slip-600">
+            {row.firing.kilnName} · fired {formatDateTime(row.firing.firingDate, zone)}
+          </p>
+        </div>
+        <RequestStateBadge state={row.state} />
+      </div>
+      <p className={`mt-2 text-sm ${needsMe ? 'font-semibold text-clay-800' : 'text-slip-700'}`} data-testid="next-step">
+        {next}
+      </p>
+      <p className="mt-1 text-xs text-slip-500">
+        {row.pieceCount} {row.pieceCount === 1 ? 'piece' : 'pieces'} · {formatSpace(row.volumeL, units)}
+        {row.quote && ` · ${formatMoney(row.quote.totalCents, row.quote.currency)} (deposit ${formatMoney(row.quote.depositCents, row.quote.currency)})`}
+      </p>
+    </li>
+  )
+}

@@ -1,0 +1,274 @@
+import { useEffect, useState } from 'react'
+import { Link, useParams, useSearchParams } from 'react-router-dom'
+import { formatMoney } from '../../../../shared/dates'
+import { HOLDING_STATES } from '../../../../shared/workflow/request-states'
+import { Alert } from '../../../components/ui/Alert'
+import { Card } from '../../../components/ui/Card'
+import { Spinner } from '../../../components/ui/Spinner'
+import { FindingsList, VerdictLine } from '../../../components/ware/CheckResults'
+import { QuoteSummary } from '../../../components/ware/QuoteSummary'
+import { firingInWords } from '../../../lib/firingWords'
+import { formatSpace, type UnitSystem } from '../../../lib/units'
+import { useMe } from '../../auth/api/auth'
+import { useRequest, type RequestPolling } from '../api/requests'
+import type { RequestView } from '../api/types'
+import { FiringSummary } from '../components/FiringSummary'
+import { Ledger } from '../components/Ledger'
+import { MessageThread } from '../components/MessageThread'
+import { PiecesTable } from '../components/PiecesTable'
+import { PayDepositButton, PotterActions } from '../components/PotterActions'
+import { PotterRecordLine } from '../components/PotterRecordLine'
+import { RequestProblem } from '../components/RequestProblem'
+import { RequestStateBadge } from '../components/RequestStateBadge'
+import { SpaceGauge } from '../components/SpaceGauge'
+import { StudioActions } from '../components/StudioActions'
+import { Timeline } from '../components/Timeline'
+import { potterNextStep, studioNextStep } from '../requestWords'
+
+/** How long a return from the payment page waits for the payment's confirmation before explaining. */
+const CONFIRM_WINDOW_MS = 30_000
+const CONFIRM_POLL_MS = 1_000
+
+/** /requests/:id: the request as the potter, the studio or an admin sees it, with what each may do next. */
+export function RequestPage() {
+  const { id = '' } = useParams()
+  const [params] = useSearchParams()
+  const me = useMe()
+  const units: UnitSystem = me.data?.unitSystem ?? 'imperial'
+  const returnedPaid = params.get('paid') === 'deposit'
+  const [returnedAt] = useState(() => Date.now())
+  const [waitedOut, setWaitedOut] = useState(false)
+
+  // Back from the hosted page: the payment is confirmed by the provider's webhook a moment later.
+  const polling: RequestPolling = (view) =>
+    returnedPaid && view?.state === 'accepted' && Date.now() - returnedAt < CONFIRM_WINDOW_MS ? CONFIRM_POLL_MS : false
+  const request = useRequest(id, polling)
+
+  useEffect(() => {
+    if (!returnedPaid) return
+    const timer = setTimeout(() => setWaitedOut(true), Math.max(0, returnedAt + CONFIRM_WINDOW_MS - Date.now()))
+    return () => clearTimeout(timer)
+  }, [returnedPaid, returnedAt])
+
+  if (request.isPending) return <Spinner label="Loading the request…" />
+  if (request.isError) return <RequestProblem error={request.error} what="this request" onRetry={() => request.refetch()} />
+  return <RequestDetail view={request.data} units={units} returnedPaid={returnedPaid} waitedOut={waitedOut} returnedUnpaid={params.get('unpaid') === 'deposit'} />
+}
+
+interface DetailProps {
+  view: RequestView
+  units: UnitSystem
+  returnedPaid: boolean
+  returnedUnpaid: boolean
+  waitedOut: boolean
+}
+
+function PaymentNotices({ view, returnedPaid, returnedUnpaid, waitedOut }: Omit<DetailProps, 'units'>) {
+  if (view.viewer === 'studio') return null
+  const awaiting = view.state === 'accepted'
+  const declined = view.payments.find((p) => p.purpose === 'deposit' && p.failureMessage && p.status !== 'paid')
+  return (
+    <div className="space-y-3" aria-live="polite">
+      {returnedPaid && awaiting && !waitedOut && (
+        <Alert tone="info" title="Confirming your payment…">
+          <span className="inline-flex items-center gap-2">
+            <span className="size-4 animate-spin rounded-full border-2 border-clay-500 border-t-transparent" aria-hidden />
+            The payment page sent you back; the card payment is being confirmed. This takes a few seconds.
+          </span>
+        </Alert>
+      )}
+      {returnedPaid && awaiting && waitedOut && (
+        <Alert tone="warning" title="Your payment is not confirmed yet">
+          We have not heard back from the card payment in 30 seconds. If the payment page showed it as paid, it will appear here shortly and you will get a mail; reload this page in a minute. If the payment page showed an error, nothing was charged and you can pay again.
+        </Alert>
+      )}
+      {returnedPaid && view.state === 'deposit_paid' && (
+        <Alert tone="success" title="Deposit paid">
+          Thank you. Your space is held; bring your ware by the drop-off time below.
+        </Alert>
+      )}
+      {returnedUnpaid && awaiting && (
+        <Alert tone="warning" title="The payment was not completed">
+          <p>Nothing was charged. Your space stays held until the deposit deadline.</p>
+          {view.actions.includes('pay-deposit') && (
+            <div className="mt-2">
+              <PayDepositButton view={view} label="Try the payment again" />
+            </div>
+          )}
+        </Alert>
+      )}
+      {awaiting && declined && (
+        <Alert tone="danger" title="Your card was declined">
+          {declined.failureMessage} Try another card; the space stays held until the deposit deadline.
+        </Alert>
+      )}
+    </div>
+  )
+}
+
+function RequestDetail({ view, units, returnedPaid, returnedUnpaid, waitedOut }: DetailProps) {
+  const zone = view.studio.timezone
+  const isStudio = view.viewer !== 'potter'
+  const facts = { state: view.state, depositDueAt: view.depositDueAt, proposedFiringId: view.proposedFiring?.id ?? null, dropOffBy: view.firing.dropOffBy, timezone: zone }
+  const nextStep = view.viewer === 'studio' ? studioNextStep(facts) : potterNextStep(facts)
+  const warnings = view.findings.filter((f) => f.severity === 'warn')
+  const acknowledged = view.acknowledgedWarnings.map((code) => ({ code, message: warnings.find((f) => f.code === code)?.message ?? code }))
+  const decided = !['draft', 'sent'].includes(view.state)
+
+  return (
+    <article className="space-y-6">
+      <header className="space-y-2">
+        <p className="text-sm text-slip-600">
+          {isStudio ? (
+            <Link to={`/studios/${view.studio.id}/requests`} className="font-medium text-clay-700 hover:underline">
+              ← {view.studio.name}’s requests
+            </Link>
+          ) : (
+            <Link to="/my-ware" className="font-medium text-clay-700 hover:underline">
+              ← My ware
+            </Link>
+          )}
+        </p>
+        <div className="flex flex-wrap items-center gap-3">
+          <h1 className="text-2xl font-bold tracking-tight sm:text-3xl">
+            {isStudio ? `${view.potter.displayName}’s ware` : `Your ware at ${view.studio.name}`}
+          </h1>
+          <RequestStateBadge state={view.state} />
+        </div>
+        <p className="text-slip-700" data-testid="next-step">
+          {nextStep}
+        </p>
+      </header>
+
+      <PaymentNotices view={view} returnedPaid={returnedPaid} returnedUnpaid={returnedUnpaid} waitedOut={waitedOut} />
+
+      {/* On a phone what can be done comes first; on a wide screen it heads the side column. */}
+      <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_22rem] lg:grid-rows-[auto_1fr] lg:items-start">
+        <div className="min-w-0 lg:col-start-2 lg:row-start-1">
+          <Card>
+            <h2 className="mb-3 text-lg font-semibold">Next</h2>
+            {view.viewer === 'studio' ? <StudioActions view={view} units={units} /> : <PotterActions view={view} units={units} />}
+            {view.viewer === 'admin' && (
+              <div className="mt-4 border-t border-slip-200 pt-4">
+                <StudioActions view={view} units={units} />
+              </div>
+            )}
+            {!view.actions.some((a) => a !== 'message') && <p className="text-sm text-slip-600">Nothing to do here now.</p>}
+          </Card>
+        </div>
+        <div className="min-w-0 space-y-6 lg:col-start-1 lg:row-span-2 lg:row-start-1">
+          <Card>
+            <h2 className="mb-3 text-lg font-semibold">The firing</h2>
+            <FiringSummary firing={view.firing} kiln={view.kiln} studio={view.studio} units={units} showSpace={!decided} />
+            {!decided && view.state !== 'draft' && (
+              <div className="mt-4">
+                <SpaceGauge needL={view.volumeL} leftL={view.firing.spaceLeftL} units={units} />
+              </div>
+            )}
+            {view.proposedFiring && view.viewer === 'studio' && (
+              <p className="mt-3 text-sm text-ember-700">
+                You suggested moving it to the {firingInWords(view.proposedFiring)}; waiting for the potter.
+              </p>
+            )}
+          </Card>
+
+          <section aria-labelledby="pieces-heading" className="space-y-3">
+            <h2 id="pieces-heading" className="text-lg font-semibold">
+              Pieces <span className="text-sm font-normal text-slip-600">· {formatSpace(view.volumeL, units)} in all</span>
+            </h2>
+            <PiecesTable pieces={view.pieces} units={units} />
+            {view.notes && (
+              <Card as="div">
+                <h3 className="text-sm font-semibold">Notes from the potter</h3>
+                <p className="mt-1 whitespace-pre-line text-sm text-slip-800">{view.notes}</p>
+              </Card>
+            )}
+          </section>
+
+          <Card>
+            <h2 className="mb-3 text-lg font-semibold">The check</h2>
+            <div className="space-y-4">
+              <VerdictLine verdict={view.verdict} testId="request-verdict" />
+              <FindingsList findings={view.findings} pieces={view.pieces} linkToRows={false} />
+              {acknowledged.length > 0 && (
+                <div>
+                  <h3 className="text-sm font-semibold">Warnings the potter acknowledged</h3>
+                  <ul className="mt-1 list-disc space-y-1 pl-5 text-sm text-slip-700" data-testid="acknowledged-warnings">
+                    {acknowledged.map((a) => (
+                      <li key={a.code}>{a.message}</li>
+                    ))}
+                  </ul>
+                </div>
+              )}
+            </div>
+          </Card>
+
+          <Card>
+            <h2 className="mb-3 text-lg font-semibold">Quote</h2>
+            {view.quote ? <QuoteSummary quote={view.quote} /> : <p className="text-sm text-slip-600">The kiln has no price list; the studio quotes in the messages.</p>}
+            {(view.paid.inCents > 0 || view.paid.refundedCents > 0) && view.quote && (
+              <p className="mt-3 text-sm text-slip-700" data-testid="paid-summary">
+                Paid {formatMoney(view.paid.inCents, view.quote.currency)}
+                {view.paid.refundedCents > 0 && `, refunded ${formatMoney(view.paid.refundedCents, view.quote.currency)}`}.
+              </p>
+            )}
+          </Card>
+
+          <section aria-labelledby="ledger-heading" className="space-y-3">
+            <h2 id="ledger-heading" className="text-lg font-semibold">
+              Money in and out
+            </h2>
+            <Ledger entries={view.ledger} zone={zone} />
+          </section>
+
+          <section aria-labelledby="timeline-heading" className="space-y-3">
+            <h2 id="timeline-heading" className="text-lg font-semibold">
+              What has happened
+            </h2>
+            <Timeline entries={view.timeline} zone={zone} />
+          </section>
+        </div>
+
+        <aside className="min-w-0 space-y-6 lg:col-start-2 lg:row-start-2">
+
+          {isStudio && (
+            <Card>
+              <h2 className="mb-2 text-lg font-semibold">The potter</h2>
+              <p className="text-sm">
+                <PotterRecordLine name={view.potter.displayName} record={view.potter.record} />
+              </p>
+              {view.potter.email && (
+                <p className="mt-1 text-sm">
+                  <a href={`mailto:${view.potter.email}`} className="text-clay-700 hover:underline">
+                    {view.potter.email}
+                  </a>
+                </p>
+              )}
+            </Card>
+          )}
+
+          {!isStudio && (
+            <Card>
+              <h2 className="mb-2 text-lg font-semibold">Drop-off</h2>
+              {view.studio.address ? (
+                <address className="whitespace-pre-line text-sm not-italic text-slip-900" data-testid="studio-address">
+                  {view.studio.address}
+                </address>
+              ) : (
+                <p className="text-sm text-slip-600">
+                  {HOLDING_STATES.includes(view.state) ? 'The studio has not given a street address yet; ask in the messages.' : 'The studio’s address is shown here once it accepts your request.'}
+                </p>
+              )}
+              {view.studio.dropOffHours && <p className="mt-2 text-sm text-slip-700">{view.studio.dropOffHours}</p>}
+            </Card>
+          )}
+
+          <Card>
+            <h2 className="mb-3 text-lg font-semibold">Messages</h2>
+            <MessageThread requestId={view.id} zone={zone} otherSide={isStudio ? view.potter.displayName : view.studio.name} canWrite={view.actions.includes('message')} />
+          </Card>
+        </aside>
+      </div>
+    </article>
+  )
+}

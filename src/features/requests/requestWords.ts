@@ -1,0 +1,125 @@
+// Requests in the words each side reads: the state's badge, what happens next, the refund a
+// withdrawal would give, pieces in the reader's units, Stripe ids short enough to read.
+import { formatDateTime } from '../../../shared/dates'
+import type { Piece } from '../../../shared/firing/check'
+import { formatCone } from '../../../shared/firing/cones'
+import { roundHalfUpCents } from '../../../shared/firing/quote'
+import type { StudioPolicies } from '../../../shared/schemas/studios'
+import { REQUEST_STATE_LABELS, type RequestState } from '../../../shared/workflow/request-states'
+import type { BadgeTone } from '../../components/ui/Badge'
+import { formatLength, type UnitSystem } from '../../lib/units'
+import type { RequestRow } from './api/types'
+
+export const STATE_TONES: Record<RequestState, BadgeTone> = {
+  draft: 'neutral',
+  sent: 'clay',
+  accepted: 'ember',
+  declined: 'danger',
+  withdrawn: 'neutral',
+  deposit_paid: 'celadon',
+  received: 'celadon',
+  fired: 'celadon',
+  ready: 'celadon',
+  collected: 'neutral',
+  cancelled: 'danger',
+  disputed: 'danger',
+}
+
+export const stateLabel = (state: RequestState) => REQUEST_STATE_LABELS[state]
+
+type NextStepFacts = Pick<RequestRow, 'state' | 'depositDueAt' | 'proposedFiringId'> & { dropOffBy: string; timezone: string }
+
+/** What the potter does next, or waits for, in a line. */
+export function potterNextStep(r: NextStepFacts): string {
+  const when = (iso: string) => formatDateTime(iso, r.timezone)
+  switch (r.state) {
+    case 'draft':
+      return 'Finish the pieces and send the request'
+    case 'sent':
+      return r.proposedFiringId ? 'Answer the studio’s suggestion' : 'Waiting for the studio'
+    case 'accepted':
+      return r.depositDueAt ? `Pay the deposit by ${when(r.depositDueAt)}` : 'Pay the deposit to hold your space'
+    case 'deposit_paid':
+      return `Bring your ware by ${when(r.dropOffBy)}`
+    case 'received':
+      return 'The studio has your ware; it goes in the kiln next'
+    case 'fired':
+      return 'Fired; waiting for the studio to unload'
+    case 'ready':
+      return 'Ready to collect'
+    case 'collected':
+      return 'Collected'
+    case 'declined':
+      return 'The studio could not take it'
+    case 'withdrawn':
+      return 'You withdrew this request'
+    case 'cancelled':
+      return 'Cancelled'
+    case 'disputed':
+      return 'Being settled with the studio'
+  }
+}
+
+/** What the studio does next with a request, in a line. */
+export function studioNextStep(r: NextStepFacts): string {
+  const when = (iso: string) => formatDateTime(iso, r.timezone)
+  switch (r.state) {
+    case 'sent':
+      return r.proposedFiringId ? 'Waiting for the potter to answer your suggestion' : 'Accept, decline or suggest another firing'
+    case 'accepted':
+      return r.depositDueAt ? `Space held; deposit due by ${when(r.depositDueAt)}` : 'Space held; waiting for the deposit'
+    case 'deposit_paid':
+      return `Paid; ware arrives by ${when(r.dropOffBy)}`
+    default:
+      return potterNextStep(r)
+  }
+}
+
+export interface RefundPreview {
+  refundCents: number
+  /** Whether the full-refund window is still open. */
+  full: boolean
+  /** The last moment of the full-refund window. */
+  fullUntil: Date
+}
+
+/**
+ * The refund a withdrawal gives now under the studio's terms: everything paid until N days before
+ * the firing, P % of it after (rounded half-up to the cent, as the server does).
+ */
+export function refundIfWithdrawn(paidCents: number, firingDate: string, terms: StudioPolicies['cancellation'], now = new Date()): RefundPreview {
+  const fullUntil = new Date(new Date(firingDate).getTime() - terms.fullRefundDaysBefore * 86_400_000)
+  if (now.getTime() <= fullUntil.getTime()) return { refundCents: paidCents, full: true, fullUntil }
+  return { refundCents: Math.min(paidCents, roundHalfUpCents((paidCents * terms.laterRefundPercent) / 100)), full: false, fullUntil }
+}
+
+/** "pi_3Nq…x7Yb": Stripe's prefix and the last characters, enough to find it in the dashboard. */
+export function shortStripeId(id: string): string {
+  const underscore = id.indexOf('_')
+  const prefix = underscore > 0 && underscore < 6 ? id.slice(0, underscore + 1) : ''
+  const rest = id.slice(prefix.length)
+  return rest.length <= 10 ? id : `${prefix}${rest.slice(0, 4)}…${rest.slice(-4)}`
+}
+
+const CLAY_WORDS: Record<Piece['clay']['body'], string> = { earthenware: 'Earthenware', stoneware: 'Stoneware', porcelain: 'Porcelain', other: 'Other clay' }
+
+export function pieceSizeInWords(piece: Piece, units: UnitSystem): string {
+  const tall = `${formatLength(piece.heightMm, units)} tall`
+  if (piece.round) return `${formatLength(piece.widthMm, units)} across × ${tall}`
+  return `${formatLength(piece.widthMm, units)} × ${formatLength(piece.depthMm, units)} × ${tall}`
+}
+
+export function clayInWords(piece: Piece): string {
+  return `${CLAY_WORDS[piece.clay.body]}, ${formatCone(piece.clay.minCone)} to ${piece.clay.maxCone}`
+}
+
+export function glazeInWords(piece: Piece): string {
+  if (!piece.glaze) return 'Unglazed'
+  const notes = [piece.glaze.runny && 'runny', piece.glaze.onFoot && 'glaze on the foot', piece.glaze.onCookie && 'on a cookie or stilt'].filter(Boolean)
+  return `Glaze ${formatCone(piece.glaze.minCone)} to ${piece.glaze.maxCone}${notes.length ? ` (${notes.join(', ')})` : ''}`
+}
+
+export function pieceStateInWords(piece: Piece): string {
+  if (piece.state === 'bisque') return 'Bisque'
+  return piece.boneDry ? 'Greenware, bone dry' : 'Greenware, not bone dry'
+}
