@@ -2,7 +2,6 @@
 // that confirm them. Every movement is booked in the ledger; every event is handled once.
 import type Stripe from 'stripe'
 import { In, type EntityManager } from 'typeorm'
-import { roundHalfUpCents } from '../../shared/firing/quote'
 import type { AppContext } from '../context'
 import { LedgerEntry } from '../entities/LedgerEntry'
 import { Payment } from '../entities/Payment'
@@ -102,13 +101,6 @@ export async function enqueueOpenCheckout(manager: EntityManager, requestId: str
 export async function enqueueRefund(manager: EntityManager, requestId: string, amountCents: number, reason: string) {
   if (amountCents <= 0) return
   await enqueueJob(manager, REFUND_TASK, { requestId, amountCents, reason, key: `${requestId}:${Date.now()}` })
-}
-
-/** The refund share under a studio's terms: full until N days before the firing, P % after. */
-export function refundUnderTerms(paidCents: number, firingDate: Date, terms: { fullRefundDaysBefore: number; laterRefundPercent: number }, now = new Date()): number {
-  const cutoff = firingDate.getTime() - terms.fullRefundDaysBefore * 86_400_000
-  if (now.getTime() <= cutoff) return paidCents
-  return Math.min(paidCents, roundHalfUpCents((paidCents * terms.laterRefundPercent) / 100))
 }
 
 /** Makes a queued refund: splits it over the request's paid payments, newest first. */

@@ -19,7 +19,8 @@ import type { User } from '../entities/User'
 import { conflict, forbidden, HttpError } from '../http/errors'
 import { dropOffMail, firingProgressMail, noShowMail, pickupMail, readyMail, refusedMail } from '../mail/templates/pickup'
 import { queueMail } from './mail'
-import { enqueueRefund, moneyOf, openCheckout, refundUnderTerms } from './payments'
+import { enqueueRefund, moneyOf, openCheckout } from './payments'
+import { refundUnderTerms } from '../../shared/refunds'
 import { factsOf, loadRequest, moveRequest, viewerOf, type RequestContext } from './request-context'
 import { checkAgainstFiring } from './requests'
 import type { Payment } from '../entities/Payment'
@@ -68,7 +69,7 @@ export async function checkIn(
     const facts = factsOf(rc, ctx.config.publicUrl)
     if (body.refuse) {
       const { net } = await moneyOf(manager, id)
-      const refund = refundUnderTerms(net, rc.firing.firingDate, rc.studio.policies.cancellation)
+      const refund = refundUnderTerms(net, rc.firing.firingDate, rc.studio.policies.cancellation).refundCents
       await manager.getRepository(CheckIn).save({ requestId: id, receivedPieces: [], conditionNotes: body.conditionNotes ?? '', refused: true, refusedReason: body.refuse.reason, quoteBefore: rc.request.quote, quoteAfter: null, priceConfirmedAt: null, checkedInBy: actor.id })
       await moveRequest(manager, rc.request, 'cancelled', actor.id, `Refused at drop-off: ${body.refuse.reason}`, { by: 'refused-at-door', refundCents: refund })
       await enqueueRefund(manager, id, refund, 'Ware refused at drop-off; refunded under the studio’s terms')
@@ -201,7 +202,7 @@ export async function onFiringStatus(ctx: AppContext, manager: EntityManager, fi
     if (request.state !== 'received') {
       if (to !== 'loading') continue
       const { net } = await moneyOf(manager, request.id)
-      const refund = refundUnderTerms(net, firing.firingDate, rc.studio.policies.cancellation)
+      const refund = refundUnderTerms(net, firing.firingDate, rc.studio.policies.cancellation).refundCents
       await moveRequest(manager, request, 'cancelled', null, 'The ware was not dropped off before loading', { by: 'no-show', refundCents: refund })
       await enqueueRefund(manager, request.id, refund, 'No-show: refunded under the studio’s terms')
       await queueMail(manager, rc.potter.email, 'no-show', noShowMail(facts, refund))

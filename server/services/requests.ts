@@ -28,7 +28,8 @@ import {
 import { heldLitres } from './firings'
 import { getPriceList, kilnSpec } from './kilns'
 import { queueMail } from './mail'
-import { enqueueOpenCheckout, enqueueRefund, moneyOf, refundUnderTerms } from './payments'
+import { enqueueOpenCheckout, enqueueRefund, moneyOf } from './payments'
+import { refundUnderTerms } from '../../shared/refunds'
 import { factsOf, loadRequest, moveRequest, studioPeople, viewerOf, type RequestContext, type Viewer } from './request-context'
 
 export const DEPOSIT_EXPIRY_TASK = 'deposit-expiry'
@@ -265,7 +266,7 @@ export async function withdrawRequest(ctx: AppContext, potter: User, id: string,
     const viewer = await viewerOf(manager, rc, potter)
     if (viewer.side !== 'potter') throw forbidden('Only the potter withdraws a request; the studio declines it.')
     const { net } = await moneyOf(manager, id)
-    const refund = refundUnderTerms(net, rc.firing.firingDate, rc.studio.policies.cancellation)
+    const refund = refundUnderTerms(net, rc.firing.firingDate, rc.studio.policies.cancellation).refundCents
     const heldSpace = rc.request.state === 'accepted' || rc.request.state === 'deposit_paid'
     await moveRequest(manager, rc.request, 'withdrawn', potter.id, reason ?? '', { paidCents: net, refundCents: refund })
     await enqueueRefund(manager, id, refund, 'Withdrawn by the potter')

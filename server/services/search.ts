@@ -4,13 +4,11 @@ import type { FiringDocument } from '../../search/documents'
 import { searchPostgres } from '../../search/fallback'
 import { distanceKm, engineFilter, engineSort, type FiringSearch } from '../../search/query'
 import { FIRING_FACETS } from '../../search/settings'
-import type { SearchHit, SearchQuery, SearchResponse } from '../../shared/schemas/search'
+import { DEFAULT_RADIUS_KM, type SearchHit, type SearchQuery, type SearchResponse } from '../../shared/schemas/search'
 import type { AppContext } from '../context'
 import { badRequest } from '../http/errors'
 import { lookupPlace } from './gazetteer'
 
-/** How far a search reaches around a place when the potter does not say. */
-export const DEFAULT_RADIUS_KM = 80
 /** After the engine fails, searches go straight to PostgreSQL for this long before trying it again. */
 const ENGINE_RETRY_MS = 5000
 let engineDownUntil = 0

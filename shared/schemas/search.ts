@@ -30,6 +30,9 @@ const day = z
   .refine((s) => !Number.isNaN(Date.parse(s)), 'Enter a date like 2027-03-05.')
   .transform((s) => new Date(/^\d{4}-\d{2}-\d{2}$/.test(s) ? `${s}T00:00:00Z` : s))
 
+/** How far a search reaches around a place when the potter does not say. */
+export const DEFAULT_RADIUS_KM = 80
+
 export const SEARCH_SORTS = ['distance', 'price', 'soonest', 'rating'] as const
 
 export const searchQuerySchema = z

@@ -2,7 +2,7 @@
 // replay, reordering), the deposit hold running out, and refunds under the studio's terms.
 import { createHmac } from 'node:crypto'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { refundUnderTerms } from '../../server/services/payments'
+import { refundUnderTerms } from '../../shared/refunds'
 import { expireDepositHold } from '../../server/services/requests'
 import { FiringRequest } from '../../server/entities/FiringRequest'
 import { LedgerEntry } from '../../server/entities/LedgerEntry'
@@ -169,13 +169,13 @@ describe('refunds', () => {
     ['one second later', '2027-03-13T17:00:01Z', 1250],
     ['the day before', '2027-03-19T17:00:00Z', 1250],
   ])('of a 25.00 deposit withdrawn %s (at %s) is %i cents', (_when, now, cents) => {
-    expect(refundUnderTerms(2500, firingDate, terms, new Date(now))).toBe(cents)
+    expect(refundUnderTerms(2500, firingDate, terms, new Date(now)).refundCents).toBe(cents)
   })
 
   it('rounds a percentage share half up to the cent', () => {
     // 33 % of 1.55 = 0.5115 → 0.51; of 1.50 = 0.495 → 0.50.
-    expect(refundUnderTerms(155, firingDate, { fullRefundDaysBefore: 0, laterRefundPercent: 33 }, new Date('2027-03-20T18:00:00Z'))).toBe(51)
-    expect(refundUnderTerms(150, firingDate, { fullRefundDaysBefore: 0, laterRefundPercent: 33 }, new Date('2027-03-20T18:00:00Z'))).toBe(50)
+    expect(refundUnderTerms(155, firingDate, { fullRefundDaysBefore: 0, laterRefundPercent: 33 }, new Date('2027-03-20T18:00:00Z')).refundCents).toBe(51)
+    expect(refundUnderTerms(150, firingDate, { fullRefundDaysBefore: 0, laterRefundPercent: 33 }, new Date('2027-03-20T18:00:00Z')).refundCents).toBe(50)
   })
 
   it('refunds a withdrawal under the studio’s terms, through Stripe, into the ledger', async () => {

@@ -1,9 +1,9 @@
 // Requests in the words each side reads: the state's badge, what happens next, the refund a
 // withdrawal would give, pieces in the reader's units, Stripe ids short enough to read.
 import { formatDateTime } from '../../../shared/dates'
+import { refundUnderTerms } from '../../../shared/refunds'
 import type { Piece } from '../../../shared/firing/check'
 import { formatCone } from '../../../shared/firing/cones'
-import { roundHalfUpCents } from '../../../shared/firing/quote'
 import type { StudioPolicies } from '../../../shared/schemas/studios'
 import { REQUEST_STATE_LABELS, type RequestState } from '../../../shared/workflow/request-states'
 import type { BadgeTone } from '../../components/ui/Badge'
@@ -83,14 +83,9 @@ export interface RefundPreview {
   fullUntil: Date
 }
 
-/**
- * The refund a withdrawal gives now under the studio's terms: everything paid until N days before
- * the firing, P % of it after (rounded half-up to the cent, as the server does).
- */
+/** The refund a withdrawal gives now, by the same rule the server refunds with. */
 export function refundIfWithdrawn(paidCents: number, firingDate: string, terms: StudioPolicies['cancellation'], now = new Date()): RefundPreview {
-  const fullUntil = new Date(new Date(firingDate).getTime() - terms.fullRefundDaysBefore * 86_400_000)
-  if (now.getTime() <= fullUntil.getTime()) return { refundCents: paidCents, full: true, fullUntil }
-  return { refundCents: Math.min(paidCents, roundHalfUpCents((paidCents * terms.laterRefundPercent) / 100)), full: false, fullUntil }
+  return refundUnderTerms(paidCents, firingDate, terms, now)
 }
 
 /** "pi_3Nq…x7Yb": Stripe's prefix and the last characters, enough to find it in the dashboard. */

@@ -26,8 +26,7 @@ export type SearchParam = (typeof SEARCH_PARAMS)[number]
 export type SearchState = Partial<Record<SearchParam, string>>
 
 export const DEFAULT_PER_PAGE = 20
-/** The reach the server gives a place when the potter names no distance (server/services/search.ts). */
-export const DEFAULT_RADIUS_KM = 80
+export { DEFAULT_RADIUS_KM } from '../../../shared/schemas/search'
 
 const DAY = /^\d{4}-\d{2}-\d{2}$/
 
