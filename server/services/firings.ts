@@ -6,6 +6,7 @@ import { kilnVolumeL, type Firing as FiringSpec, type Kiln as KilnSpec } from '.
 import { compareCones, coneTemperatureC, formatCone } from '../../shared/firing/cones'
 import type { PriceList } from '../../shared/firing/quote'
 import { plannedFinalRateCPerHour } from '../../shared/firing/schedule'
+import type { FiringJson } from '../../shared/api/studios'
 import type { FiringCreateBody, FiringPatchBody } from '../../shared/schemas/studios'
 import { canMoveFiring, nextFiringStatuses, type FiringStatus } from '../../shared/workflow/firing-status'
 import { HOLDING_STATES } from '../../shared/workflow/request-states'
@@ -23,28 +24,6 @@ import { getKiln, getPriceList, kilnSpec } from './kilns'
 import { queueMail } from './mail'
 import { onFiringStatus } from './pickup'
 import { refundCancelledByFiring } from './requests'
-
-export interface FiringJson {
-  id: string
-  kilnId: string
-  studioId: string
-  kind: Firing['kind']
-  cone: string
-  atmosphere: Firing['atmosphere']
-  slowCool: boolean
-  dropOffBy: string
-  firingDate: string
-  readyBy: string
-  capacityL: number
-  heldL: number
-  spaceLeftL: number
-  status: FiringStatus
-  nextStatuses: readonly FiringStatus[]
-  schedule: Firing['schedule']
-  notes: string
-  seriesId: string | null
-  cancelledReason: string | null
-}
 
 /** Litres held per firing by the requests in holding states; computed, never stored. */
 export async function heldLitres(manager: EntityManager, firingIds: string[]): Promise<Map<string, number>> {

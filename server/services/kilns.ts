@@ -2,6 +2,7 @@ import type { EntityManager } from 'typeorm'
 import { kilnVolumeL, usableHeightMm, type Kiln as KilnSpec } from '../../shared/firing/check'
 import { quoteRequest, type PriceList, type Quote } from '../../shared/firing/quote'
 import { EXAMPLE_PIECES } from '../../shared/firing/examples'
+import type { KilnJson } from '../../shared/api/studios'
 import { kilnBodySchema, type KilnBody, type PriceListBody } from '../../shared/schemas/studios'
 import { enqueueStudioSync } from '../../search/sync'
 import type { AppContext } from '../context'
@@ -26,20 +27,6 @@ export function kilnSpec(kiln: Kiln): KilnSpec {
     preheatHold: kiln.preheatHold,
     controlledCooling: kiln.controlledCooling,
   }
-}
-
-export interface KilnJson extends KilnSpec {
-  id: string
-  studioId: string
-  name: string
-  shelfCount: number
-  shelfWidthMm: number | null
-  shelfDepthMm: number | null
-  notes: string
-  retired: boolean
-  /** The usable height in force (given, or derived from the interior). */
-  effectiveUsableHeightMm: number
-  volumeL: number
 }
 
 export function kilnJson(kiln: Kiln): KilnJson {

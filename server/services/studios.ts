@@ -1,39 +1,15 @@
 import type { EntityManager } from 'typeorm'
+import type { PublicStudioJson, StudioJson } from '../../shared/api/studios'
 import { DEFAULT_POLICIES, type StudioCreateBody, type StudioPatchBody } from '../../shared/schemas/studios'
 import type { AppContext } from '../context'
 import { Studio } from '../entities/Studio'
 import { StudioMember, type StudioRole } from '../entities/StudioMember'
+
+export type { PublicStudioJson, StudioJson }
 import type { User } from '../entities/User'
 import { badRequest, conflict, notFound } from '../http/errors'
 import { enqueueStudioSync } from '../../search/sync'
 import { lookupPlace, timezoneAt, type Place } from './gazetteer'
-
-/** What anyone may see of a published studio. */
-export interface PublicStudioJson {
-  id: string
-  name: string
-  description: string
-  city: string
-  region: string
-  country: string
-  postalCode: string | null
-  lat: number
-  lng: number
-  timezone: string
-  currency: string
-  dropOffHours: string
-  policies: Studio['policies']
-  policiesVersion: number
-  published: boolean
-  verified: boolean
-}
-
-/** What the studio's own people see as well. */
-export interface StudioJson extends PublicStudioJson {
-  address: string | null
-  myRole: StudioRole | null
-  createdAt: string
-}
 
 export function publicStudioJson(studio: Studio): PublicStudioJson {
   return {

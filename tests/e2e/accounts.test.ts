@@ -2,7 +2,7 @@
 // right home per role, a wrong password, and a password reset through the caught mail.
 import type { Browser, Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { launchBrowser, watchPageErrors } from '../support/browser'
+import { launchBrowser, openPage } from '../support/browser'
 import { linkIn, waitForMail } from '../support/mailbox'
 import { startTestApp, type TestApp } from '../support/test-app'
 
@@ -20,12 +20,7 @@ afterAll(async () => {
   await app?.close()
 })
 
-async function newPage(): Promise<{ page: Page; errors: string[] }> {
-  const context = await browser.newContext({ baseURL: app.url })
-  const page = await context.newPage()
-  page.setDefaultTimeout(15_000)
-  return { page, errors: watchPageErrors(page) }
-}
+const newPage = () => openPage(browser, app.url)
 
 async function registerThroughForm(page: Page, { email, name, role }: { email: string; name: string; role: 'potter' | 'host' }) {
   await page.goto('/join')

@@ -5,7 +5,7 @@
 import type { Browser, BrowserContext, Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { EXAMPLE_MUG } from '../../shared/firing/examples'
-import { launchBrowser, watchPageErrors } from '../support/browser'
+import { launchBrowser, openPage } from '../support/browser'
 import { linkIn, waitForMail } from '../support/mailbox'
 import { startTestApp, type TestApp } from '../support/test-app'
 
@@ -28,12 +28,10 @@ afterAll(async () => {
 
 // The browser runs in Tokyo on purpose: what the host types and what potters read must be Portland
 // time, whatever zone the device is in.
-async function newPage(): Promise<{ page: Page; errors: string[] }> {
-  const context = await browser.newContext({ baseURL: app.url, viewport: { width: 1280, height: 900 }, timezoneId: 'Asia/Tokyo' })
-  contexts.push(context)
-  const page = await context.newPage()
-  page.setDefaultTimeout(15_000)
-  return { page, errors: watchPageErrors(page) }
+async function newPage() {
+  const opened = await openPage(browser, app.url, { timezoneId: 'Asia/Tokyo' })
+  contexts.push(opened.context)
+  return opened
 }
 
 /** The calendar day `days` from now in the studio's zone, as a datetime-local value at that hour. */

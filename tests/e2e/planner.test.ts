@@ -2,7 +2,7 @@
 // in a greenware piece, see the wet-greenware block come and go, the curve drawn, and °C on request.
 import type { Browser, Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { launchBrowser, watchPageErrors } from '../support/browser'
+import { launchBrowser, openPage } from '../support/browser'
 import { startTestApp, type TestApp } from '../support/test-app'
 
 let app: TestApp
@@ -18,12 +18,7 @@ afterAll(async () => {
   await app?.close()
 })
 
-async function newPage(): Promise<{ page: Page; errors: string[] }> {
-  const context = await browser.newContext({ baseURL: app.url, viewport: { width: 1280, height: 900 } })
-  const page = await context.newPage()
-  page.setDefaultTimeout(15_000)
-  return { page, errors: watchPageErrors(page) }
-}
+const newPage = () => openPage(browser, app.url)
 
 describe('the firing planner', () => {
   it('blocks wet greenware until it is marked bone dry, draws the curve and switches to °C', async () => {

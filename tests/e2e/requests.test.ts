@@ -11,7 +11,7 @@ import { waitForMail } from '../support/mailbox'
 import { createPerson, PERSON_PASSWORD, type Person } from '../support/people'
 import { draftAndSend, mug, runnyMug } from '../support/request-fixtures'
 import { publishedStudio } from '../support/studio-fixtures'
-import { launchBrowser, watchPageErrors } from '../support/browser'
+import { launchBrowser, openPage } from '../support/browser'
 import { startTestApp, type TestApp } from '../support/test-app'
 
 let app: TestApp
@@ -45,12 +45,10 @@ afterAll(async () => {
   await app?.close()
 })
 
-async function newPage(): Promise<{ page: Page; errors: string[] }> {
-  const context = await browser.newContext({ baseURL: app.url, viewport: { width: 1280, height: 900 } })
-  contexts.push(context)
-  const page = await context.newPage()
-  page.setDefaultTimeout(15_000)
-  return { page, errors: watchPageErrors(page) }
+async function newPage() {
+  const opened = await openPage(browser, app.url)
+  contexts.push(opened.context)
+  return opened
 }
 
 async function signIn(page: Page, email: string) {

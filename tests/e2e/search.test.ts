@@ -4,7 +4,7 @@
 import type { Browser, Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { startSearchEngine } from '../../search/engine/server'
-import { launchBrowser, watchPageErrors } from '../support/browser'
+import { launchBrowser, openPage } from '../support/browser'
 import { createPerson, PERSON_PASSWORD, type Person } from '../support/people'
 import { HttpSession } from '../support/http-client'
 import { electricKiln } from '../support/studio-fixtures'
@@ -76,12 +76,7 @@ afterAll(async () => {
   await app?.close()
 })
 
-async function newPage(): Promise<{ page: Page; errors: string[] }> {
-  const context = await browser.newContext({ baseURL: app.url, viewport: { width: 1280, height: 900 }, timezoneId: 'America/Los_Angeles', locale: 'en-US' })
-  const page = await context.newPage()
-  page.setDefaultTimeout(15_000)
-  return { page, errors: watchPageErrors(page) }
-}
+const newPage = () => openPage(browser, app.url, { timezoneId: 'America/Los_Angeles', locale: 'en-US' })
 
 async function signInAsPotter(page: Page) {
   await page.goto('/sign-in')

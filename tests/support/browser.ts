@@ -1,6 +1,6 @@
 import { existsSync } from 'node:fs'
 import path from 'node:path'
-import { chromium, type Browser, type Page } from 'playwright-core'
+import { chromium, type Browser, type BrowserContext, type BrowserContextOptions, type Page } from 'playwright-core'
 import { repoRoot } from '../../server/config'
 
 /** Debian's Chromium, headless, with everything that would reach the network switched off. */
@@ -28,4 +28,12 @@ export function watchPageErrors(page: Page): string[] {
   const errors: string[] = []
   page.on('pageerror', (error) => errors.push(error.message))
   return errors
+}
+
+/** A fresh browser context and page on the app, with page errors collected and a 15 s default wait. */
+export async function openPage(browser: Browser, baseURL: string, options: BrowserContextOptions = {}): Promise<{ page: Page; errors: string[]; context: BrowserContext }> {
+  const context = await browser.newContext({ baseURL, viewport: { width: 1280, height: 900 }, ...options })
+  const page = await context.newPage()
+  page.setDefaultTimeout(15_000)
+  return { page, errors: watchPageErrors(page), context }
 }

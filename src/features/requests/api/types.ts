@@ -1,38 +1,16 @@
 // The shapes the requests API answers with (server/services/request-views.ts), and the firing,
 // kiln and studio records the compose page reads (server/services/firings.ts, kilns.ts, studios.ts).
 import type { Finding, Kiln, Piece, Verdict } from '../../../../shared/firing/check'
+import type { FiringLogRecord } from '../../../components/firing/FiringLog'
+import type { PhotoRecord } from '../../../components/photos/photoTypes'
 import type { PriceList, Quote } from '../../../../shared/firing/quote'
 import type { StudioPolicies } from '../../../../shared/schemas/studios'
 import type { FiringStatus } from '../../../../shared/workflow/firing-status'
 import type { RequestState } from '../../../../shared/workflow/request-states'
 
-export interface FiringRecord {
-  id: string
-  kilnId: string
-  studioId: string
-  kind: 'bisque' | 'glaze' | 'single'
-  cone: string
-  atmosphere: 'oxidation' | 'reduction' | 'neutral'
-  slowCool: boolean
-  dropOffBy: string
-  firingDate: string
-  readyBy: string
-  capacityL: number
-  heldL: number
-  spaceLeftL: number
-  status: FiringStatus
-  notes: string
-}
+import type { FiringJson as FiringRecord, KilnJson as KilnRecord } from '../../../../shared/api/studios'
 
-export interface KilnRecord extends Kiln {
-  id: string
-  studioId: string
-  name: string
-  notes: string
-  retired: boolean
-  effectiveUsableHeightMm: number
-  volumeL: number
-}
+export type { FiringRecord, KilnRecord }
 
 export interface PriceListAnswer {
   priceList: PriceList
@@ -52,7 +30,84 @@ export interface StudioRecord {
   published: boolean
 }
 
-export type RequestAction = 'message' | 'edit' | 'send' | 'withdraw' | 'pay-deposit' | 'answer-move' | 'accept' | 'decline' | 'move' | 'cancel'
+export type RequestAction =
+  | 'message'
+  | 'edit'
+  | 'send'
+  | 'withdraw'
+  | 'pay-deposit'
+  | 'answer-move'
+  | 'accept'
+  | 'decline'
+  | 'move'
+  | 'cancel'
+  | 'check-in'
+  | 'counter-payment'
+  | 'results'
+  | 'ready'
+  | 'collected'
+  | 'confirm-price'
+  | 'pay-balance'
+  | 'rate'
+  | 'reply'
+
+export interface MeasuredSize {
+  heightMm: number
+  widthMm: number
+  depthMm: number
+}
+
+/** What the studio recorded when the ware came in (or was turned away). */
+export interface CheckInRecord {
+  refused: boolean
+  refusedReason: string | null
+  receivedPieces: { pieceIndex: number; declared: number; received: number; measured?: MeasuredSize }[]
+  conditionNotes: string
+  quoteBefore: Quote | null
+  quoteAfter: Quote | null
+  /** Null while a higher price waits for the potter. */
+  priceConfirmedAt: string | null
+  at: string
+}
+
+export type PieceOutcome = 'fine' | 'cracked' | 'blown-out' | 'glaze-ran' | 'stuck-to-shelf' | 'other'
+
+export interface ResultsRecord {
+  outcomes: { pieceIndex: number; outcome: PieceOutcome; notes: string }[]
+  notes: string
+  at: string
+}
+
+export interface RatingRecord {
+  stars: number
+  care: number | null
+  communication: number | null
+  results: number | null
+  asDeclared: number | null
+  onTime: number | null
+  text: string
+  reply: string | null
+  at: string
+  editableUntil: string
+}
+
+export interface RequestRatings {
+  /** The potter's rating of the studio. */
+  ofStudio: RatingRecord | null
+  /** The studio's rating of the potter. */
+  ofPotter: RatingRecord | null
+}
+
+/** What the check-in answers besides the request: the server's check of the ware as it came in. */
+export interface CheckInOutcome {
+  refused: boolean
+  findings: Finding[]
+  verdict?: Verdict
+  priceBeforeCents?: number
+  priceAfterCents?: number
+  needsConfirmation?: boolean
+  request: RequestView
+}
 
 export interface PotterRecord {
   requests: number
@@ -127,6 +182,14 @@ export interface RequestView {
   ledger: LedgerEntry[]
   paid: { inCents: number; refundedCents: number; depositCents: number }
   payments: PaymentRecord[]
+  checkIn: CheckInRecord | null
+  results: ResultsRecord | null
+  /** The log of the firing the ware is in, once the studio has written one. */
+  firingLog: FiringLogRecord | null
+  /** What the potter still owes: the standing total less what came in. */
+  owedCents: number
+  photos: PhotoRecord[]
+  ratings: RequestRatings
 }
 
 /** One line of a request list. */

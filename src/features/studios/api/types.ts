@@ -1,86 +1,18 @@
-// The shapes the studio API answers with (see server/services/studios.ts, kilns.ts, firings.ts).
-import type { Kiln as KilnSpec } from '../../../../shared/firing/check'
-import type { PriceList, Quote } from '../../../../shared/firing/quote'
-import type { StudioPolicies } from '../../../../shared/schemas/studios'
-import type { FiringStatus } from '../../../../shared/workflow/firing-status'
+// The shapes the studio API answers with, from shared/api/studios.ts, and a few the client alone reads.
+import type { PublicStudioJson, StudioJson, StudioRole } from '../../../../shared/api/studios'
 
-export type StudioRole = 'owner' | 'crew'
-
-export interface PublicStudio {
-  id: string
-  name: string
-  description: string
-  city: string
-  region: string
-  country: string
-  postalCode: string | null
-  lat: number
-  lng: number
-  timezone: string
-  currency: string
-  dropOffHours: string
-  policies: StudioPolicies
-  policiesVersion: number
-  published: boolean
-  verified: boolean
-}
+export type { StudioRole, ExamplePrice } from '../../../../shared/api/studios'
+export type { PublicStudioJson as PublicStudio, KilnJson as KilnRecord, KilnWithPricesJson as KilnWithPrices, FiringJson as FiringRecord } from '../../../../shared/api/studios'
 
 /** What the studio's own people see: the public side plus the street address and their role. */
-export interface MemberStudio extends PublicStudio {
-  address: string | null
+export interface MemberStudio extends StudioJson {
   myRole: StudioRole
-  createdAt: string
 }
 
-export type Studio = PublicStudio | MemberStudio
+export type Studio = PublicStudioJson | MemberStudio
 
 export function isMemberView(studio: Studio): studio is MemberStudio {
   return 'myRole' in studio && (studio as MemberStudio).myRole !== null
-}
-
-export interface ExamplePrice {
-  label: string
-  quote: Quote
-}
-
-export interface KilnRecord extends KilnSpec {
-  id: string
-  studioId: string
-  name: string
-  shelfCount: number
-  shelfWidthMm: number | null
-  shelfDepthMm: number | null
-  notes: string
-  retired: boolean
-  effectiveUsableHeightMm: number
-  volumeL: number
-}
-
-export interface KilnWithPrices extends KilnRecord {
-  priceList: PriceList | null
-  examplePrices: ExamplePrice[]
-}
-
-export interface FiringRecord {
-  id: string
-  kilnId: string
-  studioId: string
-  kind: 'bisque' | 'glaze' | 'single'
-  cone: string
-  atmosphere: 'oxidation' | 'reduction' | 'neutral'
-  slowCool: boolean
-  dropOffBy: string
-  firingDate: string
-  readyBy: string
-  capacityL: number
-  heldL: number
-  spaceLeftL: number
-  status: FiringStatus
-  nextStatuses: FiringStatus[]
-  schedule: unknown
-  notes: string
-  seriesId: string | null
-  cancelledReason: string | null
 }
 
 export interface CrewMember {

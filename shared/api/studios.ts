@@ -1,0 +1,82 @@
+// The shapes the studio, kiln and firing routes answer with: written by the server, read by the
+// client, declared once.
+import type { Atmosphere, FiringKind, Kiln } from '../firing/check'
+import type { PriceList, Quote } from '../firing/quote'
+import type { Segment } from '../firing/schedule'
+import type { StudioPolicies } from '../schemas/studios'
+import type { FiringStatus } from '../workflow/firing-status'
+
+export type StudioRole = 'owner' | 'crew'
+
+/** What anyone may see of a published studio. */
+export interface PublicStudioJson {
+  id: string
+  name: string
+  description: string
+  city: string
+  region: string
+  country: string
+  postalCode: string | null
+  lat: number
+  lng: number
+  timezone: string
+  currency: string
+  dropOffHours: string
+  policies: StudioPolicies
+  policiesVersion: number
+  published: boolean
+  verified: boolean
+}
+
+/** What the studio's own people see as well: the street address and their role. */
+export interface StudioJson extends PublicStudioJson {
+  address: string | null
+  myRole: StudioRole | null
+  createdAt: string
+}
+
+export interface KilnJson extends Kiln {
+  id: string
+  studioId: string
+  name: string
+  shelfCount: number
+  shelfWidthMm: number | null
+  shelfDepthMm: number | null
+  notes: string
+  retired: boolean
+  /** The usable height in force (given, or derived from the interior). */
+  effectiveUsableHeightMm: number
+  volumeL: number
+}
+
+export interface ExamplePrice {
+  label: string
+  quote: Quote
+}
+
+export interface KilnWithPricesJson extends KilnJson {
+  priceList: PriceList | null
+  examplePrices: ExamplePrice[]
+}
+
+export interface FiringJson {
+  id: string
+  kilnId: string
+  studioId: string
+  kind: FiringKind
+  cone: string
+  atmosphere: Atmosphere
+  slowCool: boolean
+  dropOffBy: string
+  firingDate: string
+  readyBy: string
+  capacityL: number
+  heldL: number
+  spaceLeftL: number
+  status: FiringStatus
+  nextStatuses: readonly FiringStatus[]
+  schedule: Segment[] | null
+  notes: string
+  seriesId: string | null
+  cancelledReason: string | null
+}
