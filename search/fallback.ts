@@ -14,15 +14,17 @@ const FACET_COLUMN: Record<(typeof FIRING_FACETS)[number], string> = {
 }
 
 export async function searchPostgres(manager: EntityManager, search: FiringSearch) {
-  const { where, params, orderBy } = sqlQuery(search)
+  const { where, params, distance, distanceWhere, orderBy } = sqlQuery(search)
   const offset = (search.page - 1) * search.perPage
   const facetJson = FIRING_FACETS.map(
     (facet) => `'${facet}', (SELECT coalesce(json_object_agg(value, n), '{}'::json) FROM (SELECT ${FACET_COLUMN[facet]} AS value, count(*) AS n FROM hits GROUP BY 1) f)`,
   ).join(', ')
   const [row]: { page: { document: FiringDocument }[] | null; total: number; facets: Record<string, Record<string, number>> }[] = await manager.query(
     `WITH hits AS MATERIALIZED (
-       SELECT firing_id, atmosphere, kind, cone, kiln_kind, lat, lng, drop_off_by_ts, firing_date_ts, price_example_cents, rating_score
-       FROM search_documents WHERE ${where}
+       SELECT * FROM (
+         SELECT firing_id, atmosphere, kind, cone, kiln_kind, drop_off_by_ts, firing_date_ts, price_example_cents, rating_score, ${distance ?? 'NULL::float8'} AS dist
+         FROM search_documents WHERE ${where}
+       ) candidates ${distanceWhere ? `WHERE ${distanceWhere}` : ''}
      ),
      page AS (SELECT firing_id, row_number() OVER (ORDER BY ${orderBy}) AS ord FROM hits ORDER BY ${orderBy} LIMIT ${search.perPage} OFFSET ${offset})
      SELECT

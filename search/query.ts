@@ -70,8 +70,14 @@ export function distanceKm(a: { lat: number; lng: number }, b: { lat: number; ln
 }
 
 export interface SqlQuery {
+  /** Conditions on search_documents' own columns. */
   where: string
   params: unknown[]
+  /** Haversine metres from the origin as an SQL expression, computed once per row as `dist`. */
+  distance: string | null
+  /** Conditions on `dist` (the radius), applied to the rows `where` selects. */
+  distanceWhere: string | null
+  /** Over the selected rows, which carry `dist`. */
   orderBy: string
 }
 
@@ -92,11 +98,17 @@ export function sqlQuery(s: FiringSearch): SqlQuery {
   }
   const where = [`drop_off_by_ts > ${p(Math.max(s.now, (s.dropOffFrom ?? 0) - 1))}`]
   if (s.dropOffTo !== null) where.push(`drop_off_by_ts <= ${p(s.dropOffTo)}`)
-  if (s.origin && s.radiusKm !== null) {
+  let distance: string | null = null
+  let distanceWhere: string | null = null
+  if (s.origin) {
     const lat = `${p(s.origin.lat)}::float8`
     const lng = `${p(s.origin.lng)}::float8`
-    const metres = `${p(s.radiusKm * 1000)}::float8`
-    where.push(`earth_box(ll_to_earth(${lat}, ${lng}), ${metres} * 1.0012) @> ll_to_earth(lat, lng)`, `${sqlDistance(lat, lng)} <= ${metres}`)
+    distance = sqlDistance(lat, lng)
+    if (s.radiusKm !== null) {
+      const metres = `${p(s.radiusKm * 1000)}::float8`
+      where.push(`earth_box(ll_to_earth(${lat}, ${lng}), ${metres} * 1.0012) @> ll_to_earth(lat, lng)`)
+      distanceWhere = `dist <= ${metres}`
+    }
   }
   if (s.cone) where.push(`cone_rank BETWEEN ${p(s.cone.minRank)} AND ${p(s.cone.maxRank)}`)
   if (s.atmosphere) where.push(`atmosphere = ${p(s.atmosphere)}`)
@@ -112,11 +124,11 @@ export function sqlQuery(s: FiringSearch): SqlQuery {
   }
   const orderBy =
     s.sort === 'distance'
-      ? `${sqlDistance(`${p(s.origin!.lat)}::float8`, `${p(s.origin!.lng)}::float8`)} ASC, drop_off_by_ts ASC`
+      ? 'dist ASC, drop_off_by_ts ASC'
       : s.sort === 'price'
         ? 'price_example_cents ASC NULLS LAST, drop_off_by_ts ASC'
         : s.sort === 'rating'
           ? 'rating_score DESC NULLS LAST, drop_off_by_ts ASC'
           : 'drop_off_by_ts ASC, firing_date_ts ASC'
-  return { where: where.join(' AND '), params, orderBy }
+  return { where: where.join(' AND '), params, distance, distanceWhere, orderBy }
 }
