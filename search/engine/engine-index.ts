@@ -41,6 +41,8 @@ export class EngineIndex {
   private columns = new Map<string, FacetColumn>()
   private coverage = new Map<string, boolean>()
   private allDocuments: DocSet | null = null
+  /** Condition sets for this revision of the documents and settings (see filter-evaluate.ts). */
+  private conditionCache = new Map<string, DocSet>()
   private readonly topLevelFieldCounts = new Map<string, number>()
 
   constructor(
@@ -104,6 +106,7 @@ export class EngineIndex {
       column: (attribute) => this.column(attribute),
       geo: this.geo,
       errorCode,
+      conditionCache: this.conditionCache,
     }
   }
 
@@ -153,6 +156,7 @@ export class EngineIndex {
 
   /** Stores a validated document under its external id, replacing any previous version. */
   putDocument(externalId: string, body: JsonObject): void {
+    this.conditionCache.clear()
     const previous = this.byExternal.get(externalId)
     if (previous) {
       this.indexFacets(previous, false)
@@ -170,6 +174,7 @@ export class EngineIndex {
   }
 
   deleteDocument(externalId: string): boolean {
+    this.conditionCache.clear()
     const document = this.byExternal.get(externalId)
     if (!document) return false
     this.indexFacets(document, false)
@@ -183,6 +188,7 @@ export class EngineIndex {
   }
 
   clear(): number {
+    this.conditionCache.clear()
     const count = this.byExternal.size
     for (const id of [...this.byExternal.keys()]) this.deleteDocument(id)
     return count
@@ -190,6 +196,7 @@ export class EngineIndex {
 
   /** Installs new settings and rebuilds whatever depends on them. */
   replaceSettings(settings: IndexSettings): void {
+    this.conditionCache.clear()
     const facetsChanged = JSON.stringify(settings.filterableAttributes) !== JSON.stringify(this.settings.filterableAttributes)
     this.settings = settings
     if (facetsChanged) {

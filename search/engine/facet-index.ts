@@ -77,20 +77,26 @@ export class FacetColumn {
   private readonly originals = new Map<string, string>()
   private sortedNumbers: SortedNumbers | null = null
   private sortedStrings: SortedStrings | null = null
+  /** Each document's values, so counts over a few candidates need not walk every value. */
+  private readonly byDocument = new Map<number, { numbers: number[]; strings: string[] }>()
 
   add(id: number, field: FieldValues): void {
     this.exists.add(id)
+    const own = { numbers: [] as number[], strings: [] as string[] }
+    this.byDocument.set(id, own)
     if (field.isNull) this.nulls.add(id)
     if (field.isEmpty) this.empties.add(id)
     for (const value of field.values) {
       if (typeof value === 'number') {
         addTo(this.numbers, value, id)
+        own.numbers.push(value)
         this.sortedNumbers = null
       } else {
         const original = facetString(value)!
         const key = normalizeFacet(original)
         if (!this.originals.has(key)) this.originals.set(key, original)
         addTo(this.strings, key, id)
+        own.strings.push(key)
         this.sortedStrings = null
       }
     }
@@ -98,6 +104,7 @@ export class FacetColumn {
 
   remove(id: number, field: FieldValues): void {
     this.exists.delete(id)
+    this.byDocument.delete(id)
     this.nulls.delete(id)
     this.empties.delete(id)
     for (const value of field.values) {
@@ -185,6 +192,8 @@ export class FacetColumn {
    * the spelling the engine shows, plus the numeric min and max when there are numbers.
    */
   distribution(candidates: DocSet): { counts: Array<[string, number]>; min: number; max: number } {
+    const size = candidates.size()
+    if (size * 8 < this.exists.size) return this.distributionOfFew(candidates)
     const counts: Array<[string, number]> = []
     let min = Infinity
     let max = -Infinity
@@ -205,5 +214,22 @@ export class FacetColumn {
       if (count > 0) counts.push([this.originals.get(key)!, count])
     }
     return { counts, min, max }
+  }
+
+  /** The same counts, reached from the candidates' own values: cheaper when they are few. */
+  private distributionOfFew(candidates: DocSet): { counts: Array<[string, number]>; min: number; max: number } {
+    const numbers = new Map<number, number>()
+    const strings = new Map<string, number>()
+    for (const id of candidates.toArray()) {
+      const own = this.byDocument.get(id)
+      if (!own) continue
+      // A document counts once per distinct value, as in the walk over all values.
+      for (const value of new Set(own.numbers)) numbers.set(value, (numbers.get(value) ?? 0) + 1)
+      for (const key of new Set(own.strings)) strings.set(key, (strings.get(key) ?? 0) + 1)
+    }
+    const counts: Array<[string, number]> = [...numbers].sort((a, b) => a[0] - b[0]).map(([value, n]) => [String(value), n])
+    for (const key of [...strings.keys()].sort(compareBytes)) counts.push([this.originals.get(key)!, strings.get(key)!])
+    const values = [...numbers.keys()]
+    return { counts, min: values.length ? Math.min(...values) : Infinity, max: values.length ? Math.max(...values) : -Infinity }
   }
 }

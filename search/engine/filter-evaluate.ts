@@ -20,6 +20,35 @@ export interface FilterContext {
   geo: GeoIndex
   /** Error code for this route: invalid_search_filter, invalid_document_filter… */
   errorCode: string
+  /**
+   * Sets already computed for single conditions since the index last changed. Searches repeat the
+   * same clauses (a cone, an atmosphere), so each is worked out once per revision of the index.
+   */
+  conditionCache?: Map<string, DocSet>
+}
+
+const CONDITION_CACHE_LIMIT = 512
+
+function conditionKey(field: FilterToken, condition: FilterCondition): string {
+  const parts = [field.value, condition.kind]
+  if ('value' in condition) parts.push(condition.value.value)
+  if (condition.kind === 'between') parts.push(condition.from.value, condition.to.value)
+  if ('word' in condition) parts.push(condition.word.value)
+  return parts.join('\u0000')
+}
+
+/** A condition's documents, from the cache when this revision of the index has seen it before. */
+function cachedCondition(context: FilterContext, field: FilterToken, condition: FilterCondition): DocSet {
+  const cache = context.conditionCache
+  if (!cache) return evaluateCondition(context, field, condition)
+  const key = conditionKey(field, condition)
+  let found = cache.get(key)
+  if (!found) {
+    found = evaluateCondition(context, field, condition)
+    if (cache.size >= CONDITION_CACHE_LIMIT) cache.delete(cache.keys().next().value!)
+    cache.set(key, found)
+  }
+  return found
 }
 
 const RUST_FLOAT = /^[+-]?(?:\d+\.?\d*(?:[eE][+-]?\d+)?|\.\d+(?:[eE][+-]?\d+)?|inf|infinity|nan)$/i
@@ -168,7 +197,7 @@ export function evaluateFilter(context: FilterContext, node: FilterNode): DocSet
     case 'not':
       return context.all().andNot(evaluateFilter(context, node.child))
     case 'condition':
-      return evaluateCondition(context, node.field, node.condition)
+      return cachedCondition(context, node.field, node.condition)
     case 'in': {
       operatorAllowed(context, node.field, 'IN', false)
       const column = context.column(node.field.value)
