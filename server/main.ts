@@ -9,6 +9,7 @@ import { seedDemo } from './db/seed'
 import { migrateQueue, startWorker } from './jobs/worker'
 import { warmGazetteer } from './services/gazetteer'
 import { enqueueReindex } from '../search/sync'
+import { engineRebuildStarted } from './services/search'
 
 const log = consoleLogger()
 const config = loadConfig()
@@ -28,6 +29,8 @@ if (process.env.SEED_DEMO === 'true') {
 
 // The engine's copy is derived: rebuild it from PostgreSQL on every start (the local stand-in starts empty).
 await db.transaction((manager) => enqueueReindex(manager))
+// Until the rebuild has run, this process answers searches from PostgreSQL's copy, which is current.
+if (config.runWorker) engineRebuildStarted()
 // Load the place data now rather than on the first request that needs it.
 warmGazetteer()
 const worker = config.runWorker ? await startWorker(ctx) : null

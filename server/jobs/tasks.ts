@@ -7,7 +7,7 @@ import { MESSAGE_DIGEST_TASK, sendMessageDigest } from '../services/messages'
 import { makeRefund, OPEN_CHECKOUT_TASK, openCheckout, REFUND_TASK } from '../services/payments'
 import { DEPOSIT_EXPIRY_TASK, expireDepositHold } from '../services/requests'
 import { expireOpenCheckouts } from '../services/payments'
-import { engineIsBack } from '../services/search'
+import { engineIsBack, engineRebuilt } from '../services/search'
 
 /** Every background task by name. Handlers are thin: the work lives in services. */
 export function taskList(ctx: AppContext): TaskList {
@@ -39,7 +39,7 @@ export function taskList(ctx: AppContext): TaskList {
     [REINDEX_TASK]: async () => {
       const { documents } = await reindexAll(ctx)
       ctx.log.info(`search index rebuilt: ${documents} open firings`)
-      engineIsBack()
+      engineRebuilt()
     },
   }
 }

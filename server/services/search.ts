@@ -12,6 +12,13 @@ import { lookupPlace } from './gazetteer'
 /** After the engine fails, searches go straight to PostgreSQL for this long before trying it again. */
 const ENGINE_RETRY_MS = 5000
 let engineDownUntil = 0
+/** Set while this process rebuilds the engine's copy after a start: PostgreSQL answers meanwhile. */
+let engineRebuilding = false
+
+/** Called by a process that starts the index rebuild; the rebuild's end calls engineIsBack(). */
+export function engineRebuildStarted() {
+  engineRebuilding = true
+}
 
 export function toHit(doc: FiringDocument, origin: { lat: number; lng: number } | null): SearchHit {
   return {
@@ -89,7 +96,7 @@ async function searchEngine(ctx: AppContext, search: FiringSearch) {
 export async function searchFirings(ctx: AppContext, query: SearchQuery): Promise<SearchResponse> {
   const origin = resolveOrigin(query)
   const search = toFiringSearch(query, origin)
-  let degraded = Date.now() < engineDownUntil
+  let degraded = engineRebuilding || Date.now() < engineDownUntil
   let found: Awaited<ReturnType<typeof searchEngine>> | null = null
   if (!degraded) {
     try {
@@ -116,5 +123,11 @@ export async function searchFirings(ctx: AppContext, query: SearchQuery): Promis
 
 /** Forget a past engine failure (tests, and the sync worker when a write succeeds). */
 export function engineIsBack() {
+  engineDownUntil = 0
+}
+
+/** The start-up rebuild is done: searches go to the engine again. */
+export function engineRebuilt() {
+  engineRebuilding = false
   engineDownUntil = 0
 }
