@@ -12,12 +12,16 @@ import { lookupPlace } from './gazetteer'
 /** After the engine fails, searches go straight to PostgreSQL for this long before trying it again. */
 const ENGINE_RETRY_MS = 5000
 let engineDownUntil = 0
-/** Set while this process rebuilds the engine's copy after a start: PostgreSQL answers meanwhile. */
-let engineRebuilding = false
+/**
+ * While the engine's copy is rebuilt after a start, PostgreSQL answers. Bounded, because with several
+ * worker processes the rebuild may run in another one.
+ */
+let rebuildingUntil = 0
+const REBUILD_GRACE_MS = 5 * 60_000
 
-/** Called by a process that starts the index rebuild; the rebuild's end calls engineIsBack(). */
+/** Called by a process that queues the index rebuild; the rebuild's end calls engineRebuilt(). */
 export function engineRebuildStarted() {
-  engineRebuilding = true
+  rebuildingUntil = Date.now() + REBUILD_GRACE_MS
 }
 
 export function toHit(doc: FiringDocument, origin: { lat: number; lng: number } | null): SearchHit {
@@ -96,7 +100,7 @@ async function searchEngine(ctx: AppContext, search: FiringSearch) {
 export async function searchFirings(ctx: AppContext, query: SearchQuery): Promise<SearchResponse> {
   const origin = resolveOrigin(query)
   const search = toFiringSearch(query, origin)
-  let degraded = engineRebuilding || Date.now() < engineDownUntil
+  let degraded = Date.now() < Math.max(rebuildingUntil, engineDownUntil)
   let found: Awaited<ReturnType<typeof searchEngine>> | null = null
   if (!degraded) {
     try {
@@ -128,6 +132,6 @@ export function engineIsBack() {
 
 /** The start-up rebuild is done: searches go to the engine again. */
 export function engineRebuilt() {
-  engineRebuilding = false
+  rebuildingUntil = 0
   engineDownUntil = 0
 }
