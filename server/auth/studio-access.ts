@@ -61,7 +61,7 @@ async function isPublished(ctx: AppContext, studioId: string) {
  * of these roles. A record the caller cannot see is a 404, as if it were not there; a published one
  * the caller may see but not change is a 403.
  */
-export function requireStudioRole(ctx: AppContext, roles: StudioRole[], resolve: StudioResolver): RequestHandler {
+export function requireStudioMember(ctx: AppContext, roles: StudioRole[], resolve: StudioResolver): RequestHandler {
   return async (req, res, next) => {
     if (!req.user) return next(unauthorized())
     const studioId = await resolve(req)

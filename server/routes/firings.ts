@@ -1,6 +1,6 @@
 import { Router } from 'express'
 import { firingCancelSchema, firingPatchSchema } from '../../shared/schemas/studios'
-import { allowStudioReader, requireStudioRole, studioOfFiring } from '../auth/studio-access'
+import { allowStudioReader, requireStudioMember, studioOfFiring } from '../auth/studio-access'
 import type { AppContext } from '../context'
 import { notFound } from '../http/errors'
 import { validateBody } from '../http/validate'
@@ -10,7 +10,7 @@ export function firingsRouter(ctx: AppContext) {
   const router = Router()
   const firing = studioOfFiring(ctx)
   const reader = allowStudioReader(ctx, firing)
-  const member = requireStudioRole(ctx, ['owner', 'crew'], firing)
+  const member = requireStudioMember(ctx, ['owner', 'crew'], firing)
 
   router.get('/firings/:id', reader, async (req, res) => {
     const found = await getFiring(ctx.db.manager, String(req.params.id))

@@ -1,6 +1,6 @@
 import { Router } from 'express'
 import { firingCreateSchema, kilnPatchSchema, priceListBodySchema } from '../../shared/schemas/studios'
-import { allowStudioReader, requireStudioRole, studioOfKiln } from '../auth/studio-access'
+import { allowStudioReader, requireStudioMember, studioOfKiln } from '../auth/studio-access'
 import type { AppContext } from '../context'
 import { notFound } from '../http/errors'
 import { validateBody } from '../http/validate'
@@ -11,8 +11,8 @@ export function kilnsRouter(ctx: AppContext) {
   const router = Router()
   const kiln = studioOfKiln(ctx)
   const reader = allowStudioReader(ctx, kiln)
-  const owner = requireStudioRole(ctx, ['owner'], kiln)
-  const member = requireStudioRole(ctx, ['owner', 'crew'], kiln)
+  const owner = requireStudioMember(ctx, ['owner'], kiln)
+  const member = requireStudioMember(ctx, ['owner', 'crew'], kiln)
 
   router.get('/kilns/:id', reader, async (req, res) => {
     const found = await getKiln(ctx.db.manager, String(req.params.id))

@@ -1,7 +1,7 @@
 import { Router } from 'express'
 import { checkInSchema, counterPaymentSchema, firingLogSchema, resultsSchema } from '../../shared/schemas/pickup'
 import { requireAuth } from '../auth/guards'
-import { requireStudioRole, studioOfFiring } from '../auth/studio-access'
+import { requireStudioMember, studioOfFiring } from '../auth/studio-access'
 import type { AppContext } from '../context'
 import { requireUuidParams, validateBody } from '../http/validate'
 import { checkIn, confirmPrice, counterPayment, firingLogJson, markCollected, markReady, openBalance, postResults, putFiringLog } from '../services/pickup'
@@ -11,7 +11,7 @@ import { requestJson } from '../services/request-views'
 export function pickupRouter(ctx: AppContext) {
   const router = Router()
   const id = requireUuidParams('id')
-  const firingMember = requireStudioRole(ctx, ['owner', 'crew'], studioOfFiring(ctx))
+  const firingMember = requireStudioMember(ctx, ['owner', 'crew'], studioOfFiring(ctx))
 
   const show = async (requestId: string, user: Express.User) => {
     const rc = await loadRequest(ctx.db.manager, requestId)

@@ -2,7 +2,7 @@ import { Router } from 'express'
 import { z } from 'zod'
 import { crewInviteSchema, kilnBodySchema, studioCreateSchema, studioPatchSchema } from '../../shared/schemas/studios'
 import { requireRole } from '../auth/guards'
-import { allowStudioReader, requireStudioRole, studioFromParam } from '../auth/studio-access'
+import { allowStudioReader, requireStudioMember, studioFromParam } from '../auth/studio-access'
 import type { AppContext } from '../context'
 import { validateBody, validateQuery } from '../http/validate'
 import { studioCalendar } from '../services/calendar'
@@ -20,7 +20,7 @@ const firingRangeQuery = z.object({
 export function studiosRouter(ctx: AppContext) {
   const router = Router()
   const studio = studioFromParam(ctx)
-  const owner = requireStudioRole(ctx, ['owner'], studio)
+  const owner = requireStudioMember(ctx, ['owner'], studio)
   const reader = allowStudioReader(ctx, studio)
 
   // Public: published studios. `?mine=true`: the caller's own studios, drafts included.
