@@ -15,6 +15,7 @@ import { FiringInboxPage, StudioInboxPage } from '../features/requests/pages/Stu
 import { FindFiringPage } from '../features/search/pages/FindFiringPage'
 import { CalendarPage } from '../features/studios/pages/CalendarPage'
 import { CrewPage } from '../features/studios/pages/CrewPage'
+import { FiringLogPage } from '../features/studios/pages/FiringLogPage'
 import { JoinStudioPage } from '../features/studios/pages/JoinStudioPage'
 import { KilnEditorPage, NewKilnPage } from '../features/studios/pages/KilnEditorPage'
 import { KilnPage } from '../features/studios/pages/KilnPage'
@@ -49,6 +50,7 @@ export const router = createBrowserRouter([
       { path: 'studios/:id/requests', element: <RequireRole roles={['host', 'crew']}><StudioInboxPage /></RequireRole> },
       { path: 'firings/:firingId/request', element: <RequireRole roles={['potter']}><ComposeRequestPage /></RequireRole> },
       { path: 'firings/:firingId/requests', element: <RequireRole roles={['host', 'crew']}><FiringInboxPage /></RequireRole> },
+      { path: 'firings/:firingId/log', element: <RequireRole roles={['host', 'crew']}><FiringLogPage /></RequireRole> },
       { path: 'requests/:id', element: <RequireRole roles={['potter', 'host', 'crew']}><RequestPage /></RequireRole> },
       { path: 'kilns/:id', element: <RequireRole roles={['host', 'crew']}><KilnPage /></RequireRole> },
       { path: 'kilns/:id/edit', element: <RequireRole roles={['host', 'crew']}><KilnEditorPage /></RequireRole> },

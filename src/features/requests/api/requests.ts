@@ -27,12 +27,15 @@ export function useRequest(id: string | undefined, polling?: RequestPolling) {
     queryKey: requestKeys.detail(id ?? ''),
     queryFn: () => api<RequestView>(`/api/requests/${id}`),
     enabled: Boolean(id),
+    // Other pages move requests along (a firing unloaded moves every request in it): coming back
+    // to one shows the cached copy and asks again at once.
+    refetchOnMount: 'always',
     refetchInterval: polling ? (query: Query<RequestView>) => polling(query.state.data) : undefined,
   })
 }
 
 /** Every change answers with the request as it now stands: it replaces the cached one and lists refresh. */
-function useRequestChange<TVariables>(request: (variables: TVariables) => Promise<RequestView>) {
+export function useRequestChange<TVariables>(request: (variables: TVariables) => Promise<RequestView>) {
   const queryClient = useQueryClient()
   return useMutation({
     mutationFn: request,
@@ -82,10 +85,11 @@ export function useWithdrawRequest() {
   return useRequestChange(({ id, reason }: { id: string; reason?: string }) => api<RequestView>(`/api/requests/${id}/withdraw`, { method: 'POST', body: reason ? { reason } : {} }))
 }
 
-/** Opens (or reuses) the hosted checkout for the deposit; the page then leaves for it. */
-export function useOpenDepositCheckout() {
+/** Opens (or reuses) the hosted checkout for the deposit or the balance; the page then leaves for it. */
+export function useOpenCheckout() {
   return useMutation({
-    mutationFn: (id: string) => api<{ checkoutUrl: string; expiresAt: string }>(`/api/requests/${id}/deposit`, { method: 'POST' }),
+    mutationFn: ({ id, purpose }: { id: string; purpose: 'deposit' | 'balance' }) =>
+      api<{ checkoutUrl: string; expiresAt: string }>(`/api/requests/${id}/${purpose}`, { method: 'POST' }),
   })
 }
 

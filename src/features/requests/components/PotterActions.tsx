@@ -8,7 +8,9 @@ import { Field, TextArea } from '../../../components/ui/Field'
 import { ApiError } from '../../../lib/api'
 import { firingInWords } from '../../../lib/firingWords'
 import { formatSpace, type UnitSystem } from '../../../lib/units'
-import { useAnswerMove, useOpenDepositCheckout, useWithdrawRequest } from '../api/requests'
+import { QuoteSummary } from '../../../components/ware/QuoteSummary'
+import { useConfirmPrice } from '../api/pickup'
+import { useAnswerMove, useOpenCheckout, useWithdrawRequest } from '../api/requests'
 import type { RequestView } from '../api/types'
 import { refundIfWithdrawn } from '../requestWords'
 import { SendDialog } from './SendDialog'
@@ -18,19 +20,49 @@ const problemOf = (error: unknown) => (error instanceof ApiError ? error.message
 /** The deposit still owed: the quote's deposit less what has come in for it. */
 export const depositOwedCents = (view: RequestView) => Math.max(0, (view.quote?.depositCents ?? 0) - view.paid.depositCents)
 
-/** Opens the hosted payment page for the deposit and leaves for it. */
-export function PayDepositButton({ view, label }: { view: RequestView; label?: string }) {
-  const checkout = useOpenDepositCheckout()
-  const currency = view.quote?.currency ?? 'USD'
+/** Opens the hosted payment page for the deposit or the balance and leaves for it. */
+function CheckoutButton({ view, purpose, label }: { view: RequestView; purpose: 'deposit' | 'balance'; label: string }) {
+  const checkout = useOpenCheckout()
   return (
     <div className="space-y-2">
       <Button
         busy={checkout.isPending || checkout.isSuccess}
-        onClick={() => checkout.mutate(view.id, { onSuccess: ({ checkoutUrl }) => window.location.assign(checkoutUrl) })}
+        onClick={() => checkout.mutate({ id: view.id, purpose }, { onSuccess: ({ checkoutUrl }) => window.location.assign(checkoutUrl) })}
       >
-        {label ?? `Pay the deposit · ${formatMoney(depositOwedCents(view), currency)}`}
+        {label}
       </Button>
       {checkout.isError && <p className="text-sm font-medium text-danger-700" role="alert">{problemOf(checkout.error)}</p>}
+    </div>
+  )
+}
+
+export function PayDepositButton({ view, label }: { view: RequestView; label?: string }) {
+  return <CheckoutButton view={view} purpose="deposit" label={label ?? `Pay the deposit · ${formatMoney(depositOwedCents(view), view.quote?.currency ?? 'USD')}`} />
+}
+
+export function PayBalanceButton({ view, label }: { view: RequestView; label?: string }) {
+  return <CheckoutButton view={view} purpose="balance" label={label ?? `Pay the balance · ${formatMoney(view.owedCents, view.quote?.currency ?? 'USD')}`} />
+}
+
+/** The price the measured ware gives, before and after, for the potter to agree to. */
+function ConfirmPrice({ view }: { view: RequestView }) {
+  const confirm = useConfirmPrice()
+  const before = view.checkIn?.quoteBefore
+  const after = view.checkIn?.quoteAfter
+  if (!after) return null
+  const currency = after.currency
+  return (
+    <div className="space-y-3 rounded-control border border-ember-300 bg-ember-100/40 p-4" data-testid="confirm-price">
+      <h3 className="font-semibold">The studio measured your ware</h3>
+      <p className="text-sm text-slip-800">
+        The price goes from {before ? formatMoney(before.totalCents, currency) : 'the first quote'} to <strong>{formatMoney(after.totalCents, currency)}</strong>. It needs your agreement before the firing.
+      </p>
+      <QuoteSummary quote={after} />
+      <Button busy={confirm.isPending} onClick={() => confirm.mutate(view.id)}>
+        Confirm the new price
+      </Button>
+      {confirm.isError && <p className="text-sm font-medium text-danger-700" role="alert">{problemOf(confirm.error)}</p>}
+      <p className="text-xs text-slip-600">If the sizes look wrong, ask the studio in the messages before confirming.</p>
     </div>
   )
 }
@@ -64,6 +96,21 @@ export function PotterActions({ view, units }: { view: RequestView; units: UnitS
           {answer.isError && <p className="mt-2 text-sm font-medium text-danger-700" role="alert">{problemOf(answer.error)}</p>}
           <p className="mt-2 text-xs text-slip-600">Moving means the studio has accepted your ware in that firing; you then pay the deposit.</p>
         </div>
+      )}
+
+      {can('confirm-price') && <ConfirmPrice view={view} />}
+
+      {can('pay-balance') && (
+        <div className="space-y-1">
+          <PayBalanceButton view={view} />
+          <p className="text-xs text-slip-600">Or pay at the studio’s counter when you collect.</p>
+        </div>
+      )}
+
+      {can('rate') && (
+        <a href="#ratings-heading" className="block text-sm font-semibold text-clay-700 hover:underline">
+          {view.ratings.ofStudio ? 'See your rating' : `Rate ${view.studio.name}`} ↓
+        </a>
       )}
 
       {can('pay-deposit') && (

@@ -13,6 +13,7 @@ import { formatSpace, type UnitSystem } from '../../../lib/units'
 import { useStudioFirings } from '../api/firings'
 import { useAcceptRequest, useDeclineRequest, useProposeMove } from '../api/requests'
 import type { RequestView } from '../api/types'
+import { HandoverActions } from './HandoverActions'
 
 const problemOf = (error: unknown) => (error instanceof ApiError ? error.message : 'Something went wrong. Please try again.')
 
@@ -142,27 +143,45 @@ export function StudioActions({ view, units }: { view: RequestView; units: UnitS
   const can = (action: RequestView['actions'][number]) => view.actions.includes(action)
   const paid = view.paid.inCents - view.paid.refundedCents
   const currency = view.quote?.currency ?? view.ledger[0]?.currency ?? 'USD'
-  if (!can('accept') && !can('decline') && !can('move') && !can('cancel')) return null
+  const deciding = can('accept') || can('decline') || can('move') || can('cancel')
   return (
     <div className="space-y-3">
-      <div className="flex flex-wrap items-start gap-2">
-        {can('accept') && <AcceptButton requestId={view.id} />}
-        {can('decline') && view.state === 'sent' && (
-          <Button variant="secondary" onClick={() => setDialog('decline')}>
-            Decline…
-          </Button>
-        )}
-        {can('move') && (
-          <Button variant="secondary" onClick={() => setDialog('move')}>
-            Suggest another firing…
-          </Button>
-        )}
-        {can('cancel') && (
-          <Button variant="ghost" onClick={() => setDialog('cancel')}>
-            Cancel the request…
-          </Button>
-        )}
-      </div>
+      {can('check-in') && (
+        <a href="#check-in-heading" className="block text-sm font-semibold text-clay-700 hover:underline">
+          Check the ware in ↓
+        </a>
+      )}
+      {can('results') && (
+        <a href="#results-heading" className="block text-sm font-semibold text-clay-700 hover:underline">
+          {view.results ? 'Change the results' : 'Post the results'} ↓
+        </a>
+      )}
+      <HandoverActions view={view} />
+      {can('rate') && (
+        <a href="#ratings-heading" className="block text-sm font-semibold text-clay-700 hover:underline">
+          {view.ratings.ofPotter ? 'See your rating' : `Rate ${view.potter.displayName}`} ↓
+        </a>
+      )}
+      {deciding && (
+        <div className="flex flex-wrap items-start gap-2">
+          {can('accept') && <AcceptButton requestId={view.id} />}
+          {can('decline') && view.state === 'sent' && (
+            <Button variant="secondary" onClick={() => setDialog('decline')}>
+              Decline…
+            </Button>
+          )}
+          {can('move') && (
+            <Button variant="secondary" onClick={() => setDialog('move')}>
+              Suggest another firing…
+            </Button>
+          )}
+          {can('cancel') && (
+            <Button variant="ghost" onClick={() => setDialog('cancel')}>
+              Cancel the request…
+            </Button>
+          )}
+        </div>
+      )}
       {can('accept') && <p className="text-xs text-slip-600">Accepting holds {formatSpace(view.volumeL, units)} and asks the potter for the deposit.</p>}
       <ReasonDialog requestId={view.id} open={dialog === 'decline'} onClose={() => setDialog(null)} mode="decline" />
       <ReasonDialog

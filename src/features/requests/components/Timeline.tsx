@@ -11,7 +11,12 @@ export function Timeline({ entries, zone }: { entries: TimelineEntry[]; zone: st
         <li key={`${entry.at}-${index}`} className="relative">
           <span className="absolute -left-[1.72rem] top-1 size-3 rounded-full border-2 border-white bg-clay-500" aria-hidden />
           <p className="text-sm text-slip-900">
-            {entry.from ? (
+            {entry.from === entry.to && entry.reason ? (
+              // A step within a state (loaded, firing, results posted): the step is the news.
+              <>
+                <strong className="font-semibold">{entry.reason}</strong> <span className="text-slip-500">· {stateLabel(entry.to)}</span>
+              </>
+            ) : entry.from ? (
               <>
                 {stateLabel(entry.from)} <span aria-label="to">→</span> <strong className="font-semibold">{stateLabel(entry.to)}</strong>
               </>
@@ -22,7 +27,7 @@ export function Timeline({ entries, zone }: { entries: TimelineEntry[]; zone: st
           <p className="text-xs text-slip-600">
             {entry.by} · <time dateTime={entry.at}>{formatDateTime(entry.at, zone)}</time>
           </p>
-          {entry.reason && <p className="mt-0.5 text-sm text-slip-700">“{entry.reason}”</p>}
+          {entry.reason && entry.from !== entry.to && <p className="mt-0.5 text-sm text-slip-700">“{entry.reason}”</p>}
         </li>
       ))}
     </ol>

@@ -26,6 +26,7 @@ import { FiringSummary } from '../components/FiringSummary'
 import { RequestProblem } from '../components/RequestProblem'
 import { SendDialog } from '../components/SendDialog'
 import { SpaceGauge } from '../components/SpaceGauge'
+import { WarePhotos } from '../components/WarePhotos'
 import { checkAgainst, parseCompose, type ComposeValues } from '../composeForm'
 
 const CHECK_ID = 'request-check'
@@ -137,6 +138,10 @@ function ComposeForm({ firing, kiln, priceList, studio, draft, units }: ComposeF
               {(a11y) => <TextArea {...a11y} rows={4} {...register('notes')} />}
             </Field>
           </Card>
+          <Card>
+            <h2 className="mb-3 text-lg font-semibold">Photos of your ware</h2>
+            {draftId ? <DraftPhotos draftId={draftId} /> : <p className="text-sm text-slip-600">Save the draft first, then add photos: they help the studio see the glazed feet and any runny glaze before it says yes.</p>}
+          </Card>
           <div className="space-y-3">
             {save.isError && (
               <Alert tone="danger" title="Not saved">
@@ -191,4 +196,12 @@ function ComposeForm({ firing, kiln, priceList, studio, draft, units }: ComposeF
       <SendDialog requestId={sendingId} onClose={() => setSendingId(null)} onSent={(view) => navigate(`/requests/${view.id}`)} />
     </>
   )
+}
+
+/** The saved draft's photos; they stay with the request when it is sent. */
+function DraftPhotos({ draftId }: { draftId: string }) {
+  const draft = useRequest(draftId)
+  if (draft.isPending) return <Spinner label="Loading your photos…" />
+  if (draft.isError) return <RequestProblem error={draft.error} what="your photos" onRetry={() => draft.refetch()} />
+  return <WarePhotos view={draft.data} />
 }

@@ -5,6 +5,8 @@ import { HOLDING_STATES } from '../../../../shared/workflow/request-states'
 import { Alert } from '../../../components/ui/Alert'
 import { Card } from '../../../components/ui/Card'
 import { Spinner } from '../../../components/ui/Spinner'
+import { FiringLogView } from '../../../components/firing/FiringLog'
+import { ButtonLink } from '../../../components/ui/Button'
 import { FindingsList, VerdictLine } from '../../../components/ware/CheckResults'
 import { QuoteSummary } from '../../../components/ware/QuoteSummary'
 import { firingInWords } from '../../../lib/firingWords'
@@ -16,7 +18,13 @@ import { FiringSummary } from '../components/FiringSummary'
 import { Ledger } from '../components/Ledger'
 import { MessageThread } from '../components/MessageThread'
 import { PiecesTable } from '../components/PiecesTable'
-import { PayDepositButton, PotterActions } from '../components/PotterActions'
+import { CheckInForm } from '../components/CheckInForm'
+import { DropOffRecord, PriceChangeNote } from '../components/DropOffRecord'
+import { PayBalanceButton, PayDepositButton, PotterActions } from '../components/PotterActions'
+import { RatingsPanel } from '../components/RatingsPanel'
+import { ResultsForm, ResultsView } from '../components/ResultsPanel'
+import { WarePhotos } from '../components/WarePhotos'
+import { potterPickupStep, priceChange, standingQuote, studioPickupStep } from '../pickupWords'
 import { PotterRecordLine } from '../components/PotterRecordLine'
 import { RequestProblem } from '../components/RequestProblem'
 import { RequestStateBadge } from '../components/RequestStateBadge'
@@ -24,6 +32,9 @@ import { SpaceGauge } from '../components/SpaceGauge'
 import { StudioActions } from '../components/StudioActions'
 import { Timeline } from '../components/Timeline'
 import { potterNextStep, studioNextStep } from '../requestWords'
+
+/** States in which what is still owed is worth a line of its own: from the drop-off to the handover. */
+const OWING_STATES: readonly RequestView['state'][] = ['deposit_paid', 'received', 'fired', 'ready', 'collected']
 
 /** How long a return from the payment page waits for the payment's confirmation before explaining. */
 const CONFIRM_WINDOW_MS = 30_000
@@ -35,13 +46,15 @@ export function RequestPage() {
   const [params] = useSearchParams()
   const me = useMe()
   const units: UnitSystem = me.data?.unitSystem ?? 'imperial'
-  const returnedPaid = params.get('paid') === 'deposit'
+  const paidFor = paymentPurpose(params.get('paid'))
+  const unpaidFor = paymentPurpose(params.get('unpaid'))
+  const returnedPaid = paidFor !== null
   const [returnedAt] = useState(() => Date.now())
   const [waitedOut, setWaitedOut] = useState(false)
 
   // Back from the hosted page: the payment is confirmed by the provider's webhook a moment later.
   const polling: RequestPolling = (view) =>
-    returnedPaid && view?.state === 'accepted' && Date.now() - returnedAt < CONFIRM_WINDOW_MS ? CONFIRM_POLL_MS : false
+    paidFor && view && awaitingConfirmation(view, paidFor) && Date.now() - returnedAt < CONFIRM_WINDOW_MS ? CONFIRM_POLL_MS : false
   const request = useRequest(id, polling)
 
   useEffect(() => {
@@ -52,36 +65,98 @@ export function RequestPage() {
 
   if (request.isPending) return <Spinner label="Loading the request…" />
   if (request.isError) return <RequestProblem error={request.error} what="this request" onRetry={() => request.refetch()} />
-  return <RequestDetail view={request.data} units={units} returnedPaid={returnedPaid} waitedOut={waitedOut} returnedUnpaid={params.get('unpaid') === 'deposit'} />
+  return <RequestDetail view={request.data} units={units} paidFor={paidFor} waitedOut={waitedOut} unpaidFor={unpaidFor} />
 }
+
+type PaymentPurpose = 'deposit' | 'balance'
+
+const paymentPurpose = (value: string | null): PaymentPurpose | null => (value === 'deposit' || value === 'balance' ? value : null)
+
+/** Whether the page still waits for the webhook to book what the potter just paid. */
+const awaitingConfirmation = (view: RequestView, purpose: PaymentPurpose) => (purpose === 'deposit' ? view.state === 'accepted' : view.state === 'ready' && view.owedCents > 0)
 
 interface DetailProps {
   view: RequestView
   units: UnitSystem
+  paidFor: PaymentPurpose | null
+  unpaidFor: PaymentPurpose | null
+  waitedOut: boolean
+}
+
+function PaymentNotices(props: Omit<DetailProps, 'units'>) {
+  if (props.view.viewer === 'studio') return null
+  return (
+    <>
+      <DepositNotices view={props.view} returnedPaid={props.paidFor === 'deposit'} returnedUnpaid={props.unpaidFor === 'deposit'} waitedOut={props.waitedOut} />
+      <BalanceNotices view={props.view} returnedPaid={props.paidFor === 'balance'} returnedUnpaid={props.unpaidFor === 'balance'} waitedOut={props.waitedOut} />
+    </>
+  )
+}
+
+interface NoticeProps {
+  view: RequestView
   returnedPaid: boolean
   returnedUnpaid: boolean
   waitedOut: boolean
 }
 
-function PaymentNotices({ view, returnedPaid, returnedUnpaid, waitedOut }: Omit<DetailProps, 'units'>) {
-  if (view.viewer === 'studio') return null
+function ConfirmingPayment() {
+  return (
+    <Alert tone="info" title="Confirming your payment…">
+      <span className="inline-flex items-center gap-2">
+        <span className="size-4 animate-spin rounded-full border-2 border-clay-500 border-t-transparent" aria-hidden />
+        The payment page sent you back; the card payment is being confirmed. This takes a few seconds.
+      </span>
+    </Alert>
+  )
+}
+
+function NotConfirmedYet() {
+  return (
+    <Alert tone="warning" title="Your payment is not confirmed yet">
+      We have not heard back from the card payment in 30 seconds. If the payment page showed it as paid, it will appear here shortly and you will get a mail; reload this page in a minute. If the payment page showed an error, nothing was charged and you can pay again.
+    </Alert>
+  )
+}
+
+function BalanceNotices({ view, returnedPaid, returnedUnpaid, waitedOut }: NoticeProps) {
+  const awaiting = awaitingConfirmation(view, 'balance')
+  const declined = view.payments.find((p) => p.purpose === 'balance' && p.failureMessage && p.status !== 'paid')
+  return (
+    <div className="space-y-3" aria-live="polite" data-testid="balance-notices">
+      {returnedPaid && awaiting && !waitedOut && <ConfirmingPayment />}
+      {returnedPaid && awaiting && waitedOut && <NotConfirmedYet />}
+      {returnedPaid && !awaiting && view.owedCents === 0 && (
+        <Alert tone="success" title="Balance paid">
+          Thank you: nothing more is owed. Collect your ware in the studio’s pickup hours.
+        </Alert>
+      )}
+      {returnedUnpaid && awaiting && (
+        <Alert tone="warning" title="The payment was not completed">
+          <p>Nothing was charged. You can pay online again, or at the counter when you collect.</p>
+          {view.actions.includes('pay-balance') && (
+            <div className="mt-2">
+              <PayBalanceButton view={view} label="Try the payment again" />
+            </div>
+          )}
+        </Alert>
+      )}
+      {awaiting && declined && !returnedPaid && (
+        <Alert tone="danger" title="Your card was declined">
+          {declined.failureMessage} Try another card, or pay at the counter.
+        </Alert>
+      )}
+    </div>
+  )
+}
+
+function DepositNotices({ view, returnedPaid, returnedUnpaid, waitedOut }: NoticeProps) {
   const awaiting = view.state === 'accepted'
   const declined = view.payments.find((p) => p.purpose === 'deposit' && p.failureMessage && p.status !== 'paid')
   return (
     <div className="space-y-3" aria-live="polite">
-      {returnedPaid && awaiting && !waitedOut && (
-        <Alert tone="info" title="Confirming your payment…">
-          <span className="inline-flex items-center gap-2">
-            <span className="size-4 animate-spin rounded-full border-2 border-clay-500 border-t-transparent" aria-hidden />
-            The payment page sent you back; the card payment is being confirmed. This takes a few seconds.
-          </span>
-        </Alert>
-      )}
-      {returnedPaid && awaiting && waitedOut && (
-        <Alert tone="warning" title="Your payment is not confirmed yet">
-          We have not heard back from the card payment in 30 seconds. If the payment page showed it as paid, it will appear here shortly and you will get a mail; reload this page in a minute. If the payment page showed an error, nothing was charged and you can pay again.
-        </Alert>
-      )}
+      {returnedPaid && awaiting && !waitedOut && <ConfirmingPayment />}
+      {returnedPaid && awaiting && waitedOut && <NotConfirmedYet />}
       {returnedPaid && view.state === 'deposit_paid' && (
         <Alert tone="success" title="Deposit paid">
           Thank you. Your space is held; bring your ware by the drop-off time below.
@@ -106,11 +181,18 @@ function PaymentNotices({ view, returnedPaid, returnedUnpaid, waitedOut }: Omit<
   )
 }
 
-function RequestDetail({ view, units, returnedPaid, returnedUnpaid, waitedOut }: DetailProps) {
+function RequestDetail({ view, units, paidFor, unpaidFor, waitedOut }: DetailProps) {
   const zone = view.studio.timezone
   const isStudio = view.viewer !== 'potter'
   const facts = { state: view.state, depositDueAt: view.depositDueAt, proposedFiringId: view.proposedFiring?.id ?? null, dropOffBy: view.firing.dropOffBy, timezone: zone }
-  const nextStep = view.viewer === 'studio' ? studioNextStep(facts) : potterNextStep(facts)
+  const nextStep =
+    view.viewer === 'studio' ? (studioPickupStep(view.state, view) ?? studioNextStep(facts)) : (potterPickupStep(view.state, view) ?? potterNextStep(facts))
+  const standing = standingQuote(view)
+  const change = priceChange(view)
+  const remeasured = change !== null && !change.waiting
+  const currency = view.quote?.currency ?? view.ledger[0]?.currency ?? 'USD'
+  const showResults = view.results !== null || view.actions.includes('results') || view.photos.some((p) => p.kind === 'result')
+  const showRatings = view.actions.includes('rate') || view.ratings.ofStudio !== null || view.ratings.ofPotter !== null
   const warnings = view.findings.filter((f) => f.severity === 'warn')
   const acknowledged = view.acknowledgedWarnings.map((code) => ({ code, message: warnings.find((f) => f.code === code)?.message ?? code }))
   const decided = !['draft', 'sent'].includes(view.state)
@@ -140,7 +222,7 @@ function RequestDetail({ view, units, returnedPaid, returnedUnpaid, waitedOut }:
         </p>
       </header>
 
-      <PaymentNotices view={view} returnedPaid={returnedPaid} returnedUnpaid={returnedUnpaid} waitedOut={waitedOut} />
+      <PaymentNotices view={view} paidFor={paidFor} unpaidFor={unpaidFor} waitedOut={waitedOut} />
 
       {/* On a phone what can be done comes first; on a wide screen it heads the side column. */}
       <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_22rem] lg:grid-rows-[auto_1fr] lg:items-start">
@@ -171,6 +253,70 @@ function RequestDetail({ view, units, returnedPaid, returnedUnpaid, waitedOut }:
               </p>
             )}
           </Card>
+
+          {showRatings && (
+            <Card>
+              <h2 id="ratings-heading" className="mb-3 scroll-mt-4 text-lg font-semibold">
+                Ratings
+              </h2>
+              <RatingsPanel view={view} />
+            </Card>
+          )}
+
+          {view.actions.includes('check-in') && (
+            <Card>
+              <h2 id="check-in-heading" className="mb-3 scroll-mt-4 text-lg font-semibold">
+                Check the ware in
+              </h2>
+              <CheckInForm view={view} units={units} />
+            </Card>
+          )}
+
+          {view.checkIn && (
+            <Card>
+              <h2 className="mb-3 text-lg font-semibold">{view.checkIn.refused ? 'Drop-off' : 'Received'}</h2>
+              <DropOffRecord view={view} checkIn={view.checkIn} units={units} />
+            </Card>
+          )}
+
+          {(view.firingLog || (isStudio && ['received', 'fired', 'ready'].includes(view.state))) && (
+            <Card>
+              <div className="mb-3 flex flex-wrap items-center justify-between gap-2">
+                <h2 className="text-lg font-semibold">The firing log</h2>
+                {view.viewer !== 'potter' && (
+                  <ButtonLink to={`/firings/${view.firing.id}/log`} variant="secondary" size="sm">
+                    {view.firingLog ? 'Open the log' : 'Write the log'}
+                  </ButtonLink>
+                )}
+              </div>
+              {view.firingLog ? (
+                <FiringLogView log={view.firingLog} zone={zone} units={units} />
+              ) : (
+                <p className="text-sm text-slip-600">Nothing logged yet. The log is kept per firing; every potter in it sees it here.</p>
+              )}
+            </Card>
+          )}
+
+          {showResults && (
+            <Card>
+              <h2 id="results-heading" className="mb-3 scroll-mt-4 text-lg font-semibold">
+                Results
+              </h2>
+              {view.actions.includes('results') ? (
+                <div className="space-y-6">
+                  <ResultsForm view={view} />
+                  {view.results && (
+                    <div className="border-t border-slip-200 pt-4">
+                      <h3 className="mb-2 text-sm font-semibold">What the potter sees</h3>
+                      <ResultsView view={view} results={view.results} />
+                    </div>
+                  )}
+                </div>
+              ) : (
+                <ResultsView view={view} results={view.results} />
+              )}
+            </Card>
+          )}
 
           <section aria-labelledby="pieces-heading" className="space-y-3">
             <h2 id="pieces-heading" className="text-lg font-semibold">
@@ -204,14 +350,29 @@ function RequestDetail({ view, units, returnedPaid, returnedUnpaid, waitedOut }:
           </Card>
 
           <Card>
-            <h2 className="mb-3 text-lg font-semibold">Quote</h2>
-            {view.quote ? <QuoteSummary quote={view.quote} /> : <p className="text-sm text-slip-600">The kiln has no price list; the studio quotes in the messages.</p>}
-            {(view.paid.inCents > 0 || view.paid.refundedCents > 0) && view.quote && (
+            <h2 className="mb-3 text-lg font-semibold">{remeasured ? 'Quote, as measured at check-in' : 'Quote'}</h2>
+            {standing ? <QuoteSummary quote={standing} /> : <p className="text-sm text-slip-600">The kiln has no price list; the studio quotes in the messages.</p>}
+            {view.checkIn && (
+              <div className="mt-3">
+                <PriceChangeNote view={view} currency={currency} />
+              </div>
+            )}
+            {(view.paid.inCents > 0 || view.paid.refundedCents > 0) && (
               <p className="mt-3 text-sm text-slip-700" data-testid="paid-summary">
-                Paid {formatMoney(view.paid.inCents, view.quote.currency)}
-                {view.paid.refundedCents > 0 && `, refunded ${formatMoney(view.paid.refundedCents, view.quote.currency)}`}.
+                Paid {formatMoney(view.paid.inCents, currency)}
+                {view.paid.refundedCents > 0 && `, refunded ${formatMoney(view.paid.refundedCents, currency)}`}.
               </p>
             )}
+            {OWING_STATES.includes(view.state) && (
+              <p className={`mt-2 text-sm ${view.owedCents > 0 ? 'font-semibold text-slip-900' : 'text-celadon-700'}`} data-testid="owed" data-owed-cents={view.owedCents}>
+                {view.owedCents > 0 ? `Still owed: ${formatMoney(view.owedCents, currency)}` : 'Nothing more is owed.'}
+              </p>
+            )}
+          </Card>
+
+          <Card>
+            <h2 className="mb-3 text-lg font-semibold">Photos of the ware</h2>
+            <WarePhotos view={view} />
           </Card>
 
           <section aria-labelledby="ledger-heading" className="space-y-3">
@@ -249,7 +410,7 @@ function RequestDetail({ view, units, returnedPaid, returnedUnpaid, waitedOut }:
 
           {!isStudio && (
             <Card>
-              <h2 className="mb-2 text-lg font-semibold">Drop-off</h2>
+              <h2 className="mb-2 text-lg font-semibold">{view.state === 'ready' ? 'Pickup' : 'Drop-off'}</h2>
               {view.studio.address ? (
                 <address className="whitespace-pre-line text-sm not-italic text-slip-900" data-testid="studio-address">
                   {view.studio.address}

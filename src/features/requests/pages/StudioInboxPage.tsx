@@ -18,6 +18,7 @@ import { RequestProblem } from '../components/RequestProblem'
 import { RequestStateBadge } from '../components/RequestStateBadge'
 import { SpaceGauge } from '../components/SpaceGauge'
 import { AcceptButton, ReasonDialog } from '../components/StudioActions'
+import { studioPickupStep } from '../pickupWords'
 import { stateLabel, studioNextStep } from '../requestWords'
 
 /** /studios/:id/requests: every request to the studio. */
@@ -148,7 +149,7 @@ function InboxRow({ row, units, spaceLeftL, showFiring }: { row: RequestRow; uni
             {waiting ? (
               detail.data ? <PotterRecordLine name={row.potterName} record={detail.data.potter.record} /> : <span className="text-slip-500">Loading the potter’s record…</span>
             ) : (
-              <span className="text-slip-600">{studioNextStep({ ...row, dropOffBy: row.firing.dropOffBy, timezone: zone })}</span>
+              <span className="text-slip-600">{studioPickupStep(row.state) ?? studioNextStep({ ...row, dropOffBy: row.firing.dropOffBy, timezone: zone })}</span>
             )}
           </p>
           <p className="flex flex-wrap items-center gap-2 text-sm text-slip-700">

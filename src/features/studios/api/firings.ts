@@ -36,7 +36,14 @@ export function useUpdateFiring(studioId: string) {
   return useMutation({
     mutationFn: ({ firingId, body }: { firingId: string; body: FiringPatchBody }) =>
       api<FiringRecord>(`/api/firings/${firingId}`, { method: 'PATCH', body }),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: studioKeys.firings(studioId) }),
+    // A status move can move every request in the firing (loading lapses no-shows, unloading fires the rest).
+    onSuccess: (firing) => {
+      queryClient.setQueryData(studioKeys.firing(firing.id), firing)
+      return Promise.all([
+        queryClient.invalidateQueries({ queryKey: studioKeys.firings(studioId) }),
+        queryClient.invalidateQueries({ queryKey: studioKeys.firingRequests(firing.id) }),
+      ])
+    },
   })
 }
 

@@ -4,29 +4,19 @@ import { useForm } from 'react-hook-form'
 import type { z } from 'zod'
 import { formatDateTime } from '../../../../shared/dates'
 import { firingCancelSchema } from '../../../../shared/schemas/studios'
-import type { FiringStatus } from '../../../../shared/workflow/firing-status'
+import { wareIsLoaded } from '../../../../shared/workflow/firing-status'
 import { Alert } from '../../../components/ui/Alert'
-import { Button } from '../../../components/ui/Button'
+import { Button, ButtonLink } from '../../../components/ui/Button'
 import { Dialog } from '../../../components/ui/Dialog'
 import { Field, TextArea } from '../../../components/ui/Field'
 import { applyServerErrors } from '../../../lib/forms'
-import { useCancelFiring, useUpdateFiring } from '../api/firings'
+import { useCancelFiring } from '../api/firings'
 import type { FiringRecord } from '../api/types'
 import type { UnitSystem } from '../../../lib/units'
 import { firingInWords } from '../../../lib/firingWords'
 import { FillGauge } from './FillGauge'
 import { FiringStatusBadge } from './FiringStatusBadge'
-
-/** What the studio does to move a firing on, in its words. */
-const STATUS_ACTIONS: Record<Exclude<FiringStatus, 'cancelled'>, string> = {
-  open: 'Take ware again',
-  full: 'Mark full',
-  closed: 'Stop taking ware',
-  loading: 'Start loading',
-  firing: 'Kiln is firing',
-  cooling: 'Kiln is cooling',
-  unloaded: 'Kiln unloaded',
-}
+import { FiringStatusButtons } from './FiringStatusButtons'
 
 interface FiringDialogProps {
   firing: FiringRecord | null
@@ -55,8 +45,7 @@ export function FiringDialog({ firing, kilnName, zone, units, onClose }: FiringD
 }
 
 function FiringDetails({ firing, zone, units, onCancel }: { firing: FiringRecord; zone: string; units: UnitSystem; onCancel: () => void }) {
-  const update = useUpdateFiring(firing.studioId)
-  const moves = firing.nextStatuses.filter((s): s is Exclude<FiringStatus, 'cancelled'> => s !== 'cancelled')
+  const movable = firing.nextStatuses.some((s) => s !== 'cancelled')
   const canCancel = firing.nextStatuses.includes('cancelled')
   return (
     <div className="space-y-4">
@@ -88,29 +77,24 @@ function FiringDetails({ firing, zone, units, onCancel }: { firing: FiringRecord
           </>
         )}
       </dl>
-      {update.isError && <Alert tone="danger">{update.error.message}</Alert>}
-      {moves.length > 0 || canCancel ? (
+      {firing.status !== 'cancelled' && (
+        <div className="flex flex-wrap items-center gap-3 rounded-control border border-slip-200 bg-slip-50 p-3">
+          <p className="flex-1 text-sm text-slip-700">{wareIsLoaded(firing.status) ? 'Times, peak and witness cones for every potter in this firing.' : 'The log of the firing and the requests in it, from check-in to results.'}</p>
+          <ButtonLink to={`/firings/${firing.id}/log`} variant="secondary" size="sm">
+            Firing log
+          </ButtonLink>
+        </div>
+      )}
+      {movable || canCancel ? (
         <div className="space-y-2">
           <p className="text-sm font-medium text-slip-800">Move this firing on</p>
-          <div className="flex flex-wrap gap-2" role="group" aria-label="Change status">
-            {moves.map((status) => (
-              <Button
-                key={status}
-                variant="secondary"
-                size="sm"
-                busy={update.isPending && update.variables?.body.status === status}
-                disabled={update.isPending}
-                onClick={() => update.mutate({ firingId: firing.id, body: { status } })}
-              >
-                {STATUS_ACTIONS[status]}
-              </Button>
-            ))}
+          <FiringStatusButtons firing={firing}>
             {canCancel && (
               <button type="button" onClick={onCancel} className="rounded-control px-3 py-1.5 text-sm font-semibold text-danger-700 hover:bg-danger-50">
                 Cancel this firing…
               </button>
             )}
-          </div>
+          </FiringStatusButtons>
         </div>
       ) : (
         <p className="text-sm text-slip-600">This firing is {firing.status === 'cancelled' ? 'cancelled' : 'done'}; nothing more to change.</p>

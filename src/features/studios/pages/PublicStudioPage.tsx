@@ -18,6 +18,7 @@ import { isMemberView, type FiringRecord, type KilnWithPrices, type Studio } fro
 import { ApiProblem } from '../components/ApiProblem'
 import { FiringRows } from '../components/FiringRows'
 import { StudioNav } from '../components/StudioNav'
+import { RatingSummary, StudioRatings } from '../components/StudioRatings'
 import type { UnitSystem } from '../../../lib/units'
 import { kilnLimitsInWords, policiesInWords } from '../../../lib/firingWords'
 import { zoneAbbreviation } from '../zonedTime'
@@ -70,6 +71,9 @@ function StudioProfile({ studio }: { studio: Studio }) {
           )}
         </div>
         <p className="mt-1 text-slip-600">{place || studio.country}</p>
+        <div className="mt-2">
+          <RatingSummary studioId={studio.id} />
+        </div>
         {studio.description && <p className="mt-4 max-w-3xl whitespace-pre-line text-slip-800">{studio.description}</p>}
       </header>
 
@@ -147,6 +151,8 @@ function StudioProfile({ studio }: { studio: Studio }) {
           </>
         )}
       </section>
+
+      <StudioRatings studioId={studio.id} zone={zone} />
 
       <section aria-labelledby="policies-heading" className="space-y-3">
         <h2 id="policies-heading" className="text-xl font-bold tracking-tight">

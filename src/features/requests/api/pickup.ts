@@ -1,0 +1,86 @@
+// From drop-off to pickup: check-in, the changed price, results, ready, the balance, collection,
+// ratings and photos. Every change that answers with the request puts it in the cache; the rest
+// refetch the request they touched.
+import { useMutation, useQueryClient } from '@tanstack/react-query'
+import type { z } from 'zod'
+import type { checkInSchema, ratingSchema, resultsSchema } from '../../../../shared/schemas/pickup'
+import type { PhotoRecord } from '../../../components/photos/photoTypes'
+import { api } from '../../../lib/api'
+import { requestKeys } from './keys'
+import { useRequestChange } from './requests'
+import type { CheckInOutcome, RequestRatings, RequestView } from './types'
+
+export type CheckInBody = z.infer<typeof checkInSchema>
+export type ResultsBody = z.infer<typeof resultsSchema>
+export type RatingBody = z.infer<typeof ratingSchema>
+
+/** The check-in's answer is kept under this key, so the page can show the findings after the form has gone. */
+export const checkInMutationKey = (id: string) => ['requests', 'detail', id, 'check-in'] as const
+
+/** Changes that answer with something else: the request they touched is fetched again. */
+function useRefetchingChange<TVariables extends { id: string }, TAnswer>(request: (variables: TVariables) => Promise<TAnswer>) {
+  const queryClient = useQueryClient()
+  return useMutation({
+    mutationFn: request,
+    onSuccess: (_answer, { id }) => Promise.all([queryClient.invalidateQueries({ queryKey: requestKeys.detail(id), exact: true }), queryClient.invalidateQueries({ queryKey: requestKeys.lists() })]),
+  })
+}
+
+export function useCheckIn(id: string) {
+  const queryClient = useQueryClient()
+  return useMutation({
+    mutationKey: checkInMutationKey(id),
+    mutationFn: (body: CheckInBody) => api<CheckInOutcome>(`/api/requests/${id}/check-in`, { method: 'POST', body }),
+    onSuccess: (outcome) => {
+      queryClient.setQueryData(requestKeys.detail(id), outcome.request)
+      return queryClient.invalidateQueries({ queryKey: requestKeys.lists() })
+    },
+  })
+}
+
+export function useConfirmPrice() {
+  return useRequestChange((id: string) => api<RequestView>(`/api/requests/${id}/confirm-price`, { method: 'POST' }))
+}
+
+export function usePostResults() {
+  return useRequestChange(({ id, body }: { id: string; body: ResultsBody }) => api<RequestView>(`/api/requests/${id}/results`, { method: 'POST', body }))
+}
+
+export function useMarkReady() {
+  return useRequestChange((id: string) => api<RequestView>(`/api/requests/${id}/ready`, { method: 'POST' }))
+}
+
+/** Money taken at the studio's counter: what is owed now, unless a smaller amount is given. */
+export function useCounterPayment() {
+  return useRefetchingChange(({ id, amountCents, note }: { id: string; amountCents?: number; note?: string }) =>
+    api<{ owedCents: number }>(`/api/requests/${id}/balance/counter`, { method: 'POST', body: { ...(amountCents ? { amountCents } : {}), ...(note ? { note } : {}) } }),
+  )
+}
+
+export function useMarkCollected() {
+  return useRequestChange((id: string) => api<RequestView>(`/api/requests/${id}/collected`, { method: 'POST' }))
+}
+
+export function useRate() {
+  return useRefetchingChange(({ id, body }: { id: string; body: RatingBody }) => api<RequestRatings>(`/api/requests/${id}/rating`, { method: 'POST', body }))
+}
+
+export function useReplyToRating() {
+  return useRefetchingChange(({ id, text }: { id: string; text: string }) => api<RequestRatings>(`/api/requests/${id}/rating/reply`, { method: 'POST', body: { text } }))
+}
+
+/** The potter lets a result photo show on the studio's public page, or takes it back. */
+export function useSetPhotoPublic(requestId: string) {
+  const queryClient = useQueryClient()
+  return useMutation({
+    mutationFn: ({ photoId, shown }: { photoId: string; shown: boolean }) => api<PhotoRecord>(`/api/photos/${photoId}`, { method: 'PATCH', body: { public: shown } }),
+    onSuccess: (photo) =>
+      queryClient.setQueryData<RequestView>(requestKeys.detail(requestId), (view) => (view ? { ...view, photos: view.photos.map((p) => (p.id === photo.id ? photo : p)) } : view)),
+  })
+}
+
+/** After an upload: the request's photos are read again. */
+export function useRefreshPhotos(requestId: string) {
+  const queryClient = useQueryClient()
+  return () => queryClient.invalidateQueries({ queryKey: requestKeys.detail(requestId), exact: true })
+}

@@ -1,0 +1,423 @@
+// In a real browser against the real server, the Stripe stand-in and the mail catcher, from drop-off
+// to ratings: the host checks a paid request's ware in with a photo; the potter sees it received and
+// gets the drop-off mail; the host moves the firing through loading, firing, cooling and unloaded
+// from its log page and fills the log (peak, witness cones); results go up with a photo and the
+// potter sees them; the ready mail arrives; the potter pays the balance on the hosted page; the host
+// marks the ware collected and the pickup mail arrives; both rate, and the studio's public page
+// shows the new rating with the studio's reply.
+import type { Browser, BrowserContext, Locator, Page } from 'playwright-core'
+import sharp from 'sharp'
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { launchBrowser, openPage } from '../support/browser'
+import { CARD_SUCCEEDS, submitCard } from '../support/checkout'
+import { waitForMail } from '../support/mailbox'
+import { createPerson, PERSON_PASSWORD, type Person } from '../support/people'
+import { draftAndSend, mug } from '../support/request-fixtures'
+import { firingBody, publishedStudio } from '../support/studio-fixtures'
+import { startTestApp, type TestApp } from '../support/test-app'
+import { waitUntil } from '../support/wait'
+
+let app: TestApp
+let browser: Browser
+const contexts: BrowserContext[] = []
+let host: Person
+let potter: Person
+let studioId = ''
+let kilnId = ''
+let firingId = ''
+let requestId = ''
+let quote = { totalCents: 0, depositCents: 0 }
+let hostPage: Page
+let hostErrors: string[] = []
+let potterPage: Page
+let potterErrors: string[] = []
+const STUDIO_NAME = `Saltmarsh Kilns ${Date.now() % 10_000}`
+
+/** A real JPEG made by sharp (a general-purpose image library from the registry), as a camera would send one. */
+const photoOfWare = (red: number) =>
+  sharp({ create: { width: 800, height: 600, channels: 3, background: { r: red, g: 110, b: 70 } } })
+    .jpeg({ quality: 80 })
+    .toBuffer()
+
+beforeAll(async () => {
+  app = await startTestApp({ mail: true, serveClient: true, stripe: true })
+  browser = await launchBrowser()
+  host = await createPerson(app, 'host', 'Marit Olsen')
+  potter = await createPerson(app, 'potter', 'Tova Lind')
+  // The host logs in °C, so the chart's Celsius figures go in as they are.
+  await host.session.patch('/api/auth/me', { unitSystem: 'metric' })
+  ;({ studioId, kilnId, firingId } = await publishedStudio(host.session, STUDIO_NAME))
+  ;({ id: requestId, quote } = await paidRequest(firingId))
+
+  ;({ page: hostPage, errors: hostErrors } = await signedInPage(host.email, '/kiln-room'))
+  ;({ page: potterPage, errors: potterErrors } = await signedInPage(potter.email, '/my-ware'))
+}, 120_000)
+
+afterAll(async () => {
+  for (const context of contexts) await context.close().catch(() => undefined)
+  await browser?.close()
+  await app?.close()
+})
+
+/**
+ * A paid request, made through the API (its browser path has its own test): sent, accepted, and the
+ * deposit paid on the hosted page with Stripe's succeeding test card.
+ */
+async function paidRequest(inFiring: string) {
+  const sent = await draftAndSend(potter.session, inFiring, [mug()])
+  const accepted = await host.session.post(`/api/requests/${sent.id}/accept`)
+  if (accepted.status !== 200) throw new Error(`accept: ${accepted.status} ${JSON.stringify(accepted.body)}`)
+  const deposit = await potter.session.post(`/api/requests/${sent.id}/deposit`)
+  await submitCard(deposit.body.checkoutUrl, { cardNumber: CARD_SUCCEEDS })
+  await waitUntil(async () => (await potter.session.get(`/api/requests/${sent.id}`)).body.state === 'deposit_paid', { what: 'the deposit to be booked' })
+  return sent
+}
+
+/** Another firing of the studio's kiln, two weeks out: well inside the full-refund window. */
+async function laterFiring() {
+  const made = await host.session.post(`/api/kilns/${kilnId}/firings`, firingBody({ dropOffBy: inDays(12), firingDate: inDays(14), readyBy: inDays(16) }))
+  if (made.status !== 201) throw new Error(`firing: ${made.status} ${JSON.stringify(made.body)}`)
+  return made.body.firings[0].id as string
+}
+
+const inDays = (n: number) => new Date(Date.now() + n * 24 * 3600_000).toISOString()
+
+async function newPage(viewport = { width: 1280, height: 900 }) {
+  const opened = await openPage(browser, app.url, { viewport })
+  contexts.push(opened.context)
+  return opened
+}
+
+async function signedInPage(email: string, home: string) {
+  const opened = await newPage()
+  await opened.page.goto('/sign-in')
+  await opened.page.getByLabel('E-mail').fill(email)
+  await opened.page.getByLabel('Password').fill(PERSON_PASSWORD)
+  await opened.page.getByRole('button', { name: 'Sign in' }).click()
+  await opened.page.waitForURL(`**${home}`)
+  return opened
+}
+
+const stateOf = (page: Page) => page.getByTestId('request-state').first().getAttribute('data-state')
+const dollars = (cents: number) => new Intl.NumberFormat('en-US', { style: 'currency', currency: 'USD' }).format(cents / 100)
+
+/** Whether every image in the locator has loaded real pixels (a photo the server refused shows none). */
+async function imagesLoaded(images: Locator) {
+  const count = await images.count()
+  if (count === 0) return false
+  for (let i = 0; i < count; i++) {
+    // Thumbnails load lazily, as they come into view.
+    await images.nth(i).scrollIntoViewIfNeeded()
+    if (!(await images.nth(i).evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth > 0))) return false
+  }
+  return true
+}
+
+async function uploadPhoto(scope: Locator, name: string, red: number) {
+  await scope.getByTestId('photo-input').setInputFiles({ name, mimeType: 'image/jpeg', buffer: await photoOfWare(red) })
+  await expect.poll(() => scope.getByTestId('upload-item').last().getAttribute('data-status'), { timeout: 20_000 }).toBe('done')
+}
+
+/** Fills the stand-in's hosted form as a person would and submits it. */
+async function payOnHostedPage(page: Page, cardNumber: string) {
+  await page.waitForURL((url) => url.pathname.startsWith('/checkout/'))
+  const email = page.locator('#email')
+  if (await email.isEditable()) await email.fill('potter@example.test')
+  await page.locator('#cardNumber').fill(cardNumber)
+  await page.locator('#expiry').fill('12 / 34')
+  await page.locator('#cvc').fill('123')
+  await page.locator('#cardholderName').fill('Tova Lind')
+  await page.locator('#postalCode').fill('97214')
+  await page.locator('button[type="submit"]').click()
+}
+
+async function giveStars(form: Locator, aspect: string, stars: number) {
+  const group = form.getByRole('group', { name: aspect })
+  // The stars are radio buttons: focus one and the arrow keys move along them, as a keyboard user would.
+  await group.getByLabel('1 star', { exact: true }).focus()
+  await group.getByLabel('1 star', { exact: true }).press('Space')
+  for (let n = 1; n < stars; n++) await group.getByLabel(`${n} ${n === 1 ? 'star' : 'stars'}`, { exact: true }).press('ArrowRight')
+  await expect.poll(() => group.getByLabel(`${stars} ${stars === 1 ? 'star' : 'stars'}`, { exact: true }).isChecked()).toBe(true)
+}
+
+describe('from drop-off to ratings in the browser', () => {
+  it('the host checks the ware in with a photo; the potter sees it received and gets the drop-off mail', async () => {
+    await hostPage.goto(`/requests/${requestId}`)
+    await expect.poll(() => stateOf(hostPage)).toBe('deposit_paid')
+    const form = hostPage.getByTestId('check-in-form')
+    // All four mugs came in (the fixture declares four), one with a chip already in its rim.
+    const piece = form.getByTestId('check-in-piece')
+    expect(await piece.count()).toBe(1)
+    expect(await piece.getByLabel('Received').inputValue()).toBe('4')
+    await form.getByLabel('Condition at drop-off').fill('One mug has a chipped rim')
+    // Two files at once: a real photo, and a text file renamed .jpg that the browser calls a JPEG.
+    // Each goes up on its own; the server, judging by the bytes, refuses only the fake one.
+    await form.getByTestId('photo-input').setInputFiles([
+      { name: 'drop-off.jpg', mimeType: 'image/jpeg', buffer: await photoOfWare(170) },
+      { name: 'notes.jpg', mimeType: 'image/jpeg', buffer: Buffer.from('four mugs, one chipped\n') },
+    ])
+    const real = form.getByTestId('upload-item').filter({ hasText: 'drop-off.jpg' })
+    const fake = form.getByTestId('upload-item').filter({ hasText: 'notes.jpg' })
+    await expect.poll(() => real.getAttribute('data-status'), { timeout: 20_000 }).toBe('done')
+    await expect.poll(() => fake.getAttribute('data-status'), { timeout: 20_000 }).toBe('failed')
+    expect(await fake.textContent()).toContain('is not a photo we can take')
+    await fake.getByRole('button', { name: 'Retry notes.jpg' }).click()
+    await expect.poll(() => fake.getAttribute('data-status'), { timeout: 20_000 }).toBe('failed')
+    await fake.getByRole('button', { name: 'Remove notes.jpg' }).click()
+    expect(await form.getByTestId('upload-item').count()).toBe(1)
+    await form.getByRole('button', { name: 'Check the ware in' }).click()
+
+    await expect.poll(() => stateOf(hostPage)).toBe('received')
+    const record = hostPage.getByTestId('drop-off-record')
+    expect(await record.getByTestId('condition-notes').textContent()).toBe('One mug has a chipped rim')
+    expect(await hostPage.getByTestId('check-in-verdict').getAttribute('data-verdict')).toBe('ok')
+    const hostPhotos = record.locator('[data-kind="check-in"] [data-testid="gallery-photo"]')
+    expect(await hostPhotos.count()).toBe(1)
+
+    await potterPage.goto(`/requests/${requestId}`)
+    await expect.poll(() => stateOf(potterPage)).toBe('received')
+    expect(await potterPage.getByTestId('request-state').first().textContent()).toBe('Received')
+    const seen = potterPage.getByTestId('drop-off-record')
+    expect(await seen.getByTestId('received-piece').first().textContent()).toContain('4')
+    expect(await seen.getByTestId('condition-notes').textContent()).toBe('One mug has a chipped rim')
+    // The potter may see the studio's check-in photo; its thumbnail loads.
+    await expect.poll(() => imagesLoaded(seen.locator('[data-kind="check-in"] img'))).toBe(true)
+
+    const mail = await waitForMail(app.mail!.webUrl, { to: potter.email, subject: `Ware received at ${STUDIO_NAME}` })
+    expect(mail.text).toContain('One mug has a chipped rim')
+    expect(mail.text).toContain('4 of 4 received')
+    expect(hostErrors).toEqual([])
+    expect(potterErrors).toEqual([])
+  }, 90_000)
+
+  it('the host moves the firing through loading, firing, cooling and unloaded from its log page and fills the log', async () => {
+    await hostPage.goto(`/studios/${studioId}/calendar?view=list`)
+    await hostPage.getByRole('button', { name: 'Manage' }).first().click()
+    await hostPage.getByRole('dialog').getByRole('link', { name: 'Firing log' }).click()
+    await hostPage.waitForURL(`**/firings/${firingId}/log`)
+    await hostPage.getByRole('heading', { name: 'Firing log', level: 1 }).waitFor()
+
+    const status = () => hostPage.getByTestId('firing-status').first().getAttribute('data-status')
+    const moves = hostPage.getByRole('group', { name: 'Change status' })
+    // Loading and unloading move every request in the firing, so they ask once more.
+    await moves.getByRole('button', { name: 'Start loading' }).click()
+    await hostPage.getByRole('button', { name: 'Start loading: go ahead' }).click()
+    await expect.poll(status).toBe('loading')
+    await moves.getByRole('button', { name: 'Kiln is firing' }).click()
+    await expect.poll(status).toBe('firing')
+    await moves.getByRole('button', { name: 'Kiln is cooling' }).click()
+    await expect.poll(status).toBe('cooling')
+    await moves.getByRole('button', { name: 'Kiln unloaded' }).click()
+    await hostPage.getByRole('button', { name: 'Kiln unloaded: go ahead' }).click()
+    await expect.poll(status).toBe('unloaded')
+    const line = hostPage.locator(`[data-testid="firing-request"][data-request-id="${requestId}"]`)
+    await expect.poll(() => line.getAttribute('data-state')).toBe('fired')
+
+    const form = hostPage.getByTestId('firing-log-form')
+    // Times are wall-clock in the studio's zone; twelve hours from start to off.
+    await form.getByLabel('Loaded', { exact: true }).fill('2027-01-08T07:30')
+    await form.getByLabel('Started', { exact: true }).fill('2027-01-08T09:00')
+    await form.getByLabel('Turned off', { exact: true }).fill('2027-01-08T21:00')
+    await form.getByLabel('Opened', { exact: true }).fill('2027-01-09T15:00')
+    expect(await form.getByTestId('total-hours').textContent()).toContain('12 h')
+    // Orton's self-supporting cone chart, 60 °C/h column: cone 6 bends at 1222 °C (the chart as
+    // transcribed in shared/firing/cones.ts, from the maker's published table).
+    await form.getByLabel('Peak temperature (°C)').fill('1222')
+    await form.getByLabel('Final rate (°C/h)').fill('60')
+    await form.getByLabel('Hold at peak (minutes)').fill('10')
+    // A three-cone pack read the usual way (common practice): the guide cone 5 touching, the firing
+    // cone 6 at 3 o'clock, the guard cone 7 standing: cone 6 reached.
+    const pack: [string, string][] = [
+      ['5', 'touching'],
+      ['6', 'three-oclock'],
+      ['7', 'standing'],
+    ]
+    for (const [cone, bend] of pack) {
+      await form.getByRole('button', { name: 'Add a witness cone' }).click()
+      const row = form.getByTestId('witness-cone-row').last()
+      await row.getByLabel('Cone', { exact: true }).fill(cone)
+      await row.getByLabel('How far it bent').selectOption(bend)
+      await row.getByLabel('Where it stood').fill('Middle shelf, front')
+    }
+    await expect.poll(() => form.getByTestId('cone-reached').textContent()).toBe('cone 6')
+    expect(await form.getByTestId('cone-check').getAttribute('data-agree')).toBe('true')
+    await form.getByRole('button', { name: 'Save the log' }).click()
+    await form.getByText('Saved. Every potter in the firing sees it on their request.').waitFor()
+
+    const saved = await host.session.get(`/api/firings/${firingId}/log`)
+    expect(saved.body).toMatchObject({ peakC: 1222, finalRateCPerHour: 60, holdMinutes: 10, totalHours: 12, coneCheck: { fromCones: '6', fromPeak: '6', agree: true } })
+    expect(saved.body.witnessCones).toHaveLength(3)
+    expect(hostErrors).toEqual([])
+  }, 90_000)
+
+  it('the host posts results with a photo and marks the ware ready; the potter sees the results, the photo and the log', async () => {
+    await hostPage.goto(`/requests/${requestId}`)
+    await expect.poll(() => stateOf(hostPage)).toBe('fired')
+    const form = hostPage.getByTestId('results-form')
+    const piece = form.getByTestId('result-piece')
+    await piece.getByLabel('How it came out').selectOption('fine')
+    await piece.getByLabel('Notes').fill('Glaze broke nicely over the rims')
+    await uploadPhoto(form, 'results.jpg', 120)
+    await form.getByRole('button', { name: 'Post the results' }).click()
+    await form.getByText('Saved. The potter sees them now.').waitFor()
+    await hostPage.getByRole('button', { name: 'Mark ready for pickup' }).click()
+    await expect.poll(() => stateOf(hostPage)).toBe('ready')
+
+    await potterPage.goto(`/requests/${requestId}`)
+    await expect.poll(() => stateOf(potterPage)).toBe('ready')
+    const results = potterPage.getByTestId('results')
+    expect(await results.getByTestId('result-outcome').getAttribute('data-outcome')).toBe('fine')
+    expect(await results.getByTestId('result-outcome').textContent()).toContain('Glaze broke nicely over the rims')
+    const photo = results.getByTestId('gallery-photo')
+    expect(await photo.count()).toBe(1)
+    await expect.poll(() => imagesLoaded(photo.locator('img'))).toBe(true)
+    await photo.getByRole('button').click()
+    const full = potterPage.getByTestId('full-photo')
+    await expect.poll(() => imagesLoaded(full)).toBe(true)
+    await potterPage.keyboard.press('Escape')
+    // The potter lets the studio show it in public.
+    await photo.getByLabel('Show on the studio’s page').check()
+    await expect.poll(async () => (await potter.session.get(`/api/requests/${requestId}`)).body.photos.find((p: { kind: string }) => p.kind === 'result').public).toBe(true)
+
+    const log = potterPage.getByTestId('firing-log')
+    expect(await log.getByTestId('cone-reached').textContent()).toBe('cone 6')
+    expect(await log.getByTestId('witness-cone').count()).toBe(3)
+
+    const mail = await waitForMail(app.mail!.webUrl, { to: potter.email, subject: 'Ready for pickup' })
+    expect(mail.text).toContain(dollars(quote.totalCents - quote.depositCents))
+    expect(potterErrors).toEqual([])
+    expect(hostErrors).toEqual([])
+  }, 90_000)
+
+  it('the potter pays the balance on the hosted page with 4242 and sees nothing more owed', async () => {
+    const owed = quote.totalCents - quote.depositCents
+    expect(await potterPage.getByTestId('owed').getAttribute('data-owed-cents')).toBe(String(owed))
+    await potterPage.getByRole('button', { name: `Pay the balance · ${dollars(owed)}` }).click()
+    await payOnHostedPage(potterPage, CARD_SUCCEEDS)
+    await potterPage.waitForURL((url) => url.pathname === `/requests/${requestId}` && url.searchParams.get('paid') === 'balance')
+    await expect.poll(() => potterPage.getByTestId('owed').getAttribute('data-owed-cents'), { timeout: 30_000 }).toBe('0')
+    await potterPage.getByTestId('balance-notices').getByText('Balance paid').waitFor()
+    const lines = potterPage.getByTestId('ledger-line')
+    expect(await lines.count()).toBe(2)
+    expect(await lines.nth(1).getAttribute('data-kind')).toBe('balance')
+    expect(await lines.nth(1).textContent()).toContain(dollars(owed))
+    expect(potterErrors).toEqual([])
+  }, 90_000)
+
+  it('the host marks the ware collected and the pickup mail with the receipt arrives', async () => {
+    await hostPage.goto(`/requests/${requestId}`)
+    await expect.poll(() => stateOf(hostPage)).toBe('ready')
+    expect(await hostPage.getByTestId('owed-now').textContent()).toBe('Everything is paid.')
+    await hostPage.getByRole('button', { name: 'Collected', exact: true }).click()
+    await expect.poll(() => stateOf(hostPage)).toBe('collected')
+    const mail = await waitForMail(app.mail!.webUrl, { to: potter.email, subject: `Collected: your receipt from ${STUDIO_NAME}` })
+    expect(mail.text).toContain(dollars(quote.totalCents))
+    expect(hostErrors).toEqual([])
+  }, 60_000)
+
+  it('both sides rate; the studio replies, and its public page shows the new rating', async () => {
+    await potterPage.goto(`/requests/${requestId}`)
+    await expect.poll(() => stateOf(potterPage)).toBe('collected')
+    const potterForm = potterPage.getByTestId('rating-form')
+    await giveStars(potterForm, 'Care of the ware', 5)
+    await giveStars(potterForm, 'Communication', 4)
+    await giveStars(potterForm, 'Results', 5)
+    await giveStars(potterForm, 'Overall', 5)
+    await potterForm.getByLabel('In your words').fill('Lovely even heat, and the chip was noted at the door.')
+    await potterForm.getByRole('button', { name: 'Send the rating' }).click()
+    await expect.poll(() => potterPage.getByTestId('my-rating').getAttribute('data-given')).toBe('true')
+    await potterPage.getByRole('button', { name: 'Change the rating' }).waitFor()
+
+    await hostPage.goto(`/requests/${requestId}`)
+    const hostForm = hostPage.getByTestId('rating-form')
+    await giveStars(hostForm, 'Ware as declared', 5)
+    await giveStars(hostForm, 'On time', 4)
+    await giveStars(hostForm, 'Overall', 4)
+    await hostForm.getByLabel('In your words').fill('Ware as described, dropped off in good time.')
+    await hostForm.getByRole('button', { name: 'Send the rating' }).click()
+    await expect.poll(() => hostPage.getByTestId('my-rating').getAttribute('data-given')).toBe('true')
+    expect(await hostPage.getByTestId('their-rating').textContent()).toContain('Lovely even heat')
+    await hostPage.getByLabel('Your reply, shown in public').fill('Thank you, Tova. Come back for the next glaze firing.')
+    await hostPage.getByRole('button', { name: 'Post the reply' }).click()
+    await hostPage.getByTestId('studio-reply').getByText('Thank you, Tova.', { exact: false }).waitFor()
+
+    const ratings = (await potter.session.get(`/api/requests/${requestId}`)).body.ratings
+    expect(ratings.ofStudio).toMatchObject({ stars: 5, care: 5, communication: 4, results: 5 })
+    expect(ratings.ofPotter).toMatchObject({ stars: 4, asDeclared: 5, onTime: 4 })
+
+    // A visitor, not signed in, on a phone-sized screen.
+    const { page, errors } = await newPage({ width: 390, height: 844 })
+    await page.goto(`/studios/${studioId}`)
+    const summary = page.getByTestId('rating-summary')
+    await expect.poll(() => summary.getAttribute('data-count')).toBe('1')
+    expect(await summary.getAttribute('data-mean')).toBe('5')
+    const section = page.getByTestId('studio-ratings')
+    expect(await section.getByTestId('rating-text').first().textContent()).toBe('Lovely even heat, and the chip was noted at the door.')
+    expect(await section.textContent()).toContain('Tova')
+    expect(await section.textContent()).toContain('Thank you, Tova. Come back for the next glaze firing.')
+    expect(errors).toEqual([])
+    expect(potterErrors).toEqual([])
+    expect(hostErrors).toEqual([])
+  }, 90_000)
+})
+
+describe('what check-in can change', () => {
+  it('measured ware re-prices the request: the host sees the check and the new price, the potter confirms it', async () => {
+    const sent = await paidRequest(await laterFiring())
+    await hostPage.goto(`/requests/${sent.id}`)
+    const form = hostPage.getByTestId('check-in-form')
+    const piece = form.getByTestId('check-in-piece')
+    await piece.getByLabel('Measured size differs from the request').check()
+    await piece.getByLabel('Measured height (mm)').fill('140')
+    await piece.getByLabel('Measured width (mm)').fill('100')
+    await piece.getByLabel('Measured depth (mm)').fill('120')
+    await form.getByRole('button', { name: 'Check the ware in' }).click()
+    await expect.poll(() => stateOf(hostPage)).toBe('received')
+
+    // The fixture's price list: 4 ¢ per cubic inch of bounding box, at least 300 ¢ a piece
+    // (tests/support/studio-fixtures.ts); 1 in = 25.4 mm exactly (NIST SP 811). Each measured mug is
+    // 140 × 100 × 120 mm = 102.5 in³, so 410 ¢, over the minimum; four of them.
+    const perMug = Math.max(300, Math.round(((140 * 100 * 120) / 25.4 ** 3) * 4))
+    const after = 4 * perMug
+    expect(after).toBeGreaterThan(sent.quote.totalCents)
+    expect(await hostPage.getByTestId('check-in-findings').count()).toBe(1)
+    expect(await hostPage.getByTestId('price-change').first().textContent()).toBe(`${dollars(sent.quote.totalCents)} → ${dollars(after)}`)
+    await hostPage.getByText('The potter has to confirm the higher price before the firing.', { exact: false }).first().waitFor()
+
+    await potterPage.goto(`/requests/${sent.id}`)
+    const confirm = potterPage.getByTestId('confirm-price')
+    expect(await confirm.textContent()).toContain(`from ${dollars(sent.quote.totalCents)} to ${dollars(after)}`)
+    await confirm.getByRole('button', { name: 'Confirm the new price' }).click()
+    await expect.poll(() => potterPage.getByTestId('confirm-price').count()).toBe(0)
+    expect(await potterPage.getByTestId('owed').getAttribute('data-owed-cents')).toBe(String(after - sent.quote.depositCents))
+    expect(hostErrors).toEqual([])
+    expect(potterErrors).toEqual([])
+  }, 90_000)
+
+  it('the host refuses ware at the door with a reason and a photo; the potter sees why and is refunded under the terms', async () => {
+    const sent = await paidRequest(await laterFiring())
+    const terms = (await potter.session.get(`/api/requests/${sent.id}`)).body.studio.policies.cancellation
+    // Two weeks before the firing is inside the studio's full-refund window.
+    expect(terms.fullRefundDaysBefore).toBeLessThan(14)
+
+    await hostPage.goto(`/requests/${sent.id}`)
+    await hostPage.getByRole('button', { name: 'Refuse at the door…' }).click()
+    const dialog = hostPage.getByRole('dialog', { name: 'Refuse the ware at the door?' })
+    expect(await dialog.textContent()).toContain(`The potter gets ${dollars(sent.quote.depositCents)} back of the ${dollars(sent.quote.depositCents)} paid.`)
+    await dialog.getByLabel('Why it is refused').fill('Greenware still damp to the touch')
+    await uploadPhoto(dialog, 'damp.jpg', 90)
+    await dialog.getByRole('button', { name: 'Refuse the ware' }).click()
+    await expect.poll(() => stateOf(hostPage)).toBe('cancelled')
+
+    await potterPage.goto(`/requests/${sent.id}`)
+    const record = potterPage.getByTestId('drop-off-record')
+    expect(await record.getAttribute('data-refused')).toBe('true')
+    expect(await record.textContent()).toContain('Greenware still damp to the touch')
+    await expect.poll(() => imagesLoaded(record.locator('[data-kind="refusal"] img'))).toBe(true)
+    const mail = await waitForMail(app.mail!.webUrl, { to: potter.email, subject: `Ware not accepted at ${STUDIO_NAME}` })
+    expect(mail.text).toContain('Greenware still damp to the touch')
+    expect(mail.text).toContain(dollars(sent.quote.depositCents))
+    expect(hostErrors).toEqual([])
+    expect(potterErrors).toEqual([])
+  }, 90_000)
+})
