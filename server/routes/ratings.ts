@@ -4,6 +4,7 @@ import { requireAuth } from '../auth/guards'
 import { allowStudioReader, studioFromParam } from '../auth/studio-access'
 import type { AppContext } from '../context'
 import { requireUuidParams, validateBody } from '../http/validate'
+import { publicStudioPhotos } from '../services/photos'
 import { rateRequest, replyToRating, studioRatingsPage } from '../services/ratings'
 
 export function ratingsRouter(ctx: AppContext) {
@@ -21,6 +22,11 @@ export function ratingsRouter(ctx: AppContext) {
   // Public for published studios, like the rest of their page.
   router.get('/studios/:id/ratings', allowStudioReader(ctx, studioFromParam(ctx)), async (_req, res) => {
     res.json(await studioRatingsPage(ctx.db.manager, res.locals.studioId))
+  })
+
+  // Result photos that potters chose to show on the studio's page.
+  router.get('/studios/:id/photos', allowStudioReader(ctx, studioFromParam(ctx)), async (_req, res) => {
+    res.json({ photos: await publicStudioPhotos(ctx.db.manager, res.locals.studioId) })
   })
 
   return router

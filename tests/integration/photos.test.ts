@@ -19,6 +19,7 @@ let potter: Person
 let otherPotter: Person
 let admin: Person
 let requestId: string
+let studioId: string
 
 /** A real JPEG carrying EXIF with a GPS position and a camera name. */
 async function jpegWithGps(width = 640, height = 480) {
@@ -47,6 +48,7 @@ beforeAll(async () => {
   otherPotter = await createPerson(app, 'potter', 'Nosy Potter')
   admin = await createPerson(app, 'admin', 'Photo Admin')
   const ids = await publishedStudio(owner.session, 'Photo Studio')
+  studioId = ids.studioId
   await app.ctx.db.getRepository(StudioMember).save({ studioId: ids.studioId, userId: crew.id, role: 'crew' })
   requestId = (await draftAndSend(potter.session, ids.firingId, [mug()])).id
 }, 60_000)
@@ -153,7 +155,10 @@ describe('who sees a photo', () => {
     expect((await owner.session.patch(`/api/photos/${photo.id}`, { public: true })).status).toBe(403)
     expect((await potter.session.patch(`/api/photos/${photo.id}`, { public: true })).status).toBe(200)
     expect((await new HttpSession(app.url).get(photo.url)).status).toBe(200)
+    const shown = await new HttpSession(app.url).get(`/api/studios/${studioId}/photos`)
+    expect(shown.body.photos.map((p: { id: string }) => p.id)).toContain(photo.id)
     await potter.session.patch(`/api/photos/${photo.id}`, { public: false })
     expect((await new HttpSession(app.url).get(photo.url)).status).toBe(404)
+    expect((await new HttpSession(app.url).get(`/api/studios/${studioId}/photos`)).body.photos.map((p: { id: string }) => p.id)).not.toContain(photo.id)
   })
 })

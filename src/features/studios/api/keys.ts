@@ -10,6 +10,7 @@ export const studioKeys = {
   firingsIn: (studioId: string, window: FiringWindow) => ['studios', 'detail', studioId, 'firings', window] as const,
   crew: (studioId: string) => ['studios', 'detail', studioId, 'crew'] as const,
   ratings: (studioId: string) => ['studios', 'detail', studioId, 'ratings'] as const,
+  photos: (studioId: string) => ['studios', 'detail', studioId, 'photos'] as const,
   firing: (firingId: string) => ['studios', 'firing', firingId] as const,
   firingLog: (firingId: string) => ['studios', 'firing', firingId, 'log'] as const,
   firingRequests: (firingId: string) => ['studios', 'firing', firingId, 'requests'] as const,

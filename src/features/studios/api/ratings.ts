@@ -19,6 +19,23 @@ export interface StudioRatingsPage {
   ratings: PublicRating[]
 }
 
+export interface PublicPhoto {
+  id: string
+  width: number
+  height: number
+  url: string
+  thumbUrl: string
+  at: string
+}
+
+/** Result photos potters chose to show on the studio's page. */
+export function useStudioPhotos(studioId: string) {
+  return useQuery({
+    queryKey: studioKeys.photos(studioId),
+    queryFn: () => api<{ photos: PublicPhoto[] }>(`/api/studios/${studioId}/photos`),
+  })
+}
+
 /** Potters' ratings of a studio, newest first, with the mean and how many there are. */
 export function useStudioRatings(studioId: string) {
   return useQuery({

@@ -2,7 +2,7 @@ import { formatDate } from '../../../../shared/dates'
 import { StarsShown } from '../../../components/ratings/Stars'
 import { Card, EmptyState } from '../../../components/ui/Card'
 import { Spinner } from '../../../components/ui/Spinner'
-import { useStudioRatings, type PublicRating } from '../api/ratings'
+import { useStudioPhotos, useStudioRatings, type PublicRating } from '../api/ratings'
 import { ApiProblem } from './ApiProblem'
 
 const count = (n: number) => `${n} ${n === 1 ? 'rating' : 'ratings'}`
@@ -65,6 +65,7 @@ function RatingCard({ rating, zone }: { rating: PublicRating; zone: string }) {
 /** What potters said after collecting their ware, newest first, with the studio's replies. */
 export function StudioRatings({ studioId, zone }: { studioId: string; zone: string }) {
   const ratings = useStudioRatings(studioId)
+  const photos = useStudioPhotos(studioId)
   return (
     <section aria-labelledby="ratings-heading" className="space-y-3" data-testid="studio-ratings">
       <div className="flex flex-wrap items-baseline justify-between gap-2">
@@ -89,6 +90,20 @@ export function StudioRatings({ studioId, zone }: { studioId: string; zone: stri
             <RatingCard key={`${rating.at}-${index}`} rating={rating} zone={zone} />
           ))}
         </ul>
+      )}
+      {photos.data && photos.data.photos.length > 0 && (
+        <div>
+          <h3 className="mb-2 text-sm font-semibold text-slip-700">From the kiln, shown by the potters</h3>
+          <ul className="grid grid-cols-3 gap-2 sm:grid-cols-6" data-testid="studio-result-photos">
+            {photos.data.photos.map((photo) => (
+              <li key={photo.id}>
+                <a href={photo.url} target="_blank" rel="noreferrer" className="block overflow-hidden rounded-control border border-slip-200">
+                  <img src={photo.thumbUrl} alt="A fired piece from this studio" loading="lazy" className="aspect-square w-full object-cover" />
+                </a>
+              </li>
+            ))}
+          </ul>
+        </div>
       )}
     </section>
   )
