@@ -145,8 +145,8 @@ export async function publicStudioPhotos(manager: EntityManager, studioId: strin
     .innerJoin('kilns', 'k', 'k.id = f.kiln_id')
     .where('k.studio_id = :studioId', { studioId })
     .andWhere(`p.kind = 'result' AND p.public_opt_in`)
-    .orderBy('p.created_at', 'DESC')
-    .take(limit)
+    .orderBy('p.createdAt', 'DESC')
+    .limit(limit)
     .getMany()
   return rows.map(photoJson)
 }
