@@ -55,11 +55,11 @@ interface Figures {
   errors: number
 }
 
-async function load(url: string, connections: number): Promise<Figures> {
+async function load(url: string, connections: number, seconds = DURATION_S): Promise<Figures> {
   const latencies: number[] = []
   let errors = 0
   const result = await new Promise<autocannon.Result>((resolve, reject) => {
-    const instance = autocannon({ url, connections, duration: DURATION_S, pipelining: 1 }, (error, done) => (error ? reject(error) : resolve(done)))
+    const instance = autocannon({ url, connections, duration: seconds, pipelining: 1 }, (error, done) => (error ? reject(error) : resolve(done)))
     instance.on('response', (_client, statusCode, _bytes, responseTime) => {
       latencies.push(responseTime)
       if (statusCode !== 200) errors++
@@ -116,6 +116,10 @@ async function main() {
     if (sample.degraded) throw new Error('the engine did not answer after the rebuild')
     console.log(`index holds ${documents}; the bench query matches ${sample.total}. ${DURATION_S} s per run.\n`)
 
+    // A short untimed run first, so the measured runs see warmed-up JIT code and caches on both sides.
+    await load(`${base}${QUERY}`, 8, 3)
+    await load(`${base}/api/health`, 8, 2)
+
     const header = `${'run'.padEnd(34)} ${'p50 ms'.padStart(7)} ${'p95 ms'.padStart(7)} ${'p99 ms'.padStart(7)} ${'req/s'.padStart(8)} ${'errors'.padStart(7)}`
     console.log(header)
     const results: Record<string, Figures> = {}
@@ -130,6 +134,7 @@ async function main() {
     children[0].kill('SIGTERM')
     await new Promise((resolve) => children[0].once('exit', resolve))
     await waitFor(async () => ((await (await fetch(`${base}${QUERY}`)).json()) as { degraded: boolean }).degraded, 'the fallback')
+    await load(`${base}${QUERY}`, 8, 3)
     for (const connections of [8, 32]) {
       results[`pg-health-${connections}`] = await load(`${base}/api/health`, connections)
       console.log(row(`/api/health, ${connections} connections`, results[`pg-health-${connections}`]))

@@ -14,8 +14,12 @@ export class DocSet {
     return set
   }
 
+  /** The members as a list, kept once asked for (several facets read the same candidates). */
+  private members: number[] | null = null
+
   add(id: number): void {
     this.words[id >>> 5] |= 1 << (id & 31)
+    this.members = null
   }
 
   has(id: number): boolean {
@@ -72,6 +76,17 @@ export class DocSet {
   }
 
   toArray(): number[] {
-    return [...this]
+    if (this.members) return this.members
+    const members: number[] = []
+    for (let i = 0; i < this.words.length; i++) {
+      let word = this.words[i]
+      while (word !== 0) {
+        const lowest = word & -word
+        members.push(i * 32 + (31 - Math.clz32(lowest)))
+        word ^= lowest
+      }
+    }
+    this.members = members
+    return members
   }
 }

@@ -192,8 +192,7 @@ export class FacetColumn {
    * the spelling the engine shows, plus the numeric min and max when there are numbers.
    */
   distribution(candidates: DocSet): { counts: Array<[string, number]>; min: number; max: number } {
-    const size = candidates.size()
-    if (size * 8 < this.exists.size) return this.distributionOfFew(candidates)
+    if (candidates.toArray().length * 8 < this.exists.size) return this.distributionOfFew(candidates)
     const counts: Array<[string, number]> = []
     let min = Infinity
     let max = -Infinity
@@ -223,9 +222,11 @@ export class FacetColumn {
     for (const id of candidates.toArray()) {
       const own = this.byDocument.get(id)
       if (!own) continue
-      // A document counts once per distinct value, as in the walk over all values.
-      for (const value of new Set(own.numbers)) numbers.set(value, (numbers.get(value) ?? 0) + 1)
-      for (const key of new Set(own.strings)) strings.set(key, (strings.get(key) ?? 0) + 1)
+      // A document counts once per distinct value, as in the walk over all values; most have one.
+      const nums = own.numbers.length > 1 ? [...new Set(own.numbers)] : own.numbers
+      for (let i = 0; i < nums.length; i++) numbers.set(nums[i], (numbers.get(nums[i]) ?? 0) + 1)
+      const keys = own.strings.length > 1 ? [...new Set(own.strings)] : own.strings
+      for (let i = 0; i < keys.length; i++) strings.set(keys[i], (strings.get(keys[i]) ?? 0) + 1)
     }
     const counts: Array<[string, number]> = [...numbers].sort((a, b) => a[0] - b[0]).map(([value, n]) => [String(value), n])
     for (const key of [...strings.keys()].sort(compareBytes)) counts.push([this.originals.get(key)!, strings.get(key)!])

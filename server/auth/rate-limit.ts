@@ -76,3 +76,13 @@ export function accountKey(req: Request): string | null {
   const email = req.body?.email
   return typeof email === 'string' && email.trim() ? email.trim().toLowerCase() : null
 }
+
+/**
+ * The limiter for open read-mostly routes (search, places, ware checks): counted in this process's
+ * memory, so it costs no database round trip on the hottest routes. Behind a load balancer each
+ * process counts on its own, which is enough to blunt scraping; the sign-in limits, which guard
+ * accounts, are the shared PostgreSQL ones above.
+ */
+export function openRouteLimiter(limit: number) {
+  return rateLimit({ windowMs: 60_000, limit, standardHeaders: 'draft-8', legacyHeaders: false, message: tooMany })
+}

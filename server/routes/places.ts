@@ -1,13 +1,13 @@
 import { Router } from 'express'
 import { placesQuerySchema, type PlacesQuery } from '../../shared/schemas/places'
-import { makeLimiter } from '../auth/rate-limit'
+import { openRouteLimiter } from '../auth/rate-limit'
 import type { AppContext } from '../context'
 import { validateQuery } from '../http/validate'
 import { lookupPlace, searchPlaces, type Place } from '../services/gazetteer'
 
 export function placesRouter(ctx: AppContext) {
   const router = Router()
-  const perIp = makeLimiter(ctx.db, 'places', { limit: ctx.config.rateLimits.openApiPerIpPerMin, windowMs: 60_000 })
+  const perIp = openRouteLimiter(ctx.config.rateLimits.openApiPerIpPerMin)
 
   // Open: the studio form and the search box both look places up before anyone signs in.
   router.get('/places', perIp, validateQuery(placesQuerySchema), (_req, res) => {

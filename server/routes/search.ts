@@ -1,13 +1,13 @@
 import { Router } from 'express'
 import { searchQuerySchema, type SearchQuery } from '../../shared/schemas/search'
-import { makeLimiter } from '../auth/rate-limit'
+import { openRouteLimiter } from '../auth/rate-limit'
 import type { AppContext } from '../context'
 import { validateQuery } from '../http/validate'
 import { searchFirings } from '../services/search'
 
 export function searchRouter(ctx: AppContext) {
   const router = Router()
-  const limiter = makeLimiter(ctx.db, 'search', { limit: ctx.config.rateLimits.openApiPerIpPerMin, windowMs: 60_000 })
+  const limiter = openRouteLimiter(ctx.config.rateLimits.openApiPerIpPerMin)
 
   // Open to visitors: finding a firing comes before making an account.
   router.get('/search', limiter, validateQuery(searchQuerySchema), async (_req, res) => {

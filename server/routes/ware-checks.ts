@@ -3,7 +3,7 @@ import { z } from 'zod'
 import { checkWare, type Firing, type Kiln, type Piece, type WareCheck } from '../../shared/firing/check'
 import { quoteRequest, type PriceList, type Quote } from '../../shared/firing/quote'
 import { wareCheckBodySchema, type WareCheckBody } from '../../shared/schemas/firing'
-import { makeLimiter } from '../auth/rate-limit'
+import { openRouteLimiter } from '../auth/rate-limit'
 import type { AppContext } from '../context'
 import { badRequest, notFound } from '../http/errors'
 import { validateBody } from '../http/validate'
@@ -42,7 +42,7 @@ function quoteFor(subject: CheckSubject, pieces: Piece[]): Quote | undefined {
 
 export function wareChecksRouter(ctx: AppContext) {
   const router = Router()
-  const perIp = makeLimiter(ctx.db, 'ware-checks', { limit: ctx.config.rateLimits.openApiPerIpPerMin, windowMs: 60_000 })
+  const perIp = openRouteLimiter(ctx.config.rateLimits.openApiPerIpPerMin)
 
   // Open to visitors: the planner asks before anyone has an account. The answer is computed, never stored.
   router.post('/ware-checks', perIp, validateBody(wareCheckBodySchema), async (req, res) => {
