@@ -1,7 +1,8 @@
 // The PostgreSQL answer to a search, used when the engine is unreachable: same filters, same order,
 // same response shape, from the search_documents table, in one statement (hits, total and facet
 // counts from one pass over the matching rows).
-import type { EntityManager } from 'typeorm'
+import { createHash } from 'node:crypto'
+import type { Pool } from 'pg'
 import type { FiringDocument } from './documents'
 import { sqlQuery, type FiringSearch } from './query'
 import { FIRING_FACETS } from './settings'
@@ -13,14 +14,17 @@ const FACET_COLUMN: Record<(typeof FIRING_FACETS)[number], string> = {
   kilnKind: 'kiln_kind',
 }
 
-export async function searchPostgres(manager: EntityManager, search: FiringSearch) {
+/**
+ * Runs on the pool directly as a named (prepared) statement: the text depends only on which filters
+ * are used, so each shape is planned once per connection instead of on every search.
+ */
+export async function searchPostgres(pool: Pool, search: FiringSearch) {
   const { where, params, distance, distanceWhere, orderBy } = sqlQuery(search)
   const offset = (search.page - 1) * search.perPage
   const facetJson = FIRING_FACETS.map(
     (facet) => `'${facet}', (SELECT coalesce(json_object_agg(value, n), '{}'::json) FROM (SELECT ${FACET_COLUMN[facet]} AS value, count(*) AS n FROM hits GROUP BY 1) f)`,
   ).join(', ')
-  const [row]: { page: { document: FiringDocument }[] | null; total: number; facets: Record<string, Record<string, number>> }[] = await manager.query(
-    `WITH hits AS MATERIALIZED (
+  const text = `WITH hits AS MATERIALIZED (
        SELECT * FROM (
          SELECT firing_id, atmosphere, kind, cone, kiln_kind, drop_off_by_ts, firing_date_ts, price_example_cents, rating_score, ${distance ?? 'NULL::float8'} AS dist
          FROM search_documents WHERE ${where}
@@ -30,8 +34,9 @@ export async function searchPostgres(manager: EntityManager, search: FiringSearc
      SELECT
        (SELECT json_agg(json_build_object('document', d.document) ORDER BY p.ord) FROM page p JOIN search_documents d ON d.firing_id = p.firing_id) AS page,
        (SELECT count(*)::int FROM hits) AS total,
-       json_build_object(${facetJson}) AS facets`,
-    params,
-  )
+       json_build_object(${facetJson}) AS facets`
+  const name = `search-${createHash('sha1').update(text).digest('hex').slice(0, 16)}`
+  const { rows } = await pool.query<{ page: { document: FiringDocument }[] | null; total: number; facets: Record<string, Record<string, number>> }>({ name, text, values: params })
+  const row = rows[0]
   return { documents: (row.page ?? []).map((r) => r.document), total: row.total, facets: row.facets }
 }

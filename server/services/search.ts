@@ -8,6 +8,7 @@ import { DEFAULT_RADIUS_KM, type SearchHit, type SearchQuery, type SearchRespons
 import type { AppContext } from '../context'
 import { badRequest } from '../http/errors'
 import { lookupPlace } from './gazetteer'
+import { poolOf } from '../jobs/worker'
 
 /** After the engine fails, searches go straight to PostgreSQL for this long before trying it again. */
 const ENGINE_RETRY_MS = 5000
@@ -112,7 +113,7 @@ export async function searchFirings(ctx: AppContext, query: SearchQuery): Promis
       else ctx.log.warn(`search engine unreachable, answering from PostgreSQL: ${(error as Error).message}`)
     }
   }
-  if (!found) found = await searchPostgres(ctx.db.manager, search)
+  if (!found) found = await searchPostgres(poolOf(ctx), search)
   const facets = Object.fromEntries(FIRING_FACETS.map((f) => [f, found!.facets[f] ?? {}]))
   return {
     hits: found.documents.map((doc) => toHit(doc, search.origin)),
