@@ -5,18 +5,14 @@ import { requireStudioMember, studioOfFiring } from '../auth/studio-access'
 import type { AppContext } from '../context'
 import { requireUuidParams, validateBody } from '../http/validate'
 import { checkIn, confirmPrice, counterPayment, firingLogJson, markCollected, markReady, openBalance, postResults, putFiringLog } from '../services/pickup'
-import { loadRequest, viewerOf } from '../services/request-context'
-import { requestJson } from '../services/request-views'
+import { showRequest } from '../services/request-views'
 
 export function pickupRouter(ctx: AppContext) {
   const router = Router()
   const id = requireUuidParams('id')
   const firingMember = requireStudioMember(ctx, ['owner', 'crew'], studioOfFiring(ctx))
 
-  const show = async (requestId: string, user: Express.User) => {
-    const rc = await loadRequest(ctx.db.manager, requestId)
-    return requestJson(ctx.db.manager, rc, await viewerOf(ctx.db.manager, rc, user))
-  }
+  const show = (requestId: string, user: Express.User) => showRequest(ctx.db.manager, requestId, user)
 
   router.post('/requests/:id/check-in', requireAuth, id, validateBody(checkInSchema), async (req, res) => {
     const outcome = await checkIn(ctx, req.user!, String(req.params.id), req.body)

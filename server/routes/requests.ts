@@ -19,7 +19,7 @@ import { requireUuidParams, validateBody, validateQuery } from '../http/validate
 import { listMessages, postMessage } from '../services/messages'
 import { moneyOf, openCheckout } from '../services/payments'
 import { loadRequest, viewerOf } from '../services/request-context'
-import { requestJson, requestRows } from '../services/request-views'
+import { requestRows, showRequest } from '../services/request-views'
 import { acceptRequest, answerMove, createDraft, declineRequest, proposeMove, sendRequest, updateDraft, withdrawRequest } from '../services/requests'
 
 const listQuery = z.object({
@@ -33,10 +33,7 @@ export function requestsRouter(ctx: AppContext) {
   const router = Router()
   const id = requireUuidParams('id')
 
-  const show = async (requestId: string, user: Express.User) => {
-    const rc = await loadRequest(ctx.db.manager, requestId)
-    return requestJson(ctx.db.manager, rc, await viewerOf(ctx.db.manager, rc, user))
-  }
+  const show = (requestId: string, user: Express.User) => showRequest(ctx.db.manager, requestId, user)
 
   router.post('/firings/:id/requests', requireRole('potter'), id, validateBody(requestCreateSchema), async (req, res) => {
     const requestId = await createDraft(ctx, req.user!, String(req.params.id), req.body)

@@ -6,7 +6,7 @@ import { User } from '../entities/User'
 import { firingJson, heldLitres } from './firings'
 import { kilnJson } from './kilns'
 import { moneyOf, openPaymentsOf } from './payments'
-import type { RequestContext, Viewer } from './request-context'
+import { loadRequest, viewerOf, type RequestContext, type Viewer } from './request-context'
 import { potterRecord } from './requests'
 import { requestPhotos } from './photos'
 import { pickupJson } from './pickup'
@@ -144,4 +144,10 @@ export async function requestRows(manager: EntityManager, requests: FiringReques
       studio: { id: row.studio_id, name: row.studio_name, timezone: row.timezone },
     }
   })
+}
+
+/** A request as the given person may see it (a 404 for anyone without a right to it). */
+export async function showRequest(manager: EntityManager, requestId: string, user: User) {
+  const rc = await loadRequest(manager, requestId)
+  return requestJson(manager, rc, await viewerOf(manager, rc, user))
 }

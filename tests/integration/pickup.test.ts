@@ -7,7 +7,7 @@ import { Rating } from '../../server/entities/Rating'
 import { CARD_SUCCEEDS, submitCard } from '../support/checkout'
 import { HttpSession } from '../support/http-client'
 import { createPerson, type Person } from '../support/people'
-import { draftAndSend, mug } from '../support/request-fixtures'
+import { mug, sendAndPayDeposit } from '../support/request-fixtures'
 import { firingBody, publishedStudio } from '../support/studio-fixtures'
 import { startTestApp, type TestApp } from '../support/test-app'
 
@@ -34,14 +34,7 @@ async function newFiring() {
   return (await owner.session.post(`/api/kilns/${ids.kilnId}/firings`, firingBody())).body.firings[0].id as string
 }
 
-async function paid(firingId: string, pieces = [mug()]) {
-  const sent = await draftAndSend(potter.session, firingId, pieces)
-  await owner.session.post(`/api/requests/${sent.id}/accept`)
-  const deposit = await potter.session.post(`/api/requests/${sent.id}/deposit`)
-  await submitCard(deposit.body.checkoutUrl, { cardNumber: CARD_SUCCEEDS })
-  await expect.poll(() => state(sent.id), { timeout: 15_000 }).toBe('deposit_paid')
-  return sent
-}
+const paid = (firingId: string, pieces = [mug()]) => sendAndPayDeposit(app, owner.session, potter.session, firingId, pieces)
 
 async function move(firingId: string, ...statuses: string[]) {
   for (const status of statuses) {

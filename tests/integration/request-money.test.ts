@@ -10,7 +10,7 @@ import { OutboundMail } from '../../server/entities/OutboundMail'
 import { CARD_DECLINED, CARD_SUCCEEDS, submitCard } from '../support/checkout'
 import { HttpSession } from '../support/http-client'
 import { createPerson, type Person } from '../support/people'
-import { draftAndSend, mug } from '../support/request-fixtures'
+import { draftAndSend, mug, sendAndPayDeposit } from '../support/request-fixtures'
 import { firingBody, publishedStudio } from '../support/studio-fixtures'
 import { startTestApp, type TestApp } from '../support/test-app'
 
@@ -32,16 +32,7 @@ afterAll(async () => {
 
 const state = async (id: string) => (await app.ctx.db.getRepository(FiringRequest).findOneByOrFail({ id })).state
 
-async function paidRequest(firingId = ids.firingId) {
-  const sent = await draftAndSend(potter.session, firingId, [mug()])
-  expect((await owner.session.post(`/api/requests/${sent.id}/accept`)).status).toBe(200)
-  const deposit = await potter.session.post(`/api/requests/${sent.id}/deposit`)
-  expect(deposit.status).toBe(200)
-  const paid = await submitCard(deposit.body.checkoutUrl, { cardNumber: CARD_SUCCEEDS })
-  expect(paid.status).toBe(303)
-  await expect.poll(() => state(sent.id), { timeout: 15_000 }).toBe('deposit_paid')
-  return sent
-}
+const paidRequest = (firingId = ids.firingId) => sendAndPayDeposit(app, owner.session, potter.session, firingId)
 
 describe('capacity is never oversold', () => {
   it('with 50 accepts racing for the last space, exactly the space there is gets accepted', async () => {

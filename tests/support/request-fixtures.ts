@@ -1,4 +1,6 @@
+import { CARD_SUCCEEDS, submitCard } from './checkout'
 import type { HttpSession } from './http-client'
+import { waitUntil } from './wait'
 
 /** A bisqued stoneware mug with a cone 5–10 glaze: fine in a cone 6 oxidation glaze firing. */
 export const mug = (overrides: Record<string, unknown> = {}) => ({
@@ -27,4 +29,26 @@ export async function draftAndSend(potter: HttpSession, firingId: string, pieces
   const sent = await potter.post(`/api/requests/${draft.body.id}/send`, { acknowledged, agreePolicies: true, policiesVersion: draft.body.studio.policiesVersion })
   if (sent.status !== 200) throw new Error(`send: ${sent.status} ${JSON.stringify(sent.body)}`)
   return sent.body as { id: string; state: string; volumeL: number; quote: { totalCents: number; depositCents: number } }
+}
+
+/**
+ * A request sent, accepted by the studio and its deposit paid on the Stripe stand-in's hosted page
+ * with the succeeding test card; resolves once the webhook has marked it paid.
+ */
+export async function sendAndPayDeposit(
+  app: { ctx: { db: { query(sql: string, params: unknown[]): Promise<{ state: string }[]> } } },
+  studio: HttpSession,
+  potter: HttpSession,
+  firingId: string,
+  pieces: unknown[] = [mug()],
+) {
+  const sent = await draftAndSend(potter, firingId, pieces)
+  const accepted = await studio.post(`/api/requests/${sent.id}/accept`)
+  if (accepted.status !== 200) throw new Error(`accept: ${accepted.status} ${JSON.stringify(accepted.body)}`)
+  const deposit = await potter.post(`/api/requests/${sent.id}/deposit`)
+  if (deposit.status !== 200) throw new Error(`deposit: ${deposit.status} ${JSON.stringify(deposit.body)}`)
+  const paid = await submitCard(deposit.body.checkoutUrl, { cardNumber: CARD_SUCCEEDS })
+  if (paid.status !== 303) throw new Error(`hosted page answered ${paid.status}`)
+  await waitUntil(async () => (await app.ctx.db.query('SELECT state FROM firing_requests WHERE id = $1', [sent.id]))[0]?.state === 'deposit_paid', { what: 'the deposit webhook' })
+  return sent
 }
