@@ -1,6 +1,7 @@
 // Demo requests, so the board has life on first start: a firing nearly full, requests waiting for a
 // decision, a paid deposit, a draft, and a past firing collected and rated. Money in the demo was
-// taken "at the counter", so seeding never calls Stripe. Each is found again by its key in the notes.
+// taken "at the counter", so seeding never calls Stripe. Each is found again by the key its first
+// timeline entry carries.
 import type { EntityManager } from 'typeorm'
 import type { Piece } from '../../shared/firing/check'
 import type { RequestState } from '../../shared/workflow/request-states'
@@ -29,17 +30,18 @@ interface DemoRequest {
   firing: number | 'past'
   potter: string
   pieces: Piece[]
+  notes: string
   state: RequestState
   acknowledged?: string[]
   rating?: { stars: number; text: string; care: number; communication: number; results: number }
 }
 
 const DEMO_REQUESTS: DemoRequest[] = [
-  { key: 'near-full', studio: 'Alder Street Clay Commons', kiln: 'Big Ten', firing: 0, potter: 'theo.marsh@demo.conewright.test', pieces: [VASES], state: 'deposit_paid' },
-  { key: 'mugs-paid', studio: 'Alder Street Clay Commons', kiln: 'Big Ten', firing: 0, potter: 'wren.alvarado@demo.conewright.test', pieces: [MUGS], state: 'deposit_paid' },
-  { key: 'celadon-waiting', studio: 'Fernhollow Gas Works', kiln: 'The Car', firing: 0, potter: 'wren.alvarado@demo.conewright.test', pieces: [CELADON_BOWLS], state: 'sent', acknowledged: [] },
-  { key: 'mugs-waiting', studio: 'Alder Street Clay Commons', kiln: 'Big Ten', firing: 1, potter: 'theo.marsh@demo.conewright.test', pieces: [MUGS], state: 'sent' },
-  { key: 'plates-draft', studio: 'Mudlark Clay Supply', kiln: 'Bisque Bay', firing: 0, potter: 'wren.alvarado@demo.conewright.test', pieces: [GREEN_PLATES], state: 'draft' },
+  { key: 'near-full', studio: 'Alder Street Clay Commons', kiln: 'Big Ten', firing: 0, potter: 'theo.marsh@demo.conewright.test', pieces: [VASES], notes: 'Tall forms: please keep them off the top shelf.', state: 'deposit_paid' },
+  { key: 'mugs-paid', studio: 'Alder Street Clay Commons', kiln: 'Big Ten', firing: 0, potter: 'wren.alvarado@demo.conewright.test', pieces: [MUGS], notes: 'Could these go in the slow-cool part of the load?', state: 'deposit_paid' },
+  { key: 'celadon-waiting', studio: 'Fernhollow Gas Works', kiln: 'The Car', firing: 0, potter: 'wren.alvarado@demo.conewright.test', pieces: [CELADON_BOWLS], notes: 'A runny celadon; each bowl sits on its own cookie.', state: 'sent', acknowledged: [] },
+  { key: 'mugs-waiting', studio: 'Alder Street Clay Commons', kiln: 'Big Ten', firing: 1, potter: 'theo.marsh@demo.conewright.test', pieces: [MUGS], notes: '', state: 'sent' },
+  { key: 'plates-draft', studio: 'Mudlark Clay Supply', kiln: 'Bisque Bay', firing: 0, potter: 'wren.alvarado@demo.conewright.test', pieces: [GREEN_PLATES], notes: 'Dried under plastic for a week.', state: 'draft' },
   {
     key: 'past-collected',
     studio: 'Alder Street Clay Commons',
@@ -47,6 +49,7 @@ const DEMO_REQUESTS: DemoRequest[] = [
     firing: 'past',
     potter: 'wren.alvarado@demo.conewright.test',
     pieces: [MUGS],
+    notes: 'Matte glazes; slow cool if you can.',
     state: 'collected',
     rating: { stars: 5, care: 5, communication: 5, results: 4, text: 'Marisol slow-cooled the load as promised; the matte glazes came out buttery.' },
   },
@@ -62,8 +65,8 @@ const PATH: Record<string, RequestState[]> = {
 
 export async function seedDemoRequests(manager: EntityManager, userIdOf: (email: string) => Promise<string>) {
   for (const demo of DEMO_REQUESTS) {
-    const marker = `demo:${demo.key}`
-    if (await manager.getRepository(FiringRequest).exists({ where: { notes: marker } })) continue
+    const seeded: unknown[] = await manager.query(`SELECT 1 FROM request_events WHERE data->>'demoKey' = $1 LIMIT 1`, [demo.key])
+    if (seeded.length) continue
     const studio = await manager.getRepository(Studio).findOneBy({ name: demo.studio })
     const kiln = studio && (await manager.getRepository(Kiln).findOneBy({ studioId: studio.id, name: demo.kiln }))
     if (!kiln || !studio) continue
@@ -107,7 +110,7 @@ export async function seedDemoRequests(manager: EntityManager, userIdOf: (email:
       potterId,
       state: demo.state,
       pieces: demo.pieces,
-      notes: marker,
+      notes: demo.notes,
       volumeL,
       verdict: check.verdict,
       findings: check.findings,
@@ -121,7 +124,7 @@ export async function seedDemoRequests(manager: EntityManager, userIdOf: (email:
     const path = PATH[demo.state]
     for (let i = 0; i < path.length; i++) {
       const actor = ['sent', 'draft'].includes(path[i]) ? potterId : null
-      await manager.getRepository(RequestEvent).save({ requestId: request.id, actorId: actor, fromState: i ? path[i - 1] : null, toState: path[i], reason: i ? 'Demo data' : '', data: {} })
+      await manager.getRepository(RequestEvent).save({ requestId: request.id, actorId: actor, fromState: i ? path[i - 1] : null, toState: path[i], reason: '', data: i ? {} : { demoKey: demo.key } })
     }
     const currency = quote?.currency ?? 'USD'
     if (path.includes('deposit_paid') && quote && quote.depositCents > 0) {
