@@ -72,7 +72,7 @@ function RequestCard({ row, units }: { row: RequestRow; units: UnitSystem }) {
             </Link>
           </h2>
           <p className="text-sm text-slip-600">
-            {row.firing.kilnName} · {Date.parse(row.firing.firingDate) > Date.now() ? "fires" : "fired"} {formatDateTime(row.firing.firingDate, zone)}
+            {row.firing.kilnName} · {Date.parse(row.firing.firingDate) > Date.now() ? 'fires' : 'fired'} {formatDateTime(row.firing.firingDate, zone)}
           </p>
         </div>
         <RequestStateBadge state={row.state} />

@@ -43,7 +43,7 @@ export function FiringInboxPage() {
       studioId={studio.data.id}
       firing={firing.data}
       title={`Requests for the ${firingInWords(firing.data)}`}
-      lead={`${studio.data.name} · ${Date.parse(firing.data.firingDate) > Date.now() ? "fires" : "fired"} ${formatDateTime(firing.data.firingDate, studio.data.timezone)}`}
+      lead={`${studio.data.name} · ${Date.parse(firing.data.firingDate) > Date.now() ? 'fires' : 'fired'} ${formatDateTime(firing.data.firingDate, studio.data.timezone)}`}
     />
   )
 }
