@@ -10,6 +10,7 @@ import { createPassport } from './auth/passport'
 import type { AppContext } from './context'
 import { errorHandler, notFoundApi } from './http/errors'
 import { poolOf } from './jobs/worker'
+import { adminRouter } from './routes/admin'
 import { authRouter } from './routes/auth'
 import { firingsRouter } from './routes/firings'
 import { healthRouter } from './routes/health'
@@ -116,6 +117,7 @@ export function createApp(ctx: AppContext): App {
   app.use('/api', pickupRouter(ctx))
   app.use('/api', photosRouter(ctx))
   app.use('/api', ratingsRouter(ctx))
+  app.use('/api', adminRouter(ctx))
 
   app.use('/api', notFoundApi)
 

@@ -1,0 +1,54 @@
+import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query'
+import { api } from '../../../lib/api'
+
+export const adminKeys = {
+  all: ['admin'] as const,
+  studios: () => ['admin', 'studios'] as const,
+  users: (q: string) => ['admin', 'users', q] as const,
+}
+
+export interface DeskStudio {
+  id: string
+  name: string
+  city: string
+  region: string
+  published: boolean
+  verified: boolean
+  createdAt: string
+  kilns: number
+  upcomingFirings: number
+  owners: { name: string; email: string }[] | null
+}
+
+export interface DeskUser {
+  id: string
+  email: string
+  displayName: string
+  role: string
+  suspended: boolean
+  createdAt: string
+}
+
+export function useDeskStudios() {
+  return useQuery({ queryKey: adminKeys.studios(), queryFn: () => api<{ studios: DeskStudio[] }>('/api/admin/studios') })
+}
+
+export function useDeskUsers(q: string) {
+  return useQuery({ queryKey: adminKeys.users(q), queryFn: () => api<{ users: DeskUser[] }>(`/api/admin/users?q=${encodeURIComponent(q)}`) })
+}
+
+export function useVerifyStudio() {
+  const queryClient = useQueryClient()
+  return useMutation({
+    mutationFn: ({ id, verified }: { id: string; verified: boolean }) => api(`/api/studios/${id}/verify`, { method: 'POST', body: { verified } }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: adminKeys.studios() }),
+  })
+}
+
+export function useSuspendUser() {
+  const queryClient = useQueryClient()
+  return useMutation({
+    mutationFn: ({ id, suspended }: { id: string; suspended: boolean }) => api(`/api/admin/users/${id}/suspend`, { method: 'POST', body: { suspended } }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: [...adminKeys.all, 'users'] }),
+  })
+}
