@@ -5,6 +5,10 @@ import type { AppContext } from '../context'
 import { User } from '../entities/User'
 import { badRequest, notFound } from '../http/errors'
 import { requireUuidParams, validateBody, validateQuery } from '../http/validate'
+import { adminRefundSchema } from '../../shared/schemas/requests'
+import { requestRows } from '../services/request-views'
+import { adminRefund } from '../services/requests'
+import { FiringRequest } from '../entities/FiringRequest'
 
 const usersQuery = z.object({ q: z.string().trim().max(120).optional() })
 
@@ -45,6 +49,16 @@ export function adminRouter(ctx: AppContext) {
       if (req.body.suspended) await manager.query(`DELETE FROM session WHERE sess -> 'passport' ->> 'user' = $1`, [user.id])
     })
     res.json({ id: user.id, suspended: req.body.suspended })
+  })
+
+  router.get('/admin/disputes', admin, async (_req, res) => {
+    const disputed = await ctx.db.getRepository(FiringRequest).find({ where: { state: 'disputed' }, order: { updatedAt: 'DESC' }, take: 100 })
+    res.json({ requests: await requestRows(ctx.db.manager, disputed) })
+  })
+
+  router.post('/admin/requests/:id/refund', admin, requireUuidParams('id'), validateBody(adminRefundSchema), async (req, res) => {
+    await adminRefund(ctx, String(req.params.id), req.body.amountCents, req.body.reason)
+    res.status(202).json({ queued: true })
   })
 
   return router

@@ -8,6 +8,7 @@ import {
   requestPatchSchema,
   requestSendSchema,
   requestWithdrawSchema,
+  disputeSchema,
 } from '../../shared/schemas/requests'
 import { REQUEST_STATES } from '../../shared/workflow/request-states'
 import { requireAuth, requireRole } from '../auth/guards'
@@ -20,7 +21,7 @@ import { listMessages, postMessage } from '../services/messages'
 import { moneyOf, openCheckout } from '../services/payments'
 import { loadRequest, viewerOf } from '../services/request-context'
 import { requestRows, showRequest } from '../services/request-views'
-import { acceptRequest, answerMove, createDraft, declineRequest, proposeMove, sendRequest, updateDraft, withdrawRequest } from '../services/requests'
+import { acceptRequest, answerMove, createDraft, declineRequest, disputeRequest, proposeMove, sendRequest, updateDraft, withdrawRequest } from '../services/requests'
 
 const listQuery = z.object({
   firingId: z.uuid().optional(),
@@ -95,6 +96,11 @@ export function requestsRouter(ctx: AppContext) {
 
   router.post('/requests/:id/withdraw', requireAuth, id, validateBody(requestWithdrawSchema), async (req, res) => {
     await withdrawRequest(ctx, req.user!, String(req.params.id), req.body.reason)
+    res.json(await show(String(req.params.id), req.user!))
+  })
+
+  router.post('/requests/:id/dispute', requireAuth, id, validateBody(disputeSchema), async (req, res) => {
+    await disputeRequest(ctx, req.user!, String(req.params.id), req.body.reason)
     res.json(await show(String(req.params.id), req.user!))
   })
 

@@ -33,6 +33,7 @@ function actionsFor(rc: RequestContext, viewer: Viewer, pickup: Awaited<ReturnTy
   if (potter && state === 'ready' && pickup.owedCents > 0) actions.push('pay-balance')
   if (['collected', 'disputed'].includes(state) && viewer.side !== 'admin') actions.push('rate')
   if (studio && ['collected', 'disputed'].includes(state)) actions.push('reply')
+  if (viewer.side !== 'admin' && ['fired', 'ready', 'collected'].includes(state)) actions.push('dispute')
   return actions
 }
 

@@ -24,6 +24,7 @@ import {
   requestSentMail,
   studioCancelledMail,
   withdrawnMail,
+  disputedMail,
 } from '../mail/templates/requests'
 import { heldLitres } from './firings'
 import { getPriceList, kilnSpec } from './kilns'
@@ -324,4 +325,30 @@ export async function potterRecord(manager: EntityManager, potterId: string) {
     noShows: count((r) => r.state === 'cancelled' && (r.by === 'deposit-hold' || r.by === 'refused-at-door')),
     rating: rating.count ? { mean: Math.round(rating.mean * 10) / 10, count: rating.count } : null,
   }
+}
+
+/**
+ * Either side raises a dispute once the ware has been fired: the request leaves the normal path and
+ * waits for the marketplace's admins, who may refund.
+ */
+export async function disputeRequest(ctx: AppContext, user: User, id: string, reason: string) {
+  return ctx.db.transaction(async (manager) => {
+    const rc = await loadRequest(manager, id, { lock: true })
+    const viewer = await viewerOf(manager, rc, user)
+    await moveRequest(manager, rc.request, 'disputed', user.id, reason, { by: viewer.side })
+    const facts = factsOf(rc, ctx.config.publicUrl)
+    const others = viewer.side === 'potter' ? await studioPeople(manager, rc.studio.id) : [rc.potter]
+    for (const person of others) await queueMail(manager, person.email, 'disputed', disputedMail(facts, user.displayName, reason))
+  })
+}
+
+/** An admin's refund while settling a dispute: at most what was paid and not yet refunded. */
+export async function adminRefund(ctx: AppContext, id: string, amountCents: number, reason: string) {
+  return ctx.db.transaction(async (manager) => {
+    await loadRequest(manager, id, { lock: true })
+    const { net } = await moneyOf(manager, id)
+    if (amountCents > net) throw new HttpError(400, 'invalid-input', 'That is more than was paid and not yet refunded.', { amountCents: `At most ${net} cents.` })
+    await enqueueRefund(manager, id, amountCents, `Refunded by the Conewright desk: ${reason}`)
+    await manager.getRepository(RequestEvent).save({ requestId: id, actorId: null, fromState: null, toState: (await manager.getRepository(FiringRequest).findOneByOrFail({ id })).state, reason: `Refund of ${amountCents} cents by the desk: ${reason}`, data: { amountCents } })
+  })
 }

@@ -146,3 +146,12 @@ export function newMessagesMail(r: RequestFacts, messages: { author: string; bod
     action: { label: 'Open the thread', url: r.requestUrl },
   }
 }
+
+export function disputedMail(r: RequestFacts, by: string, reason: string): MailContent {
+  return {
+    subject: `Dispute raised: the ${title(r)}`,
+    paragraphs: [`${by} raised a dispute about this request: “${reason}”`, 'The Conewright desk will look at the record (check-in, firing log, results and messages) and contact both sides.'],
+    details: firingRows(r),
+    action: { label: 'See the request', url: r.requestUrl },
+  }
+}

@@ -52,3 +52,25 @@ export function useSuspendUser() {
     onSuccess: () => queryClient.invalidateQueries({ queryKey: [...adminKeys.all, 'users'] }),
   })
 }
+
+export interface DisputedRequest {
+  id: string
+  potterName: string
+  updatedAt: string
+  quote: { totalCents: number; depositCents: number; currency: string } | null
+  firing: { firingDate: string; cone: string; atmosphere: string; kind: string; kilnName: string }
+  studio: { id: string; name: string; timezone: string }
+}
+
+export function useDisputes() {
+  return useQuery({ queryKey: [...adminKeys.all, 'disputes'], queryFn: () => api<{ requests: DisputedRequest[] }>('/api/admin/disputes') })
+}
+
+export function useDeskRefund() {
+  const queryClient = useQueryClient()
+  return useMutation({
+    mutationFn: ({ id, amountCents, reason }: { id: string; amountCents: number; reason: string }) =>
+      api(`/api/admin/requests/${id}/refund`, { method: 'POST', body: { amountCents, reason } }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: [...adminKeys.all, 'disputes'] }),
+  })
+}

@@ -6,7 +6,8 @@ import { Button } from '../../../components/ui/Button'
 import { Card, EmptyState, PageHeader } from '../../../components/ui/Card'
 import { Field, TextInput } from '../../../components/ui/Field'
 import { Spinner } from '../../../components/ui/Spinner'
-import { useDeskStudios, useDeskUsers, useSuspendUser, useVerifyStudio, type DeskStudio } from '../api/admin'
+import { formatDateTime, formatMoney } from '../../../../shared/dates'
+import { useDeskRefund, useDeskStudios, useDeskUsers, useDisputes, useSuspendUser, useVerifyStudio, type DeskStudio, type DisputedRequest } from '../api/admin'
 
 function StudioRow({ studio }: { studio: DeskStudio }) {
   const verify = useVerifyStudio()
@@ -30,6 +31,54 @@ function StudioRow({ studio }: { studio: DeskStudio }) {
       </div>
       {verify.isError && <Alert tone="danger" className="w-full">{verify.error.message}</Alert>}
     </li>
+  )
+}
+
+function DisputeRow({ request }: { request: DisputedRequest }) {
+  const refund = useDeskRefund()
+  const [amount, setAmount] = useState('')
+  const [reason, setReason] = useState('')
+  const currency = request.quote?.currency ?? 'USD'
+  const cents = Math.round(Number(amount) * 100)
+  return (
+    <li className="space-y-2 border-b border-slip-100 py-3 last:border-0">
+      <div className="flex flex-wrap items-baseline justify-between gap-2">
+        <Link to={`/requests/${request.id}`} className="font-semibold text-clay-800 hover:underline">
+          {request.potterName} · {request.studio.name}
+        </Link>
+        <span className="text-sm text-slip-600">
+          {request.firing.kilnName}, cone {request.firing.cone} {request.firing.atmosphere}, {formatDateTime(request.firing.firingDate, request.studio.timezone)} · quoted {request.quote ? formatMoney(request.quote.totalCents, currency) : '—'}
+        </span>
+      </div>
+      <div className="flex flex-wrap items-end gap-2">
+        <Field label={`Refund (${currency})`}>{(a11y) => <TextInput {...a11y} inputMode="decimal" value={amount} onChange={(e) => setAmount(e.target.value)} className="w-28" />}</Field>
+        <Field label="Why" className="min-w-60 flex-1">{(a11y) => <TextInput {...a11y} value={reason} onChange={(e) => setReason(e.target.value)} />}</Field>
+        <Button size="sm" busy={refund.isPending} disabled={!(cents > 0) || reason.trim().length < 3} onClick={() => refund.mutate({ id: request.id, amountCents: cents, reason })}>
+          Refund
+        </Button>
+      </div>
+      {refund.isSuccess && <Alert tone="success">The refund is on its way through Stripe; it shows in the request’s ledger.</Alert>}
+      {refund.isError && <Alert tone="danger">{refund.error.message}</Alert>}
+    </li>
+  )
+}
+
+function Disputes() {
+  const disputes = useDisputes()
+  return (
+    <Card>
+      <h2 className="text-lg font-semibold">Disputes</h2>
+      <p className="mt-1 text-sm text-slip-600">Open the request to read its record (check-in, firing log, results, messages) before refunding.</p>
+      {disputes.isPending ? (
+        <Spinner />
+      ) : disputes.isError ? (
+        <Alert tone="danger" className="mt-3">{disputes.error.message}</Alert>
+      ) : disputes.data.requests.length === 0 ? (
+        <div className="mt-3"><EmptyState title="No open disputes" /></div>
+      ) : (
+        <ul className="mt-2">{disputes.data.requests.map((r) => <DisputeRow key={r.id} request={r} />)}</ul>
+      )}
+    </Card>
   )
 }
 
@@ -100,6 +149,7 @@ export function FrontDeskPage() {
             <ul className="mt-2">{others.map((s) => <StudioRow key={s.id} studio={s} />)}</ul>
           </Card>
         )}
+        <Disputes />
         <Accounts />
       </div>
     </>

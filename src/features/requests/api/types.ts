@@ -50,6 +50,7 @@ export type RequestAction =
   | 'pay-balance'
   | 'rate'
   | 'reply'
+  | 'dispute'
 
 export interface MeasuredSize {
   heightMm: number

@@ -31,6 +31,7 @@ import { RequestStateBadge } from '../components/RequestStateBadge'
 import { SpaceGauge } from '../components/SpaceGauge'
 import { StudioActions } from '../components/StudioActions'
 import { Timeline } from '../components/Timeline'
+import { DisputeAction } from '../components/DisputeAction'
 import { potterNextStep, studioNextStep } from '../requestWords'
 
 /** States in which what is still owed is worth a line of its own: from the drop-off to the handover. */
@@ -233,6 +234,11 @@ function RequestDetail({ view, units, paidFor, unpaidFor, waitedOut }: DetailPro
             {view.viewer === 'admin' && (
               <div className="mt-4 border-t border-slip-200 pt-4">
                 <StudioActions view={view} units={units} />
+              </div>
+            )}
+            {view.actions.includes('dispute') && (
+              <div className="mt-4 border-t border-slip-200 pt-3">
+                <DisputeAction view={view} />
               </div>
             )}
             {!view.actions.some((a) => a !== 'message') && <p className="text-sm text-slip-600">Nothing to do here now.</p>}
