@@ -38,13 +38,14 @@ export function authRouter(ctx: AppContext, passport: PassportStatic, csrfToken:
     onlyFailures: true,
   })
   const resetPerAccount = makeLimiter(ctx.db, 'reset-account', { limit: 5, windowMs: WINDOW, key: accountKey })
+  const registerPerAccount = makeLimiter(ctx.db, 'register-account', { limit: authPerAccountPer15Min, windowMs: WINDOW, key: accountKey })
 
   const signIn = (req: Parameters<RequestHandler>[0], user: User) =>
     new Promise<void>((resolve, reject) => req.login(user, (error) => (error ? reject(error) : resolve())))
 
   router.get('/csrf', csrfToken)
 
-  router.post('/register', perIp, validateBody(registerSchema), async (req, res) => {
+  router.post('/register', perIp, registerPerAccount, validateBody(registerSchema), async (req, res) => {
     const { inviteToken, ...body } = req.body as RegisterBody
     // Registering through a crew invitation: the account joins the studio, and the mailed link has
     // already proven the address.

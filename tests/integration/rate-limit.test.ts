@@ -22,6 +22,18 @@ describe('sign-in rate limits', () => {
     expect(reply.body.error.code).toBe('rate-limited')
   })
 
+  it('limits registration attempts for one address', async () => {
+    // A fresh app, so the sign-in attempts above do not count against this address's IP.
+    const fresh = await startTestApp({ worker: false, config: { rateLimits: { authPerIpPer15Min: 100, authPerAccountPer15Min: 3, openApiPerIpPerMin: 300 } } })
+    try {
+      const statuses: number[] = []
+      for (let i = 0; i < 4; i++) statuses.push((await new HttpSession(fresh.url).post('/api/auth/register', { email: 'same.address@example.test', password: 'x', displayName: 'X', role: 'potter' })).status)
+      expect(statuses).toEqual([400, 400, 400, 429])
+    } finally {
+      await fresh.close()
+    }
+  })
+
   it('limits one address (IP) across accounts', async () => {
     const statuses: number[] = []
     // 4 attempts were already spent from this IP by the test above.
