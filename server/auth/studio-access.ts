@@ -5,14 +5,14 @@ import { Kiln } from '../entities/Kiln'
 import { Studio } from '../entities/Studio'
 import { StudioMember, type StudioRole } from '../entities/StudioMember'
 import { forbidden, notFound, unauthorized } from '../http/errors'
+import { isUuid } from '../http/validate'
 
 /** Finds the studio a route's record belongs to; null when the record does not exist. */
 export type StudioResolver = (req: Request) => Promise<string | null>
 
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i
 const param = (req: Request, name: string) => {
-  const value = String(req.params[name] ?? '')
-  return UUID.test(value) ? value : null
+  const value = req.params[name]
+  return isUuid(value) ? value : null
 }
 
 export function studioFromParam(ctx: AppContext, name = 'id'): StudioResolver {

@@ -1,14 +1,14 @@
 import { Check, Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm'
 import type { Atmosphere, Cone, FiringKind } from '../../shared/firing/check'
 import type { Segment } from '../../shared/firing/schedule'
-import type { FiringStatus } from '../../shared/workflow/firing-status'
+import { FIRING_STATUSES, type FiringStatus } from '../../shared/workflow/firing-status'
 import type { Kiln } from './Kiln'
 
 @Entity({ name: 'firings' })
 @Check('firings_kind_check', `"kind" IN ('bisque', 'glaze', 'single')`)
 @Check('firings_atmosphere_check', `"atmosphere" IN ('oxidation', 'reduction', 'neutral')`)
 @Check('firings_cone_check', `cone_rank("cone") IS NOT NULL`)
-@Check('firings_status_check', `"status" IN ('open', 'full', 'closed', 'loading', 'firing', 'cooling', 'unloaded', 'cancelled')`)
+@Check('firings_status_check', `"status" IN (${FIRING_STATUSES.map((s) => `'${s}'`).join(', ')})`)
 @Check('firings_dates_check', `"drop_off_by" <= "firing_date" AND "firing_date" <= "ready_by"`)
 @Check('firings_capacity_check', `"capacity_l" >= 0`)
 @Index('firings_kiln_date_idx', ['kilnId', 'firingDate'])

@@ -1,7 +1,7 @@
 import { Check, Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm'
 import type { Finding, Piece, Verdict } from '../../shared/firing/check'
 import type { Quote } from '../../shared/firing/quote'
-import type { RequestState } from '../../shared/workflow/request-states'
+import { REQUEST_STATES, type RequestState } from '../../shared/workflow/request-states'
 import type { Firing } from './Firing'
 import type { User } from './User'
 
@@ -9,10 +9,7 @@ import type { User } from './User'
 @Entity({ name: 'firing_requests' })
 @Index('firing_requests_firing_state_idx', ['firingId', 'state'])
 @Index('firing_requests_potter_idx', ['potterId'])
-@Check(
-  'firing_requests_state_check',
-  `"state" IN ('draft', 'sent', 'accepted', 'declined', 'withdrawn', 'deposit_paid', 'received', 'fired', 'ready', 'collected', 'cancelled', 'disputed')`,
-)
+@Check('firing_requests_state_check', `"state" IN (${REQUEST_STATES.map((s) => `'${s}'`).join(', ')})`)
 @Check('firing_requests_volume_check', `"volume_l" >= 0`)
 export class FiringRequest {
   @PrimaryGeneratedColumn('uuid')

@@ -1,8 +1,8 @@
 import { Check, Column, CreateDateColumn, Entity, Index, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm'
-import type { UserRole, UnitSystem } from '../../shared/schemas/auth'
+import { USER_ROLES, type UserRole, type UnitSystem } from '../../shared/schemas/auth'
 
 @Entity({ name: 'users' })
-@Check('users_role_check', `"role" IN ('potter', 'host', 'crew', 'admin')`)
+@Check('users_role_check', `"role" IN (${USER_ROLES.map((r) => `'${r}'`).join(', ')})`)
 @Check('users_unit_system_check', `"unit_system" IN ('imperial', 'metric')`)
 @Check('users_email_lower_check', `"email" = lower("email")`)
 export class User {
@@ -20,7 +20,7 @@ export class User {
   @Column({ name: 'display_name', type: 'text' })
   displayName: string
 
-  @Column({ type: 'text', enum: ['potter', 'host', 'crew', 'admin'] })
+  @Column({ type: 'text', enum: USER_ROLES })
   role: UserRole
 
   @Column({ name: 'unit_system', type: 'text', default: 'imperial' })

@@ -28,11 +28,16 @@ export function validateQuery(schema: ZodType): RequestHandler {
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i
 
+/** Ids are uuids; anything else cannot name a record, so it is looked up nowhere. */
+export function isUuid(value: unknown): value is string {
+  return typeof value === 'string' && UUID.test(value)
+}
+
 /** Route ids are uuids; anything else cannot exist, so it is a 404 rather than a database error. */
 export function requireUuidParams(...names: string[]): RequestHandler {
   return (req, _res, next) => {
     for (const name of names) {
-      if (!UUID.test(String(req.params[name] ?? ''))) return next(new HttpError(404, 'not-found', 'That was not found.'))
+      if (!isUuid(req.params[name])) return next(new HttpError(404, 'not-found', 'That was not found.'))
     }
     next()
   }

@@ -2,6 +2,7 @@ import { Router } from 'express'
 import { z } from 'zod'
 import { crewInviteSchema, kilnBodySchema, studioCreateSchema, studioPatchSchema } from '../../shared/schemas/studios'
 import { requireRole } from '../auth/guards'
+import { unauthorized } from '../http/errors'
 import { allowStudioReader, requireStudioMember, studioFromParam } from '../auth/studio-access'
 import type { AppContext } from '../context'
 import { validateBody, validateQuery } from '../http/validate'
@@ -26,7 +27,7 @@ export function studiosRouter(ctx: AppContext) {
   // Public: published studios. `?mine=true`: the caller's own studios, drafts included.
   router.get('/studios', async (req, res) => {
     if (req.query.mine === 'true') {
-      if (!req.user) return res.status(401).json({ error: { code: 'not-signed-in', message: 'Sign in first.' } })
+      if (!req.user) throw unauthorized()
       const mine = await listMyStudios(ctx, req.user.id)
       return res.json({ studios: mine.map(({ studio: s, role }) => studioJson(s, role)) })
     }

@@ -19,6 +19,7 @@ import { RequestEvent } from '../entities/RequestEvent'
 import { Studio } from '../entities/Studio'
 import { User } from '../entities/User'
 import { badRequest, conflict, type FieldErrors, HttpError, notFound } from '../http/errors'
+import { isUuid } from '../http/validate'
 import { firingCancelledMail } from '../mail/templates/firings'
 import { getKiln, getPriceList, kilnSpec } from './kilns'
 import { queueMail } from './mail'
@@ -134,6 +135,7 @@ export async function createFirings(ctx: AppContext, kilnId: string, body: Firin
 export async function updateFiring(ctx: AppContext, id: string, patch: FiringPatchBody, actorId: string): Promise<Firing> {
   return ctx.db.transaction(async (manager) => {
     const firing = await getFiring(manager, id, true)
+    const kiln = await getKiln(manager, firing.kilnId)
     const { status, ...fields } = patch
     if (firing.status === 'cancelled') throw conflict('This firing is cancelled.', 'firing-cancelled')
     if (status && status !== firing.status) {
@@ -145,7 +147,6 @@ export async function updateFiring(ctx: AppContext, id: string, patch: FiringPat
       await onFiringStatus(ctx, manager, firing, status, actorId)
     }
     if (Object.keys(fields).length) {
-      const kiln = await getKiln(manager, firing.kilnId)
       const problems = firingProblems(kilnSpec(kiln), fields)
       if (Object.keys(problems).length) throw badRequest('This firing does not suit the kiln.', problems)
       const next = {
@@ -166,8 +167,7 @@ export async function updateFiring(ctx: AppContext, id: string, patch: FiringPat
       Object.assign(firing, { ...fields, ...next })
     }
     const saved = await manager.getRepository(Firing).save(firing)
-    const { studioId } = await manager.getRepository(Kiln).findOneByOrFail({ id: firing.kilnId })
-    await enqueueStudioSync(manager, studioId)
+    await enqueueStudioSync(manager, kiln.studioId)
     return saved
   })
 }
@@ -244,7 +244,7 @@ export async function loadFiringForCheck(
   ctx: AppContext,
   firingId: string,
 ): Promise<{ kiln: KilnSpec; firing: FiringSpec; priceList: PriceList | null } | null> {
-  if (!/^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i.test(firingId)) return null
+  if (!isUuid(firingId)) return null
   const firing = await ctx.db.getRepository(Firing).findOne({ where: { id: firingId } })
   if (!firing || firing.status === 'cancelled') return null
   const kiln = await ctx.db.getRepository(Kiln).findOneByOrFail({ id: firing.kilnId })

@@ -12,6 +12,7 @@ import type { AppContext } from '../context'
 import { Photo, type PhotoKind } from '../entities/Photo'
 import type { User } from '../entities/User'
 import { badRequest, forbidden, HttpError, notFound } from '../http/errors'
+import { isUuid } from '../http/validate'
 import { loadRequest, viewerOf } from './request-context'
 
 export const PHOTO_LIMITS = {
@@ -104,7 +105,7 @@ export async function requestPhotos(manager: EntityManager, requestId: string) {
 
 /** The bytes of a photo for someone allowed to see it; a 404 for anyone else, as if it were not there. */
 export async function readPhoto(ctx: AppContext, user: User | undefined, photoId: string, size: 'full' | 'thumb') {
-  if (!/^[0-9a-f-]{36}$/i.test(photoId)) throw notFound('That photo')
+  if (!isUuid(photoId)) throw notFound('That photo')
   const photo = await ctx.db.getRepository(Photo).findOne({ where: { id: photoId } })
   if (!photo) throw notFound('That photo')
   const publicResult = photo.kind === 'result' && photo.publicOptIn

@@ -21,7 +21,7 @@ import { dropOffMail, firingProgressMail, noShowMail, pickupMail, readyMail, ref
 import { queueMail } from './mail'
 import { enqueueRefund, moneyOf, openCheckout } from './payments'
 import { refundUnderTerms } from '../../shared/refunds'
-import { factsOf, loadRequest, moveRequest, viewerOf, type RequestContext } from './request-context'
+import { factsOf, loadRequest, moveRequest, stateConflict, viewerOf, type RequestContext } from './request-context'
 import { checkAgainstFiring } from './requests'
 import type { Payment } from '../entities/Payment'
 
@@ -33,9 +33,11 @@ async function studioSide(manager: EntityManager, rc: RequestContext, user: User
 
 /** The price that stands: the check-in quote once the potter confirmed it (or when it went down). */
 export async function standingQuote(manager: EntityManager, rc: RequestContext) {
-  const checkIn = await manager.getRepository(CheckIn).findOne({ where: { requestId: rc.request.id } })
-  if (checkIn?.quoteAfter && checkIn.priceConfirmedAt) return checkIn.quoteAfter
-  return rc.request.quote
+  return quoteThatStands(rc.request, await manager.getRepository(CheckIn).findOne({ where: { requestId: rc.request.id } }))
+}
+
+function quoteThatStands(request: FiringRequest, checkIn: CheckIn | null) {
+  return checkIn?.quoteAfter && checkIn.priceConfirmedAt ? checkIn.quoteAfter : request.quote
 }
 
 /** What the potter still owes: the standing total less what came in, plus what went back out. */
@@ -65,7 +67,7 @@ export async function checkIn(
     if (rc.request.state === 'accepted') {
       throw conflict('The deposit is not paid yet. Record it at the counter first, or ask the potter to pay it on the request.', 'deposit-unpaid', { state: 'accepted' })
     }
-    if (rc.request.state !== 'deposit_paid') throw conflict(`This request is ${rc.request.state.replace('_', ' ')}; only booked ware is checked in.`, 'bad-state-change', { state: rc.request.state, allowed: [] })
+    if (rc.request.state !== 'deposit_paid') throw stateConflict(rc.request, `This request is ${rc.request.state.replace('_', ' ')}; only booked ware is checked in.`)
     const facts = factsOf(rc, ctx.config.publicUrl)
     if (body.refuse) {
       const { net } = await moneyOf(manager, id)
@@ -86,7 +88,7 @@ export async function checkIn(
     const actual = declared
       .map((piece, i) => ({ ...piece, quantity: received[i].received, ...(received[i].measured ?? {}) }))
       .filter((piece) => piece.quantity > 0)
-    const { check, quote } = await checkAgainstFiring(manager, rc.firing, actual, { excludeRequestId: id })
+    const { check, quote } = await checkAgainstFiring(manager, rc.firing, actual, { own: rc.request })
     const before = rc.request.quote?.totalCents ?? 0
     const after = quote?.totalCents ?? before
     const needsConfirmation = after > before
@@ -297,7 +299,8 @@ export async function markCollected(ctx: AppContext, actor: User, id: string) {
   })
 }
 
-export async function pickupJson(manager: EntityManager, rc: RequestContext) {
+/** The drop-off-to-pickup side of a request's view; `netPaidCents` is what the caller's ledger read gave. */
+export async function pickupJson(manager: EntityManager, rc: RequestContext, netPaidCents: number) {
   const checkInRow = await manager.getRepository(CheckIn).findOne({ where: { requestId: rc.request.id } })
   const result = await manager.getRepository(RequestResult).findOne({ where: { requestId: rc.request.id } })
   return {
@@ -315,6 +318,6 @@ export async function pickupJson(manager: EntityManager, rc: RequestContext) {
       : null,
     results: result ? { outcomes: result.outcomes, notes: result.notes, at: result.updatedAt.toISOString() } : null,
     firingLog: await firingLogJson(manager, rc.firing.id),
-    owedCents: await owedCents(manager, rc),
+    owedCents: Math.max(0, (quoteThatStands(rc.request, checkInRow)?.totalCents ?? 0) - netPaidCents),
   }
 }

@@ -8,6 +8,7 @@ import { Studio } from '../entities/Studio'
 import { StudioMember } from '../entities/StudioMember'
 import { User } from '../entities/User'
 import { conflict, notFound } from '../http/errors'
+import { isUuid } from '../http/validate'
 import type { RequestFacts } from '../mail/templates/requests'
 
 /** A request with everything around it that the workflow and the views need. */
@@ -22,10 +23,8 @@ export interface RequestContext {
 /** Who is looking at a request: its potter, one of the studio's people, or an admin. */
 export type Viewer = { side: 'potter' } | { side: 'studio'; role: 'owner' | 'crew' } | { side: 'admin' }
 
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i
-
 export async function loadRequest(manager: EntityManager, id: string, { lock = false } = {}): Promise<RequestContext> {
-  if (!UUID.test(id)) throw notFound('That request')
+  if (!isUuid(id)) throw notFound('That request')
   const request = await manager.getRepository(FiringRequest).findOne({ where: { id }, ...(lock ? { lock: { mode: 'pessimistic_write' as const } } : {}) })
   if (!request) throw notFound('That request')
   const firing = await manager.getRepository(Firing).findOneByOrFail({ id: request.firingId })
@@ -48,6 +47,13 @@ export async function viewerOf(manager: EntityManager, rc: RequestContext, user:
   throw notFound('That request')
 }
 
+const inWords = (state: RequestState) => state.replace('_', ' ')
+
+/** The state machine's refusal: a 409 naming the request's state and the states allowed from it. */
+export function stateConflict(request: FiringRequest, message = `This request is ${inWords(request.state)}; that cannot be done now.`) {
+  return conflict(message, 'bad-state-change', { state: request.state, allowed: nextRequestStates(request.state) })
+}
+
 /** Moves a request along the one state machine, recording who, when, from, to and why. */
 export async function moveRequest(
   manager: EntityManager,
@@ -57,12 +63,7 @@ export async function moveRequest(
   reason = '',
   data: Record<string, unknown> = {},
 ) {
-  if (!canMoveRequest(request.state, to)) {
-    throw conflict(`A request that is ${request.state.replace('_', ' ')} cannot become ${to.replace('_', ' ')}.`, 'bad-state-change', {
-      state: request.state,
-      allowed: nextRequestStates(request.state),
-    })
-  }
+  if (!canMoveRequest(request.state, to)) throw stateConflict(request, `A request that is ${inWords(request.state)} cannot become ${inWords(to)}.`)
   await manager.getRepository(RequestEvent).save({ requestId: request.id, actorId, fromState: request.state, toState: to, reason, data })
   request.state = to
   await manager.update(FiringRequest, request.id, { state: to })

@@ -1,5 +1,6 @@
 import type { EntityManager } from 'typeorm'
-import { nextRequestStates } from '../../shared/workflow/request-states'
+import { holdsSpace, nextRequestStates } from '../../shared/workflow/request-states'
+import { Firing } from '../entities/Firing'
 import { FiringRequest } from '../entities/FiringRequest'
 import { RequestEvent } from '../entities/RequestEvent'
 import { User } from '../entities/User'
@@ -43,10 +44,10 @@ export async function requestJson(manager: EntityManager, rc: RequestContext, vi
   const money = await moneyOf(manager, rc.request.id)
   const payments = await openPaymentsOf(manager, rc.request.id)
   const held = (await heldLitres(manager, [rc.firing.id])).get(rc.firing.id) ?? 0
-  const pickup = await pickupJson(manager, rc)
-  const proposed = rc.request.proposedFiringId ? await manager.getRepository('Firing').findOneBy({ id: rc.request.proposedFiringId }) : null
+  const pickup = await pickupJson(manager, rc, money.net)
+  const proposed = rc.request.proposedFiringId ? await manager.getRepository(Firing).findOneBy({ id: rc.request.proposedFiringId }) : null
   // The street address goes to a potter only once the studio has agreed to take the ware.
-  const showAddress = viewer.side !== 'potter' || ['accepted', 'deposit_paid', 'received', 'fired', 'ready', 'collected', 'disputed'].includes(rc.request.state)
+  const showAddress = viewer.side !== 'potter' || holdsSpace(rc.request.state)
   return {
     id: rc.request.id,
     state: rc.request.state,
@@ -65,7 +66,7 @@ export async function requestJson(manager: EntityManager, rc: RequestContext, vi
     sentAt: rc.request.sentAt?.toISOString() ?? null,
     createdAt: rc.request.createdAt.toISOString(),
     firing: firingJson(rc.firing, rc.studio.id, held),
-    proposedFiring: proposed ? firingJson(proposed as never, rc.studio.id, (await heldLitres(manager, [rc.request.proposedFiringId!])).get(rc.request.proposedFiringId!) ?? 0) : null,
+    proposedFiring: proposed ? firingJson(proposed, rc.studio.id, (await heldLitres(manager, [proposed.id])).get(proposed.id) ?? 0) : null,
     kiln: kilnJson(rc.kiln),
     studio: {
       id: rc.studio.id,

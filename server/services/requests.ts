@@ -6,7 +6,7 @@ import { enqueueStudioSync } from '../../search/sync'
 import { checkWare, requestVolumeL, type Piece, type WareCheck } from '../../shared/firing/check'
 import { quoteRequest } from '../../shared/firing/quote'
 import { takesRequests } from '../../shared/workflow/firing-status'
-import type { RequestState } from '../../shared/workflow/request-states'
+import { holdsSpace, type RequestState } from '../../shared/workflow/request-states'
 import type { AppContext } from '../context'
 import { Firing } from '../entities/Firing'
 import { FiringRequest } from '../entities/FiringRequest'
@@ -31,19 +31,19 @@ import { getPriceList, kilnSpec } from './kilns'
 import { queueMail } from './mail'
 import { enqueueOpenCheckout, enqueueRefund, moneyOf } from './payments'
 import { refundUnderTerms } from '../../shared/refunds'
-import { factsOf, loadRequest, moveRequest, studioPeople, viewerOf, type RequestContext, type Viewer } from './request-context'
+import { factsOf, loadRequest, moveRequest, stateConflict, studioPeople, viewerOf, type RequestContext, type Viewer } from './request-context'
 
 export const DEPOSIT_EXPIRY_TASK = 'deposit-expiry'
 
-/** The server's ware check of pieces against a firing as it stands now (space left included). */
-export async function checkAgainstFiring(manager: EntityManager, firing: Firing, pieces: Piece[], { excludeRequestId }: { excludeRequestId?: string } = {}) {
+/**
+ * The server's ware check of pieces against a firing as it stands now (space left included). `own` is
+ * a request already in the firing whose held space is counted as free for its own re-check.
+ */
+export async function checkAgainstFiring(manager: EntityManager, firing: Firing, pieces: Piece[], { own }: { own?: FiringRequest } = {}) {
   const kiln = await manager.getRepository(Kiln).findOneByOrFail({ id: firing.kilnId })
   const spec = kilnSpec(kiln)
   let held = (await heldLitres(manager, [firing.id])).get(firing.id) ?? 0
-  if (excludeRequestId) {
-    const own = await manager.getRepository(FiringRequest).findOne({ where: { id: excludeRequestId, firingId: firing.id } })
-    if (own && ['accepted', 'deposit_paid', 'received', 'fired', 'ready', 'collected', 'disputed'].includes(own.state)) held -= own.volumeL
-  }
+  if (own && own.firingId === firing.id && holdsSpace(own.state)) held -= own.volumeL
   const check: WareCheck = checkWare(
     spec,
     { kind: firing.kind, cone: firing.cone, atmosphere: firing.atmosphere, slowCool: firing.slowCool, remainingCapacityL: Math.max(0, firing.capacityL - held) },
@@ -161,9 +161,7 @@ export async function acceptRequest(ctx: AppContext, actor: User, id: string) {
 
 async function holdSpace(ctx: AppContext, manager: EntityManager, rc: RequestContext, actorId: string, reason: string) {
   const firing = await manager.getRepository(Firing).findOneOrFail({ where: { id: rc.request.firingId }, lock: { mode: 'pessimistic_write' } })
-  if (rc.request.state !== 'sent') {
-    throw conflict(`Only a sent request can be accepted; this one is ${rc.request.state.replace('_', ' ')}.`, 'bad-state-change', { state: rc.request.state, allowed: [] })
-  }
+  if (rc.request.state !== 'sent') throw stateConflict(rc.request, `Only a sent request can be accepted; this one is ${rc.request.state.replace('_', ' ')}.`)
   const held = (await heldLitres(manager, [firing.id])).get(firing.id) ?? 0
   const left = firing.capacityL - held
   if (rc.request.volumeL > left + 1e-9) {
@@ -202,8 +200,7 @@ export async function declineRequest(ctx: AppContext, actor: User, id: string, r
       return
     }
     if (rc.request.state !== 'accepted' && rc.request.state !== 'deposit_paid') {
-      // Let the state machine name what is possible from here.
-      await moveRequest(manager, rc.request, 'declined', actor.id, reason)
+      throw stateConflict(rc.request, `A request that is ${rc.request.state.replace('_', ' ')} can no longer be declined or called off.`)
     }
     const { net } = await moneyOf(manager, id)
     await moveRequest(manager, rc.request, 'cancelled', actor.id, reason, { by: 'studio' })
@@ -218,7 +215,7 @@ export async function proposeMove(ctx: AppContext, actor: User, id: string, firi
   return ctx.db.transaction(async (manager) => {
     const rc = await loadRequest(manager, id, { lock: true })
     requireStudioSide(await viewerOf(manager, rc, actor))
-    if (rc.request.state !== 'sent') throw conflict('Only a sent request can be moved to another firing.', 'bad-state-change', { state: rc.request.state, allowed: [] })
+    if (rc.request.state !== 'sent') throw stateConflict(rc.request, 'Only a sent request can be moved to another firing.')
     const target = await manager.getRepository(Firing).findOne({ where: { id: firingId } })
     const targetKiln = target && (await manager.getRepository(Kiln).findOneByOrFail({ id: target.kilnId }))
     if (!target || targetKiln!.studioId !== rc.studio.id) throw new HttpError(400, 'invalid-input', 'Choose one of this studio’s firings.', { firingId: 'Not a firing of this studio.' })

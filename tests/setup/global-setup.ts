@@ -9,6 +9,7 @@ import { createDataSource } from '../../server/db/data-source'
 import { migrateQueue } from '../../server/jobs/worker'
 import { loadConfig } from '../../server/config'
 import { silentLogger } from '../../server/context'
+import { withDatabase } from '../support/database-url'
 
 declare module 'vitest' {
   export interface ProvidedContext {
@@ -48,10 +49,4 @@ export default async function setup(project: TestProject) {
     await admin.end()
     remove?.()
   }
-}
-
-export function withDatabase(url: string, database: string) {
-  const parsed = new URL(url)
-  parsed.pathname = `/${database}`
-  return parsed.toString()
 }

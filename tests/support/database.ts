@@ -1,12 +1,8 @@
 import { randomBytes } from 'node:crypto'
 import pg from 'pg'
 import { inject } from 'vitest'
+import { withDatabase } from './database-url'
 
-function withDatabase(url: string, database: string) {
-  const parsed = new URL(url)
-  parsed.pathname = `/${database}`
-  return parsed.toString()
-}
 
 /** A fresh database cloned from the migrated template; `drop()` removes it. */
 export async function createTestDatabase(): Promise<{ url: string; drop(): Promise<void> }> {

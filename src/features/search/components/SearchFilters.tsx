@@ -102,6 +102,21 @@ export function SearchFilters({ state, units, onUnitsChange, errors, facets, onS
     const count = filtered ? undefined : facets?.[facet]?.[value]
     return count === undefined ? '' : ` (${count})`
   }
+  /** A filter whose choices show how many results each would give. */
+  const facetSelect = (facet: 'atmosphere' | 'kind', label: string, any: string, choices: readonly { value: string; label: string }[]) => (
+    <Field className={more} label={label} error={errors[facet]}>
+      {(control) => (
+        <Select {...control} value={state[facet] ?? ''} onChange={(e) => searchWith({ [facet]: e.target.value || undefined })}>
+          <option value="">{any}</option>
+          {choices.map((choice) => (
+            <option key={choice.value} value={choice.value}>
+              {choice.label + counts(facet, choice.value, Boolean(state[facet]))}
+            </option>
+          ))}
+        </Select>
+      )}
+    </Field>
+  )
 
   // The usual reach is the empty choice; a distance set from the map joins the list where it falls.
   const offered = distanceChoices(units)
@@ -183,31 +198,9 @@ export function SearchFilters({ state, units, onUnitsChange, errors, facets, onS
             </Select>
           )}
         </Field>
-        <Field className={more} label="Atmosphere" error={errors.atmosphere}>
-          {(control) => (
-            <Select {...control} value={state.atmosphere ?? ''} onChange={(e) => searchWith({ atmosphere: e.target.value || undefined })}>
-              <option value="">Any atmosphere</option>
-              {ATMOSPHERE_CHOICES.map((choice) => (
-                <option key={choice.value} value={choice.value}>
-                  {choice.label + counts('atmosphere', choice.value, Boolean(state.atmosphere))}
-                </option>
-              ))}
-            </Select>
-          )}
-        </Field>
+        {facetSelect('atmosphere', 'Atmosphere', 'Any atmosphere', ATMOSPHERE_CHOICES)}
 
-        <Field className={more} label="Firing" error={errors.kind}>
-          {(control) => (
-            <Select {...control} value={state.kind ?? ''} onChange={(e) => searchWith({ kind: e.target.value || undefined })}>
-              <option value="">Any firing</option>
-              {FIRING_KIND_CHOICES.map((choice) => (
-                <option key={choice.value} value={choice.value}>
-                  {choice.label + counts('kind', choice.value, Boolean(state.kind))}
-                </option>
-              ))}
-            </Select>
-          )}
-        </Field>
+        {facetSelect('kind', 'Firing', 'Any firing', FIRING_KIND_CHOICES)}
         <Field className={more} label="Drop off from" error={errors.from}>
           {(control) => <TextInput {...control} type="date" value={draft.from} onChange={(e) => edit('from')(e.target.value)} />}
         </Field>
