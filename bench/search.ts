@@ -19,14 +19,25 @@ const children: ChildProcess[] = []
 /** Stops every child and waits for them, so the database is not stopped under a running server. */
 async function stopAll() {
   await Promise.all(
-    children.map((c) => (c.exitCode !== null || c.signalCode !== null ? Promise.resolve() : new Promise((resolve) => { c.once('exit', resolve); c.kill('SIGTERM') }))),
+    children.map((c) =>
+      c.exitCode !== null || c.signalCode !== null
+        ? Promise.resolve()
+        : new Promise((resolve) => {
+            c.once('exit', resolve)
+            c.kill('SIGTERM')
+          }),
+    ),
   )
 }
 process.on('exit', () => children.forEach((c) => c.kill('SIGTERM')))
 
 /** Starts a child; resolves with the rest of the first line starting with `readyLine`. */
 function start(args: string[], env: Record<string, string>, readyLine: string, nodeFlags: string[] = []): Promise<string> {
-  const child = spawn(process.execPath, [...nodeFlags, '--import', 'tsx', ...args], { cwd: repoRoot, env: { ...process.env, ...env }, stdio: ['ignore', 'pipe', 'inherit'] })
+  const child = spawn(process.execPath, [...nodeFlags, '--import', 'tsx', ...args], {
+    cwd: repoRoot,
+    env: { ...process.env, ...env },
+    stdio: ['ignore', 'pipe', 'inherit'],
+  })
   children.push(child)
   return new Promise((resolve, reject) => {
     const lines = readline.createInterface({ input: child.stdout! })
@@ -59,7 +70,9 @@ async function load(url: string, connections: number, seconds = DURATION_S): Pro
   const latencies: number[] = []
   let errors = 0
   const result = await new Promise<autocannon.Result>((resolve, reject) => {
-    const instance = autocannon({ url, connections, duration: seconds, pipelining: 1 }, (error, done) => (error ? reject(error) : resolve(done)))
+    const instance = autocannon({ url, connections, duration: seconds, pipelining: 1 }, (error, done) =>
+      error ? reject(error) : resolve(done),
+    )
     instance.on('response', (_client, statusCode, _bytes, responseTime) => {
       latencies.push(responseTime)
       if (statusCode !== 200) errors++
@@ -90,26 +103,39 @@ async function main() {
       return
     }
     // The server rebuilds the index on start; search jobs left over from earlier runs would only race it.
-    await client.query(`DELETE FROM graphile_worker._private_jobs WHERE task_id IN (SELECT id FROM graphile_worker._private_tasks WHERE identifier LIKE 'search-%')`)
+    await client.query(
+      `DELETE FROM graphile_worker._private_jobs WHERE task_id IN (SELECT id FROM graphile_worker._private_tasks WHERE identifier LIKE 'search-%')`,
+    )
     await client.end()
 
     const searchKey = 'bench-search-key'
     const searchPort = await freePort()
-    const standIns = JSON.parse(await start(['server/fakes/main.ts'], { SMTP_URL: 'smtp://127.0.0.1:9', SEARCH_PORT: String(searchPort), MEILI_API_KEY: searchKey }, 'STANDINS '))
+    const standIns = JSON.parse(
+      await start(
+        ['server/fakes/main.ts'],
+        { SMTP_URL: 'smtp://127.0.0.1:9', SEARCH_PORT: String(searchPort), MEILI_API_KEY: searchKey },
+        'STANDINS ',
+      ),
+    )
     const port = await freePort()
     const base = `http://127.0.0.1:${port}`
     console.log('starting the server; it rebuilds the search index from PostgreSQL first…')
-    const rebuilt = start(['server/main.ts'], {
-      DATABASE_URL: databaseUrl,
-      PORT: String(port),
-      MEILI_HOST: standIns.MEILI_HOST,
-      MEILI_API_KEY: searchKey,
-      SMTP_URL: 'smtp://127.0.0.1:9',
-      SEED_DEMO: 'false',
-      SERVE_CLIENT: 'false',
-      RATE_LIMIT_OPEN_API_PER_IP: '100000000',
-      NODE_ENV: 'production',
-    }, 'search index rebuilt: ', process.env.BENCH_PROFILE ? ['--cpu-prof', '--cpu-prof-dir=var/profiles'] : [])
+    const rebuilt = start(
+      ['server/main.ts'],
+      {
+        DATABASE_URL: databaseUrl,
+        PORT: String(port),
+        MEILI_HOST: standIns.MEILI_HOST,
+        MEILI_API_KEY: searchKey,
+        SMTP_URL: 'smtp://127.0.0.1:9',
+        SEED_DEMO: 'false',
+        SERVE_CLIENT: 'false',
+        RATE_LIMIT_OPEN_API_PER_IP: '100000000',
+        NODE_ENV: 'production',
+      },
+      'search index rebuilt: ',
+      process.env.BENCH_PROFILE ? ['--cpu-prof', '--cpu-prof-dir=var/profiles'] : [],
+    )
     const documents = await rebuilt
     await waitFor(async () => (await fetch(`${base}/api/health`)).ok, 'the server')
     const sample = (await (await fetch(`${base}${QUERY}`)).json()) as { total: number; degraded: boolean }
@@ -147,7 +173,9 @@ async function main() {
       const p95 = results[`${path}-8`].p95
       const rps = results[`${path}-32`].rps
       const name = path === 'engine' ? 'engine' : 'PostgreSQL fallback'
-      console.log(`  ${name.padEnd(20)} p95 at 8: ${p95.toFixed(1)} ms (${p95 <= TARGETS.p95At8Ms ? 'meets' : 'misses'}), req/s at 32: ${rps.toFixed(0)} (${rps >= TARGETS.rpsAt32 ? 'meets' : 'misses'})`)
+      console.log(
+        `  ${name.padEnd(20)} p95 at 8: ${p95.toFixed(1)} ms (${p95 <= TARGETS.p95At8Ms ? 'meets' : 'misses'}), req/s at 32: ${rps.toFixed(0)} (${rps >= TARGETS.rpsAt32 ? 'meets' : 'misses'})`,
+      )
     }
   } finally {
     await stopAll()

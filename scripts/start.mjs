@@ -36,7 +36,9 @@ function takeLock() {
     if (held.pid !== process.pid && processAlive(held.pid)) {
       throw new SetupError(
         `Conewright is already running from this checkout (pid ${held.pid}) at ${held.url}.\n` +
-          'Stop it with Ctrl-C in its terminal (or `kill ' + held.pid + '`) before starting another.',
+          'Stop it with Ctrl-C in its terminal (or `kill ' +
+          held.pid +
+          '`) before starting another.',
       )
     }
   }
@@ -140,7 +142,13 @@ async function main() {
   const standInEnv = {}
   if (!env.SMTP_URL || !env.MEILI_HOST || !env.STRIPE_API_BASE) {
     const apiPort = dev ? port + 1 : port
-    const { standIns } = startChild('the local stand-ins', process.execPath, [...tsx, 'server/fakes/main.ts'], { APP_WEBHOOK_URL: `http://127.0.0.1:${apiPort}/api/webhooks/stripe` }, { captureStandIns: true })
+    const { standIns } = startChild(
+      'the local stand-ins',
+      process.execPath,
+      [...tsx, 'server/fakes/main.ts'],
+      { APP_WEBHOOK_URL: `http://127.0.0.1:${apiPort}/api/webhooks/stripe` },
+      { captureStandIns: true },
+    )
     Object.assign(standInEnv, await standIns)
   }
 
@@ -152,13 +160,18 @@ async function main() {
 
   if (dev) {
     const apiPort = port + 1
-    startChild('the API', process.execPath, [path.join(repoRoot, 'node_modules/tsx/dist/cli.mjs'), 'watch', '--clear-screen=false', 'server/main.ts'], {
-      ...serverEnv,
-      NODE_ENV: 'development',
-      PORT: String(apiPort),
-      PUBLIC_URL: `http://127.0.0.1:${port}`,
-      SERVE_CLIENT: 'false',
-    })
+    startChild(
+      'the API',
+      process.execPath,
+      [path.join(repoRoot, 'node_modules/tsx/dist/cli.mjs'), 'watch', '--clear-screen=false', 'server/main.ts'],
+      {
+        ...serverEnv,
+        NODE_ENV: 'development',
+        PORT: String(apiPort),
+        PUBLIC_URL: `http://127.0.0.1:${port}`,
+        SERVE_CLIENT: 'false',
+      },
+    )
     await waitForHealth(`http://127.0.0.1:${apiPort}`)
     startChild('Vite', process.execPath, [path.join(repoRoot, 'node_modules/vite/bin/vite.js'), '--port', String(port), '--strictPort'], {
       API_PORT: String(apiPort),

@@ -67,7 +67,10 @@ export async function studioDocuments(manager: EntityManager, studioId: string, 
     .andWhere(`f.status = 'open'`)
     .andWhere('f.drop_off_by > :now', { now })
     .getMany()
-  const held = await heldLitres(manager, firings.map((f) => f.id))
+  const held = await heldLitres(
+    manager,
+    firings.map((f) => f.id),
+  )
   const rating = (await studioRatings(manager, [studioId])).get(studioId)
   const priceLists = new Map(await Promise.all(kilns.map(async (k) => [k.id, await getPriceList(manager, k.id)] as const)))
   const byId = new Map(kilns.map((k) => [k.id, k]))
@@ -76,7 +79,9 @@ export async function studioDocuments(manager: EntityManager, studioId: string, 
     const spec = kilnSpec(kiln)
     const shelf = shelfFootprint(spec)
     const priceList = priceLists.get(kiln.id)
-    const example = priceList ? quoteRequest(priceList, { atmosphere: firing.atmosphere, slowCool: firing.slowCool }, [EXAMPLE_MUG], spec) : null
+    const example = priceList
+      ? quoteRequest(priceList, { atmosphere: firing.atmosphere, slowCool: firing.slowCool }, [EXAMPLE_MUG], spec)
+      : null
     return {
       id: firing.id,
       studioId: studio.id,

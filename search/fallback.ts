@@ -22,7 +22,8 @@ export async function searchPostgres(pool: Pool, search: FiringSearch) {
   const { where, params, distance, distanceWhere, orderBy } = sqlQuery(search)
   const offset = (search.page - 1) * search.perPage
   const facetJson = FIRING_FACETS.map(
-    (facet) => `'${facet}', (SELECT coalesce(json_object_agg(value, n), '{}'::json) FROM (SELECT ${FACET_COLUMN[facet]} AS value, count(*) AS n FROM hits GROUP BY 1) f)`,
+    (facet) =>
+      `'${facet}', (SELECT coalesce(json_object_agg(value, n), '{}'::json) FROM (SELECT ${FACET_COLUMN[facet]} AS value, count(*) AS n FROM hits GROUP BY 1) f)`,
   ).join(', ')
   const text = `WITH hits AS MATERIALIZED (
        SELECT * FROM (
@@ -36,7 +37,11 @@ export async function searchPostgres(pool: Pool, search: FiringSearch) {
        (SELECT count(*)::int FROM hits) AS total,
        json_build_object(${facetJson}) AS facets`
   const name = `search-${createHash('sha1').update(text).digest('hex').slice(0, 16)}`
-  const { rows } = await pool.query<{ page: { document: FiringDocument }[] | null; total: number; facets: Record<string, Record<string, number>> }>({ name, text, values: params })
+  const { rows } = await pool.query<{
+    page: { document: FiringDocument }[] | null
+    total: number
+    facets: Record<string, Record<string, number>>
+  }>({ name, text, values: params })
   const row = rows[0]
   return { documents: (row.page ?? []).map((r) => r.document), total: row.total, facets: row.facets }
 }

@@ -28,13 +28,20 @@ export function footprintCondition(widthMm: number, depthMm: number | null): { r
   const round = depthMm === null
   const depth = round ? widthMm : depthMm
   const across = round ? widthMm : Math.sqrt(widthMm * widthMm + depth * depth)
-  return { round: across, box: [[widthMm, depth], [depth, widthMm]] }
+  return {
+    round: across,
+    box: [
+      [widthMm, depth],
+      [depth, widthMm],
+    ],
+  }
 }
 
 export function engineFilter(s: FiringSearch): string[] {
   const filter = [`dropOffByTs > ${Math.max(s.now, (s.dropOffFrom ?? 0) - 1)}`]
   if (s.dropOffTo !== null) filter.push(`dropOffByTs <= ${s.dropOffTo}`)
-  if (s.origin && s.radiusKm !== null) filter.push(`_geoRadius(${num(s.origin.lat)}, ${num(s.origin.lng)}, ${Math.round(s.radiusKm * 1000)})`)
+  if (s.origin && s.radiusKm !== null)
+    filter.push(`_geoRadius(${num(s.origin.lat)}, ${num(s.origin.lng)}, ${Math.round(s.radiusKm * 1000)})`)
   if (s.cone) filter.push(`coneRank ${s.cone.minRank} TO ${s.cone.maxRank}`)
   if (s.atmosphere) filter.push(`atmosphere = "${s.atmosphere}"`)
   if (s.kind) filter.push(`kind = "${s.kind}"`)
@@ -120,7 +127,8 @@ export function sqlQuery(s: FiringSearch): SqlQuery {
     where.push(`((shelf_shape = 'round' AND shelf_diameter_mm >= ${p(f.round)}) OR (shelf_shape = 'box' AND (${box})))`)
   }
   if (s.q) {
-    for (const word of s.q.split(/\s+/).filter(Boolean).slice(0, 8)) where.push(`search_text ILIKE ${p(`%${word.replace(/[%_\\]/g, (c) => `\\${c}`)}%`)}`)
+    for (const word of s.q.split(/\s+/).filter(Boolean).slice(0, 8))
+      where.push(`search_text ILIKE ${p(`%${word.replace(/[%_\\]/g, (c) => `\\${c}`)}%`)}`)
   }
   const orderBy =
     s.sort === 'distance'

@@ -56,7 +56,10 @@ async function writeTable(ctx: AppContext, studioId: string, docs: FiringDocumen
   })
 }
 
-async function waitOk(promise: { waitTask(options?: { timeout?: number }): Promise<{ status: string; error?: { message: string } | null }> }, what: string) {
+async function waitOk(
+  promise: { waitTask(options?: { timeout?: number }): Promise<{ status: string; error?: { message: string } | null }> },
+  what: string,
+) {
   const task = await promise.waitTask({ timeout: 30_000 })
   if (task.status !== 'succeeded') throw new Error(`search engine: ${what} ${task.status}: ${task.error?.message ?? ''}`)
 }
@@ -69,11 +72,17 @@ export async function syncStudio(ctx: AppContext, studioId: string) {
   const index = firingsIndex(ctx.config)
   if (docs.length) await waitOk(index.addDocuments(docs), 'adding documents')
   const keep = docs.map((d) => `"${d.id}"`).join(', ')
-  await waitOk(index.deleteDocuments({ filter: docs.length ? `studioId = "${studioId}" AND id NOT IN [${keep}]` : `studioId = "${studioId}"` }), 'deleting stale documents')
+  await waitOk(
+    index.deleteDocuments({ filter: docs.length ? `studioId = "${studioId}" AND id NOT IN [${keep}]` : `studioId = "${studioId}"` }),
+    'deleting stale documents',
+  )
 }
 
 /** Rebuilds the whole index from PostgreSQL: `npm run search:reindex`, and on every server start. */
-export async function reindexAll(ctx: AppContext, onProgress?: (done: number, total: number) => void): Promise<{ studios: number; documents: number }> {
+export async function reindexAll(
+  ctx: AppContext,
+  onProgress?: (done: number, total: number) => void,
+): Promise<{ studios: number; documents: number }> {
   const studioIds = await publishedStudioIds(ctx.db.manager)
   await ensureFiringsIndex(ctx.config)
   const index = firingsIndex(ctx.config)

@@ -14,7 +14,9 @@ export function formatDateTime(value: Date | string, timeZone: string): string {
 }
 
 export function formatDate(value: Date | string, timeZone: string): string {
-  return new Intl.DateTimeFormat('en-US', { timeZone, weekday: 'short', month: 'short', day: 'numeric', year: 'numeric' }).format(new Date(value))
+  return new Intl.DateTimeFormat('en-US', { timeZone, weekday: 'short', month: 'short', day: 'numeric', year: 'numeric' }).format(
+    new Date(value),
+  )
 }
 
 export function formatMoney(cents: number, currency: string): string {

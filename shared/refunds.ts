@@ -16,7 +16,12 @@ export interface RefundUnderTerms {
   fullUntil: Date
 }
 
-export function refundUnderTerms(paidCents: number, firingDate: Date | string, terms: CancellationTerms, now = new Date()): RefundUnderTerms {
+export function refundUnderTerms(
+  paidCents: number,
+  firingDate: Date | string,
+  terms: CancellationTerms,
+  now = new Date(),
+): RefundUnderTerms {
   const fullUntil = new Date(new Date(firingDate).getTime() - terms.fullRefundDaysBefore * 86_400_000)
   if (now.getTime() <= fullUntil.getTime()) return { refundCents: paidCents, full: true, fullUntil }
   return { refundCents: Math.min(paidCents, roundHalfUpCents((paidCents * terms.laterRefundPercent) / 100)), full: false, fullUntil }

@@ -4,7 +4,10 @@
 export class DocSet {
   readonly words: Uint32Array
 
-  constructor(readonly capacity: number, words?: Uint32Array) {
+  constructor(
+    readonly capacity: number,
+    words?: Uint32Array,
+  ) {
     this.words = words ?? new Uint32Array(Math.ceil(capacity / 32) || 1)
   }
 

@@ -26,13 +26,23 @@ export function validateGeo(document: JsonObject, idValue: unknown): void {
   }
   const { lat, lng, ...extra } = geo as JsonObject
   if (Object.keys(extra).length > 0) {
-    throw engineErrors.invalidGeoField(`The \`_geo\` field in the document with the id: \`${id}\` contains the following unexpected fields: \`${JSON.stringify(extra)}\`.`)
+    throw engineErrors.invalidGeoField(
+      `The \`_geo\` field in the document with the id: \`${id}\` contains the following unexpected fields: \`${JSON.stringify(extra)}\`.`,
+    )
   }
   if (lat === undefined && lng === undefined) {
-    throw engineErrors.invalidGeoField(`Could not find latitude nor longitude in the document with the id: \`${id}\`. Was expecting \`_geo.lat\` and \`_geo.lng\` fields.`)
+    throw engineErrors.invalidGeoField(
+      `Could not find latitude nor longitude in the document with the id: \`${id}\`. Was expecting \`_geo.lat\` and \`_geo.lng\` fields.`,
+    )
   }
-  if (lat === undefined) throw engineErrors.invalidGeoField(`Could not find latitude in the document with the id: \`${id}\`. Was expecting a \`_geo.lat\` field.`)
-  if (lng === undefined) throw engineErrors.invalidGeoField(`Could not find longitude in the document with the id: \`${id}\`. Was expecting a \`_geo.lng\` field.`)
+  if (lat === undefined)
+    throw engineErrors.invalidGeoField(
+      `Could not find latitude in the document with the id: \`${id}\`. Was expecting a \`_geo.lat\` field.`,
+    )
+  if (lng === undefined)
+    throw engineErrors.invalidGeoField(
+      `Could not find longitude in the document with the id: \`${id}\`. Was expecting a \`_geo.lng\` field.`,
+    )
   const badLat = geoCoordinate(lat) === null
   const badLng = geoCoordinate(lng) === null
   if (badLat && badLng) {
@@ -40,8 +50,14 @@ export function validateGeo(document: JsonObject, idValue: unknown): void {
       `Could not parse latitude nor longitude in the document with the id: \`${id}\`. Was expecting finite numbers but instead got \`${JSON.stringify(lat)}\` and \`${JSON.stringify(lng)}\`.`,
     )
   }
-  if (badLat) throw engineErrors.invalidGeoField(`Could not parse latitude in the document with the id: \`${id}\`. Was expecting a finite number but instead got \`${JSON.stringify(lat)}\`.`)
-  if (badLng) throw engineErrors.invalidGeoField(`Could not parse longitude in the document with the id: \`${id}\`. Was expecting a finite number but instead got \`${JSON.stringify(lng)}\`.`)
+  if (badLat)
+    throw engineErrors.invalidGeoField(
+      `Could not parse latitude in the document with the id: \`${id}\`. Was expecting a finite number but instead got \`${JSON.stringify(lat)}\`.`,
+    )
+  if (badLng)
+    throw engineErrors.invalidGeoField(
+      `Could not parse longitude in the document with the id: \`${id}\`. Was expecting a finite number but instead got \`${JSON.stringify(lng)}\`.`,
+    )
 }
 
 export type AdditionMethod = 'replace' | 'update'

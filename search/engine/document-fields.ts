@@ -113,7 +113,11 @@ export function geoCoordinate(value: unknown): number | null {
 export function searchableText(value: unknown): string {
   if (value === null || value === undefined) return ''
   if (Array.isArray(value)) return value.map(searchableText).filter(Boolean).join('. ')
-  if (typeof value === 'object') return Object.values(value as JsonObject).map(searchableText).filter(Boolean).join('. ')
+  if (typeof value === 'object')
+    return Object.values(value as JsonObject)
+      .map(searchableText)
+      .filter(Boolean)
+      .join('. ')
   return String(value)
 }
 

@@ -31,7 +31,12 @@ const badRequest = (code: string, message: string): EngineError => new EngineErr
 
 export const engineErrors = {
   missingAuthorizationHeader: () =>
-    new EngineError(401, 'missing_authorization_header', 'The Authorization header is missing. It must use the bearer authorization method.', 'auth'),
+    new EngineError(
+      401,
+      'missing_authorization_header',
+      'The Authorization header is missing. It must use the bearer authorization method.',
+      'auth',
+    ),
   invalidApiKey: () => new EngineError(403, 'invalid_api_key', 'The provided API key is invalid.', 'auth'),
   indexNotFound: (uid: string) => new EngineError(404, 'index_not_found', `Index \`${uid}\` not found.`),
   indexAlreadyExists: (uid: string) => new EngineError(409, 'index_already_exists', `Index \`${uid}\` already exists.`),

@@ -66,9 +66,10 @@ function fail(context: FilterContext, token: FilterToken, diagnostic: string): n
 
 function notFilterable(context: FilterContext, token: FilterToken, attribute: string): never {
   const patterns = filterablePatterns(context.settings)
-  const available = patterns.length === 0
-    ? ' This index does not have configured filterable attributes.'
-    : ` Available filterable attribute patterns are: ${patterns.map((pattern) => `\`${pattern}\``).join(', ')}.`
+  const available =
+    patterns.length === 0
+      ? ' This index does not have configured filterable attributes.'
+      : ` Available filterable attribute patterns are: ${patterns.map((pattern) => `\`${pattern}\``).join(', ')}.`
   fail(context, token, `Attribute \`${attribute}\` is not filterable.${available}`)
 }
 
@@ -99,7 +100,9 @@ function operatorAllowed(context: FilterContext, field: FilterToken, operator: s
   const allowed = [
     ...(features.equality ? ['=', '!=', 'IN'] : []),
     ...(features.comparison ? ['<', '>', '<=', '>=', 'TO'] : []),
-    'IS EMPTY', 'IS NULL', 'EXISTS',
+    'IS EMPTY',
+    'IS NULL',
+    'EXISTS',
   ]
   const kind = comparison ? 'comparison' : 'equality'
   const message = `Filter operator \`${operator}\` is not allowed for the attribute \`${field.value}\`.\n  - Note: allowed operators: ${allowed.join(', ')}.\n  - Note: field \`${field.value}\` matched rule #${features.ruleIndex} in \`filterableAttributes\`\n  - Hint: enable ${kind} in rule #${features.ruleIndex} by modifying the features.filter object\n  - Hint: prepend another rule matching \`${field.value}\` with appropriate filter features before rule #${features.ruleIndex}`
@@ -165,18 +168,18 @@ function rangeOf(context: FilterContext, column: FacetColumn, condition: FilterC
   if (condition.kind === 'between') {
     const from = finiteNumber(condition.from.value)
     const to = finiteNumber(condition.to.value)
-    return column.inRange(
-      context.capacity,
-      from !== null && to !== null ? { low: bound(from, true), high: bound(to, true) } : null,
-      { low: bound(condition.from.value, true), high: bound(condition.to.value, true) },
-    )
+    return column.inRange(context.capacity, from !== null && to !== null ? { low: bound(from, true), high: bound(to, true) } : null, {
+      low: bound(condition.from.value, true),
+      high: bound(condition.to.value, true),
+    })
   }
   if (!('value' in condition)) return new DocSet(context.capacity)
   const text = condition.value.value
   const number = finiteNumber(text)
   const lower = condition.kind === 'greaterThan' || condition.kind === 'greaterThanOrEqual'
   const inclusive = condition.kind === 'greaterThanOrEqual' || condition.kind === 'lowerThanOrEqual'
-  const numberRange = number === null ? null : lower ? { low: bound(number, inclusive), high: null } : { low: null, high: bound(number, inclusive) }
+  const numberRange =
+    number === null ? null : lower ? { low: bound(number, inclusive), high: null } : { low: null, high: bound(number, inclusive) }
   const stringRange = lower ? { low: bound(text, inclusive), high: null } : { low: null, high: bound(text, inclusive) }
   return column.inRange(context.capacity, numberRange, stringRange)
 }

@@ -82,8 +82,20 @@ class ParseFailure {
 }
 
 const KEYWORDS = new Set([
-  'AND', 'OR', 'IN', 'NOT', 'TO', 'EXISTS', 'IS', 'NULL', 'EMPTY', 'CONTAINS', 'STARTS', 'WITH',
-  '_geoRadius', '_geoBoundingBox',
+  'AND',
+  'OR',
+  'IN',
+  'NOT',
+  'TO',
+  'EXISTS',
+  'IS',
+  'NULL',
+  'EMPTY',
+  'CONTAINS',
+  'STARTS',
+  'WITH',
+  '_geoRadius',
+  '_geoBoundingBox',
 ])
 
 const VALUE_COMPONENT = /[\p{Alphabetic}\p{N}_.-]/u
@@ -95,13 +107,27 @@ export function escapeDebug(text: string): string {
   let escaped = ''
   for (const char of text) {
     switch (char) {
-      case '\\': escaped += '\\\\'; break
-      case '"': escaped += '\\"'; break
-      case "'": escaped += "\\'"; break
-      case '\n': escaped += '\\n'; break
-      case '\r': escaped += '\\r'; break
-      case '\t': escaped += '\\t'; break
-      case '\0': escaped += '\\0'; break
+      case '\\':
+        escaped += '\\\\'
+        break
+      case '"':
+        escaped += '\\"'
+        break
+      case "'":
+        escaped += "\\'"
+        break
+      case '\n':
+        escaped += '\\n'
+        break
+      case '\r':
+        escaped += '\\r'
+        break
+      case '\t':
+        escaped += '\\t'
+        break
+      case '\0':
+        escaped += '\\0'
+        break
       default: {
         const code = char.codePointAt(0)!
         escaped += code < 0x20 || code === 0x7f ? `\\u{${code.toString(16)}}` : char
@@ -180,7 +206,18 @@ function unescapeSequences(raw: string, start: number): string {
       continue
     }
     const next = raw[++i]
-    const simple: Record<string, string> = { b: '\b', f: '\f', n: '\n', r: '\r', t: '\t', '"': '"', "'": "'", '\\': '\\', '/': '/', '0': '\0' }
+    const simple: Record<string, string> = {
+      b: '\b',
+      f: '\f',
+      n: '\n',
+      r: '\r',
+      t: '\t',
+      '"': '"',
+      "'": "'",
+      '\\': '\\',
+      '/': '/',
+      '0': '\0',
+    }
     if (next !== undefined && next in simple) {
       out += simple[next]
     } else if (next === 'x' && /^[0-9a-fA-F]{2}$/.test(raw.slice(i + 1, i + 3))) {
@@ -570,8 +607,12 @@ class Parser {
   private parseComparison(at: number): { node: FilterNode; next: number } {
     const field = this.parseValue(at)
     const operators = [
-      ['<=', 'lowerThanOrEqual'], ['>=', 'greaterThanOrEqual'], ['!=', 'notEqual'],
-      ['<', 'lowerThan'], ['>', 'greaterThan'], ['=', 'equal'],
+      ['<=', 'lowerThanOrEqual'],
+      ['>=', 'greaterThanOrEqual'],
+      ['!=', 'notEqual'],
+      ['<', 'lowerThan'],
+      ['>', 'greaterThan'],
+      ['=', 'equal'],
     ] as const
     const operator = operators.find(([symbol]) => this.src.startsWith(symbol, field.next))
     if (!operator) this.fail(false, { kind: 'internal' }, field.next)

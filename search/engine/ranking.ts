@@ -12,8 +12,7 @@ import { haversineMetres } from './geo'
 import { compareStrings, isSortable } from './settings'
 
 export type SortCriterion =
-  | { kind: 'field'; field: string; ascending: boolean }
-  | { kind: 'geo'; lat: number; lng: number; ascending: boolean }
+  { kind: 'field'; field: string; ascending: boolean } | { kind: 'geo'; lat: number; lng: number; ascending: boolean }
 
 const RESERVED_SORT_NAMES = ['_geo', '_geoDistance', '_geoPoint', '_geoRadius', '_geoBoundingBox']
 const GEO_SUGGESTION = 'Use the _geoPoint(latitude, longitude) built-in rule to sort on _geo field coordinates.'
@@ -31,7 +30,9 @@ export function parseSortCriterion(text: string, code: string): SortCriterion {
   const member = text.slice(0, colon)
   const ascending = direction === 'asc'
   const badGeoPoint = (): never =>
-    fail(`Invalid syntax for the geo parameter: expected expression formated like \`_geoPoint(latitude, longitude)\` and ending by \`:asc\` or \`:desc\`, found \`${member}\`.`)
+    fail(
+      `Invalid syntax for the geo parameter: expected expression formated like \`_geoPoint(latitude, longitude)\` and ending by \`:asc\` or \`:desc\`, found \`${member}\`.`,
+    )
 
   if (member.startsWith('_geoPoint(') && member.endsWith(')')) {
     const inner = member.slice('_geoPoint('.length, -1)
@@ -44,12 +45,16 @@ export function parseSortCriterion(text: string, code: string): SortCriterion {
     if (!(lng! >= -180 && lng! <= 180)) fail(`Bad longitude \`${lng}\`. Longitude must be contained between -180 and 180 degrees. `)
     return { kind: 'geo', lat: lat!, lng: lng!, ascending }
   }
-  const reserved = RESERVED_SORT_NAMES.includes(member) || ['_geoRadius(', '_geoBoundingBox(', '_geo(', '_geoDistance('].some((prefix) => member.startsWith(prefix))
+  const reserved =
+    RESERVED_SORT_NAMES.includes(member) ||
+    ['_geoRadius(', '_geoBoundingBox(', '_geo(', '_geoDistance('].some((prefix) => member.startsWith(prefix))
   if (reserved) {
     if (member.startsWith('_geoPoint')) badGeoPoint()
     if (member === '_geo') fail(`\`_geo\` is a reserved keyword and thus can't be used as a sort expression. ${GEO_SUGGESTION}`)
-    if (member.startsWith('_geoRadius')) fail(`\`_geoRadius\` is a reserved keyword and thus can't be used as a sort expression. ${GEO_SUGGESTION}`)
-    if (member.startsWith('_geoBoundingBox')) fail(`\`_geoBoundingBox\` is a reserved keyword and thus can't be used as a sort expression. ${GEO_SUGGESTION}`)
+    if (member.startsWith('_geoRadius'))
+      fail(`\`_geoRadius\` is a reserved keyword and thus can't be used as a sort expression. ${GEO_SUGGESTION}`)
+    if (member.startsWith('_geoBoundingBox'))
+      fail(`\`_geoBoundingBox\` is a reserved keyword and thus can't be used as a sort expression. ${GEO_SUGGESTION}`)
     fail(`\`${member}\` is a reserved keyword and thus can't be used as a sort expression.`)
   }
   return { kind: 'field', field: member, ascending }
@@ -77,12 +82,16 @@ function documentSortKey(document: StoredDocument, field: string): DocumentSortK
   if (!key) {
     const values = document.flat.get(field)?.values ?? []
     const numbers = values.filter((value): value is number => typeof value === 'number')
-    const texts = values.filter((value) => typeof value !== 'number').map((value) => normalizeFacet(String(value))).sort(compareBytes)
-    key = numbers.length > 0
-      ? { rank: 0, minNumber: Math.min(...numbers), maxNumber: Math.max(...numbers), minText: '', maxText: '' }
-      : texts.length > 0
-        ? { rank: 1, minNumber: 0, maxNumber: 0, minText: texts[0], maxText: texts[texts.length - 1] }
-        : { rank: 2, minNumber: 0, maxNumber: 0, minText: '', maxText: '' }
+    const texts = values
+      .filter((value) => typeof value !== 'number')
+      .map((value) => normalizeFacet(String(value)))
+      .sort(compareBytes)
+    key =
+      numbers.length > 0
+        ? { rank: 0, minNumber: Math.min(...numbers), maxNumber: Math.max(...numbers), minText: '', maxText: '' }
+        : texts.length > 0
+          ? { rank: 1, minNumber: 0, maxNumber: 0, minText: texts[0], maxText: texts[texts.length - 1] }
+          : { rank: 2, minNumber: 0, maxNumber: 0, minText: '', maxText: '' }
     keys.set(field, key)
   }
   return key
@@ -130,7 +139,10 @@ export function checkSort(index: EngineIndex, sort: string[], code: string, sear
   const criteria = sort.map((text) => parseSortCriterion(text, code))
   if (criteria.length === 0) return criteria
   if (searchRoute && !index.settings.rankingRules.includes('sort')) {
-    throw engineErrors.invalid(code, 'You must specify where `sort` is listed in the rankingRules setting to use the sort parameter at search time.')
+    throw engineErrors.invalid(
+      code,
+      'You must specify where `sort` is listed in the rankingRules setting to use the sort parameter at search time.',
+    )
   }
   for (const criterion of criteria) {
     const field = criterion.kind === 'geo' ? '_geo' : criterion.field
@@ -207,8 +219,9 @@ function notSortable(index: EngineIndex, field: string, code: string): EngineErr
   const sortable = [...new Set(index.settings.sortableAttributes)].sort(compareStrings)
   const visible = displayed.includes('*') ? sortable : sortable.filter((name) => displayed.some((pattern) => patternCovers(pattern, name)))
   const hidden = visible.length < sortable.length
-  const available = sortable.length === 0
-    ? 'This index does not have configured sortable attributes.'
-    : `Available sortable attributes are: \`${visible.join(', ')}${hidden ? ', <..hidden-attributes>' : ''}\`.`
+  const available =
+    sortable.length === 0
+      ? 'This index does not have configured sortable attributes.'
+      : `Available sortable attributes are: \`${visible.join(', ')}${hidden ? ', <..hidden-attributes>' : ''}\`.`
   return engineErrors.invalid(code, `Index \`${index.uid}\`: Attribute \`${field}\` is not sortable. ${available}`)
 }

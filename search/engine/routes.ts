@@ -79,7 +79,12 @@ function objectBody(request: EngineRequest): Record<string, unknown> {
 const accepted = (task: EnqueuedTask): EngineResponse => ({ status: 202, body: task })
 
 function indexView(index: EngineIndex) {
-  return { uid: index.uid, createdAt: index.createdAt.toISOString(), updatedAt: index.updatedAt.toISOString(), primaryKey: index.primaryKey }
+  return {
+    uid: index.uid,
+    createdAt: index.createdAt.toISOString(),
+    updatedAt: index.updatedAt.toISOString(),
+    primaryKey: index.primaryKey,
+  }
 }
 
 function pageOf(query: URLSearchParams, code: string): { offset: number; limit: number } {
@@ -87,7 +92,10 @@ function pageOf(query: URLSearchParams, code: string): { offset: number; limit: 
     const text = query.get(name)
     if (text === null) return fallback
     if (!/^\d+$/.test(text)) {
-      throw engineErrors.invalid(`${code}_${name}`, `Invalid value in parameter \`${name}\`: could not parse \`${text}\` as a positive integer`)
+      throw engineErrors.invalid(
+        `${code}_${name}`,
+        `Invalid value in parameter \`${name}\`: could not parse \`${text}\` as a positive integer`,
+      )
     }
     return Number(text)
   }
@@ -283,7 +291,14 @@ function deleteBatch(state: EngineState, uid: string, request: EngineRequest): E
   const body = jsonBody(request)
   if (!Array.isArray(body)) throw engineErrors.badRequest(`Invalid value type: expected an array, but found ${JSON.stringify(body)}`)
   const ids = body.map((id) => (typeof id === 'number' || typeof id === 'string' ? String(id) : JSON.stringify(id)))
-  return deletionTask(state, uid, ids.length, null, (index) => ids.filter((id) => index.deleteDocument(id)).length, request.query.get('customMetadata') ?? undefined)
+  return deletionTask(
+    state,
+    uid,
+    ids.length,
+    null,
+    (index) => ids.filter((id) => index.deleteDocument(id)).length,
+    request.query.get('customMetadata') ?? undefined,
+  )
 }
 
 function deleteByFilter(state: EngineState, uid: string, request: EngineRequest): EngineResponse {
@@ -307,14 +322,17 @@ function deleteByFilter(state: EngineState, uid: string, request: EngineRequest)
   })
 }
 
-function browseDocuments(index: EngineIndex, options: {
-  offset: number
-  limit: number
-  fields: string[] | null
-  filter: unknown
-  ids: string[] | null
-  sort: string[] | null
-}): EngineResponse {
+function browseDocuments(
+  index: EngineIndex,
+  options: {
+    offset: number
+    limit: number
+    fields: string[] | null
+    filter: unknown
+    ids: string[] | null
+    sort: string[] | null
+  },
+): EngineResponse {
   const filtered = filterDocuments(index, options.filter, 'invalid_document_filter')
   let documents = [...index.documents()]
   if (filtered) documents = documents.filter((document) => filtered.has(document.internalId))
@@ -323,15 +341,29 @@ function browseDocuments(index: EngineIndex, options: {
     documents = documents.filter((document) => wanted.has(document.externalId))
   }
   if (options.sort && options.sort.length > 0) documents = sortDocuments(index, documents, options.sort, 'invalid_document_sort')
-  const results = documents.slice(options.offset, options.offset + options.limit).map((document) => projectDocument(document.body, options.fields))
+  const results = documents
+    .slice(options.offset, options.offset + options.limit)
+    .map((document) => projectDocument(document.body, options.fields))
   return { status: 200, body: { results, offset: options.offset, limit: options.limit, total: documents.length } }
 }
 
 function getDocuments(state: EngineState, uid: string, request: EngineRequest): EngineResponse {
   const index = existingIndex(state, uid)
   const { offset, limit } = pageOf(request.query, 'invalid_document')
-  const list = (name: string) => request.query.get(name)?.split(',').map((part) => part.trim()).filter(Boolean) ?? null
-  return browseDocuments(index, { offset, limit, fields: list('fields'), filter: request.query.get('filter'), ids: list('ids'), sort: list('sort') })
+  const list = (name: string) =>
+    request.query
+      .get(name)
+      ?.split(',')
+      .map((part) => part.trim())
+      .filter(Boolean) ?? null
+  return browseDocuments(index, {
+    offset,
+    limit,
+    fields: list('fields'),
+    filter: request.query.get('filter'),
+    ids: list('ids'),
+    sort: list('sort'),
+  })
 }
 
 function fetchDocuments(state: EngineState, uid: string, request: EngineRequest): EngineResponse {
@@ -341,7 +373,10 @@ function fetchDocuments(state: EngineState, uid: string, request: EngineRequest)
     const value = body[name]
     if (value === undefined || value === null) return fallback
     if (typeof value !== 'number' || !Number.isInteger(value) || value < 0) {
-      throw engineErrors.invalid(`invalid_document_${name}`, `Invalid value type at \`.${name}\`: expected a positive integer, but found ${JSON.stringify(value)}`)
+      throw engineErrors.invalid(
+        `invalid_document_${name}`,
+        `Invalid value type at \`.${name}\`: expected a positive integer, but found ${JSON.stringify(value)}`,
+      )
     }
     return value
   }
@@ -360,14 +395,22 @@ function getDocument(state: EngineState, uid: string, id: string, request: Engin
   const index = existingIndex(state, uid)
   const document = index.documentByExternalId(documentIdKey(id) ?? id)
   if (!document) throw engineErrors.documentNotFound(id)
-  const fields = request.query.get('fields')?.split(',').map((part) => part.trim()).filter(Boolean) ?? null
+  const fields =
+    request.query
+      .get('fields')
+      ?.split(',')
+      .map((part) => part.trim())
+      .filter(Boolean) ?? null
   return { status: 200, body: projectDocument(document.body, fields) }
 }
 
 // dispatch -----------------------------------------------------------------------------------------
 
 function segmentsOf(path: string): string[] {
-  return path.split('/').filter(Boolean).map((segment) => decodeURIComponent(segment))
+  return path
+    .split('/')
+    .filter(Boolean)
+    .map((segment) => decodeURIComponent(segment))
 }
 
 /** Routes one request; a path the engine does not have is a bare 404, a wrong method a bare 405. */
@@ -379,7 +422,10 @@ export function handleRequest(state: EngineState, request: EngineRequest): Engin
   if (root === 'health' && segments.length === 1) return method === 'GET' ? { status: 200, body: { status: 'available' } } : { status: 405 }
   if (root === 'version' && segments.length === 1) {
     // The stand-in names itself in commitSha; pkgVersion is the engine line whose API it follows.
-    return { status: 200, body: { commitSha: 'conewright-local-stand-in', commitDate: state.startedAt.toISOString(), pkgVersion: '1.16.0' } }
+    return {
+      status: 200,
+      body: { commitSha: 'conewright-local-stand-in', commitDate: state.startedAt.toISOString(), pkgVersion: '1.16.0' },
+    }
   }
   if (root === 'stats' && segments.length === 1) {
     const indexes = Object.fromEntries([...state.indexes.values()].map((index) => [index.uid, indexStats(state, index)]))
@@ -389,7 +435,10 @@ export function handleRequest(state: EngineState, request: EngineRequest): Engin
     if (segments.length === 1 && method === 'GET') return { status: 200, body: state.tasks.list(request.query) }
     if (segments.length === 2 && method === 'GET') {
       if (!/^\d+$/.test(uid)) {
-        throw engineErrors.invalid('invalid_task_uids', `Invalid value in parameter \`taskUid\`: could not parse \`${uid}\` as a positive integer`)
+        throw engineErrors.invalid(
+          'invalid_task_uids',
+          `Invalid value in parameter \`taskUid\`: could not parse \`${uid}\` as a positive integer`,
+        )
       }
       return { status: 200, body: state.tasks.get(Number(uid)) }
     }
@@ -444,7 +493,14 @@ export function handleRequest(state: EngineState, request: EngineRequest): Engin
       if (method === 'GET') return getDocument(state, uid, sub, request)
       if (method === 'DELETE') {
         const id = documentIdKey(sub) ?? sub
-        return deletionTask(state, uid, 1, null, (index) => (index.deleteDocument(id) ? 1 : 0), request.query.get('customMetadata') ?? undefined)
+        return deletionTask(
+          state,
+          uid,
+          1,
+          null,
+          (index) => (index.deleteDocument(id) ? 1 : 0),
+          request.query.get('customMetadata') ?? undefined,
+        )
       }
       return { status: 405 }
     }

@@ -31,17 +31,45 @@ export interface SearchRequest {
 }
 
 const SEARCH_FIELDS = [
-  'q', 'vector', 'offset', 'limit', 'page', 'hitsPerPage', 'attributesToRetrieve', 'retrieveVectors',
-  'attributesToCrop', 'cropLength', 'attributesToHighlight', 'showMatchesPosition', 'showRankingScore',
-  'showRankingScoreDetails', 'showPerformanceDetails', 'filter', 'sort', 'distinct', 'facets',
-  'highlightPreTag', 'highlightPostTag', 'cropMarker', 'matchingStrategy', 'attributesToSearchOn',
-  'rankingScoreThreshold', 'locales', 'hybrid', 'media', 'personalize', 'useNetwork',
+  'q',
+  'vector',
+  'offset',
+  'limit',
+  'page',
+  'hitsPerPage',
+  'attributesToRetrieve',
+  'retrieveVectors',
+  'attributesToCrop',
+  'cropLength',
+  'attributesToHighlight',
+  'showMatchesPosition',
+  'showRankingScore',
+  'showRankingScoreDetails',
+  'showPerformanceDetails',
+  'filter',
+  'sort',
+  'distinct',
+  'facets',
+  'highlightPreTag',
+  'highlightPostTag',
+  'cropMarker',
+  'matchingStrategy',
+  'attributesToSearchOn',
+  'rankingScoreThreshold',
+  'locales',
+  'hybrid',
+  'media',
+  'personalize',
+  'useNetwork',
 ]
 
 const searchCode = (field: string): string => `invalid_search_${field.replace(/[A-Z]/g, (letter) => `_${letter.toLowerCase()}`)}`
 
 function typeError(field: string, expected: string, found: unknown): EngineError {
-  return engineErrors.invalid(searchCode(field), `Invalid value type at \`.${field}\`: expected ${expected}, but found ${describeJson(found)}`)
+  return engineErrors.invalid(
+    searchCode(field),
+    `Invalid value type at \`.${field}\`: expected ${expected}, but found ${describeJson(found)}`,
+  )
 }
 
 function wholeNumber(body: Record<string, unknown>, field: string): number | null {
@@ -57,7 +85,10 @@ function stringList(body: Record<string, unknown>, field: string): string[] | nu
   if (!Array.isArray(value)) throw typeError(field, 'an array', value)
   value.forEach((member, index) => {
     if (typeof member !== 'string') {
-      throw engineErrors.invalid(searchCode(field), `Invalid value type at \`.${field}[${index}]\`: expected a string, but found ${describeJson(member)}`)
+      throw engineErrors.invalid(
+        searchCode(field),
+        `Invalid value type at \`.${field}[${index}]\`: expected a string, but found ${describeJson(member)}`,
+      )
     }
   })
   return value as string[]
@@ -115,7 +146,11 @@ function splitSortParameter(text: string): string[] {
 /** Translates GET query parameters into the POST body the engine would build from them. */
 export function readSearchQuery(params: URLSearchParams): SearchRequest {
   const body: Record<string, unknown> = {}
-  const list = (text: string): string[] => text.split(',').map((part) => part.trim()).filter(Boolean)
+  const list = (text: string): string[] =>
+    text
+      .split(',')
+      .map((part) => part.trim())
+      .filter(Boolean)
   for (const [key, text] of params) {
     switch (key) {
       case 'offset':
@@ -123,7 +158,10 @@ export function readSearchQuery(params: URLSearchParams): SearchRequest {
       case 'page':
       case 'hitsPerPage': {
         if (!/^\d+$/.test(text)) {
-          throw engineErrors.invalid(searchCode(key), `Invalid value in parameter \`${key}\`: could not parse \`${text}\` as a positive integer`)
+          throw engineErrors.invalid(
+            searchCode(key),
+            `Invalid value in parameter \`${key}\`: could not parse \`${text}\` as a positive integer`,
+          )
         }
         body[key] = Number(text)
         break
@@ -184,12 +222,14 @@ function facetNames(index: EngineIndex, requested: string[]): string[] {
   const invalid = [...new Set(requested.filter((name) => !isFilterable(index.settings, name)))].sort(compareStrings)
   if (invalid.length > 0) {
     const patterns = filterablePatterns(index.settings)
-    const available = patterns.length === 0
-      ? 'This index does not have configured filterable attributes.'
-      : `Available filterable attributes patterns are: \`${patterns.join(', ')}\`.`
-    const message = invalid.length === 1
-      ? `Invalid facet distribution: Attribute \`${invalid[0]}\` is not filterable. ${available}`
-      : `Invalid facet distribution: Attributes \`${invalid.join(', ')}\` are not filterable. ${available}`
+    const available =
+      patterns.length === 0
+        ? 'This index does not have configured filterable attributes.'
+        : `Available filterable attributes patterns are: \`${patterns.join(', ')}\`.`
+    const message =
+      invalid.length === 1
+        ? `Invalid facet distribution: Attribute \`${invalid[0]}\` is not filterable. ${available}`
+        : `Invalid facet distribution: Attributes \`${invalid.join(', ')}\` are not filterable. ${available}`
     throw engineErrors.invalid('invalid_search_facets', message)
   }
   return requested
@@ -242,9 +282,10 @@ function checkSearchOn(index: EngineIndex, attributes: string[] | null): void {
 function checkDistinct(index: EngineIndex, attribute: string | null): void {
   if (attribute === null || isFilterable(index.settings, attribute)) return
   const patterns = filterablePatterns(index.settings)
-  const available = patterns.length === 0
-    ? 'This index does not have configured filterable attributes.'
-    : `Available filterable attributes patterns are: \`${patterns.join(', ')}\`.`
+  const available =
+    patterns.length === 0
+      ? 'This index does not have configured filterable attributes.'
+      : `Available filterable attributes patterns are: \`${patterns.join(', ')}\`.`
   throw engineErrors.invalid(
     'invalid_search_distinct',
     `Index \`${index.uid}\`: Attribute \`${attribute}\` is not filterable and thus, cannot be used as distinct attribute. ${available}`,
@@ -252,7 +293,12 @@ function checkDistinct(index: EngineIndex, attribute: string | null): void {
 }
 
 /** The hit as the engine shows it: displayed attributes, then the requested ones, then `_geoDistance`. */
-function formatHit(document: StoredDocument, displayed: string[] | null, retrieve: string[] | null, geoSort: RegExpExecArray | undefined): JsonObject {
+function formatHit(
+  document: StoredDocument,
+  displayed: string[] | null,
+  retrieve: string[] | null,
+  geoSort: RegExpExecArray | undefined,
+): JsonObject {
   let hit = projectDocument(document.body, displayed)
   if (retrieve) hit = projectDocument(hit, retrieve)
   if (geoSort && hit._geo && typeof hit._geo === 'object') {
@@ -280,7 +326,8 @@ export function executeSearch(index: EngineIndex, request: SearchRequest): Recor
   // order, so then only the requested page is read.
   const query = parseQuery(request.q ?? '', new Set(settings.stopWords.map((word) => word.toLowerCase())))
   const textSearch = query.words.length > 0
-  const unordered = !textSearch && sortCriteria.length === 0 && !distinctAttribute && !settings.rankingRules.some((rule) => CUSTOM_RULE.test(rule))
+  const unordered =
+    !textSearch && sortCriteria.length === 0 && !distinctAttribute && !settings.rankingRules.some((rule) => CUSTOM_RULE.test(rule))
   const documents: StoredDocument[] = []
   const words: number[] = []
   const scores: number[] = []
@@ -375,7 +422,13 @@ export function executeSearch(index: EngineIndex, request: SearchRequest): Recor
 
   let facetResult: ReturnType<typeof computeFacets> | null = null
   if (facets) {
-    const candidates = facetPool instanceof DocSet ? facetPool : DocSet.of(index.capacity, facetPool.map((document) => document.internalId))
+    const candidates =
+      facetPool instanceof DocSet
+        ? facetPool
+        : DocSet.of(
+            index.capacity,
+            facetPool.map((document) => document.internalId),
+          )
     facetResult = computeFacets(index, facets, candidates)
   }
 

@@ -61,7 +61,13 @@ function readBody(request: IncomingMessage): Promise<Buffer> {
     request.on('data', (chunk: Buffer) => {
       size += chunk.length
       if (size > MAX_PAYLOAD_BYTES) {
-        reject(new EngineError(413, 'payload_too_large', `The provided payload reached the size limit. The maximum accepted payload size is ${MAX_PAYLOAD_BYTES / 1024 / 1024} MiB.`))
+        reject(
+          new EngineError(
+            413,
+            'payload_too_large',
+            `The provided payload reached the size limit. The maximum accepted payload size is ${MAX_PAYLOAD_BYTES / 1024 / 1024} MiB.`,
+          ),
+        )
         request.destroy()
         return
       }

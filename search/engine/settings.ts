@@ -96,7 +96,10 @@ export function describeJson(value: unknown): string {
 }
 
 function typeError(name: string, path: string, expected: string, found: unknown): Error {
-  return engineErrors.invalid(errorCodeFor(name), `Invalid value type at \`${path}\`: expected ${expected}, but found ${describeJson(found)}`)
+  return engineErrors.invalid(
+    errorCodeFor(name),
+    `Invalid value type at \`${path}\`: expected ${expected}, but found ${describeJson(found)}`,
+  )
 }
 
 function stringList(name: string, value: unknown): string[] {
@@ -217,7 +220,8 @@ export function applySettingsUpdate(current: IndexSettings, update: unknown): In
         const merged = next.typoTolerance
         if ('enabled' in typo) merged.enabled = typo.enabled === null ? defaults.typoTolerance.enabled : Boolean(typo.enabled)
         if ('disableOnWords' in typo) merged.disableOnWords = typo.disableOnWords === null ? [] : stringList(key, typo.disableOnWords)
-        if ('disableOnAttributes' in typo) merged.disableOnAttributes = typo.disableOnAttributes === null ? [] : stringList(key, typo.disableOnAttributes)
+        if ('disableOnAttributes' in typo)
+          merged.disableOnAttributes = typo.disableOnAttributes === null ? [] : stringList(key, typo.disableOnAttributes)
         if ('disableOnNumbers' in typo) merged.disableOnNumbers = Boolean(typo.disableOnNumbers)
         if (typo.minWordSizeForTypos && typeof typo.minWordSizeForTypos === 'object') {
           const sizes = typo.minWordSizeForTypos as Record<string, unknown>
@@ -241,19 +245,22 @@ export function applySettingsUpdate(current: IndexSettings, update: unknown): In
       case 'faceting': {
         const faceting = objectValue(key, value)
         if ('maxValuesPerFacet' in faceting) {
-          next.faceting.maxValuesPerFacet = faceting.maxValuesPerFacet === null ? 100 : wholeNumber(key, '.faceting.maxValuesPerFacet', faceting.maxValuesPerFacet)
+          next.faceting.maxValuesPerFacet =
+            faceting.maxValuesPerFacet === null ? 100 : wholeNumber(key, '.faceting.maxValuesPerFacet', faceting.maxValuesPerFacet)
         }
         if ('sortFacetValuesBy' in faceting) {
-          next.faceting.sortFacetValuesBy = faceting.sortFacetValuesBy === null
-            ? { '*': 'alpha' }
-            : { '*': 'alpha', ...(objectValue(key, faceting.sortFacetValuesBy) as Record<string, 'alpha' | 'count'>) }
+          next.faceting.sortFacetValuesBy =
+            faceting.sortFacetValuesBy === null
+              ? { '*': 'alpha' }
+              : { '*': 'alpha', ...(objectValue(key, faceting.sortFacetValuesBy) as Record<string, 'alpha' | 'count'>) }
         }
         break
       }
       case 'pagination': {
         const pagination = objectValue(key, value)
         if ('maxTotalHits' in pagination) {
-          next.pagination.maxTotalHits = pagination.maxTotalHits === null ? 1000 : wholeNumber(key, '.pagination.maxTotalHits', pagination.maxTotalHits)
+          next.pagination.maxTotalHits =
+            pagination.maxTotalHits === null ? 1000 : wholeNumber(key, '.pagination.maxTotalHits', pagination.maxTotalHits)
         }
         break
       }
@@ -286,7 +293,10 @@ export function filterablePatterns(settings: IndexSettings): string[] {
 }
 
 /** The first rule covering an attribute decides what filtering it allows, as in the engine. */
-export function filterFeatures(settings: IndexSettings, attribute: string): { equality: boolean; comparison: boolean; ruleIndex: number } | null {
+export function filterFeatures(
+  settings: IndexSettings,
+  attribute: string,
+): { equality: boolean; comparison: boolean; ruleIndex: number } | null {
   for (const [ruleIndex, rule] of settings.filterableAttributes.entries()) {
     if (typeof rule === 'string') {
       if (patternCovers(rule, attribute)) return { equality: true, comparison: true, ruleIndex }

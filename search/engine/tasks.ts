@@ -5,12 +5,7 @@
 import { EngineError, engineErrors, type EngineErrorBody } from './errors'
 
 export type TaskType =
-  | 'indexCreation'
-  | 'indexUpdate'
-  | 'indexDeletion'
-  | 'settingsUpdate'
-  | 'documentAdditionOrUpdate'
-  | 'documentDeletion'
+  'indexCreation' | 'indexUpdate' | 'indexDeletion' | 'settingsUpdate' | 'documentAdditionOrUpdate' | 'documentDeletion'
 
 export type TaskStatus = 'enqueued' | 'processing' | 'succeeded' | 'failed' | 'canceled'
 
@@ -52,7 +47,13 @@ export class TaskQueue {
   private running = false
   private closed = false
 
-  enqueue(type: TaskType, indexUid: string | null, details: Record<string, unknown>, work: TaskWork, customMetadata?: string): EnqueuedTask {
+  enqueue(
+    type: TaskType,
+    indexUid: string | null,
+    details: Record<string, unknown>,
+    work: TaskWork,
+    customMetadata?: string,
+  ): EnqueuedTask {
     const task: Task = {
       uid: this.tasks.length,
       batchUid: null,
@@ -90,7 +91,10 @@ export class TaskQueue {
     const limit = query.has('limit') ? Number(query.get('limit')) : 20
     const from = query.has('from') ? Number(query.get('from')) : null
     if (!Number.isInteger(limit) || limit < 0) {
-      throw engineErrors.invalid('invalid_task_limit', `Invalid value in parameter \`limit\`: could not parse \`${query.get('limit')}\` as a positive integer`)
+      throw engineErrors.invalid(
+        'invalid_task_limit',
+        `Invalid value in parameter \`limit\`: could not parse \`${query.get('limit')}\` as a positive integer`,
+      )
     }
     const uids = listOf('uids')
     const statuses = listOf('statuses')

@@ -67,7 +67,8 @@ export function requireStudioMember(ctx: AppContext, roles: StudioRole[], resolv
     const studioId = await resolve(req)
     if (!studioId) return next(notFound())
     const role = await studioRoleOf(ctx, req, studioId)
-    if (!role) return next((await isPublished(ctx, studioId)) ? forbidden('Only the studio’s own people can do that.', 'not-a-member') : notFound())
+    if (!role)
+      return next((await isPublished(ctx, studioId)) ? forbidden('Only the studio’s own people can do that.', 'not-a-member') : notFound())
     if (!roles.includes(role)) return next(forbidden(`Only the studio’s ${roles.join(' or ')} can do that.`, 'studio-role'))
     res.locals.studioId = studioId
     res.locals.studioRole = role

@@ -9,7 +9,11 @@ import { hashPassword } from '../auth/password'
 import { withDatabase } from './local-database'
 
 const { values } = parseArgs({
-  options: { studios: { type: 'string', default: '5000' }, firings: { type: 'string', default: '20000' }, reset: { type: 'boolean', default: false } },
+  options: {
+    studios: { type: 'string', default: '5000' },
+    firings: { type: 'string', default: '20000' },
+    reset: { type: 'boolean', default: false },
+  },
 })
 const studioCount = Number(values.studios)
 const firingCount = Number(values.firings)
@@ -20,7 +24,7 @@ if (!Number.isInteger(studioCount) || studioCount < 1 || !Number.isInteger(firin
 
 // A fixed-seed generator, so two runs make the same data.
 let seed = 20261201
-const random = () => ((seed = (seed * 1103515245 + 12345) % 2147483648) / 2147483648)
+const random = () => (seed = (seed * 1103515245 + 12345) % 2147483648) / 2147483648
 const pick = <T>(items: readonly T[]) => items[Math.floor(random() * items.length)]
 const BENCH_PREFIX = 'Bench studio'
 
@@ -32,7 +36,10 @@ await withDatabase(async (db) => {
   }
   if (existing) {
     console.log(`removing ${existing} earlier bench studios`)
-    await db.query(`DELETE FROM firings WHERE kiln_id IN (SELECT k.id FROM kilns k JOIN studios s ON s.id = k.studio_id WHERE s.name LIKE $1)`, [`${BENCH_PREFIX} %`])
+    await db.query(
+      `DELETE FROM firings WHERE kiln_id IN (SELECT k.id FROM kilns k JOIN studios s ON s.id = k.studio_id WHERE s.name LIKE $1)`,
+      [`${BENCH_PREFIX} %`],
+    )
     await db.query(`DELETE FROM studios WHERE name LIKE $1`, [`${BENCH_PREFIX} %`])
   }
   const ownerEmail = 'bench.host@demo.conewright.test'
@@ -55,7 +62,19 @@ await withDatabase(async (db) => {
       studios.push([studioId, `${BENCH_PREFIX} ${i + 1}`, 45.5 + (random() - 0.5) * 6, -122.7 + (random() - 0.5) * 8])
       const gas = random() < 0.3
       const diameter = 400 + Math.floor(random() * 500)
-      kilns.push([kilnId, studioId, gas ? 'gas' : 'electric', gas ? ['reduction', 'oxidation'] : ['oxidation'], gas ? 'box' : 'round', gas ? null : diameter, gas ? diameter + 200 : null, gas ? diameter : null, 450 + Math.floor(random() * 600), gas ? '010' : '022', gas ? '12' : '10'])
+      kilns.push([
+        kilnId,
+        studioId,
+        gas ? 'gas' : 'electric',
+        gas ? ['reduction', 'oxidation'] : ['oxidation'],
+        gas ? 'box' : 'round',
+        gas ? null : diameter,
+        gas ? diameter + 200 : null,
+        gas ? diameter : null,
+        450 + Math.floor(random() * 600),
+        gas ? '010' : '022',
+        gas ? '12' : '10',
+      ])
     }
     await db.query(
       `INSERT INTO studios (id, name, lat, lng, timezone, policies, published, verified_at, city, region)
@@ -63,15 +82,31 @@ await withDatabase(async (db) => {
        FROM jsonb_to_recordset($1::jsonb) AS s(id text, name text, lat float8, lng float8)`,
       [JSON.stringify(studios.map(([id, name, lat, lng]) => ({ id, name, lat, lng }))), JSON.stringify(DEFAULT_POLICIES)],
     )
-    await db.query(
-      `INSERT INTO studio_members (studio_id, user_id, role) SELECT id, $2, 'owner' FROM unnest($1::uuid[]) AS id`,
-      [studios.map((s) => s[0]), owner.id],
-    )
+    await db.query(`INSERT INTO studio_members (studio_id, user_id, role) SELECT id, $2, 'owner' FROM unnest($1::uuid[]) AS id`, [
+      studios.map((s) => s[0]),
+      owner.id,
+    ])
     await db.query(
       `INSERT INTO kilns (id, studio_id, name, kind, atmospheres, interior_shape, diameter_mm, width_mm, depth_mm, height_mm, min_cone, max_cone, max_temp_c, max_ramp_c_per_hour, preheat_hold, controlled_cooling, shelf_count)
        SELECT k.id::uuid, k.studio_id::uuid, 'Bench kiln', k.kind, k.atmospheres, k.shape, k.diameter, k.width, k.depth, k.height, k.min_cone, k.max_cone, 1320, 250, true, false, 5
        FROM jsonb_to_recordset($1::jsonb) AS k(id text, studio_id text, kind text, atmospheres text[], shape text, diameter float8, width float8, depth float8, height float8, min_cone text, max_cone text)`,
-      [JSON.stringify(kilns.map(([id, studio_id, kind, atmospheres, shape, diameter, width, depth, height, min_cone, max_cone]) => ({ id, studio_id, kind, atmospheres, shape, diameter, width, depth, height, min_cone, max_cone })))],
+      [
+        JSON.stringify(
+          kilns.map(([id, studio_id, kind, atmospheres, shape, diameter, width, depth, height, min_cone, max_cone]) => ({
+            id,
+            studio_id,
+            kind,
+            atmospheres,
+            shape,
+            diameter,
+            width,
+            depth,
+            height,
+            min_cone,
+            max_cone,
+          })),
+        ),
+      ],
     )
     await db.query(
       `INSERT INTO kiln_price_lists (kiln_id, currency, model, cents_per_cubic_inch, minimum_per_piece_cents, deposit_percent)
@@ -109,5 +144,7 @@ await withDatabase(async (db) => {
     process.stdout.write(`\r  firings ${Math.min(firingCount, start + 2000)}/${firingCount}`)
   }
   process.stdout.write('\n')
-  console.log(`Seeded ${studioCount} studios and ${firingCount} firings in ${((Date.now() - started) / 1000).toFixed(1)} s. The search index is rebuilt when the server starts, or with npm run search:reindex.`)
+  console.log(
+    `Seeded ${studioCount} studios and ${firingCount} firings in ${((Date.now() - started) / 1000).toFixed(1)} s. The search index is rebuilt when the server starts, or with npm run search:reindex.`,
+  )
 })

@@ -43,10 +43,61 @@ const TOWNS: [string, string][] = [
   ['Portland, OR', '97217'],
 ]
 
-const NAME_FIRST = ['Cedar', 'Heron', 'Basalt', 'Rain Shadow', 'Mossy Rock', 'Slipstream', 'Alder Bend', 'Quarry', 'Tidewater', 'Foxglove', 'Ember', 'Riverstone', 'Juniper', 'Salt Marsh', 'Copper Fern', 'Wild Rye', 'Ash Hollow', 'Blue Heron']
+const NAME_FIRST = [
+  'Cedar',
+  'Heron',
+  'Basalt',
+  'Rain Shadow',
+  'Mossy Rock',
+  'Slipstream',
+  'Alder Bend',
+  'Quarry',
+  'Tidewater',
+  'Foxglove',
+  'Ember',
+  'Riverstone',
+  'Juniper',
+  'Salt Marsh',
+  'Copper Fern',
+  'Wild Rye',
+  'Ash Hollow',
+  'Blue Heron',
+]
 const NAME_LAST = ['Clay Studio', 'Kiln Share', 'Pottery', 'Ceramics Co-op', 'Fire Works', 'Clay Collective', 'Kiln House', 'Pot Shop']
-const PEOPLE_FIRST = ['Juno', 'Arlo', 'Maren', 'Tobias', 'Priya', 'Soren', 'Beatrix', 'Kenji', 'Odette', 'Rafael', 'Linnea', 'Caspian', 'Noor', 'Silas', 'Ingrid', 'Mateo', 'Wilhelmina', 'Ezra']
-const PEOPLE_LAST = ['Feld', 'Okonkwo', 'Vasquez-Lind', 'Aberdeen', 'Hollis', 'Marchetti', 'Sundqvist', 'Tran', 'Delacroix-Moe', 'Brightwater', 'Kowalczyk', 'Ferreira']
+const PEOPLE_FIRST = [
+  'Juno',
+  'Arlo',
+  'Maren',
+  'Tobias',
+  'Priya',
+  'Soren',
+  'Beatrix',
+  'Kenji',
+  'Odette',
+  'Rafael',
+  'Linnea',
+  'Caspian',
+  'Noor',
+  'Silas',
+  'Ingrid',
+  'Mateo',
+  'Wilhelmina',
+  'Ezra',
+]
+const PEOPLE_LAST = [
+  'Feld',
+  'Okonkwo',
+  'Vasquez-Lind',
+  'Aberdeen',
+  'Hollis',
+  'Marchetti',
+  'Sundqvist',
+  'Tran',
+  'Delacroix-Moe',
+  'Brightwater',
+  'Kowalczyk',
+  'Ferreira',
+]
 
 const inch = (n: number) => Math.round(n * 25.4)
 
@@ -93,7 +144,9 @@ export function regionalDemoStudios(): DemoStudio[] {
     const slug = name.toLowerCase().replace(/[^a-z]+/g, '-')
     const gasKiln = i % 3 === 0
     const small = i % 4 === 1
-    const body = gasKiln ? gas('Car kiln', 30 + (i % 3) * 6, 30, 36 + (i % 2) * 6) : electric(small ? 'Test kiln' : 'Top-loader', small ? 18 : 23 + (i % 4) * 2, small ? 18 : 27, i % 2 ? '6' : '10')
+    const body = gasKiln
+      ? gas('Car kiln', 30 + (i % 3) * 6, 30, 36 + (i % 2) * 6)
+      : electric(small ? 'Test kiln' : 'Top-loader', small ? 18 : 23 + (i % 4) * 2, small ? 18 : 27, i % 2 ? '6' : '10')
     const cone = gasKiln ? '10' : body.maxCone === '6' ? '6' : i % 5 === 0 ? '10' : '6'
     return {
       name,
@@ -114,7 +167,15 @@ export function regionalDemoStudios(): DemoStudio[] {
           priceList:
             i % 2
               ? { currency: 'USD', model: 'volume', centsPerCubicInch: 3 + (i % 4), minimumPerPieceCents: 250, deposit: { percent: 25 } }
-              : { currency: 'USD', model: 'shelf', shelfCents: 2500 + (i % 5) * 500, shelfStep: 0.25, minimumPerPieceCents: 300, surcharges: { reduction: gasKiln ? 10 : 0 }, deposit: { percent: 30 } },
+              : {
+                  currency: 'USD',
+                  model: 'shelf',
+                  shelfCents: 2500 + (i % 5) * 500,
+                  shelfStep: 0.25,
+                  minimumPerPieceCents: 300,
+                  surcharges: { reduction: gasKiln ? 10 : 0 },
+                  deposit: { percent: 30 },
+                },
           firings: [
             {
               kind: 'glaze',
@@ -128,7 +189,19 @@ export function regionalDemoStudios(): DemoStudio[] {
               capacityL: gasKiln ? 200 : small ? 35 : 110,
             },
             ...(i % 4 === 2
-              ? [{ kind: 'bisque' as const, cone: '04', atmosphere: 'oxidation' as const, weekday: 0, hour: 10, everyWeeks: 2, dropOffDaysBefore: 1, readyDaysAfter: 2, capacityL: 60 }]
+              ? [
+                  {
+                    kind: 'bisque' as const,
+                    cone: '04',
+                    atmosphere: 'oxidation' as const,
+                    weekday: 0,
+                    hour: 10,
+                    everyWeeks: 2,
+                    dropOffDaysBefore: 1,
+                    readyDaysAfter: 2,
+                    capacityL: 60,
+                  },
+                ]
               : []),
           ],
         },

@@ -17,10 +17,56 @@ import { checkAgainstFiring } from '../services/requests'
 const stoneware = { body: 'stoneware' as const, minCone: '5', maxCone: '10' }
 const glaze6 = { minCone: '5', maxCone: '7' }
 
-const MUGS: Piece = { label: 'Ash-glazed mugs', quantity: 6, heightMm: 105, widthMm: 90, depthMm: 120, wallThicknessMm: 6, clay: stoneware, state: 'bisque', boneDry: true, glaze: glaze6 }
-const VASES: Piece = { label: 'Tall vases', quantity: 5, heightMm: 400, widthMm: 250, depthMm: 250, round: true, wallThicknessMm: 9, clay: stoneware, state: 'bisque', boneDry: true, glaze: glaze6 }
-const CELADON_BOWLS: Piece = { label: 'Celadon bowls', quantity: 4, heightMm: 90, widthMm: 200, depthMm: 200, round: true, wallThicknessMm: 7, clay: { body: 'porcelain', minCone: '9', maxCone: '11' }, state: 'bisque', boneDry: true, glaze: { minCone: '9', maxCone: '11', runny: true, onCookie: true } }
-const GREEN_PLATES: Piece = { label: 'Greenware plates', quantity: 8, heightMm: 30, widthMm: 260, depthMm: 260, round: true, wallThicknessMm: 8, clay: stoneware, state: 'greenware', boneDry: true }
+const MUGS: Piece = {
+  label: 'Ash-glazed mugs',
+  quantity: 6,
+  heightMm: 105,
+  widthMm: 90,
+  depthMm: 120,
+  wallThicknessMm: 6,
+  clay: stoneware,
+  state: 'bisque',
+  boneDry: true,
+  glaze: glaze6,
+}
+const VASES: Piece = {
+  label: 'Tall vases',
+  quantity: 5,
+  heightMm: 400,
+  widthMm: 250,
+  depthMm: 250,
+  round: true,
+  wallThicknessMm: 9,
+  clay: stoneware,
+  state: 'bisque',
+  boneDry: true,
+  glaze: glaze6,
+}
+const CELADON_BOWLS: Piece = {
+  label: 'Celadon bowls',
+  quantity: 4,
+  heightMm: 90,
+  widthMm: 200,
+  depthMm: 200,
+  round: true,
+  wallThicknessMm: 7,
+  clay: { body: 'porcelain', minCone: '9', maxCone: '11' },
+  state: 'bisque',
+  boneDry: true,
+  glaze: { minCone: '9', maxCone: '11', runny: true, onCookie: true },
+}
+const GREEN_PLATES: Piece = {
+  label: 'Greenware plates',
+  quantity: 8,
+  heightMm: 30,
+  widthMm: 260,
+  depthMm: 260,
+  round: true,
+  wallThicknessMm: 8,
+  clay: stoneware,
+  state: 'greenware',
+  boneDry: true,
+}
 
 interface DemoRequest {
   key: string
@@ -37,11 +83,57 @@ interface DemoRequest {
 }
 
 const DEMO_REQUESTS: DemoRequest[] = [
-  { key: 'near-full', studio: 'Alder Street Clay Commons', kiln: 'Big Ten', firing: 0, potter: 'theo.marsh@demo.conewright.test', pieces: [VASES], notes: 'Tall forms: please keep them off the top shelf.', state: 'deposit_paid' },
-  { key: 'mugs-paid', studio: 'Alder Street Clay Commons', kiln: 'Big Ten', firing: 0, potter: 'wren.alvarado@demo.conewright.test', pieces: [MUGS], notes: 'Could these go in the slow-cool part of the load?', state: 'deposit_paid' },
-  { key: 'celadon-waiting', studio: 'Fernhollow Gas Works', kiln: 'The Car', firing: 0, potter: 'wren.alvarado@demo.conewright.test', pieces: [CELADON_BOWLS], notes: 'A runny celadon; each bowl sits on its own cookie.', state: 'sent', acknowledged: [] },
-  { key: 'mugs-waiting', studio: 'Alder Street Clay Commons', kiln: 'Big Ten', firing: 1, potter: 'theo.marsh@demo.conewright.test', pieces: [MUGS], notes: '', state: 'sent' },
-  { key: 'plates-draft', studio: 'Mudlark Clay Supply', kiln: 'Bisque Bay', firing: 0, potter: 'wren.alvarado@demo.conewright.test', pieces: [GREEN_PLATES], notes: 'Dried under plastic for a week.', state: 'draft' },
+  {
+    key: 'near-full',
+    studio: 'Alder Street Clay Commons',
+    kiln: 'Big Ten',
+    firing: 0,
+    potter: 'theo.marsh@demo.conewright.test',
+    pieces: [VASES],
+    notes: 'Tall forms: please keep them off the top shelf.',
+    state: 'deposit_paid',
+  },
+  {
+    key: 'mugs-paid',
+    studio: 'Alder Street Clay Commons',
+    kiln: 'Big Ten',
+    firing: 0,
+    potter: 'wren.alvarado@demo.conewright.test',
+    pieces: [MUGS],
+    notes: 'Could these go in the slow-cool part of the load?',
+    state: 'deposit_paid',
+  },
+  {
+    key: 'celadon-waiting',
+    studio: 'Fernhollow Gas Works',
+    kiln: 'The Car',
+    firing: 0,
+    potter: 'wren.alvarado@demo.conewright.test',
+    pieces: [CELADON_BOWLS],
+    notes: 'A runny celadon; each bowl sits on its own cookie.',
+    state: 'sent',
+    acknowledged: [],
+  },
+  {
+    key: 'mugs-waiting',
+    studio: 'Alder Street Clay Commons',
+    kiln: 'Big Ten',
+    firing: 1,
+    potter: 'theo.marsh@demo.conewright.test',
+    pieces: [MUGS],
+    notes: '',
+    state: 'sent',
+  },
+  {
+    key: 'plates-draft',
+    studio: 'Mudlark Clay Supply',
+    kiln: 'Bisque Bay',
+    firing: 0,
+    potter: 'wren.alvarado@demo.conewright.test',
+    pieces: [GREEN_PLATES],
+    notes: 'Dried under plastic for a week.',
+    state: 'draft',
+  },
   {
     key: 'past-collected',
     studio: 'Alder Street Clay Commons',
@@ -51,7 +143,13 @@ const DEMO_REQUESTS: DemoRequest[] = [
     pieces: [MUGS],
     notes: 'Matte glazes; slow cool if you can.',
     state: 'collected',
-    rating: { stars: 5, care: 5, communication: 5, results: 4, text: 'Marisol slow-cooled the load as promised; the matte glazes came out buttery.' },
+    rating: {
+      stars: 5,
+      care: 5,
+      communication: 5,
+      results: 4,
+      text: 'Marisol slow-cooled the load as promised; the matte glazes came out buttery.',
+    },
   },
 ]
 
@@ -124,18 +222,69 @@ export async function seedDemoRequests(manager: EntityManager, userIdOf: (email:
     const path = PATH[demo.state]
     for (let i = 0; i < path.length; i++) {
       const actor = ['sent', 'draft'].includes(path[i]) ? potterId : null
-      await manager.getRepository(RequestEvent).save({ requestId: request.id, actorId: actor, fromState: i ? path[i - 1] : null, toState: path[i], reason: '', data: i ? {} : { demoKey: demo.key } })
+      await manager
+        .getRepository(RequestEvent)
+        .save({
+          requestId: request.id,
+          actorId: actor,
+          fromState: i ? path[i - 1] : null,
+          toState: path[i],
+          reason: '',
+          data: i ? {} : { demoKey: demo.key },
+        })
     }
     const currency = quote?.currency ?? 'USD'
     if (path.includes('deposit_paid') && quote && quote.depositCents > 0) {
-      await manager.getRepository(LedgerEntry).save({ requestId: request.id, direction: 'in', kind: 'counter', amountCents: quote.depositCents, currency, stripeSessionId: null, stripePaymentIntentId: null, stripeRefundId: null, note: 'Deposit paid at the counter' })
+      await manager
+        .getRepository(LedgerEntry)
+        .save({
+          requestId: request.id,
+          direction: 'in',
+          kind: 'counter',
+          amountCents: quote.depositCents,
+          currency,
+          stripeSessionId: null,
+          stripePaymentIntentId: null,
+          stripeRefundId: null,
+          note: 'Deposit paid at the counter',
+        })
     }
     if (demo.state === 'collected' && quote) {
       const rest = quote.totalCents - quote.depositCents
-      if (rest > 0) await manager.getRepository(LedgerEntry).save({ requestId: request.id, direction: 'in', kind: 'counter', amountCents: rest, currency, stripeSessionId: null, stripePaymentIntentId: null, stripeRefundId: null, note: 'Balance paid at the counter' })
+      if (rest > 0)
+        await manager
+          .getRepository(LedgerEntry)
+          .save({
+            requestId: request.id,
+            direction: 'in',
+            kind: 'counter',
+            amountCents: rest,
+            currency,
+            stripeSessionId: null,
+            stripePaymentIntentId: null,
+            stripeRefundId: null,
+            note: 'Balance paid at the counter',
+          })
     }
     if (demo.rating) {
-      await manager.getRepository(Rating).save({ requestId: request.id, direction: 'potter-rates-studio', studioId: studio.id, potterId, authorId: potterId, stars: demo.rating.stars, care: demo.rating.care, communication: demo.rating.communication, results: demo.rating.results, asDeclared: null, onTime: null, text: demo.rating.text, studioReply: 'Thank you, Wren. See you at the next cone 6.', studioReplyAt: new Date() })
+      await manager
+        .getRepository(Rating)
+        .save({
+          requestId: request.id,
+          direction: 'potter-rates-studio',
+          studioId: studio.id,
+          potterId,
+          authorId: potterId,
+          stars: demo.rating.stars,
+          care: demo.rating.care,
+          communication: demo.rating.communication,
+          results: demo.rating.results,
+          asDeclared: null,
+          onTime: null,
+          text: demo.rating.text,
+          studioReply: 'Thank you, Wren. See you at the next cone 6.',
+          studioReplyAt: new Date(),
+        })
     }
   }
 }

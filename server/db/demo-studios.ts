@@ -59,7 +59,8 @@ export const DEMO_STUDIOS: DemoStudio[] = [
     dropOffHours: 'Tue–Sat 10 am – 7 pm',
     policies: {
       clayBodies: ['stoneware', 'porcelain', 'earthenware'],
-      wareRequirements: 'Bone dry or bisqued. Wax feet; no glaze within 1/4 in of the foot. Runny glazes on a cookie. Label the underside with your initials.',
+      wareRequirements:
+        'Bone dry or bisqued. Wax feet; no glaze within 1/4 in of the foot. Runny glazes on a cookie. Label the underside with your initials.',
       cancellation: { fullRefundDaysBefore: 5, laterRefundPercent: 50 },
       depositHoldHours: 48,
     },
@@ -83,9 +84,27 @@ export const DEMO_STUDIOS: DemoStudio[] = [
           shelfDepthMm: inch(26),
           notes: 'Ten-sided top-loader with a digital controller and a downdraft vent.',
         },
-        priceList: { currency: 'USD', model: 'volume', centsPerCubicInch: 4, minimumPerPieceCents: 300, surcharges: { slowCool: 15, preheat: 10 }, deposit: { percent: 25 } },
+        priceList: {
+          currency: 'USD',
+          model: 'volume',
+          centsPerCubicInch: 4,
+          minimumPerPieceCents: 300,
+          surcharges: { slowCool: 15, preheat: 10 },
+          deposit: { percent: 25 },
+        },
         firings: [
-          { kind: 'glaze', cone: '6', atmosphere: 'oxidation', weekday: 5, hour: 9, everyWeeks: 1, dropOffDaysBefore: 2, readyDaysAfter: 3, capacityL: 140, notes: 'Slow cool through 1900 °F when asked.' },
+          {
+            kind: 'glaze',
+            cone: '6',
+            atmosphere: 'oxidation',
+            weekday: 5,
+            hour: 9,
+            everyWeeks: 1,
+            dropOffDaysBefore: 2,
+            readyDaysAfter: 3,
+            capacityL: 140,
+            notes: 'Slow cool through 1900 °F when asked.',
+          },
         ],
       },
       {
@@ -107,7 +126,17 @@ export const DEMO_STUDIOS: DemoStudio[] = [
         },
         priceList: { currency: 'USD', model: 'volume', centsPerCubicInch: 3, minimumPerPieceCents: 200, deposit: { percent: 25 } },
         firings: [
-          { kind: 'bisque', cone: '04', atmosphere: 'oxidation', weekday: 2, hour: 8, everyWeeks: 2, dropOffDaysBefore: 1, readyDaysAfter: 2, capacityL: 45 },
+          {
+            kind: 'bisque',
+            cone: '04',
+            atmosphere: 'oxidation',
+            weekday: 2,
+            hour: 8,
+            everyWeeks: 2,
+            dropOffDaysBefore: 1,
+            readyDaysAfter: 2,
+            capacityL: 45,
+          },
         ],
       },
     ],
@@ -120,7 +149,8 @@ export const DEMO_STUDIOS: DemoStudio[] = [
     dropOffHours: 'Thu–Fri 4 – 8 pm, Sat 9 am – noon',
     policies: {
       clayBodies: ['stoneware', 'porcelain'],
-      wareRequirements: 'High-fire stoneware or porcelain only (cone 10). Bisqued ware; glaze cleaned 1/4 in from the foot. Shinos on a cookie.',
+      wareRequirements:
+        'High-fire stoneware or porcelain only (cone 10). Bisqued ware; glaze cleaned 1/4 in from the foot. Shinos on a cookie.',
       cancellation: { fullRefundDaysBefore: 10, laterRefundPercent: 25 },
       depositHoldHours: 72,
     },
@@ -144,9 +174,28 @@ export const DEMO_STUDIOS: DemoStudio[] = [
           shelfDepthMm: inch(12),
           notes: 'Natural-gas car kiln with four venturi burners; body reduction at cone 010, heavy reduction from cone 6.',
         },
-        priceList: { currency: 'USD', model: 'shelf', shelfCents: 4500, shelfStep: 0.25, minimumPerPieceCents: 400, surcharges: { reduction: 10, preheat: 10 }, deposit: { fixedCents: 2000 } },
+        priceList: {
+          currency: 'USD',
+          model: 'shelf',
+          shelfCents: 4500,
+          shelfStep: 0.25,
+          minimumPerPieceCents: 400,
+          surcharges: { reduction: 10, preheat: 10 },
+          deposit: { fixedCents: 2000 },
+        },
         firings: [
-          { kind: 'glaze', cone: '10', atmosphere: 'reduction', weekday: 6, hour: 6, everyWeeks: 2, dropOffDaysBefore: 2, readyDaysAfter: 3, capacityL: 320, notes: 'Reduction from cone 010; cooled in about 36 hours.' },
+          {
+            kind: 'glaze',
+            cone: '10',
+            atmosphere: 'reduction',
+            weekday: 6,
+            hour: 6,
+            everyWeeks: 2,
+            dropOffDaysBefore: 2,
+            readyDaysAfter: 3,
+            capacityL: 320,
+            notes: 'Reduction from cone 010; cooled in about 36 hours.',
+          },
         ],
       },
     ],
@@ -159,7 +208,8 @@ export const DEMO_STUDIOS: DemoStudio[] = [
     dropOffHours: 'By arrangement; weekends before a firing',
     policies: {
       clayBodies: ['stoneware', 'porcelain'],
-      wareRequirements: 'Cone 10–11 stoneware or porcelain, bisqued. Wadded feet (we supply wadding). No low-fire glazes. Pieces may fuse to their neighbours in the wood kiln: that risk is yours.',
+      wareRequirements:
+        'Cone 10–11 stoneware or porcelain, bisqued. Wadded feet (we supply wadding). No low-fire glazes. Pieces may fuse to their neighbours in the wood kiln: that risk is yours.',
       cancellation: { fullRefundDaysBefore: 21, laterRefundPercent: 0 },
       depositHoldHours: 96,
     },
@@ -185,7 +235,18 @@ export const DEMO_STUDIOS: DemoStudio[] = [
         },
         priceList: { currency: 'USD', model: 'volume', centsPerLitre: 160, minimumPerPieceCents: 800, deposit: { percent: 50 } },
         firings: [
-          { kind: 'glaze', cone: '11', atmosphere: 'reduction', weekday: 4, hour: 7, everyWeeks: 6, dropOffDaysBefore: 5, readyDaysAfter: 10, capacityL: 900, notes: 'Loading takes two days; ware placed by the crew.' },
+          {
+            kind: 'glaze',
+            cone: '11',
+            atmosphere: 'reduction',
+            weekday: 4,
+            hour: 7,
+            everyWeeks: 6,
+            dropOffDaysBefore: 5,
+            readyDaysAfter: 10,
+            capacityL: 900,
+            notes: 'Loading takes two days; ware placed by the crew.',
+          },
         ],
       },
       {
@@ -205,9 +266,26 @@ export const DEMO_STUDIOS: DemoStudio[] = [
           shelfDepthMm: inch(18),
           notes: 'Soda ash sprayed from cone 8. Shelves are kiln-washed; bring wadding.',
         },
-        priceList: { currency: 'USD', model: 'volume', centsPerLitre: 130, minimumPerPieceCents: 600, surcharges: { reduction: 0 }, deposit: { percent: 40 } },
+        priceList: {
+          currency: 'USD',
+          model: 'volume',
+          centsPerLitre: 130,
+          minimumPerPieceCents: 600,
+          surcharges: { reduction: 0 },
+          deposit: { percent: 40 },
+        },
         firings: [
-          { kind: 'glaze', cone: '10', atmosphere: 'reduction', weekday: 6, hour: 7, everyWeeks: 4, dropOffDaysBefore: 3, readyDaysAfter: 4, capacityL: 220 },
+          {
+            kind: 'glaze',
+            cone: '10',
+            atmosphere: 'reduction',
+            weekday: 6,
+            hour: 7,
+            everyWeeks: 4,
+            dropOffDaysBefore: 3,
+            readyDaysAfter: 4,
+            capacityL: 220,
+          },
         ],
       },
     ],
@@ -220,7 +298,8 @@ export const DEMO_STUDIOS: DemoStudio[] = [
     dropOffHours: 'Mon–Sat 9 am – 6 pm, Sun noon – 5 pm',
     policies: {
       clayBodies: ['earthenware', 'stoneware', 'porcelain', 'other'],
-      wareRequirements: 'Bone dry greenware only: cool to the touch against your cheek. Walls over 3/4 in get an extra candling charge. No glaze on anything.',
+      wareRequirements:
+        'Bone dry greenware only: cool to the touch against your cheek. Walls over 3/4 in get an extra candling charge. No glaze on anything.',
       cancellation: { fullRefundDaysBefore: 1, laterRefundPercent: 0 },
       depositHoldHours: 24,
     },
@@ -244,9 +323,27 @@ export const DEMO_STUDIOS: DemoStudio[] = [
           shelfDepthMm: inch(27),
           notes: 'Bisque only. Every load candles 8 hours at 180 °F.',
         },
-        priceList: { currency: 'USD', model: 'shelf', shelfCents: 1800, shelfStep: 0.5, minimumPerPieceCents: 150, surcharges: { preheat: 0 }, deposit: { percent: 20 } },
+        priceList: {
+          currency: 'USD',
+          model: 'shelf',
+          shelfCents: 1800,
+          shelfStep: 0.5,
+          minimumPerPieceCents: 150,
+          surcharges: { preheat: 0 },
+          deposit: { percent: 20 },
+        },
         firings: [
-          { kind: 'bisque', cone: '04', atmosphere: 'oxidation', weekday: 1, hour: 8, everyWeeks: 1, dropOffDaysBefore: 1, readyDaysAfter: 2, capacityL: 240 },
+          {
+            kind: 'bisque',
+            cone: '04',
+            atmosphere: 'oxidation',
+            weekday: 1,
+            hour: 8,
+            everyWeeks: 1,
+            dropOffDaysBefore: 1,
+            readyDaysAfter: 2,
+            capacityL: 240,
+          },
         ],
       },
     ],
@@ -322,7 +419,9 @@ export async function seedDemoStudios(
     for (const demoKiln of demo.kilns) {
       let kiln = await manager.getRepository(Kiln).findOne({ where: { studioId: studio.id, name: demoKiln.body.name } })
       if (!kiln) {
-        kiln = await manager.getRepository(Kiln).save(manager.getRepository(Kiln).create({ ...kilnColumns(demoKiln.body), studioId: studio.id, retiredAt: null }))
+        kiln = await manager
+          .getRepository(Kiln)
+          .save(manager.getRepository(Kiln).create({ ...kilnColumns(demoKiln.body), studioId: studio.id, retiredAt: null }))
         await manager.getRepository(KilnPriceList).save({ kilnId: kiln.id, ...priceListColumns(demoKiln.priceList) })
       }
       for (const rule of demoKiln.firings) {
@@ -350,4 +449,3 @@ export async function seedDemoStudios(
     }
   }
 }
-

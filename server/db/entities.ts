@@ -20,4 +20,25 @@ import { Studio } from '../entities/Studio'
 import { StudioMember } from '../entities/StudioMember'
 import { User } from '../entities/User'
 
-export const entities = [User, Studio, StudioMember, AuthToken, OutboundMail, Kiln, KilnPriceList, Firing, FiringRequest, RequestEvent, Rating, SearchDocument, LedgerEntry, Payment, StripeEvent, RequestMessage, CheckIn, Photo, FiringLog, RequestResult]
+export const entities = [
+  User,
+  Studio,
+  StudioMember,
+  AuthToken,
+  OutboundMail,
+  Kiln,
+  KilnPriceList,
+  Firing,
+  FiringRequest,
+  RequestEvent,
+  Rating,
+  SearchDocument,
+  LedgerEntry,
+  Payment,
+  StripeEvent,
+  RequestMessage,
+  CheckIn,
+  Photo,
+  FiringLog,
+  RequestResult,
+]

@@ -9,4 +9,13 @@ import { DropOffToPickup1796152667537 } from './migrations/1796152667537-DropOff
 import { SearchFacetColumns1796153787338 } from './migrations/1796153787338-SearchFacetColumns'
 import { SearchDocumentsNarrowRows1796158092958 } from './migrations/1796158092958-SearchDocumentsNarrowRows'
 
-export const migrations: Function[] = [Foundation1796149373286, StudiosKilnsFirings1796150510924, FiringRequests1796150607023, SearchAndRatings1796151307684, PaymentsAndMessages1796151940233, DropOffToPickup1796152667537, SearchFacetColumns1796153787338, SearchDocumentsNarrowRows1796158092958]
+export const migrations: Function[] = [
+  Foundation1796149373286,
+  StudiosKilnsFirings1796150510924,
+  FiringRequests1796150607023,
+  SearchAndRatings1796151307684,
+  PaymentsAndMessages1796151940233,
+  DropOffToPickup1796152667537,
+  SearchFacetColumns1796153787338,
+  SearchDocumentsNarrowRows1796158092958,
+]

@@ -27,9 +27,7 @@ export async function ensureDemoUser(manager: EntityManager, person: DemoPerson,
   const users = manager.getRepository(User)
   const existing = await users.findOne({ where: { email: person.email } })
   if (existing) return existing
-  return users.save(
-    users.create({ ...person, passwordHash, emailVerifiedAt: new Date(), suspendedAt: null, unitSystem: 'imperial' }),
-  )
+  return users.save(users.create({ ...person, passwordHash, emailVerifiedAt: new Date(), suspendedAt: null, unitSystem: 'imperial' }))
 }
 
 export async function seedDemo(ctx: AppContext) {

@@ -1,4 +1,15 @@
-import { Check, Column, Index, CreateDateColumn, Entity, JoinColumn, ManyToOne, OneToOne, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm'
+import {
+  Check,
+  Column,
+  Index,
+  CreateDateColumn,
+  Entity,
+  JoinColumn,
+  ManyToOne,
+  OneToOne,
+  PrimaryGeneratedColumn,
+  UpdateDateColumn,
+} from 'typeorm'
 import type { Atmosphere, Cone, KilnKind } from '../../shared/firing/check'
 import type { KilnPriceList } from './KilnPriceList'
 import type { Studio } from './Studio'
@@ -7,12 +18,18 @@ import type { Studio } from './Studio'
 @Index('kilns_studio_idx', ['studioId'])
 @Check('kilns_kind_check', `"kind" IN ('electric', 'gas', 'wood', 'soda', 'salt', 'raku')`)
 @Check('kilns_atmospheres_check', `cardinality("atmospheres") >= 1 AND "atmospheres" <@ ARRAY['oxidation', 'reduction', 'neutral']::text[]`)
-@Check('kilns_cone_range_check', `cone_rank("min_cone") IS NOT NULL AND cone_rank("max_cone") IS NOT NULL AND cone_rank("min_cone") <= cone_rank("max_cone")`)
+@Check(
+  'kilns_cone_range_check',
+  `cone_rank("min_cone") IS NOT NULL AND cone_rank("max_cone") IS NOT NULL AND cone_rank("min_cone") <= cone_rank("max_cone")`,
+)
 @Check(
   'kilns_interior_check',
   `("interior_shape" = 'round' AND "diameter_mm" > 0 AND "width_mm" IS NULL AND "depth_mm" IS NULL) OR ("interior_shape" = 'box' AND "width_mm" > 0 AND "depth_mm" > 0 AND "diameter_mm" IS NULL)`,
 )
-@Check('kilns_sizes_check', `"height_mm" > 0 AND ("usable_height_mm" IS NULL OR ("usable_height_mm" > 0 AND "usable_height_mm" <= "height_mm")) AND "max_temp_c" > 0 AND "max_ramp_c_per_hour" > 0 AND "shelf_count" >= 0 AND ("shelf_width_mm" IS NULL OR "shelf_width_mm" > 0) AND ("shelf_depth_mm" IS NULL OR "shelf_depth_mm" > 0)`)
+@Check(
+  'kilns_sizes_check',
+  `"height_mm" > 0 AND ("usable_height_mm" IS NULL OR ("usable_height_mm" > 0 AND "usable_height_mm" <= "height_mm")) AND "max_temp_c" > 0 AND "max_ramp_c_per_hour" > 0 AND "shelf_count" >= 0 AND ("shelf_width_mm" IS NULL OR "shelf_width_mm" > 0) AND ("shelf_depth_mm" IS NULL OR "shelf_depth_mm" > 0)`,
+)
 export class Kiln {
   @PrimaryGeneratedColumn('uuid')
   id: string

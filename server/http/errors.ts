@@ -17,11 +17,9 @@ export class HttpError extends Error {
   }
 }
 
-export const badRequest = (message: string, fields?: FieldErrors, code = 'invalid-input') =>
-  new HttpError(400, code, message, fields)
+export const badRequest = (message: string, fields?: FieldErrors, code = 'invalid-input') => new HttpError(400, code, message, fields)
 export const unauthorized = (message = 'Sign in first.') => new HttpError(401, 'not-signed-in', message)
-export const forbidden = (message = 'You are not allowed to do that.', code = 'forbidden') =>
-  new HttpError(403, code, message)
+export const forbidden = (message = 'You are not allowed to do that.', code = 'forbidden') => new HttpError(403, code, message)
 export const notFound = (what = 'That') => new HttpError(404, 'not-found', `${what} was not found.`)
 export const conflict = (message: string, code = 'conflict', extra?: Record<string, unknown>) =>
   new HttpError(409, code, message, undefined, extra)

@@ -15,8 +15,12 @@ export interface JobOptions {
  * exists exactly when the change that caused it is committed.
  */
 export async function enqueueJob(manager: EntityManager, task: TaskName, payload: object, options: JobOptions = {}) {
-  await manager.query(
-    `SELECT graphile_worker.add_job($1, $2::json, queue_name => $3, run_at => $4, max_attempts => $5, job_key => $6)`,
-    [task, JSON.stringify(payload), options.queueName ?? null, options.runAt ?? null, options.maxAttempts ?? 12, options.jobKey ?? null],
-  )
+  await manager.query(`SELECT graphile_worker.add_job($1, $2::json, queue_name => $3, run_at => $4, max_attempts => $5, job_key => $6)`, [
+    task,
+    JSON.stringify(payload),
+    options.queueName ?? null,
+    options.runAt ?? null,
+    options.maxAttempts ?? 12,
+    options.jobKey ?? null,
+  ])
 }

@@ -26,7 +26,8 @@ export function taskList(ctx: AppContext): TaskList {
       const { requestId, purpose, amountCents } = payload as { requestId: string; purpose: 'deposit' | 'balance'; amountCents: number }
       // The request may have moved on (withdrawn, paid) before the job ran.
       const { state } = await ctx.db.getRepository(FiringRequest).findOneByOrFail({ id: requestId })
-      if ((purpose === 'deposit' && state === 'accepted') || (purpose === 'balance' && state === 'ready')) await openCheckout(ctx, requestId, purpose, amountCents)
+      if ((purpose === 'deposit' && state === 'accepted') || (purpose === 'balance' && state === 'ready'))
+        await openCheckout(ctx, requestId, purpose, amountCents)
     },
     [DEPOSIT_EXPIRY_TASK]: async (payload) => {
       const { requestId } = payload as { requestId: string }

@@ -39,20 +39,28 @@ export function adminRouter(ctx: AppContext) {
     res.json({ users: rows })
   })
 
-  router.post('/admin/users/:id/suspend', admin, requireUuidParams('id'), validateBody(z.object({ suspended: z.boolean() })), async (req, res) => {
-    const user = await ctx.db.getRepository(User).findOne({ where: { id: String(req.params.id) } })
-    if (!user) throw notFound('That account')
-    if (user.id === req.user!.id) throw badRequest('You cannot suspend your own account.', { suspended: 'Not your own account.' })
-    await ctx.db.transaction(async (manager) => {
-      await manager.update(User, user.id, { suspendedAt: req.body.suspended ? new Date() : null })
-      // A suspension takes effect at once: the account's sessions end.
-      if (req.body.suspended) await manager.query(`DELETE FROM session WHERE sess -> 'passport' ->> 'user' = $1`, [user.id])
-    })
-    res.json({ id: user.id, suspended: req.body.suspended })
-  })
+  router.post(
+    '/admin/users/:id/suspend',
+    admin,
+    requireUuidParams('id'),
+    validateBody(z.object({ suspended: z.boolean() })),
+    async (req, res) => {
+      const user = await ctx.db.getRepository(User).findOne({ where: { id: String(req.params.id) } })
+      if (!user) throw notFound('That account')
+      if (user.id === req.user!.id) throw badRequest('You cannot suspend your own account.', { suspended: 'Not your own account.' })
+      await ctx.db.transaction(async (manager) => {
+        await manager.update(User, user.id, { suspendedAt: req.body.suspended ? new Date() : null })
+        // A suspension takes effect at once: the account's sessions end.
+        if (req.body.suspended) await manager.query(`DELETE FROM session WHERE sess -> 'passport' ->> 'user' = $1`, [user.id])
+      })
+      res.json({ id: user.id, suspended: req.body.suspended })
+    },
+  )
 
   router.get('/admin/disputes', admin, async (_req, res) => {
-    const disputed = await ctx.db.getRepository(FiringRequest).find({ where: { state: 'disputed' }, order: { updatedAt: 'DESC' }, take: 100 })
+    const disputed = await ctx.db
+      .getRepository(FiringRequest)
+      .find({ where: { state: 'disputed' }, order: { updatedAt: 'DESC' }, take: 100 })
     res.json({ requests: await requestRows(ctx.db.manager, disputed) })
   })
 

@@ -44,7 +44,9 @@ export function kilnsRouter(ctx: AppContext) {
   })
 
   router.get('/kilns/:id/firings', reader, async (req, res) => {
-    const firings = await listKilnFirings(ctx.db.manager, String(req.params.id), { all: res.locals.studioRole !== null && req.query.all === 'true' })
+    const firings = await listKilnFirings(ctx.db.manager, String(req.params.id), {
+      all: res.locals.studioRole !== null && req.query.all === 'true',
+    })
     res.json({ firings: await firingsJson(ctx.db.manager, firings, res.locals.studioId) })
   })
 

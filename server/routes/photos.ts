@@ -8,7 +8,9 @@ import { badRequest, HttpError } from '../http/errors'
 import { requireUuidParams, validateBody } from '../http/validate'
 import { addPhotos, PHOTO_LIMITS, readPhoto, setPhotoPublic } from '../services/photos'
 
-const kindSchema = z.object({ kind: z.enum(['ware', 'check-in', 'result', 'refusal'], { error: 'Say what the photos show: ware, check-in, result or refusal.' }) })
+const kindSchema = z.object({
+  kind: z.enum(['ware', 'check-in', 'result', 'refusal'], { error: 'Say what the photos show: ware, check-in, result or refusal.' }),
+})
 
 // Files are held in memory only until they are checked and re-encoded; nothing the client names is
 // used as a path.
@@ -34,12 +36,19 @@ export function photosRouter(ctx: AppContext) {
   const router = Router()
   const id = requireUuidParams('id')
 
-  router.post('/requests/:id/photos', requireAuth, id, upload.array('photos', PHOTO_LIMITS.maxFiles), uploadErrors, async (req: Request, res: Response) => {
-    const parsed = kindSchema.safeParse(req.body)
-    if (!parsed.success) throw badRequest('Say what the photos show.', { kind: parsed.error.issues[0].message })
-    const files = (req.files as Express.Multer.File[] | undefined) ?? []
-    res.status(201).json({ photos: await addPhotos(ctx, req.user!, String(req.params.id), parsed.data.kind, files) })
-  })
+  router.post(
+    '/requests/:id/photos',
+    requireAuth,
+    id,
+    upload.array('photos', PHOTO_LIMITS.maxFiles),
+    uploadErrors,
+    async (req: Request, res: Response) => {
+      const parsed = kindSchema.safeParse(req.body)
+      if (!parsed.success) throw badRequest('Say what the photos show.', { kind: parsed.error.issues[0].message })
+      const files = (req.files as Express.Multer.File[] | undefined) ?? []
+      res.status(201).json({ photos: await addPhotos(ctx, req.user!, String(req.params.id), parsed.data.kind, files) })
+    },
+  )
 
   for (const [path, size] of [
     ['/photos/:id', 'full'],
@@ -47,7 +56,13 @@ export function photosRouter(ctx: AppContext) {
   ] as const) {
     router.get(path, async (req, res) => {
       const { bytes, isPublic } = await readPhoto(ctx, req.user, String(req.params.id), size)
-      res.set({ 'Content-Type': 'image/jpeg', 'Cache-Control': isPublic ? 'public, max-age=3600' : 'private, max-age=300', 'Content-Disposition': 'inline' }).send(bytes)
+      res
+        .set({
+          'Content-Type': 'image/jpeg',
+          'Cache-Control': isPublic ? 'public, max-age=3600' : 'private, max-age=300',
+          'Content-Disposition': 'inline',
+        })
+        .send(bytes)
     })
   }
 

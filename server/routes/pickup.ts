@@ -4,7 +4,17 @@ import { requireAuth } from '../auth/guards'
 import { requireStudioMember, studioOfFiring } from '../auth/studio-access'
 import type { AppContext } from '../context'
 import { requireUuidParams, validateBody } from '../http/validate'
-import { checkIn, confirmPrice, counterPayment, firingLogJson, markCollected, markReady, openBalance, postResults, putFiringLog } from '../services/pickup'
+import {
+  checkIn,
+  confirmPrice,
+  counterPayment,
+  firingLogJson,
+  markCollected,
+  markReady,
+  openBalance,
+  postResults,
+  putFiringLog,
+} from '../services/pickup'
 import { showRequest } from '../services/request-views'
 
 export function pickupRouter(ctx: AppContext) {

@@ -21,7 +21,17 @@ import { listMessages, postMessage } from '../services/messages'
 import { moneyOf, openCheckout } from '../services/payments'
 import { loadRequest, viewerOf } from '../services/request-context'
 import { requestRows, showRequest } from '../services/request-views'
-import { acceptRequest, answerMove, createDraft, declineRequest, disputeRequest, proposeMove, sendRequest, updateDraft, withdrawRequest } from '../services/requests'
+import {
+  acceptRequest,
+  answerMove,
+  createDraft,
+  declineRequest,
+  disputeRequest,
+  proposeMove,
+  sendRequest,
+  updateDraft,
+  withdrawRequest,
+} from '../services/requests'
 
 const listQuery = z.object({
   firingId: z.uuid().optional(),
@@ -47,10 +57,17 @@ export function requestsRouter(ctx: AppContext) {
     const user = req.user!
     const memberships = await ctx.db.getRepository(StudioMember).find({ where: { userId: user.id } })
     const studioIds = memberships.map((m) => m.studioId).filter((sid) => !q.studioId || sid === q.studioId)
-    const qb = ctx.db.getRepository(FiringRequest).createQueryBuilder('r').innerJoin('r.firing', 'f').innerJoin('f.kiln', 'k').orderBy('r.updatedAt', 'DESC').take(200)
+    const qb = ctx.db
+      .getRepository(FiringRequest)
+      .createQueryBuilder('r')
+      .innerJoin('r.firing', 'f')
+      .innerJoin('f.kiln', 'k')
+      .orderBy('r.updatedAt', 'DESC')
+      .take(200)
     const asPotter = q.as !== 'studio'
     const asStudio = q.as !== 'potter' && studioIds.length > 0
-    if (asPotter && asStudio) qb.where('(r.potter_id = :me OR (k.studio_id IN (:...studioIds) AND r.state <> :draft))', { me: user.id, studioIds, draft: 'draft' })
+    if (asPotter && asStudio)
+      qb.where('(r.potter_id = :me OR (k.studio_id IN (:...studioIds) AND r.state <> :draft))', { me: user.id, studioIds, draft: 'draft' })
     else if (asStudio) qb.where('k.studio_id IN (:...studioIds) AND r.state <> :draft', { studioIds, draft: 'draft' })
     else qb.where('r.potter_id = :me', { me: user.id })
     if (q.firingId) qb.andWhere('r.firing_id = :firingId', { firingId: q.firingId })
@@ -108,7 +125,8 @@ export function requestsRouter(ctx: AppContext) {
     const rc = await loadRequest(ctx.db.manager, String(req.params.id))
     const viewer = await viewerOf(ctx.db.manager, rc, req.user!)
     if (viewer.side === 'studio') throw conflict('The potter pays the deposit.', 'not-the-potter')
-    if (rc.request.state !== 'accepted' || !rc.request.depositDueAt) throw conflict('No deposit is due for this request.', 'nothing-owed', { state: rc.request.state })
+    if (rc.request.state !== 'accepted' || !rc.request.depositDueAt)
+      throw conflict('No deposit is due for this request.', 'nothing-owed', { state: rc.request.state })
     const { depositPaid } = await moneyOf(ctx.db.manager, rc.request.id)
     const payment = await openCheckout(ctx, rc.request.id, 'deposit', (rc.request.quote?.depositCents ?? 0) - depositPaid)
     res.json({ checkoutUrl: payment.checkoutUrl, expiresAt: payment.expiresAt.toISOString() })

@@ -10,7 +10,16 @@ import { studioCalendar } from '../services/calendar'
 import { inviteCrew, listCrew, removeCrewMember, revokeInvite } from '../services/crew'
 import { firingsJson, listStudioFirings } from '../services/firings'
 import { createKiln, examplePrices, getPriceList, kilnJson, listKilns } from '../services/kilns'
-import { createStudio, deleteStudio, getStudio, listMyStudios, listPublishedStudios, setVerified, studioJson, updateStudio } from '../services/studios'
+import {
+  createStudio,
+  deleteStudio,
+  getStudio,
+  listMyStudios,
+  listPublishedStudios,
+  setVerified,
+  studioJson,
+  updateStudio,
+} from '../services/studios'
 
 const firingRangeQuery = z.object({
   from: z.iso.datetime({ offset: true }).optional(),

@@ -29,19 +29,33 @@ export async function inviteCrew(ctx: AppContext, studioId: string, inviter: Use
       [studioId, email],
     )
     const token = await issueToken(manager, 'crew-invite', null, { studioId, email, invitedBy: inviter.id } satisfies InviteData)
-    await queueMail(manager, email, 'crew-invite', crewInviteMail(studio.name, inviter.displayName, `${ctx.config.publicUrl}/join-studio?token=${token}`))
+    await queueMail(
+      manager,
+      email,
+      'crew-invite',
+      crewInviteMail(studio.name, inviter.displayName, `${ctx.config.publicUrl}/join-studio?token=${token}`),
+    )
     return { email }
   })
 }
 
 export async function listCrew(ctx: AppContext, studioId: string) {
-  const members = await ctx.db.getRepository(StudioMember).find({ where: { studioId }, relations: { user: true }, order: { createdAt: 'ASC' } })
+  const members = await ctx.db
+    .getRepository(StudioMember)
+    .find({ where: { studioId }, relations: { user: true }, order: { createdAt: 'ASC' } })
   const invites = await ctx.db.getRepository(AuthToken).find({
     where: { purpose: 'crew-invite', usedAt: IsNull(), expiresAt: MoreThan(new Date()) },
     order: { createdAt: 'ASC' },
   })
   return {
-    members: members.map((m) => ({ id: m.id, userId: m.userId, displayName: m.user.displayName, email: m.user.email, role: m.role, since: m.createdAt.toISOString() })),
+    members: members.map((m) => ({
+      id: m.id,
+      userId: m.userId,
+      displayName: m.user.displayName,
+      email: m.user.email,
+      role: m.role,
+      since: m.createdAt.toISOString(),
+    })),
     invites: invites
       .filter((t) => (t.data as unknown as InviteData).studioId === studioId)
       .map((t) => ({ id: t.id, email: (t.data as unknown as InviteData).email, expiresAt: t.expiresAt.toISOString() })),
@@ -92,7 +106,8 @@ export async function acceptInvite(manager: EntityManager, user: Pick<User, 'id'
 export async function inviteForRegistration(ctx: AppContext, token: string, email: string) {
   return ctx.db.transaction(async (manager) => {
     const { data } = await liveInvite(manager, token)
-    if (data.email !== email) throw badRequest('Register with the address the invitation was sent to.', { email: `The invitation was sent to ${data.email}.` })
+    if (data.email !== email)
+      throw badRequest('Register with the address the invitation was sent to.', { email: `The invitation was sent to ${data.email}.` })
     return data
   })
 }

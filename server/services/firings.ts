@@ -67,7 +67,10 @@ const round1 = (n: number) => Math.round(n * 10) / 10
 
 /** Firings as JSON with their held space, for one query's worth of firings. */
 export async function firingsJson(manager: EntityManager, firings: Firing[], studioId: string): Promise<FiringJson[]> {
-  const held = await heldLitres(manager, firings.map((f) => f.id))
+  const held = await heldLitres(
+    manager,
+    firings.map((f) => f.id),
+  )
   return firings.map((f) => firingJson(f, studioId, held.get(f.id) ?? 0))
 }
 
@@ -92,7 +95,9 @@ export function firingProblems(kiln: KilnSpec, firing: { cone?: string; atmosphe
 }
 
 export async function getFiring(manager: EntityManager, id: string, lock = false): Promise<Firing> {
-  const firing = await manager.getRepository(Firing).findOne({ where: { id }, ...(lock ? { lock: { mode: 'pessimistic_write' as const } } : {}) })
+  const firing = await manager
+    .getRepository(Firing)
+    .findOne({ where: { id }, ...(lock ? { lock: { mode: 'pessimistic_write' as const } } : {}) })
   if (!firing) throw notFound('That firing')
   return firing
 }
@@ -107,7 +112,8 @@ export async function createFirings(ctx: AppContext, kilnId: string, body: Firin
     const studio = await manager.getRepository(Studio).findOneByOrFail({ id: kiln.studioId })
     const times = body.repeat?.times ?? 1
     const seriesId = times > 1 ? randomUUID() : null
-    const shift = (iso: string, i: number) => new Date(addWeeks(new TZDate(iso, studio.timezone), i * (body.repeat?.everyWeeks ?? 1)).getTime())
+    const shift = (iso: string, i: number) =>
+      new Date(addWeeks(new TZDate(iso, studio.timezone), i * (body.repeat?.everyWeeks ?? 1)).getTime())
     const firings = Array.from({ length: times }, (_, i) =>
       manager.getRepository(Firing).create({
         kilnId,
@@ -141,7 +147,9 @@ export async function updateFiring(ctx: AppContext, id: string, patch: FiringPat
     if (status && status !== firing.status) {
       if (status === 'cancelled') throw conflict('Cancel a firing with its cancel action, giving a reason.', 'use-cancel')
       if (!canMoveFiring(firing.status, status)) {
-        throw conflict(`A firing that is ${firing.status} cannot become ${status}.`, 'bad-status-change', { allowed: nextFiringStatuses(firing.status) })
+        throw conflict(`A firing that is ${firing.status} cannot become ${status}.`, 'bad-status-change', {
+          allowed: nextFiringStatuses(firing.status),
+        })
       }
       firing.status = status
       await onFiringStatus(ctx, manager, firing, status, actorId)
@@ -154,8 +162,10 @@ export async function updateFiring(ctx: AppContext, id: string, patch: FiringPat
         firingDate: fields.firingDate ? new Date(fields.firingDate) : firing.firingDate,
         readyBy: fields.readyBy ? new Date(fields.readyBy) : firing.readyBy,
       }
-      if (next.dropOffBy > next.firingDate) throw badRequest('Some fields need fixing.', { dropOffBy: 'Drop-off must close before the firing starts.' })
-      if (next.firingDate > next.readyBy) throw badRequest('Some fields need fixing.', { readyBy: 'Ware can be ready only after the firing.' })
+      if (next.dropOffBy > next.firingDate)
+        throw badRequest('Some fields need fixing.', { dropOffBy: 'Drop-off must close before the firing starts.' })
+      if (next.firingDate > next.readyBy)
+        throw badRequest('Some fields need fixing.', { readyBy: 'Ware can be ready only after the firing.' })
       if (fields.capacityL !== undefined) {
         const held = (await heldLitres(manager, [id])).get(id) ?? 0
         if (fields.capacityL < held) {
@@ -176,12 +186,19 @@ export async function updateFiring(ctx: AppContext, id: string, patch: FiringPat
 const LIVE_REQUEST_STATES = ['draft', 'sent', 'accepted', 'deposit_paid'] as const
 
 /** Cancels a firing and every live request in it, refunds what was paid in full and mails each potter. */
-export async function cancelFiring(ctx: AppContext, id: string, reason: string, actorId: string): Promise<{ firing: Firing; requestIds: string[] }> {
+export async function cancelFiring(
+  ctx: AppContext,
+  id: string,
+  reason: string,
+  actorId: string,
+): Promise<{ firing: Firing; requestIds: string[] }> {
   return ctx.db.transaction(async (manager) => {
     const firing = await getFiring(manager, id, true)
     if (firing.status === 'cancelled') throw conflict('This firing is already cancelled.', 'firing-cancelled')
     if (!canMoveFiring(firing.status, 'cancelled')) {
-      throw conflict('Ware is already in the kiln; this firing can no longer be cancelled.', 'bad-status-change', { allowed: nextFiringStatuses(firing.status) })
+      throw conflict('Ware is already in the kiln; this firing can no longer be cancelled.', 'bad-status-change', {
+        allowed: nextFiringStatuses(firing.status),
+      })
     }
     firing.status = 'cancelled'
     firing.cancelledReason = reason
@@ -190,9 +207,20 @@ export async function cancelFiring(ctx: AppContext, id: string, reason: string, 
     const kiln = await manager.getRepository(Kiln).findOneByOrFail({ id: firing.kilnId })
     const studio = await manager.getRepository(Studio).findOneByOrFail({ id: kiln.studioId })
     await enqueueStudioSync(manager, studio.id)
-    const requests = await manager.getRepository(FiringRequest).find({ where: { firingId: id, state: In([...LIVE_REQUEST_STATES]) }, lock: { mode: 'pessimistic_write' } })
+    const requests = await manager
+      .getRepository(FiringRequest)
+      .find({ where: { firingId: id, state: In([...LIVE_REQUEST_STATES]) }, lock: { mode: 'pessimistic_write' } })
     for (const request of requests) {
-      await manager.getRepository(RequestEvent).save({ requestId: request.id, actorId, fromState: request.state, toState: 'cancelled', reason: `Firing cancelled: ${reason}`, data: { by: 'studio' } })
+      await manager
+        .getRepository(RequestEvent)
+        .save({
+          requestId: request.id,
+          actorId,
+          fromState: request.state,
+          toState: 'cancelled',
+          reason: `Firing cancelled: ${reason}`,
+          data: { by: 'studio' },
+        })
       await manager.update(FiringRequest, request.id, { state: 'cancelled' })
       if (request.state === 'draft') continue
       const potter = await manager.getRepository(User).findOneByOrFail({ id: request.potterId })
@@ -202,14 +230,25 @@ export async function cancelFiring(ctx: AppContext, id: string, reason: string, 
         'firing-cancelled',
         firingCancelledMail(
           potter.displayName,
-          { studioName: studio.name, kilnName: kiln.name, cone: firing.cone, atmosphere: firing.atmosphere, kind: firing.kind, firingDate: firing.firingDate, timezone: studio.timezone },
+          {
+            studioName: studio.name,
+            kilnName: kiln.name,
+            cone: firing.cone,
+            atmosphere: firing.atmosphere,
+            kind: firing.kind,
+            firingDate: firing.firingDate,
+            timezone: studio.timezone,
+          },
           reason,
           `${ctx.config.publicUrl}/requests/${request.id}`,
         ),
       )
     }
     // Everything paid for those requests goes back in full.
-    await refundCancelledByFiring(manager, requests.map((r) => r.id))
+    await refundCancelledByFiring(
+      manager,
+      requests.map((r) => r.id),
+    )
     return { firing, requestIds: requests.map((r) => r.id) }
   })
 }

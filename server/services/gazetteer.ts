@@ -98,8 +98,23 @@ function provinceOfFsa(fsa: string): string | null {
   const letter = fsa[0]
   if (letter === 'X') return /^X0[ABC]/.test(fsa) ? 'NU' : 'NT'
   const byLetter: Record<string, string> = {
-    A: 'NL', B: 'NS', C: 'PE', E: 'NB', G: 'QC', H: 'QC', J: 'QC', K: 'ON', L: 'ON', M: 'ON', N: 'ON', P: 'ON',
-    R: 'MB', S: 'SK', T: 'AB', V: 'BC', Y: 'YT',
+    A: 'NL',
+    B: 'NS',
+    C: 'PE',
+    E: 'NB',
+    G: 'QC',
+    H: 'QC',
+    J: 'QC',
+    K: 'ON',
+    L: 'ON',
+    M: 'ON',
+    N: 'ON',
+    P: 'ON',
+    R: 'MB',
+    S: 'SK',
+    T: 'AB',
+    V: 'BC',
+    Y: 'YT',
   }
   return byLetter[letter] ?? null
 }
@@ -140,13 +155,34 @@ function displayName(raw: string): string {
   return raw
     .trim()
     .replace(/\s+/g, ' ')
-    .replace(/(?<=\p{L})-(\p{Ll}+)/gu, (_m, part: string) => '-' + (LOWER_PARTICLES.has(part) ? part : part[0].toUpperCase() + part.slice(1)))
+    .replace(
+      /(?<=\p{L})-(\p{Ll}+)/gu,
+      (_m, part: string) => '-' + (LOWER_PARTICLES.has(part) ? part : part[0].toUpperCase() + part.slice(1)),
+    )
     .replace(/\bMc(\p{Ll})/gu, (_m, letter: string) => 'Mc' + letter.toUpperCase())
 }
 
 const DISTRICT_QUALIFIERS = new Set([
-  'North', 'South', 'East', 'West', 'Central', 'Northeast', 'Northwest', 'Southeast', 'Southwest',
-  'Inner', 'Outer', 'Upper', 'Lower', 'Outskirts', 'Northern', 'Southern', 'Eastern', 'Western', 'And', '&',
+  'North',
+  'South',
+  'East',
+  'West',
+  'Central',
+  'Northeast',
+  'Northwest',
+  'Southeast',
+  'Southwest',
+  'Inner',
+  'Outer',
+  'Upper',
+  'Lower',
+  'Outskirts',
+  'Northern',
+  'Southern',
+  'Eastern',
+  'Western',
+  'And',
+  '&',
 ])
 
 /**
@@ -154,7 +190,10 @@ const DISTRICT_QUALIFIERS = new Set([
  * "Downtown Toronto (Rosedale)"); the town is what is left without the neighbourhood and the compass.
  */
 function canadianTown(raw: string): string {
-  const name = raw.split('(')[0].trim().replace(/^Downtown /, '')
+  const name = raw
+    .split('(')[0]
+    .trim()
+    .replace(/^Downtown /, '')
   const words = name.split(/\s+/)
   let end = words.length
   while (end > 1 && DISTRICT_QUALIFIERS.has(words[end - 1])) end--
@@ -198,7 +237,14 @@ function gazetteer(): Index {
     if (MILITARY_REGIONS.has(record.state) || !hasPosition(record)) continue
     // A few rows have the longitude's sign lost (10200 lands in Asia); the states lie west of Greenwich.
     if (record.longitude! > 0 && !EASTERN_HEMISPHERE_REGIONS.has(record.state)) continue
-    add({ code: record.zip, lat: record.latitude!, lng: record.longitude!, city: displayName(record.city), region: record.state, country: 'US' })
+    add({
+      code: record.zip,
+      lat: record.latitude!,
+      lng: record.longitude!,
+      city: displayName(record.city),
+      region: record.state,
+      country: 'US',
+    })
   }
   for (const record of Object.values(canada)) {
     // Some Canadian rows are shifted by a column (no latitude); the FSA's letter gives the province.
@@ -255,9 +301,7 @@ function townCentre(positions: [number, number][]): [number, number] {
   const lat0 = median(positions.map((p) => p[0]))
   const lng0 = median(positions.map((p) => p[1]))
   const kmPerDegree = 111.2
-  const near = positions.filter(
-    ([lat, lng]) => Math.hypot(lat - lat0, (lng - lng0) * Math.cos((lat0 * Math.PI) / 180)) * kmPerDegree <= 50,
-  )
+  const near = positions.filter(([lat, lng]) => Math.hypot(lat - lat0, (lng - lng0) * Math.cos((lat0 * Math.PI) / 180)) * kmPerDegree <= 50)
   const kept = near.length ? near : positions
   const mean = (values: number[]) => values.reduce((a, b) => a + b, 0) / values.length
   return [round(mean(kept.map((p) => p[0]))), round(mean(kept.map((p) => p[1])))]
@@ -372,7 +416,10 @@ function townInWords(idx: Index, words: string[]): Town | null {
 function townMatch(idx: Index, text: string): Town | null {
   // Postal codes that did not resolve are noise for the town part of an address.
   const withoutCodes = text.replace(US_ZIP_IN_TEXT, ' ').replace(CA_POSTAL_IN_TEXT, ' ').replace(CA_FSA_AT_END, ' ')
-  const segments = withoutCodes.split(',').map((s) => wordsOf(s)).filter((w) => w.length)
+  const segments = withoutCodes
+    .split(',')
+    .map((s) => wordsOf(s))
+    .filter((w) => w.length)
   while (segments.length > 1 && COUNTRY_NAMES.has(segments[segments.length - 1].join(' '))) segments.pop()
   if (!segments.length) return null
   if (segments.length >= 2) {

@@ -79,7 +79,9 @@ export async function getKiln(manager: EntityManager, id: string): Promise<Kiln>
 
 export async function createKiln(ctx: AppContext, studioId: string, body: KilnBody): Promise<Kiln> {
   return ctx.db.transaction(async (manager) => {
-    const kiln = await manager.getRepository(Kiln).save(manager.getRepository(Kiln).create({ ...kilnColumns(body), studioId, retiredAt: null }))
+    const kiln = await manager
+      .getRepository(Kiln)
+      .save(manager.getRepository(Kiln).create({ ...kilnColumns(body), studioId, retiredAt: null }))
     await enqueueStudioSync(manager, studioId)
     return kiln
   })

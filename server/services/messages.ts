@@ -15,8 +15,17 @@ export async function listMessages(ctx: AppContext, user: User, requestId: strin
   const rc = await loadRequest(ctx.db.manager, requestId)
   await viewerOf(ctx.db.manager, rc, user)
   const messages = await ctx.db.getRepository(RequestMessage).find({ where: { requestId }, order: { createdAt: 'ASC' } })
-  const authors = new Map((await ctx.db.getRepository(User).findByIds([...new Set(messages.map((m) => m.authorId))])).map((u) => [u.id, u.displayName]))
-  return messages.map((m) => ({ id: m.id, side: m.side, author: authors.get(m.authorId) ?? 'Someone', body: m.body, at: m.createdAt.toISOString(), mine: m.authorId === user.id }))
+  const authors = new Map(
+    (await ctx.db.getRepository(User).findByIds([...new Set(messages.map((m) => m.authorId))])).map((u) => [u.id, u.displayName]),
+  )
+  return messages.map((m) => ({
+    id: m.id,
+    side: m.side,
+    author: authors.get(m.authorId) ?? 'Someone',
+    body: m.body,
+    at: m.createdAt.toISOString(),
+    mine: m.authorId === user.id,
+  }))
 }
 
 /**
@@ -30,7 +39,12 @@ export async function postMessage(ctx: AppContext, user: User, requestId: string
     const side = viewer.side === 'potter' ? 'potter' : 'studio'
     const message = await manager.getRepository(RequestMessage).save({ requestId, authorId: user.id, side, body, notifiedAt: null })
     const to = side === 'potter' ? 'studio' : 'potter'
-    await enqueueJob(manager, MESSAGE_DIGEST_TASK, { requestId, to }, { jobKey: `messages:${requestId}:${to}`, runAt: new Date(Date.now() + DIGEST_DELAY_MS) })
+    await enqueueJob(
+      manager,
+      MESSAGE_DIGEST_TASK,
+      { requestId, to },
+      { jobKey: `messages:${requestId}:${to}`, runAt: new Date(Date.now() + DIGEST_DELAY_MS) },
+    )
     return { id: message.id, side, body: message.body, at: message.createdAt.toISOString() }
   })
 }
@@ -46,10 +60,18 @@ export async function sendMessageDigest(ctx: AppContext, requestId: string, to: 
     })
     if (!pending.length) return
     const rc = await loadRequest(manager, requestId)
-    const authors = new Map((await manager.getRepository(User).findByIds([...new Set(pending.map((m) => m.authorId))])).map((u) => [u.id, u.displayName]))
-    const content = newMessagesMail(factsOf(rc, ctx.config.publicUrl), pending.map((m) => ({ author: authors.get(m.authorId) ?? 'Someone', body: m.body })))
+    const authors = new Map(
+      (await manager.getRepository(User).findByIds([...new Set(pending.map((m) => m.authorId))])).map((u) => [u.id, u.displayName]),
+    )
+    const content = newMessagesMail(
+      factsOf(rc, ctx.config.publicUrl),
+      pending.map((m) => ({ author: authors.get(m.authorId) ?? 'Someone', body: m.body })),
+    )
     const recipients = to === 'potter' ? [rc.potter] : await studioPeople(manager, rc.studio.id)
     for (const person of recipients) await queueMail(manager, person.email, 'new-messages', content)
-    await manager.getRepository(RequestMessage).update(pending.map((m) => m.id), { notifiedAt: new Date() })
+    await manager.getRepository(RequestMessage).update(
+      pending.map((m) => m.id),
+      { notifiedAt: new Date() },
+    )
   })
 }

@@ -34,7 +34,12 @@ export async function moneyOf(manager: EntityManager, requestId: string) {
  * new Checkout Session. The idempotency key counts earlier sessions, so a retry of the same attempt
  * (by the job or the route) gets the same session back from Stripe.
  */
-export async function openCheckout(ctx: AppContext, requestId: string, purpose: 'deposit' | 'balance', amountCents: number): Promise<Payment> {
+export async function openCheckout(
+  ctx: AppContext,
+  requestId: string,
+  purpose: 'deposit' | 'balance',
+  amountCents: number,
+): Promise<Payment> {
   const rc = await loadRequest(ctx.db.manager, requestId)
   const payments = ctx.db.getRepository(Payment)
   const open = await payments.findOne({ where: { requestId, purpose, status: 'open' }, order: { createdAt: 'DESC' } })
@@ -106,7 +111,9 @@ export async function enqueueRefund(manager: EntityManager, requestId: string, a
 /** Makes a queued refund: splits it over the request's paid payments, newest first. */
 export async function makeRefund(ctx: AppContext, payload: { requestId: string; amountCents: number; reason: string; key: string }) {
   const stripe = stripeFor(ctx.config)
-  const paid = await ctx.db.getRepository(Payment).find({ where: { requestId: payload.requestId, status: 'paid' }, order: { createdAt: 'DESC' } })
+  const paid = await ctx.db
+    .getRepository(Payment)
+    .find({ where: { requestId: payload.requestId, status: 'paid' }, order: { createdAt: 'DESC' } })
   const booked = await ctx.db.getRepository(LedgerEntry).find({ where: { requestId: payload.requestId, kind: 'refund' } })
   let left = payload.amountCents
   for (const payment of paid) {
@@ -175,7 +182,9 @@ export async function handleStripeEvent(ctx: AppContext, event: Stripe.Event): P
       case 'checkout.session.completed': {
         const session = event.data.object
         if (session.payment_status !== 'paid') break
-        const payment = await manager.getRepository(Payment).findOne({ where: { stripeSessionId: session.id }, lock: { mode: 'pessimistic_write' } })
+        const payment = await manager
+          .getRepository(Payment)
+          .findOne({ where: { stripeSessionId: session.id }, lock: { mode: 'pessimistic_write' } })
         const { requestId, purpose } = metadataOf(session)
         if (!payment || !requestId || !purpose || payment.status === 'paid') break
         const paymentIntentId = typeof session.payment_intent === 'string' ? session.payment_intent : (session.payment_intent?.id ?? null)
@@ -208,7 +217,10 @@ export async function handleStripeEvent(ctx: AppContext, event: Stripe.Event): P
         if (!requestId || !purpose) break
         await manager
           .getRepository(Payment)
-          .update({ requestId, purpose, status: 'open' }, { failureMessage: intent.last_payment_error?.message ?? 'The card was declined.' })
+          .update(
+            { requestId, purpose, status: 'open' },
+            { failureMessage: intent.last_payment_error?.message ?? 'The card was declined.' },
+          )
         break
       }
       case 'payment_intent.succeeded':
@@ -276,4 +288,3 @@ export async function expireOpenCheckouts(ctx: AppContext, requestId: string) {
     await ctx.db.getRepository(Payment).update({ id: payment.id, status: 'open' }, { status: 'expired' })
   }
 }
-

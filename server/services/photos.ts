@@ -48,7 +48,11 @@ function mayUpload(side: 'potter' | 'studio' | 'admin', kind: PhotoKind) {
 async function storeImage(ctx: AppContext, file: UploadedFile) {
   const type = await fileTypeFromBuffer(file.buffer)
   if (!type || !ACCEPTED.has(type.mime)) {
-    throw badRequest(`“${path.basename(file.originalname).slice(0, 80)}” is not a photo we can take (JPEG, PNG, WebP, GIF, AVIF or TIFF).`, { photos: 'Not an image.' }, 'not-an-image')
+    throw badRequest(
+      `“${path.basename(file.originalname).slice(0, 80)}” is not a photo we can take (JPEG, PNG, WebP, GIF, AVIF or TIFF).`,
+      { photos: 'Not an image.' },
+      'not-an-image',
+    )
   }
   let image: Sharp
   let meta: Metadata
@@ -57,7 +61,11 @@ async function storeImage(ctx: AppContext, file: UploadedFile) {
     meta = await image.metadata()
   } catch (error) {
     const tooBig = /pixel limit/i.test(String((error as Error).message))
-    throw badRequest(tooBig ? 'That image is too large in pixels. Send one under 40 megapixels.' : 'That image is damaged and cannot be read.', { photos: tooBig ? 'Too many pixels.' : 'Unreadable image.' }, tooBig ? 'image-too-large' : 'bad-image')
+    throw badRequest(
+      tooBig ? 'That image is too large in pixels. Send one under 40 megapixels.' : 'That image is damaged and cannot be read.',
+      { photos: tooBig ? 'Too many pixels.' : 'Unreadable image.' },
+      tooBig ? 'image-too-large' : 'bad-image',
+    )
   }
   if ((meta.width ?? 0) * (meta.height ?? 0) > PHOTO_LIMITS.maxPixels) {
     throw badRequest('That image is too large in pixels. Send one under 40 megapixels.', { photos: 'Too many pixels.' }, 'image-too-large')
@@ -65,24 +73,45 @@ async function storeImage(ctx: AppContext, file: UploadedFile) {
   // rotate() applies the EXIF orientation before the metadata (EXIF, GPS, XMP, ICC) is dropped:
   // sharp writes none of it unless asked to keep it.
   const base = image.rotate()
-  const full = await base.clone().resize({ width: PHOTO_LIMITS.maxSide, height: PHOTO_LIMITS.maxSide, fit: 'inside', withoutEnlargement: true }).jpeg({ quality: 85, mozjpeg: true }).toBuffer({ resolveWithObject: true })
-  const thumb = await base.clone().resize({ width: PHOTO_LIMITS.thumbSide, height: PHOTO_LIMITS.thumbSide, fit: 'inside', withoutEnlargement: true }).jpeg({ quality: 78 }).toBuffer()
+  const full = await base
+    .clone()
+    .resize({ width: PHOTO_LIMITS.maxSide, height: PHOTO_LIMITS.maxSide, fit: 'inside', withoutEnlargement: true })
+    .jpeg({ quality: 85, mozjpeg: true })
+    .toBuffer({ resolveWithObject: true })
+  const thumb = await base
+    .clone()
+    .resize({ width: PHOTO_LIMITS.thumbSide, height: PHOTO_LIMITS.thumbSide, fit: 'inside', withoutEnlargement: true })
+    .jpeg({ quality: 78 })
+    .toBuffer()
   const name = randomBytes(16).toString('hex')
   await mkdir(photoDir(ctx), { recursive: true })
   await writeFile(path.join(photoDir(ctx), `${name}.jpg`), full.data, { flag: 'wx' })
   await writeFile(path.join(photoDir(ctx), `${name}.thumb.jpg`), thumb, { flag: 'wx' })
-  return { storageKey: `${name}.jpg`, thumbKey: `${name}.thumb.jpg`, width: full.info.width, height: full.info.height, bytes: full.data.length }
+  return {
+    storageKey: `${name}.jpg`,
+    thumbKey: `${name}.thumb.jpg`,
+    width: full.info.width,
+    height: full.info.height,
+    bytes: full.data.length,
+  }
 }
 
 export async function addPhotos(ctx: AppContext, user: User, requestId: string, kind: PhotoKind, files: UploadedFile[]) {
   if (!files.length) throw badRequest('Choose at least one photo.', { photos: 'No file was sent.' }, 'no-files')
   const rc = await loadRequest(ctx.db.manager, requestId)
   const viewer = await viewerOf(ctx.db.manager, rc, user)
-  if (!mayUpload(viewer.side, kind)) throw forbidden(viewer.side === 'potter' ? 'Potters add photos of their ware; the studio posts check-in and result photos.' : 'The studio posts check-in and result photos; the potter adds photos of the ware.')
+  if (!mayUpload(viewer.side, kind))
+    throw forbidden(
+      viewer.side === 'potter'
+        ? 'Potters add photos of their ware; the studio posts check-in and result photos.'
+        : 'The studio posts check-in and result photos; the potter adds photos of the ware.',
+    )
   // Every file is checked before any is kept, so a bad one in a batch stores nothing.
   const stored = []
   for (const file of files) stored.push(await storeImage(ctx, file))
-  const saved = await ctx.db.getRepository(Photo).save(stored.map((s) => ({ ...s, requestId, kind, uploadedBy: user.id, publicOptIn: false })))
+  const saved = await ctx.db
+    .getRepository(Photo)
+    .save(stored.map((s) => ({ ...s, requestId, kind, uploadedBy: user.id, publicOptIn: false })))
   return saved.map(photoJson)
 }
 
@@ -130,7 +159,8 @@ export async function setPhotoPublic(ctx: AppContext, user: User, photoId: strin
   if (!photo) throw notFound('That photo')
   const rc = await loadRequest(ctx.db.manager, photo.requestId)
   const viewer = await viewerOf(ctx.db.manager, rc, user)
-  if (viewer.side !== 'potter' && viewer.side !== 'admin') throw forbidden('Only the potter decides whether their results are shown in public.')
+  if (viewer.side !== 'potter' && viewer.side !== 'admin')
+    throw forbidden('Only the potter decides whether their results are shown in public.')
   if (photo.kind !== 'result') throw badRequest('Only result photos can be shown in public.', { public: 'Not a result photo.' })
   await ctx.db.getRepository(Photo).update(photo.id, { publicOptIn: isPublic })
   return photoJson({ ...photo, publicOptIn: isPublic })

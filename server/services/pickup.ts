@@ -59,21 +59,45 @@ export async function checkIn(
   ctx: AppContext,
   actor: User,
   id: string,
-  body: { pieces: { pieceIndex: number; received: number; measured?: { heightMm: number; widthMm: number; depthMm: number } }[]; conditionNotes?: string; refuse?: { reason: string } },
+  body: {
+    pieces: { pieceIndex: number; received: number; measured?: { heightMm: number; widthMm: number; depthMm: number } }[]
+    conditionNotes?: string
+    refuse?: { reason: string }
+  },
 ) {
   return ctx.db.transaction(async (manager) => {
     const rc = await loadRequest(manager, id, { lock: true })
     await studioSide(manager, rc, actor)
     if (rc.request.state === 'accepted') {
-      throw conflict('The deposit is not paid yet. Record it at the counter first, or ask the potter to pay it on the request.', 'deposit-unpaid', { state: 'accepted' })
+      throw conflict(
+        'The deposit is not paid yet. Record it at the counter first, or ask the potter to pay it on the request.',
+        'deposit-unpaid',
+        { state: 'accepted' },
+      )
     }
-    if (rc.request.state !== 'deposit_paid') throw stateConflict(rc.request, `This request is ${rc.request.state.replace('_', ' ')}; only booked ware is checked in.`)
+    if (rc.request.state !== 'deposit_paid')
+      throw stateConflict(rc.request, `This request is ${rc.request.state.replace('_', ' ')}; only booked ware is checked in.`)
     const facts = factsOf(rc, ctx.config.publicUrl)
     if (body.refuse) {
       const { net } = await moneyOf(manager, id)
       const refund = refundUnderTerms(net, rc.firing.firingDate, rc.studio.policies.cancellation).refundCents
-      await manager.getRepository(CheckIn).save({ requestId: id, receivedPieces: [], conditionNotes: body.conditionNotes ?? '', refused: true, refusedReason: body.refuse.reason, quoteBefore: rc.request.quote, quoteAfter: null, priceConfirmedAt: null, checkedInBy: actor.id })
-      await moveRequest(manager, rc.request, 'cancelled', actor.id, `Refused at drop-off: ${body.refuse.reason}`, { by: 'refused-at-door', refundCents: refund })
+      await manager
+        .getRepository(CheckIn)
+        .save({
+          requestId: id,
+          receivedPieces: [],
+          conditionNotes: body.conditionNotes ?? '',
+          refused: true,
+          refusedReason: body.refuse.reason,
+          quoteBefore: rc.request.quote,
+          quoteAfter: null,
+          priceConfirmedAt: null,
+          checkedInBy: actor.id,
+        })
+      await moveRequest(manager, rc.request, 'cancelled', actor.id, `Refused at drop-off: ${body.refuse.reason}`, {
+        by: 'refused-at-door',
+        refundCents: refund,
+      })
       await enqueueRefund(manager, id, refund, 'Ware refused at drop-off; refunded under the studio’s terms')
       await queueMail(manager, rc.potter.email, 'ware-refused', refusedMail(facts, body.refuse.reason, refund))
       await enqueueStudioSync(manager, rc.studio.id)
@@ -83,7 +107,12 @@ export async function checkIn(
     const declared = rc.request.pieces
     const received: ReceivedPiece[] = declared.map((piece, i) => {
       const entry = body.pieces.find((p) => p.pieceIndex === i)
-      return { pieceIndex: i, declared: piece.quantity, received: entry?.received ?? 0, ...(entry?.measured ? { measured: entry.measured } : {}) }
+      return {
+        pieceIndex: i,
+        declared: piece.quantity,
+        received: entry?.received ?? 0,
+        ...(entry?.measured ? { measured: entry.measured } : {}),
+      }
     })
     const actual = declared
       .map((piece, i) => ({ ...piece, quantity: received[i].received, ...(received[i].measured ?? {}) }))
@@ -104,24 +133,43 @@ export async function checkIn(
       priceConfirmedAt: needsConfirmation ? null : new Date(),
       checkedInBy: actor.id,
     })
-    await moveRequest(manager, rc.request, 'received', actor.id, body.conditionNotes ? `Checked in. Condition: ${body.conditionNotes}` : 'Checked in', {
-      received: received.map((r) => r.received),
-      priceBeforeCents: before,
-      priceAfterCents: after,
-    })
+    await moveRequest(
+      manager,
+      rc.request,
+      'received',
+      actor.id,
+      body.conditionNotes ? `Checked in. Condition: ${body.conditionNotes}` : 'Checked in',
+      {
+        received: received.map((r) => r.received),
+        priceBeforeCents: before,
+        priceAfterCents: after,
+      },
+    )
     await queueMail(
       manager,
       rc.potter.email,
       'drop-off',
       dropOffMail(facts, {
-        rows: received.map((r, i) => ({ label: declared[i].label || `Piece ${i + 1}`, declared: r.declared, received: r.received, ...(r.measured ? { measured: describeSize(r.measured) } : {}) })),
+        rows: received.map((r, i) => ({
+          label: declared[i].label || `Piece ${i + 1}`,
+          declared: r.declared,
+          received: r.received,
+          ...(r.measured ? { measured: describeSize(r.measured) } : {}),
+        })),
         conditionNotes: body.conditionNotes ?? '',
         quoteBeforeCents: before,
         quoteAfterCents: after,
         needsConfirmation,
       }),
     )
-    return { refused: false as const, findings: check.findings, verdict: check.verdict, priceBeforeCents: before, priceAfterCents: after, needsConfirmation }
+    return {
+      refused: false as const,
+      findings: check.findings,
+      verdict: check.verdict,
+      priceBeforeCents: before,
+      priceAfterCents: after,
+      needsConfirmation,
+    }
   })
 }
 
@@ -134,7 +182,16 @@ export async function confirmPrice(ctx: AppContext, potter: User, id: string) {
     const checkInRow = await manager.getRepository(CheckIn).findOne({ where: { requestId: id } })
     if (!checkInRow || checkInRow.priceConfirmedAt) throw conflict('No changed price waits for your confirmation.', 'nothing-to-confirm')
     await manager.update(CheckIn, id, { priceConfirmedAt: new Date() })
-    await manager.getRepository(RequestEvent).save({ requestId: id, actorId: potter.id, fromState: rc.request.state, toState: rc.request.state, reason: 'New price confirmed', data: { totalCents: checkInRow.quoteAfter?.totalCents } })
+    await manager
+      .getRepository(RequestEvent)
+      .save({
+        requestId: id,
+        actorId: potter.id,
+        fromState: rc.request.state,
+        toState: rc.request.state,
+        reason: 'New price confirmed',
+        data: { totalCents: checkInRow.quoteAfter?.totalCents },
+      })
   })
 }
 
@@ -165,7 +222,9 @@ export async function putFiringLog(ctx: AppContext, actorId: string, firingId: s
   for (let i = 1; i < times.length; i++) {
     const earlier = times.slice(0, i).filter(Boolean).at(-1)
     if (earlier && times[i] && times[i]! < earlier) {
-      throw new HttpError(400, 'invalid-input', 'The times must run in order: loaded, started, off, opened.', { [['loadedAt', 'startedAt', 'offAt', 'openedAt'][i]]: 'Earlier than the step before it.' })
+      throw new HttpError(400, 'invalid-input', 'The times must run in order: loaded, started, off, opened.', {
+        [['loadedAt', 'startedAt', 'offAt', 'openedAt'][i]]: 'Earlier than the step before it.',
+      })
     }
   }
   await ctx.db.getRepository(FiringLog).save({
@@ -197,7 +256,9 @@ const STAGE_NOTE: Partial<Record<FiringStatus, string>> = {
  */
 export async function onFiringStatus(ctx: AppContext, manager: EntityManager, firing: Firing, to: FiringStatus, actorId: string) {
   if (!['loading', 'firing', 'cooling', 'unloaded'].includes(to)) return
-  const requests = await manager.getRepository(FiringRequest).find({ where: { firingId: firing.id, state: In(['accepted', 'deposit_paid', 'received']) }, lock: { mode: 'pessimistic_write' } })
+  const requests = await manager
+    .getRepository(FiringRequest)
+    .find({ where: { firingId: firing.id, state: In(['accepted', 'deposit_paid', 'received']) }, lock: { mode: 'pessimistic_write' } })
   for (const request of requests) {
     const rc = await loadRequest(manager, request.id)
     const facts = factsOf(rc, ctx.config.publicUrl)
@@ -205,7 +266,10 @@ export async function onFiringStatus(ctx: AppContext, manager: EntityManager, fi
       if (to !== 'loading') continue
       const { net } = await moneyOf(manager, request.id)
       const refund = refundUnderTerms(net, firing.firingDate, rc.studio.policies.cancellation).refundCents
-      await moveRequest(manager, request, 'cancelled', null, 'The ware was not dropped off before loading', { by: 'no-show', refundCents: refund })
+      await moveRequest(manager, request, 'cancelled', null, 'The ware was not dropped off before loading', {
+        by: 'no-show',
+        refundCents: refund,
+      })
       await enqueueRefund(manager, request.id, refund, 'No-show: refunded under the studio’s terms')
       await queueMail(manager, rc.potter.email, 'no-show', noShowMail(facts, refund))
       continue
@@ -214,21 +278,55 @@ export async function onFiringStatus(ctx: AppContext, manager: EntityManager, fi
       await moveRequest(manager, request, 'fired', actorId, 'The kiln was unloaded')
       await queueMail(manager, rc.potter.email, 'firing-progress', firingProgressMail(facts, 'unloaded'))
     } else {
-      await manager.getRepository(RequestEvent).save({ requestId: request.id, actorId, fromState: 'received', toState: 'received', reason: STAGE_NOTE[to]!, data: { firingStatus: to } })
+      await manager
+        .getRepository(RequestEvent)
+        .save({
+          requestId: request.id,
+          actorId,
+          fromState: 'received',
+          toState: 'received',
+          reason: STAGE_NOTE[to]!,
+          data: { firingStatus: to },
+        })
       if (to === 'firing') await queueMail(manager, rc.potter.email, 'firing-progress', firingProgressMail(facts, 'firing'))
     }
   }
 }
 
-export async function postResults(ctx: AppContext, actor: User, id: string, body: { outcomes: { pieceIndex: number; outcome: PieceOutcome; notes?: string }[]; notes?: string }) {
+export async function postResults(
+  ctx: AppContext,
+  actor: User,
+  id: string,
+  body: { outcomes: { pieceIndex: number; outcome: PieceOutcome; notes?: string }[]; notes?: string },
+) {
   return ctx.db.transaction(async (manager) => {
     const rc = await loadRequest(manager, id, { lock: true })
     await studioSide(manager, rc, actor)
-    if (!['fired', 'ready'].includes(rc.request.state)) throw conflict('Results are posted once the kiln is unloaded.', 'not-fired', { state: rc.request.state })
+    if (!['fired', 'ready'].includes(rc.request.state))
+      throw conflict('Results are posted once the kiln is unloaded.', 'not-fired', { state: rc.request.state })
     const bad = body.outcomes.find((o) => o.pieceIndex >= rc.request.pieces.length)
-    if (bad) throw new HttpError(400, 'invalid-input', 'A result names a piece the request does not have.', { outcomes: `No piece ${bad.pieceIndex + 1}.` })
-    await manager.getRepository(RequestResult).save({ requestId: id, outcomes: body.outcomes.map((o) => ({ ...o, notes: o.notes ?? '' })), notes: body.notes ?? '', postedBy: actor.id })
-    await manager.getRepository(RequestEvent).save({ requestId: id, actorId: actor.id, fromState: rc.request.state, toState: rc.request.state, reason: 'Results posted', data: {} })
+    if (bad)
+      throw new HttpError(400, 'invalid-input', 'A result names a piece the request does not have.', {
+        outcomes: `No piece ${bad.pieceIndex + 1}.`,
+      })
+    await manager
+      .getRepository(RequestResult)
+      .save({
+        requestId: id,
+        outcomes: body.outcomes.map((o) => ({ ...o, notes: o.notes ?? '' })),
+        notes: body.notes ?? '',
+        postedBy: actor.id,
+      })
+    await manager
+      .getRepository(RequestEvent)
+      .save({
+        requestId: id,
+        actorId: actor.id,
+        fromState: rc.request.state,
+        toState: rc.request.state,
+        reason: 'Results posted',
+        data: {},
+      })
   })
 }
 
@@ -240,7 +338,12 @@ export async function markReady(ctx: AppContext, actor: User, id: string) {
       throw conflict('Post the results first: the potter hears about them with the ready mail.', 'results-missing')
     }
     await moveRequest(manager, rc.request, 'ready', actor.id, 'Ready for pickup')
-    await queueMail(manager, rc.potter.email, 'ready', readyMail(factsOf(rc, ctx.config.publicUrl), rc.studio.dropOffHours, await owedCents(manager, rc)))
+    await queueMail(
+      manager,
+      rc.potter.email,
+      'ready',
+      readyMail(factsOf(rc, ctx.config.publicUrl), rc.studio.dropOffHours, await owedCents(manager, rc)),
+    )
   })
 }
 
@@ -261,10 +364,16 @@ export async function counterPayment(ctx: AppContext, actor: User, id: string, b
     const rc = await loadRequest(manager, id, { lock: true })
     await studioSide(manager, rc, actor)
     const { depositPaid } = await moneyOf(manager, id)
-    const owed = rc.request.state === 'accepted' ? Math.max(0, (rc.request.quote?.depositCents ?? 0) - depositPaid) : rc.request.state === 'ready' ? await owedCents(manager, rc) : 0
+    const owed =
+      rc.request.state === 'accepted'
+        ? Math.max(0, (rc.request.quote?.depositCents ?? 0) - depositPaid)
+        : rc.request.state === 'ready'
+          ? await owedCents(manager, rc)
+          : 0
     if (owed <= 0) throw conflict('Nothing is owed at this point.', 'nothing-owed', { state: rc.request.state })
     const amount = body.amountCents ?? owed
-    if (amount > owed) throw new HttpError(400, 'invalid-input', 'That is more than is owed.', { amountCents: `At most ${owed} cents are owed.` })
+    if (amount > owed)
+      throw new HttpError(400, 'invalid-input', 'That is more than is owed.', { amountCents: `At most ${owed} cents are owed.` })
     await manager.getRepository(LedgerEntry).save({
       requestId: id,
       direction: 'in',
@@ -276,14 +385,24 @@ export async function counterPayment(ctx: AppContext, actor: User, id: string, b
       stripeRefundId: null,
       note: body.note ?? (rc.request.state === 'accepted' ? 'Deposit paid at the counter' : 'Balance paid at the counter'),
     })
-    if (rc.request.state === 'accepted' && amount >= owed) await moveRequest(manager, rc.request, 'deposit_paid', actor.id, 'Deposit paid at the counter')
+    if (rc.request.state === 'accepted' && amount >= owed)
+      await moveRequest(manager, rc.request, 'deposit_paid', actor.id, 'Deposit paid at the counter')
     return { owedCents: owed - amount }
   })
 }
 
 /** A paid balance checkout, from the webhook: booked by the payments service; nothing else moves. */
 export async function settleBalance(_ctx: AppContext, manager: EntityManager, rc: RequestContext, payment: Payment) {
-  await manager.getRepository(RequestEvent).save({ requestId: rc.request.id, actorId: null, fromState: rc.request.state, toState: rc.request.state, reason: 'Balance paid through Stripe', data: { sessionId: payment.stripeSessionId } })
+  await manager
+    .getRepository(RequestEvent)
+    .save({
+      requestId: rc.request.id,
+      actorId: null,
+      fromState: rc.request.state,
+      toState: rc.request.state,
+      reason: 'Balance paid through Stripe',
+      data: { sessionId: payment.stripeSessionId },
+    })
 }
 
 export async function markCollected(ctx: AppContext, actor: User, id: string) {
@@ -291,7 +410,12 @@ export async function markCollected(ctx: AppContext, actor: User, id: string) {
     const rc = await loadRequest(manager, id, { lock: true })
     await studioSide(manager, rc, actor)
     const owed = await owedCents(manager, rc)
-    if (rc.request.state === 'ready' && owed > 0) throw conflict(`${(owed / 100).toFixed(2)} is still owed. Take it at the counter or let the potter pay online first.`, 'balance-owed', { owedCents: owed })
+    if (rc.request.state === 'ready' && owed > 0)
+      throw conflict(
+        `${(owed / 100).toFixed(2)} is still owed. Take it at the counter or let the potter pay online first.`,
+        'balance-owed',
+        { owedCents: owed },
+      )
     await moveRequest(manager, rc.request, 'collected', actor.id, 'Collected by the potter')
     const quote = await standingQuote(manager, rc)
     const { paidIn, refunded } = await moneyOf(manager, id)

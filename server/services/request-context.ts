@@ -25,7 +25,9 @@ export type Viewer = { side: 'potter' } | { side: 'studio'; role: 'owner' | 'cre
 
 export async function loadRequest(manager: EntityManager, id: string, { lock = false } = {}): Promise<RequestContext> {
   if (!isUuid(id)) throw notFound('That request')
-  const request = await manager.getRepository(FiringRequest).findOne({ where: { id }, ...(lock ? { lock: { mode: 'pessimistic_write' as const } } : {}) })
+  const request = await manager
+    .getRepository(FiringRequest)
+    .findOne({ where: { id }, ...(lock ? { lock: { mode: 'pessimistic_write' as const } } : {}) })
   if (!request) throw notFound('That request')
   const firing = await manager.getRepository(Firing).findOneByOrFail({ id: request.firingId })
   const kiln = await manager.getRepository(Kiln).findOneByOrFail({ id: firing.kilnId })
@@ -63,7 +65,8 @@ export async function moveRequest(
   reason = '',
   data: Record<string, unknown> = {},
 ) {
-  if (!canMoveRequest(request.state, to)) throw stateConflict(request, `A request that is ${inWords(request.state)} cannot become ${inWords(to)}.`)
+  if (!canMoveRequest(request.state, to))
+    throw stateConflict(request, `A request that is ${inWords(request.state)} cannot become ${inWords(to)}.`)
   await manager.getRepository(RequestEvent).save({ requestId: request.id, actorId, fromState: request.state, toState: to, reason, data })
   request.state = to
   await manager.update(FiringRequest, request.id, { state: to })

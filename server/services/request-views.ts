@@ -40,7 +40,12 @@ function actionsFor(rc: RequestContext, viewer: Viewer, pickup: Awaited<ReturnTy
 
 export async function requestJson(manager: EntityManager, rc: RequestContext, viewer: Viewer) {
   const events = await manager.getRepository(RequestEvent).find({ where: { requestId: rc.request.id }, order: { at: 'ASC' } })
-  const actors = new Map((await manager.getRepository(User).findByIds([...new Set(events.map((e) => e.actorId).filter(Boolean))] as string[])).map((u) => [u.id, u.displayName]))
+  const actors = new Map(
+    (await manager.getRepository(User).findByIds([...new Set(events.map((e) => e.actorId).filter(Boolean))] as string[])).map((u) => [
+      u.id,
+      u.displayName,
+    ]),
+  )
   const money = await moneyOf(manager, rc.request.id)
   const payments = await openPaymentsOf(manager, rc.request.id)
   const held = (await heldLitres(manager, [rc.firing.id])).get(rc.firing.id) ?? 0
@@ -121,7 +126,20 @@ export async function requestJson(manager: EntityManager, rc: RequestContext, vi
 /** A list row: enough to show state and next step. */
 export async function requestRows(manager: EntityManager, requests: FiringRequest[]) {
   if (!requests.length) return []
-  const rows: { id: string; firing_id: string; firing_date: Date; drop_off_by: string; cone: string; atmosphere: string; kind: string; studio_id: string; studio_name: string; timezone: string; kiln_name: string; potter_name: string }[] = await manager.query(
+  const rows: {
+    id: string
+    firing_id: string
+    firing_date: Date
+    drop_off_by: string
+    cone: string
+    atmosphere: string
+    kind: string
+    studio_id: string
+    studio_name: string
+    timezone: string
+    kiln_name: string
+    potter_name: string
+  }[] = await manager.query(
     `SELECT r.id, f.id AS firing_id, f.firing_date, f.drop_off_by, f.cone, f.atmosphere, f.kind, s.id AS studio_id, s.name AS studio_name, s.timezone, k.name AS kiln_name, u.display_name AS potter_name
      FROM firing_requests r JOIN firings f ON f.id = r.firing_id JOIN kilns k ON k.id = f.kiln_id JOIN studios s ON s.id = k.studio_id JOIN users u ON u.id = r.potter_id
      WHERE r.id = ANY($1::uuid[])`,
@@ -142,7 +160,15 @@ export async function requestRows(manager: EntityManager, requests: FiringReques
       proposedFiringId: r.proposedFiringId,
       updatedAt: r.updatedAt.toISOString(),
       potterName: row.potter_name,
-      firing: { id: row.firing_id, firingDate: new Date(row.firing_date).toISOString(), dropOffBy: new Date(row.drop_off_by).toISOString(), cone: row.cone, atmosphere: row.atmosphere, kind: row.kind, kilnName: row.kiln_name },
+      firing: {
+        id: row.firing_id,
+        firingDate: new Date(row.firing_date).toISOString(),
+        dropOffBy: new Date(row.drop_off_by).toISOString(),
+        cone: row.cone,
+        atmosphere: row.atmosphere,
+        kind: row.kind,
+        kilnName: row.kiln_name,
+      },
       studio: { id: row.studio_id, name: row.studio_name, timezone: row.timezone },
     }
   })

@@ -31,7 +31,16 @@ import { getPriceList, kilnSpec } from './kilns'
 import { queueMail } from './mail'
 import { enqueueOpenCheckout, enqueueRefund, moneyOf } from './payments'
 import { refundUnderTerms } from '../../shared/refunds'
-import { factsOf, loadRequest, moveRequest, stateConflict, studioPeople, viewerOf, type RequestContext, type Viewer } from './request-context'
+import {
+  factsOf,
+  loadRequest,
+  moveRequest,
+  stateConflict,
+  studioPeople,
+  viewerOf,
+  type RequestContext,
+  type Viewer,
+} from './request-context'
 
 export const DEPOSIT_EXPIRY_TASK = 'deposit-expiry'
 
@@ -46,7 +55,13 @@ export async function checkAgainstFiring(manager: EntityManager, firing: Firing,
   if (own && own.firingId === firing.id && holdsSpace(own.state)) held -= own.volumeL
   const check: WareCheck = checkWare(
     spec,
-    { kind: firing.kind, cone: firing.cone, atmosphere: firing.atmosphere, slowCool: firing.slowCool, remainingCapacityL: Math.max(0, firing.capacityL - held) },
+    {
+      kind: firing.kind,
+      cone: firing.cone,
+      atmosphere: firing.atmosphere,
+      slowCool: firing.slowCool,
+      remainingCapacityL: Math.max(0, firing.capacityL - held),
+    },
     pieces,
   )
   const priceList = await getPriceList(manager, kiln.id)
@@ -85,7 +100,9 @@ export async function createDraft(ctx: AppContext, potter: User, firingId: strin
       proposedFiringId: null,
       sentAt: null,
     })
-    await manager.getRepository(RequestEvent).save({ requestId: request.id, actorId: potter.id, fromState: null, toState: 'draft', reason: '', data: {} })
+    await manager
+      .getRepository(RequestEvent)
+      .save({ requestId: request.id, actorId: potter.id, fromState: null, toState: 'draft', reason: '', data: {} })
     return request.id
   })
 }
@@ -95,7 +112,8 @@ export async function updateDraft(ctx: AppContext, potter: User, id: string, bod
     const rc = await loadRequest(manager, id, { lock: true })
     const viewer = await viewerOf(manager, rc, potter)
     if (viewer.side !== 'potter') throw forbidden('Only the potter edits the ware of a request.')
-    if (rc.request.state !== 'draft') throw conflict('Only a draft can be changed; this request was sent.', 'not-a-draft', { state: rc.request.state })
+    if (rc.request.state !== 'draft')
+      throw conflict('Only a draft can be changed; this request was sent.', 'not-a-draft', { state: rc.request.state })
     const pieces = body.pieces ?? rc.request.pieces
     const { check, quote, volumeL } = await checkAgainstFiring(manager, rc.firing, pieces)
     await manager.update(FiringRequest, id, {
@@ -119,27 +137,44 @@ export async function sendRequest(ctx: AppContext, potter: User, id: string, bod
     const rc = await loadRequest(manager, id, { lock: true })
     const viewer = await viewerOf(manager, rc, potter)
     if (viewer.side !== 'potter') throw forbidden('Only the potter sends a request.')
-    if (!takesRequests(rc.firing.status) || rc.firing.dropOffBy.getTime() < Date.now()) throw conflict('This firing is not taking ware any more.', 'firing-not-open')
+    if (!takesRequests(rc.firing.status) || rc.firing.dropOffBy.getTime() < Date.now())
+      throw conflict('This firing is not taking ware any more.', 'firing-not-open')
     const { check, quote, volumeL } = await checkAgainstFiring(manager, rc.firing, rc.request.pieces)
     await manager.update(FiringRequest, id, { verdict: check.verdict, findings: check.findings, quote, volumeL })
     if (check.verdict === 'block') {
-      throw new HttpError(422, 'ware-blocked', 'The ware cannot go in this firing as described. Change what the findings say and try again.', undefined, {
-        findings: check.findings,
-      })
+      throw new HttpError(
+        422,
+        'ware-blocked',
+        'The ware cannot go in this firing as described. Change what the findings say and try again.',
+        undefined,
+        {
+          findings: check.findings,
+        },
+      )
     }
     const warnings = [...new Set(check.findings.filter((f) => f.severity === 'warn').map((f) => f.code))]
     const missing = warnings.filter((code) => !body.acknowledged.includes(code))
     if (missing.length) {
-      throw new HttpError(422, 'unacknowledged-warnings', 'Read and acknowledge each warning before sending.', undefined, { missing, findings: check.findings })
+      throw new HttpError(422, 'unacknowledged-warnings', 'Read and acknowledge each warning before sending.', undefined, {
+        missing,
+        findings: check.findings,
+      })
     }
     if (body.policiesVersion !== rc.studio.policiesVersion) {
-      throw conflict('The studio changed its policies since you read them. Read them again before sending.', 'policies-changed', { policiesVersion: rc.studio.policiesVersion })
+      throw conflict('The studio changed its policies since you read them. Read them again before sending.', 'policies-changed', {
+        policiesVersion: rc.studio.policiesVersion,
+      })
     }
-    await manager.update(FiringRequest, id, { acknowledgedWarnings: warnings, policiesVersion: rc.studio.policiesVersion, sentAt: new Date() })
+    await manager.update(FiringRequest, id, {
+      acknowledgedWarnings: warnings,
+      policiesVersion: rc.studio.policiesVersion,
+      sentAt: new Date(),
+    })
     await moveRequest(manager, rc.request, 'sent', potter.id, '', { acknowledged: warnings, policiesVersion: rc.studio.policiesVersion })
     rc.request.quote = quote
     const facts = factsOf(rc, ctx.config.publicUrl)
-    for (const person of await studioPeople(manager, rc.studio.id)) await queueMail(manager, person.email, 'request-sent', requestSentMail(facts))
+    for (const person of await studioPeople(manager, rc.studio.id))
+      await queueMail(manager, person.email, 'request-sent', requestSentMail(facts))
   })
 }
 
@@ -160,14 +195,21 @@ export async function acceptRequest(ctx: AppContext, actor: User, id: string) {
 }
 
 async function holdSpace(ctx: AppContext, manager: EntityManager, rc: RequestContext, actorId: string, reason: string) {
-  const firing = await manager.getRepository(Firing).findOneOrFail({ where: { id: rc.request.firingId }, lock: { mode: 'pessimistic_write' } })
-  if (rc.request.state !== 'sent') throw stateConflict(rc.request, `Only a sent request can be accepted; this one is ${rc.request.state.replace('_', ' ')}.`)
+  const firing = await manager
+    .getRepository(Firing)
+    .findOneOrFail({ where: { id: rc.request.firingId }, lock: { mode: 'pessimistic_write' } })
+  if (rc.request.state !== 'sent')
+    throw stateConflict(rc.request, `Only a sent request can be accepted; this one is ${rc.request.state.replace('_', ' ')}.`)
   const held = (await heldLitres(manager, [firing.id])).get(firing.id) ?? 0
   const left = firing.capacityL - held
   if (rc.request.volumeL > left + 1e-9) {
-    throw conflict(`Not enough space left: the ware needs ${rc.request.volumeL.toFixed(1)} L and ${Math.max(0, left).toFixed(1)} L are free.`, 'no-space', {
-      spaceLeftL: Math.max(0, left),
-    })
+    throw conflict(
+      `Not enough space left: the ware needs ${rc.request.volumeL.toFixed(1)} L and ${Math.max(0, left).toFixed(1)} L are free.`,
+      'no-space',
+      {
+        spaceLeftL: Math.max(0, left),
+      },
+    )
   }
   const deposit = rc.request.quote?.depositCents ?? 0
   const holdHours = rc.studio.policies.depositHoldHours
@@ -218,15 +260,26 @@ export async function proposeMove(ctx: AppContext, actor: User, id: string, firi
     if (rc.request.state !== 'sent') throw stateConflict(rc.request, 'Only a sent request can be moved to another firing.')
     const target = await manager.getRepository(Firing).findOne({ where: { id: firingId } })
     const targetKiln = target && (await manager.getRepository(Kiln).findOneByOrFail({ id: target.kilnId }))
-    if (!target || targetKiln!.studioId !== rc.studio.id) throw new HttpError(400, 'invalid-input', 'Choose one of this studio’s firings.', { firingId: 'Not a firing of this studio.' })
-    if (target.id === rc.firing.id) throw new HttpError(400, 'invalid-input', 'That is the firing the request is already for.', { firingId: 'Choose another firing.' })
+    if (!target || targetKiln!.studioId !== rc.studio.id)
+      throw new HttpError(400, 'invalid-input', 'Choose one of this studio’s firings.', { firingId: 'Not a firing of this studio.' })
+    if (target.id === rc.firing.id)
+      throw new HttpError(400, 'invalid-input', 'That is the firing the request is already for.', { firingId: 'Choose another firing.' })
     if (!takesRequests(target.status)) throw conflict('That firing is not taking ware.', 'firing-not-open')
     const { check } = await checkAgainstFiring(manager, target, rc.request.pieces)
     if (check.verdict === 'block') {
       throw new HttpError(422, 'ware-blocked', 'This ware cannot go in that firing.', undefined, { findings: check.findings })
     }
     await manager.update(FiringRequest, id, { proposedFiringId: target.id })
-    await manager.getRepository(RequestEvent).save({ requestId: id, actorId: actor.id, fromState: 'sent', toState: 'sent', reason: 'Another firing proposed', data: { proposedFiringId: target.id } })
+    await manager
+      .getRepository(RequestEvent)
+      .save({
+        requestId: id,
+        actorId: actor.id,
+        fromState: 'sent',
+        toState: 'sent',
+        reason: 'Another firing proposed',
+        data: { proposedFiringId: target.id },
+      })
     await queueMail(manager, rc.potter.email, 'move-proposed', moveProposedMail(factsOf(rc, ctx.config.publicUrl), target))
   })
 }
@@ -241,14 +294,33 @@ export async function answerMove(ctx: AppContext, potter: User, id: string, acce
     const to = rc.request.proposedFiringId
     if (!accept) {
       await manager.update(FiringRequest, id, { proposedFiringId: null })
-      await manager.getRepository(RequestEvent).save({ requestId: id, actorId: potter.id, fromState: 'sent', toState: 'sent', reason: 'Move refused', data: { proposedFiringId: to } })
+      await manager
+        .getRepository(RequestEvent)
+        .save({
+          requestId: id,
+          actorId: potter.id,
+          fromState: 'sent',
+          toState: 'sent',
+          reason: 'Move refused',
+          data: { proposedFiringId: to },
+        })
       return
     }
     const target = await manager.getRepository(Firing).findOneByOrFail({ id: to })
     const { check, quote, volumeL } = await checkAgainstFiring(manager, target, rc.request.pieces)
-    if (check.verdict === 'block') throw new HttpError(422, 'ware-blocked', 'The ware cannot go in that firing any more.', undefined, { findings: check.findings })
+    if (check.verdict === 'block')
+      throw new HttpError(422, 'ware-blocked', 'The ware cannot go in that firing any more.', undefined, { findings: check.findings })
     await manager.update(FiringRequest, id, { firingId: to, quote, volumeL, verdict: check.verdict, findings: check.findings })
-    await manager.getRepository(RequestEvent).save({ requestId: id, actorId: potter.id, fromState: 'sent', toState: 'sent', reason: 'Move accepted', data: { from: rc.firing.id, to } })
+    await manager
+      .getRepository(RequestEvent)
+      .save({
+        requestId: id,
+        actorId: potter.id,
+        fromState: 'sent',
+        toState: 'sent',
+        reason: 'Move accepted',
+        data: { from: rc.firing.id, to },
+      })
     const moved = await loadRequest(manager, id, { lock: true })
     await holdSpace(ctx, manager, moved, potter.id, 'Moved to the proposed firing')
   })
@@ -270,7 +342,8 @@ export async function withdrawRequest(ctx: AppContext, potter: User, id: string,
     await enqueueRefund(manager, id, refund, 'Withdrawn by the potter')
     if (rc.request.sentAt) {
       const facts = factsOf(rc, ctx.config.publicUrl)
-      for (const person of await studioPeople(manager, rc.studio.id)) await queueMail(manager, person.email, 'request-withdrawn', withdrawnMail(facts, refund, reason))
+      for (const person of await studioPeople(manager, rc.studio.id))
+        await queueMail(manager, person.email, 'request-withdrawn', withdrawnMail(facts, refund, reason))
     }
     if (heldSpace) await enqueueStudioSync(manager, rc.studio.id)
     return { refundCents: refund }
@@ -282,10 +355,13 @@ export async function expireDepositHold(ctx: AppContext, id: string, now = new D
   const released = await ctx.db.transaction(async (manager) => {
     const rc = await loadRequest(manager, id, { lock: true })
     if (rc.request.state !== 'accepted' || !rc.request.depositDueAt || rc.request.depositDueAt > now) return false
-    await moveRequest(manager, rc.request, 'cancelled', null, 'The deposit was not paid in time; the space was released', { by: 'deposit-hold' })
+    await moveRequest(manager, rc.request, 'cancelled', null, 'The deposit was not paid in time; the space was released', {
+      by: 'deposit-hold',
+    })
     const facts = factsOf(rc, ctx.config.publicUrl)
     await queueMail(manager, rc.potter.email, 'hold-released', holdReleasedMail(facts, 'potter'))
-    for (const person of await studioPeople(manager, rc.studio.id)) await queueMail(manager, person.email, 'hold-released', holdReleasedMail(facts, 'studio'))
+    for (const person of await studioPeople(manager, rc.studio.id))
+      await queueMail(manager, person.email, 'hold-released', holdReleasedMail(facts, 'studio'))
     await enqueueStudioSync(manager, rc.studio.id)
     return true
   })
@@ -344,8 +420,20 @@ export async function adminRefund(ctx: AppContext, id: string, amountCents: numb
   return ctx.db.transaction(async (manager) => {
     await loadRequest(manager, id, { lock: true })
     const { net } = await moneyOf(manager, id)
-    if (amountCents > net) throw new HttpError(400, 'invalid-input', 'That is more than was paid and not yet refunded.', { amountCents: `At most ${net} cents.` })
+    if (amountCents > net)
+      throw new HttpError(400, 'invalid-input', 'That is more than was paid and not yet refunded.', {
+        amountCents: `At most ${net} cents.`,
+      })
     await enqueueRefund(manager, id, amountCents, `Refunded by the Conewright desk: ${reason}`)
-    await manager.getRepository(RequestEvent).save({ requestId: id, actorId: null, fromState: null, toState: (await manager.getRepository(FiringRequest).findOneByOrFail({ id })).state, reason: `Refund of ${amountCents} cents by the desk: ${reason}`, data: { amountCents } })
+    await manager
+      .getRepository(RequestEvent)
+      .save({
+        requestId: id,
+        actorId: null,
+        fromState: null,
+        toState: (await manager.getRepository(FiringRequest).findOneByOrFail({ id })).state,
+        reason: `Refund of ${amountCents} cents by the desk: ${reason}`,
+        data: { amountCents },
+      })
   })
 }

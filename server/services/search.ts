@@ -28,7 +28,15 @@ export function engineRebuildStarted() {
 export function toHit(doc: FiringDocument, origin: { lat: number; lng: number } | null): SearchHit {
   return {
     firingId: doc.id,
-    studio: { id: doc.studioId, name: doc.studioName, lat: doc._geo.lat, lng: doc._geo.lng, city: doc.studioCity, region: doc.studioRegion, verified: doc.verified },
+    studio: {
+      id: doc.studioId,
+      name: doc.studioName,
+      lat: doc._geo.lat,
+      lng: doc._geo.lng,
+      city: doc.studioCity,
+      region: doc.studioRegion,
+      verified: doc.verified,
+    },
     kiln: {
       id: doc.kilnId,
       name: doc.kilnName,
@@ -48,7 +56,8 @@ export function toHit(doc: FiringDocument, origin: { lat: number; lng: number } 
     spaceLeftL: doc.spaceLeftL,
     capacityL: doc.capacityL,
     distanceKm: origin ? Math.round(distanceKm(origin, doc._geo) * 10) / 10 : null,
-    priceExample: doc.priceExampleCents !== null ? { label: doc.priceExampleLabel!, totalCents: doc.priceExampleCents, currency: doc.currency } : null,
+    priceExample:
+      doc.priceExampleCents !== null ? { label: doc.priceExampleLabel!, totalCents: doc.priceExampleCents, currency: doc.currency } : null,
     rating: doc.ratingMean !== null ? { mean: Math.round(doc.ratingMean * 10) / 10, count: doc.ratingCount } : null,
   }
 }
@@ -57,7 +66,12 @@ function resolveOrigin(query: SearchQuery): SearchResponse['origin'] {
   if (query.near) return { lat: query.near[0], lng: query.near[1], label: `${query.near[0]}, ${query.near[1]}` }
   if (query.place) {
     const place = lookupPlace(query.place)
-    if (!place) throw badRequest('We could not find that place.', { place: `We do not know “${query.place}”. Try a town and state, or a ZIP code.` }, 'unknown-place')
+    if (!place)
+      throw badRequest(
+        'We could not find that place.',
+        { place: `We do not know “${query.place}”. Try a town and state, or a ZIP code.` },
+        'unknown-place',
+      )
     return { lat: place.lat, lng: place.lng, label: place.label }
   }
   return null
@@ -91,7 +105,11 @@ async function searchEngine(ctx: AppContext, search: FiringSearch) {
     hitsPerPage: search.perPage,
     facets: [...FIRING_FACETS],
   })
-  return { documents: result.hits as FiringDocument[], total: result.totalHits ?? 0, facets: (result.facetDistribution ?? {}) as Record<string, Record<string, number>> }
+  return {
+    documents: result.hits as FiringDocument[],
+    total: result.totalHits ?? 0,
+    facets: (result.facetDistribution ?? {}) as Record<string, Record<string, number>>,
+  }
 }
 
 /**

@@ -15,7 +15,11 @@ export function stripeFor(config: Pick<Config, 'stripeSecretKey' | 'stripeApiBas
     const base = config.stripeApiBase ? new URL(config.stripeApiBase) : null
     client = new Stripe(config.stripeSecretKey, {
       ...(base
-        ? { host: base.hostname, port: Number(base.port || (base.protocol === 'https:' ? 443 : 80)), protocol: base.protocol === 'https:' ? 'https' : 'http' }
+        ? {
+            host: base.hostname,
+            port: Number(base.port || (base.protocol === 'https:' ? 443 : 80)),
+            protocol: base.protocol === 'https:' ? 'https' : 'http',
+          }
         : {}),
       maxNetworkRetries: 2,
       timeout: 15_000,

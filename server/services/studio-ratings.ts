@@ -10,6 +10,7 @@ export async function studioRatings(manager: EntityManager, studioIds: string[])
      WHERE direction = 'potter-rates-studio' AND studio_id = ANY($1::uuid[]) GROUP BY studio_id`,
     [studioIds],
   )
-  for (const row of rows) result.set(row.studio_id, { mean: row.total / row.count, count: row.count, score: bayesianScore(row.total, row.count) })
+  for (const row of rows)
+    result.set(row.studio_id, { mean: row.total / row.count, count: row.count, score: bayesianScore(row.total, row.count) })
   return result
 }

@@ -135,7 +135,9 @@ export async function listPublishedStudios(ctx: AppContext, limit = 200): Promis
 }
 
 export async function listMyStudios(ctx: AppContext, userId: string): Promise<{ studio: Studio; role: StudioRole }[]> {
-  const members = await ctx.db.getRepository(StudioMember).find({ where: { userId }, relations: { studio: true }, order: { createdAt: 'ASC' } })
+  const members = await ctx.db
+    .getRepository(StudioMember)
+    .find({ where: { userId }, relations: { studio: true }, order: { createdAt: 'ASC' } })
   return members.map((m) => ({ studio: m.studio, role: m.role }))
 }
 

@@ -15,8 +15,7 @@ export type ClayBody = 'earthenware' | 'stoneware' | 'porcelain' | 'other'
 export type PieceState = 'greenware' | 'bisque'
 
 export type KilnInterior =
-  | { shape: 'round'; diameterMm: number; heightMm: number }
-  | { shape: 'box'; widthMm: number; depthMm: number; heightMm: number }
+  { shape: 'round'; diameterMm: number; heightMm: number } | { shape: 'box'; widthMm: number; depthMm: number; heightMm: number }
 
 export interface Kiln {
   kind: KilnKind
@@ -305,7 +304,8 @@ export function checkWare(kiln: Kiln, firing: Firing, pieces: readonly Piece[]):
       })
     }
     if (!fitsFootprint) {
-      const across = shelf.shape === 'round' ? `a ${mm(shelf.diameterMm)} round shelf` : `a ${mm(shelf.widthMm)} × ${mm(shelf.depthMm)} shelf`
+      const across =
+        shelf.shape === 'round' ? `a ${mm(shelf.diameterMm)} round shelf` : `a ${mm(shelf.widthMm)} × ${mm(shelf.depthMm)} shelf`
       const size = piece.round === true ? `${mm(piece.widthMm)} across` : `${mm(piece.widthMm)} × ${mm(piece.depthMm)}`
       findings.push({
         code: 'piece-too-wide',

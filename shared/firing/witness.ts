@@ -40,12 +40,20 @@ export function crossCheckCones(readings: readonly WitnessReading[], peakC: numb
   const fromCones = coneFromWitnesses(readings)
   const fromPeak = peakC !== null ? coneReached(peakC, finalRateCPerHour ?? 60) : null
   const sorted = [...readings].sort((a, b) => compareCones(a.cone, b.cone))
-  const inconsistent = sorted.some((r, i) => sorted.slice(0, i).some((cooler) => compareCones(cooler.cone, r.cone) < 0 && BEND_RANK[cooler.bend] < BEND_RANK[r.bend]))
+  const inconsistent = sorted.some((r, i) =>
+    sorted.slice(0, i).some((cooler) => compareCones(cooler.cone, r.cone) < 0 && BEND_RANK[cooler.bend] < BEND_RANK[r.bend]),
+  )
   if (fromCones === null && fromPeak === null) {
     return { fromCones, fromPeak, agree: null, inconsistent, message: 'No cone has bent and no peak is recorded yet.' }
   }
   if (fromCones === null || fromPeak === null) {
-    return { fromCones, fromPeak, agree: null, inconsistent, message: fromCones ? `The cones show ${formatCone(fromCones)} reached.` : `The peak predicts ${formatCone(fromPeak!)}.` }
+    return {
+      fromCones,
+      fromPeak,
+      agree: null,
+      inconsistent,
+      message: fromCones ? `The cones show ${formatCone(fromCones)} reached.` : `The peak predicts ${formatCone(fromPeak!)}.`,
+    }
   }
   const agree = compareCones(fromCones, fromPeak) === 0
   return {

@@ -24,10 +24,7 @@ const email = z
   .pipe(z.email({ error: 'Enter a valid e-mail address, like name@example.com.' }))
 
 // Length only: the server also scores strength, which needs a dictionary too big for every page.
-const newPassword = z
-  .string({ error: 'Choose a password.' })
-  .min(10, 'Use at least 10 characters.')
-  .max(200, 'Use at most 200 characters.')
+const newPassword = z.string({ error: 'Choose a password.' }).min(10, 'Use at least 10 characters.').max(200, 'Use at most 200 characters.')
 
 export const registerSchema = z.object({
   email,

@@ -10,16 +10,14 @@ function conesInOrder(minCone: unknown, maxCone: unknown): boolean {
 }
 
 /** A cone as people write it ("6", "06", "^6", "cone 04"), read into its canonical form. */
-export const coneSchema = z
-  .string({ error: 'Enter a cone number, like 6 or 04.' })
-  .transform((value, ctx) => {
-    const parsed = parseCone(value)
-    if (!parsed.ok) {
-      ctx.addIssue({ code: 'custom', message: parsed.reason })
-      return z.NEVER
-    }
-    return parsed.cone
-  })
+export const coneSchema = z.string({ error: 'Enter a cone number, like 6 or 04.' }).transform((value, ctx) => {
+  const parsed = parseCone(value)
+  if (!parsed.ok) {
+    ctx.addIssue({ code: 'custom', message: parsed.reason })
+    return z.NEVER
+  }
+  return parsed.cone
+})
 
 export const atmosphereSchema = z.enum(['oxidation', 'reduction', 'neutral'], {
   error: 'Choose oxidation, reduction or neutral.',

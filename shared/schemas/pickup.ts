@@ -2,7 +2,11 @@
 import { z } from 'zod'
 import { coneSchema } from './firing'
 
-const mm = (what: string) => z.number({ error: `Enter the measured ${what}.` }).positive(`The ${what} must be more than 0.`).max(3000)
+const mm = (what: string) =>
+  z
+    .number({ error: `Enter the measured ${what}.` })
+    .positive(`The ${what} must be more than 0.`)
+    .max(3000)
 const instant = z.iso.datetime({ offset: true, error: 'Enter a date and time.' })
 
 export const checkInSchema = z
@@ -19,7 +23,10 @@ export const checkInSchema = z
     conditionNotes: z.string().trim().max(4000).optional(),
     refuse: z.object({ reason: z.string().trim().min(3, 'Say why the ware is refused.').max(1000) }).optional(),
   })
-  .refine((b) => b.refuse || b.pieces.some((p) => p.received > 0), { message: 'Record the pieces received, or refuse the ware with a reason.', path: ['pieces'] })
+  .refine((b) => b.refuse || b.pieces.some((p) => p.received > 0), {
+    message: 'Record the pieces received, or refuse the ware with a reason.',
+    path: ['pieces'],
+  })
 
 export const CONE_BENDS = ['standing', 'three-oclock', 'touching'] as const
 
@@ -31,7 +38,16 @@ export const firingLogSchema = z.object({
   holdMinutes: z.number().min(0).max(10_000).nullable().optional(),
   offAt: instant.nullable().optional(),
   openedAt: instant.nullable().optional(),
-  witnessCones: z.array(z.object({ cone: coneSchema, bend: z.enum(CONE_BENDS, { error: 'Say how far the cone bent.' }), position: z.string().trim().max(80).optional() })).max(30).default([]),
+  witnessCones: z
+    .array(
+      z.object({
+        cone: coneSchema,
+        bend: z.enum(CONE_BENDS, { error: 'Say how far the cone bent.' }),
+        position: z.string().trim().max(80).optional(),
+      }),
+    )
+    .max(30)
+    .default([]),
   notes: z.string().trim().max(4000).optional(),
 })
 export type FiringLogBody = z.infer<typeof firingLogSchema>
@@ -39,11 +55,21 @@ export type FiringLogBody = z.infer<typeof firingLogSchema>
 export const PIECE_OUTCOMES = ['fine', 'cracked', 'blown-out', 'glaze-ran', 'stuck-to-shelf', 'other'] as const
 
 export const resultsSchema = z.object({
-  outcomes: z.array(z.object({ pieceIndex: z.number().int().min(0), outcome: z.enum(PIECE_OUTCOMES), notes: z.string().trim().max(1000).optional() })).min(1).max(200),
+  outcomes: z
+    .array(
+      z.object({ pieceIndex: z.number().int().min(0), outcome: z.enum(PIECE_OUTCOMES), notes: z.string().trim().max(1000).optional() }),
+    )
+    .min(1)
+    .max(200),
   notes: z.string().trim().max(4000).optional(),
 })
 
-const stars = (what: string) => z.number({ error: `Give ${what} 1 to 5 stars.` }).int().min(1, '1 to 5 stars.').max(5, '1 to 5 stars.')
+const stars = (what: string) =>
+  z
+    .number({ error: `Give ${what} 1 to 5 stars.` })
+    .int()
+    .min(1, '1 to 5 stars.')
+    .max(5, '1 to 5 stars.')
 
 export const ratingSchema = z.object({
   stars: stars('the exchange'),

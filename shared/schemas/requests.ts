@@ -26,7 +26,9 @@ export const messageSchema = z.object({
   body: z.string({ error: 'Write a message.' }).trim().min(1, 'Write a message.').max(4000, 'Keep a message under 4000 characters.'),
 })
 
-export const disputeSchema = z.object({ reason: z.string({ error: 'Say what went wrong.' }).trim().min(5, 'Say what went wrong, in a sentence.').max(2000) })
+export const disputeSchema = z.object({
+  reason: z.string({ error: 'Say what went wrong.' }).trim().min(5, 'Say what went wrong, in a sentence.').max(2000),
+})
 
 export const adminRefundSchema = z.object({
   amountCents: z.number({ error: 'Enter the refund in cents.' }).int('Whole cents.').positive('Enter more than 0.'),

@@ -2,7 +2,10 @@ import { z } from 'zod'
 import { coneIndex, parseCone } from '../firing/cones'
 
 const number = (what: string, min: number, max: number) =>
-  z.coerce.number({ error: `Enter the ${what} as a number.` }).min(min, `The ${what} must be at least ${min}.`).max(max, `The ${what} can be at most ${max}.`)
+  z.coerce
+    .number({ error: `Enter the ${what} as a number.` })
+    .min(min, `The ${what} must be at least ${min}.`)
+    .max(max, `The ${what} can be at most ${max}.`)
 
 const conePart = (value: string) => {
   const parsed = parseCone(value.trim())
@@ -60,17 +63,30 @@ export const searchQuerySchema = z
   })
   .superRefine((q, ctx) => {
     if (q.near && q.place) ctx.addIssue({ code: 'custom', path: ['place'], message: 'Give a place or a point, not both.' })
-    if (q.sort === 'distance' && !q.near && !q.place) ctx.addIssue({ code: 'custom', path: ['sort'], message: 'Sorting by distance needs a place to measure from.' })
-    if (q.radiusKm !== undefined && !q.near && !q.place) ctx.addIssue({ code: 'custom', path: ['radiusKm'], message: 'A distance needs a place to measure from.' })
-    if (q.fitsDepthMm !== undefined && q.fitsWidthMm === undefined) ctx.addIssue({ code: 'custom', path: ['fitsWidthMm'], message: 'Give the width too.' })
-    if (q.from && q.to && q.from > q.to) ctx.addIssue({ code: 'custom', path: ['to'], message: 'The end of the window must come after its start.' })
+    if (q.sort === 'distance' && !q.near && !q.place)
+      ctx.addIssue({ code: 'custom', path: ['sort'], message: 'Sorting by distance needs a place to measure from.' })
+    if (q.radiusKm !== undefined && !q.near && !q.place)
+      ctx.addIssue({ code: 'custom', path: ['radiusKm'], message: 'A distance needs a place to measure from.' })
+    if (q.fitsDepthMm !== undefined && q.fitsWidthMm === undefined)
+      ctx.addIssue({ code: 'custom', path: ['fitsWidthMm'], message: 'Give the width too.' })
+    if (q.from && q.to && q.from > q.to)
+      ctx.addIssue({ code: 'custom', path: ['to'], message: 'The end of the window must come after its start.' })
   })
 export type SearchQuery = z.output<typeof searchQuerySchema>
 
 export interface SearchHit {
   firingId: string
   studio: { id: string; name: string; lat: number; lng: number; city: string; region: string; verified: boolean }
-  kiln: { id: string; name: string; kind: string; minCone: string; maxCone: string; atmospheres: string[]; usableHeightMm: number; shelf: { shape: 'round' | 'box'; diameterMm: number | null; widthMm: number | null; depthMm: number | null } }
+  kiln: {
+    id: string
+    name: string
+    kind: string
+    minCone: string
+    maxCone: string
+    atmospheres: string[]
+    usableHeightMm: number
+    shelf: { shape: 'round' | 'box'; diameterMm: number | null; widthMm: number | null; depthMm: number | null }
+  }
   cone: string
   atmosphere: string
   kind: string

@@ -15,7 +15,11 @@ export function isTimeZone(zone: string): boolean {
   }
 }
 
-const text = (max: number, what: string) => z.string({ error: `Enter the ${what}.` }).trim().max(max, `Keep the ${what} under ${max} characters.`)
+const text = (max: number, what: string) =>
+  z
+    .string({ error: `Enter the ${what}.` })
+    .trim()
+    .max(max, `Keep the ${what} under ${max} characters.`)
 
 export const studioPoliciesSchema = z.object({
   clayBodies: z
@@ -33,7 +37,11 @@ export const studioPoliciesSchema = z.object({
     laterRefundPercent: z.number({ error: 'Enter a percent.' }).min(0, 'At least 0 %.').max(100, 'At most 100 %.'),
   }),
   /** How long an accepted request may wait for its deposit before its space is released. */
-  depositHoldHours: z.number({ error: 'Enter a number of hours.' }).int('Enter whole hours.').min(1, 'At least 1 hour.').max(336, 'At most 14 days.'),
+  depositHoldHours: z
+    .number({ error: 'Enter a number of hours.' })
+    .int('Enter whole hours.')
+    .min(1, 'At least 1 hour.')
+    .max(336, 'At most 14 days.'),
 })
 export type StudioPolicies = z.infer<typeof studioPoliciesSchema>
 
@@ -44,7 +52,11 @@ export const DEFAULT_POLICIES: StudioPolicies = {
   depositHoldHours: 48,
 }
 
-const name = z.string({ error: 'Enter the studio’s name.' }).trim().min(2, 'Enter the studio’s name.').max(120, 'Keep the name under 120 characters.')
+const name = z
+  .string({ error: 'Enter the studio’s name.' })
+  .trim()
+  .min(2, 'Enter the studio’s name.')
+  .max(120, 'Keep the name under 120 characters.')
 const postalCode = z.string().trim().min(3, 'Enter a postal or ZIP code.').max(12, 'That postal code is too long.')
 const address = z.string().trim().min(5, 'Enter the street address with its town or ZIP code.').max(300, 'That address is too long.')
 
@@ -62,13 +74,20 @@ export const studioPatchSchema = z
     lat: z.number().min(-90).max(90),
     lng: z.number().min(-180).max(180),
     timezone: z.string().refine(isTimeZone, 'Choose a time zone from the list.'),
-    currency: z.string().trim().toUpperCase().regex(/^[A-Z]{3}$/, 'Use a three-letter currency code, like USD.'),
+    currency: z
+      .string()
+      .trim()
+      .toUpperCase()
+      .regex(/^[A-Z]{3}$/, 'Use a three-letter currency code, like USD.'),
     dropOffHours: text(300, 'drop-off hours'),
     policies: studioPoliciesSchema,
     published: z.boolean(),
   })
   .partial()
-  .refine((s) => (s.lat === undefined) === (s.lng === undefined), { message: 'Move the pin to set both latitude and longitude.', path: ['lat'] })
+  .refine((s) => (s.lat === undefined) === (s.lng === undefined), {
+    message: 'Move the pin to set both latitude and longitude.',
+    path: ['lat'],
+  })
 export type StudioPatchBody = z.infer<typeof studioPatchSchema>
 
 const kilnExtras = z.object({
@@ -141,11 +160,19 @@ export const firingPatchSchema = z
 export type FiringPatchBody = z.infer<typeof firingPatchSchema>
 
 export const firingCancelSchema = z.object({
-  reason: z.string({ error: 'Say why the firing is cancelled; potters holding space will read it.' }).trim().min(3, 'Say why the firing is cancelled.').max(500),
+  reason: z
+    .string({ error: 'Say why the firing is cancelled; potters holding space will read it.' })
+    .trim()
+    .min(3, 'Say why the firing is cancelled.')
+    .max(500),
 })
 
 export const crewInviteSchema = z.object({
-  email: z.string().trim().toLowerCase().pipe(z.email({ error: 'Enter a valid e-mail address.' })),
+  email: z
+    .string()
+    .trim()
+    .toLowerCase()
+    .pipe(z.email({ error: 'Enter a valid e-mail address.' })),
 })
 
 export const inviteAcceptSchema = z.object({ token: z.string().min(10).max(200) })

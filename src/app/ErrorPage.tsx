@@ -5,7 +5,11 @@ import { ButtonLink } from '../components/ui/Button'
 /** The router's error boundary: something broke while drawing a page. */
 export function ErrorPage() {
   const error = useRouteError()
-  const message = isRouteErrorResponse(error) ? `${error.status} ${error.statusText}` : error instanceof Error ? error.message : 'Unknown error'
+  const message = isRouteErrorResponse(error)
+    ? `${error.status} ${error.statusText}`
+    : error instanceof Error
+      ? error.message
+      : 'Unknown error'
   return (
     <div className="mx-auto max-w-lg px-4 py-16">
       <Logo />
@@ -13,7 +17,11 @@ export function ErrorPage() {
       <p className="mt-2 text-slip-600">Something went wrong while showing it. Nothing you entered was sent twice; reload to try again.</p>
       <pre className="mt-4 overflow-auto rounded-control bg-slip-100 p-3 text-xs text-slip-700">{message}</pre>
       <div className="mt-6 flex gap-2">
-        <button type="button" className="rounded-control bg-clay-600 px-4 py-2 text-sm font-semibold text-white" onClick={() => window.location.reload()}>
+        <button
+          type="button"
+          className="rounded-control bg-clay-600 px-4 py-2 text-sm font-semibold text-white"
+          onClick={() => window.location.reload()}
+        >
           Reload
         </button>
         <ButtonLink to="/" variant="secondary">

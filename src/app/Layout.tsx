@@ -59,7 +59,10 @@ export function Layout() {
 
   return (
     <div className="flex min-h-screen flex-col">
-      <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:rounded focus:bg-white focus:px-3 focus:py-2">
+      <a
+        href="#main"
+        className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:rounded focus:bg-white focus:px-3 focus:py-2"
+      >
         Skip to content
       </a>
       <header className="border-b border-slip-200 bg-white/90 backdrop-blur">
@@ -76,7 +79,11 @@ export function Layout() {
           >
             Menu
           </button>
-          <nav id="main-nav" aria-label="Main" className={`${menuOpen ? 'flex' : 'hidden'} absolute inset-x-0 top-14 z-40 flex-col gap-1 border-b border-slip-200 bg-white p-3 md:static md:flex md:flex-row md:items-center md:border-0 md:p-0`}>
+          <nav
+            id="main-nav"
+            aria-label="Main"
+            className={`${menuOpen ? 'flex' : 'hidden'} absolute inset-x-0 top-14 z-40 flex-col gap-1 border-b border-slip-200 bg-white p-3 md:static md:flex md:flex-row md:items-center md:border-0 md:p-0`}
+          >
             {items.map((item) => (
               <NavLink key={item.to} to={item.to} className={linkClass} onClick={() => setMenuOpen(false)}>
                 {item.label}

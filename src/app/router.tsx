@@ -40,22 +40,120 @@ export const router = createBrowserRouter([
       { path: 'safety', element: <SafetyPage /> },
       { path: 'planner', element: <PlannerPage /> },
       { path: 'find', element: <FindFiringPage /> },
-      { path: 'my-ware', element: <RequireRole roles={['potter']}><MyWarePage /></RequireRole> },
-      { path: 'kiln-room', element: <RequireRole roles={['host', 'crew']}><KilnRoomPage /></RequireRole> },
+      {
+        path: 'my-ware',
+        element: (
+          <RequireRole roles={['potter']}>
+            <MyWarePage />
+          </RequireRole>
+        ),
+      },
+      {
+        path: 'kiln-room',
+        element: (
+          <RequireRole roles={['host', 'crew']}>
+            <KilnRoomPage />
+          </RequireRole>
+        ),
+      },
       { path: 'studios/:id', element: <PublicStudioPage /> },
-      { path: 'studios/:id/edit', element: <RequireRole roles={['host', 'crew']}><StudioEditorPage /></RequireRole> },
-      { path: 'studios/:id/calendar', element: <RequireRole roles={['host', 'crew']}><CalendarPage /></RequireRole> },
-      { path: 'studios/:id/crew', element: <RequireRole roles={['host', 'crew']}><CrewPage /></RequireRole> },
-      { path: 'studios/:id/kilns/new', element: <RequireRole roles={['host', 'crew']}><NewKilnPage /></RequireRole> },
-      { path: 'studios/:id/requests', element: <RequireRole roles={['host', 'crew']}><StudioInboxPage /></RequireRole> },
-      { path: 'firings/:firingId/request', element: <RequireRole roles={['potter']}><ComposeRequestPage /></RequireRole> },
-      { path: 'firings/:firingId/requests', element: <RequireRole roles={['host', 'crew']}><FiringInboxPage /></RequireRole> },
-      { path: 'firings/:firingId/log', element: <RequireRole roles={['host', 'crew']}><FiringLogPage /></RequireRole> },
-      { path: 'requests/:id', element: <RequireRole roles={['potter', 'host', 'crew']}><RequestPage /></RequireRole> },
-      { path: 'kilns/:id', element: <RequireRole roles={['host', 'crew']}><KilnPage /></RequireRole> },
-      { path: 'kilns/:id/edit', element: <RequireRole roles={['host', 'crew']}><KilnEditorPage /></RequireRole> },
+      {
+        path: 'studios/:id/edit',
+        element: (
+          <RequireRole roles={['host', 'crew']}>
+            <StudioEditorPage />
+          </RequireRole>
+        ),
+      },
+      {
+        path: 'studios/:id/calendar',
+        element: (
+          <RequireRole roles={['host', 'crew']}>
+            <CalendarPage />
+          </RequireRole>
+        ),
+      },
+      {
+        path: 'studios/:id/crew',
+        element: (
+          <RequireRole roles={['host', 'crew']}>
+            <CrewPage />
+          </RequireRole>
+        ),
+      },
+      {
+        path: 'studios/:id/kilns/new',
+        element: (
+          <RequireRole roles={['host', 'crew']}>
+            <NewKilnPage />
+          </RequireRole>
+        ),
+      },
+      {
+        path: 'studios/:id/requests',
+        element: (
+          <RequireRole roles={['host', 'crew']}>
+            <StudioInboxPage />
+          </RequireRole>
+        ),
+      },
+      {
+        path: 'firings/:firingId/request',
+        element: (
+          <RequireRole roles={['potter']}>
+            <ComposeRequestPage />
+          </RequireRole>
+        ),
+      },
+      {
+        path: 'firings/:firingId/requests',
+        element: (
+          <RequireRole roles={['host', 'crew']}>
+            <FiringInboxPage />
+          </RequireRole>
+        ),
+      },
+      {
+        path: 'firings/:firingId/log',
+        element: (
+          <RequireRole roles={['host', 'crew']}>
+            <FiringLogPage />
+          </RequireRole>
+        ),
+      },
+      {
+        path: 'requests/:id',
+        element: (
+          <RequireRole roles={['potter', 'host', 'crew']}>
+            <RequestPage />
+          </RequireRole>
+        ),
+      },
+      {
+        path: 'kilns/:id',
+        element: (
+          <RequireRole roles={['host', 'crew']}>
+            <KilnPage />
+          </RequireRole>
+        ),
+      },
+      {
+        path: 'kilns/:id/edit',
+        element: (
+          <RequireRole roles={['host', 'crew']}>
+            <KilnEditorPage />
+          </RequireRole>
+        ),
+      },
       { path: 'join-studio', element: <JoinStudioPage /> },
-      { path: 'front-desk', element: <RequireRole roles={['admin']}><FrontDeskPage /></RequireRole> },
+      {
+        path: 'front-desk',
+        element: (
+          <RequireRole roles={['admin']}>
+            <FrontDeskPage />
+          </RequireRole>
+        ),
+      },
       { path: '*', element: <NotFoundPage /> },
     ],
   },

@@ -17,10 +17,24 @@ export interface LoadProblemProps {
 }
 
 /** A failed load in words people can act on: not there, not theirs, signed out, or try again. */
-export function LoadProblem({ error, what = 'this page', onRetry, back = { to: '/', label: 'Go to the start' }, notFoundHint, forbiddenHint }: LoadProblemProps) {
+export function LoadProblem({
+  error,
+  what = 'this page',
+  onRetry,
+  back = { to: '/', label: 'Go to the start' },
+  notFoundHint,
+  forbiddenHint,
+}: LoadProblemProps) {
   if (error instanceof ApiError && error.status === 404) {
     return (
-      <EmptyState title={`We could not find ${what}`} action={<ButtonLink to={back.to} variant="secondary">{back.label}</ButtonLink>}>
+      <EmptyState
+        title={`We could not find ${what}`}
+        action={
+          <ButtonLink to={back.to} variant="secondary">
+            {back.label}
+          </ButtonLink>
+        }
+      >
         {notFoundHint ?? 'The link may be old. Check the link you followed.'}
       </EmptyState>
     )
@@ -33,7 +47,11 @@ export function LoadProblem({ error, what = 'this page', onRetry, back = { to: '
     )
   }
   if (error instanceof ApiError && error.status === 401) {
-    return <Alert tone="warning" title="Sign in first">Your session ended. Sign in again to carry on.</Alert>
+    return (
+      <Alert tone="warning" title="Sign in first">
+        Your session ended. Sign in again to carry on.
+      </Alert>
+    )
   }
   return (
     <Alert tone="danger" title={`Could not load ${what}`}>

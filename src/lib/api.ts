@@ -66,7 +66,10 @@ async function send(path: string, { method = 'GET', body, signal }: RequestOptio
     throw new ApiError(0, 'offline', 'Could not reach Conewright. Check your connection and try again.')
   }
   if (res.status === 403 && !retried && method !== 'GET') {
-    const peek = (await res.clone().json().catch(() => null)) as { error?: { code?: string } } | null
+    const peek = (await res
+      .clone()
+      .json()
+      .catch(() => null)) as { error?: { code?: string } } | null
     if (peek?.error?.code === 'csrf-invalid') {
       await fetchCsrfToken()
       return send(path, { method, body, signal }, true)
@@ -98,7 +101,12 @@ export interface UploadOptions {
   signal?: AbortSignal
 }
 
-function postWithProgress(path: string, form: FormData, token: string, { onProgress, signal }: UploadOptions): Promise<{ status: number; data: unknown }> {
+function postWithProgress(
+  path: string,
+  form: FormData,
+  token: string,
+  { onProgress, signal }: UploadOptions,
+): Promise<{ status: number; data: unknown }> {
   return new Promise((resolve, reject) => {
     const xhr = new XMLHttpRequest()
     xhr.open('POST', path)

@@ -41,7 +41,10 @@ export function interiorInWords(interior: KilnInterior, units: UnitSystem): stri
 }
 
 /** "Electric, oxidation, cone 022 to 10, 28 in across × 27 in tall, usable 25.4 in" */
-export function kilnLimitsInWords(kiln: Pick<Kiln, 'kind' | 'atmospheres' | 'minCone' | 'maxCone' | 'interior'> & { effectiveUsableHeightMm: number }, units: UnitSystem): string {
+export function kilnLimitsInWords(
+  kiln: Pick<Kiln, 'kind' | 'atmospheres' | 'minCone' | 'maxCone' | 'interior'> & { effectiveUsableHeightMm: number },
+  units: UnitSystem,
+): string {
   return [
     kindLabel(kiln.kind),
     listInWords(kiln.atmospheres, 'or'),

@@ -79,7 +79,13 @@ export function pieceDraftOf(piece: Piece): PieceDraft {
     boneDry: piece.boneDry ?? false,
     glazed: piece.glaze !== undefined,
     glaze: piece.glaze
-      ? { minCone: piece.glaze.minCone, maxCone: piece.glaze.maxCone, runny: piece.glaze.runny ?? false, onFoot: piece.glaze.onFoot ?? false, onCookie: piece.glaze.onCookie ?? false }
+      ? {
+          minCone: piece.glaze.minCone,
+          maxCone: piece.glaze.maxCone,
+          runny: piece.glaze.runny ?? false,
+          onFoot: piece.glaze.onFoot ?? false,
+          onCookie: piece.glaze.onCookie ?? false,
+        }
       : blank.glaze,
   }
 }

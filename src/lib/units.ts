@@ -57,7 +57,8 @@ export function moneyMeasure(currency: string, decimals = 2): Measure {
   const key = `${code}|${decimals}`
   let measure = moneyMeasures.get(key)
   if (!measure) {
-    const fromShown = decimals <= 2 ? (amount: number) => Math.round(amount * 100) : (amount: number) => Number((amount * 100).toFixed(decimals))
+    const fromShown =
+      decimals <= 2 ? (amount: number) => Math.round(amount * 100) : (amount: number) => Number((amount * 100).toFixed(decimals))
     measure = { suffix: code, toShown: (cents) => cents / 100, fromShown, decimals }
     moneyMeasures.set(key, measure)
   }

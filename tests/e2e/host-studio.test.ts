@@ -36,7 +36,9 @@ async function newPage() {
 
 /** The calendar day `days` from now in the studio's zone, as a datetime-local value at that hour. */
 function studioLocal(days: number, hour: string): string {
-  const day = new Intl.DateTimeFormat('en-CA', { timeZone: STUDIO_ZONE, year: 'numeric', month: '2-digit', day: '2-digit' }).format(new Date(Date.now() + days * 86_400_000))
+  const day = new Intl.DateTimeFormat('en-CA', { timeZone: STUDIO_ZONE, year: 'numeric', month: '2-digit', day: '2-digit' }).format(
+    new Date(Date.now() + days * 86_400_000),
+  )
   return `${day}T${hour}`
 }
 
@@ -148,7 +150,9 @@ describe('a host sets up a studio and crew in the browser', () => {
     expect(await row.textContent()).toContain('Glaze, cone 6 oxidation')
     expect(await visitor.page.getByTestId('kiln-limits').textContent()).toContain('cone 022 to 10')
     expect(await visitor.page.getByTestId('example-price').first().textContent()).toContain(mugTotal)
-    expect(await visitor.page.getByTestId('calendar-subscribe').getAttribute('href')).toMatch(new RegExp(`^webcal://.+/api/studios/${studioId}/calendar\\.ics$`))
+    expect(await visitor.page.getByTestId('calendar-subscribe').getAttribute('href')).toMatch(
+      new RegExp(`^webcal://.+/api/studios/${studioId}/calendar\\.ics$`),
+    )
     expect(await visitor.page.getByText('Tue–Sat 10 am–6 pm, side door').isVisible()).toBe(true)
     expect(errors).toEqual([])
     expect(visitor.errors).toEqual([])
@@ -178,7 +182,10 @@ describe('a host sets up a studio and crew in the browser', () => {
     await panel.getByRole('heading', { name: studioName }).waitFor()
     expect(await panel.getByText('Crew', { exact: true }).count()).toBeGreaterThan(0)
 
-    await panel.getByTestId('firing-row').getByRole('button', { name: /^Manage/ }).click()
+    await panel
+      .getByTestId('firing-row')
+      .getByRole('button', { name: /^Manage/ })
+      .click()
     const dialog = page.getByRole('dialog')
     await dialog.getByRole('button', { name: 'Stop taking ware' }).click()
     await dialog.locator('[data-testid="firing-status"][data-status="closed"]').waitFor()

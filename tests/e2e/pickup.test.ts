@@ -69,13 +69,18 @@ async function paidRequest(inFiring: string) {
   if (accepted.status !== 200) throw new Error(`accept: ${accepted.status} ${JSON.stringify(accepted.body)}`)
   const deposit = await potter.session.post(`/api/requests/${sent.id}/deposit`)
   await submitCard(deposit.body.checkoutUrl, { cardNumber: CARD_SUCCEEDS })
-  await waitUntil(async () => (await potter.session.get(`/api/requests/${sent.id}`)).body.state === 'deposit_paid', { what: 'the deposit to be booked' })
+  await waitUntil(async () => (await potter.session.get(`/api/requests/${sent.id}`)).body.state === 'deposit_paid', {
+    what: 'the deposit to be booked',
+  })
   return sent
 }
 
 /** Another firing of the studio's kiln, two weeks out: well inside the full-refund window. */
 async function laterFiring() {
-  const made = await host.session.post(`/api/kilns/${kilnId}/firings`, firingBody({ dropOffBy: inDays(12), firingDate: inDays(14), readyBy: inDays(16) }))
+  const made = await host.session.post(
+    `/api/kilns/${kilnId}/firings`,
+    firingBody({ dropOffBy: inDays(12), firingDate: inDays(14), readyBy: inDays(16) }),
+  )
   if (made.status !== 201) throw new Error(`firing: ${made.status} ${JSON.stringify(made.body)}`)
   return made.body.firings[0].id as string
 }
@@ -245,7 +250,13 @@ describe('from drop-off to ratings in the browser', () => {
     await form.getByText('Saved. Every potter in the firing sees it on their request.').waitFor()
 
     const saved = await host.session.get(`/api/firings/${firingId}/log`)
-    expect(saved.body).toMatchObject({ peakC: 1222, finalRateCPerHour: 60, holdMinutes: 10, totalHours: 12, coneCheck: { fromCones: '6', fromPeak: '6', agree: true } })
+    expect(saved.body).toMatchObject({
+      peakC: 1222,
+      finalRateCPerHour: 60,
+      holdMinutes: 10,
+      totalHours: 12,
+      coneCheck: { fromCones: '6', fromPeak: '6', agree: true },
+    })
     expect(saved.body.witnessCones).toHaveLength(3)
     expect(hostErrors).toEqual([])
   }, 90_000)
@@ -277,7 +288,12 @@ describe('from drop-off to ratings in the browser', () => {
     await potterPage.keyboard.press('Escape')
     // The potter lets the studio show it in public.
     await photo.getByLabel('Show on the studio’s page').check()
-    await expect.poll(async () => (await potter.session.get(`/api/requests/${requestId}`)).body.photos.find((p: { kind: string }) => p.kind === 'result').public).toBe(true)
+    await expect
+      .poll(
+        async () =>
+          (await potter.session.get(`/api/requests/${requestId}`)).body.photos.find((p: { kind: string }) => p.kind === 'result').public,
+      )
+      .toBe(true)
 
     const log = potterPage.getByTestId('firing-log')
     expect(await log.getByTestId('cone-reached').textContent()).toBe('cone 6')
@@ -403,7 +419,9 @@ describe('what check-in can change', () => {
     await hostPage.goto(`/requests/${sent.id}`)
     await hostPage.getByRole('button', { name: 'Refuse at the door…' }).click()
     const dialog = hostPage.getByRole('dialog', { name: 'Refuse the ware at the door?' })
-    expect(await dialog.textContent()).toContain(`The potter gets ${dollars(sent.quote.depositCents)} back of the ${dollars(sent.quote.depositCents)} paid.`)
+    expect(await dialog.textContent()).toContain(
+      `The potter gets ${dollars(sent.quote.depositCents)} back of the ${dollars(sent.quote.depositCents)} paid.`,
+    )
     await dialog.getByLabel('Why it is refused').fill('Greenware still damp to the touch')
     await uploadPhoto(dialog, 'damp.jpg', 90)
     await dialog.getByRole('button', { name: 'Refuse the ware' }).click()

@@ -236,11 +236,14 @@ describe('a firing request in the browser', () => {
     expect(await page.getByTestId('ledger-empty').count()).toBe(1)
     // The decline reaches the app by webhook; the page shows the card's message once it has.
     await expect
-      .poll(async () => {
-        await page.reload()
-        await page.getByTestId('request-state').first().waitFor()
-        return page.getByText('Your card was declined', { exact: false }).count()
-      }, { timeout: 20_000 })
+      .poll(
+        async () => {
+          await page.reload()
+          await page.getByTestId('request-state').first().waitFor()
+          return page.getByText('Your card was declined', { exact: false }).count()
+        },
+        { timeout: 20_000 },
+      )
       .toBeGreaterThan(0)
 
     const view = await secondPotter.session.get(`/api/requests/${sent.id}`)

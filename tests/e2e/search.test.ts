@@ -29,13 +29,23 @@ const gasKiln = (heightMm: number) => ({
   preheatHold: true,
   controlledCooling: false,
 })
-async function studioWithKiln(name: string, postalCode: string, kiln: Record<string, unknown>, firings: { cone: string; atmosphere: string; dropInDays: number }[]) {
+async function studioWithKiln(
+  name: string,
+  postalCode: string,
+  kiln: Record<string, unknown>,
+  firings: { cone: string; atmosphere: string; dropInDays: number }[],
+) {
   const studio = await host.session.post('/api/studios', { name, postalCode })
   if (studio.status !== 201) throw new Error(JSON.stringify(studio.body))
   studios[name] = studio.body.id
   const created = await host.session.post(`/api/studios/${studio.body.id}/kilns`, { shelfCount: 4, ...kiln, name: `${name} kiln` })
   if (created.status !== 201) throw new Error(JSON.stringify(created.body))
-  await host.session.put(`/api/kilns/${created.body.id}/price-list`, { currency: 'USD', model: 'volume', centsPerCubicInch: 5, deposit: { percent: 25 } })
+  await host.session.put(`/api/kilns/${created.body.id}/price-list`, {
+    currency: 'USD',
+    model: 'volume',
+    centsPerCubicInch: 5,
+    deposit: { percent: 25 },
+  })
   for (const { dropInDays, ...firing } of firings) {
     const reply = await host.session.post(`/api/kilns/${created.body.id}/firings`, {
       kind: 'glaze',
@@ -131,7 +141,9 @@ describe('finding a firing', () => {
     expect(near.cones).toEqual(expected.map(() => '10'))
     expect(near.atmospheres).toEqual(expected.map(() => 'reduction'))
     // One pin per studio, titled with its name; at this zoom none share a cluster.
-    const titles = await page.locator('[data-testid="basemap"] .leaflet-marker-icon').evaluateAll((els) => els.map((el) => el.getAttribute('title') ?? ''))
+    const titles = await page
+      .locator('[data-testid="basemap"] .leaflet-marker-icon')
+      .evaluateAll((els) => els.map((el) => el.getAttribute('title') ?? ''))
     expect(names(titles)).toEqual(expected)
     expect(await page.getByText('Search this area').count()).toBe(0)
 
@@ -141,7 +153,9 @@ describe('finding a firing', () => {
     await expect.poll(() => page.locator('.leaflet-marker-icon[title="Fernhill Kilns"]').textContent()).toContain('Fernhill Kilns')
     expect(await fernhill.getAttribute('data-selected')).toBe('true')
     await page.locator('.leaflet-marker-icon[title="Alder Street Clay"]').click()
-    await expect.poll(() => page.getByTestId('search-result').filter({ hasText: 'Alder Street Clay' }).getAttribute('data-selected')).toBe('true')
+    await expect
+      .poll(() => page.getByTestId('search-result').filter({ hasText: 'Alder Street Clay' }).getAttribute('data-selected'))
+      .toBe('true')
     expect(await fernhill.getAttribute('data-selected')).toBe('false')
 
     // A 24 in piece (609.6 mm, at 25.4 mm to the inch, NIST SP 811) is too tall for Alder's 18.1 in.
@@ -153,7 +167,12 @@ describe('finding a firing', () => {
     await expect.poll(async () => names((await shown(page)).studios)).toEqual(fits)
     await expect.poll(async () => (await shown(page)).markers, { timeout: 10_000 }).toBe(fits.length)
     const url = new URL(page.url())
-    expect(Object.fromEntries(url.searchParams)).toEqual({ place: 'Portland, OR', cone: '10', atmosphere: 'reduction', fitsHeightMm: '609.6' })
+    expect(Object.fromEntries(url.searchParams)).toEqual({
+      place: 'Portland, OR',
+      cone: '10',
+      atmosphere: 'reduction',
+      fitsHeightMm: '609.6',
+    })
 
     // The back button brings the search before the height back, fields and all.
     await page.goBack()
@@ -234,7 +253,9 @@ describe('finding a firing', () => {
       await page.goto(`/find?${new URLSearchParams({ place: 'Portland, OR', cone: '10', atmosphere: 'reduction' })}`)
       await page.getByText('Search is running on a backup; results may be incomplete.').waitFor()
       // The backup answers the same question the same way.
-      await expect.poll(async () => names((await shown(page)).studios)).toEqual(['Alder Street Clay', 'Fernhill Kilns', 'Willamette Falls Pottery'])
+      await expect
+        .poll(async () => names((await shown(page)).studios))
+        .toEqual(['Alder Street Clay', 'Fernhill Kilns', 'Willamette Falls Pottery'])
       expect(errors).toEqual([])
     } finally {
       app.search = await startSearchEngine({ port, masterKey: 'test-search-key', state })

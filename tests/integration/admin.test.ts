@@ -32,7 +32,12 @@ describe('the front desk', () => {
 
   it('lists published studios waiting for verification first, and verifies them', async () => {
     const list = (await admin.session.get('/api/admin/studios')).body.studios
-    expect(list[0]).toMatchObject({ id: studioId, published: true, verified: false, owners: [{ name: 'Unverified Host', email: host.email }] })
+    expect(list[0]).toMatchObject({
+      id: studioId,
+      published: true,
+      verified: false,
+      owners: [{ name: 'Unverified Host', email: host.email }],
+    })
     expect((await admin.session.post(`/api/studios/${studioId}/verify`, { verified: true })).body.verified).toBe(true)
     expect((await new HttpSession(app.url).get(`/api/studios/${studioId}`)).body.verified).toBe(true)
   })
@@ -65,7 +70,10 @@ describe('disputes', () => {
     // The way to "fired" is walked elsewhere (pickup tests); here the record is set there directly, with a
     // deposit taken at the counter.
     await app.ctx.db.query(`UPDATE firing_requests SET state = 'fired' WHERE id = $1`, [sent.id])
-    await app.ctx.db.query(`INSERT INTO ledger_entries (request_id, direction, kind, amount_cents, currency, note) VALUES ($1, 'in', 'counter', 500, 'USD', 'Deposit at the counter')`, [sent.id])
+    await app.ctx.db.query(
+      `INSERT INTO ledger_entries (request_id, direction, kind, amount_cents, currency, note) VALUES ($1, 'in', 'counter', 500, 'USD', 'Deposit at the counter')`,
+      [sent.id],
+    )
     const disputed = await potter.session.post(`/api/requests/${sent.id}/dispute`, { reason: 'Two mugs came back stuck to the shelf' })
     expect(disputed.body.state).toBe('disputed')
     const mails = await app.ctx.db.getRepository(OutboundMail).findBy({ template: 'disputed', toAddress: host.email })
@@ -74,7 +82,9 @@ describe('disputes', () => {
     expect(list.map((r: { id: string }) => r.id)).toContain(sent.id)
     const tooMuch = await admin.session.post(`/api/admin/requests/${sent.id}/refund`, { amountCents: 501, reason: 'Goodwill' })
     expect(tooMuch.status).toBe(400)
-    expect((await admin.session.post(`/api/admin/requests/${sent.id}/refund`, { amountCents: 250, reason: 'Half for the stuck mugs' })).status).toBe(202)
+    expect(
+      (await admin.session.post(`/api/admin/requests/${sent.id}/refund`, { amountCents: 250, reason: 'Half for the stuck mugs' })).status,
+    ).toBe(202)
     const timeline = (await admin.session.get(`/api/requests/${sent.id}`)).body.timeline
     expect(timeline.at(-1).reason).toMatch(/Refund of 250 cents by the desk/)
     expect((await host.session.post(`/api/admin/requests/${sent.id}/refund`, { amountCents: 1, reason: 'Me' })).status).toBe(403)

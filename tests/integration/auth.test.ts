@@ -218,9 +218,11 @@ describe('password reset', () => {
     const mail = await waitForMail(app.mail!.webUrl, { to: email, subject: 'new Conewright password', after: requestedAt })
     const token = new URL(linkIn(mail, '/reset-password')).searchParams.get('token')!
     await app.ctx.db.query(`UPDATE auth_tokens SET expires_at = now() - interval '1 minute' WHERE purpose = 'password-reset'`)
-    const reply = await new HttpSession(app.url).post('/api/auth/password-reset/confirm', { token, password: 'kiln-sitter-and-a-long-soak' })
+    const reply = await new HttpSession(app.url).post('/api/auth/password-reset/confirm', {
+      token,
+      password: 'kiln-sitter-and-a-long-soak',
+    })
     expect(reply.status).toBe(400)
     expect(reply.body.error.code).toBe('bad-token')
   })
 })
-

@@ -9,7 +9,11 @@ import { startTestApp, type TestApp } from '../support/test-app'
 let app: TestApp
 let catcher: MailCatcher
 
-const content = (subject: string) => ({ subject, paragraphs: ['Your ware is ready for pickup.'], details: [['Shelf', 'B2']] as [string, string][] })
+const content = (subject: string) => ({
+  subject,
+  paragraphs: ['Your ware is ready for pickup.'],
+  details: [['Shelf', 'B2']] as [string, string][],
+})
 
 async function jobsFor(mailId: string) {
   return app.ctx.db.query(`SELECT attempts, last_error FROM graphile_worker._private_jobs WHERE payload->>'mailId' = $1`, [mailId])
@@ -34,14 +38,18 @@ describe('the mail queue', () => {
       }),
     ).rejects.toThrow('the change failed')
     expect(await app.ctx.db.getRepository(OutboundMail).count({ where: { toAddress: 'rollback@example.test' } })).toBe(0)
-    const [{ count }] = await app.ctx.db.query(`SELECT count(*)::int AS count FROM graphile_worker.jobs WHERE task_identifier = 'send-mail'`)
+    const [{ count }] = await app.ctx.db.query(
+      `SELECT count(*)::int AS count FROM graphile_worker.jobs WHERE task_identifier = 'send-mail'`,
+    )
     expect(count).toBe(0)
   })
 
   it('keeps a mail through an SMTP outage and sends it once SMTP is back', async () => {
     const mail = await app.ctx.db.transaction((manager) => queueMail(manager, 'outage@example.test', 'test', content('After the outage')))
     // The worker tries, fails, and records the failure on the mail and the job.
-    await expect.poll(async () => (await app.ctx.db.getRepository(OutboundMail).findOneByOrFail({ id: mail.id })).attempts, { timeout: 10_000 }).toBeGreaterThan(0)
+    await expect
+      .poll(async () => (await app.ctx.db.getRepository(OutboundMail).findOneByOrFail({ id: mail.id })).attempts, { timeout: 10_000 })
+      .toBeGreaterThan(0)
     const failed = await app.ctx.db.getRepository(OutboundMail).findOneByOrFail({ id: mail.id })
     expect(failed.sentAt).toBeNull()
     expect(failed.lastError).toMatch(/ECONNREFUSED|connect/i)
@@ -53,7 +61,9 @@ describe('the mail queue', () => {
     const caught = await waitForMail(catcher.webUrl, { to: 'outage@example.test', subject: 'After the outage' })
     expect(caught.text).toContain('Your ware is ready for pickup.')
     expect(caught.html).toContain('Your ware is ready for pickup.')
-    await expect.poll(async () => (await app.ctx.db.getRepository(OutboundMail).findOneByOrFail({ id: mail.id })).sentAt, { timeout: 10_000 }).not.toBeNull()
+    await expect
+      .poll(async () => (await app.ctx.db.getRepository(OutboundMail).findOneByOrFail({ id: mail.id })).sentAt, { timeout: 10_000 })
+      .not.toBeNull()
     await expect.poll(async () => (await jobsFor(mail.id)).length, { timeout: 10_000 }).toBe(0)
   })
 

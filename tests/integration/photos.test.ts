@@ -77,7 +77,9 @@ describe('what is taken in', () => {
   })
 
   it('refuses a non-image renamed .jpg, judged by its bytes, not its name or the browser’s claim', async () => {
-    const reply = await upload(crew.session, [{ name: 'kiln.jpg', bytes: new TextEncoder().encode('#!/bin/sh\necho not a photo\n'), type: 'image/jpeg' }])
+    const reply = await upload(crew.session, [
+      { name: 'kiln.jpg', bytes: new TextEncoder().encode('#!/bin/sh\necho not a photo\n'), type: 'image/jpeg' },
+    ])
     expect(reply.status).toBe(400)
     expect(reply.body.error.code).toBe('not-an-image')
   })
@@ -102,7 +104,12 @@ describe('what is taken in', () => {
 
   it('refuses an image of huge pixel dimensions, however small the file', async () => {
     // 12 000 × 12 000 = 144 megapixels of one colour compresses to a few kilobytes of PNG.
-    const bomb = await sharp({ create: { width: 12_000, height: 12_000, channels: 3, background: { r: 0, g: 0, b: 0 } }, limitInputPixels: false }).png({ compressionLevel: 9 }).toBuffer()
+    const bomb = await sharp({
+      create: { width: 12_000, height: 12_000, channels: 3, background: { r: 0, g: 0, b: 0 } },
+      limitInputPixels: false,
+    })
+      .png({ compressionLevel: 9 })
+      .toBuffer()
     expect(bomb.length).toBeLessThan(2 * 1024 * 1024)
     const reply = await upload(crew.session, [{ name: 'bomb.png', bytes: bomb, type: 'image/png' }])
     expect(reply.status).toBe(400)
@@ -121,7 +128,10 @@ describe('what is taken in', () => {
 
   it('refuses too many files at once', async () => {
     const one = await jpegWithGps(16, 16)
-    const reply = await upload(crew.session, Array.from({ length: 9 }, (_, i) => ({ name: `p${i}.jpg`, bytes: one })))
+    const reply = await upload(
+      crew.session,
+      Array.from({ length: 9 }, (_, i) => ({ name: `p${i}.jpg`, bytes: one })),
+    )
     expect(reply.status).toBe(400)
     expect(reply.body.error.code).toBe('upload-limit-file-count')
   })
@@ -159,6 +169,8 @@ describe('who sees a photo', () => {
     expect(shown.body.photos.map((p: { id: string }) => p.id)).toContain(photo.id)
     await potter.session.patch(`/api/photos/${photo.id}`, { public: false })
     expect((await new HttpSession(app.url).get(photo.url)).status).toBe(404)
-    expect((await new HttpSession(app.url).get(`/api/studios/${studioId}/photos`)).body.photos.map((p: { id: string }) => p.id)).not.toContain(photo.id)
+    expect(
+      (await new HttpSession(app.url).get(`/api/studios/${studioId}/photos`)).body.photos.map((p: { id: string }) => p.id),
+    ).not.toContain(photo.id)
   })
 })

@@ -28,7 +28,8 @@ afterAll(async () => {
 })
 
 const state = async (id: string) => (await app.ctx.db.getRepository(FiringRequest).findOneByOrFail({ id })).state
-const mailsFor = async (template: string, requestId: string) => (await app.ctx.db.getRepository(OutboundMail).findBy({ template })).filter((m) => m.bodyText.includes(requestId))
+const mailsFor = async (template: string, requestId: string) =>
+  (await app.ctx.db.getRepository(OutboundMail).findBy({ template })).filter((m) => m.bodyText.includes(requestId))
 
 async function newFiring() {
   return (await owner.session.post(`/api/kilns/${ids.kilnId}/firings`, firingBody())).body.firings[0].id as string
@@ -49,9 +50,15 @@ describe('the whole way, from drop-off to ratings', () => {
     const sent = await paid(firingId)
 
     // Drop-off: all four mugs, one chipped.
-    const checkedIn = await owner.session.post(`/api/requests/${sent.id}/check-in`, { pieces: [{ pieceIndex: 0, received: 4 }], conditionNotes: 'One mug has a chipped rim' })
+    const checkedIn = await owner.session.post(`/api/requests/${sent.id}/check-in`, {
+      pieces: [{ pieceIndex: 0, received: 4 }],
+      conditionNotes: 'One mug has a chipped rim',
+    })
     expect(checkedIn.status, JSON.stringify(checkedIn.body)).toBe(200)
-    expect(checkedIn.body.request).toMatchObject({ state: 'received', checkIn: { conditionNotes: 'One mug has a chipped rim', refused: false } })
+    expect(checkedIn.body.request).toMatchObject({
+      state: 'received',
+      checkIn: { conditionNotes: 'One mug has a chipped rim', refused: false },
+    })
     const dropOff = await mailsFor('drop-off', sent.id)
     expect(dropOff).toHaveLength(1)
     expect(dropOff[0].bodyText).toContain('One mug has a chipped rim')
@@ -63,7 +70,9 @@ describe('the whole way, from drop-off to ratings', () => {
     await move(firingId, 'unloaded')
     expect(await state(sent.id)).toBe('fired')
     const timeline = (await potter.session.get(`/api/requests/${sent.id}`)).body.timeline.map((e: { reason: string }) => e.reason)
-    expect(timeline).toEqual(expect.arrayContaining(['Loaded into the kiln', 'The firing started', 'The kiln is cooling', 'The kiln was unloaded']))
+    expect(timeline).toEqual(
+      expect.arrayContaining(['Loaded into the kiln', 'The firing started', 'The kiln is cooling', 'The kiln was unloaded']),
+    )
 
     // The log, seen by every potter in the firing on their request.
     const log = await owner.session.put(`/api/firings/${firingId}/log`, {
@@ -87,7 +96,9 @@ describe('the whole way, from drop-off to ratings', () => {
 
     // Ready needs results first.
     expect((await owner.session.post(`/api/requests/${sent.id}/ready`)).body.error.code).toBe('results-missing')
-    const results = await owner.session.post(`/api/requests/${sent.id}/results`, { outcomes: [{ pieceIndex: 0, outcome: 'fine', notes: 'Glaze broke nicely over the rims' }] })
+    const results = await owner.session.post(`/api/requests/${sent.id}/results`, {
+      outcomes: [{ pieceIndex: 0, outcome: 'fine', notes: 'Glaze broke nicely over the rims' }],
+    })
     expect(results.body.results.outcomes[0].outcome).toBe('fine')
     const ready = await owner.session.post(`/api/requests/${sent.id}/ready`)
     expect(ready.body.state).toBe('ready')
@@ -103,7 +114,9 @@ describe('the whole way, from drop-off to ratings', () => {
     expect(balance.body.amountCents).toBe(owed)
     await submitCard(balance.body.checkoutUrl, { cardNumber: CARD_SUCCEEDS })
     await expect.poll(async () => (await potter.session.get(`/api/requests/${sent.id}`)).body.owedCents, { timeout: 15_000 }).toBe(0)
-    const ledger = (await potter.session.get(`/api/requests/${sent.id}`)).body.ledger.map((l: { kind: string; amountCents: number }) => `${l.kind}:${l.amountCents}`)
+    const ledger = (await potter.session.get(`/api/requests/${sent.id}`)).body.ledger.map(
+      (l: { kind: string; amountCents: number }) => `${l.kind}:${l.amountCents}`,
+    )
     expect(ledger).toEqual([`deposit:${sent.quote.depositCents}`, `balance:${owed}`])
 
     const collected = await owner.session.post(`/api/requests/${sent.id}/collected`)
@@ -113,8 +126,27 @@ describe('the whole way, from drop-off to ratings', () => {
     expect(pickup[0].subject).toMatch(/receipt/)
 
     // Both sides rate; the studio's page shows it.
-    expect((await potter.session.post(`/api/requests/${sent.id}/rating`, { stars: 5, care: 5, communication: 4, results: 5, text: 'Lovely even heat.' })).status).toBe(200)
-    expect((await owner.session.post(`/api/requests/${sent.id}/rating`, { stars: 4, asDeclared: 4, onTime: 5, text: 'On time, ware as described.' })).status).toBe(200)
+    expect(
+      (
+        await potter.session.post(`/api/requests/${sent.id}/rating`, {
+          stars: 5,
+          care: 5,
+          communication: 4,
+          results: 5,
+          text: 'Lovely even heat.',
+        })
+      ).status,
+    ).toBe(200)
+    expect(
+      (
+        await owner.session.post(`/api/requests/${sent.id}/rating`, {
+          stars: 4,
+          asDeclared: 4,
+          onTime: 5,
+          text: 'On time, ware as described.',
+        })
+      ).status,
+    ).toBe(200)
     const page = await new HttpSession(app.url).get(`/api/studios/${ids.studioId}/ratings`)
     expect(page.body.summary).toMatchObject({ mean: 5, count: 1 })
     expect(page.body.ratings[0]).toMatchObject({ stars: 5, text: 'Lovely even heat.', author: 'Sol' })
@@ -125,7 +157,9 @@ describe('drop-off', () => {
   it('re-prices measured ware; a higher price waits for the potter to confirm, and the balance follows it', async () => {
     const firingId = await newFiring()
     const sent = await paid(firingId)
-    const checkedIn = await owner.session.post(`/api/requests/${sent.id}/check-in`, { pieces: [{ pieceIndex: 0, received: 4, measured: { heightMm: 140, widthMm: 100, depthMm: 120 } }] })
+    const checkedIn = await owner.session.post(`/api/requests/${sent.id}/check-in`, {
+      pieces: [{ pieceIndex: 0, received: 4, measured: { heightMm: 140, widthMm: 100, depthMm: 120 } }],
+    })
     expect(checkedIn.body.needsConfirmation).toBe(true)
     expect(checkedIn.body.priceAfterCents).toBeGreaterThan(sent.quote.totalCents)
     expect(checkedIn.body.request.actions).not.toContain('confirm-price')
@@ -134,7 +168,9 @@ describe('drop-off', () => {
     // Until confirmed, the declared price stands.
     expect(potterView.owedCents).toBe(sent.quote.totalCents - sent.quote.depositCents)
     await potter.session.post(`/api/requests/${sent.id}/confirm-price`)
-    expect((await potter.session.get(`/api/requests/${sent.id}`)).body.owedCents).toBe(checkedIn.body.priceAfterCents - sent.quote.depositCents)
+    expect((await potter.session.get(`/api/requests/${sent.id}`)).body.owedCents).toBe(
+      checkedIn.body.priceAfterCents - sent.quote.depositCents,
+    )
   })
 
   it('takes a lower price without asking', async () => {
@@ -143,15 +179,23 @@ describe('drop-off', () => {
     const checkedIn = await owner.session.post(`/api/requests/${sent.id}/check-in`, { pieces: [{ pieceIndex: 0, received: 2 }] })
     expect(checkedIn.body.needsConfirmation).toBe(false)
     expect(checkedIn.body.priceAfterCents).toBeLessThan(sent.quote.totalCents)
-    expect((await potter.session.get(`/api/requests/${sent.id}`)).body.owedCents).toBe(Math.max(0, checkedIn.body.priceAfterCents - sent.quote.depositCents))
+    expect((await potter.session.get(`/api/requests/${sent.id}`)).body.owedCents).toBe(
+      Math.max(0, checkedIn.body.priceAfterCents - sent.quote.depositCents),
+    )
   })
 
   it('records ware refused at the door with its reason and handles it under the studio’s terms', async () => {
     const firingId = await newFiring()
     const sent = await paid(firingId)
-    const refused = await owner.session.post(`/api/requests/${sent.id}/check-in`, { pieces: [], refuse: { reason: 'Still damp and cold to the touch' } })
+    const refused = await owner.session.post(`/api/requests/${sent.id}/check-in`, {
+      pieces: [],
+      refuse: { reason: 'Still damp and cold to the touch' },
+    })
     expect(refused.body.refused).toBe(true)
-    expect(refused.body.request).toMatchObject({ state: 'cancelled', checkIn: { refused: true, refusedReason: 'Still damp and cold to the touch' } })
+    expect(refused.body.request).toMatchObject({
+      state: 'cancelled',
+      checkIn: { refused: true, refusedReason: 'Still damp and cold to the touch' },
+    })
     expect((await mailsFor('ware-refused', sent.id))[0].bodyText).toContain('Still damp')
   })
 
@@ -203,7 +247,9 @@ describe('ratings', () => {
     const late = await potter.session.post(`/api/requests/${sent.id}/rating`, { stars: 1 })
     expect(late.status).toBe(409)
     expect(late.body.error.code).toBe('edit-window-closed')
-    expect((await owner.session.post(`/api/requests/${sent.id}/rating/reply`, { text: 'Sorry for the wait; new inbox now.' })).status).toBe(200)
+    expect((await owner.session.post(`/api/requests/${sent.id}/rating/reply`, { text: 'Sorry for the wait; new inbox now.' })).status).toBe(
+      200,
+    )
     expect((await owner.session.post(`/api/requests/${sent.id}/rating/reply`, { text: 'Again' })).body.error.code).toBe('already-replied')
     expect((await potter.session.post(`/api/requests/${sent.id}/rating/reply`, { text: 'Me too' })).status).toBe(403)
   })

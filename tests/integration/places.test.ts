@@ -44,7 +44,13 @@ describe('GET /api/places', () => {
   it('resolves a ZIP code to its place first', async () => {
     const { status, body } = await get('?q=97214')
     expect(status).toBe(200)
-    expect(body.places[0]).toMatchObject({ postalCode: '97214', city: 'Portland', region: 'OR', country: 'US', timezone: 'America/Los_Angeles' })
+    expect(body.places[0]).toMatchObject({
+      postalCode: '97214',
+      city: 'Portland',
+      region: 'OR',
+      country: 'US',
+      timezone: 'America/Los_Angeles',
+    })
   })
 
   it('resolves a full address to the place of its ZIP', async () => {

@@ -5,7 +5,10 @@ import { startTestApp, type TestApp } from '../support/test-app'
 let app: TestApp
 
 beforeAll(async () => {
-  app = await startTestApp({ worker: false, config: { rateLimits: { authPerIpPer15Min: 8, authPerAccountPer15Min: 3, openApiPerIpPerMin: 300 } } })
+  app = await startTestApp({
+    worker: false,
+    config: { rateLimits: { authPerIpPer15Min: 8, authPerAccountPer15Min: 3, openApiPerIpPerMin: 300 } },
+  })
 })
 afterAll(async () => {
   await app?.close()
@@ -24,10 +27,23 @@ describe('sign-in rate limits', () => {
 
   it('limits registration attempts for one address', async () => {
     // A fresh app, so the sign-in attempts above do not count against this address's IP.
-    const fresh = await startTestApp({ worker: false, config: { rateLimits: { authPerIpPer15Min: 100, authPerAccountPer15Min: 3, openApiPerIpPerMin: 300 } } })
+    const fresh = await startTestApp({
+      worker: false,
+      config: { rateLimits: { authPerIpPer15Min: 100, authPerAccountPer15Min: 3, openApiPerIpPerMin: 300 } },
+    })
     try {
       const statuses: number[] = []
-      for (let i = 0; i < 4; i++) statuses.push((await new HttpSession(fresh.url).post('/api/auth/register', { email: 'same.address@example.test', password: 'x', displayName: 'X', role: 'potter' })).status)
+      for (let i = 0; i < 4; i++)
+        statuses.push(
+          (
+            await new HttpSession(fresh.url).post('/api/auth/register', {
+              email: 'same.address@example.test',
+              password: 'x',
+              displayName: 'X',
+              role: 'potter',
+            })
+          ).status,
+        )
       expect(statuses).toEqual([400, 400, 400, 429])
     } finally {
       await fresh.close()

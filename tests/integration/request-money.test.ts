@@ -57,9 +57,23 @@ describe('the deposit', () => {
     const sent = await paidRequest()
     const view = (await potter.session.get(`/api/requests/${sent.id}`)).body
     expect(view.state).toBe('deposit_paid')
-    expect(view.ledger).toEqual([expect.objectContaining({ direction: 'in', kind: 'deposit', amountCents: sent.quote.depositCents, currency: 'USD', stripeSessionId: expect.stringMatching(/^cs_test_/), stripePaymentIntentId: expect.stringMatching(/^pi_/) })])
+    expect(view.ledger).toEqual([
+      expect.objectContaining({
+        direction: 'in',
+        kind: 'deposit',
+        amountCents: sent.quote.depositCents,
+        currency: 'USD',
+        stripeSessionId: expect.stringMatching(/^cs_test_/),
+        stripePaymentIntentId: expect.stringMatching(/^pi_/),
+      }),
+    ])
     const mails = await app.ctx.db.getRepository(OutboundMail).findBy({ template: 'deposit-received' })
-    expect(mails.filter((m) => m.bodyText.includes(sent.id)).map((m) => m.toAddress).sort()).toEqual([owner.email, potter.email].sort())
+    expect(
+      mails
+        .filter((m) => m.bodyText.includes(sent.id))
+        .map((m) => m.toAddress)
+        .sort(),
+    ).toEqual([owner.email, potter.email].sort())
   })
 
   it('stays unpaid after a declined card, with the reason on the request', async () => {
@@ -69,7 +83,9 @@ describe('the deposit', () => {
     const declined = await submitCard(deposit.body.checkoutUrl, { cardNumber: CARD_DECLINED })
     expect(declined.status).toBe(402)
     await app.stripe!.idle()
-    await expect.poll(async () => (await potter.session.get(`/api/requests/${sent.id}`)).body.payments[0].failureMessage, { timeout: 10_000 }).toMatch(/declined/i)
+    await expect
+      .poll(async () => (await potter.session.get(`/api/requests/${sent.id}`)).body.payments[0].failureMessage, { timeout: 10_000 })
+      .toMatch(/declined/i)
     expect(await state(sent.id)).toBe('accepted')
     expect((await potter.session.get(`/api/requests/${sent.id}`)).body.ledger).toEqual([])
   })
@@ -87,7 +103,11 @@ describe('webhooks', () => {
   const sign = (payload: string, secret = 'whsec_conewright_tests', t = Math.floor(Date.now() / 1000)) =>
     `t=${t},v1=${createHmac('sha256', secret).update(`${t}.${payload}`).digest('hex')}`
   const post = (payload: string, signature?: string) =>
-    fetch(`${app.url}/api/webhooks/stripe`, { method: 'POST', headers: { 'Content-Type': 'application/json', ...(signature ? { 'Stripe-Signature': signature } : {}) }, body: payload })
+    fetch(`${app.url}/api/webhooks/stripe`, {
+      method: 'POST',
+      headers: { 'Content-Type': 'application/json', ...(signature ? { 'Stripe-Signature': signature } : {}) },
+      body: payload,
+    })
 
   it('rejects a missing or wrong signature with 400 and changes nothing', async () => {
     const payload = JSON.stringify({ id: 'evt_forged', object: 'event', type: 'checkout.session.completed', data: { object: {} } })
@@ -99,7 +119,13 @@ describe('webhooks', () => {
 
   it('handles a replayed event once: the ledger books the deposit a single time', async () => {
     const sent = await paidRequest()
-    const events = app.stripe!.events().filter((e) => e.type === 'checkout.session.completed' && (e.data.object as { metadata?: { requestId?: string } }).metadata?.requestId === sent.id)
+    const events = app
+      .stripe!.events()
+      .filter(
+        (e) =>
+          e.type === 'checkout.session.completed' &&
+          (e.data.object as { metadata?: { requestId?: string } }).metadata?.requestId === sent.id,
+      )
     expect(events).toHaveLength(1)
     const payload = JSON.stringify(events[0])
     for (let i = 0; i < 3; i++) {
@@ -121,10 +147,15 @@ describe('webhooks', () => {
     // The page was still open in a tab (the stand-in only learns of the expiry when asked), and it pays.
     await submitCard(deposit.body.checkoutUrl, { cardNumber: CARD_SUCCEEDS }).catch(() => null)
     await app.stripe!.idle()
-    await expect.poll(async () => {
-      const ledger = (await potter.session.get(`/api/requests/${sent.id}`)).body.ledger as { direction: string; amountCents: number }[]
-      return ledger.map((l) => `${l.direction}:${l.amountCents}`)
-    }, { timeout: 15_000 }).toEqual([`in:${sent.quote.depositCents}`, `out:${sent.quote.depositCents}`])
+    await expect
+      .poll(
+        async () => {
+          const ledger = (await potter.session.get(`/api/requests/${sent.id}`)).body.ledger as { direction: string; amountCents: number }[]
+          return ledger.map((l) => `${l.direction}:${l.amountCents}`)
+        },
+        { timeout: 15_000 },
+      )
+      .toEqual([`in:${sent.quote.depositCents}`, `out:${sent.quote.depositCents}`])
     expect(await state(sent.id)).toBe('cancelled')
   })
 })
@@ -142,7 +173,9 @@ describe('the deposit hold', () => {
     await app.ctx.db.query(`UPDATE graphile_worker._private_jobs SET run_at = now() WHERE key = $1`, [`deposit-expiry:${sent.id}`])
     await expect.poll(() => state(sent.id), { timeout: 15_000 }).toBe('cancelled')
     expect((await new HttpSession(app.url).get(`/api/firings/${firing.id}`)).body.heldL).toBe(0)
-    const mails = (await app.ctx.db.getRepository(OutboundMail).findBy({ template: 'hold-released' })).filter((m) => m.bodyText.includes(sent.id))
+    const mails = (await app.ctx.db.getRepository(OutboundMail).findBy({ template: 'hold-released' })).filter((m) =>
+      m.bodyText.includes(sent.id),
+    )
     expect(mails.map((m) => m.toAddress).sort()).toEqual([owner.email, potter.email].sort())
     const view = (await potter.session.get(`/api/requests/${sent.id}`)).body
     expect(view.timeline.at(-1)).toMatchObject({ to: 'cancelled', by: 'Conewright' })
@@ -165,26 +198,55 @@ describe('refunds', () => {
 
   it('rounds a percentage share half up to the cent', () => {
     // 33 % of 1.55 = 0.5115 → 0.51; of 1.50 = 0.495 → 0.50.
-    expect(refundUnderTerms(155, firingDate, { fullRefundDaysBefore: 0, laterRefundPercent: 33 }, new Date('2027-03-20T18:00:00Z')).refundCents).toBe(51)
-    expect(refundUnderTerms(150, firingDate, { fullRefundDaysBefore: 0, laterRefundPercent: 33 }, new Date('2027-03-20T18:00:00Z')).refundCents).toBe(50)
+    expect(
+      refundUnderTerms(155, firingDate, { fullRefundDaysBefore: 0, laterRefundPercent: 33 }, new Date('2027-03-20T18:00:00Z')).refundCents,
+    ).toBe(51)
+    expect(
+      refundUnderTerms(150, firingDate, { fullRefundDaysBefore: 0, laterRefundPercent: 33 }, new Date('2027-03-20T18:00:00Z')).refundCents,
+    ).toBe(50)
   })
 
   it('refunds a withdrawal under the studio’s terms, through Stripe, into the ledger', async () => {
     // The fixture firing is 7 days out; push the full-refund window past it so the later share applies.
-    await owner.session.patch(`/api/studios/${ids.studioId}`, { policies: { clayBodies: ['stoneware'], wareRequirements: 'Bisqued', cancellation: { fullRefundDaysBefore: 30, laterRefundPercent: 40 }, depositHoldHours: 48 } })
+    await owner.session.patch(`/api/studios/${ids.studioId}`, {
+      policies: {
+        clayBodies: ['stoneware'],
+        wareRequirements: 'Bisqued',
+        cancellation: { fullRefundDaysBefore: 30, laterRefundPercent: 40 },
+        depositHoldHours: 48,
+      },
+    })
     const sent = await paidRequest()
     const withdrawn = await potter.session.post(`/api/requests/${sent.id}/withdraw`, { reason: 'Cracked in the bisque' })
     expect(withdrawn.body.state).toBe('withdrawn')
     const expected = Math.floor((sent.quote.depositCents * 40) / 100 + 0.5)
-    await expect.poll(async () => (await potter.session.get(`/api/requests/${sent.id}`)).body.ledger.filter((l: { direction: string }) => l.direction === 'out').map((l: { amountCents: number; stripeRefundId: string }) => [l.amountCents, l.stripeRefundId.slice(0, 3)]), { timeout: 15_000 }).toEqual([[expected, 're_']])
-    await expect.poll(async () => (await app.ctx.db.getRepository(OutboundMail).findBy({ template: 'refunded', toAddress: potter.email })).some((m) => m.bodyText.includes(sent.id)), { timeout: 10_000 }).toBe(true)
+    await expect
+      .poll(
+        async () =>
+          (await potter.session.get(`/api/requests/${sent.id}`)).body.ledger
+            .filter((l: { direction: string }) => l.direction === 'out')
+            .map((l: { amountCents: number; stripeRefundId: string }) => [l.amountCents, l.stripeRefundId.slice(0, 3)]),
+        { timeout: 15_000 },
+      )
+      .toEqual([[expected, 're_']])
+    await expect
+      .poll(
+        async () =>
+          (await app.ctx.db.getRepository(OutboundMail).findBy({ template: 'refunded', toAddress: potter.email })).some((m) =>
+            m.bodyText.includes(sent.id),
+          ),
+        { timeout: 10_000 },
+      )
+      .toBe(true)
   })
 
   it('refunds in full when the studio calls off a paid request', async () => {
     const sent = await paidRequest()
     const cancelled = await owner.session.post(`/api/requests/${sent.id}/decline`, { reason: 'Our kiln needs new elements' })
     expect(cancelled.body.state).toBe('cancelled')
-    await expect.poll(async () => (await potter.session.get(`/api/requests/${sent.id}`)).body.paid, { timeout: 15_000 }).toEqual({ inCents: sent.quote.depositCents, refundedCents: sent.quote.depositCents, depositCents: sent.quote.depositCents })
+    await expect
+      .poll(async () => (await potter.session.get(`/api/requests/${sent.id}`)).body.paid, { timeout: 15_000 })
+      .toEqual({ inCents: sent.quote.depositCents, refundedCents: sent.quote.depositCents, depositCents: sent.quote.depositCents })
   })
 
   it('refunds in full when the studio cancels the firing', async () => {
@@ -192,7 +254,9 @@ describe('refunds', () => {
     const sent = await paidRequest(firing.id)
     await owner.session.post(`/api/firings/${firing.id}/cancel`, { reason: 'Power cut for the week' })
     expect(await state(sent.id)).toBe('cancelled')
-    await expect.poll(async () => (await potter.session.get(`/api/requests/${sent.id}`)).body.paid.refundedCents, { timeout: 15_000 }).toBe(sent.quote.depositCents)
+    await expect
+      .poll(async () => (await potter.session.get(`/api/requests/${sent.id}`)).body.paid.refundedCents, { timeout: 15_000 })
+      .toBe(sent.quote.depositCents)
   })
 })
 

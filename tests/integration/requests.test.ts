@@ -37,7 +37,13 @@ describe('composing and sending', () => {
   it('saves a draft with the server’s findings, quote and volume', async () => {
     const reply = await potter.session.post(`/api/firings/${ids.firingId}/requests`, { pieces: [mug()], notes: 'Four mugs' })
     expect(reply.status).toBe(201)
-    expect(reply.body).toMatchObject({ state: 'draft', verdict: 'ok', notes: 'Four mugs', viewer: 'potter', actions: expect.arrayContaining(['send', 'edit']) })
+    expect(reply.body).toMatchObject({
+      state: 'draft',
+      verdict: 'ok',
+      notes: 'Four mugs',
+      viewer: 'potter',
+      actions: expect.arrayContaining(['send', 'edit']),
+    })
     // 4 × 100 × 90 × 115 mm = 4.14 L of bounding box.
     expect(reply.body.volumeL).toBeCloseTo(4.14, 2)
     expect(reply.body.quote.totalCents).toBeGreaterThan(0)
@@ -46,7 +52,11 @@ describe('composing and sending', () => {
   it('refuses to send blocked ware with a 422 listing the findings, whatever the browser said', async () => {
     const draft = await potter.session.post(`/api/firings/${ids.firingId}/requests`, { pieces: [wetBowl()] })
     expect(draft.body.verdict).toBe('block')
-    const sent = await potter.session.post(`/api/requests/${draft.body.id}/send`, { acknowledged: [], agreePolicies: true, policiesVersion: draft.body.studio.policiesVersion })
+    const sent = await potter.session.post(`/api/requests/${draft.body.id}/send`, {
+      acknowledged: [],
+      agreePolicies: true,
+      policiesVersion: draft.body.studio.policiesVersion,
+    })
     expect(sent.status).toBe(422)
     expect(sent.body.error.code).toBe('ware-blocked')
     expect(sent.body.error.findings.map((f: { code: string }) => f.code)).toContain('wet-greenware')
@@ -60,7 +70,11 @@ describe('composing and sending', () => {
     expect(unacknowledged.body.error).toMatchObject({ code: 'unacknowledged-warnings', missing: ['runny-glaze-tray'] })
     const sent = await potter.session.post(`/api/requests/${draft.body.id}/send`, { ...base, acknowledged: ['runny-glaze-tray'] })
     expect(sent.status).toBe(200)
-    expect(sent.body).toMatchObject({ state: 'sent', acknowledgedWarnings: ['runny-glaze-tray'], policiesVersion: draft.body.studio.policiesVersion })
+    expect(sent.body).toMatchObject({
+      state: 'sent',
+      acknowledgedWarnings: ['runny-glaze-tray'],
+      policiesVersion: draft.body.studio.policiesVersion,
+    })
     expect(sent.body.timeline.map((e: { to: string }) => e.to)).toEqual(['draft', 'sent'])
   })
 
@@ -69,7 +83,11 @@ describe('composing and sending', () => {
     const noAgreement = await potter.session.post(`/api/requests/${draft.body.id}/send`, { acknowledged: [], policiesVersion: 1 })
     expect(noAgreement.status).toBe(400)
     expect(noAgreement.body.error.fields.agreePolicies).toBeTruthy()
-    const stale = await potter.session.post(`/api/requests/${draft.body.id}/send`, { acknowledged: [], agreePolicies: true, policiesVersion: 999 })
+    const stale = await potter.session.post(`/api/requests/${draft.body.id}/send`, {
+      acknowledged: [],
+      agreePolicies: true,
+      policiesVersion: 999,
+    })
     expect(stale.status).toBe(409)
     expect(stale.body.error.code).toBe('policies-changed')
   })
@@ -77,7 +95,10 @@ describe('composing and sending', () => {
   it('mails the studio’s owner and crew when a request is sent', async () => {
     const sent = await draftAndSend(potter.session, ids.firingId, [mug({ quantity: 1 })])
     const mails = await app.ctx.db.getRepository(OutboundMail).find({ where: { template: 'request-sent' } })
-    const to = mails.filter((m) => m.bodyText.includes(sent.id)).map((m) => m.toAddress).sort()
+    const to = mails
+      .filter((m) => m.bodyText.includes(sent.id))
+      .map((m) => m.toAddress)
+      .sort()
     expect(to).toEqual([owner.email, crew.email].sort())
   })
 })
@@ -136,7 +157,16 @@ describe('the studio decides', () => {
   })
 
   it('proposes another firing of the same studio; the potter’s acceptance takes and holds the place there', async () => {
-    const later = (await owner.session.post(`/api/kilns/${ids.kilnId}/firings`, firingBody({ dropOffBy: new Date(Date.now() + 12 * 86400_000).toISOString(), firingDate: new Date(Date.now() + 14 * 86400_000).toISOString(), readyBy: new Date(Date.now() + 16 * 86400_000).toISOString() }))).body.firings[0]
+    const later = (
+      await owner.session.post(
+        `/api/kilns/${ids.kilnId}/firings`,
+        firingBody({
+          dropOffBy: new Date(Date.now() + 12 * 86400_000).toISOString(),
+          firingDate: new Date(Date.now() + 14 * 86400_000).toISOString(),
+          readyBy: new Date(Date.now() + 16 * 86400_000).toISOString(),
+        }),
+      )
+    ).body.firings[0]
     const sent = await draftAndSend(potter.session, ids.firingId, [mug({ quantity: 1 })])
     const proposed = await owner.session.post(`/api/requests/${sent.id}/move`, { firingId: later.id })
     expect(proposed.status).toBe(200)
@@ -172,8 +202,18 @@ describe('the message thread', () => {
     const jobs = await app.ctx.db.query(`SELECT key FROM graphile_worker._private_jobs WHERE key LIKE $1`, [`messages:${sent.id}:%`])
     expect(jobs.map((j: { key: string }) => j.key).sort()).toEqual([`messages:${sent.id}:potter`, `messages:${sent.id}:studio`])
     await app.ctx.db.query(`UPDATE graphile_worker._private_jobs SET run_at = now() WHERE key LIKE $1`, [`messages:${sent.id}:%`])
-    await expect.poll(async () => (await app.ctx.db.getRepository(OutboundMail).find({ where: { template: 'new-messages' } })).filter((m) => m.bodyText.includes(sent.id)).length, { timeout: 15_000 }).toBe(3)
-    const toOwner = (await app.ctx.db.getRepository(OutboundMail).find({ where: { template: 'new-messages', toAddress: owner.email } })).find((m) => m.bodyText.includes(sent.id))!
+    await expect
+      .poll(
+        async () =>
+          (await app.ctx.db.getRepository(OutboundMail).find({ where: { template: 'new-messages' } })).filter((m) =>
+            m.bodyText.includes(sent.id),
+          ).length,
+        { timeout: 15_000 },
+      )
+      .toBe(3)
+    const toOwner = (
+      await app.ctx.db.getRepository(OutboundMail).find({ where: { template: 'new-messages', toAddress: owner.email } })
+    ).find((m) => m.bodyText.includes(sent.id))!
     expect(toOwner.subject).toMatch(/^3 new messages/)
     expect(toOwner.bodyText).toContain('Is the glaze on the mugs food safe?')
   })

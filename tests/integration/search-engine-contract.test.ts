@@ -34,14 +34,114 @@ type FiringDocument = {
 // Invented studios placed on real city centres (coordinates from memory, to about 0.01°).
 // Bisque to cone 04 and glaze to cone 6 or 10 are common practice.
 const FIRINGS: FiringDocument[] = [
-  { id: 'f1', studioName: 'Ember Lane Studio', title: 'Stoneware reduction firing', cone: '10', atmosphere: 'reduction', kind: 'glaze', priceCents: 4500, usableHeightMm: 450, spaceLeftL: 12.5, tags: ['gas', 'soda'], crewNote: null, _geo: { lat: 53.0027, lng: -2.1794 } },
-  { id: 'f2', studioName: 'Canal Street Kilns', title: 'Mid-fire stoneware glaze load', cone: '6', atmosphere: 'oxidation', kind: 'glaze', priceCents: 3200, usableHeightMm: 380, spaceLeftL: 40, tags: ['electric'], crewNote: 'Fresh kiln wash on every shelf', _geo: { lat: 53.4808, lng: -2.2426 } },
-  { id: 'f3', studioName: 'Jewellery Quarter Clay', title: 'Bisque firing for greenware', cone: '04', atmosphere: 'oxidation', kind: 'bisque', priceCents: 1800, usableHeightMm: 500, spaceLeftL: 80, tags: [], crewNote: '', _geo: { lat: 52.4862, lng: -1.8904 } },
-  { id: 'f4', studioName: 'Kirkgate Pottery', title: 'Porcelain reduction firing', cone: '10', atmosphere: 'reduction', kind: 'glaze', priceCents: 5200, usableHeightMm: 600, spaceLeftL: 5, tags: ['gas'], _geo: { lat: 53.8008, lng: -1.5491 } },
-  { id: 'f5', studioName: 'Thames Side Ceramics', title: 'Electric glaze firing', cone: '6', atmosphere: 'oxidation', kind: 'glaze', priceCents: 3900, usableHeightMm: 300, spaceLeftL: 25, tags: ['electric', 'crystalline'], crewNote: 'Witness cones in every load', _geo: { lat: 51.5074, lng: -0.1278 } },
-  { id: 'f6', studioName: 'Steel City Kiln Share', title: 'Slow bisque with long candling', cone: '04', atmosphere: 'oxidation', kind: 'bisque', priceCents: 1500, usableHeightMm: 420, spaceLeftL: 60, tags: ['electric'], crewNote: null, _geo: { lat: 53.3811, lng: -1.4701 } },
-  { id: 'f7', studioName: 'Lace Market Fire', title: 'Mid-fire reduction', cone: '6', atmosphere: 'reduction', kind: 'glaze', priceCents: 4100, spaceLeftL: 18, tags: ['gas'], _geo: { lat: 52.9548, lng: -1.1581 } },
-  { id: 'f8', studioName: 'Harbourside Kilnworks', title: 'Big electric stoneware firing', cone: '10', atmosphere: 'oxidation', kind: 'glaze', priceCents: 6000, usableHeightMm: 700, spaceLeftL: 30, tags: ['electric', 'large'], _geo: { lat: 51.4545, lng: -2.5879 } },
+  {
+    id: 'f1',
+    studioName: 'Ember Lane Studio',
+    title: 'Stoneware reduction firing',
+    cone: '10',
+    atmosphere: 'reduction',
+    kind: 'glaze',
+    priceCents: 4500,
+    usableHeightMm: 450,
+    spaceLeftL: 12.5,
+    tags: ['gas', 'soda'],
+    crewNote: null,
+    _geo: { lat: 53.0027, lng: -2.1794 },
+  },
+  {
+    id: 'f2',
+    studioName: 'Canal Street Kilns',
+    title: 'Mid-fire stoneware glaze load',
+    cone: '6',
+    atmosphere: 'oxidation',
+    kind: 'glaze',
+    priceCents: 3200,
+    usableHeightMm: 380,
+    spaceLeftL: 40,
+    tags: ['electric'],
+    crewNote: 'Fresh kiln wash on every shelf',
+    _geo: { lat: 53.4808, lng: -2.2426 },
+  },
+  {
+    id: 'f3',
+    studioName: 'Jewellery Quarter Clay',
+    title: 'Bisque firing for greenware',
+    cone: '04',
+    atmosphere: 'oxidation',
+    kind: 'bisque',
+    priceCents: 1800,
+    usableHeightMm: 500,
+    spaceLeftL: 80,
+    tags: [],
+    crewNote: '',
+    _geo: { lat: 52.4862, lng: -1.8904 },
+  },
+  {
+    id: 'f4',
+    studioName: 'Kirkgate Pottery',
+    title: 'Porcelain reduction firing',
+    cone: '10',
+    atmosphere: 'reduction',
+    kind: 'glaze',
+    priceCents: 5200,
+    usableHeightMm: 600,
+    spaceLeftL: 5,
+    tags: ['gas'],
+    _geo: { lat: 53.8008, lng: -1.5491 },
+  },
+  {
+    id: 'f5',
+    studioName: 'Thames Side Ceramics',
+    title: 'Electric glaze firing',
+    cone: '6',
+    atmosphere: 'oxidation',
+    kind: 'glaze',
+    priceCents: 3900,
+    usableHeightMm: 300,
+    spaceLeftL: 25,
+    tags: ['electric', 'crystalline'],
+    crewNote: 'Witness cones in every load',
+    _geo: { lat: 51.5074, lng: -0.1278 },
+  },
+  {
+    id: 'f6',
+    studioName: 'Steel City Kiln Share',
+    title: 'Slow bisque with long candling',
+    cone: '04',
+    atmosphere: 'oxidation',
+    kind: 'bisque',
+    priceCents: 1500,
+    usableHeightMm: 420,
+    spaceLeftL: 60,
+    tags: ['electric'],
+    crewNote: null,
+    _geo: { lat: 53.3811, lng: -1.4701 },
+  },
+  {
+    id: 'f7',
+    studioName: 'Lace Market Fire',
+    title: 'Mid-fire reduction',
+    cone: '6',
+    atmosphere: 'reduction',
+    kind: 'glaze',
+    priceCents: 4100,
+    spaceLeftL: 18,
+    tags: ['gas'],
+    _geo: { lat: 52.9548, lng: -1.1581 },
+  },
+  {
+    id: 'f8',
+    studioName: 'Harbourside Kilnworks',
+    title: 'Big electric stoneware firing',
+    cone: '10',
+    atmosphere: 'oxidation',
+    kind: 'glaze',
+    priceCents: 6000,
+    usableHeightMm: 700,
+    spaceLeftL: 30,
+    tags: ['electric', 'large'],
+    _geo: { lat: 51.4545, lng: -2.5879 },
+  },
 ]
 
 const FILTERABLE = ['atmosphere', 'cone', 'crewNote', 'kind', 'priceCents', 'spaceLeftL', 'studioName', 'tags', 'usableHeightMm', '_geo']
@@ -87,7 +187,10 @@ async function apiError(call: Promise<unknown>): Promise<{ status: number; messa
 }
 
 const ids = (hits: Array<{ id: string }>): string[] => hits.map((hit) => hit.id).sort()
-const expectedIds = (predicate: (firing: FiringDocument) => boolean): string[] => FIRINGS.filter(predicate).map((firing) => firing.id).sort()
+const expectedIds = (predicate: (firing: FiringDocument) => boolean): string[] =>
+  FIRINGS.filter(predicate)
+    .map((firing) => firing.id)
+    .sort()
 
 beforeAll(async () => {
   if (!externalHost) engine = await startSearchEngine({ port: 0, masterKey: apiKey })
@@ -162,7 +265,10 @@ describe('tasks', () => {
   it('infers a primary key ending in "id" from the first document', async () => {
     const uid = indexName('inferred')
     createdIndexes.push(uid)
-    const task = await client.index(uid).addDocuments([{ firingId: 'a1', title: 'Bisque' }]).waitTask()
+    const task = await client
+      .index(uid)
+      .addDocuments([{ firingId: 'a1', title: 'Bisque' }])
+      .waitTask()
     expect(task.status).toBe('succeeded')
     expect(await client.index(uid).fetchPrimaryKey()).toBe('firingId')
   })
@@ -240,14 +346,18 @@ describe('search over the firing fixture', () => {
   const filterCases: Array<[string, string | Array<string | string[]>, (firing: FiringDocument) => boolean]> = [
     ['= on a string, case-insensitive', 'atmosphere = REDUCTION', (f) => f.atmosphere === 'reduction'],
     ['= on a quoted value with spaces', 'studioName = "ember lane studio"', (f) => f.studioName === 'Ember Lane Studio'],
-    ["= on a single-quoted value", "studioName = 'Kirkgate Pottery'", (f) => f.studioName === 'Kirkgate Pottery'],
+    ['= on a single-quoted value', "studioName = 'Kirkgate Pottery'", (f) => f.studioName === 'Kirkgate Pottery'],
     ['!=', 'cone != 10', (f) => f.cone !== '10'],
     ['>', 'priceCents > 4100', (f) => f.priceCents > 4100],
     ['>=', 'priceCents >= 4100', (f) => f.priceCents >= 4100],
     ['<', 'priceCents < 3200', (f) => f.priceCents < 3200],
     ['<=', 'priceCents <= 3200', (f) => f.priceCents <= 3200],
     ['>= on a decimal', 'spaceLeftL >= 12.5', (f) => f.spaceLeftL >= 12.5],
-    ['TO (inclusive on both ends)', 'usableHeightMm 420 TO 600', (f) => f.usableHeightMm !== undefined && f.usableHeightMm >= 420 && f.usableHeightMm <= 600],
+    [
+      'TO (inclusive on both ends)',
+      'usableHeightMm 420 TO 600',
+      (f) => f.usableHeightMm !== undefined && f.usableHeightMm >= 420 && f.usableHeightMm <= 600,
+    ],
     ['IN', 'cone IN [6, "04"]', (f) => f.cone === '6' || f.cone === '04'],
     ['NOT IN', 'cone NOT IN [10]', (f) => f.cone !== '10'],
     ['EXISTS (null and empty values exist)', 'crewNote EXISTS', (f) => 'crewNote' in f],
@@ -260,10 +370,26 @@ describe('search over the firing fixture', () => {
     ['NOT with an array attribute', 'NOT tags = electric', (f) => !f.tags.includes('electric')],
     ['AND', 'atmosphere = oxidation AND kind = glaze', (f) => f.atmosphere === 'oxidation' && f.kind === 'glaze'],
     ['OR', 'cone = 04 OR tags = crystalline', (f) => f.cone === '04' || f.tags.includes('crystalline')],
-    ['AND binds tighter than OR', 'kind = bisque OR cone = 10 AND atmosphere = reduction', (f) => f.kind === 'bisque' || (f.cone === '10' && f.atmosphere === 'reduction')],
-    ['parentheses', '(cone = 6 OR cone = 10) AND atmosphere = reduction', (f) => (f.cone === '6' || f.cone === '10') && f.atmosphere === 'reduction'],
-    ['NOT applies to the next condition only', 'NOT cone = 10 AND atmosphere = oxidation', (f) => f.cone !== '10' && f.atmosphere === 'oxidation'],
-    ['array form: outer AND, inner OR', [['cone = 6', 'cone = 10'], 'atmosphere = oxidation'], (f) => (f.cone === '6' || f.cone === '10') && f.atmosphere === 'oxidation'],
+    [
+      'AND binds tighter than OR',
+      'kind = bisque OR cone = 10 AND atmosphere = reduction',
+      (f) => f.kind === 'bisque' || (f.cone === '10' && f.atmosphere === 'reduction'),
+    ],
+    [
+      'parentheses',
+      '(cone = 6 OR cone = 10) AND atmosphere = reduction',
+      (f) => (f.cone === '6' || f.cone === '10') && f.atmosphere === 'reduction',
+    ],
+    [
+      'NOT applies to the next condition only',
+      'NOT cone = 10 AND atmosphere = oxidation',
+      (f) => f.cone !== '10' && f.atmosphere === 'oxidation',
+    ],
+    [
+      'array form: outer AND, inner OR',
+      [['cone = 6', 'cone = 10'], 'atmosphere = oxidation'],
+      (f) => (f.cone === '6' || f.cone === '10') && f.atmosphere === 'oxidation',
+    ],
   ]
 
   it.each(filterCases)('filters with %s', async (_name, filter, predicate) => {
@@ -340,13 +466,16 @@ describe('search over the firing fixture', () => {
     expect((ascending.hits as FiringDocument[]).map((hit) => hit.id)).toEqual([...withHeight, ...withoutHeight].map((f) => f.id))
 
     const descending = await index.search('', { sort: ['priceCents:desc'], limit: 50 })
-    expect((descending.hits as FiringDocument[]).map((hit) => hit.id)).toEqual([...FIRINGS].sort((a, b) => b.priceCents - a.priceCents).map((f) => f.id))
+    expect((descending.hits as FiringDocument[]).map((hit) => hit.id)).toEqual(
+      [...FIRINGS].sort((a, b) => b.priceCents - a.priceCents).map((f) => f.id),
+    )
   })
 
   it('counts facet values and gives min/max for numbers', async () => {
     const result = await index.search('', { filter: 'atmosphere = oxidation', facets: ['cone', 'tags', 'priceCents'] })
     const oxidation = FIRINGS.filter((f) => f.atmosphere === 'oxidation')
-    const count = (values: string[]) => values.reduce<Record<string, number>>((counts, value) => ({ ...counts, [value]: (counts[value] ?? 0) + 1 }), {})
+    const count = (values: string[]) =>
+      values.reduce<Record<string, number>>((counts, value) => ({ ...counts, [value]: (counts[value] ?? 0) + 1 }), {})
     expect(result.facetDistribution?.cone).toEqual(count(oxidation.map((f) => f.cone)))
     expect(result.facetDistribution?.tags).toEqual(count(oxidation.flatMap((f) => f.tags)))
     const prices = oxidation.map((f) => f.priceCents)
@@ -413,7 +542,9 @@ describe('search over the firing fixture', () => {
 
     it('combines the query with a filter', async () => {
       const result = await index.search('stoneware', { filter: 'cone = 10' })
-      expect(ids(result.hits as FiringDocument[])).toEqual(expectedIds((f) => f.cone === '10' && f.title.toLowerCase().includes('stoneware')))
+      expect(ids(result.hits as FiringDocument[])).toEqual(
+        expectedIds((f) => f.cone === '10' && f.title.toLowerCase().includes('stoneware')),
+      )
     })
   })
 

@@ -20,13 +20,24 @@ const interiors = new Map<string, Kiln['interior']>()
 const firingStudio = new Map<string, string>()
 const studios: Record<string, string> = {}
 
-async function studioWithKiln(name: string, postalCode: string, kiln: Record<string, unknown>, firings: Record<string, unknown>[], publish = true) {
+async function studioWithKiln(
+  name: string,
+  postalCode: string,
+  kiln: Record<string, unknown>,
+  firings: Record<string, unknown>[],
+  publish = true,
+) {
   const studio = (await owner.session.post('/api/studios', { name, postalCode })).body
   studios[name] = studio.id
   const created = await owner.session.post(`/api/studios/${studio.id}/kilns`, { name: `${name} kiln`, shelfCount: 4, ...kiln })
   if (created.status !== 201) throw new Error(JSON.stringify(created.body))
   interiors.set(studio.id, kiln.interior as Kiln['interior'])
-  await owner.session.put(`/api/kilns/${created.body.id}/price-list`, { currency: 'USD', model: 'volume', centsPerCubicInch: 4 + Object.keys(studios).length, deposit: { percent: 25 } })
+  await owner.session.put(`/api/kilns/${created.body.id}/price-list`, {
+    currency: 'USD',
+    model: 'volume',
+    centsPerCubicInch: 4 + Object.keys(studios).length,
+    deposit: { percent: 25 },
+  })
   for (const firing of firings) {
     const drop = firing.dropInDays as number
     const reply = await owner.session.post(`/api/kilns/${created.body.id}/firings`, {
@@ -72,7 +83,20 @@ const gas = (widthMm: number, depthMm: number, heightMm: number) => ({
 async function search(query: string) {
   const reply = await anyone().get(`/api/search?${query}`)
   expect(reply.status, JSON.stringify(reply.body)).toBe(200)
-  return reply.body as { hits: { firingId: string; studio: { id: string; lat: number; lng: number }; distanceKm: number; cone: string; atmosphere: string; priceExample: { totalCents: number }; dropOffBy: string }[]; total: number; degraded: boolean; facets: Record<string, Record<string, number>> }
+  return reply.body as {
+    hits: {
+      firingId: string
+      studio: { id: string; lat: number; lng: number }
+      distanceKm: number
+      cone: string
+      atmosphere: string
+      priceExample: { totalCents: number }
+      dropOffBy: string
+    }[]
+    total: number
+    degraded: boolean
+    facets: Record<string, Record<string, number>>
+  }
 }
 
 const studioIdsOf = (r: Awaited<ReturnType<typeof search>>) => [...new Set(r.hits.map((h) => h.studio.id))]
@@ -94,7 +118,9 @@ beforeAll(async () => {
   await studioWithKiln('Seattle', '98101', gas(800, 800, 900), [{ cone: '10', atmosphere: 'reduction', dropInDays: 8 }])
   await studioWithKiln('Draft', '97214', gas(900, 900, 900), [{ cone: '10', atmosphere: 'reduction', dropInDays: 6 }], false)
   // The index is a few seconds behind at most: wait for the worker to catch up.
-  await waitUntil(async () => (await anyone().get('/api/search?perPage=50')).body.total === 6, { what: 'the index to hold the six published firings' })
+  await waitUntil(async () => (await anyone().get('/api/search?perPage=50')).body.total === 6, {
+    what: 'the index to hold the six published firings',
+  })
 }, 90_000)
 
 afterAll(async () => {
@@ -141,12 +167,19 @@ describe('filters', () => {
   it('fits a footprint by exactly the rule of checkWare, for any piece', async () => {
     const everything = await search('perPage=50')
     await fc.assert(
-      fc.asyncProperty(fc.integer({ min: 100, max: 1100 }), fc.option(fc.integer({ min: 50, max: 1100 }), { nil: null }), async (width, depth) => {
-        const result = await search(`fitsWidthMm=${width}${depth === null ? '' : `&fitsDepthMm=${depth}`}&perPage=50`)
-        const piece = depth === null ? { widthMm: width, depthMm: width, round: true } : { widthMm: width, depthMm: depth }
-        const expected = everything.hits.filter((h) => pieceFitsFootprint({ interior: interiors.get(h.studio.id)! }, piece)).map((h) => h.firingId).sort()
-        expect(result.hits.map((h) => h.firingId).sort()).toEqual(expected)
-      }),
+      fc.asyncProperty(
+        fc.integer({ min: 100, max: 1100 }),
+        fc.option(fc.integer({ min: 50, max: 1100 }), { nil: null }),
+        async (width, depth) => {
+          const result = await search(`fitsWidthMm=${width}${depth === null ? '' : `&fitsDepthMm=${depth}`}&perPage=50`)
+          const piece = depth === null ? { widthMm: width, depthMm: width, round: true } : { widthMm: width, depthMm: depth }
+          const expected = everything.hits
+            .filter((h) => pieceFitsFootprint({ interior: interiors.get(h.studio.id)! }, piece))
+            .map((h) => h.firingId)
+            .sort()
+          expect(result.hits.map((h) => h.firingId).sort()).toEqual(expected)
+        },
+      ),
       { numRuns: 25 },
     )
   })
@@ -196,7 +229,13 @@ describe('bad parameters', () => {
 })
 
 describe('with the engine down', () => {
-  const QUERIES = ['place=97214&radiusKm=60&sort=distance', 'cone=04..10&sort=price&perPage=50', 'fitsHeightMm=500&fitsWidthMm=400&fitsDepthMm=300', 'q=Fern', 'atmosphere=oxidation&sort=soonest']
+  const QUERIES = [
+    'place=97214&radiusKm=60&sort=distance',
+    'cone=04..10&sort=price&perPage=50',
+    'fitsHeightMm=500&fitsWidthMm=400&fitsDepthMm=300',
+    'q=Fern',
+    'atmosphere=oxidation&sort=soonest',
+  ]
 
   it('answers the same queries from PostgreSQL, marked degraded, in the same order', async () => {
     const up = await Promise.all(QUERIES.map(search))
@@ -207,7 +246,10 @@ describe('with the engine down', () => {
       const down = await Promise.all(QUERIES.map(search))
       expect(down.every((r) => r.degraded)).toBe(true)
       down.forEach((r, i) => {
-        expect(r.hits.map((h) => h.firingId), QUERIES[i]).toEqual(up[i].hits.map((h) => h.firingId))
+        expect(
+          r.hits.map((h) => h.firingId),
+          QUERIES[i],
+        ).toEqual(up[i].hits.map((h) => h.firingId))
         expect(r.total).toBe(up[i].total)
         expect(r.facets).toEqual(up[i].facets)
       })
@@ -230,10 +272,15 @@ describe('with the engine down', () => {
       // The engine comes back with its data; the queued update is replayed and nothing is lost.
       app.search = await startSearchEngine({ port, masterKey: 'test-search-key', state })
       await app.ctx.db.query(`UPDATE graphile_worker._private_jobs SET run_at = now() WHERE key LIKE 'search-sync:%'`)
-      await expect.poll(async () => {
-        const r = await search('cone=5')
-        return { degraded: r.degraded, ids: r.hits.map((h) => h.firingId) }
-      }, { timeout: 30_000, interval: 500 }).toEqual({ degraded: false, ids: [newId] })
+      await expect
+        .poll(
+          async () => {
+            const r = await search('cone=5')
+            return { degraded: r.degraded, ids: r.hits.map((h) => h.firingId) }
+          },
+          { timeout: 30_000, interval: 500 },
+        )
+        .toEqual({ degraded: false, ids: [newId] })
     } finally {
       if (!app.search || app.search.port !== port) app.search = await startSearchEngine({ port, masterKey: 'test-search-key', state })
     }
@@ -245,7 +292,9 @@ describe('keeping the index true', () => {
     const salemFirings = (await search('perPage=50')).hits.filter((h) => h.studio.id === studios.Salem)
     expect(salemFirings.length).toBeGreaterThan(0)
     await owner.session.post(`/api/firings/${salemFirings[0].firingId}/cancel`, { reason: 'Kiln sitter broke' })
-    await expect.poll(async () => (await search('perPage=50')).hits.some((h) => h.firingId === salemFirings[0].firingId), { timeout: 15_000 }).toBe(false)
+    await expect
+      .poll(async () => (await search('perPage=50')).hits.some((h) => h.firingId === salemFirings[0].firingId), { timeout: 15_000 })
+      .toBe(false)
     await owner.session.patch(`/api/studios/${studios.Seattle}`, { published: false })
     await expect.poll(async () => studioIdsOf(await search('perPage=50')).includes(studios.Seattle), { timeout: 15_000 }).toBe(false)
   })

@@ -13,10 +13,12 @@ afterAll(async () => {
 })
 
 const counts = async () =>
-  (await app.ctx.db.query(
-    `SELECT (SELECT count(*) FROM users)::int AS users, (SELECT count(*) FROM studios)::int AS studios, (SELECT count(*) FROM kilns)::int AS kilns,
+  (
+    await app.ctx.db.query(
+      `SELECT (SELECT count(*) FROM users)::int AS users, (SELECT count(*) FROM studios)::int AS studios, (SELECT count(*) FROM kilns)::int AS kilns,
             (SELECT count(*) FROM firings)::int AS firings, (SELECT count(*) FROM firing_requests)::int AS requests, (SELECT count(*) FROM ratings)::int AS ratings`,
-  ))[0]
+    )
+  )[0]
 
 describe('the demo data', () => {
   it('seeds forty studios with kilns, firings eight weeks ahead, requests and a rating, and adds nothing the second time', async () => {
@@ -36,7 +38,10 @@ describe('the demo data', () => {
     expect(reply.status).toBe(200)
     expect(reply.body.studios).toEqual([expect.objectContaining({ name: 'Alder Street Clay Commons', role: 'owner' })])
     const crew = await new HttpSession(app.url).signIn('dev.ramanathan@demo.conewright.test', DEMO_PASSWORD)
-    expect(crew.body).toMatchObject({ role: 'crew', studios: [expect.objectContaining({ name: 'Alder Street Clay Commons', role: 'crew' })] })
+    expect(crew.body).toMatchObject({
+      role: 'crew',
+      studios: [expect.objectContaining({ name: 'Alder Street Clay Commons', role: 'crew' })],
+    })
   })
 
   it('has a firing nearly full', async () => {

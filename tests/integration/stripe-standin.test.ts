@@ -176,9 +176,7 @@ describe('Stripe API contract (stand-in, or real Stripe test mode when configure
   it('refuses the same Idempotency-Key with different parameters as an idempotency_error', async () => {
     const idempotencyKey = `contract-${randomUUID()}`
     await stripe.checkout.sessions.create(depositSession(), { idempotencyKey })
-    const error = await caught(
-      stripe.checkout.sessions.create(depositSession({ metadata: { requestId: 'r-2' } }), { idempotencyKey }),
-    )
+    const error = await caught(stripe.checkout.sessions.create(depositSession({ metadata: { requestId: 'r-2' } }), { idempotencyKey }))
 
     expect(error).toBeInstanceOf(Stripe.errors.StripeIdempotencyError)
     expect(error.rawType).toBe('idempotency_error')
@@ -622,7 +620,10 @@ describe.skipIf(againstRealStripe)('hosted page, webhooks and refunds (stand-in 
 
   it('records what the SDK sent, form-encoded with bracketed keys', async () => {
     const session = await stripe.checkout.sessions.create(depositSession())
-    const sent = standIn.requests().filter((entry) => entry.method === 'POST' && entry.path === '/v1/checkout/sessions').at(-1)
+    const sent = standIn
+      .requests()
+      .filter((entry) => entry.method === 'POST' && entry.path === '/v1/checkout/sessions')
+      .at(-1)
 
     expect(sent?.status).toBe(200)
     expect(sent?.params).toMatchObject({
@@ -653,9 +654,7 @@ describe.skipIf(againstRealStripe)('session expiry on the clock (stand-in only)'
 
   it('expires an open session once expires_at has passed, raising checkout.session.expired', async () => {
     const thirtyMinutes = 30 * 60
-    const session = await stripe.checkout.sessions.create(
-      depositSession({ expires_at: Math.floor(clock / 1000) + thirtyMinutes }),
-    )
+    const session = await stripe.checkout.sessions.create(depositSession({ expires_at: Math.floor(clock / 1000) + thirtyMinutes }))
     expect((await stripe.checkout.sessions.retrieve(session.id)).status).toBe('open')
 
     clock += (thirtyMinutes + 1) * 1000

@@ -89,7 +89,11 @@ describe('bad input gets 400 with field messages', () => {
   })
 
   it('a price list with no price for its model', async () => {
-    const reply = await owner.session.put(`/api/kilns/${ids.kilnId}/price-list`, { currency: 'USD', model: 'shelf', deposit: { percent: 20 } })
+    const reply = await owner.session.put(`/api/kilns/${ids.kilnId}/price-list`, {
+      currency: 'USD',
+      model: 'shelf',
+      deposit: { percent: 20 },
+    })
     expect(reply.status).toBe(400)
     expect(reply.body.error.fields.shelfCents).toBeTruthy()
   })
@@ -165,7 +169,13 @@ describe('repeating a firing', () => {
     expect(firings).toHaveLength(3)
     expect(new Set(firings.map((f) => f.seriesId)).size).toBe(1)
     const local = firings.map((f) =>
-      new Intl.DateTimeFormat('en-US', { timeZone: 'America/Los_Angeles', weekday: 'short', month: 'numeric', day: 'numeric', hour: 'numeric' }).format(new Date(f.firingDate)),
+      new Intl.DateTimeFormat('en-US', {
+        timeZone: 'America/Los_Angeles',
+        weekday: 'short',
+        month: 'numeric',
+        day: 'numeric',
+        hour: 'numeric',
+      }).format(new Date(f.firingDate)),
     )
     expect(local).toEqual(['Fri, 3/5, 9 AM', 'Fri, 3/19, 9 AM', 'Fri, 4/2, 9 AM'])
     expect(firings.map((f) => f.firingDate)).toEqual(['2027-03-05T17:00:00.000Z', '2027-03-19T16:00:00.000Z', '2027-04-02T16:00:00.000Z'])
@@ -215,7 +225,11 @@ describe('the calendar feed', () => {
     expect(res.headers.get('content-type')).toMatch(/^text\/calendar/)
     const calendar = new ICAL.Component(ICAL.parse(await res.text()))
     const events = calendar.getAllSubcomponents('vevent').map((e) => new ICAL.Event(e))
-    const firings = (await new HttpSession(app.url).get(`/api/studios/${ids.studioId}/firings`)).body.firings as { id: string; firingDate: string; dropOffBy: string }[]
+    const firings = (await new HttpSession(app.url).get(`/api/studios/${ids.studioId}/firings`)).body.firings as {
+      id: string
+      firingDate: string
+      dropOffBy: string
+    }[]
     expect(events).toHaveLength(firings.length * 2)
     // iCalendar DATE-TIME values carry whole seconds (RFC 5545 §3.3.5).
     const toSecond = (iso: string) => new Date(Math.floor(Date.parse(iso) / 1000) * 1000).toISOString()
@@ -237,7 +251,9 @@ describe('the calendar feed', () => {
 describe('crew invitations', () => {
   async function inviteLink(email: string) {
     await owner.session.post(`/api/studios/${ids.studioId}/invites`, { email })
-    const mail = await app.ctx.db.getRepository(OutboundMail).findOneOrFail({ where: { template: 'crew-invite', toAddress: email }, order: { createdAt: 'DESC' } })
+    const mail = await app.ctx.db
+      .getRepository(OutboundMail)
+      .findOneOrFail({ where: { template: 'crew-invite', toAddress: email }, order: { createdAt: 'DESC' } })
     return new URL(mail.bodyText.match(/https?:\/\/\S+join-studio\?token=\S+/)![0]).searchParams.get('token')!
   }
 
@@ -247,14 +263,23 @@ describe('crew invitations', () => {
     const lookup = await new HttpSession(app.url).post('/api/invites/lookup', { token })
     expect(lookup.body).toMatchObject({ studioId: ids.studioId, studioName: 'Lindqvist Kilnworks', email })
     const session = new HttpSession(app.url)
-    const registered = await session.post('/api/auth/register', { email, password: 'glost-firing-at-dawn-again', displayName: 'Ty Brennan', role: 'potter', inviteToken: token })
+    const registered = await session.post('/api/auth/register', {
+      email,
+      password: 'glost-firing-at-dawn-again',
+      displayName: 'Ty Brennan',
+      role: 'potter',
+      inviteToken: token,
+    })
     expect(registered.status).toBe(201)
     expect(registered.body).toMatchObject({ role: 'crew', emailVerified: true, studios: [{ id: ids.studioId, role: 'crew' }] })
     // One use only.
     expect((await new HttpSession(app.url).post('/api/invites/lookup', { token })).status).toBe(400)
     // Crew run the firings, but the price list is the owner's.
     expect((await session.patch(`/api/firings/${ids.firingId}`, { status: 'closed' })).status).toBe(200)
-    expect((await session.put(`/api/kilns/${ids.kilnId}/price-list`, { currency: 'USD', model: 'kiln', kilnCents: 1, deposit: { percent: 0 } })).status).toBe(403)
+    expect(
+      (await session.put(`/api/kilns/${ids.kilnId}/price-list`, { currency: 'USD', model: 'kiln', kilnCents: 1, deposit: { percent: 0 } }))
+        .status,
+    ).toBe(403)
   })
 
   it('joins an existing account that signs in with the invited address, and no other', async () => {
@@ -266,7 +291,9 @@ describe('crew invitations', () => {
     expect(wrong.body.error.code).toBe('invite-for-other')
     const right = await invitee.session.post('/api/invites/accept', { token })
     expect(right.status).toBe(200)
-    expect(await app.ctx.db.getRepository(StudioMember).findOneBy({ studioId: ids.studioId, userId: invitee.id })).toMatchObject({ role: 'crew' })
+    expect(await app.ctx.db.getRepository(StudioMember).findOneBy({ studioId: ids.studioId, userId: invitee.id })).toMatchObject({
+      role: 'crew',
+    })
   })
 
   it('shows members and open invitations to the owner, who can remove crew', async () => {

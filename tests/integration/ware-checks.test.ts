@@ -86,7 +86,11 @@ describe('POST /api/ware-checks, verdicts', () => {
     expect(codes(reply.body)).toEqual(['wet-greenware'])
     expect(reply.body.findings[0].message).toContain('Mug')
 
-    const dry = await check({ kiln: electricKiln, firing: { kind: 'bisque', cone: '04', atmosphere: 'oxidation' }, pieces: [{ ...greenware, boneDry: true }] })
+    const dry = await check({
+      kiln: electricKiln,
+      firing: { kind: 'bisque', cone: '04', atmosphere: 'oxidation' },
+      pieces: [{ ...greenware, boneDry: true }],
+    })
     expect(dry.body.verdict).toBe('ok')
   })
 
@@ -117,7 +121,12 @@ describe('POST /api/ware-checks, quotes', () => {
     const priceList = { currency: 'usd', model: 'volume', centsPerCubicInch: 4, deposit: { percent: 50 } }
     const reply = await check({ kiln: electricKiln, firing: glazeFiring, pieces: [cube], priceList })
     expect(reply.status).toBe(200)
-    expect(reply.body.quote).toEqual({ currency: 'USD', lines: [{ label: 'Box × 2', amountCents: 512 }], totalCents: 512, depositCents: 256 })
+    expect(reply.body.quote).toEqual({
+      currency: 'USD',
+      lines: [{ label: 'Box × 2', amountCents: 512 }],
+      totalCents: 512,
+      depositCents: 256,
+    })
   })
 
   it('sizes shelf shares from the kiln: a quarter of a box shelf rounds up to the next quarter', async () => {
@@ -164,7 +173,11 @@ describe('POST /api/ware-checks, bad input', () => {
   })
 
   it('a reversed cone range', async () => {
-    await expectFieldError({ ...valid, kiln: { ...electricKiln, minCone: '10', maxCone: '04' } }, 'kiln.maxCone', /coolest cone must not be hotter/)
+    await expectFieldError(
+      { ...valid, kiln: { ...electricKiln, minCone: '10', maxCone: '04' } },
+      'kiln.maxCone',
+      /coolest cone must not be hotter/,
+    )
     await expectFieldError(
       { ...valid, pieces: [{ ...mug, clay: { body: 'stoneware', minCone: '10', maxCone: '5' } }] },
       'pieces.0.clay.maxCone',
@@ -233,7 +246,9 @@ describe('POST /api/ware-checks, rate limit', () => {
   it('answers 429 once one address has used its checks for the minute, whatever the session', async () => {
     const statuses: number[] = []
     for (let i = 0; i < 5; i++) {
-      statuses.push((await new HttpSession(limited.url).post('/api/ware-checks', { kiln: electricKiln, firing: glazeFiring, pieces: [mug] })).status)
+      statuses.push(
+        (await new HttpSession(limited.url).post('/api/ware-checks', { kiln: electricKiln, firing: glazeFiring, pieces: [mug] })).status,
+      )
     }
     expect(statuses).toEqual([200, 200, 200, 429, 429])
     const reply = await new HttpSession(limited.url).post('/api/ware-checks', { kiln: electricKiln, firing: glazeFiring, pieces: [mug] })

@@ -31,7 +31,11 @@ export function watchPageErrors(page: Page): string[] {
 }
 
 /** A fresh browser context and page on the app, with page errors collected and a 15 s default wait. */
-export async function openPage(browser: Browser, baseURL: string, options: BrowserContextOptions = {}): Promise<{ page: Page; errors: string[]; context: BrowserContext }> {
+export async function openPage(
+  browser: Browser,
+  baseURL: string,
+  options: BrowserContextOptions = {},
+): Promise<{ page: Page; errors: string[]; context: BrowserContext }> {
   const context = await browser.newContext({ baseURL, viewport: { width: 1280, height: 900 }, ...options })
   const page = await context.newPage()
   page.setDefaultTimeout(15_000)

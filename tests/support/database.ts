@@ -3,7 +3,6 @@ import pg from 'pg'
 import { inject } from 'vitest'
 import { withDatabase } from './database-url'
 
-
 /** A fresh database cloned from the migrated template; `drop()` removes it. */
 export async function createTestDatabase(): Promise<{ url: string; drop(): Promise<void> }> {
   const adminUrl = inject('pgAdminUrl')

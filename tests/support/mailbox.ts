@@ -23,7 +23,9 @@ export async function waitForMail(
   while (Date.now() < deadline) {
     const found = (await listMail(inboxUrl))
       .filter((m) => m.to.some((t) => t.address.toLowerCase() === match.to.toLowerCase()))
-      .filter((m) => !match.subject || (typeof match.subject === 'string' ? m.subject.includes(match.subject) : match.subject.test(m.subject)))
+      .filter(
+        (m) => !match.subject || (typeof match.subject === 'string' ? m.subject.includes(match.subject) : match.subject.test(m.subject)),
+      )
       .filter((m) => !match.after || new Date(m.time).getTime() >= match.after.getTime() - 1000)
       .sort((a, b) => new Date(b.time).getTime() - new Date(a.time).getTime())
     if (found.length) return found[0]

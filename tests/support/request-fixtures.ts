@@ -26,7 +26,11 @@ export const wetBowl = () => mug({ label: 'Wet bowl', quantity: 1, state: 'green
 export async function draftAndSend(potter: HttpSession, firingId: string, pieces: unknown[], acknowledged: string[] = []) {
   const draft = await potter.post(`/api/firings/${firingId}/requests`, { pieces })
   if (draft.status !== 201) throw new Error(`draft: ${draft.status} ${JSON.stringify(draft.body)}`)
-  const sent = await potter.post(`/api/requests/${draft.body.id}/send`, { acknowledged, agreePolicies: true, policiesVersion: draft.body.studio.policiesVersion })
+  const sent = await potter.post(`/api/requests/${draft.body.id}/send`, {
+    acknowledged,
+    agreePolicies: true,
+    policiesVersion: draft.body.studio.policiesVersion,
+  })
   if (sent.status !== 200) throw new Error(`send: ${sent.status} ${JSON.stringify(sent.body)}`)
   return sent.body as { id: string; state: string; volumeL: number; quote: { totalCents: number; depositCents: number } }
 }
@@ -49,6 +53,9 @@ export async function sendAndPayDeposit(
   if (deposit.status !== 200) throw new Error(`deposit: ${deposit.status} ${JSON.stringify(deposit.body)}`)
   const paid = await submitCard(deposit.body.checkoutUrl, { cardNumber: CARD_SUCCEEDS })
   if (paid.status !== 303) throw new Error(`hosted page answered ${paid.status}`)
-  await waitUntil(async () => (await app.ctx.db.query('SELECT state FROM firing_requests WHERE id = $1', [sent.id]))[0]?.state === 'deposit_paid', { what: 'the deposit webhook' })
+  await waitUntil(
+    async () => (await app.ctx.db.query('SELECT state FROM firing_requests WHERE id = $1', [sent.id]))[0]?.state === 'deposit_paid',
+    { what: 'the deposit webhook' },
+  )
   return sent
 }

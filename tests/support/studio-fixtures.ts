@@ -17,7 +17,13 @@ export const electricKiln = {
   shelfDepthMm: 660,
 }
 
-export const volumePriceList = { currency: 'USD', model: 'volume', centsPerCubicInch: 4, minimumPerPieceCents: 300, deposit: { percent: 25 } }
+export const volumePriceList = {
+  currency: 'USD',
+  model: 'volume',
+  centsPerCubicInch: 4,
+  minimumPerPieceCents: 300,
+  deposit: { percent: 25 },
+}
 
 const days = (n: number) => new Date(Date.now() + n * 24 * 3600_000).toISOString()
 

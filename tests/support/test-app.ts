@@ -34,7 +34,14 @@ export async function startTestApp(
   const database = await createTestDatabase()
   const mail = options.mail ? await startMailCatcher({ smtpPort: await freePort(), webPort: await freePort() }) : null
   const search = options.search ? await startSearchEngine({ port: 0, masterKey: 'test-search-key' }) : null
-  const stripe = options.stripe ? await startStripeStandIn({ port: 0, secretKey: 'sk_test_conewright_tests', webhookSecret: 'whsec_conewright_tests', webhookRetry: { baseDelayMs: 100 } }) : null
+  const stripe = options.stripe
+    ? await startStripeStandIn({
+        port: 0,
+        secretKey: 'sk_test_conewright_tests',
+        webhookSecret: 'whsec_conewright_tests',
+        webhookRetry: { baseDelayMs: 100 },
+      })
+    : null
   const storageDir = mkdtempSync(path.join(os.tmpdir(), 'conewright-storage-'))
   const config = loadConfig(
     {},

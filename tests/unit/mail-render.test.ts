@@ -22,7 +22,14 @@ describe('renderMail', () => {
   })
 
   it('lines up detail rows in the text part', () => {
-    const mail = renderMail({ subject: 's', paragraphs: [], details: [['Pieces', '4'], ['Balance due', '$18.00']] })
+    const mail = renderMail({
+      subject: 's',
+      paragraphs: [],
+      details: [
+        ['Pieces', '4'],
+        ['Balance due', '$18.00'],
+      ],
+    })
     expect(mail.text).toContain('Pieces       4')
     expect(mail.text).toContain('Balance due  $18.00')
   })

@@ -36,7 +36,8 @@ describe('the request state machine', () => {
   })
 
   it('lets nothing be cancelled once the ware is received', () => {
-    for (const state of ['received', 'fired', 'ready', 'collected', 'disputed'] as RequestState[]) expect(canMoveRequest(state, 'cancelled')).toBe(false)
+    for (const state of ['received', 'fired', 'ready', 'collected', 'disputed'] as RequestState[])
+      expect(canMoveRequest(state, 'cancelled')).toBe(false)
   })
 
   it('ends declined, withdrawn, cancelled and disputed requests for good', () => {
@@ -52,10 +53,21 @@ describe('the firing status machine', () => {
   // Taking ware (open), full or closed to new requests in any order; then only forward through the
   // kiln: loading → firing → cooling → unloaded. Cancelling is possible only before loading.
   const ALLOWED_FIRING: [FiringStatus, FiringStatus][] = [
-    ['open', 'full'], ['open', 'closed'], ['open', 'loading'], ['open', 'cancelled'],
-    ['full', 'open'], ['full', 'closed'], ['full', 'loading'], ['full', 'cancelled'],
-    ['closed', 'open'], ['closed', 'full'], ['closed', 'loading'], ['closed', 'cancelled'],
-    ['loading', 'firing'], ['firing', 'cooling'], ['cooling', 'unloaded'],
+    ['open', 'full'],
+    ['open', 'closed'],
+    ['open', 'loading'],
+    ['open', 'cancelled'],
+    ['full', 'open'],
+    ['full', 'closed'],
+    ['full', 'loading'],
+    ['full', 'cancelled'],
+    ['closed', 'open'],
+    ['closed', 'full'],
+    ['closed', 'loading'],
+    ['closed', 'cancelled'],
+    ['loading', 'firing'],
+    ['firing', 'cooling'],
+    ['cooling', 'unloaded'],
   ]
   const pairs = FIRING_STATUSES.flatMap((from) => FIRING_STATUSES.map((to) => [from, to] as [FiringStatus, FiringStatus]))
 

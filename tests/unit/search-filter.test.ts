@@ -26,18 +26,30 @@ function display(node: FilterNode): string {
       const field = token(node.field)
       const condition = node.condition
       switch (condition.kind) {
-        case 'equal': return `${field} = ${token(condition.value)}`
-        case 'notEqual': return `${field} != ${token(condition.value)}`
-        case 'greaterThan': return `${field} > ${token(condition.value)}`
-        case 'greaterThanOrEqual': return `${field} >= ${token(condition.value)}`
-        case 'lowerThan': return `${field} < ${token(condition.value)}`
-        case 'lowerThanOrEqual': return `${field} <= ${token(condition.value)}`
-        case 'between': return `${field} ${token(condition.from)} TO ${token(condition.to)}`
-        case 'exists': return `${field} EXISTS`
-        case 'null': return `${field} IS NULL`
-        case 'empty': return `${field} IS EMPTY`
-        case 'contains': return `${field} CONTAINS ${token(condition.word)}`
-        case 'startsWith': return `${field} STARTS WITH ${token(condition.word)}`
+        case 'equal':
+          return `${field} = ${token(condition.value)}`
+        case 'notEqual':
+          return `${field} != ${token(condition.value)}`
+        case 'greaterThan':
+          return `${field} > ${token(condition.value)}`
+        case 'greaterThanOrEqual':
+          return `${field} >= ${token(condition.value)}`
+        case 'lowerThan':
+          return `${field} < ${token(condition.value)}`
+        case 'lowerThanOrEqual':
+          return `${field} <= ${token(condition.value)}`
+        case 'between':
+          return `${field} ${token(condition.from)} TO ${token(condition.to)}`
+        case 'exists':
+          return `${field} EXISTS`
+        case 'null':
+          return `${field} IS NULL`
+        case 'empty':
+          return `${field} IS EMPTY`
+        case 'contains':
+          return `${field} CONTAINS ${token(condition.word)}`
+        case 'startsWith':
+          return `${field} STARTS WITH ${token(condition.word)}`
       }
     }
   }
@@ -83,7 +95,10 @@ describe('filter parser: accepted filters (expected trees from the engine parser
     [' colour IN [  green , blue , ]', '{colour} IN[{green}, {blue}, ]'],
     [' colour IN [green, blue]  AND color = green ', 'AND[{colour} IN[{green}, {blue}, ], {color} = {green}, ]'],
     ['NOT (colour IN [green, blue])  AND color = green ', 'AND[NOT ({colour} IN[{green}, {blue}, ]), {color} = {green}, ]'],
-    ['x = 1 OR NOT (colour IN [green, blue]  OR color = green) ', 'OR[{x} = {1}, NOT (OR[{colour} IN[{green}, {blue}, ], {color} = {green}, ]), ]'],
+    [
+      'x = 1 OR NOT (colour IN [green, blue]  OR color = green) ',
+      'OR[{x} = {1}, NOT (OR[{colour} IN[{green}, {blue}, ], {color} = {green}, ]), ]',
+    ],
     [' colour NOT  IN [green, blue] ', 'NOT ({colour} IN[{green}, {blue}, ])'],
   ])('IN and NOT IN lists: %s', (filter, tree) => {
     expect(parsed(filter)).toBe(tree)
@@ -203,34 +218,79 @@ describe('filter parser: the array form', () => {
 
 describe('filter parser: errors carry the engine wording and position', () => {
   it.each([
-    ['channel = Ponce = 12', 'Found unexpected characters at the end of the filter: `= 12`. You probably forgot an `OR` or an `AND` rule.\n17:21 channel = Ponce = 12'],
+    [
+      'channel = Ponce = 12',
+      'Found unexpected characters at the end of the filter: `= 12`. You probably forgot an `OR` or an `AND` rule.\n17:21 channel = Ponce = 12',
+    ],
     ['channel =    ', 'Was expecting a value but instead got nothing.\n14:14 channel =    '],
     ['channel = 🐻', 'Was expecting a value but instead got `🐻`.\n11:12 channel = 🐻'],
     ['channel = 🐻 AND followers < 100', 'Was expecting a value but instead got `🐻`.\n11:12 channel = 🐻 AND followers < 100'],
     ["'OR'", `${OPERATIONS} at \`\\'OR\\'\`.\n1:5 'OR'`],
-    ['OR', 'Was expecting a value but instead got `OR`, which is a reserved keyword. To use `OR` as a field name or a value, surround it by quotes.\n1:3 OR'],
+    [
+      'OR',
+      'Was expecting a value but instead got `OR`, which is a reserved keyword. To use `OR` as a field name or a value, surround it by quotes.\n1:3 OR',
+    ],
     ['channel Ponce', `${OPERATIONS} at \`channel Ponce\`.\n1:14 channel Ponce`],
     ['channel = Ponce OR', `${OPERATIONS} but instead got nothing.\n19:19 channel = Ponce OR`],
     ['_geoRadius', 'The `_geoRadius` filter expects three arguments: `_geoRadius(latitude, longitude, radius)`.\n1:11 _geoRadius'],
-    ['_geoRadius = 12', 'The `_geoRadius` filter expects three arguments: `_geoRadius(latitude, longitude, radius)`.\n1:16 _geoRadius = 12'],
-    ['_geoBoundingBox', 'The `_geoBoundingBox` filter expects two pairs of arguments: `_geoBoundingBox([latitude, longitude], [latitude, longitude])`.\n1:16 _geoBoundingBox'],
-    ['_geoBoundingBox(1.0, 1.0)', 'The `_geoBoundingBox` filter expects two pairs of arguments: `_geoBoundingBox([latitude, longitude], [latitude, longitude])`.\n1:26 _geoBoundingBox(1.0, 1.0)'],
-    ['position <= _geoRadius(12, 13, 14)', "The `_geoRadius` filter is an operation and can't be used as a value.\n13:35 position <= _geoRadius(12, 13, 14)"],
+    [
+      '_geoRadius = 12',
+      'The `_geoRadius` filter expects three arguments: `_geoRadius(latitude, longitude, radius)`.\n1:16 _geoRadius = 12',
+    ],
+    [
+      '_geoBoundingBox',
+      'The `_geoBoundingBox` filter expects two pairs of arguments: `_geoBoundingBox([latitude, longitude], [latitude, longitude])`.\n1:16 _geoBoundingBox',
+    ],
+    [
+      '_geoBoundingBox(1.0, 1.0)',
+      'The `_geoBoundingBox` filter expects two pairs of arguments: `_geoBoundingBox([latitude, longitude], [latitude, longitude])`.\n1:26 _geoBoundingBox(1.0, 1.0)',
+    ],
+    [
+      'position <= _geoRadius(12, 13, 14)',
+      "The `_geoRadius` filter is an operation and can't be used as a value.\n13:35 position <= _geoRadius(12, 13, 14)",
+    ],
     ["channel = 'ponce", "Expression `\\'ponce` is missing the following closing delimiter: `'`.\n11:17 channel = 'ponce"],
     ['channel = "ponce', 'Expression `\\"ponce` is missing the following closing delimiter: `"`.\n11:17 channel = "ponce'],
-    ['channel = mv OR (followers >= 1000', 'Expression `(followers >= 1000` is missing the following closing delimiter: `)`.\n17:35 channel = mv OR (followers >= 1000'],
-    ['channel = mv OR followers >= 1000)', 'Found unexpected characters at the end of the filter: `)`. You probably forgot an `OR` or an `AND` rule.\n34:35 channel = mv OR followers >= 1000)'],
+    [
+      'channel = mv OR (followers >= 1000',
+      'Expression `(followers >= 1000` is missing the following closing delimiter: `)`.\n17:35 channel = mv OR (followers >= 1000',
+    ],
+    [
+      'channel = mv OR followers >= 1000)',
+      'Found unexpected characters at the end of the filter: `)`. You probably forgot an `OR` or an `AND` rule.\n34:35 channel = mv OR followers >= 1000)',
+    ],
     ['colour NOT EXIST', `${OPERATIONS} at \`colour NOT EXIST\`.\n1:17 colour NOT EXIST`],
     ['subscribers 100 TO1000', `${OPERATIONS} at \`subscribers 100 TO1000\`.\n1:23 subscribers 100 TO1000`],
-    ["channel = ponce ORdog != 'bernese mountain'", "Found unexpected characters at the end of the filter: `ORdog != \\'bernese mountain\\'`. You probably forgot an `OR` or an `AND` rule.\n17:44 channel = ponce ORdog != 'bernese mountain'"],
+    [
+      "channel = ponce ORdog != 'bernese mountain'",
+      "Found unexpected characters at the end of the filter: `ORdog != \\'bernese mountain\\'`. You probably forgot an `OR` or an `AND` rule.\n17:44 channel = ponce ORdog != 'bernese mountain'",
+    ],
     ['colour IN blue, green]', 'Expected `[` after `IN` keyword.\n11:23 colour IN blue, green]'],
-    ["colour IN [blue, green, 'blue' > 2]", "Expected only comma-separated field names inside `IN[..]` but instead found `> 2]`.\n32:36 colour IN [blue, green, 'blue' > 2]"],
-    ['colour IN [blue, green, AND]', 'Expected only comma-separated field names inside `IN[..]` but instead found `AND]`.\n25:29 colour IN [blue, green, AND]'],
+    [
+      "colour IN [blue, green, 'blue' > 2]",
+      "Expected only comma-separated field names inside `IN[..]` but instead found `> 2]`.\n32:36 colour IN [blue, green, 'blue' > 2]",
+    ],
+    [
+      'colour IN [blue, green, AND]',
+      'Expected only comma-separated field names inside `IN[..]` but instead found `AND]`.\n25:29 colour IN [blue, green, AND]',
+    ],
     ['colour IN [blue, green', 'Expected matching `]` after the list of field names given to `IN[`\n23:23 colour IN [blue, green'],
-    ["colour IN ['blue, green", "Expression `\\'blue, green` is missing the following closing delimiter: `'`.\n12:24 colour IN ['blue, green"],
-    ['x = EXISTS', 'Was expecting a value but instead got `EXISTS`, which is a reserved keyword. To use `EXISTS` as a field name or a value, surround it by quotes.\n5:11 x = EXISTS'],
-    ['AND = 8', 'Was expecting a value but instead got `AND`, which is a reserved keyword. To use `AND` as a field name or a value, surround it by quotes.\n1:4 AND = 8'],
-    ['NOT OR EXISTS AND EXISTS NOT EXISTS', 'Was expecting a value but instead got `OR`, which is a reserved keyword. To use `OR` as a field name or a value, surround it by quotes.\n5:7 NOT OR EXISTS AND EXISTS NOT EXISTS'],
+    [
+      "colour IN ['blue, green",
+      "Expression `\\'blue, green` is missing the following closing delimiter: `'`.\n12:24 colour IN ['blue, green",
+    ],
+    [
+      'x = EXISTS',
+      'Was expecting a value but instead got `EXISTS`, which is a reserved keyword. To use `EXISTS` as a field name or a value, surround it by quotes.\n5:11 x = EXISTS',
+    ],
+    [
+      'AND = 8',
+      'Was expecting a value but instead got `AND`, which is a reserved keyword. To use `AND` as a field name or a value, surround it by quotes.\n1:4 AND = 8',
+    ],
+    [
+      'NOT OR EXISTS AND EXISTS NOT EXISTS',
+      'Was expecting a value but instead got `OR`, which is a reserved keyword. To use `OR` as a field name or a value, surround it by quotes.\n5:7 NOT OR EXISTS AND EXISTS NOT EXISTS',
+    ],
     ['value NULL', `${OPERATIONS} at \`value NULL\`.\n1:11 value NULL`],
     ['value IS', `${OPERATIONS} at \`value IS\`.\n1:9 value IS`],
   ])('%s', (filter, message) => {

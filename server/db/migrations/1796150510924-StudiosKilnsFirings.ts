@@ -1,17 +1,17 @@
-import { MigrationInterface, QueryRunner } from "typeorm";
+import { MigrationInterface, QueryRunner } from 'typeorm'
 
 export class StudiosKilnsFirings1796150510924 implements MigrationInterface {
-    name = 'StudiosKilnsFirings1796150510924'
+  name = 'StudiosKilnsFirings1796150510924'
 
-    public async up(queryRunner: QueryRunner): Promise<void> {
-        // Written by hand: a cone's place in the series (022 coolest … 14 hottest), so the database itself
-        // can refuse a reversed cone range. Same order as CONES in shared/firing/cones.ts.
-        await queryRunner.query(`
+  public async up(queryRunner: QueryRunner): Promise<void> {
+    // Written by hand: a cone's place in the series (022 coolest … 14 hottest), so the database itself
+    // can refuse a reversed cone range. Same order as CONES in shared/firing/cones.ts.
+    await queryRunner.query(`
             CREATE FUNCTION cone_rank(cone text) RETURNS integer
             LANGUAGE sql IMMUTABLE STRICT PARALLEL SAFE
             AS $$ SELECT array_position(ARRAY['022','021','020','019','018','017','016','015','014','013','012','011','010','09','08','07','06','05','04','03','02','01','1','2','3','4','5','6','7','8','9','10','11','12','13','14']::text[], cone) - 1 $$
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             CREATE TABLE "firings" (
                 "id" uuid NOT NULL DEFAULT gen_random_uuid(),
                 "kiln_id" uuid NOT NULL,
@@ -54,11 +54,11 @@ export class StudiosKilnsFirings1796150510924 implements MigrationInterface {
                 CONSTRAINT "firings_kind_check" CHECK ("kind" IN ('bisque', 'glaze', 'single')),
                 CONSTRAINT "PK_d105d1bb43d41b02ad905650581" PRIMARY KEY ("id")
             )
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             CREATE INDEX "firings_kiln_date_idx" ON "firings" ("kiln_id", "firing_date")
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             CREATE TABLE "kilns" (
                 "id" uuid NOT NULL DEFAULT gen_random_uuid(),
                 "studio_id" uuid NOT NULL,
@@ -140,8 +140,8 @@ export class StudiosKilnsFirings1796150510924 implements MigrationInterface {
                 ),
                 CONSTRAINT "PK_0e0f17d37212baa88e3f6c9f0a8" PRIMARY KEY ("id")
             )
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             CREATE TABLE "kiln_price_lists" (
                 "kiln_id" uuid NOT NULL,
                 "currency" character(3) NOT NULL,
@@ -178,173 +178,173 @@ export class StudiosKilnsFirings1796150510924 implements MigrationInterface {
                 CONSTRAINT "kiln_price_lists_model_check" CHECK ("model" IN ('volume', 'shelf', 'kiln')),
                 CONSTRAINT "PK_70d2e0186ae20363a09c47e10bd" PRIMARY KEY ("kiln_id")
             )
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             ALTER TABLE "studios"
             ADD "description" text NOT NULL DEFAULT ''
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             ALTER TABLE "studios"
             ADD "address_line" text
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             ALTER TABLE "studios"
             ADD "postal_code" text
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             ALTER TABLE "studios"
             ADD "city" text NOT NULL DEFAULT ''
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             ALTER TABLE "studios"
             ADD "region" text NOT NULL DEFAULT ''
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             ALTER TABLE "studios"
             ADD "country" text NOT NULL DEFAULT 'US'
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             ALTER TABLE "studios"
             ADD "lat" double precision NOT NULL
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             ALTER TABLE "studios"
             ADD "lng" double precision NOT NULL
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             ALTER TABLE "studios"
             ADD "timezone" text NOT NULL
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             ALTER TABLE "studios"
             ADD "currency" character(3) NOT NULL DEFAULT 'USD'
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             ALTER TABLE "studios"
             ADD "drop_off_hours" text NOT NULL DEFAULT ''
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             ALTER TABLE "studios"
             ADD "policies" jsonb NOT NULL
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             ALTER TABLE "studios"
             ADD "policies_version" integer NOT NULL DEFAULT '1'
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             ALTER TABLE "studios"
             ADD "published" boolean NOT NULL DEFAULT false
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             ALTER TABLE "studios"
             ADD "verified_at" TIMESTAMP WITH TIME ZONE
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             ALTER TABLE "studios"
             ADD CONSTRAINT "studios_currency_check" CHECK ("currency" ~ '^[A-Z]{3}$')
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             ALTER TABLE "studios"
             ADD CONSTRAINT "studios_position_check" CHECK (
                     "lat" BETWEEN -90 AND 90
                     AND "lng" BETWEEN -180 AND 180
                 )
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             ALTER TABLE "firings"
             ADD CONSTRAINT "FK_8101a5e732c14296851fd7ab166" FOREIGN KEY ("kiln_id") REFERENCES "kilns"("id") ON DELETE CASCADE ON UPDATE NO ACTION
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             ALTER TABLE "kilns"
             ADD CONSTRAINT "FK_200b874ef6ebc3ceb96ac821dfe" FOREIGN KEY ("studio_id") REFERENCES "studios"("id") ON DELETE CASCADE ON UPDATE NO ACTION
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             ALTER TABLE "kiln_price_lists"
             ADD CONSTRAINT "FK_70d2e0186ae20363a09c47e10bd" FOREIGN KEY ("kiln_id") REFERENCES "kilns"("id") ON DELETE CASCADE ON UPDATE NO ACTION
-        `);
-        await queryRunner.query(`CREATE INDEX "firings_upcoming_idx" ON "firings" ("firing_date") WHERE "status" NOT IN ('cancelled', 'unloaded')`);
-        await queryRunner.query(`CREATE INDEX "kilns_studio_idx" ON "kilns" ("studio_id")`);
-        await queryRunner.query(`CREATE INDEX "studio_members_user_idx" ON "studio_members" ("user_id")`);
-    }
+        `)
+    await queryRunner.query(
+      `CREATE INDEX "firings_upcoming_idx" ON "firings" ("firing_date") WHERE "status" NOT IN ('cancelled', 'unloaded')`,
+    )
+    await queryRunner.query(`CREATE INDEX "kilns_studio_idx" ON "kilns" ("studio_id")`)
+    await queryRunner.query(`CREATE INDEX "studio_members_user_idx" ON "studio_members" ("user_id")`)
+  }
 
-    public async down(queryRunner: QueryRunner): Promise<void> {
-        await queryRunner.query(`DROP INDEX "studio_members_user_idx"`);
-        await queryRunner.query(`DROP INDEX "kilns_studio_idx"`);
-        await queryRunner.query(`DROP INDEX "firings_upcoming_idx"`);
-        await queryRunner.query(`
+  public async down(queryRunner: QueryRunner): Promise<void> {
+    await queryRunner.query(`DROP INDEX "studio_members_user_idx"`)
+    await queryRunner.query(`DROP INDEX "kilns_studio_idx"`)
+    await queryRunner.query(`DROP INDEX "firings_upcoming_idx"`)
+    await queryRunner.query(`
             ALTER TABLE "kiln_price_lists" DROP CONSTRAINT "FK_70d2e0186ae20363a09c47e10bd"
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             ALTER TABLE "kilns" DROP CONSTRAINT "FK_200b874ef6ebc3ceb96ac821dfe"
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             ALTER TABLE "firings" DROP CONSTRAINT "FK_8101a5e732c14296851fd7ab166"
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             ALTER TABLE "studios" DROP CONSTRAINT "studios_position_check"
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             ALTER TABLE "studios" DROP CONSTRAINT "studios_currency_check"
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             ALTER TABLE "studios" DROP COLUMN "verified_at"
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             ALTER TABLE "studios" DROP COLUMN "published"
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             ALTER TABLE "studios" DROP COLUMN "policies_version"
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             ALTER TABLE "studios" DROP COLUMN "policies"
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             ALTER TABLE "studios" DROP COLUMN "drop_off_hours"
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             ALTER TABLE "studios" DROP COLUMN "currency"
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             ALTER TABLE "studios" DROP COLUMN "timezone"
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             ALTER TABLE "studios" DROP COLUMN "lng"
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             ALTER TABLE "studios" DROP COLUMN "lat"
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             ALTER TABLE "studios" DROP COLUMN "country"
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             ALTER TABLE "studios" DROP COLUMN "region"
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             ALTER TABLE "studios" DROP COLUMN "city"
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             ALTER TABLE "studios" DROP COLUMN "postal_code"
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             ALTER TABLE "studios" DROP COLUMN "address_line"
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             ALTER TABLE "studios" DROP COLUMN "description"
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             DROP TABLE "kiln_price_lists"
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             DROP TABLE "kilns"
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             DROP INDEX "public"."firings_kiln_date_idx"
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             DROP TABLE "firings"
-        `);
-        await queryRunner.query(`DROP FUNCTION cone_rank(text)`);
-    }
-
-
+        `)
+    await queryRunner.query(`DROP FUNCTION cone_rank(text)`)
+  }
 }

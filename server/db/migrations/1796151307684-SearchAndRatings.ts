@@ -1,13 +1,13 @@
-import { MigrationInterface, QueryRunner } from "typeorm";
+import { MigrationInterface, QueryRunner } from 'typeorm'
 
 export class SearchAndRatings1796151307684 implements MigrationInterface {
-    name = 'SearchAndRatings1796151307684'
+  name = 'SearchAndRatings1796151307684'
 
-    public async up(queryRunner: QueryRunner): Promise<void> {
-        // Written by hand: great-circle distance for the search fallback (earthdistance sits on cube).
-        await queryRunner.query(`CREATE EXTENSION IF NOT EXISTS cube`);
-        await queryRunner.query(`CREATE EXTENSION IF NOT EXISTS earthdistance`);
-        await queryRunner.query(`
+  public async up(queryRunner: QueryRunner): Promise<void> {
+    // Written by hand: great-circle distance for the search fallback (earthdistance sits on cube).
+    await queryRunner.query(`CREATE EXTENSION IF NOT EXISTS cube`)
+    await queryRunner.query(`CREATE EXTENSION IF NOT EXISTS earthdistance`)
+    await queryRunner.query(`
             CREATE TABLE "ratings" (
                 "id" uuid NOT NULL DEFAULT gen_random_uuid(),
                 "request_id" uuid NOT NULL,
@@ -57,14 +57,14 @@ export class SearchAndRatings1796151307684 implements MigrationInterface {
                 ),
                 CONSTRAINT "PK_0f31425b073219379545ad68ed9" PRIMARY KEY ("id")
             )
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             CREATE INDEX "ratings_potter_idx" ON "ratings" ("potter_id", "direction")
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             CREATE INDEX "ratings_studio_idx" ON "ratings" ("studio_id", "direction")
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             CREATE TABLE "search_documents" (
                 "firing_id" uuid NOT NULL,
                 "studio_id" uuid NOT NULL,
@@ -88,43 +88,42 @@ export class SearchAndRatings1796151307684 implements MigrationInterface {
                 "updated_at" TIMESTAMP WITH TIME ZONE NOT NULL DEFAULT now(),
                 CONSTRAINT "PK_3aafcb0e2396363435d0902e5e7" PRIMARY KEY ("firing_id")
             )
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             CREATE INDEX "search_documents_drop_off_idx" ON "search_documents" ("drop_off_by_ts")
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             CREATE INDEX "search_documents_studio_idx" ON "search_documents" ("studio_id")
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             ALTER TABLE "ratings"
             ADD CONSTRAINT "FK_3cb8f146d96bca48dcca4330f7b" FOREIGN KEY ("request_id") REFERENCES "firing_requests"("id") ON DELETE CASCADE ON UPDATE NO ACTION
-        `);
-        await queryRunner.query(`CREATE INDEX "search_documents_earth_idx" ON "search_documents" USING gist (ll_to_earth("lat", "lng"))`);
-    }
+        `)
+    await queryRunner.query(`CREATE INDEX "search_documents_earth_idx" ON "search_documents" USING gist (ll_to_earth("lat", "lng"))`)
+  }
 
-    public async down(queryRunner: QueryRunner): Promise<void> {
-        await queryRunner.query(`DROP INDEX "search_documents_earth_idx"`);
-        await queryRunner.query(`
+  public async down(queryRunner: QueryRunner): Promise<void> {
+    await queryRunner.query(`DROP INDEX "search_documents_earth_idx"`)
+    await queryRunner.query(`
             ALTER TABLE "ratings" DROP CONSTRAINT "FK_3cb8f146d96bca48dcca4330f7b"
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             DROP INDEX "public"."search_documents_studio_idx"
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             DROP INDEX "public"."search_documents_drop_off_idx"
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             DROP TABLE "search_documents"
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             DROP INDEX "public"."ratings_studio_idx"
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             DROP INDEX "public"."ratings_potter_idx"
-        `);
-        await queryRunner.query(`
+        `)
+    await queryRunner.query(`
             DROP TABLE "ratings"
-        `);
-    }
-
+        `)
+  }
 }

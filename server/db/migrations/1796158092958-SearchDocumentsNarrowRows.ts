@@ -1,4 +1,4 @@
-import { MigrationInterface, QueryRunner } from "typeorm";
+import { MigrationInterface, QueryRunner } from 'typeorm'
 
 /**
  * Written by hand (storage settings are not part of the entities): the search fallback scans many
@@ -6,15 +6,15 @@ import { MigrationInterface, QueryRunner } from "typeorm";
  * the scan reads stay narrow.
  */
 export class SearchDocumentsNarrowRows1796158092958 implements MigrationInterface {
-    name = 'SearchDocumentsNarrowRows1796158092958'
+  name = 'SearchDocumentsNarrowRows1796158092958'
 
-    public async up(queryRunner: QueryRunner): Promise<void> {
-        await queryRunner.query(`ALTER TABLE "search_documents" ALTER COLUMN "document" SET STORAGE EXTERNAL`);
-        await queryRunner.query(`ALTER TABLE "search_documents" SET (toast_tuple_target = 128)`);
-    }
+  public async up(queryRunner: QueryRunner): Promise<void> {
+    await queryRunner.query(`ALTER TABLE "search_documents" ALTER COLUMN "document" SET STORAGE EXTERNAL`)
+    await queryRunner.query(`ALTER TABLE "search_documents" SET (toast_tuple_target = 128)`)
+  }
 
-    public async down(queryRunner: QueryRunner): Promise<void> {
-        await queryRunner.query(`ALTER TABLE "search_documents" RESET (toast_tuple_target)`);
-        await queryRunner.query(`ALTER TABLE "search_documents" ALTER COLUMN "document" SET STORAGE EXTENDED`);
-    }
+  public async down(queryRunner: QueryRunner): Promise<void> {
+    await queryRunner.query(`ALTER TABLE "search_documents" RESET (toast_tuple_target)`)
+    await queryRunner.query(`ALTER TABLE "search_documents" ALTER COLUMN "document" SET STORAGE EXTENDED`)
+  }
 }

@@ -561,11 +561,7 @@ export class TestModeAccount {
   }
 
   // The event carries a snapshot of the object as it was when the change happened, as Stripe's do.
-  private emit(
-    type: WebhookEventType,
-    object: SessionObject | PaymentIntentObject | ChargeObject,
-    context: RequestContext,
-  ): void {
+  private emit(type: WebhookEventType, object: SessionObject | PaymentIntentObject | ChargeObject, context: RequestContext): void {
     const event: EventObject = {
       id: newId.event(),
       object: 'event',

@@ -141,7 +141,7 @@ export function createApiRouter(options: {
   const run = (method: 'GET' | 'POST', handler: ApiHandler) => (req: Request, res: Response) => {
     const requestId = newId.request()
     const idempotencyKey = method === 'POST' ? (req.get('idempotency-key') ?? null) : null
-    const rawParams = method === 'POST' ? (typeof req.body === 'string' ? req.body : '') : req.originalUrl.split('?')[1] ?? ''
+    const rawParams = method === 'POST' ? (typeof req.body === 'string' ? req.body : '') : (req.originalUrl.split('?')[1] ?? '')
     const params = parseForm(rawParams)
     const version = req.get('stripe-version')
     res.set('Request-Id', requestId)

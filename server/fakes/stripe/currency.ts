@@ -9,15 +9,14 @@ export function isKnownCurrency(code: string): boolean {
 
 // Minor-unit digits from ISO 4217 via Intl (2 for USD, 0 for JPY).
 function minorDigits(currency: string): number {
-  return new Intl.NumberFormat('en-US', { style: 'currency', currency: currency.toUpperCase() }).resolvedOptions()
-    .maximumFractionDigits ?? 2
+  return (
+    new Intl.NumberFormat('en-US', { style: 'currency', currency: currency.toUpperCase() }).resolvedOptions().maximumFractionDigits ?? 2
+  )
 }
 
 export function formatAmount(amount: number, currency: string): string {
   const digits = minorDigits(currency)
-  return new Intl.NumberFormat('en-US', { style: 'currency', currency: currency.toUpperCase() }).format(
-    amount / 10 ** digits,
-  )
+  return new Intl.NumberFormat('en-US', { style: 'currency', currency: currency.toUpperCase() }).format(amount / 10 ** digits)
 }
 
 // Stripe's minimum charge amounts per settlement currency ("Minimum and maximum charge amounts" in

@@ -35,8 +35,7 @@ function expandPath(account: TestModeAccount, owner: WireObject, segments: strin
   const resolver = EXPANDABLE[owner.object]?.[field]
   if (!resolver) throw invalidRequest(`This property cannot be expanded (${fullPath}).`)
   const current = owner[field]
-  const resolved =
-    typeof current === 'object' && current !== null ? current : structuredClone(resolver(account, owner) ?? null)
+  const resolved = typeof current === 'object' && current !== null ? current : structuredClone(resolver(account, owner) ?? null)
   const next = rest.length > 0 && resolved !== null ? expandPath(account, resolved as WireObject, rest, fullPath) : resolved
   return { ...owner, [field]: next }
 }

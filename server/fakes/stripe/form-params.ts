@@ -102,10 +102,7 @@ export class FormParams {
   string(name: string, requirement: Requirement & { maxLength?: number } = {}): string | undefined {
     const value = this.scalar(name, requirement)
     if (value !== undefined && requirement.maxLength !== undefined && value.length > requirement.maxLength) {
-      throw invalidRequest(
-        `Invalid ${this.path(name)}: must be at most ${requirement.maxLength} characters`,
-        { param: this.path(name) },
-      )
+      throw invalidRequest(`Invalid ${this.path(name)}: must be at most ${requirement.maxLength} characters`, { param: this.path(name) })
     }
     return value
   }
@@ -130,8 +127,7 @@ export class FormParams {
     const value = this.scalar(name, requirement)
     if (value === undefined) return undefined
     if (!(allowed as readonly string[]).includes(value)) {
-      const choices =
-        allowed.length > 1 ? `${allowed.slice(0, -1).join(', ')}, or ${allowed[allowed.length - 1]}` : allowed[0]
+      const choices = allowed.length > 1 ? `${allowed.slice(0, -1).join(', ')}, or ${allowed[allowed.length - 1]}` : allowed[0]
       throw invalidRequest(`Invalid ${name}: must be one of ${choices}`, { param: this.path(name) })
     }
     return value as T

@@ -26,12 +26,7 @@ interface FormState {
 const EMPTY_FORM: FormState = { email: '', cardNumber: '', expiry: '', cvc: '', cardholderName: '', postalCode: '' }
 
 function escapeHtml(text: string): string {
-  return text
-    .replaceAll('&', '&amp;')
-    .replaceAll('<', '&lt;')
-    .replaceAll('>', '&gt;')
-    .replaceAll('"', '&quot;')
-    .replaceAll("'", '&#39;')
+  return text.replaceAll('&', '&amp;').replaceAll('<', '&lt;').replaceAll('>', '&gt;').replaceAll('"', '&quot;').replaceAll("'", '&#39;')
 }
 
 const STYLE = `
@@ -102,9 +97,7 @@ function renderCheckout(session: SessionObject, lineItems: LineItemObject[], for
   const emailAttributes = session.customer_email
     ? 'type="email" autocomplete="email" readonly'
     : 'type="email" autocomplete="email" required'
-  const cancel = session.cancel_url
-    ? `<a class="cancel" href="${escapeHtml(session.cancel_url)}">Cancel and go back</a>`
-    : ''
+  const cancel = session.cancel_url ? `<a class="cancel" href="${escapeHtml(session.cancel_url)}">Cancel and go back</a>` : ''
   return page(
     'Pay',
     `<div class="panel">
@@ -169,18 +162,28 @@ export function createHostedCheckoutRouter(account: TestModeAccount, now: () => 
       session = account.session(String(req.params.id))
     } catch (error) {
       if (!(error instanceof StripeApiError)) throw error
-      res.status(404).type('html').send(renderNotice('Checkout not found', 'There is no checkout session at this address.', null))
+      res
+        .status(404)
+        .type('html')
+        .send(renderNotice('Checkout not found', 'There is no checkout session at this address.', null))
       return null
     }
     if (session.status === 'complete') {
       const target = successRedirect(session)
       if (target) res.redirect(303, target)
-      else res.status(200).type('html').send(renderNotice('Payment complete', 'This checkout session has been paid.', null))
+      else
+        res
+          .status(200)
+          .type('html')
+          .send(renderNotice('Payment complete', 'This checkout session has been paid.', null))
       return null
     }
     if (session.status === 'expired') {
       const back = session.cancel_url ? { href: session.cancel_url, text: 'Go back' } : null
-      res.status(410).type('html').send(renderNotice('Checkout expired', 'This checkout session has expired. No payment was taken.', back))
+      res
+        .status(410)
+        .type('html')
+        .send(renderNotice('Checkout expired', 'This checkout session has expired. No payment was taken.', back))
       return null
     }
     return session
@@ -189,7 +192,10 @@ export function createHostedCheckoutRouter(account: TestModeAccount, now: () => 
   router.get('/:id', (req, res) => {
     const session = openSession(req, res)
     if (!session) return
-    res.status(200).type('html').send(renderCheckout(session, account.lineItems(session.id), EMPTY_FORM, null))
+    res
+      .status(200)
+      .type('html')
+      .send(renderCheckout(session, account.lineItems(session.id), EMPTY_FORM, null))
   })
 
   router.post('/:id', (req, res) => {
@@ -198,7 +204,10 @@ export function createHostedCheckoutRouter(account: TestModeAccount, now: () => 
     const form = readForm(req.body)
     const lineItems = account.lineItems(session.id)
     const refuse = (status: number, message: string) =>
-      res.status(status).type('html').send(renderCheckout(session, lineItems, form, message))
+      res
+        .status(status)
+        .type('html')
+        .send(renderCheckout(session, lineItems, form, message))
 
     const email = session.customer_email ?? form.email
     if (!EMAIL_PATTERN.test(email)) {
@@ -219,7 +228,11 @@ export function createHostedCheckoutRouter(account: TestModeAccount, now: () => 
     }
     const target = successRedirect(attempt.session)
     if (target) res.redirect(303, target)
-    else res.status(200).type('html').send(renderNotice('Payment complete', 'Thank you, your payment went through.', null))
+    else
+      res
+        .status(200)
+        .type('html')
+        .send(renderNotice('Payment complete', 'Thank you, your payment went through.', null))
   })
 
   return router

@@ -5,8 +5,7 @@
 export type CardBrand = 'visa' | 'mastercard' | 'amex' | 'discover' | 'unknown'
 
 export type CardOutcome =
-  | { result: 'succeeded' }
-  | { result: 'declined'; code: string; declineCode: string; message: string; sellerMessage: string }
+  { result: 'succeeded' } | { result: 'declined'; code: string; declineCode: string; message: string; sellerMessage: string }
 
 interface TestCard {
   funding: 'credit' | 'debit'
@@ -44,11 +43,7 @@ const TEST_CARDS: Record<string, TestCard> = {
   },
   '4000000000000119': {
     funding: 'credit',
-    outcome: declined(
-      'processing_error',
-      'processing_error',
-      'An error occurred while processing your card. Try again in a little bit.',
-    ),
+    outcome: declined('processing_error', 'processing_error', 'An error occurred while processing your card. Try again in a little bit.'),
   },
 }
 

@@ -27,7 +27,10 @@ export function dropOffMail(r: RequestFacts, c: CheckInFacts): MailContent {
           ]
         : []),
     ],
-    details: c.rows.map((row) => [row.label, `${row.received} of ${row.declared} received${row.measured ? `, measured ${row.measured}` : ''}`] as [string, string]),
+    details: c.rows.map(
+      (row) =>
+        [row.label, `${row.received} of ${row.declared} received${row.measured ? `, measured ${row.measured}` : ''}`] as [string, string],
+    ),
     action: { label: changed && c.needsConfirmation ? 'Confirm the new price' : 'See the request', url: r.requestUrl },
   }
 }
@@ -39,7 +42,9 @@ export function refusedMail(r: RequestFacts, reason: string, refundCents: number
     paragraphs: [
       `${r.studioName} could not take your ware into the ${title(r)}.`,
       `Their reason: “${reason}”`,
-      refundCents > 0 ? `Under the studio’s cancellation terms ${formatMoney(refundCents, r.currency)} is refunded to you.` : 'Under the studio’s cancellation terms the deposit is not refunded.',
+      refundCents > 0
+        ? `Under the studio’s cancellation terms ${formatMoney(refundCents, r.currency)} is refunded to you.`
+        : 'Under the studio’s cancellation terms the deposit is not refunded.',
     ],
     action: { label: 'See the request', url: r.requestUrl },
   }
@@ -51,7 +56,9 @@ export function noShowMail(r: RequestFacts, refundCents: number): MailContent {
     greeting: `Hello ${r.potterName},`,
     paragraphs: [
       `Your ware was not dropped off before ${r.studioName} loaded the kiln, so your place in this firing has lapsed.`,
-      refundCents > 0 ? `Under the studio’s cancellation terms ${formatMoney(refundCents, r.currency)} is refunded to you.` : 'Under the studio’s cancellation terms the deposit is not refunded.',
+      refundCents > 0
+        ? `Under the studio’s cancellation terms ${formatMoney(refundCents, r.currency)} is refunded to you.`
+        : 'Under the studio’s cancellation terms the deposit is not refunded.',
     ],
     action: { label: 'See the request', url: r.requestUrl },
   }
@@ -63,18 +70,31 @@ export function readyMail(r: RequestFacts, dropOffHours: string, owedCents: numb
     greeting: `Hello ${r.potterName},`,
     paragraphs: [
       `Your ware is out of the kiln and ready to collect at ${r.studioName}. The results and photos are on the request.`,
-      owedCents > 0 ? `${formatMoney(owedCents, r.currency)} is still owed: pay it on the request before you come, or at the counter.` : 'Everything is paid.',
+      owedCents > 0
+        ? `${formatMoney(owedCents, r.currency)} is still owed: pay it on the request before you come, or at the counter.`
+        : 'Everything is paid.',
     ],
-    details: [['Pickup hours', dropOffHours || 'Ask the studio'], ['Still owed', formatMoney(owedCents, r.currency)]],
+    details: [
+      ['Pickup hours', dropOffHours || 'Ask the studio'],
+      ['Still owed', formatMoney(owedCents, r.currency)],
+    ],
     action: { label: owedCents > 0 ? 'Pay and see the results' : 'See the results', url: r.requestUrl },
   }
 }
 
-export function pickupMail(r: RequestFacts, receipt: { label: string; amountCents: number }[], paidCents: number, refundedCents: number): MailContent {
+export function pickupMail(
+  r: RequestFacts,
+  receipt: { label: string; amountCents: number }[],
+  paidCents: number,
+  refundedCents: number,
+): MailContent {
   return {
     subject: `Collected: your receipt from ${r.studioName}`,
     greeting: `Hello ${r.potterName},`,
-    paragraphs: [`You collected your ware from the ${title(r)} on ${formatDateTime(new Date(), r.timezone)}. Thank you. This is your receipt.`, 'Once you have looked everything over, rate the exchange on the request: it helps other potters and the studio.'],
+    paragraphs: [
+      `You collected your ware from the ${title(r)} on ${formatDateTime(new Date(), r.timezone)}. Thank you. This is your receipt.`,
+      'Once you have looked everything over, rate the exchange on the request: it helps other potters and the studio.',
+    ],
     details: [
       ...receipt.map((line) => [line.label, formatMoney(line.amountCents, r.currency)] as [string, string]),
       ['Paid', formatMoney(paidCents, r.currency)],
@@ -88,7 +108,11 @@ export function firingProgressMail(r: RequestFacts, stage: 'firing' | 'unloaded'
   return {
     subject: stage === 'firing' ? `Your ware is firing at ${r.studioName}` : `Unloaded: the ${title(r)}`,
     greeting: `Hello ${r.potterName},`,
-    paragraphs: [stage === 'firing' ? `The ${title(r)} has started. The firing log is on your request.` : 'The kiln is open and the studio is looking over the ware. Results and photos follow on your request.'],
+    paragraphs: [
+      stage === 'firing'
+        ? `The ${title(r)} has started. The firing log is on your request.`
+        : 'The kiln is open and the studio is looking over the ware. Results and photos follow on your request.',
+    ],
     action: { label: 'See the request', url: r.requestUrl },
   }
 }

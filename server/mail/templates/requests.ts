@@ -33,7 +33,9 @@ const firingRows = (r: RequestFacts): [string, string][] => [
 export function requestSentMail(r: RequestFacts): MailContent {
   return {
     subject: `New request: ${r.potterName} for the ${title(r)}`,
-    paragraphs: [`${r.potterName} asks for space in the ${title(r)}. The ware passed the server’s check; see the findings and the quote before you decide.`],
+    paragraphs: [
+      `${r.potterName} asks for space in the ${title(r)}. The ware passed the server’s check; see the findings and the quote before you decide.`,
+    ],
     details: [...firingRows(r), ['Quote', money(r, r.totalCents)]],
     action: { label: 'Open the request', url: r.requestUrl },
   }
@@ -58,7 +60,11 @@ export function requestDeclinedMail(r: RequestFacts, reason: string): MailConten
   return {
     subject: `Declined: your request for the ${title(r)}`,
     greeting: `Hello ${r.potterName},`,
-    paragraphs: [`${r.studioName} cannot take this ware in that firing.`, `Their reason: “${reason}”`, 'You can look for another firing on Conewright.'],
+    paragraphs: [
+      `${r.studioName} cannot take this ware in that firing.`,
+      `Their reason: “${reason}”`,
+      'You can look for another firing on Conewright.',
+    ],
     details: firingRows(r),
     action: { label: 'See the request', url: r.requestUrl },
   }
@@ -71,14 +77,19 @@ export function studioCancelledMail(r: RequestFacts, reason: string, refundCents
     paragraphs: [
       `${r.studioName} has cancelled your place in this firing.`,
       `Their reason: “${reason}”`,
-      refundCents > 0 ? `Everything you paid, ${money(r, refundCents)}, is being refunded to your card.` : 'You had paid nothing, so nothing is owed either way.',
+      refundCents > 0
+        ? `Everything you paid, ${money(r, refundCents)}, is being refunded to your card.`
+        : 'You had paid nothing, so nothing is owed either way.',
     ],
     details: firingRows(r),
     action: { label: 'See the request', url: r.requestUrl },
   }
 }
 
-export function moveProposedMail(r: RequestFacts, proposed: { firingDate: Date; cone: string; atmosphere: string; kind: string }): MailContent {
+export function moveProposedMail(
+  r: RequestFacts,
+  proposed: { firingDate: Date; cone: string; atmosphere: string; kind: string },
+): MailContent {
   return {
     subject: `${r.studioName} suggests another firing for your ware`,
     greeting: `Hello ${r.potterName},`,
@@ -99,14 +110,21 @@ export function depositReceivedMail(r: RequestFacts, audience: 'potter' | 'studi
         ? `We received your deposit of ${money(r, amountCents)}. Your space is confirmed: bring the ware by the drop-off deadline.`
         : `${r.potterName} paid the deposit of ${money(r, amountCents)}. Their space is confirmed.`,
     ],
-    details: [...firingRows(r), ['Deposit paid', money(r, amountCents)], ['Balance at pickup', money(r, Math.max(0, r.totalCents - amountCents))]],
+    details: [
+      ...firingRows(r),
+      ['Deposit paid', money(r, amountCents)],
+      ['Balance at pickup', money(r, Math.max(0, r.totalCents - amountCents))],
+    ],
     action: { label: 'See the request', url: r.requestUrl },
   }
 }
 
 export function holdReleasedMail(r: RequestFacts, audience: 'potter' | 'studio'): MailContent {
   return {
-    subject: audience === 'potter' ? `Space released: the deposit for the ${title(r)} was not paid` : `Space released: ${r.potterName} did not pay the deposit`,
+    subject:
+      audience === 'potter'
+        ? `Space released: the deposit for the ${title(r)} was not paid`
+        : `Space released: ${r.potterName} did not pay the deposit`,
     paragraphs: [
       audience === 'potter'
         ? `The deposit for your place in the ${title(r)} was not paid in time, so the space went back to the studio. You can send a new request if there is still room.`
@@ -122,7 +140,9 @@ export function withdrawnMail(r: RequestFacts, refundCents: number, reason: stri
     subject: `Withdrawn: ${r.potterName}, ${title(r)}`,
     paragraphs: [
       `${r.potterName} withdrew their request${reason ? `: “${reason}”` : '.'}`,
-      refundCents > 0 ? `Under your cancellation terms ${money(r, refundCents)} is refunded to them.` : 'Under your cancellation terms nothing is refunded.',
+      refundCents > 0
+        ? `Under your cancellation terms ${money(r, refundCents)} is refunded to them.`
+        : 'Under your cancellation terms nothing is refunded.',
     ],
     details: firingRows(r),
     action: { label: 'See the request', url: r.requestUrl },
@@ -133,7 +153,9 @@ export function refundedMail(r: RequestFacts, amountCents: number): MailContent 
   return {
     subject: `Refund of ${money(r, amountCents)} for the ${title(r)}`,
     greeting: `Hello ${r.potterName},`,
-    paragraphs: [`A refund of ${money(r, amountCents)} is on its way to the card you paid with. Banks usually show it within 5–10 business days.`],
+    paragraphs: [
+      `A refund of ${money(r, amountCents)} is on its way to the card you paid with. Banks usually show it within 5–10 business days.`,
+    ],
     details: firingRows(r),
     action: { label: 'See the request', url: r.requestUrl },
   }
@@ -150,7 +172,10 @@ export function newMessagesMail(r: RequestFacts, messages: { author: string; bod
 export function disputedMail(r: RequestFacts, by: string, reason: string): MailContent {
   return {
     subject: `Dispute raised: the ${title(r)}`,
-    paragraphs: [`${by} raised a dispute about this request: “${reason}”`, 'The Conewright desk will look at the record (check-in, firing log, results and messages) and contact both sides.'],
+    paragraphs: [
+      `${by} raised a dispute about this request: “${reason}”`,
+      'The Conewright desk will look at the record (check-in, firing log, results and messages) and contact both sides.',
+    ],
     details: firingRows(r),
     action: { label: 'See the request', url: r.requestUrl },
   }

@@ -48,7 +48,8 @@ export function ConeCheckNote({ check }: { check: WitnessCheck }) {
       </p>
       <Alert tone={tone}>
         {check.message}
-        {check.inconsistent && ' Some readings contradict each other: a hotter cone is further down than a cooler one. Check which cone stood where.'}
+        {check.inconsistent &&
+          ' Some readings contradict each other: a hotter cone is further down than a cooler one. Check which cone stood where.'}
       </Alert>
     </div>
   )
@@ -110,7 +111,9 @@ export function FiringLogView({ log, zone, units }: FiringLogViewProps) {
       )}
       <ConeCheckNote check={log.coneCheck} />
       {log.notes && <p className="whitespace-pre-line text-sm text-slip-800">{log.notes}</p>}
-      <p className="text-xs text-slip-500">Times are the studio’s: {zone.replace(/_/g, ' ')}. Last written {formatDateTime(log.updatedAt, zone)}.</p>
+      <p className="text-xs text-slip-500">
+        Times are the studio’s: {zone.replace(/_/g, ' ')}. Last written {formatDateTime(log.updatedAt, zone)}.
+      </p>
     </div>
   )
 }

@@ -124,7 +124,12 @@ function OfflineBasemap({ onReady }: { onReady: (ready: boolean) => void }) {
 
   const world = useQuery({ queryKey: ['basemap', 'world'], queryFn: loadWorldLayers, ...forever })
   const us = useQuery({ queryKey: ['basemap', 'us-states'], queryFn: loadUsLayers, ...forever })
-  const counties = useQuery({ queryKey: ['basemap', 'us-counties'], queryFn: loadCountyLayers, enabled: zoom >= COUNTY_MIN_ZOOM, ...forever })
+  const counties = useQuery({
+    queryKey: ['basemap', 'us-counties'],
+    queryFn: loadCountyLayers,
+    enabled: zoom >= COUNTY_MIN_ZOOM,
+    ...forever,
+  })
 
   const drawn = Boolean(world.data && us.data)
   useEffect(() => {
@@ -145,7 +150,10 @@ function OfflineBasemap({ onReady }: { onReady: (ready: boolean) => void }) {
         {counties.data && zoom >= COUNTY_MIN_ZOOM && <GeoJSON data={counties.data.counties} style={countyStyle} interactive={false} />}
       </Pane>
       {(world.isError || us.isError) && (
-        <p role="status" className="absolute inset-x-3 bottom-3 z-[1000] rounded-control border border-ember-300 bg-ember-100 px-3 py-2 text-sm text-ember-700">
+        <p
+          role="status"
+          className="absolute inset-x-3 bottom-3 z-[1000] rounded-control border border-ember-300 bg-ember-100 px-3 py-2 text-sm text-ember-700"
+        >
           The map outline could not be loaded. Pins still show where studios are.
         </p>
       )}

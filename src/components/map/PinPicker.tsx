@@ -65,7 +65,13 @@ export function PinPicker({ value, onChange, zoom = 15, className = 'h-72' }: Pi
 
   return (
     <div className="space-y-2">
-      <Basemap ref={mapRef} center={[view.lat, view.lng]} zoom={zoom} className={`rounded-card border border-slip-200 ${className}`} label="Studio location">
+      <Basemap
+        ref={mapRef}
+        center={[view.lat, view.lng]}
+        zoom={zoom}
+        className={`rounded-card border border-slip-200 ${className}`}
+        label="Studio location"
+      >
         <Marker
           position={[value.lat, value.lng]}
           icon={studioIcon({ selected: true })}

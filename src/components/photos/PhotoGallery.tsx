@@ -22,7 +22,9 @@ interface PhotoGalleryProps {
 /** Thumbnails grouped by what they show; each opens at full size, with the arrow keys moving between them. */
 export function PhotoGallery({ photos, kinds = KIND_ORDER, headings = {}, below, empty, headingLevel: Heading = 'h3' }: PhotoGalleryProps) {
   const [open, setOpen] = useState<{ kind: PhotoKind; index: number } | null>(null)
-  const groups = kinds.map((kind) => ({ kind, title: headings[kind] ?? PHOTO_KIND_WORDS[kind], photos: photos.filter((p) => p.kind === kind) })).filter((g) => g.photos.length > 0)
+  const groups = kinds
+    .map((kind) => ({ kind, title: headings[kind] ?? PHOTO_KIND_WORDS[kind], photos: photos.filter((p) => p.kind === kind) }))
+    .filter((g) => g.photos.length > 0)
   if (groups.length === 0) return empty ? <p className="text-sm text-slip-600">{empty}</p> : null
   const group = open ? groups.find((g) => g.kind === open.kind) : undefined
   const shown = group && open ? group.photos[Math.min(open.index, group.photos.length - 1)] : undefined
@@ -94,7 +96,12 @@ function Lightbox({ photo, title, index, count, onMove, onClose }: LightboxProps
       description={count > 1 ? 'The arrow keys move between the photos.' : undefined}
       footer={
         <>
-          <a href={photo.url} target="_blank" rel="noreferrer" className="mr-auto self-center text-sm font-semibold text-clay-700 hover:underline">
+          <a
+            href={photo.url}
+            target="_blank"
+            rel="noreferrer"
+            className="mr-auto self-center text-sm font-semibold text-clay-700 hover:underline"
+          >
             Open the original
           </a>
           {count > 1 && (
@@ -110,7 +117,14 @@ function Lightbox({ photo, title, index, count, onMove, onClose }: LightboxProps
         </>
       }
     >
-      <img src={photo.url} alt={`${title}, photo ${index + 1}`} width={photo.width} height={photo.height} className="mx-auto h-auto max-h-[65vh] w-auto max-w-full rounded-control" data-testid="full-photo" />
+      <img
+        src={photo.url}
+        alt={`${title}, photo ${index + 1}`}
+        width={photo.width}
+        height={photo.height}
+        className="mx-auto h-auto max-h-[65vh] w-auto max-w-full rounded-control"
+        data-testid="full-photo"
+      />
     </Dialog>
   )
 }

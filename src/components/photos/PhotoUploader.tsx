@@ -35,7 +35,8 @@ interface PhotoUploaderProps {
   disabled?: boolean
 }
 
-const sizeInWords = (bytes: number) => (bytes >= 1024 * 1024 ? `${(bytes / 1024 / 1024).toFixed(1)} MB` : `${Math.max(1, Math.round(bytes / 1024))} KB`)
+const sizeInWords = (bytes: number) =>
+  bytes >= 1024 * 1024 ? `${(bytes / 1024 / 1024).toFixed(1)} MB` : `${Math.max(1, Math.round(bytes / 1024))} KB`
 
 function refusalOf(file: File): string | null {
   if (file.type && !file.type.startsWith('image/')) return 'Not a photo: choose a JPEG, PNG, WebP, GIF, AVIF or TIFF image.'
@@ -107,7 +108,10 @@ export function PhotoUploader({ uploadUrl, fields, label, hint, onUploaded, disa
     for (const [name, value] of Object.entries(extra)) form.append(name, value)
     form.append('photos', file, file.name)
     try {
-      const answer = await uploadWithProgress<{ photos: PhotoRecord[] }>(url, form, { signal: controller.signal, onProgress: (share) => patch(key, { progress: share }) })
+      const answer = await uploadWithProgress<{ photos: PhotoRecord[] }>(url, form, {
+        signal: controller.signal,
+        onProgress: (share) => patch(key, { progress: share }),
+      })
       patch(key, { status: 'done', progress: 1, photo: answer.photos[0] ?? null })
       files.current.delete(key)
       if (mounted.current) latest.current.onUploaded(answer.photos)
@@ -131,7 +135,16 @@ export function PhotoUploader({ uploadUrl, fields, label, hint, onUploaded, disa
       const refusal = refusalOf(file)
       const preview = !refusal ? URL.createObjectURL(file) : ''
       if (preview) previews.current.add(preview)
-      added.push({ key, name: file.name, bytes: file.size, preview, status: refusal ? 'refused' : 'waiting', progress: 0, error: refusal, photo: null })
+      added.push({
+        key,
+        name: file.name,
+        bytes: file.size,
+        preview,
+        status: refusal ? 'refused' : 'waiting',
+        progress: 0,
+        error: refusal,
+        photo: null,
+      })
       if (!refusal) {
         files.current.set(key, file)
         waiting.current.push(key)
@@ -223,7 +236,9 @@ export function PhotoUploader({ uploadUrl, fields, label, hint, onUploaded, disa
             {hint}
           </p>
         )}
-        <p className="text-xs text-slip-500">JPEG, PNG, WebP, GIF, AVIF or TIFF, up to {MAX_BYTES / 1024 / 1024} MB each. Location and camera details are removed.</p>
+        <p className="text-xs text-slip-500">
+          JPEG, PNG, WebP, GIF, AVIF or TIFF, up to {MAX_BYTES / 1024 / 1024} MB each. Location and camera details are removed.
+        </p>
       </div>
 
       {items.length > 0 && (
@@ -247,7 +262,13 @@ export function PhotoUploader({ uploadUrl, fields, label, hint, onUploaded, disa
   )
 }
 
-const STATUS_WORDS: Record<UploadStatus, string> = { waiting: 'Waiting', sending: 'Uploading', done: 'Uploaded', failed: 'Not uploaded', refused: 'Not uploaded' }
+const STATUS_WORDS: Record<UploadStatus, string> = {
+  waiting: 'Waiting',
+  sending: 'Uploading',
+  done: 'Uploaded',
+  failed: 'Not uploaded',
+  refused: 'Not uploaded',
+}
 
 function UploadRow({ item, onRetry, onRemove }: { item: UploadItem; onRetry: () => void; onRemove: () => void }) {
   const percent = Math.round(item.progress * 100)
@@ -260,7 +281,11 @@ function UploadRow({ item, onRetry, onRemove }: { item: UploadItem; onRetry: () 
       data-status={item.status}
     >
       <div className="size-14 shrink-0 overflow-hidden rounded-control bg-slip-100">
-        {thumb ? <img src={thumb} alt="" className="size-full object-cover" /> : <span className="flex size-full items-center justify-center text-xs text-slip-500">—</span>}
+        {thumb ? (
+          <img src={thumb} alt="" className="size-full object-cover" />
+        ) : (
+          <span className="flex size-full items-center justify-center text-xs text-slip-500">—</span>
+        )}
       </div>
       <div className="min-w-0 flex-1 space-y-1">
         <p className="flex flex-wrap items-baseline gap-x-2 text-sm">
@@ -281,8 +306,15 @@ function UploadRow({ item, onRetry, onRemove }: { item: UploadItem; onRetry: () 
             <div className="h-full rounded-full bg-clay-500 transition-[width]" style={{ width: `${percent}%` }} />
           </div>
         )}
-        <p className={`text-xs ${broken ? 'font-medium text-danger-700' : item.status === 'done' ? 'text-celadon-700' : 'text-slip-600'}`} role={broken ? 'alert' : undefined}>
-          {item.status === 'sending' ? `${STATUS_WORDS.sending} · ${percent} %` : item.status === 'done' ? '✓ Uploaded' : (item.error ?? STATUS_WORDS[item.status])}
+        <p
+          className={`text-xs ${broken ? 'font-medium text-danger-700' : item.status === 'done' ? 'text-celadon-700' : 'text-slip-600'}`}
+          role={broken ? 'alert' : undefined}
+        >
+          {item.status === 'sending'
+            ? `${STATUS_WORDS.sending} · ${percent} %`
+            : item.status === 'done'
+              ? '✓ Uploaded'
+              : (item.error ?? STATUS_WORDS[item.status])}
         </p>
       </div>
       <div className="flex shrink-0 flex-col gap-1 sm:flex-row">

@@ -36,7 +36,15 @@ export function StarInput({ label, value, onChange, error, hint }: StarInputProp
       <div className="flex gap-0.5">
         {STARS.map((n) => (
           <label key={n} className="cursor-pointer">
-            <input type="radio" name={name} value={n} checked={value === n} onChange={() => onChange(n)} className="peer sr-only" aria-label={`${n} ${n === 1 ? 'star' : 'stars'}`} />
+            <input
+              type="radio"
+              name={name}
+              value={n}
+              checked={value === n}
+              onChange={() => onChange(n)}
+              className="peer sr-only"
+              aria-label={`${n} ${n === 1 ? 'star' : 'stars'}`}
+            />
             <span
               aria-hidden
               className={`block rounded-control px-1 text-2xl leading-none peer-focus-visible:outline-2 peer-focus-visible:outline-offset-2 peer-focus-visible:outline-clay-500 ${
@@ -49,7 +57,11 @@ export function StarInput({ label, value, onChange, error, hint }: StarInputProp
         ))}
       </div>
       {(error || hint) && (
-        <p id={describedBy} className={`text-xs ${error ? 'font-medium text-danger-700' : 'text-slip-500'}`} role={error ? 'alert' : undefined}>
+        <p
+          id={describedBy}
+          className={`text-xs ${error ? 'font-medium text-danger-700' : 'text-slip-500'}`}
+          role={error ? 'alert' : undefined}
+        >
           {error ?? hint}
         </p>
       )}

@@ -9,7 +9,17 @@ const tones: Record<Tone, string> = {
   danger: 'border-danger-500/40 bg-danger-50 text-danger-700',
 }
 
-export function Alert({ tone = 'info', title, children, className = '' }: { tone?: Tone; title?: ReactNode; children?: ReactNode; className?: string }) {
+export function Alert({
+  tone = 'info',
+  title,
+  children,
+  className = '',
+}: {
+  tone?: Tone
+  title?: ReactNode
+  children?: ReactNode
+  className?: string
+}) {
   return (
     <div role={tone === 'danger' ? 'alert' : 'status'} className={`rounded-control border px-4 py-3 text-sm ${tones[tone]} ${className}`}>
       {title && <p className="font-semibold">{title}</p>}

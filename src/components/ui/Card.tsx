@@ -1,6 +1,14 @@
 import type { ReactNode } from 'react'
 
-export function Card({ children, className = '', as: Tag = 'section' }: { children: ReactNode; className?: string; as?: 'section' | 'div' | 'article' | 'li' }) {
+export function Card({
+  children,
+  className = '',
+  as: Tag = 'section',
+}: {
+  children: ReactNode
+  className?: string
+  as?: 'section' | 'div' | 'article' | 'li'
+}) {
   return <Tag className={`rounded-card border border-slip-200 bg-white p-5 shadow-card ${className}`}>{children}</Tag>
 }
 

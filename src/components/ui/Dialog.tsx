@@ -48,7 +48,12 @@ export function Dialog({ open, onClose, title, description, children, footer, si
                 </p>
               )}
             </div>
-            <button type="button" onClick={onClose} className="rounded-control px-2 py-1 text-slip-600 hover:bg-slip-100" aria-label="Close">
+            <button
+              type="button"
+              onClick={onClose}
+              className="rounded-control px-2 py-1 text-slip-600 hover:bg-slip-100"
+              aria-label="Close"
+            >
               ✕
             </button>
           </header>

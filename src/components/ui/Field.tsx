@@ -50,7 +50,10 @@ export const Select = forwardRef<HTMLSelectElement, SelectProps>(function Select
 
 type TextAreaProps = TextareaHTMLAttributes<HTMLTextAreaElement> & { invalid?: boolean }
 
-export const TextArea = forwardRef<HTMLTextAreaElement, TextAreaProps>(function TextArea({ invalid = false, className = '', ...rest }, ref) {
+export const TextArea = forwardRef<HTMLTextAreaElement, TextAreaProps>(function TextArea(
+  { invalid = false, className = '', ...rest },
+  ref,
+) {
   return <textarea ref={ref} className={`${controlClass(invalid || rest['aria-invalid'] === true)} ${className}`} {...rest} />
 })
 

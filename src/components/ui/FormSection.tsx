@@ -1,7 +1,17 @@
 import { useId, type ReactNode } from 'react'
 
 /** One titled part of a long form, announced as a region by its heading. */
-export function FormSection({ title, lead, children, actions }: { title: string; lead?: ReactNode; children: ReactNode; actions?: ReactNode }) {
+export function FormSection({
+  title,
+  lead,
+  children,
+  actions,
+}: {
+  title: string
+  lead?: ReactNode
+  children: ReactNode
+  actions?: ReactNode
+}) {
   const id = useId()
   return (
     <section aria-labelledby={id} className="rounded-card border border-slip-200 bg-white p-5 shadow-card">

@@ -19,14 +19,26 @@ interface MeasureFieldProps<T extends FieldValues> {
   empty?: undefined | null
 }
 
-const sameNumber = (a: unknown, b: unknown) => a === b || (typeof a === 'number' && typeof b === 'number' && Number.isNaN(a) && Number.isNaN(b))
+const sameNumber = (a: unknown, b: unknown) =>
+  a === b || (typeof a === 'number' && typeof b === 'number' && Number.isNaN(a) && Number.isNaN(b))
 
 /**
  * A number typed in the units on screen and kept in the form in SI (or cents). The field keeps its
  * own text while it is typed ("12." stays "12.") and is rewritten only when the value or the units
  * change from elsewhere (a reset, a demo kiln, the unit switch).
  */
-export function MeasureField<T extends FieldValues>({ control, name, label, measure, units, error, hint, className, disabled, empty }: MeasureFieldProps<T>) {
+export function MeasureField<T extends FieldValues>({
+  control,
+  name,
+  label,
+  measure,
+  units,
+  error,
+  hint,
+  className,
+  disabled,
+  empty,
+}: MeasureFieldProps<T>) {
   const { field, fieldState } = useController({ control, name })
   const value = field.value as unknown
   const [text, setText] = useState(() => shownText(value as number | undefined, measure))

@@ -23,7 +23,12 @@ interface ThProps extends ThHTMLAttributes<HTMLTableCellElement> {
 
 export function Th({ sort, children, className = '', ...rest }: ThProps) {
   return (
-    <th scope="col" aria-sort={sort ? ariaSort(sort.direction) : undefined} className={`whitespace-nowrap bg-slip-50 px-3 py-2 text-xs font-semibold uppercase tracking-wide text-slip-600 ${className}`} {...rest}>
+    <th
+      scope="col"
+      aria-sort={sort ? ariaSort(sort.direction) : undefined}
+      className={`whitespace-nowrap bg-slip-50 px-3 py-2 text-xs font-semibold uppercase tracking-wide text-slip-600 ${className}`}
+      {...rest}
+    >
       {sort ? (
         <button type="button" onClick={sort.onToggle} className="inline-flex items-center gap-1 uppercase hover:text-slip-900">
           {children}

@@ -21,11 +21,19 @@ export function Tabs<T extends string>({ label, idBase, tabs, value, onChange }:
   const onKeyDown = (event: KeyboardEvent, index: number) => {
     const last = tabs.length - 1
     const next =
-      event.key === 'ArrowRight' ? (index === last ? 0 : index + 1)
-      : event.key === 'ArrowLeft' ? (index === 0 ? last : index - 1)
-      : event.key === 'Home' ? 0
-      : event.key === 'End' ? last
-      : null
+      event.key === 'ArrowRight'
+        ? index === last
+          ? 0
+          : index + 1
+        : event.key === 'ArrowLeft'
+          ? index === 0
+            ? last
+            : index - 1
+          : event.key === 'Home'
+            ? 0
+            : event.key === 'End'
+              ? last
+              : null
     if (next === null) return
     event.preventDefault()
     onChange(tabs[next].value)
@@ -59,7 +67,17 @@ export function Tabs<T extends string>({ label, idBase, tabs, value, onChange }:
   )
 }
 
-export function TabPanel<T extends string>({ idBase, value, children, className = '' }: { idBase: string; value: T; children: ReactNode; className?: string }) {
+export function TabPanel<T extends string>({
+  idBase,
+  value,
+  children,
+  className = '',
+}: {
+  idBase: string
+  value: T
+  children: ReactNode
+  className?: string
+}) {
   return (
     <div role="tabpanel" id={`${idBase}-panel-${value}`} aria-labelledby={`${idBase}-tab-${value}`} className={className}>
       {children}

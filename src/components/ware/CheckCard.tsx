@@ -49,7 +49,11 @@ export function CheckCard({ id, check, problem, pieces, children }: CheckCardPro
 export function VerdictBar({ verdict, checkId }: { verdict: Verdict | null; checkId: string }) {
   return (
     <div className="fixed inset-x-0 bottom-0 z-30 flex items-center justify-between gap-3 border-t border-slip-200 bg-white/95 px-4 py-2 backdrop-blur lg:hidden">
-      {verdict ? <Badge tone={VERDICT_WORDS[verdict].tone}>{VERDICT_WORDS[verdict].title}</Badge> : <span className="text-sm text-slip-600">Some fields need fixing</span>}
+      {verdict ? (
+        <Badge tone={VERDICT_WORDS[verdict].tone}>{VERDICT_WORDS[verdict].title}</Badge>
+      ) : (
+        <span className="text-sm text-slip-600">Some fields need fixing</span>
+      )}
       <a href={`#${checkId}`} className="text-sm font-semibold text-clay-700 hover:underline">
         See the check
       </a>

@@ -59,12 +59,20 @@ export function FindingsList({ findings, pieces, linkToRows = true }: FindingsLi
             </h4>
             <ul className="mt-2 space-y-2">
               {inGroup.map((finding, index) => (
-                <li key={`${finding.code}-${finding.pieceIndex ?? 'all'}-${index}`} data-finding={finding.code} className={`border-l-4 pl-3 text-sm ${group.marker}`}>
+                <li
+                  key={`${finding.code}-${finding.pieceIndex ?? 'all'}-${index}`}
+                  data-finding={finding.code}
+                  className={`border-l-4 pl-3 text-sm ${group.marker}`}
+                >
                   <span className="text-slip-800">{finding.message}</span>
                   {finding.detail && <span className="mt-0.5 block text-xs text-slip-500">{finding.detail}</span>}
                   {finding.pieceIndex !== undefined &&
                     (linkToRows ? (
-                      <button type="button" className="mt-0.5 block text-xs font-semibold text-clay-700 hover:underline" onClick={() => goToPiece(finding.pieceIndex!)}>
+                      <button
+                        type="button"
+                        className="mt-0.5 block text-xs font-semibold text-clay-700 hover:underline"
+                        onClick={() => goToPiece(finding.pieceIndex!)}
+                      >
                         Go to {pieceName(pieces, finding.pieceIndex)}
                       </button>
                     ) : (

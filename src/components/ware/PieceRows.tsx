@@ -39,7 +39,10 @@ export function PieceRows<T extends PieceFormValues>(props: PieceRowsProps<T>) {
   const { messages, units } = props
   const { fields, append, remove } = useFieldArray({ control, name: 'pieces' })
   return (
-    <FormSection title={props.title ?? 'Pieces'} lead={props.lead ?? 'One row per kind of piece; sizes are the outside of the piece as it will sit on the shelf.'}>
+    <FormSection
+      title={props.title ?? 'Pieces'}
+      lead={props.lead ?? 'One row per kind of piece; sizes are the outside of the piece as it will sit on the shelf.'}
+    >
       <div className="space-y-4">
         {fields.map((field, index) => (
           <PieceRow
@@ -81,9 +84,23 @@ function PieceRow({ control, register, messages, units, index, onRemove }: RowPr
         </Field>
         <MeasureField {...measured} name={`${at}.quantity`} label="How many" measure={COUNT} error={messages[`${at}.quantity`]} />
         <MeasureField {...measured} name={`${at}.heightMm`} label="Height" measure={length} error={messages[`${at}.heightMm`]} />
-        <MeasureField {...measured} name={`${at}.widthMm`} label={piece.round ? 'Diameter' : 'Width'} measure={length} error={messages[`${at}.widthMm`]} />
-        {!piece.round && <MeasureField {...measured} name={`${at}.depthMm`} label="Depth" measure={length} error={messages[`${at}.depthMm`]} />}
-        <MeasureField {...measured} name={`${at}.wallThicknessMm`} label="Wall thickness" measure={length} error={messages[`${at}.wallThicknessMm`]} />
+        <MeasureField
+          {...measured}
+          name={`${at}.widthMm`}
+          label={piece.round ? 'Diameter' : 'Width'}
+          measure={length}
+          error={messages[`${at}.widthMm`]}
+        />
+        {!piece.round && (
+          <MeasureField {...measured} name={`${at}.depthMm`} label="Depth" measure={length} error={messages[`${at}.depthMm`]} />
+        )}
+        <MeasureField
+          {...measured}
+          name={`${at}.wallThicknessMm`}
+          label="Wall thickness"
+          measure={length}
+          error={messages[`${at}.wallThicknessMm`]}
+        />
         <div className="flex items-end pb-2">
           <Checkbox label="Round" {...register(`${at}.round`)} />
         </div>

@@ -55,12 +55,22 @@ export function checkAgainst(firing: FiringRecord, kiln: KilnRecord, priceList: 
   try {
     const check = checkWare(
       kiln,
-      { kind: firing.kind, cone: firing.cone, atmosphere: firing.atmosphere, slowCool: firing.slowCool, remainingCapacityL: firing.spaceLeftL },
+      {
+        kind: firing.kind,
+        cone: firing.cone,
+        atmosphere: firing.atmosphere,
+        slowCool: firing.slowCool,
+        remainingCapacityL: firing.spaceLeftL,
+      },
       pieces,
     )
     if (!priceList) return { check, quote: null, quoteProblem: null }
     try {
-      return { check, quote: quoteRequest(priceList, { atmosphere: firing.atmosphere, slowCool: firing.slowCool }, pieces, kiln), quoteProblem: null }
+      return {
+        check,
+        quote: quoteRequest(priceList, { atmosphere: firing.atmosphere, slowCool: firing.slowCool }, pieces, kiln),
+        quoteProblem: null,
+      }
     } catch (error) {
       return { check, quote: null, quoteProblem: error instanceof Error ? error.message : String(error) }
     }

@@ -19,14 +19,27 @@ export const outcomeLabel = (outcome: PieceOutcome) => OUTCOMES.find((o) => o.va
  * The studio's next step once the ware is in its hands; null where the general words fit. A list row
  * knows only the state, so without the request's details the words stay general.
  */
-export function studioPickupStep(state: RequestState, view: Partial<Pick<RequestView, 'results' | 'owedCents' | 'checkIn'>> = {}): string | null {
+export function studioPickupStep(
+  state: RequestState,
+  view: Partial<Pick<RequestView, 'results' | 'owedCents' | 'checkIn'>> = {},
+): string | null {
   switch (state) {
     case 'received':
-      return view.checkIn && !view.checkIn.priceConfirmedAt ? 'Checked in; the potter has to confirm the new price before the firing' : 'Checked in; it goes in the kiln with this firing'
+      return view.checkIn && !view.checkIn.priceConfirmedAt
+        ? 'Checked in; the potter has to confirm the new price before the firing'
+        : 'Checked in; it goes in the kiln with this firing'
     case 'fired':
-      return view.results ? 'Results posted; mark it ready for pickup' : view.results === null ? 'Out of the kiln: post the results' : 'Out of the kiln: post the results and mark it ready'
+      return view.results
+        ? 'Results posted; mark it ready for pickup'
+        : view.results === null
+          ? 'Out of the kiln: post the results'
+          : 'Out of the kiln: post the results and mark it ready'
     case 'ready':
-      return view.owedCents === undefined ? 'Ready for pickup' : view.owedCents > 0 ? 'Ready; the balance is still owed' : 'Ready and paid; hand it over'
+      return view.owedCents === undefined
+        ? 'Ready for pickup'
+        : view.owedCents > 0
+          ? 'Ready; the balance is still owed'
+          : 'Ready and paid; hand it over'
     case 'collected':
       return 'Collected: rate the potter'
     default:
@@ -37,7 +50,8 @@ export function studioPickupStep(state: RequestState, view: Partial<Pick<Request
 /** The potter's next step once the ware is with the studio; null where the general words fit. */
 export function potterPickupStep(state: RequestState, view: Pick<RequestView, 'owedCents' | 'checkIn'>): string | null {
   if (state === 'received' && view.checkIn && !view.checkIn.priceConfirmedAt) return 'Confirm the new price the studio measured'
-  if (state === 'ready') return view.owedCents > 0 ? 'Ready to collect: pay the balance online or at the counter' : 'Ready to collect; everything is paid'
+  if (state === 'ready')
+    return view.owedCents > 0 ? 'Ready to collect: pay the balance online or at the counter' : 'Ready to collect; everything is paid'
   if (state === 'collected') return 'Collected: rate the studio'
   return null
 }
@@ -52,5 +66,9 @@ export function priceChange(view: Pick<RequestView, 'checkIn'>): { beforeCents: 
   const checkIn = view.checkIn
   if (!checkIn || checkIn.refused || !checkIn.quoteBefore || !checkIn.quoteAfter) return null
   if (checkIn.quoteBefore.totalCents === checkIn.quoteAfter.totalCents) return null
-  return { beforeCents: checkIn.quoteBefore.totalCents, afterCents: checkIn.quoteAfter.totalCents, waiting: checkIn.priceConfirmedAt === null }
+  return {
+    beforeCents: checkIn.quoteBefore.totalCents,
+    afterCents: checkIn.quoteAfter.totalCents,
+    waiting: checkIn.priceConfirmedAt === null,
+  }
 }

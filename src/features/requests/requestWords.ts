@@ -84,7 +84,12 @@ export interface RefundPreview {
 }
 
 /** The refund a withdrawal gives now, by the same rule the server refunds with. */
-export function refundIfWithdrawn(paidCents: number, firingDate: string, terms: StudioPolicies['cancellation'], now = new Date()): RefundPreview {
+export function refundIfWithdrawn(
+  paidCents: number,
+  firingDate: string,
+  terms: StudioPolicies['cancellation'],
+  now = new Date(),
+): RefundPreview {
   return refundUnderTerms(paidCents, firingDate, terms, now)
 }
 
@@ -96,7 +101,12 @@ export function shortStripeId(id: string): string {
   return rest.length <= 10 ? id : `${prefix}${rest.slice(0, 4)}…${rest.slice(-4)}`
 }
 
-const CLAY_WORDS: Record<Piece['clay']['body'], string> = { earthenware: 'Earthenware', stoneware: 'Stoneware', porcelain: 'Porcelain', other: 'Other clay' }
+const CLAY_WORDS: Record<Piece['clay']['body'], string> = {
+  earthenware: 'Earthenware',
+  stoneware: 'Stoneware',
+  porcelain: 'Porcelain',
+  other: 'Other clay',
+}
 
 export function pieceSizeInWords(piece: Piece, units: UnitSystem): string {
   const tall = `${formatLength(piece.heightMm, units)} tall`
@@ -110,7 +120,11 @@ export function clayInWords(piece: Piece): string {
 
 export function glazeInWords(piece: Piece): string {
   if (!piece.glaze) return 'Unglazed'
-  const notes = [piece.glaze.runny && 'runny', piece.glaze.onFoot && 'glaze on the foot', piece.glaze.onCookie && 'on a cookie or stilt'].filter(Boolean)
+  const notes = [
+    piece.glaze.runny && 'runny',
+    piece.glaze.onFoot && 'glaze on the foot',
+    piece.glaze.onCookie && 'on a cookie or stilt',
+  ].filter(Boolean)
   return `Glaze ${formatCone(piece.glaze.minCone)} to ${piece.glaze.maxCone}${notes.length ? ` (${notes.join(', ')})` : ''}`
 }
 

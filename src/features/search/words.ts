@@ -28,7 +28,14 @@ export const atmosphereLabel = (value: string) => ATMOSPHERE_CHOICES.find((c) =>
 export const firingKindLabel = (value: string) => FIRING_KIND_CHOICES.find((c) => c.value === value)?.label ?? capitalised(value)
 export const kilnKindLabel = (value: string) => KILN_KINDS[value] ?? capitalised(value)
 
-const dateTime = new Intl.DateTimeFormat(undefined, { weekday: 'short', month: 'short', day: 'numeric', hour: 'numeric', minute: '2-digit', timeZoneName: 'short' })
+const dateTime = new Intl.DateTimeFormat(undefined, {
+  weekday: 'short',
+  month: 'short',
+  day: 'numeric',
+  hour: 'numeric',
+  minute: '2-digit',
+  timeZoneName: 'short',
+})
 const dateOnly = new Intl.DateTimeFormat(undefined, { weekday: 'short', month: 'short', day: 'numeric' })
 
 /** "Fri, May 8, 6:00 PM PDT" in the reader's locale and zone. */
@@ -39,6 +46,8 @@ export const formatDay = (iso: string) => dateOnly.format(new Date(iso))
 /** The reader's zone, e.g. "America/Los_Angeles (PDT)". */
 export function readerZone(at = new Date()): string {
   const zone = Intl.DateTimeFormat().resolvedOptions().timeZone
-  const short = new Intl.DateTimeFormat(undefined, { timeZoneName: 'short' }).formatToParts(at).find((p) => p.type === 'timeZoneName')?.value
+  const short = new Intl.DateTimeFormat(undefined, { timeZoneName: 'short' })
+    .formatToParts(at)
+    .find((p) => p.type === 'timeZoneName')?.value
   return short && short !== zone ? `${zone.replace(/_/g, ' ')} (${short})` : zone.replace(/_/g, ' ')
 }

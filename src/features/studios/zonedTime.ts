@@ -73,6 +73,8 @@ export function weekdayIn(iso: string, zone: string): string {
 
 /** The zone's short name at an instant, e.g. "PDT". */
 export function zoneAbbreviation(zone: string, at: Date = new Date()): string {
-  const part = new Intl.DateTimeFormat('en-US', { timeZone: zone, timeZoneName: 'short' }).formatToParts(at).find((p) => p.type === 'timeZoneName')
+  const part = new Intl.DateTimeFormat('en-US', { timeZone: zone, timeZoneName: 'short' })
+    .formatToParts(at)
+    .find((p) => p.type === 'timeZoneName')
   return part?.value ?? zone
 }

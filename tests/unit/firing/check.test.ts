@@ -180,7 +180,13 @@ describe('clay-overfire', () => {
     const finding = expectOne(electricKiln(), glazeFiring(), [mug({ clay: earthenware, glaze: undefined })], 'clay-overfire', 'block')
     expect(finding.message).toContain('cone 02')
     // Also in a bisque: cone 04 is past a cone 06 clay's limit.
-    expectOne(electricKiln(), bisqueFiring(), [greenBowl({ clay: { body: 'earthenware', minCone: '08', maxCone: '06' } })], 'clay-overfire', 'block')
+    expectOne(
+      electricKiln(),
+      bisqueFiring(),
+      [greenBowl({ clay: { body: 'earthenware', minCone: '08', maxCone: '06' } })],
+      'clay-overfire',
+      'block',
+    )
   })
 
   it('passes clay at its top cone', () => {
@@ -192,7 +198,13 @@ describe('clay-underfire', () => {
   // Common practice: earthenware fired around 1800–2100 °F stays porous (it keeps bound water and heats in
   // a microwave) while vitrified stoneware does not, so a stoneware glaze firing at earthenware heat underfires it.
   it('warns when a glaze firing is cooler than the clay matures', () => {
-    const finding = expectOne(electricKiln(), glazeFiring({ cone: '04' }), [mug({ glaze: { minCone: '06', maxCone: '04' } })], 'clay-underfire', 'warn')
+    const finding = expectOne(
+      electricKiln(),
+      glazeFiring({ cone: '04' }),
+      [mug({ glaze: { minCone: '06', maxCone: '04' } })],
+      'clay-underfire',
+      'warn',
+    )
     expect(finding.message).toContain('cone 5')
     expectOne(electricKiln(), glazeFiring({ kind: 'single', cone: '04' }), [greenBowl()], 'clay-underfire', 'warn')
   })
@@ -282,19 +294,35 @@ describe('glaze-on-foot', () => {
   })
 
   it('passes a glazed foot set on a cookie or stilt, and a clean foot', () => {
-    expectNone(electricKiln(), glazeFiring(), [mug({ glaze: { minCone: '5', maxCone: '7', onFoot: true, onCookie: true } })], 'glaze-on-foot')
+    expectNone(
+      electricKiln(),
+      glazeFiring(),
+      [mug({ glaze: { minCone: '5', maxCone: '7', onFoot: true, onCookie: true } })],
+      'glaze-on-foot',
+    )
     expectNone(electricKiln(), glazeFiring(), [mug()], 'glaze-on-foot')
   })
 })
 
 describe('runny-glaze-tray', () => {
   it('warns to set a runny glaze on a catch tray or cookie', () => {
-    const finding = expectOne(electricKiln(), glazeFiring(), [mug({ glaze: { minCone: '5', maxCone: '7', runny: true } })], 'runny-glaze-tray', 'warn')
+    const finding = expectOne(
+      electricKiln(),
+      glazeFiring(),
+      [mug({ glaze: { minCone: '5', maxCone: '7', runny: true } })],
+      'runny-glaze-tray',
+      'warn',
+    )
     expect(finding.message).toMatch(/catch tray or cookie/)
   })
 
   it('passes a runny glaze already on a cookie', () => {
-    expectNone(electricKiln(), glazeFiring(), [mug({ glaze: { minCone: '5', maxCone: '7', runny: true, onCookie: true } })], 'runny-glaze-tray')
+    expectNone(
+      electricKiln(),
+      glazeFiring(),
+      [mug({ glaze: { minCone: '5', maxCone: '7', runny: true, onCookie: true } })],
+      'runny-glaze-tray',
+    )
   })
 })
 

@@ -1,13 +1,6 @@
 import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
-import {
-  CONES,
-  compareCones,
-  coneReached,
-  coneTemperatureC,
-  formatCone,
-  parseCone,
-} from '../../../shared/firing/cones'
+import { CONES, compareCones, coneReached, coneTemperatureC, formatCone, parseCone } from '../../../shared/firing/cones'
 import { cToF, rateFToC } from '../../../shared/firing/units'
 
 // Source: Orton Ceramic Foundation, "Temperature Equivalent Chart for Orton Pyrometric Cones (°C),
@@ -83,11 +76,13 @@ const CHART_RATES_F = [27, 108, 270] as const
 
 describe('cone order', () => {
   it('lists cones 022 to 01 then 1 to 14, coolest first', () => {
-    expect(CONES).toEqual(Object.keys(ORTON_SELF_SUPPORTING_C).sort((a, b) => {
-      // The chart's own order: 0-prefixed cones count down to 01, then plain cones count up.
-      const rank = (cone: string) => (cone.startsWith('0') ? -Number(cone) : Number(cone))
-      return rank(a) - rank(b)
-    }))
+    expect(CONES).toEqual(
+      Object.keys(ORTON_SELF_SUPPORTING_C).sort((a, b) => {
+        // The chart's own order: 0-prefixed cones count down to 01, then plain cones count up.
+        const rank = (cone: string) => (cone.startsWith('0') ? -Number(cone) : Number(cone))
+        return rank(a) - rank(b)
+      }),
+    )
     expect(CONES[0]).toBe('022')
     expect(CONES.at(-1)).toBe('14')
   })

@@ -28,7 +28,12 @@ const coneText = fc.oneof(
 
 /** A cone range, coolest first most of the time. */
 const coneRange = fc.oneof(
-  { weight: 19, arbitrary: fc.tuple(fc.nat(CONES.length - 1), fc.nat(CONES.length - 1)).map(([a, b]) => ({ minCone: CONES[Math.min(a, b)], maxCone: CONES[Math.max(a, b)] })) },
+  {
+    weight: 19,
+    arbitrary: fc
+      .tuple(fc.nat(CONES.length - 1), fc.nat(CONES.length - 1))
+      .map(([a, b]) => ({ minCone: CONES[Math.min(a, b)], maxCone: CONES[Math.max(a, b)] })),
+  },
   { weight: 1, arbitrary: fc.record({ minCone: coneText, maxCone: coneText }) },
 )
 
@@ -92,8 +97,19 @@ const pieceRaw = fc
   }))
 
 const priceListRaw = fc.oneof(
-  fc.record({ currency: fc.constantFrom('USD', 'eur', 'GBP'), model: fc.constant('volume'), centsPerCubicInch: number(0, 100), deposit: fc.record({ percent: number(0, 100) }) }),
-  fc.record({ currency: fc.constant('CAD'), model: fc.constant('volume'), centsPerLitre: number(0, 2000), minimumPerPieceCents: integer(0, 5000), deposit: fc.record({ fixedCents: integer(0, 20_000) }) }),
+  fc.record({
+    currency: fc.constantFrom('USD', 'eur', 'GBP'),
+    model: fc.constant('volume'),
+    centsPerCubicInch: number(0, 100),
+    deposit: fc.record({ percent: number(0, 100) }),
+  }),
+  fc.record({
+    currency: fc.constant('CAD'),
+    model: fc.constant('volume'),
+    centsPerLitre: number(0, 2000),
+    minimumPerPieceCents: integer(0, 5000),
+    deposit: fc.record({ fixedCents: integer(0, 20_000) }),
+  }),
   fc.record({
     currency: fc.constant('USD'),
     model: fc.constant('shelf'),
@@ -102,7 +118,12 @@ const priceListRaw = fc.oneof(
     surcharges: fc.record({ reduction: number(0, 100), slowCool: number(0, 100), preheat: number(0, 100) }, { requiredKeys: [] }),
     deposit: fc.record({ percent: number(0, 100) }),
   }),
-  fc.record({ currency: fc.constant('USD'), model: fc.constant('kiln'), kilnCents: integer(0, 1_000_000), deposit: fc.record({ fixedCents: integer(0, 100_000) }) }),
+  fc.record({
+    currency: fc.constant('USD'),
+    model: fc.constant('kiln'),
+    kilnCents: integer(0, 1_000_000),
+    deposit: fc.record({ fixedCents: integer(0, 100_000) }),
+  }),
 )
 
 const bodyRaw = fc.record(

@@ -75,7 +75,14 @@ describe('volume pricing', () => {
 
 describe('shelf pricing', () => {
   // A 40 × 25 cm shelf area (100 000 mm²) at 4000 ¢ a shelf, sold in quarters.
-  const prices: PriceList = { currency: 'USD', model: 'shelf', shelfCents: 4000, shelfStep: 0.25, shelfAreaMm2: 100_000, deposit: { percent: 25 } }
+  const prices: PriceList = {
+    currency: 'USD',
+    model: 'shelf',
+    shelfCents: 4000,
+    shelfStep: 0.25,
+    shelfAreaMm2: 100_000,
+    deposit: { percent: 25 },
+  }
   const footprint = (areaMm2: number, quantity = 1) => mug({ round: false, widthMm: 100, depthMm: areaMm2 / 100, quantity })
 
   it('rounds the shelf share up to the step', () => {
@@ -111,7 +118,12 @@ describe('shelf pricing', () => {
 describe('whole-kiln pricing', () => {
   it('charges the kiln price', () => {
     const quote = quoteRequest({ currency: 'EUR', model: 'kiln', kilnCents: 25_000, deposit: { fixedCents: 5000 } }, glazeFiring(), [mug()])
-    expect(quote).toEqual({ currency: 'EUR', lines: [{ label: 'Whole kiln', amountCents: 25_000 }], totalCents: 25_000, depositCents: 5000 })
+    expect(quote).toEqual({
+      currency: 'EUR',
+      lines: [{ label: 'Whole kiln', amountCents: 25_000 }],
+      totalCents: 25_000,
+      depositCents: 5000,
+    })
   })
 })
 
@@ -145,7 +157,11 @@ describe('surcharges and deposits', () => {
 
   it('rounds a percent surcharge half-up', () => {
     // 2.5 % of 1000 in³ at 0.3 ¢ = 300 ¢ base → 7.5 → 8 ¢.
-    const quote = quoteRequest(volumePrices({ centsPerCubicInch: 0.3, surcharges: { reduction: 2.5 } }), glazeFiring({ atmosphere: 'reduction' }), [jar])
+    const quote = quoteRequest(
+      volumePrices({ centsPerCubicInch: 0.3, surcharges: { reduction: 2.5 } }),
+      glazeFiring({ atmosphere: 'reduction' }),
+      [jar],
+    )
     expect(quote.lines.map((line) => line.amountCents)).toEqual([300, 8])
   })
 

@@ -2,14 +2,7 @@ import { describe, expect, it } from 'vitest'
 import { z } from 'zod'
 import type { Firing, Kiln, Piece } from '../../../shared/firing/check'
 import type { PriceList } from '../../../shared/firing/quote'
-import {
-  coneSchema,
-  firingSpecSchema,
-  kilnSchema,
-  pieceSchema,
-  priceListSchema,
-  wareCheckBodySchema,
-} from '../../../shared/schemas/firing'
+import { coneSchema, firingSpecSchema, kilnSchema, pieceSchema, priceListSchema, wareCheckBodySchema } from '../../../shared/schemas/firing'
 import { electricKiln, glazeFiring, mug } from './fixtures'
 
 function messages(result: { success: boolean; error?: z.ZodError }): Record<string, string[]> {
@@ -99,14 +92,26 @@ describe('priceListSchema', () => {
   })
 
   it('asks for the price the model needs', () => {
-    expect(messages(priceListSchema.safeParse({ currency: 'USD', model: 'volume', deposit: { percent: 25 } })).centsPerCubicInch?.[0]).toMatch(/one price/)
-    expect(messages(priceListSchema.safeParse({ currency: 'USD', model: 'shelf', deposit: { percent: 25 } })).shelfCents?.[0]).toMatch(/whole shelf/)
-    expect(messages(priceListSchema.safeParse({ currency: 'USD', model: 'kiln', deposit: { percent: 25 } })).kilnCents?.[0]).toMatch(/price of the kiln/)
+    expect(
+      messages(priceListSchema.safeParse({ currency: 'USD', model: 'volume', deposit: { percent: 25 } })).centsPerCubicInch?.[0],
+    ).toMatch(/one price/)
+    expect(messages(priceListSchema.safeParse({ currency: 'USD', model: 'shelf', deposit: { percent: 25 } })).shelfCents?.[0]).toMatch(
+      /whole shelf/,
+    )
+    expect(messages(priceListSchema.safeParse({ currency: 'USD', model: 'kiln', deposit: { percent: 25 } })).kilnCents?.[0]).toMatch(
+      /price of the kiln/,
+    )
   })
 
   it('keeps money in whole cents and deposits within 100 %', () => {
-    expect(messages(priceListSchema.safeParse({ currency: 'USD', model: 'kiln', kilnCents: 10.5, deposit: { percent: 25 } })).kilnCents?.[0]).toMatch(/whole cents/)
-    expect(messages(priceListSchema.safeParse({ currency: 'USD', model: 'kiln', kilnCents: 1000, deposit: { percent: 120 } }))['deposit.percent']?.[0]).toMatch(/at most 100/)
+    expect(
+      messages(priceListSchema.safeParse({ currency: 'USD', model: 'kiln', kilnCents: 10.5, deposit: { percent: 25 } })).kilnCents?.[0],
+    ).toMatch(/whole cents/)
+    expect(
+      messages(priceListSchema.safeParse({ currency: 'USD', model: 'kiln', kilnCents: 1000, deposit: { percent: 120 } }))[
+        'deposit.percent'
+      ]?.[0],
+    ).toMatch(/at most 100/)
   })
 })
 
@@ -114,7 +119,10 @@ describe('wareCheckBodySchema', () => {
   const inline = { kiln: electricKiln(), firing: glazeFiring(), pieces: [mug()] }
 
   it('accepts {kiln, firing, pieces, priceList?}', () => {
-    const body = wareCheckBodySchema.parse({ ...inline, priceList: { currency: 'USD', model: 'kiln', kilnCents: 100, deposit: { fixedCents: 0 } } })
+    const body = wareCheckBodySchema.parse({
+      ...inline,
+      priceList: { currency: 'USD', model: 'kiln', kilnCents: 100, deposit: { fixedCents: 0 } },
+    })
     expect('kiln' in body && body.priceList?.model).toBe('kiln')
   })
 
@@ -132,7 +140,9 @@ describe('wareCheckBodySchema', () => {
 
   it('bounds the number of pieces', () => {
     expect(messages(wareCheckBodySchema.safeParse({ ...inline, pieces: [] })).pieces?.[0]).toMatch(/at least one piece/)
-    expect(messages(wareCheckBodySchema.safeParse({ ...inline, pieces: Array.from({ length: 201 }, () => mug()) })).pieces?.[0]).toMatch(/At most 200/)
+    expect(messages(wareCheckBodySchema.safeParse({ ...inline, pieces: Array.from({ length: 201 }, () => mug()) })).pieces?.[0]).toMatch(
+      /At most 200/,
+    )
     expect(wareCheckBodySchema.safeParse({ ...inline, pieces: Array.from({ length: 200 }, () => mug()) }).success).toBe(true)
   })
 

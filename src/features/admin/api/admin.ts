@@ -34,13 +34,17 @@ export function useDeskStudios() {
 }
 
 export function useDeskUsers(q: string) {
-  return useQuery({ queryKey: adminKeys.users(q), queryFn: () => api<{ users: DeskUser[] }>(`/api/admin/users?q=${encodeURIComponent(q)}`) })
+  return useQuery({
+    queryKey: adminKeys.users(q),
+    queryFn: () => api<{ users: DeskUser[] }>(`/api/admin/users?q=${encodeURIComponent(q)}`),
+  })
 }
 
 export function useVerifyStudio() {
   const queryClient = useQueryClient()
   return useMutation({
-    mutationFn: ({ id, verified }: { id: string; verified: boolean }) => api(`/api/studios/${id}/verify`, { method: 'POST', body: { verified } }),
+    mutationFn: ({ id, verified }: { id: string; verified: boolean }) =>
+      api(`/api/studios/${id}/verify`, { method: 'POST', body: { verified } }),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: adminKeys.studios() }),
   })
 }
@@ -48,7 +52,8 @@ export function useVerifyStudio() {
 export function useSuspendUser() {
   const queryClient = useQueryClient()
   return useMutation({
-    mutationFn: ({ id, suspended }: { id: string; suspended: boolean }) => api(`/api/admin/users/${id}/suspend`, { method: 'POST', body: { suspended } }),
+    mutationFn: ({ id, suspended }: { id: string; suspended: boolean }) =>
+      api(`/api/admin/users/${id}/suspend`, { method: 'POST', body: { suspended } }),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: [...adminKeys.all, 'users'] }),
   })
 }

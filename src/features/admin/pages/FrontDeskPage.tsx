@@ -7,7 +7,16 @@ import { Card, EmptyState, PageHeader } from '../../../components/ui/Card'
 import { Field, TextInput } from '../../../components/ui/Field'
 import { Spinner } from '../../../components/ui/Spinner'
 import { formatDateTime, formatMoney } from '../../../../shared/dates'
-import { useDeskRefund, useDeskStudios, useDeskUsers, useDisputes, useSuspendUser, useVerifyStudio, type DeskStudio, type DisputedRequest } from '../api/admin'
+import {
+  useDeskRefund,
+  useDeskStudios,
+  useDeskUsers,
+  useDisputes,
+  useSuspendUser,
+  useVerifyStudio,
+  type DeskStudio,
+  type DisputedRequest,
+} from '../api/admin'
 
 function StudioRow({ studio }: { studio: DeskStudio }) {
   const verify = useVerifyStudio()
@@ -18,18 +27,28 @@ function StudioRow({ studio }: { studio: DeskStudio }) {
           {studio.name}
         </Link>
         <p className="text-sm text-slip-600">
-          {[studio.city, studio.region].filter(Boolean).join(', ')} · {studio.kilns} kiln{studio.kilns === 1 ? '' : 's'} · {studio.upcomingFirings} firing
+          {[studio.city, studio.region].filter(Boolean).join(', ')} · {studio.kilns} kiln{studio.kilns === 1 ? '' : 's'} ·{' '}
+          {studio.upcomingFirings} firing
           {studio.upcomingFirings === 1 ? '' : 's'} ahead · {(studio.owners ?? []).map((o) => `${o.name} <${o.email}>`).join(', ')}
         </p>
       </div>
       <div className="flex items-center gap-2">
         {!studio.published && <Badge>Draft</Badge>}
         {studio.verified ? <Badge tone="celadon">Verified</Badge> : <Badge tone="ember">Not verified</Badge>}
-        <Button size="sm" variant={studio.verified ? 'secondary' : 'primary'} busy={verify.isPending} onClick={() => verify.mutate({ id: studio.id, verified: !studio.verified })}>
+        <Button
+          size="sm"
+          variant={studio.verified ? 'secondary' : 'primary'}
+          busy={verify.isPending}
+          onClick={() => verify.mutate({ id: studio.id, verified: !studio.verified })}
+        >
           {studio.verified ? 'Withdraw verification' : 'Verify'}
         </Button>
       </div>
-      {verify.isError && <Alert tone="danger" className="w-full">{verify.error.message}</Alert>}
+      {verify.isError && (
+        <Alert tone="danger" className="w-full">
+          {verify.error.message}
+        </Alert>
+      )}
     </li>
   )
 }
@@ -47,13 +66,26 @@ function DisputeRow({ request }: { request: DisputedRequest }) {
           {request.potterName} · {request.studio.name}
         </Link>
         <span className="text-sm text-slip-600">
-          {request.firing.kilnName}, cone {request.firing.cone} {request.firing.atmosphere}, {formatDateTime(request.firing.firingDate, request.studio.timezone)} · quoted {request.quote ? formatMoney(request.quote.totalCents, currency) : '—'}
+          {request.firing.kilnName}, cone {request.firing.cone} {request.firing.atmosphere},{' '}
+          {formatDateTime(request.firing.firingDate, request.studio.timezone)} · quoted{' '}
+          {request.quote ? formatMoney(request.quote.totalCents, currency) : '—'}
         </span>
       </div>
       <div className="flex flex-wrap items-end gap-2">
-        <Field label={`Refund (${currency})`}>{(a11y) => <TextInput {...a11y} inputMode="decimal" value={amount} onChange={(e) => setAmount(e.target.value)} className="w-28" />}</Field>
-        <Field label="Why" className="min-w-60 flex-1">{(a11y) => <TextInput {...a11y} value={reason} onChange={(e) => setReason(e.target.value)} />}</Field>
-        <Button size="sm" busy={refund.isPending} disabled={!(cents > 0) || reason.trim().length < 3} onClick={() => refund.mutate({ id: request.id, amountCents: cents, reason })}>
+        <Field label={`Refund (${currency})`}>
+          {(a11y) => (
+            <TextInput {...a11y} inputMode="decimal" value={amount} onChange={(e) => setAmount(e.target.value)} className="w-28" />
+          )}
+        </Field>
+        <Field label="Why" className="min-w-60 flex-1">
+          {(a11y) => <TextInput {...a11y} value={reason} onChange={(e) => setReason(e.target.value)} />}
+        </Field>
+        <Button
+          size="sm"
+          busy={refund.isPending}
+          disabled={!(cents > 0) || reason.trim().length < 3}
+          onClick={() => refund.mutate({ id: request.id, amountCents: cents, reason })}
+        >
           Refund
         </Button>
       </div>
@@ -68,15 +100,25 @@ function Disputes() {
   return (
     <Card>
       <h2 className="text-lg font-semibold">Disputes</h2>
-      <p className="mt-1 text-sm text-slip-600">Open the request to read its record (check-in, firing log, results, messages) before refunding.</p>
+      <p className="mt-1 text-sm text-slip-600">
+        Open the request to read its record (check-in, firing log, results, messages) before refunding.
+      </p>
       {disputes.isPending ? (
         <Spinner />
       ) : disputes.isError ? (
-        <Alert tone="danger" className="mt-3">{disputes.error.message}</Alert>
+        <Alert tone="danger" className="mt-3">
+          {disputes.error.message}
+        </Alert>
       ) : disputes.data.requests.length === 0 ? (
-        <div className="mt-3"><EmptyState title="No open disputes" /></div>
+        <div className="mt-3">
+          <EmptyState title="No open disputes" />
+        </div>
       ) : (
-        <ul className="mt-2">{disputes.data.requests.map((r) => <DisputeRow key={r.id} request={r} />)}</ul>
+        <ul className="mt-2">
+          {disputes.data.requests.map((r) => (
+            <DisputeRow key={r.id} request={r} />
+          ))}
+        </ul>
       )}
     </Card>
   )
@@ -89,25 +131,43 @@ function Accounts() {
   return (
     <Card>
       <h2 className="text-lg font-semibold">Accounts</h2>
-      <p className="mt-1 text-sm text-slip-600">Suspend an account that abuses the marketplace; its sessions end at once. Restoring it lets it sign in again.</p>
+      <p className="mt-1 text-sm text-slip-600">
+        Suspend an account that abuses the marketplace; its sessions end at once. Restoring it lets it sign in again.
+      </p>
       <Field label="Find by name or e-mail" className="mt-4 max-w-md">
         {(a11y) => <TextInput {...a11y} value={q} onChange={(e) => setQ(e.target.value)} placeholder="e.g. okafor" />}
       </Field>
-      {suspend.isError && <Alert tone="danger" className="mt-3">{suspend.error.message}</Alert>}
+      {suspend.isError && (
+        <Alert tone="danger" className="mt-3">
+          {suspend.error.message}
+        </Alert>
+      )}
       {users.isPending ? (
         <Spinner />
       ) : users.isError ? (
-        <Alert tone="danger" className="mt-3">{users.error.message}</Alert>
+        <Alert tone="danger" className="mt-3">
+          {users.error.message}
+        </Alert>
       ) : (
         <ul className="mt-3">
           {users.data.users.map((user) => (
-            <li key={user.id} className="flex flex-wrap items-center justify-between gap-2 border-b border-slip-100 py-2 text-sm last:border-0">
+            <li
+              key={user.id}
+              className="flex flex-wrap items-center justify-between gap-2 border-b border-slip-100 py-2 text-sm last:border-0"
+            >
               <span>
-                <span className="font-medium">{user.displayName}</span> <span className="text-slip-600">{user.email} · {user.role}</span>
+                <span className="font-medium">{user.displayName}</span>{' '}
+                <span className="text-slip-600">
+                  {user.email} · {user.role}
+                </span>
               </span>
               <span className="flex items-center gap-2">
                 {user.suspended && <Badge tone="danger">Suspended</Badge>}
-                <Button size="sm" variant={user.suspended ? 'secondary' : 'ghost'} onClick={() => suspend.mutate({ id: user.id, suspended: !user.suspended })}>
+                <Button
+                  size="sm"
+                  variant={user.suspended ? 'secondary' : 'ghost'}
+                  onClick={() => suspend.mutate({ id: user.id, suspended: !user.suspended })}
+                >
                   {user.suspended ? 'Restore' : 'Suspend'}
                 </Button>
               </span>
@@ -130,23 +190,35 @@ export function FrontDeskPage() {
       <div className="space-y-6">
         <Card>
           <h2 className="text-lg font-semibold">Waiting for verification</h2>
-          <p className="mt-1 text-sm text-slip-600">Published studios nobody has checked yet. Verify once you have seen the kilns and spoken to the owner.</p>
+          <p className="mt-1 text-sm text-slip-600">
+            Published studios nobody has checked yet. Verify once you have seen the kilns and spoken to the owner.
+          </p>
           {studios.isPending ? (
             <Spinner />
           ) : studios.isError ? (
-            <Alert tone="danger" className="mt-3">{studios.error.message}</Alert>
+            <Alert tone="danger" className="mt-3">
+              {studios.error.message}
+            </Alert>
           ) : waiting.length === 0 ? (
             <div className="mt-3">
               <EmptyState title="Nothing waiting">Every published studio is verified.</EmptyState>
             </div>
           ) : (
-            <ul className="mt-2">{waiting.map((s) => <StudioRow key={s.id} studio={s} />)}</ul>
+            <ul className="mt-2">
+              {waiting.map((s) => (
+                <StudioRow key={s.id} studio={s} />
+              ))}
+            </ul>
           )}
         </Card>
         {others.length > 0 && (
           <Card>
             <h2 className="text-lg font-semibold">All studios</h2>
-            <ul className="mt-2">{others.map((s) => <StudioRow key={s.id} studio={s} />)}</ul>
+            <ul className="mt-2">
+              {others.map((s) => (
+                <StudioRow key={s.id} studio={s} />
+              ))}
+            </ul>
           </Card>
         )}
         <Disputes />

@@ -25,7 +25,15 @@ export function ForgotPasswordPage() {
   })
 
   return (
-    <AuthCard title="Set a new password" lead="We will mail you a link that sets a new password." footer={<Link className="text-clay-700 hover:underline" to="/sign-in">Back to sign in</Link>}>
+    <AuthCard
+      title="Set a new password"
+      lead="We will mail you a link that sets a new password."
+      footer={
+        <Link className="text-clay-700 hover:underline" to="/sign-in">
+          Back to sign in
+        </Link>
+      }
+    >
       {request.isSuccess ? (
         <Alert tone="success" title="Check your mail">
           If that address has a Conewright account, a link is on its way. It works once, for one hour.

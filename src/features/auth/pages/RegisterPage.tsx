@@ -42,7 +42,10 @@ export function RegisterPage() {
       lead="One account for bringing ware and for running a kiln room."
       footer={
         <>
-          Already have one? <Link className="font-semibold text-clay-700 hover:underline" to="/sign-in">Sign in</Link>
+          Already have one?{' '}
+          <Link className="font-semibold text-clay-700 hover:underline" to="/sign-in">
+            Sign in
+          </Link>
         </>
       }
     >

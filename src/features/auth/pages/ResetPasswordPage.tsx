@@ -40,11 +40,22 @@ export function ResetPasswordPage() {
   }
 
   return (
-    <AuthCard title="Choose a new password" footer={<Link className="text-clay-700 hover:underline" to="/forgot-password">Ask for a new link</Link>}>
+    <AuthCard
+      title="Choose a new password"
+      footer={
+        <Link className="text-clay-700 hover:underline" to="/forgot-password">
+          Ask for a new link
+        </Link>
+      }
+    >
       <form onSubmit={onSubmit} noValidate className="space-y-4">
         {(formError || formState.errors.token) && <Alert tone="danger">{formError ?? formState.errors.token?.message}</Alert>}
         <input type="hidden" {...register('token')} />
-        <Field label="New password" hint="At least 10 characters; a few unrelated words work well." error={formState.errors.password?.message}>
+        <Field
+          label="New password"
+          hint="At least 10 characters; a few unrelated words work well."
+          error={formState.errors.password?.message}
+        >
           {(a11y) => <TextInput {...a11y} type="password" autoComplete="new-password" {...register('password')} />}
         </Field>
         <Button type="submit" className="w-full" busy={formState.isSubmitting}>

@@ -35,7 +35,10 @@ export function SignInPage() {
       lead="Pick up where you left your ware."
       footer={
         <>
-          New here? <Link className="font-semibold text-clay-700 hover:underline" to="/join">Make an account</Link>
+          New here?{' '}
+          <Link className="font-semibold text-clay-700 hover:underline" to="/join">
+            Make an account
+          </Link>
         </>
       }
     >

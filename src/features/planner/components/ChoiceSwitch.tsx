@@ -6,7 +6,17 @@ interface Choice<T extends string> {
 }
 
 /** A small radio group drawn as a segmented switch; arrow keys move between the choices. */
-export function ChoiceSwitch<T extends string>({ legend, value, choices, onChange }: { legend: string; value: T; choices: readonly Choice<T>[]; onChange: (value: T) => void }) {
+export function ChoiceSwitch<T extends string>({
+  legend,
+  value,
+  choices,
+  onChange,
+}: {
+  legend: string
+  value: T
+  choices: readonly Choice<T>[]
+  onChange: (value: T) => void
+}) {
   const name = useId()
   return (
     <fieldset className="flex items-center gap-2">

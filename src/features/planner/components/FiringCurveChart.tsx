@@ -28,7 +28,15 @@ const SCALES = [
   { value: 'C', label: '°C' },
 ] as const
 
-export function FiringCurveChart({ schedule, scale, onScaleChange }: { schedule: FiringSchedule; scale: TemperatureScale; onScaleChange: (scale: TemperatureScale) => void }) {
+export function FiringCurveChart({
+  schedule,
+  scale,
+  onScaleChange,
+}: {
+  schedule: FiringSchedule
+  scale: TemperatureScale
+  onScaleChange: (scale: TemperatureScale) => void
+}) {
   const shown = (celsius: number) => Math.round(scale === 'F' ? cToF(celsius) : celsius)
   const data = curvePoints(schedule).map((point) => ({ hours: point.hours, temperature: shown(point.temperatureC) }))
   const spans = zoneSpans(schedule)
@@ -41,7 +49,12 @@ export function FiringCurveChart({ schedule, scale, onScaleChange }: { schedule:
         <h3 className="font-semibold text-slip-900">Firing curve</h3>
         <ChoiceSwitch legend="Temperature scale" value={scale} choices={SCALES} onChange={onScaleChange} />
       </div>
-      <div className="h-80 w-full" data-testid="firing-curve" role="img" aria-label={`Firing curve: temperature in ${unit} against hours, peaking at ${formatTemperature(schedule.peakC, scale)}.`}>
+      <div
+        className="h-80 w-full"
+        data-testid="firing-curve"
+        role="img"
+        aria-label={`Firing curve: temperature in ${unit} against hours, peaking at ${formatTemperature(schedule.peakC, scale)}.`}
+      >
         <ResponsiveContainer width="100%" height="100%">
           <LineChart data={data} margin={{ top: 8, right: 12, bottom: 8, left: 4 }}>
             <CartesianGrid stroke="var(--color-slip-200)" strokeDasharray="3 3" />
@@ -81,7 +94,14 @@ export function FiringCurveChart({ schedule, scale, onScaleChange }: { schedule:
               labelFormatter={(hours) => formatDuration(Number(hours) * 60)}
               contentStyle={{ borderRadius: 'var(--radius-control)', borderColor: 'var(--color-slip-200)' }}
             />
-            <Line type="linear" dataKey="temperature" stroke="var(--color-clay-600)" strokeWidth={2} dot={false} isAnimationActive={false} />
+            <Line
+              type="linear"
+              dataKey="temperature"
+              stroke="var(--color-clay-600)"
+              strokeWidth={2}
+              dot={false}
+              isAnimationActive={false}
+            />
           </LineChart>
         </ResponsiveContainer>
       </div>
@@ -97,18 +117,32 @@ function SegmentTable({ schedule, scale }: { schedule: FiringSchedule; scale: Te
         <caption className="sr-only">Firing schedule, step by step</caption>
         <thead className="text-slip-500">
           <tr>
-            <th scope="col" className="py-1 pr-3 font-medium">Zone</th>
-            <th scope="col" className="py-1 pr-3 font-medium">From</th>
-            <th scope="col" className="py-1 pr-3 font-medium">To</th>
-            <th scope="col" className="py-1 pr-3 font-medium">Rate</th>
-            <th scope="col" className="py-1 font-medium">Hold</th>
+            <th scope="col" className="py-1 pr-3 font-medium">
+              Zone
+            </th>
+            <th scope="col" className="py-1 pr-3 font-medium">
+              From
+            </th>
+            <th scope="col" className="py-1 pr-3 font-medium">
+              To
+            </th>
+            <th scope="col" className="py-1 pr-3 font-medium">
+              Rate
+            </th>
+            <th scope="col" className="py-1 font-medium">
+              Hold
+            </th>
           </tr>
         </thead>
         <tbody className="divide-y divide-slip-100 text-slip-800">
           {schedule.segments.map((segment, index) => (
             <tr key={index}>
               <td className="py-1 pr-3">
-                <span className="mr-1.5 inline-block size-2.5 rounded-sm align-middle" style={{ background: ZONE_FILL[segment.zone] }} aria-hidden />
+                <span
+                  className="mr-1.5 inline-block size-2.5 rounded-sm align-middle"
+                  style={{ background: ZONE_FILL[segment.zone] }}
+                  aria-hidden
+                />
                 {zoneName(segment.zone, scale)}
               </td>
               <td className="py-1 pr-3 tabular-nums">{formatTemperature(segment.fromC, scale)}</td>

@@ -1,12 +1,23 @@
 import type { Kiln, WareCheck } from '../../../../shared/firing/check'
 import { kilnVolumeL } from '../../../../shared/firing/check'
 import { formatCone } from '../../../../shared/firing/cones'
-import { formatDuration, formatLength, formatRate, formatTemperature, formatVolume, type TemperatureScale, type UnitSystem } from '../../../lib/units'
+import {
+  formatDuration,
+  formatLength,
+  formatRate,
+  formatTemperature,
+  formatVolume,
+  type TemperatureScale,
+  type UnitSystem,
+} from '../../../lib/units'
 
 /** How the load fits the kiln, what the curve comes to and how long it takes. */
 export function FitSummary({ check, kiln, units, scale }: { check: WareCheck; kiln: Kiln; units: UnitSystem; scale: TemperatureScale }) {
   const { fit, schedule } = check
-  const shelf = fit.shelf.shape === 'round' ? `${formatLength(fit.shelf.diameterMm, units)} round` : `${formatLength(fit.shelf.widthMm, units)} × ${formatLength(fit.shelf.depthMm, units)}`
+  const shelf =
+    fit.shelf.shape === 'round'
+      ? `${formatLength(fit.shelf.diameterMm, units)} round`
+      : `${formatLength(fit.shelf.widthMm, units)} × ${formatLength(fit.shelf.depthMm, units)}`
   const rows: [string, string, string?][] = [
     ['Usable height', formatLength(fit.usableHeightMm, units)],
     ['Shelf', shelf],

@@ -94,14 +94,38 @@ export function KilnFields({ control, register, messages, units, onPickDemo }: F
           )}
         </Field>
         {shape === 'round' ? (
-          <MeasureField {...shared} name="kiln.interior.diameterMm" error={m('kiln.interior.diameterMm')} label="Inside diameter" measure={length} />
+          <MeasureField
+            {...shared}
+            name="kiln.interior.diameterMm"
+            error={m('kiln.interior.diameterMm')}
+            label="Inside diameter"
+            measure={length}
+          />
         ) : (
           <>
-            <MeasureField {...shared} name="kiln.interior.widthMm" error={m('kiln.interior.widthMm')} label="Inside width" measure={length} />
-            <MeasureField {...shared} name="kiln.interior.depthMm" error={m('kiln.interior.depthMm')} label="Inside depth" measure={length} />
+            <MeasureField
+              {...shared}
+              name="kiln.interior.widthMm"
+              error={m('kiln.interior.widthMm')}
+              label="Inside width"
+              measure={length}
+            />
+            <MeasureField
+              {...shared}
+              name="kiln.interior.depthMm"
+              error={m('kiln.interior.depthMm')}
+              label="Inside depth"
+              measure={length}
+            />
           </>
         )}
-        <MeasureField {...shared} name="kiln.interior.heightMm" error={m('kiln.interior.heightMm')} label="Inside height" measure={length} />
+        <MeasureField
+          {...shared}
+          name="kiln.interior.heightMm"
+          error={m('kiln.interior.heightMm')}
+          label="Inside height"
+          measure={length}
+        />
         <MeasureField
           {...shared}
           name="kiln.usableHeightMm"
@@ -112,8 +136,20 @@ export function KilnFields({ control, register, messages, units, onPickDemo }: F
         />
         <ConeField register={register} error={m('kiln.minCone')} name="kiln.minCone" label="Coolest cone" />
         <ConeField register={register} error={m('kiln.maxCone')} name="kiln.maxCone" label="Hottest cone" />
-        <MeasureField {...shared} name="kiln.maxTempC" error={m('kiln.maxTempC')} label="Top temperature" measure={temperatureMeasure(units)} />
-        <MeasureField {...shared} name="kiln.maxRampCPerHour" error={m('kiln.maxRampCPerHour')} label="Fastest climb" measure={rateMeasure(units)} />
+        <MeasureField
+          {...shared}
+          name="kiln.maxTempC"
+          error={m('kiln.maxTempC')}
+          label="Top temperature"
+          measure={temperatureMeasure(units)}
+        />
+        <MeasureField
+          {...shared}
+          name="kiln.maxRampCPerHour"
+          error={m('kiln.maxRampCPerHour')}
+          label="Fastest climb"
+          measure={rateMeasure(units)}
+        />
         <div className="space-y-2 sm:col-span-2">
           <Checkbox label="Can hold a low preheat (candling)" {...register('kiln.preheatHold')} />
           <Checkbox label="Can control its cooling (slow cool, fire down)" {...register('kiln.controlledCooling')} />

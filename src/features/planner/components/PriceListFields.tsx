@@ -49,16 +49,36 @@ export function PriceListFields({ control, register, messages, units }: FormSect
                 )}
               </Field>
               {volumeUnit === 'cubicInch' ? (
-                <MeasureField {...shared} name="priceList.centsPerCubicInch" error={m('centsPerCubicInch')} label="Price per cubic inch" measure={FRACTIONAL_CENTS} />
+                <MeasureField
+                  {...shared}
+                  name="priceList.centsPerCubicInch"
+                  error={m('centsPerCubicInch')}
+                  label="Price per cubic inch"
+                  measure={FRACTIONAL_CENTS}
+                />
               ) : (
-                <MeasureField {...shared} name="priceList.centsPerLitre" error={m('centsPerLitre')} label="Price per litre" measure={FRACTIONAL_CENTS} />
+                <MeasureField
+                  {...shared}
+                  name="priceList.centsPerLitre"
+                  error={m('centsPerLitre')}
+                  label="Price per litre"
+                  measure={FRACTIONAL_CENTS}
+                />
               )}
-              {volumeUnit === 'litre' && m('centsPerCubicInch') && <p className="text-xs font-medium text-danger-700 sm:col-span-2">{m('centsPerCubicInch')}</p>}
+              {volumeUnit === 'litre' && m('centsPerCubicInch') && (
+                <p className="text-xs font-medium text-danger-700 sm:col-span-2">{m('centsPerCubicInch')}</p>
+              )}
             </>
           )}
           {model === 'shelf' && (
             <>
-              <MeasureField {...shared} name="priceList.shelfCents" error={m('shelfCents')} label="Price of a whole shelf" measure={money} />
+              <MeasureField
+                {...shared}
+                name="priceList.shelfCents"
+                error={m('shelfCents')}
+                label="Price of a whole shelf"
+                measure={money}
+              />
               <Field label="Sold in" error={m('shelfStep')}>
                 {(a11y) => (
                   <Select {...a11y} {...register('priceList.shelfStep', { setValueAs: Number })}>
@@ -72,11 +92,41 @@ export function PriceListFields({ control, register, messages, units }: FormSect
               </Field>
             </>
           )}
-          {model === 'kiln' && <MeasureField {...shared} name="priceList.kilnCents" error={m('kilnCents')} label="Price of the whole kiln" measure={money} />}
-          <MeasureField {...shared} name="priceList.minimumPerPieceCents" error={m('minimumPerPieceCents')} label="Minimum per piece" measure={money} hint="Optional." />
-          <MeasureField {...shared} name="priceList.surcharges.reduction" error={m('surcharges.reduction')} label="Reduction surcharge" measure={PERCENT} hint="Optional, of the base price." />
-          <MeasureField {...shared} name="priceList.surcharges.slowCool" error={m('surcharges.slowCool')} label="Slow-cool surcharge" measure={PERCENT} hint="Optional." />
-          <MeasureField {...shared} name="priceList.surcharges.preheat" error={m('surcharges.preheat')} label="Long-preheat surcharge" measure={PERCENT} hint="Optional." />
+          {model === 'kiln' && (
+            <MeasureField {...shared} name="priceList.kilnCents" error={m('kilnCents')} label="Price of the whole kiln" measure={money} />
+          )}
+          <MeasureField
+            {...shared}
+            name="priceList.minimumPerPieceCents"
+            error={m('minimumPerPieceCents')}
+            label="Minimum per piece"
+            measure={money}
+            hint="Optional."
+          />
+          <MeasureField
+            {...shared}
+            name="priceList.surcharges.reduction"
+            error={m('surcharges.reduction')}
+            label="Reduction surcharge"
+            measure={PERCENT}
+            hint="Optional, of the base price."
+          />
+          <MeasureField
+            {...shared}
+            name="priceList.surcharges.slowCool"
+            error={m('surcharges.slowCool')}
+            label="Slow-cool surcharge"
+            measure={PERCENT}
+            hint="Optional."
+          />
+          <MeasureField
+            {...shared}
+            name="priceList.surcharges.preheat"
+            error={m('surcharges.preheat')}
+            label="Long-preheat surcharge"
+            measure={PERCENT}
+            hint="Optional."
+          />
           <Field label="Deposit as" error={m('deposit')}>
             {(a11y) => (
               <Select {...a11y} {...register('priceList.depositKind')}>

@@ -5,7 +5,11 @@ import { ApiError } from '../../../lib/api'
 import type { useServerWareCheck } from '../api/wareChecks'
 import { VerdictLine } from '../../../components/ware/CheckResults'
 
-const codesOf = (check: WareCheck) => check.findings.map((finding) => `${finding.code}:${finding.pieceIndex ?? ''}`).sort().join(' ')
+const codesOf = (check: WareCheck) =>
+  check.findings
+    .map((finding) => `${finding.code}:${finding.pieceIndex ?? ''}`)
+    .sort()
+    .join(' ')
 
 /** The server's answer beside the browser's: the server's is the one a studio will go by. */
 export function ServerCheck({ server, local }: { server: ReturnType<typeof useServerWareCheck>; local: WareCheck | null }) {
@@ -29,7 +33,11 @@ export function ServerCheck({ server, local }: { server: ReturnType<typeof useSe
       <div className="space-y-1">
         <VerdictLine verdict={query.data.verdict} testId="server-verdict" explain={false} />
         <p className="text-xs text-slip-500" aria-live="polite">
-          {behind ? 'Checking the latest changes…' : agrees ? 'The server agrees with the check above.' : 'The server’s answer differs from the check above; the server’s is the one that counts.'}
+          {behind
+            ? 'Checking the latest changes…'
+            : agrees
+              ? 'The server agrees with the check above.'
+              : 'The server’s answer differs from the check above; the server’s is the one that counts.'}
         </p>
         {!behind && !agrees && (
           <ul className="list-disc pl-5 text-xs text-slip-700">

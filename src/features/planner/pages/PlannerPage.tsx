@@ -64,7 +64,9 @@ export function PlannerPage() {
   const outcome = parsed.input ? runCheck(parsed.input, parsed.priceList) : null
   const result = outcome !== null && typeof outcome !== 'string' ? outcome : null
 
-  const request: WareCheckRequest | null = parsed.input ? { ...parsed.input, ...(parsed.priceList ? { priceList: parsed.priceList } : {}) } : null
+  const request: WareCheckRequest | null = parsed.input
+    ? { ...parsed.input, ...(parsed.priceList ? { priceList: parsed.priceList } : {}) }
+    : null
   const server = useServerWareCheck(result ? request : null)
 
   const pickDemo = (id: string) => {
@@ -100,7 +102,12 @@ export function PlannerPage() {
         </form>
 
         <div className="min-w-0 space-y-6">
-          <CheckCard id={CHECK_ID} check={result?.check ?? null} problem={typeof outcome === 'string' ? outcome : null} pieces={parsed.input?.pieces ?? []}>
+          <CheckCard
+            id={CHECK_ID}
+            check={result?.check ?? null}
+            problem={typeof outcome === 'string' ? outcome : null}
+            pieces={parsed.input?.pieces ?? []}
+          >
             {result && <ServerCheck server={server} local={result.check} />}
           </CheckCard>
 
@@ -124,7 +131,9 @@ export function PlannerPage() {
               ) : (
                 <p className="text-sm text-slip-600">Fill in the price list and the pieces to see the quote.</p>
               )}
-              <p className="mt-3 text-xs text-slip-500">Worked out from the rates above; a studio’s own price list is the one that counts.</p>
+              <p className="mt-3 text-xs text-slip-500">
+                Worked out from the rates above; a studio’s own price list is the one that counts.
+              </p>
             </Card>
           )}
 

@@ -49,7 +49,10 @@ export function useStudio(studioId: string | undefined) {
 export function useStudioFirings(studioId: string | undefined, { enabled = true }: { enabled?: boolean } = {}) {
   return useQuery({
     queryKey: requestKeys.studioFirings(studioId ?? ''),
-    queryFn: () => api<{ firings: FiringRecord[] }>(`/api/studios/${studioId}/firings?from=${encodeURIComponent(new Date().toISOString())}`).then((r) => r.firings),
+    queryFn: () =>
+      api<{ firings: FiringRecord[] }>(`/api/studios/${studioId}/firings?from=${encodeURIComponent(new Date().toISOString())}`).then(
+        (r) => r.firings,
+      ),
     enabled: Boolean(studioId) && enabled,
   })
 }

@@ -22,7 +22,11 @@ function useRefetchingChange<TVariables extends { id: string }, TAnswer>(request
   const queryClient = useQueryClient()
   return useMutation({
     mutationFn: request,
-    onSuccess: (_answer, { id }) => Promise.all([queryClient.invalidateQueries({ queryKey: requestKeys.detail(id), exact: true }), queryClient.invalidateQueries({ queryKey: requestKeys.lists() })]),
+    onSuccess: (_answer, { id }) =>
+      Promise.all([
+        queryClient.invalidateQueries({ queryKey: requestKeys.detail(id), exact: true }),
+        queryClient.invalidateQueries({ queryKey: requestKeys.lists() }),
+      ]),
   })
 }
 
@@ -43,7 +47,9 @@ export function useConfirmPrice() {
 }
 
 export function usePostResults() {
-  return useRequestChange(({ id, body }: { id: string; body: ResultsBody }) => api<RequestView>(`/api/requests/${id}/results`, { method: 'POST', body }))
+  return useRequestChange(({ id, body }: { id: string; body: ResultsBody }) =>
+    api<RequestView>(`/api/requests/${id}/results`, { method: 'POST', body }),
+  )
 }
 
 export function useMarkReady() {
@@ -53,7 +59,10 @@ export function useMarkReady() {
 /** Money taken at the studio's counter: what is owed now, unless a smaller amount is given. */
 export function useCounterPayment() {
   return useRefetchingChange(({ id, amountCents, note }: { id: string; amountCents?: number; note?: string }) =>
-    api<{ owedCents: number }>(`/api/requests/${id}/balance/counter`, { method: 'POST', body: { ...(amountCents ? { amountCents } : {}), ...(note ? { note } : {}) } }),
+    api<{ owedCents: number }>(`/api/requests/${id}/balance/counter`, {
+      method: 'POST',
+      body: { ...(amountCents ? { amountCents } : {}), ...(note ? { note } : {}) },
+    }),
   )
 }
 
@@ -62,20 +71,27 @@ export function useMarkCollected() {
 }
 
 export function useRate() {
-  return useRefetchingChange(({ id, body }: { id: string; body: RatingBody }) => api<RequestRatings>(`/api/requests/${id}/rating`, { method: 'POST', body }))
+  return useRefetchingChange(({ id, body }: { id: string; body: RatingBody }) =>
+    api<RequestRatings>(`/api/requests/${id}/rating`, { method: 'POST', body }),
+  )
 }
 
 export function useReplyToRating() {
-  return useRefetchingChange(({ id, text }: { id: string; text: string }) => api<RequestRatings>(`/api/requests/${id}/rating/reply`, { method: 'POST', body: { text } }))
+  return useRefetchingChange(({ id, text }: { id: string; text: string }) =>
+    api<RequestRatings>(`/api/requests/${id}/rating/reply`, { method: 'POST', body: { text } }),
+  )
 }
 
 /** The potter lets a result photo show on the studio's public page, or takes it back. */
 export function useSetPhotoPublic(requestId: string) {
   const queryClient = useQueryClient()
   return useMutation({
-    mutationFn: ({ photoId, shown }: { photoId: string; shown: boolean }) => api<PhotoRecord>(`/api/photos/${photoId}`, { method: 'PATCH', body: { public: shown } }),
+    mutationFn: ({ photoId, shown }: { photoId: string; shown: boolean }) =>
+      api<PhotoRecord>(`/api/photos/${photoId}`, { method: 'PATCH', body: { public: shown } }),
     onSuccess: (photo) =>
-      queryClient.setQueryData<RequestView>(requestKeys.detail(requestId), (view) => (view ? { ...view, photos: view.photos.map((p) => (p.id === photo.id ? photo : p)) } : view)),
+      queryClient.setQueryData<RequestView>(requestKeys.detail(requestId), (view) =>
+        view ? { ...view, photos: view.photos.map((p) => (p.id === photo.id ? photo : p)) } : view,
+      ),
   })
 }
 

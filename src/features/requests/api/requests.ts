@@ -54,7 +54,9 @@ export interface DraftBody {
 /** Creates the draft the first time, then saves over it. */
 export function useSaveDraft(firingId: string) {
   return useRequestChange(({ id, body }: { id: string | null; body: DraftBody }) =>
-    id ? api<RequestView>(`/api/requests/${id}`, { method: 'PATCH', body }) : api<RequestView>(`/api/firings/${firingId}/requests`, { method: 'POST', body }),
+    id
+      ? api<RequestView>(`/api/requests/${id}`, { method: 'PATCH', body })
+      : api<RequestView>(`/api/firings/${firingId}/requests`, { method: 'POST', body }),
   )
 }
 
@@ -70,19 +72,27 @@ export function useAcceptRequest() {
 
 /** Declines a sent request; on an accepted or paid one it cancels it, refunding the potter in full. */
 export function useDeclineRequest() {
-  return useRequestChange(({ id, reason }: { id: string; reason: string }) => api<RequestView>(`/api/requests/${id}/decline`, { method: 'POST', body: { reason } }))
+  return useRequestChange(({ id, reason }: { id: string; reason: string }) =>
+    api<RequestView>(`/api/requests/${id}/decline`, { method: 'POST', body: { reason } }),
+  )
 }
 
 export function useProposeMove() {
-  return useRequestChange(({ id, firingId }: { id: string; firingId: string }) => api<RequestView>(`/api/requests/${id}/move`, { method: 'POST', body: { firingId } }))
+  return useRequestChange(({ id, firingId }: { id: string; firingId: string }) =>
+    api<RequestView>(`/api/requests/${id}/move`, { method: 'POST', body: { firingId } }),
+  )
 }
 
 export function useAnswerMove() {
-  return useRequestChange(({ id, accept }: { id: string; accept: boolean }) => api<RequestView>(`/api/requests/${id}/move/${accept ? 'accept' : 'refuse'}`, { method: 'POST' }))
+  return useRequestChange(({ id, accept }: { id: string; accept: boolean }) =>
+    api<RequestView>(`/api/requests/${id}/move/${accept ? 'accept' : 'refuse'}`, { method: 'POST' }),
+  )
 }
 
 export function useWithdrawRequest() {
-  return useRequestChange(({ id, reason }: { id: string; reason?: string }) => api<RequestView>(`/api/requests/${id}/withdraw`, { method: 'POST', body: reason ? { reason } : {} }))
+  return useRequestChange(({ id, reason }: { id: string; reason?: string }) =>
+    api<RequestView>(`/api/requests/${id}/withdraw`, { method: 'POST', body: reason ? { reason } : {} }),
+  )
 }
 
 /** Opens (or reuses) the hosted checkout for the deposit or the balance; the page then leaves for it. */

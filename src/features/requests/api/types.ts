@@ -207,7 +207,15 @@ export interface RequestRow {
   proposedFiringId: string | null
   updatedAt: string
   potterName: string
-  firing: { id: string; firingDate: string; dropOffBy: string; cone: string; atmosphere: FiringRecord['atmosphere']; kind: FiringRecord['kind']; kilnName: string }
+  firing: {
+    id: string
+    firingDate: string
+    dropOffBy: string
+    cone: string
+    atmosphere: FiringRecord['atmosphere']
+    kind: FiringRecord['kind']
+    kilnName: string
+  }
   studio: { id: string; name: string; timezone: string }
 }
 

@@ -35,7 +35,10 @@ function messagesOf(issues: readonly { path: PropertyKey[]; message: string }[],
   const messages: Record<string, string> = {}
   for (const issue of issues) {
     const [top, index, field, size] = issue.path
-    const key = top === 'pieces' && typeof index === 'number' ? `pieces.${index}.${field === 'measured' ? String(size) : String(field)}` : String(top ?? '_')
+    const key =
+      top === 'pieces' && typeof index === 'number'
+        ? `pieces.${index}.${field === 'measured' ? String(size) : String(field)}`
+        : String(top ?? '_')
     messages[key] ??= localiseMessage(issue.message, units)
   }
   return messages
@@ -53,7 +56,13 @@ export function CheckInForm({ view, units }: { view: RequestView; units: UnitSys
   const [refusing, setRefusing] = useState(false)
   const { control, register, handleSubmit } = useForm<CheckInValues>({
     defaultValues: {
-      pieces: view.pieces.map((piece) => ({ received: piece.quantity, differs: false, heightMm: piece.heightMm, widthMm: piece.widthMm, depthMm: piece.depthMm })),
+      pieces: view.pieces.map((piece) => ({
+        received: piece.quantity,
+        differs: false,
+        heightMm: piece.heightMm,
+        widthMm: piece.widthMm,
+        depthMm: piece.depthMm,
+      })),
       conditionNotes: '',
     },
   })
@@ -65,7 +74,15 @@ export function CheckInForm({ view, units }: { view: RequestView; units: UnitSys
         return {
           pieceIndex,
           received: p.received as number,
-          ...(p.differs ? { measured: { heightMm: p.heightMm as number, widthMm: p.widthMm as number, depthMm: (round ? p.widthMm : p.depthMm) as number } } : {}),
+          ...(p.differs
+            ? {
+                measured: {
+                  heightMm: p.heightMm as number,
+                  widthMm: p.widthMm as number,
+                  depthMm: (round ? p.widthMm : p.depthMm) as number,
+                },
+              }
+            : {}),
         }
       }),
       ...(values.conditionNotes.trim() ? { conditionNotes: values.conditionNotes.trim() } : {}),
@@ -75,7 +92,10 @@ export function CheckInForm({ view, units }: { view: RequestView; units: UnitSys
     setMessages({})
     checkIn.mutate(parsed.data, {
       onError: (error) => {
-        if (error instanceof ApiError) setMessages(Object.fromEntries(Object.entries(error.fields).map(([k, v]) => [k.replace(/\.measured\./, '.'), localiseMessage(v, units)])))
+        if (error instanceof ApiError)
+          setMessages(
+            Object.fromEntries(Object.entries(error.fields).map(([k, v]) => [k.replace(/\.measured\./, '.'), localiseMessage(v, units)])),
+          )
       },
     })
   })
@@ -83,7 +103,10 @@ export function CheckInForm({ view, units }: { view: RequestView; units: UnitSys
   return (
     <>
       <form onSubmit={submit} noValidate className="space-y-5" aria-label="Check the ware in" data-testid="check-in-form">
-        <p className="text-sm text-slip-700">Count what came in against what was declared. Measure a piece only if it looks bigger or smaller than the request says: the check and the price are worked out again from what you enter.</p>
+        <p className="text-sm text-slip-700">
+          Count what came in against what was declared. Measure a piece only if it looks bigger or smaller than the request says: the check
+          and the price are worked out again from what you enter.
+        </p>
         <div className="space-y-3">
           {view.pieces.map((piece, index) => (
             <PieceCheckIn key={index} index={index} view={view} control={control} register={register} messages={messages} units={units} />
@@ -94,7 +117,11 @@ export function CheckInForm({ view, units }: { view: RequestView; units: UnitSys
             </p>
           )}
         </div>
-        <Field label="Condition at drop-off" hint="Cracks, chips or anything else already there, so nobody blames the firing for it later." error={messages.conditionNotes}>
+        <Field
+          label="Condition at drop-off"
+          hint="Cracks, chips or anything else already there, so nobody blames the firing for it later."
+          error={messages.conditionNotes}
+        >
           {(a11y) => <TextArea {...a11y} rows={3} {...register('conditionNotes')} />}
         </Field>
         <PhotoUploader
@@ -113,7 +140,11 @@ export function CheckInForm({ view, units }: { view: RequestView; units: UnitSys
           <Button type="submit" busy={checkIn.isPending}>
             Check the ware in
           </Button>
-          <button type="button" onClick={() => setRefusing(true)} className="rounded-control px-4 py-2.5 text-sm font-semibold text-danger-700 hover:bg-danger-50">
+          <button
+            type="button"
+            onClick={() => setRefusing(true)}
+            className="rounded-control px-4 py-2.5 text-sm font-semibold text-danger-700 hover:bg-danger-50"
+          >
             Refuse at the door…
           </button>
         </div>
@@ -146,7 +177,15 @@ function PieceCheckIn({ index, view, control, register, messages, units }: Piece
         Declared: {piece.quantity} × {pieceSizeInWords(piece, units)}
       </p>
       <div className="grid gap-3 sm:grid-cols-[10rem_1fr] sm:items-end">
-        <MeasureField control={control} name={`${at}.received`} label="Received" measure={COUNT} units={units} error={messages[`${at}.received`]} hint={`of ${piece.quantity} declared`} />
+        <MeasureField
+          control={control}
+          name={`${at}.received`}
+          label="Received"
+          measure={COUNT}
+          units={units}
+          error={messages[`${at}.received`]}
+          hint={`of ${piece.quantity} declared`}
+        />
         <div className="pb-2">
           <Checkbox label="Measured size differs from the request" {...register(`${at}.differs`)} />
         </div>
@@ -154,9 +193,32 @@ function PieceCheckIn({ index, view, control, register, messages, units }: Piece
       {short && <p className="mt-2 text-sm text-ember-700">Fewer than declared: the price is worked out for what came in.</p>}
       {values.differs && (
         <div className="mt-3 grid gap-3 border-l-2 border-clay-100 pl-3 sm:grid-cols-3">
-          <MeasureField control={control} name={`${at}.heightMm`} label="Measured height" measure={length} units={units} error={messages[`${at}.heightMm`]} />
-          <MeasureField control={control} name={`${at}.widthMm`} label={piece.round ? 'Measured diameter' : 'Measured width'} measure={length} units={units} error={messages[`${at}.widthMm`]} />
-          {!piece.round && <MeasureField control={control} name={`${at}.depthMm`} label="Measured depth" measure={length} units={units} error={messages[`${at}.depthMm`]} />}
+          <MeasureField
+            control={control}
+            name={`${at}.heightMm`}
+            label="Measured height"
+            measure={length}
+            units={units}
+            error={messages[`${at}.heightMm`]}
+          />
+          <MeasureField
+            control={control}
+            name={`${at}.widthMm`}
+            label={piece.round ? 'Measured diameter' : 'Measured width'}
+            measure={length}
+            units={units}
+            error={messages[`${at}.widthMm`]}
+          />
+          {!piece.round && (
+            <MeasureField
+              control={control}
+              name={`${at}.depthMm`}
+              label="Measured depth"
+              measure={length}
+              units={units}
+              error={messages[`${at}.depthMm`]}
+            />
+          )}
         </div>
       )}
     </fieldset>
@@ -202,15 +264,35 @@ function RefuseDialog({ view, open, onClose }: { view: RequestView; open: boolea
     >
       <div className="space-y-4">
         <Alert tone="warning" title="Under your cancellation terms">
-          {paid > 0 ? `The potter gets ${formatMoney(refund.refundCents, currency)} back of the ${formatMoney(paid, currency)} paid.` : 'Nothing has been paid, so nothing is refunded.'}
+          {paid > 0
+            ? `The potter gets ${formatMoney(refund.refundCents, currency)} back of the ${formatMoney(paid, currency)} paid.`
+            : 'Nothing has been paid, so nothing is refunded.'}
         </Alert>
-        <Field label="Why it is refused" hint="For example: greenware still damp to the touch; a crack through the foot; not the pieces declared." error={touched ? reasonError : undefined}>
-          {(a11y) => <TextArea {...a11y} rows={3} value={reason} onChange={(event) => setReason(event.target.value)} onBlur={() => setTouched(true)} />}
+        <Field
+          label="Why it is refused"
+          hint="For example: greenware still damp to the touch; a crack through the foot; not the pieces declared."
+          error={touched ? reasonError : undefined}
+        >
+          {(a11y) => (
+            <TextArea
+              {...a11y}
+              rows={3}
+              value={reason}
+              onChange={(event) => setReason(event.target.value)}
+              onBlur={() => setTouched(true)}
+            />
+          )}
         </Field>
         <Field label="Condition notes (optional)">
           {(a11y) => <TextArea {...a11y} rows={2} value={notes} onChange={(event) => setNotes(event.target.value)} />}
         </Field>
-        <PhotoUploader uploadUrl={`/api/requests/${view.id}/photos`} fields={{ kind: 'refusal' }} label="Photos of the refused ware" hint="What you saw at the door, for the record." onUploaded={() => void refreshPhotos()} />
+        <PhotoUploader
+          uploadUrl={`/api/requests/${view.id}/photos`}
+          fields={{ kind: 'refusal' }}
+          label="Photos of the refused ware"
+          hint="What you saw at the door, for the record."
+          onUploaded={() => void refreshPhotos()}
+        />
         {checkIn.isError && <Alert tone="danger">{problemOf(checkIn.error)}</Alert>}
       </div>
     </Dialog>

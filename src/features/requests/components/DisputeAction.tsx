@@ -11,7 +11,9 @@ import type { RequestView } from '../api/types'
 export function DisputeAction({ view }: { view: RequestView }) {
   const [open, setOpen] = useState(false)
   const [reason, setReason] = useState('')
-  const dispute = useRequestChange((body: { reason: string }) => api<RequestView>(`/api/requests/${view.id}/dispute`, { method: 'POST', body }))
+  const dispute = useRequestChange((body: { reason: string }) =>
+    api<RequestView>(`/api/requests/${view.id}/dispute`, { method: 'POST', body }),
+  )
   return (
     <>
       <Button variant="ghost" size="sm" onClick={() => setOpen(true)}>
@@ -38,7 +40,11 @@ export function DisputeAction({ view }: { view: RequestView }) {
           </>
         }
       >
-        {dispute.isError && <Alert tone="danger" className="mb-3">{dispute.error.message}</Alert>}
+        {dispute.isError && (
+          <Alert tone="danger" className="mb-3">
+            {dispute.error.message}
+          </Alert>
+        )}
         <Field label="What went wrong" hint="Facts help: which pieces, what you saw, what you were told.">
           {(a11y) => <TextArea {...a11y} rows={5} value={reason} onChange={(e) => setReason(e.target.value)} />}
         </Field>

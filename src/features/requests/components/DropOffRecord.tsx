@@ -11,12 +11,17 @@ import { priceChange } from '../pickupWords'
 
 function measuredInWords(size: MeasuredSize, round: boolean | undefined, units: UnitSystem) {
   const tall = `${formatLength(size.heightMm, units)} tall`
-  return round ? `${formatLength(size.widthMm, units)} across × ${tall}` : `${formatLength(size.widthMm, units)} × ${formatLength(size.depthMm, units)} × ${tall}`
+  return round
+    ? `${formatLength(size.widthMm, units)} across × ${tall}`
+    : `${formatLength(size.widthMm, units)} × ${formatLength(size.depthMm, units)} × ${tall}`
 }
 
 /** The server's check of the ware as it came in, shown to the studio right after checking it in. */
 function CheckInFindings({ view }: { view: RequestView }) {
-  const outcomes = useMutationState({ filters: { mutationKey: checkInMutationKey(view.id), status: 'success' }, select: (m) => m.state.data as CheckInOutcome | undefined })
+  const outcomes = useMutationState({
+    filters: { mutationKey: checkInMutationKey(view.id), status: 'success' },
+    select: (m) => m.state.data as CheckInOutcome | undefined,
+  })
   const outcome = outcomes.at(-1)
   if (!outcome || outcome.refused || !outcome.verdict) return null
   return (
@@ -24,7 +29,11 @@ function CheckInFindings({ view }: { view: RequestView }) {
       <h3 className="text-sm font-semibold">The check of the ware as it came in</h3>
       <VerdictLine verdict={outcome.verdict} testId="check-in-verdict" />
       <FindingsList findings={outcome.findings} pieces={view.pieces} linkToRows={false} />
-      {outcome.verdict === 'block' && <p className="text-sm text-danger-700">Something here is not safe to fire. Talk to the potter, or cancel the request with a reason.</p>}
+      {outcome.verdict === 'block' && (
+        <p className="text-sm text-danger-700">
+          Something here is not safe to fire. Talk to the potter, or cancel the request with a reason.
+        </p>
+      )}
     </div>
   )
 }
@@ -87,7 +96,9 @@ export function DropOffRecord({ view, checkIn, units }: { view: RequestView; che
             <tr key={row.pieceIndex} data-testid="received-piece">
               <Td className="font-medium">{pieceName(view.pieces, row.pieceIndex)}</Td>
               <Td className="text-right tabular-nums">{row.declared}</Td>
-              <Td className={`text-right tabular-nums ${row.received < row.declared ? 'font-semibold text-ember-700' : ''}`}>{row.received}</Td>
+              <Td className={`text-right tabular-nums ${row.received < row.declared ? 'font-semibold text-ember-700' : ''}`}>
+                {row.received}
+              </Td>
               <Td>{row.measured ? measuredInWords(row.measured, view.pieces[row.pieceIndex]?.round, units) : 'As declared'}</Td>
             </tr>
           ))}

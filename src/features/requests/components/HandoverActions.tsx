@@ -28,13 +28,21 @@ function CounterPaymentDialog({ view, open, onClose }: { view: RequestView; open
   const cents = shown === undefined || Number.isNaN(shown) ? Number.NaN : measure.fromShown(shown)
   const parsed = counterPaymentSchema.safeParse({ amountCents: cents, ...(note.trim() ? { note: note.trim() } : {}) })
   const tooMuch = parsed.success && (parsed.data.amountCents ?? 0) > owed
-  const amountError = !parsed.success ? (parsed.error.issues.find((i) => i.path[0] === 'amountCents') ? 'Enter the amount paid.' : undefined) : tooMuch ? `At most ${formatMoney(owed, currency)} is owed.` : undefined
+  const amountError = !parsed.success
+    ? parsed.error.issues.find((i) => i.path[0] === 'amountCents')
+      ? 'Enter the amount paid.'
+      : undefined
+    : tooMuch
+      ? `At most ${formatMoney(owed, currency)} is owed.`
+      : undefined
   return (
     <Dialog
       open={open}
       onClose={onClose}
       title="Paid at the counter"
-      description={view.state === 'accepted' ? 'The deposit paid in person books the space.' : 'The balance paid in person; it goes in the ledger.'}
+      description={
+        view.state === 'accepted' ? 'The deposit paid in person books the space.' : 'The balance paid in person; it goes in the ledger.'
+      }
       footer={
         <>
           <Button variant="ghost" onClick={onClose}>
@@ -43,7 +51,10 @@ function CounterPaymentDialog({ view, open, onClose }: { view: RequestView; open
           <Button
             busy={record.isPending}
             disabled={!parsed.success || tooMuch}
-            onClick={() => parsed.success && record.mutate({ id: view.id, amountCents: parsed.data.amountCents, note: parsed.data.note }, { onSuccess: onClose })}
+            onClick={() =>
+              parsed.success &&
+              record.mutate({ id: view.id, amountCents: parsed.data.amountCents, note: parsed.data.note }, { onSuccess: onClose })
+            }
           >
             Record the payment
           </Button>
@@ -55,7 +66,15 @@ function CounterPaymentDialog({ view, open, onClose }: { view: RequestView; open
           Owed now: <strong data-testid="counter-owed">{formatMoney(owed, currency)}</strong>
         </p>
         <Field label={`Amount paid (${currency})`} error={amountError}>
-          {(a11y) => <TextInput {...a11y} inputMode="decimal" autoComplete="off" value={amount} onChange={(event) => setAmount(event.target.value)} />}
+          {(a11y) => (
+            <TextInput
+              {...a11y}
+              inputMode="decimal"
+              autoComplete="off"
+              value={amount}
+              onChange={(event) => setAmount(event.target.value)}
+            />
+          )}
         </Field>
         <Field label="Note (optional)" hint="Cash, card on the studio’s own reader, a cheque number…">
           {(a11y) => <TextInput {...a11y} value={note} maxLength={300} onChange={(event) => setNote(event.target.value)} />}
@@ -73,7 +92,10 @@ export function HandoverActions({ view }: { view: RequestView }) {
   const [counter, setCounter] = useState(false)
   const can = (action: RequestView['actions'][number]) => view.actions.includes(action)
   const currency = view.quote?.currency ?? 'USD'
-  const owedOnCollect = collected.error instanceof ApiError && collected.error.code === 'balance-owed' ? Number(collected.error.body.owedCents ?? view.owedCents) : null
+  const owedOnCollect =
+    collected.error instanceof ApiError && collected.error.code === 'balance-owed'
+      ? Number(collected.error.body.owedCents ?? view.owedCents)
+      : null
   if (!can('ready') && !can('counter-payment') && !can('collected') && view.state !== 'ready') return null
 
   return (
@@ -83,8 +105,16 @@ export function HandoverActions({ view }: { view: RequestView }) {
           <Button busy={ready.isPending} disabled={!view.results} onClick={() => ready.mutate(view.id)}>
             Mark ready for pickup
           </Button>
-          <p className="text-xs text-slip-600">{view.results ? 'The potter gets a mail with the pickup hours and what is owed.' : 'Post the results first: the potter hears about them with the ready mail.'}</p>
-          {ready.isError && <p className="text-sm font-medium text-danger-700" role="alert">{problemOf(ready.error)}</p>}
+          <p className="text-xs text-slip-600">
+            {view.results
+              ? 'The potter gets a mail with the pickup hours and what is owed.'
+              : 'Post the results first: the potter hears about them with the ready mail.'}
+          </p>
+          {ready.isError && (
+            <p className="text-sm font-medium text-danger-700" role="alert">
+              {problemOf(ready.error)}
+            </p>
+          )}
         </div>
       )}
       {view.state === 'ready' && (

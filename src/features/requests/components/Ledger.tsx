@@ -3,7 +3,12 @@ import { Table, Td, Th } from '../../../components/ui/Table'
 import type { LedgerEntry } from '../api/types'
 import { shortStripeId } from '../requestWords'
 
-const KIND_WORDS: Record<string, string> = { deposit: 'Deposit received', balance: 'Balance received', counter: 'Paid at the studio', refund: 'Refunded' }
+const KIND_WORDS: Record<string, string> = {
+  deposit: 'Deposit received',
+  balance: 'Balance received',
+  counter: 'Paid at the studio',
+  refund: 'Refunded',
+}
 
 const whatOf = (entry: LedgerEntry) => KIND_WORDS[entry.kind] ?? (entry.direction === 'in' ? 'Received' : 'Paid out')
 
@@ -23,7 +28,12 @@ function StripeIds({ entry }: { entry: LedgerEntry }) {
 
 /** Money in and out for this request, as the payment provider recorded it. */
 export function Ledger({ entries, zone }: { entries: LedgerEntry[]; zone: string }) {
-  if (entries.length === 0) return <p className="text-sm text-slip-600" data-testid="ledger-empty">No money has moved yet.</p>
+  if (entries.length === 0)
+    return (
+      <p className="text-sm text-slip-600" data-testid="ledger-empty">
+        No money has moved yet.
+      </p>
+    )
   return (
     <Table caption="Money in and out">
       <thead>
@@ -42,7 +52,9 @@ export function Ledger({ entries, zone }: { entries: LedgerEntry[]; zone: string
               {whatOf(entry)}
               {entry.note && <span className="block text-xs text-slip-500">{entry.note}</span>}
             </Td>
-            <Td className={`whitespace-nowrap text-right tabular-nums ${entry.direction === 'in' ? 'text-celadon-700' : 'text-danger-700'}`}>
+            <Td
+              className={`whitespace-nowrap text-right tabular-nums ${entry.direction === 'in' ? 'text-celadon-700' : 'text-danger-700'}`}
+            >
               {entry.direction === 'in' ? '+' : '−'}
               {formatMoney(entry.amountCents, entry.currency)}
             </Td>

@@ -51,11 +51,14 @@ export function MessageThread({ requestId, zone, otherSide, canWrite }: MessageT
         <ol className="space-y-3" aria-label="Messages" data-testid="messages">
           {messages.data.map((message) => (
             <li key={message.id} className={`flex ${message.mine ? 'justify-end' : 'justify-start'}`}>
-              <div className={`max-w-[85%] rounded-card px-3 py-2 text-sm ${message.mine ? 'bg-clay-50 text-slip-900' : 'border border-slip-200 bg-white text-slip-900'}`}>
+              <div
+                className={`max-w-[85%] rounded-card px-3 py-2 text-sm ${message.mine ? 'bg-clay-50 text-slip-900' : 'border border-slip-200 bg-white text-slip-900'}`}
+              >
                 <p className="whitespace-pre-line">{message.body}</p>
                 <p className="mt-1 text-xs text-slip-500">
                   {message.mine ? 'You' : message.author}
-                  {message.side === 'studio' && !message.mine ? ' (studio)' : ''} · <time dateTime={message.at}>{formatDateTime(message.at, zone)}</time>
+                  {message.side === 'studio' && !message.mine ? ' (studio)' : ''} ·{' '}
+                  <time dateTime={message.at}>{formatDateTime(message.at, zone)}</time>
                 </p>
               </div>
             </li>
@@ -64,7 +67,11 @@ export function MessageThread({ requestId, zone, otherSide, canWrite }: MessageT
       )}
       {canWrite && (
         <form onSubmit={submit} className="space-y-2" aria-label="Write a message">
-          <Field label={`Message to ${otherSide}`} hint="They get a mail shortly after you write; several messages in a row come as one mail." error={error ?? undefined}>
+          <Field
+            label={`Message to ${otherSide}`}
+            hint="They get a mail shortly after you write; several messages in a row come as one mail."
+            error={error ?? undefined}
+          >
             {(a11y) => <TextArea {...a11y} rows={3} value={body} maxLength={4000} onChange={(event) => setBody(event.target.value)} />}
           </Field>
           <div className="flex justify-end">

@@ -31,17 +31,33 @@ function CheckoutButton({ view, purpose, label }: { view: RequestView; purpose: 
       >
         {label}
       </Button>
-      {checkout.isError && <p className="text-sm font-medium text-danger-700" role="alert">{problemOf(checkout.error)}</p>}
+      {checkout.isError && (
+        <p className="text-sm font-medium text-danger-700" role="alert">
+          {problemOf(checkout.error)}
+        </p>
+      )}
     </div>
   )
 }
 
 export function PayDepositButton({ view, label }: { view: RequestView; label?: string }) {
-  return <CheckoutButton view={view} purpose="deposit" label={label ?? `Pay the deposit · ${formatMoney(depositOwedCents(view), view.quote?.currency ?? 'USD')}`} />
+  return (
+    <CheckoutButton
+      view={view}
+      purpose="deposit"
+      label={label ?? `Pay the deposit · ${formatMoney(depositOwedCents(view), view.quote?.currency ?? 'USD')}`}
+    />
+  )
 }
 
 export function PayBalanceButton({ view, label }: { view: RequestView; label?: string }) {
-  return <CheckoutButton view={view} purpose="balance" label={label ?? `Pay the balance · ${formatMoney(view.owedCents, view.quote?.currency ?? 'USD')}`} />
+  return (
+    <CheckoutButton
+      view={view}
+      purpose="balance"
+      label={label ?? `Pay the balance · ${formatMoney(view.owedCents, view.quote?.currency ?? 'USD')}`}
+    />
+  )
 }
 
 /** The price the measured ware gives, before and after, for the potter to agree to. */
@@ -55,13 +71,18 @@ function ConfirmPrice({ view }: { view: RequestView }) {
     <div className="space-y-3 rounded-control border border-ember-300 bg-ember-100/40 p-4" data-testid="confirm-price">
       <h3 className="font-semibold">The studio measured your ware</h3>
       <p className="text-sm text-slip-800">
-        The price goes from {before ? formatMoney(before.totalCents, currency) : 'the first quote'} to <strong>{formatMoney(after.totalCents, currency)}</strong>. It needs your agreement before the firing.
+        The price goes from {before ? formatMoney(before.totalCents, currency) : 'the first quote'} to{' '}
+        <strong>{formatMoney(after.totalCents, currency)}</strong>. It needs your agreement before the firing.
       </p>
       <QuoteSummary quote={after} />
       <Button busy={confirm.isPending} onClick={() => confirm.mutate(view.id)}>
         Confirm the new price
       </Button>
-      {confirm.isError && <p className="text-sm font-medium text-danger-700" role="alert">{problemOf(confirm.error)}</p>}
+      {confirm.isError && (
+        <p className="text-sm font-medium text-danger-700" role="alert">
+          {problemOf(confirm.error)}
+        </p>
+      )}
       <p className="text-xs text-slip-600">If the sizes look wrong, ask the studio in the messages before confirming.</p>
     </div>
   )
@@ -86,15 +107,28 @@ export function PotterActions({ view, units }: { view: RequestView; units: UnitS
           </p>
           <p className="text-xs text-slip-600">{formatSpace(view.proposedFiring.spaceLeftL, units)} left in it.</p>
           <div className="mt-3 flex flex-wrap gap-2">
-            <Button busy={answer.isPending && answer.variables?.accept === true} onClick={() => answer.mutate({ id: view.id, accept: true })}>
+            <Button
+              busy={answer.isPending && answer.variables?.accept === true}
+              onClick={() => answer.mutate({ id: view.id, accept: true })}
+            >
               Move my ware there
             </Button>
-            <Button variant="secondary" busy={answer.isPending && answer.variables?.accept === false} onClick={() => answer.mutate({ id: view.id, accept: false })}>
+            <Button
+              variant="secondary"
+              busy={answer.isPending && answer.variables?.accept === false}
+              onClick={() => answer.mutate({ id: view.id, accept: false })}
+            >
               Keep the first firing
             </Button>
           </div>
-          {answer.isError && <p className="mt-2 text-sm font-medium text-danger-700" role="alert">{problemOf(answer.error)}</p>}
-          <p className="mt-2 text-xs text-slip-600">Moving means the studio has accepted your ware in that firing; you then pay the deposit.</p>
+          {answer.isError && (
+            <p className="mt-2 text-sm font-medium text-danger-700" role="alert">
+              {problemOf(answer.error)}
+            </p>
+          )}
+          <p className="mt-2 text-xs text-slip-600">
+            Moving means the studio has accepted your ware in that firing; you then pay the deposit.
+          </p>
         </div>
       )}
 
@@ -116,7 +150,9 @@ export function PotterActions({ view, units }: { view: RequestView; units: UnitS
       {can('pay-deposit') && (
         <div className="space-y-1">
           <PayDepositButton view={view} />
-          {view.depositDueAt && <p className="text-xs text-slip-600">Pay by {formatDateTime(view.depositDueAt, zone)} or the space is released.</p>}
+          {view.depositDueAt && (
+            <p className="text-xs text-slip-600">Pay by {formatDateTime(view.depositDueAt, zone)} or the space is released.</p>
+          )}
         </div>
       )}
 
@@ -126,14 +162,20 @@ export function PotterActions({ view, units }: { view: RequestView; units: UnitS
             Edit the pieces
           </ButtonLink>
         )}
-        {can('send') && <Button onClick={() => setSending(true)} disabled={view.verdict === 'block'}>Send…</Button>}
+        {can('send') && (
+          <Button onClick={() => setSending(true)} disabled={view.verdict === 'block'}>
+            Send…
+          </Button>
+        )}
         {can('withdraw') && (
           <Button variant="ghost" onClick={() => setWithdrawing(true)}>
             Withdraw…
           </Button>
         )}
       </div>
-      {can('send') && view.verdict === 'block' && <p className="text-sm text-slip-600">The check blocks this ware: edit the pieces before sending.</p>}
+      {can('send') && view.verdict === 'block' && (
+        <p className="text-sm text-slip-600">The check blocks this ware: edit the pieces before sending.</p>
+      )}
 
       <SendDialog requestId={sending ? view.id : null} onClose={() => setSending(false)} onSent={() => setSending(false)} />
       <WithdrawDialog view={view} open={withdrawing} onClose={() => setWithdrawing(false)} />

@@ -51,7 +51,17 @@ function RatingShown({ rating, side }: { rating: RatingRecord; side: 'potter' | 
 }
 
 /** Give or change this side's rating: overall and per aspect, 1 to 5, with words. */
-function RatingForm({ view, side, given, onDone }: { view: RequestView; side: 'potter' | 'studio'; given: RatingRecord | null; onDone: () => void }) {
+function RatingForm({
+  view,
+  side,
+  given,
+  onDone,
+}: {
+  view: RequestView
+  side: 'potter' | 'studio'
+  given: RatingRecord | null
+  onDone: () => void
+}) {
   const rate = useRate()
   const [values, setValues] = useState<Partial<Record<Aspect | 'stars', number>>>(() => {
     if (!given) return {}
@@ -61,7 +71,11 @@ function RatingForm({ view, side, given, onDone }: { view: RequestView; side: 'p
   })
   const [text, setText] = useState(given?.text ?? '')
   const [touched, setTouched] = useState(false)
-  const body: RatingBody = { stars: values.stars as number, text, ...Object.fromEntries(ASPECTS[side].filter((a) => values[a.key] !== undefined).map((a) => [a.key, values[a.key]])) }
+  const body: RatingBody = {
+    stars: values.stars as number,
+    text,
+    ...Object.fromEntries(ASPECTS[side].filter((a) => values[a.key] !== undefined).map((a) => [a.key, values[a.key]])),
+  }
   const parsed = ratingSchema.safeParse(body)
   const messageFor = (key: string) => (touched && !parsed.success ? parsed.error.issues.find((i) => i.path[0] === key)?.message : undefined)
   const other = side === 'potter' ? view.studio.name : view.potter.displayName
@@ -79,11 +93,31 @@ function RatingForm({ view, side, given, onDone }: { view: RequestView; side: 'p
     >
       <div className="grid gap-4 sm:grid-cols-2">
         {ASPECTS[side].map((a) => (
-          <StarInput key={a.key} label={a.label} value={values[a.key]} onChange={(stars) => setValues((v) => ({ ...v, [a.key]: stars }))} error={messageFor(a.key)} />
+          <StarInput
+            key={a.key}
+            label={a.label}
+            value={values[a.key]}
+            onChange={(stars) => setValues((v) => ({ ...v, [a.key]: stars }))}
+            error={messageFor(a.key)}
+          />
         ))}
-        <StarInput label="Overall" value={values.stars} onChange={(stars) => setValues((v) => ({ ...v, stars }))} error={messageFor('stars')} hint="This is the one counted in public." />
+        <StarInput
+          label="Overall"
+          value={values.stars}
+          onChange={(stars) => setValues((v) => ({ ...v, stars }))}
+          error={messageFor('stars')}
+          hint="This is the one counted in public."
+        />
       </div>
-      <Field label="In your words" hint={side === 'potter' ? 'Shown on the studio’s public page with your first name.' : 'Studios deciding on this potter’s next request see it.'} error={messageFor('text')}>
+      <Field
+        label="In your words"
+        hint={
+          side === 'potter'
+            ? 'Shown on the studio’s public page with your first name.'
+            : 'Studios deciding on this potter’s next request see it.'
+        }
+        error={messageFor('text')}
+      >
         {(a11y) => <TextArea {...a11y} rows={3} value={text} maxLength={2000} onChange={(event) => setText(event.target.value)} />}
       </Field>
       {rate.isError && <Alert tone="danger">{problemOf(rate.error)}</Alert>}
@@ -117,7 +151,11 @@ function ReplyForm({ view }: { view: RequestView }) {
         if (parsed.success) reply.mutate({ id: view.id, text: parsed.data.text })
       }}
     >
-      <Field label="Your reply, shown in public" hint="Once only, shown under the rating on your studio’s page." error={touched && !parsed.success ? parsed.error.issues[0]?.message : undefined}>
+      <Field
+        label="Your reply, shown in public"
+        hint="Once only, shown under the rating on your studio’s page."
+        error={touched && !parsed.success ? parsed.error.issues[0]?.message : undefined}
+      >
         {(a11y) => <TextArea {...a11y} rows={2} value={text} maxLength={2000} onChange={(event) => setText(event.target.value)} />}
       </Field>
       {reply.isError && <Alert tone="danger">{problemOf(reply.error)}</Alert>}
@@ -171,7 +209,11 @@ export function RatingsPanel({ view }: { view: RequestView }) {
         <h3 id="their-rating" className="font-semibold">
           {other}’s rating of {side === 'potter' ? 'you' : 'your studio'}
         </h3>
-        {theirs ? <RatingShown rating={theirs} side={side === 'potter' ? 'studio' : 'potter'} /> : <p className="text-sm text-slip-600">Not given yet.</p>}
+        {theirs ? (
+          <RatingShown rating={theirs} side={side === 'potter' ? 'studio' : 'potter'} />
+        ) : (
+          <p className="text-sm text-slip-600">Not given yet.</p>
+        )}
       </section>
 
       {(reply || (side === 'studio' && view.ratings.ofStudio)) && (

@@ -15,7 +15,14 @@ import { usePostResults, useRefreshPhotos, useSetPhotoPublic } from '../api/pick
 import type { PieceOutcome, RequestView, ResultsRecord } from '../api/types'
 import { OUTCOMES, outcomeLabel } from '../pickupWords'
 
-const OUTCOME_TONES: Record<PieceOutcome, BadgeTone> = { fine: 'celadon', cracked: 'danger', 'blown-out': 'danger', 'glaze-ran': 'ember', 'stuck-to-shelf': 'danger', other: 'neutral' }
+const OUTCOME_TONES: Record<PieceOutcome, BadgeTone> = {
+  fine: 'celadon',
+  cracked: 'danger',
+  'blown-out': 'danger',
+  'glaze-ran': 'ember',
+  'stuck-to-shelf': 'danger',
+  other: 'neutral',
+}
 
 const problemOf = (error: unknown) => (error instanceof ApiError ? error.message : 'Something went wrong. Please try again.')
 
@@ -31,7 +38,14 @@ export function ResultsForm({ view }: { view: RequestView }) {
   )
   const [notes, setNotes] = useState(view.results?.notes ?? '')
   const [saved, setSaved] = useState(false)
-  const body = { outcomes: rows.map((row, pieceIndex) => ({ pieceIndex, outcome: row.outcome, ...(row.notes.trim() ? { notes: row.notes.trim() } : {}) })), ...(notes.trim() ? { notes: notes.trim() } : {}) }
+  const body = {
+    outcomes: rows.map((row, pieceIndex) => ({
+      pieceIndex,
+      outcome: row.outcome,
+      ...(row.notes.trim() ? { notes: row.notes.trim() } : {}),
+    })),
+    ...(notes.trim() ? { notes: notes.trim() } : {}),
+  }
   const parsed = resultsSchema.safeParse(body)
   const change = (index: number, next: Partial<(typeof rows)[number]>) => {
     setSaved(false)
@@ -51,13 +65,21 @@ export function ResultsForm({ view }: { view: RequestView }) {
     >
       <ul className="space-y-3">
         {view.pieces.map((piece, index) => (
-          <li key={index} className="grid gap-3 rounded-control border border-slip-200 p-3 sm:grid-cols-[minmax(0,12rem)_12rem_1fr] sm:items-end" data-testid="result-piece">
+          <li
+            key={index}
+            className="grid gap-3 rounded-control border border-slip-200 p-3 sm:grid-cols-[minmax(0,12rem)_12rem_1fr] sm:items-end"
+            data-testid="result-piece"
+          >
             <p className="text-sm font-semibold text-slip-800 sm:pb-2">
               {pieceName(view.pieces, index)} <span className="font-normal text-slip-500">× {piece.quantity}</span>
             </p>
             <Field label="How it came out">
               {(a11y) => (
-                <Select {...a11y} value={rows[index].outcome} onChange={(event) => change(index, { outcome: event.target.value as PieceOutcome })}>
+                <Select
+                  {...a11y}
+                  value={rows[index].outcome}
+                  onChange={(event) => change(index, { outcome: event.target.value as PieceOutcome })}
+                >
                   {OUTCOMES.map((o) => (
                     <option key={o.value} value={o.value}>
                       {o.label}
@@ -67,7 +89,14 @@ export function ResultsForm({ view }: { view: RequestView }) {
               )}
             </Field>
             <Field label="Notes" hint={rows[index].outcome === 'fine' ? undefined : 'What happened, and to how many of them.'}>
-              {(a11y) => <TextInput {...a11y} value={rows[index].notes} maxLength={1000} onChange={(event) => change(index, { notes: event.target.value })} />}
+              {(a11y) => (
+                <TextInput
+                  {...a11y}
+                  value={rows[index].notes}
+                  maxLength={1000}
+                  onChange={(event) => change(index, { notes: event.target.value })}
+                />
+              )}
             </Field>
           </li>
         ))}
@@ -86,7 +115,13 @@ export function ResultsForm({ view }: { view: RequestView }) {
           />
         )}
       </Field>
-      <PhotoUploader uploadUrl={`/api/requests/${view.id}/photos`} fields={{ kind: 'result' }} label="Result photos" hint="The potter sees them on the request and may show them on your public page." onUploaded={() => void refreshPhotos()} />
+      <PhotoUploader
+        uploadUrl={`/api/requests/${view.id}/photos`}
+        fields={{ kind: 'result' }}
+        label="Result photos"
+        hint="The potter sees them on the request and may show them on your public page."
+        onUploaded={() => void refreshPhotos()}
+      />
       {!parsed.success && <Alert tone="danger">{parsed.error.issues[0]?.message}</Alert>}
       {post.isError && <Alert tone="danger">{problemOf(post.error)}</Alert>}
       <div className="flex flex-wrap items-center gap-3">
@@ -161,10 +196,18 @@ export function ResultsView({ view, results }: { view: RequestView; results: Res
         photos={view.photos}
         kinds={['result']}
         headings={{ result: 'Result photos' }}
-        below={potter ? (photo) => <PublicSwitch photo={photo} requestId={view.id} /> : (photo) => (photo.public ? <span className="text-xs text-slip-500">On your public page</span> : null)}
+        below={
+          potter
+            ? (photo) => <PublicSwitch photo={photo} requestId={view.id} />
+            : (photo) => (photo.public ? <span className="text-xs text-slip-500">On your public page</span> : null)
+        }
         empty={results ? 'No result photos yet.' : undefined}
       />
-      {potter && view.photos.some((p) => p.kind === 'result') && <p className="text-xs text-slip-500">Result photos stay private unless you tick “Show on the studio’s page”. You can take them back any time.</p>}
+      {potter && view.photos.some((p) => p.kind === 'result') && (
+        <p className="text-xs text-slip-500">
+          Result photos stay private unless you tick “Show on the studio’s page”. You can take them back any time.
+        </p>
+      )}
     </div>
   )
 }

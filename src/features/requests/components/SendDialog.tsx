@@ -22,13 +22,22 @@ interface SendDialogProps {
 /** Sending a draft: each warning acknowledged on its own, the studio's policies agreed, then the server decides. */
 export function SendDialog({ requestId, onClose, onSent }: SendDialogProps) {
   return (
-    <Dialog open={requestId !== null} onClose={onClose} title="Send the request" description="The studio sees your pieces, the check and the quote, and answers by mail." size="lg">
+    <Dialog
+      open={requestId !== null}
+      onClose={onClose}
+      title="Send the request"
+      description="The studio sees your pieces, the check and the quote, and answers by mail."
+      size="lg"
+    >
       {requestId && <SendForm requestId={requestId} onClose={onClose} onSent={onSent} />}
     </Dialog>
   )
 }
 
-const warningsOf = (findings: readonly Finding[]) => findings.map((finding, index) => ({ finding, key: `${finding.code}:${finding.pieceIndex ?? 'all'}:${index}` })).filter((w) => w.finding.severity === 'warn')
+const warningsOf = (findings: readonly Finding[]) =>
+  findings
+    .map((finding, index) => ({ finding, key: `${finding.code}:${finding.pieceIndex ?? 'all'}:${index}` }))
+    .filter((w) => w.finding.severity === 'warn')
 
 function SendForm({ requestId, onClose, onSent }: { requestId: string; onClose: () => void; onSent: (view: RequestView) => void }) {
   const queryClient = useQueryClient()
@@ -60,10 +69,17 @@ function SendForm({ requestId, onClose, onSent }: { requestId: string; onClose: 
           const answered = Array.isArray(error.body.findings) ? (error.body.findings as Finding[]) : null
           if (error.code === 'ware-blocked') {
             setServerFindings(answered)
-            setProblem({ title: 'The studio’s kiln cannot take this ware as described', text: error.message, blocked: answered?.filter((f) => f.severity === 'block') ?? [] })
+            setProblem({
+              title: 'The studio’s kiln cannot take this ware as described',
+              text: error.message,
+              blocked: answered?.filter((f) => f.severity === 'block') ?? [],
+            })
           } else if (error.code === 'unacknowledged-warnings') {
             setServerFindings(answered)
-            setProblem({ title: 'There are warnings to read first', text: 'The check found warnings you have not acknowledged yet; they are listed above.' })
+            setProblem({
+              title: 'There are warnings to read first',
+              text: 'The check found warnings you have not acknowledged yet; they are listed above.',
+            })
           } else if (error.code === 'policies-changed') {
             setAgreed(false)
             void queryClient.invalidateQueries({ queryKey: requestKeys.detail(view.id) })
@@ -87,11 +103,18 @@ function SendForm({ requestId, onClose, onSent }: { requestId: string; onClose: 
             <p className="mt-1 text-sm text-slip-600">The studio sees that you read each one. Tick them one by one.</p>
             <ul className="mt-2 space-y-2">
               {warnings.map(({ finding, key }) => (
-                <li key={key} className="rounded-control border border-ember-300 bg-ember-100/40 p-3" data-testid="warning-to-acknowledge" data-code={finding.code}>
+                <li
+                  key={key}
+                  className="rounded-control border border-ember-300 bg-ember-100/40 p-3"
+                  data-testid="warning-to-acknowledge"
+                  data-code={finding.code}
+                >
                   <Checkbox
                     label={
                       <>
-                        {finding.pieceIndex !== undefined && <strong className="font-semibold">{pieceName(view.pieces, finding.pieceIndex)}: </strong>}
+                        {finding.pieceIndex !== undefined && (
+                          <strong className="font-semibold">{pieceName(view.pieces, finding.pieceIndex)}: </strong>
+                        )}
                         {finding.message}
                         {finding.detail && <span className="block text-xs text-slip-600">{finding.detail}</span>}
                       </>
@@ -129,7 +152,11 @@ function SendForm({ requestId, onClose, onSent }: { requestId: string; onClose: 
           </>
         )}
         <div className="mt-3">
-          <Checkbox label={`I agree to ${view.studio.name}’s policies`} checked={agreed} onChange={(event) => setAgreed(event.target.checked)} />
+          <Checkbox
+            label={`I agree to ${view.studio.name}’s policies`}
+            checked={agreed}
+            onChange={(event) => setAgreed(event.target.checked)}
+          />
         </div>
       </section>
 
@@ -154,7 +181,11 @@ function SendForm({ requestId, onClose, onSent }: { requestId: string; onClose: 
       </div>
       {(!allAcknowledged || !agreed) && (
         <p className="text-right text-xs text-slip-500">
-          {!allAcknowledged && !agreed ? 'Acknowledge each warning and agree to the policies to send.' : !allAcknowledged ? 'Acknowledge each warning to send.' : 'Agree to the policies to send.'}
+          {!allAcknowledged && !agreed
+            ? 'Acknowledge each warning and agree to the policies to send.'
+            : !allAcknowledged
+              ? 'Acknowledge each warning to send.'
+              : 'Agree to the policies to send.'}
         </p>
       )}
     </div>

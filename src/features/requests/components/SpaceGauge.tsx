@@ -6,7 +6,12 @@ export function SpaceGauge({ needL, leftL, units }: { needL: number; leftL: numb
   const over = needL > leftL
   return (
     <div className="space-y-1" data-testid="space-gauge">
-      <Gauge value={needL} max={Math.max(leftL, 0.001)} label="Space your ware takes" valueText={`${formatSpace(needL, units)} of ${formatSpace(leftL, units)} left`} />
+      <Gauge
+        value={needL}
+        max={Math.max(leftL, 0.001)}
+        label="Space your ware takes"
+        valueText={`${formatSpace(needL, units)} of ${formatSpace(leftL, units)} left`}
+      />
       <p className={`text-sm ${over ? 'font-semibold text-danger-700' : 'text-slip-700'}`}>
         Takes <strong data-testid="space-needed">{formatSpace(needL, units)}</strong> of the {formatSpace(leftL, units)} left
         {over && ': more than there is.'}

@@ -25,7 +25,11 @@ export function AcceptButton({ requestId, size = 'md' }: { requestId: string; si
       <Button size={size} busy={accept.isPending} onClick={() => accept.mutate(requestId)}>
         Accept
       </Button>
-      {accept.isError && <span className="text-xs font-medium text-danger-700" role="alert">{problemOf(accept.error)}</span>}
+      {accept.isError && (
+        <span className="text-xs font-medium text-danger-700" role="alert">
+          {problemOf(accept.error)}
+        </span>
+      )}
     </span>
   )
 }
@@ -51,7 +55,9 @@ export function ReasonDialog({ requestId, open, onClose, mode, refundText }: Rea
       open={open}
       onClose={onClose}
       title={cancelling ? 'Cancel this request?' : 'Decline this request?'}
-      description={cancelling ? 'The space is released and the potter is told why.' : 'The potter is told why and can look for another firing.'}
+      description={
+        cancelling ? 'The space is released and the potter is told why.' : 'The potter is told why and can look for another firing.'
+      }
       footer={
         <>
           <Button variant="ghost" onClick={onClose}>
@@ -76,8 +82,20 @@ export function ReasonDialog({ requestId, open, onClose, mode, refundText }: Rea
             {refundText ?? 'Everything they paid goes back to their card.'}
           </Alert>
         )}
-        <Field label="Reason" hint="A sentence is enough: what would have to change, or what you can offer instead." error={touched && !parsed.success ? parsed.error.issues[0]?.message : undefined}>
-          {(a11y) => <TextArea {...a11y} rows={3} value={reason} onChange={(event) => setReason(event.target.value)} onBlur={() => setTouched(true)} />}
+        <Field
+          label="Reason"
+          hint="A sentence is enough: what would have to change, or what you can offer instead."
+          error={touched && !parsed.success ? parsed.error.issues[0]?.message : undefined}
+        >
+          {(a11y) => (
+            <TextArea
+              {...a11y}
+              rows={3}
+              value={reason}
+              onChange={(event) => setReason(event.target.value)}
+              onBlur={() => setTouched(true)}
+            />
+          )}
         </Field>
         {decline.isError && <Alert tone="danger">{problemOf(decline.error)}</Alert>}
       </div>
@@ -92,7 +110,9 @@ export function MoveDialog({ view, open, onClose, units }: { view: RequestView; 
   const [firingId, setFiringId] = useState('')
   const zone = view.studio.timezone
   const now = Date.now()
-  const choices = (firings.data ?? []).filter((f) => f.id !== view.firing.id && takesRequests(f.status) && new Date(f.dropOffBy).getTime() > now)
+  const choices = (firings.data ?? []).filter(
+    (f) => f.id !== view.firing.id && takesRequests(f.status) && new Date(f.dropOffBy).getTime() > now,
+  )
   return (
     <Dialog
       open={open}
@@ -115,7 +135,9 @@ export function MoveDialog({ view, open, onClose, units }: { view: RequestView; 
       ) : firings.isError ? (
         <Alert tone="danger">{problemOf(firings.error)}</Alert>
       ) : choices.length === 0 ? (
-        <p className="text-sm text-slip-600">No other firing of this studio is taking ware. Post one in the calendar first, or decline with a reason.</p>
+        <p className="text-sm text-slip-600">
+          No other firing of this studio is taking ware. Post one in the calendar first, or decline with a reason.
+        </p>
       ) : (
         <div className="space-y-3">
           <Field label="Firing" hint={`Times in ${zone.replace(/_/g, ' ')}. The ware needs ${formatSpace(view.volumeL, units)}.`}>
@@ -182,14 +204,18 @@ export function StudioActions({ view, units }: { view: RequestView; units: UnitS
           )}
         </div>
       )}
-      {can('accept') && <p className="text-xs text-slip-600">Accepting holds {formatSpace(view.volumeL, units)} and asks the potter for the deposit.</p>}
+      {can('accept') && (
+        <p className="text-xs text-slip-600">Accepting holds {formatSpace(view.volumeL, units)} and asks the potter for the deposit.</p>
+      )}
       <ReasonDialog requestId={view.id} open={dialog === 'decline'} onClose={() => setDialog(null)} mode="decline" />
       <ReasonDialog
         requestId={view.id}
         open={dialog === 'cancel'}
         onClose={() => setDialog(null)}
         mode="cancel"
-        refundText={paid > 0 ? `${formatMoney(paid, currency)} goes back to their card.` : 'Nothing has been paid yet, so nothing is refunded.'}
+        refundText={
+          paid > 0 ? `${formatMoney(paid, currency)} goes back to their card.` : 'Nothing has been paid yet, so nothing is refunded.'
+        }
       />
       <MoveDialog view={view} open={dialog === 'move'} onClose={() => setDialog(null)} units={units} />
     </div>

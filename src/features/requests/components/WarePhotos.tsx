@@ -6,7 +6,8 @@ import type { RequestView } from '../api/types'
 /** States in which the ware is still the potter's to photograph: up to the drop-off. */
 const BEFORE_DROP_OFF: readonly RequestView['state'][] = ['draft', 'sent', 'accepted', 'deposit_paid']
 
-export const potterMayAddWarePhotos = (view: Pick<RequestView, 'viewer' | 'state'>) => view.viewer !== 'studio' && BEFORE_DROP_OFF.includes(view.state)
+export const potterMayAddWarePhotos = (view: Pick<RequestView, 'viewer' | 'state'>) =>
+  view.viewer !== 'studio' && BEFORE_DROP_OFF.includes(view.state)
 
 /** The potter's own photos of the ware: the studio sees what is coming before it arrives. */
 export function WarePhotos({ view }: { view: RequestView }) {
@@ -19,7 +20,13 @@ export function WarePhotos({ view }: { view: RequestView }) {
         photos={view.photos}
         kinds={['ware']}
         headings={{ ware: potter ? 'Your photos' : 'From the potter' }}
-        empty={potter ? (mayAdd ? 'No photos yet. A photo or two helps the studio see the ware before it arrives.' : 'You added no photos.') : 'The potter added no photos of the ware.'}
+        empty={
+          potter
+            ? mayAdd
+              ? 'No photos yet. A photo or two helps the studio see the ware before it arrives.'
+              : 'You added no photos.'
+            : 'The potter added no photos of the ware.'
+        }
       />
       {mayAdd && (
         <PhotoUploader

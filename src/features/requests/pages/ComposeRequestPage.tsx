@@ -44,10 +44,20 @@ export function ComposeRequestPage() {
   const draft = useRequest(draftId ?? undefined)
   const units: UnitSystem = me.data?.unitSystem ?? 'imperial'
 
-  if (firing.isError) return <RequestProblem error={firing.error} what="this firing" onRetry={() => firing.refetch()} back={{ to: '/find', label: 'Find another firing' }} />
+  if (firing.isError)
+    return (
+      <RequestProblem
+        error={firing.error}
+        what="this firing"
+        onRetry={() => firing.refetch()}
+        back={{ to: '/find', label: 'Find another firing' }}
+      />
+    )
   const failed = [kiln, priceList, studio, draft].find((query) => query.isError)
-  if (failed) return <RequestProblem error={failed.error} what={failed === draft ? 'your draft' : 'this firing'} onRetry={() => failed.refetch()} />
-  if (firing.isPending || !kiln.data || priceList.data === undefined || !studio.data || (draftId && draft.isPending)) return <Spinner label="Loading the firing…" />
+  if (failed)
+    return <RequestProblem error={failed.error} what={failed === draft ? 'your draft' : 'this firing'} onRetry={() => failed.refetch()} />
+  if (firing.isPending || !kiln.data || priceList.data === undefined || !studio.data || (draftId && draft.isPending))
+    return <Spinner label="Loading the firing…" />
 
   if (draft.data && draft.data.state !== 'draft') {
     return (
@@ -58,12 +68,24 @@ export function ComposeRequestPage() {
   }
   if (!takesRequests(firing.data.status) || new Date(firing.data.dropOffBy).getTime() < Date.now()) {
     return (
-      <EmptyState title="This firing is not taking ware any more" action={<ButtonLink to={`/studios/${firing.data.studioId}`}>See the studio’s other firings</ButtonLink>}>
+      <EmptyState
+        title="This firing is not taking ware any more"
+        action={<ButtonLink to={`/studios/${firing.data.studioId}`}>See the studio’s other firings</ButtonLink>}
+      >
         It is full, closed or past its drop-off deadline.
       </EmptyState>
     )
   }
-  return <ComposeForm firing={firing.data} kiln={kiln.data} priceList={priceList.data} studio={studio.data} draft={draft.data ?? null} units={units} />
+  return (
+    <ComposeForm
+      firing={firing.data}
+      kiln={kiln.data}
+      priceList={priceList.data}
+      studio={studio.data}
+      draft={draft.data ?? null}
+      units={units}
+    />
+  )
 }
 
 interface ComposeFormProps {
@@ -134,13 +156,23 @@ function ComposeForm({ firing, kiln, priceList, studio, draft, units }: ComposeF
         <form className="min-w-0 space-y-6" noValidate onSubmit={(event) => event.preventDefault()} aria-label="Your pieces">
           <PieceRows control={control} register={register} messages={parsed.messages} units={units} title="Your pieces" />
           <Card>
-            <Field label="Notes for the studio" hint="Optional: anything the studio should know (a glaze they should see first, when you can drop off)." error={parsed.messages.notes}>
+            <Field
+              label="Notes for the studio"
+              hint="Optional: anything the studio should know (a glaze they should see first, when you can drop off)."
+              error={parsed.messages.notes}
+            >
               {(a11y) => <TextArea {...a11y} rows={4} {...register('notes')} />}
             </Field>
           </Card>
           <Card>
             <h2 className="mb-3 text-lg font-semibold">Photos of your ware</h2>
-            {draftId ? <DraftPhotos draftId={draftId} /> : <p className="text-sm text-slip-600">Save the draft first, then add photos: they help the studio see the glazed feet and any runny glaze before it says yes.</p>}
+            {draftId ? (
+              <DraftPhotos draftId={draftId} />
+            ) : (
+              <p className="text-sm text-slip-600">
+                Save the draft first, then add photos: they help the studio see the glazed feet and any runny glaze before it says yes.
+              </p>
+            )}
           </Card>
           <div className="space-y-3">
             {save.isError && (
@@ -163,15 +195,28 @@ function ComposeForm({ firing, kiln, priceList, studio, draft, units }: ComposeF
               <Button onClick={startSending} disabled={!canSave || blocked} busy={save.isPending && intent === 'send'}>
                 Send…
               </Button>
-              {draftId && <span className="text-sm text-slip-600">{formState.isDirty ? 'Changes not saved yet.' : 'Saved. Your drafts are in My ware.'}</span>}
+              {draftId && (
+                <span className="text-sm text-slip-600">
+                  {formState.isDirty ? 'Changes not saved yet.' : 'Saved. Your drafts are in My ware.'}
+                </span>
+              )}
             </div>
             {!canSave && <p className="text-sm text-slip-600">Fix the fields marked in red to save or send.</p>}
-            {blocked && <p className="text-sm text-slip-600">The check blocks this ware in this firing: change what it says, or choose another firing.</p>}
+            {blocked && (
+              <p className="text-sm text-slip-600">
+                The check blocks this ware in this firing: change what it says, or choose another firing.
+              </p>
+            )}
           </div>
         </form>
 
         <div className="min-w-0 space-y-6 lg:sticky lg:top-4">
-          <CheckCard id={CHECK_ID} check={result?.check ?? null} problem={typeof outcome === 'string' ? outcome : null} pieces={parsed.pieces ?? []}>
+          <CheckCard
+            id={CHECK_ID}
+            check={result?.check ?? null}
+            problem={typeof outcome === 'string' ? outcome : null}
+            pieces={parsed.pieces ?? []}
+          >
             {result && <SpaceGauge needL={result.check.fit.requestVolumeL} leftL={firing.spaceLeftL} units={units} />}
           </CheckCard>
           <Card>
@@ -185,7 +230,9 @@ function ComposeForm({ firing, kiln, priceList, studio, draft, units }: ComposeF
             ) : (
               <p className="text-sm text-slip-600">Fill in the pieces to see the price.</p>
             )}
-            {priceList && <p className="mt-3 text-xs text-slip-500">From the studio’s price list. The deposit is paid once the studio accepts.</p>}
+            {priceList && (
+              <p className="mt-3 text-xs text-slip-500">From the studio’s price list. The deposit is paid once the studio accepts.</p>
+            )}
           </Card>
           <SafetyNote />
         </div>

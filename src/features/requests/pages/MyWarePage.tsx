@@ -45,7 +45,8 @@ export function MyWarePage() {
             </div>
           }
         >
-          Find a studio firing at your cone and atmosphere, describe your pieces and request space. Or try the firing planner first to see what a kiln can take.
+          Find a studio firing at your cone and atmosphere, describe your pieces and request space. Or try the firing planner first to see
+          what a kiln can take.
         </EmptyState>
       ) : (
         <ul className="space-y-3" aria-label="Your requests">
@@ -63,7 +64,12 @@ function RequestCard({ row, units }: { row: RequestRow; units: UnitSystem }) {
   const next = potterNextStep({ ...row, dropOffBy: row.firing.dropOffBy, timezone: zone })
   const needsMe = ['draft', 'accepted'].includes(row.state) || (row.state === 'sent' && row.proposedFiringId !== null)
   return (
-    <li data-testid="my-request" data-request-id={row.id} data-state={row.state} className={`rounded-card border bg-white p-4 shadow-card ${needsMe ? 'border-clay-300' : 'border-slip-200'}`}>
+    <li
+      data-testid="my-request"
+      data-request-id={row.id}
+      data-state={row.state}
+      className={`rounded-card border bg-white p-4 shadow-card ${needsMe ? 'border-clay-300' : 'border-slip-200'}`}
+    >
       <div className="flex flex-wrap items-start justify-between gap-2">
         <div className="min-w-0">
           <h2 className="font-semibold text-slip-900">
@@ -72,7 +78,8 @@ function RequestCard({ row, units }: { row: RequestRow; units: UnitSystem }) {
             </Link>
           </h2>
           <p className="text-sm text-slip-600">
-            {row.firing.kilnName} · {Date.parse(row.firing.firingDate) > Date.now() ? 'fires' : 'fired'} {formatDateTime(row.firing.firingDate, zone)}
+            {row.firing.kilnName} · {Date.parse(row.firing.firingDate) > Date.now() ? 'fires' : 'fired'}{' '}
+            {formatDateTime(row.firing.firingDate, zone)}
           </p>
         </div>
         <RequestStateBadge state={row.state} />
@@ -82,7 +89,8 @@ function RequestCard({ row, units }: { row: RequestRow; units: UnitSystem }) {
       </p>
       <p className="mt-1 text-xs text-slip-500">
         {row.pieceCount} {row.pieceCount === 1 ? 'piece' : 'pieces'} · {formatSpace(row.volumeL, units)}
-        {row.quote && ` · ${formatMoney(row.quote.totalCents, row.quote.currency)} (deposit ${formatMoney(row.quote.depositCents, row.quote.currency)})`}
+        {row.quote &&
+          ` · ${formatMoney(row.quote.totalCents, row.quote.currency)} (deposit ${formatMoney(row.quote.depositCents, row.quote.currency)})`}
       </p>
     </li>
   )

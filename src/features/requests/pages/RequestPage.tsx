@@ -74,7 +74,8 @@ type PaymentPurpose = 'deposit' | 'balance'
 const paymentPurpose = (value: string | null): PaymentPurpose | null => (value === 'deposit' || value === 'balance' ? value : null)
 
 /** Whether the page still waits for the webhook to book what the potter just paid. */
-const awaitingConfirmation = (view: RequestView, purpose: PaymentPurpose) => (purpose === 'deposit' ? view.state === 'accepted' : view.state === 'ready' && view.owedCents > 0)
+const awaitingConfirmation = (view: RequestView, purpose: PaymentPurpose) =>
+  purpose === 'deposit' ? view.state === 'accepted' : view.state === 'ready' && view.owedCents > 0
 
 interface DetailProps {
   view: RequestView
@@ -88,8 +89,18 @@ function PaymentNotices(props: Omit<DetailProps, 'units'>) {
   if (props.view.viewer === 'studio') return null
   return (
     <>
-      <DepositNotices view={props.view} returnedPaid={props.paidFor === 'deposit'} returnedUnpaid={props.unpaidFor === 'deposit'} waitedOut={props.waitedOut} />
-      <BalanceNotices view={props.view} returnedPaid={props.paidFor === 'balance'} returnedUnpaid={props.unpaidFor === 'balance'} waitedOut={props.waitedOut} />
+      <DepositNotices
+        view={props.view}
+        returnedPaid={props.paidFor === 'deposit'}
+        returnedUnpaid={props.unpaidFor === 'deposit'}
+        waitedOut={props.waitedOut}
+      />
+      <BalanceNotices
+        view={props.view}
+        returnedPaid={props.paidFor === 'balance'}
+        returnedUnpaid={props.unpaidFor === 'balance'}
+        waitedOut={props.waitedOut}
+      />
     </>
   )
 }
@@ -115,7 +126,8 @@ function ConfirmingPayment() {
 function NotConfirmedYet() {
   return (
     <Alert tone="warning" title="Your payment is not confirmed yet">
-      We have not heard back from the card payment in 30 seconds. If the payment page showed it as paid, it will appear here shortly and you will get a mail; reload this page in a minute. If the payment page showed an error, nothing was charged and you can pay again.
+      We have not heard back from the card payment in 30 seconds. If the payment page showed it as paid, it will appear here shortly and you
+      will get a mail; reload this page in a minute. If the payment page showed an error, nothing was charged and you can pay again.
     </Alert>
   )
 }
@@ -185,9 +197,17 @@ function DepositNotices({ view, returnedPaid, returnedUnpaid, waitedOut }: Notic
 function RequestDetail({ view, units, paidFor, unpaidFor, waitedOut }: DetailProps) {
   const zone = view.studio.timezone
   const isStudio = view.viewer !== 'potter'
-  const facts = { state: view.state, depositDueAt: view.depositDueAt, proposedFiringId: view.proposedFiring?.id ?? null, dropOffBy: view.firing.dropOffBy, timezone: zone }
+  const facts = {
+    state: view.state,
+    depositDueAt: view.depositDueAt,
+    proposedFiringId: view.proposedFiring?.id ?? null,
+    dropOffBy: view.firing.dropOffBy,
+    timezone: zone,
+  }
   const nextStep =
-    view.viewer === 'studio' ? (studioPickupStep(view.state, view) ?? studioNextStep(facts)) : (potterPickupStep(view.state, view) ?? potterNextStep(facts))
+    view.viewer === 'studio'
+      ? (studioPickupStep(view.state, view) ?? studioNextStep(facts))
+      : (potterPickupStep(view.state, view) ?? potterNextStep(facts))
   const standing = standingQuote(view)
   const change = priceChange(view)
   const remeasured = change !== null && !change.waiting
@@ -357,7 +377,11 @@ function RequestDetail({ view, units, paidFor, unpaidFor, waitedOut }: DetailPro
 
           <Card>
             <h2 className="mb-3 text-lg font-semibold">{remeasured ? 'Quote, as measured at check-in' : 'Quote'}</h2>
-            {standing ? <QuoteSummary quote={standing} /> : <p className="text-sm text-slip-600">The kiln has no price list; the studio quotes in the messages.</p>}
+            {standing ? (
+              <QuoteSummary quote={standing} />
+            ) : (
+              <p className="text-sm text-slip-600">The kiln has no price list; the studio quotes in the messages.</p>
+            )}
             {view.checkIn && (
               <div className="mt-3">
                 <PriceChangeNote view={view} currency={currency} />
@@ -370,7 +394,11 @@ function RequestDetail({ view, units, paidFor, unpaidFor, waitedOut }: DetailPro
               </p>
             )}
             {OWING_STATES.includes(view.state) && (
-              <p className={`mt-2 text-sm ${view.owedCents > 0 ? 'font-semibold text-slip-900' : 'text-celadon-700'}`} data-testid="owed" data-owed-cents={view.owedCents}>
+              <p
+                className={`mt-2 text-sm ${view.owedCents > 0 ? 'font-semibold text-slip-900' : 'text-celadon-700'}`}
+                data-testid="owed"
+                data-owed-cents={view.owedCents}
+              >
                 {view.owedCents > 0 ? `Still owed: ${formatMoney(view.owedCents, currency)}` : 'Nothing more is owed.'}
               </p>
             )}
@@ -397,7 +425,6 @@ function RequestDetail({ view, units, paidFor, unpaidFor, waitedOut }: DetailPro
         </div>
 
         <aside className="min-w-0 space-y-6 lg:col-start-2 lg:row-start-2">
-
           {isStudio && (
             <Card>
               <h2 className="mb-2 text-lg font-semibold">The potter</h2>
@@ -423,7 +450,9 @@ function RequestDetail({ view, units, paidFor, unpaidFor, waitedOut }: DetailPro
                 </address>
               ) : (
                 <p className="text-sm text-slip-600">
-                  {HOLDING_STATES.includes(view.state) ? 'The studio has not given a street address yet; ask in the messages.' : 'The studio’s address is shown here once it accepts your request.'}
+                  {HOLDING_STATES.includes(view.state)
+                    ? 'The studio has not given a street address yet; ask in the messages.'
+                    : 'The studio’s address is shown here once it accepts your request.'}
                 </p>
               )}
               {view.studio.dropOffHours && <p className="mt-2 text-sm text-slip-700">{view.studio.dropOffHours}</p>}
@@ -432,7 +461,12 @@ function RequestDetail({ view, units, paidFor, unpaidFor, waitedOut }: DetailPro
 
           <Card>
             <h2 className="mb-3 text-lg font-semibold">Messages</h2>
-            <MessageThread requestId={view.id} zone={zone} otherSide={isStudio ? view.potter.displayName : view.studio.name} canWrite={view.actions.includes('message')} />
+            <MessageThread
+              requestId={view.id}
+              zone={zone}
+              otherSide={isStudio ? view.potter.displayName : view.studio.name}
+              canWrite={view.actions.includes('message')}
+            />
           </Card>
         </aside>
       </div>

@@ -26,8 +26,22 @@ export function StudioInboxPage() {
   const { id = '' } = useParams()
   const studio = useStudio(id)
   if (studio.isPending) return <Spinner label="Loading the studio…" />
-  if (studio.isError) return <RequestProblem error={studio.error} what="this studio" onRetry={() => studio.refetch()} back={{ to: '/kiln-room', label: 'Back to the kiln room' }} />
-  return <Inbox studioId={id} title={`Requests to ${studio.data.name}`} lead="Each request with the check, the space it needs, the quote and the potter’s record." />
+  if (studio.isError)
+    return (
+      <RequestProblem
+        error={studio.error}
+        what="this studio"
+        onRetry={() => studio.refetch()}
+        back={{ to: '/kiln-room', label: 'Back to the kiln room' }}
+      />
+    )
+  return (
+    <Inbox
+      studioId={id}
+      title={`Requests to ${studio.data.name}`}
+      lead="Each request with the check, the space it needs, the quote and the potter’s record."
+    />
+  )
 }
 
 /** /firings/:firingId/requests: the requests for one firing. */
@@ -35,7 +49,15 @@ export function FiringInboxPage() {
   const { firingId = '' } = useParams()
   const firing = useFiring(firingId)
   const studio = useStudio(firing.data?.studioId)
-  if (firing.isError) return <RequestProblem error={firing.error} what="this firing" onRetry={() => firing.refetch()} back={{ to: '/kiln-room', label: 'Back to the kiln room' }} />
+  if (firing.isError)
+    return (
+      <RequestProblem
+        error={firing.error}
+        what="this firing"
+        onRetry={() => firing.refetch()}
+        back={{ to: '/kiln-room', label: 'Back to the kiln room' }}
+      />
+    )
   if (studio.isError) return <RequestProblem error={studio.error} what="this studio" onRetry={() => studio.refetch()} />
   if (firing.isPending || studio.isPending) return <Spinner label="Loading the firing…" />
   return (
@@ -58,7 +80,8 @@ function Inbox({ studioId, firing, title, lead }: { studioId: string; firing?: F
   const requests = useRequests({ as: 'studio', studioId, firingId: firing?.id })
   // Space left per firing, for the studio-wide list (a firing's own inbox has it already).
   const firings = useStudioFirings(studioId, { enabled: !firing })
-  const spaceLeft = (firingId: string) => (firing?.id === firingId ? firing.spaceLeftL : firings.data?.find((f) => f.id === firingId)?.spaceLeftL)
+  const spaceLeft = (firingId: string) =>
+    firing?.id === firingId ? firing.spaceLeftL : firings.data?.find((f) => f.id === firingId)?.spaceLeftL
 
   const all = requests.data ?? []
   const counts = new Map<string, number>([['all', all.length]])
@@ -104,7 +127,9 @@ function Inbox({ studioId, firing, title, lead }: { studioId: string; firing?: F
         <RequestProblem error={requests.error} what="the requests" onRetry={() => requests.refetch()} />
       ) : ordered.length === 0 ? (
         <EmptyState title={filter === 'all' ? 'No requests yet' : `No requests that are ${stateLabel(filter).toLowerCase()}`}>
-          {filter === 'all' ? 'Potters find your open firings in search and on your studio page; their requests arrive here and by mail.' : 'Choose another state above.'}
+          {filter === 'all'
+            ? 'Potters find your open firings in search and on your studio page; their requests arrive here and by mail.'
+            : 'Choose another state above.'}
         </EmptyState>
       ) : (
         <ul className="space-y-3" aria-label="Requests">
@@ -117,7 +142,17 @@ function Inbox({ studioId, firing, title, lead }: { studioId: string; firing?: F
   )
 }
 
-function InboxRow({ row, units, spaceLeftL, showFiring }: { row: RequestRow; units: UnitSystem; spaceLeftL: number | undefined; showFiring: boolean }) {
+function InboxRow({
+  row,
+  units,
+  spaceLeftL,
+  showFiring,
+}: {
+  row: RequestRow
+  units: UnitSystem
+  spaceLeftL: number | undefined
+  showFiring: boolean
+}) {
   const waiting = row.state === 'sent'
   // The list row has no record of the potter; the request itself does, and it is needed to decide.
   const detail = useRequest(waiting ? row.id : undefined)
@@ -126,7 +161,12 @@ function InboxRow({ row, units, spaceLeftL, showFiring }: { row: RequestRow; uni
   const verdict = VERDICT_WORDS[row.verdict]
   const canDecide = detail.data?.actions.includes('accept') ?? waiting
   return (
-    <li data-testid="inbox-request" data-request-id={row.id} data-state={row.state} className={`rounded-card border bg-white p-4 shadow-card ${waiting ? 'border-clay-300' : 'border-slip-200'}`}>
+    <li
+      data-testid="inbox-request"
+      data-request-id={row.id}
+      data-state={row.state}
+      className={`rounded-card border bg-white p-4 shadow-card ${waiting ? 'border-clay-300' : 'border-slip-200'}`}
+    >
       <div className="grid gap-4 md:grid-cols-[minmax(0,1fr)_14rem_auto] md:items-start">
         <div className="min-w-0 space-y-1">
           <div className="flex flex-wrap items-center gap-2">
@@ -147,19 +187,27 @@ function InboxRow({ row, units, spaceLeftL, showFiring }: { row: RequestRow; uni
           )}
           <p className="text-sm">
             {waiting ? (
-              detail.data ? <PotterRecordLine name={row.potterName} record={detail.data.potter.record} /> : <span className="text-slip-500">Loading the potter’s record…</span>
+              detail.data ? (
+                <PotterRecordLine name={row.potterName} record={detail.data.potter.record} />
+              ) : (
+                <span className="text-slip-500">Loading the potter’s record…</span>
+              )
             ) : (
-              <span className="text-slip-600">{studioPickupStep(row.state) ?? studioNextStep({ ...row, dropOffBy: row.firing.dropOffBy, timezone: zone })}</span>
+              <span className="text-slip-600">
+                {studioPickupStep(row.state) ?? studioNextStep({ ...row, dropOffBy: row.firing.dropOffBy, timezone: zone })}
+              </span>
             )}
           </p>
           <p className="flex flex-wrap items-center gap-2 text-sm text-slip-700">
             <Badge tone={verdict.tone}>{verdict.title}</Badge>
             <span>
-              {row.findings === 0 ? 'no findings' : `${row.findings} ${row.findings === 1 ? 'finding' : 'findings'}`} · {row.pieceCount} {row.pieceCount === 1 ? 'piece' : 'pieces'}
+              {row.findings === 0 ? 'no findings' : `${row.findings} ${row.findings === 1 ? 'finding' : 'findings'}`} · {row.pieceCount}{' '}
+              {row.pieceCount === 1 ? 'piece' : 'pieces'}
             </span>
             {row.quote && (
               <span>
-                · {formatMoney(row.quote.totalCents, row.quote.currency)} <span className="text-slip-500">(deposit {formatMoney(row.quote.depositCents, row.quote.currency)})</span>
+                · {formatMoney(row.quote.totalCents, row.quote.currency)}{' '}
+                <span className="text-slip-500">(deposit {formatMoney(row.quote.depositCents, row.quote.currency)})</span>
               </span>
             )}
           </p>

@@ -23,7 +23,8 @@ export function usePlaceSuggestions(text: string) {
   const q = text.trim()
   return useQuery<Place[]>({
     queryKey: searchKeys.places(q.toLowerCase()),
-    queryFn: ({ signal }) => api<{ places: Place[] }>(`/api/places?${new URLSearchParams({ q, limit: '6' })}`, { signal }).then((r) => r.places),
+    queryFn: ({ signal }) =>
+      api<{ places: Place[] }>(`/api/places?${new URLSearchParams({ q, limit: '6' })}`, { signal }).then((r) => r.places),
     enabled: q.length >= 2,
     staleTime: 5 * 60_000,
     placeholderData: keepPreviousData,

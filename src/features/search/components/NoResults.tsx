@@ -17,7 +17,8 @@ export function loosenings(state: SearchState, units: UnitSystem): Suggestion[] 
   if (hasOrigin(state)) {
     const now = Number(state.radiusKm ?? DEFAULT_RADIUS_KM)
     const wider = Math.min(WIDEST_KM, Math.round(now * 2.5))
-    if (Number.isFinite(now) && wider > now) out.push({ label: `Search within ${formatDistance(wider, units)}`, state: withFilters(state, { radiusKm: String(wider) }) })
+    if (Number.isFinite(now) && wider > now)
+      out.push({ label: `Search within ${formatDistance(wider, units)}`, state: withFilters(state, { radiusKm: String(wider) }) })
   }
   if (state.cone) {
     const [low, high] = state.cone.split('..')
@@ -34,7 +35,10 @@ export function loosenings(state: SearchState, units: UnitSystem): Suggestion[] 
   if (state.kind) out.push({ label: 'Any firing', state: withFilters(state, { kind: undefined }) })
   if (state.from || state.to) out.push({ label: 'Any drop-off date', state: withFilters(state, { from: undefined, to: undefined }) })
   if (state.fitsHeightMm || state.fitsWidthMm || state.fitsDepthMm) {
-    out.push({ label: 'Any piece size', state: withFilters(state, { fitsHeightMm: undefined, fitsWidthMm: undefined, fitsDepthMm: undefined }) })
+    out.push({
+      label: 'Any piece size',
+      state: withFilters(state, { fitsHeightMm: undefined, fitsWidthMm: undefined, fitsDepthMm: undefined }),
+    })
   }
   if (state.q) out.push({ label: `Without “${state.q}”`, state: withFilters(state, { q: undefined }) })
   return out

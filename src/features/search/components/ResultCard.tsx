@@ -38,8 +38,14 @@ export const ResultCard = forwardRef<HTMLElement, ResultCardProps>(function Resu
           </p>
         </div>
         {hit.rating && (
-          <p className="text-sm text-slip-700" aria-label={`Rated ${hit.rating.mean} out of 5 by ${hit.rating.count} ${hit.rating.count === 1 ? 'potter' : 'potters'}`}>
-            <span aria-hidden className="text-ember-500">★</span> {hit.rating.mean.toFixed(1)} <span className="text-slip-500">({hit.rating.count})</span>
+          <p
+            className="text-sm text-slip-700"
+            aria-label={`Rated ${hit.rating.mean} out of 5 by ${hit.rating.count} ${hit.rating.count === 1 ? 'potter' : 'potters'}`}
+          >
+            <span aria-hidden className="text-ember-500">
+              ★
+            </span>{' '}
+            {hit.rating.mean.toFixed(1)} <span className="text-slip-500">({hit.rating.count})</span>
           </p>
         )}
       </div>
@@ -92,7 +98,10 @@ export const ResultCard = forwardRef<HTMLElement, ResultCardProps>(function Resu
         <Link to={`/studios/${hit.studio.id}`} className="rounded-control px-3 py-1.5 text-sm font-semibold text-clay-700 hover:bg-clay-50">
           See the studio<span className="sr-only"> {hit.studio.name}</span>
         </Link>
-        <Link to={`/firings/${hit.firingId}/request`} className="rounded-control bg-clay-600 px-3 py-1.5 text-sm font-semibold text-white hover:bg-clay-700">
+        <Link
+          to={`/firings/${hit.firingId}/request`}
+          className="rounded-control bg-clay-600 px-3 py-1.5 text-sm font-semibold text-white hover:bg-clay-700"
+        >
           Request space<span className="sr-only"> at {hit.studio.name}</span>
         </Link>
       </div>

@@ -15,8 +15,20 @@ export function ResultList({ hits, units, selectedFiringId, onSelect, cardRef }:
   return (
     <ol className="space-y-3" aria-label="Firings found">
       {hits.map((hit) => (
-        <li key={hit.firingId} data-testid="search-result" data-firing-id={hit.firingId} data-studio-id={hit.studio.id} data-selected={hit.firingId === selectedFiringId}>
-          <ResultCard hit={hit} units={units} selected={hit.firingId === selectedFiringId} onSelect={() => onSelect(hit)} ref={(element) => cardRef(hit.firingId, element)} />
+        <li
+          key={hit.firingId}
+          data-testid="search-result"
+          data-firing-id={hit.firingId}
+          data-studio-id={hit.studio.id}
+          data-selected={hit.firingId === selectedFiringId}
+        >
+          <ResultCard
+            hit={hit}
+            units={units}
+            selected={hit.firingId === selectedFiringId}
+            onSelect={() => onSelect(hit)}
+            ref={(element) => cardRef(hit.firingId, element)}
+          />
         </li>
       ))}
     </ol>

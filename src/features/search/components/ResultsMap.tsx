@@ -24,7 +24,8 @@ export interface MapStudio {
 export function studiosOf(hits: readonly SearchHit[]): MapStudio[] {
   const seen = new Map<string, MapStudio>()
   for (const hit of hits) {
-    if (!seen.has(hit.studio.id)) seen.set(hit.studio.id, { id: hit.studio.id, name: hit.studio.name, position: [hit.studio.lat, hit.studio.lng] })
+    if (!seen.has(hit.studio.id))
+      seen.set(hit.studio.id, { id: hit.studio.id, name: hit.studio.name, position: [hit.studio.lat, hit.studio.lng] })
   }
   return [...seen.values()]
 }
@@ -62,7 +63,16 @@ interface ResultsMapProps {
  * view) are made without animation, so they are over by the time the call returns and are told
  * apart from the potter's own: only those offer "Search this area".
  */
-export function ResultsMap({ studios, selectedStudioId, onSelectStudio, fit, origin, radiusKm, onSearchArea, className = '' }: ResultsMapProps) {
+export function ResultsMap({
+  studios,
+  selectedStudioId,
+  onSelectStudio,
+  fit,
+  origin,
+  radiusKm,
+  onSearchArea,
+  className = '',
+}: ResultsMapProps) {
   const mapRef = useRef<LeafletMap | null>(null)
   const moving = useRef(false)
   const fittedKey = useRef<string | null>(null)
@@ -93,7 +103,8 @@ export function ResultsMap({ studios, selectedStudioId, onSelectStudio, fit, ori
     if (fit.origin) points.push(L.latLng(fit.origin.lat, fit.origin.lng))
     if (points.length === 0) return
     let bounds = L.latLngBounds(points)
-    if (fit.origin && fit.studios.length === 0 && fit.radiusKm) bounds = L.latLng(fit.origin.lat, fit.origin.lng).toBounds(fit.radiusKm * 2000)
+    if (fit.origin && fit.studios.length === 0 && fit.radiusKm)
+      bounds = L.latLng(fit.origin.lat, fit.origin.lng).toBounds(fit.radiusKm * 2000)
     moveMap((map) => {
       if (points.length === 1 && !(fit.origin && fit.studios.length === 0 && fit.radiusKm)) map.setView(points[0], 11, { animate: false })
       else map.fitBounds(bounds, { padding: FIT_PADDING, maxZoom: FIT_MAX_ZOOM, animate: false })

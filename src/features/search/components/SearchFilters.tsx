@@ -149,7 +149,13 @@ export function SearchFilters({ state, units, onUnitsChange, errors, facets, onS
   )
 
   return (
-    <form role="search" aria-label="Find a firing" noValidate onSubmit={onSubmit} className="rounded-card border border-slip-200 bg-white p-4 shadow-card">
+    <form
+      role="search"
+      aria-label="Find a firing"
+      noValidate
+      onSubmit={onSubmit}
+      className="rounded-card border border-slip-200 bg-white p-4 shadow-card"
+    >
       <div id={moreId} className="grid items-start gap-x-3 gap-y-3 sm:grid-cols-2 lg:grid-cols-6">
         <div className="sm:col-span-2">{placeField}</div>
         <button
@@ -163,7 +169,12 @@ export function SearchFilters({ state, units, onUnitsChange, errors, facets, onS
         </button>
         <Field className={more} label="Distance" hint={located ? undefined : 'Give a place first.'} error={errors.radiusKm}>
           {(control) => (
-            <Select {...control} disabled={!located} value={state.radiusKm ?? ''} onChange={(e) => searchWith({ radiusKm: e.target.value || undefined })}>
+            <Select
+              {...control}
+              disabled={!located}
+              value={state.radiusKm ?? ''}
+              onChange={(e) => searchWith({ radiusKm: e.target.value || undefined })}
+            >
               {distances.map((d) => (
                 <option key={d.km} value={d.km}>
                   {d.label}
@@ -174,7 +185,11 @@ export function SearchFilters({ state, units, onUnitsChange, errors, facets, onS
         </Field>
         <Field className={more} label="Cone" error={errors.cone}>
           {(control) => (
-            <Select {...control} value={coneLow} onChange={(e) => searchWith({ cone: joinCone(e.target.value, e.target.value ? coneHigh : '') })}>
+            <Select
+              {...control}
+              value={coneLow}
+              onChange={(e) => searchWith({ cone: joinCone(e.target.value, e.target.value ? coneHigh : '') })}
+            >
               <option value="">Any cone</option>
               {coneLow && !CONES.includes(coneLow) && <option value={coneLow}>{coneLow}</option>}
               {CONES.map((cone) => (
@@ -187,7 +202,12 @@ export function SearchFilters({ state, units, onUnitsChange, errors, facets, onS
         </Field>
         <Field className={more} label="Up to cone">
           {(control) => (
-            <Select {...control} disabled={!coneLow} value={coneHigh} onChange={(e) => searchWith({ cone: joinCone(coneLow, e.target.value) })}>
+            <Select
+              {...control}
+              disabled={!coneLow}
+              value={coneHigh}
+              onChange={(e) => searchWith({ cone: joinCone(coneLow, e.target.value) })}
+            >
               <option value="">{coneLow ? `Just cone ${coneLow}` : 'Pick a cone first'}</option>
               {coneHigh && !CONES.includes(coneHigh) && <option value={coneHigh}>{coneHigh}</option>}
               {CONES.map((cone) => (
@@ -205,14 +225,34 @@ export function SearchFilters({ state, units, onUnitsChange, errors, facets, onS
           {(control) => <TextInput {...control} type="date" value={draft.from} onChange={(e) => edit('from')(e.target.value)} />}
         </Field>
         <Field className={more} label="Drop off until" error={errors.to}>
-          {(control) => <TextInput {...control} type="date" value={draft.to} min={draft.from || undefined} onChange={(e) => edit('to')(e.target.value)} />}
+          {(control) => (
+            <TextInput
+              {...control}
+              type="date"
+              value={draft.to}
+              min={draft.from || undefined}
+              onChange={(e) => edit('to')(e.target.value)}
+            />
+          )}
         </Field>
         <Field label="Words" error={errors.q} className={`sm:col-span-2 ${more}`}>
-          {(control) => <TextInput {...control} type="search" placeholder="A studio, town or kiln" value={draft.q} onChange={(e) => edit('q')(e.target.value)} />}
+          {(control) => (
+            <TextInput
+              {...control}
+              type="search"
+              placeholder="A studio, town or kiln"
+              value={draft.q}
+              onChange={(e) => edit('q')(e.target.value)}
+            />
+          )}
         </Field>
         <Field className={more} label="Sort" error={errors.sort}>
           {(control) => (
-            <Select {...control} value={state.sort ?? (located ? 'distance' : 'soonest')} onChange={(e) => searchWith({ sort: e.target.value })}>
+            <Select
+              {...control}
+              value={state.sort ?? (located ? 'distance' : 'soonest')}
+              onChange={(e) => searchWith({ sort: e.target.value })}
+            >
               {SORT_CHOICES.map((choice) => (
                 <option key={choice.value} value={choice.value} disabled={choice.value === 'distance' && !located}>
                   {choice.label}
@@ -267,7 +307,14 @@ function UnitChoice({ value, onChange }: { value: UnitSystem; onChange: (units: 
       <div className="inline-flex rounded-control border border-slip-300 bg-white p-0.5">
         {UNIT_CHOICES.map((choice) => (
           <label key={choice.value} className="cursor-pointer">
-            <input type="radio" className="peer sr-only" name={name} value={choice.value} checked={value === choice.value} onChange={() => onChange(choice.value)} />
+            <input
+              type="radio"
+              className="peer sr-only"
+              name={name}
+              value={choice.value}
+              checked={value === choice.value}
+              onChange={() => onChange(choice.value)}
+            />
             <span className="block rounded-control px-3 py-1.5 text-sm font-medium text-slip-700 peer-checked:bg-clay-600 peer-checked:text-white peer-focus-visible:outline-2 peer-focus-visible:outline-offset-2 peer-focus-visible:outline-clay-500">
               {choice.label}
             </span>

@@ -12,12 +12,35 @@ import { Pagination } from '../components/Pagination'
 import { ResultList, ResultSkeletons } from '../components/ResultList'
 import { ResultsMap, studiosOf, type AreaSearch, type MapFit } from '../components/ResultsMap'
 import { SearchFilters } from '../components/SearchFilters'
-import { DEFAULT_RADIUS_KM, hasOrigin, readSearchState, searchProblems, searchString, whereKey, withFilters, type SearchState } from '../searchState'
+import {
+  DEFAULT_RADIUS_KM,
+  hasOrigin,
+  readSearchState,
+  searchProblems,
+  searchString,
+  whereKey,
+  withFilters,
+  type SearchState,
+} from '../searchState'
 import type { UnitSystem } from '../units'
 import { readerZone } from '../words'
 
 /** Messages the filters show beside themselves; anything else is said above the results. */
-const FILTER_FIELDS = new Set(['place', 'near', 'radiusKm', 'cone', 'atmosphere', 'kind', 'from', 'to', 'fitsHeightMm', 'fitsWidthMm', 'fitsDepthMm', 'q', 'sort'])
+const FILTER_FIELDS = new Set([
+  'place',
+  'near',
+  'radiusKm',
+  'cone',
+  'atmosphere',
+  'kind',
+  'from',
+  'to',
+  'fitsHeightMm',
+  'fitsWidthMm',
+  'fitsDepthMm',
+  'q',
+  'sort',
+])
 
 /** /find: open firings on a map and in a list, filtered by what the potter's ware needs. */
 export function FindFiringPage() {
@@ -74,12 +97,24 @@ export function FindFiringPage() {
 
   return (
     <>
-      <PageHeader title="Find a firing" lead="Open firings that can take your ware: the right cone and atmosphere, a drop-off date that suits, room for your piece." />
-      <SearchFilters state={state} units={units} onUnitsChange={setChosenUnits} errors={fieldErrors} facets={response?.facets} onSearch={onSearch} />
+      <PageHeader
+        title="Find a firing"
+        lead="Open firings that can take your ware: the right cone and atmosphere, a drop-off date that suits, room for your piece."
+      />
+      <SearchFilters
+        state={state}
+        units={units}
+        onUnitsChange={setChosenUnits}
+        errors={fieldErrors}
+        facets={response?.facets}
+        onSearch={onSearch}
+      />
 
       {response?.degraded && !search.isPlaceholderData && (
         <Alert tone="warning" className="mt-4" title="Search is running on a backup; results may be incomplete.">
-          <span data-testid="degraded-notice">Firings added in the last few minutes may be missing. Try again shortly for the full list.</span>
+          <span data-testid="degraded-notice">
+            Firings added in the last few minutes may be missing. Try again shortly for the full list.
+          </span>
         </Alert>
       )}
 
@@ -134,10 +169,20 @@ export function FindFiringPage() {
           {response === undefined ? (
             search.isPending && !problems && <ResultSkeletons />
           ) : response.hits.length === 0 ? (
-            search.isPlaceholderData ? <ResultSkeletons /> : <NoResults state={state} units={units} />
+            search.isPlaceholderData ? (
+              <ResultSkeletons />
+            ) : (
+              <NoResults state={state} units={units} />
+            )
           ) : (
             <div className={`space-y-4 transition-opacity ${search.isPlaceholderData ? 'opacity-60' : ''}`}>
-              <ResultList hits={response.hits} units={units} selectedFiringId={selected?.firingId ?? null} onSelect={selectHit} cardRef={cardRef} />
+              <ResultList
+                hits={response.hits}
+                units={units}
+                selectedFiringId={selected?.firingId ?? null}
+                onSelect={selectHit}
+                cardRef={cardRef}
+              />
               <Pagination state={state} total={response.total} page={response.page} perPage={response.perPage} onSearch={onSearch} />
             </div>
           )}

@@ -52,6 +52,9 @@ export function useAcceptInvite() {
   return useMutation({
     mutationFn: (token: string) => api<{ studioId: string }>('/api/invites/accept', { method: 'POST', body: { token } }),
     onSuccess: () =>
-      Promise.all([queryClient.invalidateQueries({ queryKey: authKeys.me }), queryClient.invalidateQueries({ queryKey: studioKeys.mine() })]),
+      Promise.all([
+        queryClient.invalidateQueries({ queryKey: authKeys.me }),
+        queryClient.invalidateQueries({ queryKey: studioKeys.mine() }),
+      ]),
   })
 }

@@ -2,7 +2,12 @@
 import type { PublicStudioJson, StudioJson, StudioRole } from '../../../../shared/api/studios'
 
 export type { StudioRole, ExamplePrice } from '../../../../shared/api/studios'
-export type { PublicStudioJson as PublicStudio, KilnJson as KilnRecord, KilnWithPricesJson as KilnWithPrices, FiringJson as FiringRecord } from '../../../../shared/api/studios'
+export type {
+  PublicStudioJson as PublicStudio,
+  KilnJson as KilnRecord,
+  KilnWithPricesJson as KilnWithPrices,
+  FiringJson as FiringRecord,
+} from '../../../../shared/api/studios'
 
 /** What the studio's own people see: the public side plus the street address and their role. */
 export interface MemberStudio extends StudioJson {

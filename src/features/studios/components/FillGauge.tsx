@@ -6,7 +6,12 @@ import { formatLitres, formatSpace, type UnitSystem } from '../../../lib/units'
 export function FillGauge({ firing, units }: { firing: Pick<FiringRecord, 'heldL' | 'capacityL' | 'spaceLeftL'>; units: UnitSystem }) {
   return (
     <div className="min-w-40 space-y-1">
-      <Gauge value={firing.heldL} max={firing.capacityL} label="Space held" valueText={`${formatLitres(firing.heldL)} of ${formatLitres(firing.capacityL)} held`} />
+      <Gauge
+        value={firing.heldL}
+        max={firing.capacityL}
+        label="Space held"
+        valueText={`${formatLitres(firing.heldL)} of ${formatLitres(firing.capacityL)} held`}
+      />
       <p className="text-xs text-slip-600">
         <span data-testid="space-left" className="font-semibold text-slip-800">
           {formatSpace(firing.spaceLeftL, units)} left

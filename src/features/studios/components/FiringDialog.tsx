@@ -39,7 +39,12 @@ export function FiringDialog({ firing, kilnName, zone, units, onClose }: FiringD
       title={firing ? firingInWords(firing) : ''}
       description={firing ? `${kilnName} · fires ${formatDateTime(firing.firingDate, zone)}` : undefined}
     >
-      {firing && (cancelling ? <CancelFiring firing={firing} onDone={() => setCancelling(false)} /> : <FiringDetails firing={firing} zone={zone} units={units} onCancel={() => setCancelling(true)} />)}
+      {firing &&
+        (cancelling ? (
+          <CancelFiring firing={firing} onDone={() => setCancelling(false)} />
+        ) : (
+          <FiringDetails firing={firing} zone={zone} units={units} onCancel={() => setCancelling(true)} />
+        ))}
     </Dialog>
   )
 }
@@ -79,7 +84,11 @@ function FiringDetails({ firing, zone, units, onCancel }: { firing: FiringRecord
       </dl>
       {firing.status !== 'cancelled' && (
         <div className="flex flex-wrap items-center gap-3 rounded-control border border-slip-200 bg-slip-50 p-3">
-          <p className="flex-1 text-sm text-slip-700">{wareIsLoaded(firing.status) ? 'Times, peak and witness cones for every potter in this firing.' : 'The log of the firing and the requests in it, from check-in to results.'}</p>
+          <p className="flex-1 text-sm text-slip-700">
+            {wareIsLoaded(firing.status)
+              ? 'Times, peak and witness cones for every potter in this firing.'
+              : 'The log of the firing and the requests in it, from check-in to results.'}
+          </p>
           <ButtonLink to={`/firings/${firing.id}/log`} variant="secondary" size="sm">
             Firing log
           </ButtonLink>
@@ -90,14 +99,20 @@ function FiringDetails({ firing, zone, units, onCancel }: { firing: FiringRecord
           <p className="text-sm font-medium text-slip-800">Move this firing on</p>
           <FiringStatusButtons firing={firing}>
             {canCancel && (
-              <button type="button" onClick={onCancel} className="rounded-control px-3 py-1.5 text-sm font-semibold text-danger-700 hover:bg-danger-50">
+              <button
+                type="button"
+                onClick={onCancel}
+                className="rounded-control px-3 py-1.5 text-sm font-semibold text-danger-700 hover:bg-danger-50"
+              >
                 Cancel this firing…
               </button>
             )}
           </FiringStatusButtons>
         </div>
       ) : (
-        <p className="text-sm text-slip-600">This firing is {firing.status === 'cancelled' ? 'cancelled' : 'done'}; nothing more to change.</p>
+        <p className="text-sm text-slip-600">
+          This firing is {firing.status === 'cancelled' ? 'cancelled' : 'done'}; nothing more to change.
+        </p>
       )}
     </div>
   )
@@ -116,7 +131,9 @@ function CancelFiring({ firing, onDone }: { firing: FiringRecord; onDone: () => 
     return (
       <div className="space-y-3">
         <Alert tone="success" title="Firing cancelled">
-          {told === 0 ? 'No requests were holding space in it.' : `${told} ${told === 1 ? 'request was' : 'requests were'} cancelled; the potters are told by mail.`}
+          {told === 0
+            ? 'No requests were holding space in it.'
+            : `${told} ${told === 1 ? 'request was' : 'requests were'} cancelled; the potters are told by mail.`}
         </Alert>
         <Button variant="secondary" onClick={onDone}>
           Back to the firing
@@ -140,7 +157,11 @@ function CancelFiring({ firing, onDone }: { firing: FiringRecord; onDone: () => 
           : 'No space is held yet, but anyone with a request in this firing gets a mail with your reason.'}
       </Alert>
       {formError && <Alert tone="danger">{formError}</Alert>}
-      <Field label="Why is it cancelled?" hint="Potters read this, e.g. “An element failed; the next firing is on the 14th.”" error={formState.errors.reason?.message}>
+      <Field
+        label="Why is it cancelled?"
+        hint="Potters read this, e.g. “An element failed; the next firing is on the 14th.”"
+        error={formState.errors.reason?.message}
+      >
         {(a11y) => <TextArea {...a11y} rows={3} {...register('reason')} />}
       </Field>
       <div className="flex flex-wrap justify-end gap-2">

@@ -183,7 +183,16 @@ export function FiringForm({ studioId, zone, kilns, units, onCreated, onCancel }
               )}
             </Field>
             <Field label="How many firings" error={errors.repeat?.times?.message}>
-              {(a11y) => <TextInput {...a11y} type="number" min={2} max={26} inputMode="numeric" {...register('repeat.times', { valueAsNumber: true })} />}
+              {(a11y) => (
+                <TextInput
+                  {...a11y}
+                  type="number"
+                  min={2}
+                  max={26}
+                  inputMode="numeric"
+                  {...register('repeat.times', { valueAsNumber: true })}
+                />
+              )}
             </Field>
           </div>
         )}

@@ -61,7 +61,11 @@ function bodyOf(values: LogValues) {
     peakC: number(values.peakC),
     finalRateCPerHour: number(values.finalRateCPerHour),
     holdMinutes: number(values.holdMinutes),
-    witnessCones: values.witnessCones.map((c) => ({ cone: c.cone, bend: c.bend, ...(c.position.trim() ? { position: c.position.trim() } : {}) })),
+    witnessCones: values.witnessCones.map((c) => ({
+      cone: c.cone,
+      bend: c.bend,
+      ...(c.position.trim() ? { position: c.position.trim() } : {}),
+    })),
     notes: values.notes.trim(),
   }
 }
@@ -99,7 +103,8 @@ export function FiringLogForm({ firingId, log, zone, units }: FiringLogFormProps
     if (!parsed.success) {
       for (const issue of parsed.error.issues) {
         // A number field holding text reaches the schema as NaN; say so in words.
-        const message = issue.code === 'invalid_type' && NUMBER_FIELDS.has(String(issue.path[0])) ? 'Enter a number, or leave it empty.' : issue.message
+        const message =
+          issue.code === 'invalid_type' && NUMBER_FIELDS.has(String(issue.path[0])) ? 'Enter a number, or leave it empty.' : issue.message
         setError(issue.path.join('.') as Path<LogValues>, { type: 'schema', message })
       }
       setFormError('Check the fields marked in red.')
@@ -138,8 +143,23 @@ export function FiringLogForm({ firingId, log, zone, units }: FiringLogFormProps
 
       <FormSection title="Heat" lead="From the controller or the pyrometer.">
         <div className="grid gap-4 sm:grid-cols-3">
-          <MeasureField control={control} name="peakC" label="Peak temperature" measure={temperatureMeasure(units)} units={units} empty={null} />
-          <MeasureField control={control} name="finalRateCPerHour" label="Final rate" measure={rateMeasure(units)} units={units} empty={null} hint={units === 'metric' ? 'Over the last 100 °C.' : 'Over the last 180 °F.'} />
+          <MeasureField
+            control={control}
+            name="peakC"
+            label="Peak temperature"
+            measure={temperatureMeasure(units)}
+            units={units}
+            empty={null}
+          />
+          <MeasureField
+            control={control}
+            name="finalRateCPerHour"
+            label="Final rate"
+            measure={rateMeasure(units)}
+            units={units}
+            empty={null}
+            hint={units === 'metric' ? 'Over the last 100 °C.' : 'Over the last 180 °F.'}
+          />
           <MeasureField control={control} name="holdMinutes" label="Hold at peak (minutes)" measure={COUNT} units={units} empty={null} />
         </div>
       </FormSection>
@@ -148,9 +168,18 @@ export function FiringLogForm({ firingId, log, zone, units }: FiringLogFormProps
         <div className="space-y-3">
           {cones.fields.length === 0 && <p className="text-sm text-slip-600">No cones yet. Add one row per cone in each pack.</p>}
           {cones.fields.map((field, index) => (
-            <fieldset key={field.id} className="grid gap-3 rounded-control border border-slip-200 p-3 sm:grid-cols-[8rem_1fr_1fr_auto] sm:items-end" data-testid="witness-cone-row">
+            <fieldset
+              key={field.id}
+              className="grid gap-3 rounded-control border border-slip-200 p-3 sm:grid-cols-[8rem_1fr_1fr_auto] sm:items-end"
+              data-testid="witness-cone-row"
+            >
               <legend className="sr-only">Witness cone {index + 1}</legend>
-              <ConeField register={register} name={`witnessCones.${index}.cone`} label="Cone" error={formState.errors.witnessCones?.[index]?.cone?.message} />
+              <ConeField
+                register={register}
+                name={`witnessCones.${index}.cone`}
+                label="Cone"
+                error={formState.errors.witnessCones?.[index]?.cone?.message}
+              />
               <Field label="How far it bent" error={formState.errors.witnessCones?.[index]?.bend?.message}>
                 {(a11y) => (
                   <Select {...a11y} {...register(`witnessCones.${index}.bend`)}>
@@ -163,7 +192,9 @@ export function FiringLogForm({ firingId, log, zone, units }: FiringLogFormProps
                 )}
               </Field>
               <Field label="Where it stood" error={formState.errors.witnessCones?.[index]?.position?.message}>
-                {(a11y) => <TextInput {...a11y} placeholder="Top shelf, back" maxLength={80} {...register(`witnessCones.${index}.position`)} />}
+                {(a11y) => (
+                  <TextInput {...a11y} placeholder="Top shelf, back" maxLength={80} {...register(`witnessCones.${index}.position`)} />
+                )}
               </Field>
               <Button variant="ghost" size="sm" onClick={() => cones.remove(index)} aria-label={`Remove witness cone ${index + 1}`}>
                 Remove
@@ -178,7 +209,10 @@ export function FiringLogForm({ firingId, log, zone, units }: FiringLogFormProps
       </FormSection>
 
       <FormSection title="Notes">
-        <Field label="Notes on the firing" hint="Every potter in this firing reads them: anything unusual, a shelf that ran hot, a slow climb.">
+        <Field
+          label="Notes on the firing"
+          hint="Every potter in this firing reads them: anything unusual, a shelf that ran hot, a slow climb."
+        >
           {(a11y) => <TextArea {...a11y} rows={3} maxLength={4000} {...register('notes')} />}
         </Field>
       </FormSection>
@@ -189,7 +223,9 @@ export function FiringLogForm({ firingId, log, zone, units }: FiringLogFormProps
           <Button type="submit" busy={formState.isSubmitting}>
             Save the log
           </Button>
-          {saved && !formState.isDirty && <span className="text-sm text-celadon-700">Saved. Every potter in the firing sees it on their request.</span>}
+          {saved && !formState.isDirty && (
+            <span className="text-sm text-celadon-700">Saved. Every potter in the firing sees it on their request.</span>
+          )}
           {formState.isDirty && <span className="text-sm text-slip-600">Changes not saved yet.</span>}
         </div>
       </div>

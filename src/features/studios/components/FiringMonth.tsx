@@ -5,7 +5,8 @@ import { FiringStatusBadge } from './FiringStatusBadge'
 
 const WEEKDAYS = ['Sun', 'Mon', 'Tue', 'Wed', 'Thu', 'Fri', 'Sat']
 
-const time = (iso: string, zone: string) => new Intl.DateTimeFormat('en-US', { timeZone: zone, hour: 'numeric', minute: '2-digit' }).format(new Date(iso))
+const time = (iso: string, zone: string) =>
+  new Intl.DateTimeFormat('en-US', { timeZone: zone, hour: 'numeric', minute: '2-digit' }).format(new Date(iso))
 
 interface FiringMonthProps {
   grid: MonthGrid
@@ -46,7 +47,11 @@ export function FiringMonth({ grid, firings, zone, kilnName, onOpen, today }: Fi
           <thead>
             <tr>
               {WEEKDAYS.map((day) => (
-                <th key={day} scope="col" className="border-b border-slip-200 bg-slip-50 py-2 text-xs font-semibold uppercase tracking-wide text-slip-600">
+                <th
+                  key={day}
+                  scope="col"
+                  className="border-b border-slip-200 bg-slip-50 py-2 text-xs font-semibold uppercase tracking-wide text-slip-600"
+                >
                   {day}
                 </th>
               ))}
@@ -56,8 +61,15 @@ export function FiringMonth({ grid, firings, zone, kilnName, onOpen, today }: Fi
             {grid.weeks.map((week) => (
               <tr key={week[0].key}>
                 {week.map((day) => (
-                  <td key={day.key} className={`h-28 border border-slip-100 p-1 align-top ${day.inMonth ? '' : 'bg-slip-50 text-slip-400'}`}>
-                    <span className={`mb-1 inline-flex size-6 items-center justify-center rounded-full text-xs font-semibold ${day.key === today ? 'bg-clay-600 text-white' : ''}`}>{day.day}</span>
+                  <td
+                    key={day.key}
+                    className={`h-28 border border-slip-100 p-1 align-top ${day.inMonth ? '' : 'bg-slip-50 text-slip-400'}`}
+                  >
+                    <span
+                      className={`mb-1 inline-flex size-6 items-center justify-center rounded-full text-xs font-semibold ${day.key === today ? 'bg-clay-600 text-white' : ''}`}
+                    >
+                      {day.day}
+                    </span>
                     <div className="space-y-1">{(byDay.get(day.key) ?? []).map(chip)}</div>
                   </td>
                 ))}
@@ -68,11 +80,17 @@ export function FiringMonth({ grid, firings, zone, kilnName, onOpen, today }: Fi
       </div>
       <div className="space-y-3 sm:hidden">
         {daysWithFirings.length === 0 ? (
-          <p className="rounded-card border border-dashed border-slip-300 bg-slip-50 px-4 py-6 text-center text-sm text-slip-600">No firings in {grid.title}.</p>
+          <p className="rounded-card border border-dashed border-slip-300 bg-slip-50 px-4 py-6 text-center text-sm text-slip-600">
+            No firings in {grid.title}.
+          </p>
         ) : (
           daysWithFirings.map((day) => (
             <div key={day.key}>
-              <p className="mb-1 text-sm font-semibold">{new Intl.DateTimeFormat('en-US', { timeZone: zone, weekday: 'long', month: 'short', day: 'numeric' }).format(new Date(byDay.get(day.key)![0].firingDate))}</p>
+              <p className="mb-1 text-sm font-semibold">
+                {new Intl.DateTimeFormat('en-US', { timeZone: zone, weekday: 'long', month: 'short', day: 'numeric' }).format(
+                  new Date(byDay.get(day.key)![0].firingDate),
+                )}
+              </p>
               <div className="space-y-1">
                 {byDay.get(day.key)!.map((firing) => (
                   <div key={firing.id} className="flex items-center gap-2">

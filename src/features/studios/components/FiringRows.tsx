@@ -23,7 +23,12 @@ export function FiringRows({ firings, kilnName, zone, units, onOpen, extra }: Fi
   return (
     <ul className="divide-y divide-slip-200 rounded-card border border-slip-200 bg-white">
       {firings.map((firing) => (
-        <li key={firing.id} data-testid="firing-row" data-firing-id={firing.id} className="grid gap-3 px-4 py-3 sm:grid-cols-[1fr_12rem_auto] sm:items-center">
+        <li
+          key={firing.id}
+          data-testid="firing-row"
+          data-firing-id={firing.id}
+          className="grid gap-3 px-4 py-3 sm:grid-cols-[1fr_12rem_auto] sm:items-center"
+        >
           <div>
             <p className="font-medium text-slip-900">{formatDateTime(firing.firingDate, zone)}</p>
             <p className="text-sm text-slip-600">
@@ -36,7 +41,12 @@ export function FiringRows({ firings, kilnName, zone, units, onOpen, extra }: Fi
             <FiringStatusBadge status={firing.status} />
             {extra?.(firing)}
             {onOpen && (
-              <Button variant="secondary" size="sm" onClick={() => onOpen(firing)} aria-label={`Manage the firing on ${formatDateTime(firing.firingDate, zone)}`}>
+              <Button
+                variant="secondary"
+                size="sm"
+                onClick={() => onOpen(firing)}
+                aria-label={`Manage the firing on ${formatDateTime(firing.firingDate, zone)}`}
+              >
                 Manage
               </Button>
             )}

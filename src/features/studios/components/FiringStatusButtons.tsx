@@ -20,7 +20,8 @@ export const STATUS_ACTIONS: Record<Move, string> = {
 
 /** What a move does to the requests in the firing, said before it is made. */
 const CONSEQUENCES: Partial<Record<Move, string>> = {
-  loading: 'Requests whose ware was never dropped off lapse as no-shows and are refunded under your terms. The firing can only move forward after this.',
+  loading:
+    'Requests whose ware was never dropped off lapse as no-shows and are refunded under your terms. The firing can only move forward after this.',
   unloaded: 'Every checked-in request is marked fired, and each potter gets a mail. Post results on each request next.',
 }
 

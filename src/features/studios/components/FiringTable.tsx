@@ -55,10 +55,24 @@ export function FiringTable({ firings, kilns, zone, units, onOpen }: FiringTable
           </>
         ),
       }),
-      helper.accessor('kilnId', { header: 'Kiln', enableSorting: false, filterFn: 'equalsString', cell: ({ row }) => kilnName(row.original.kilnId) }),
+      helper.accessor('kilnId', {
+        header: 'Kiln',
+        enableSorting: false,
+        filterFn: 'equalsString',
+        cell: ({ row }) => kilnName(row.original.kilnId),
+      }),
       helper.display({ id: 'firing', header: 'Firing', cell: ({ row }) => firingInWords(row.original) }),
-      helper.accessor('spaceLeftL', { header: 'Space', sortFn: 'basic', cell: ({ row }) => <FillGauge firing={row.original} units={units} /> }),
-      helper.accessor('status', { header: 'Status', enableSorting: false, filterFn: 'equalsString', cell: ({ row }) => <FiringStatusBadge status={row.original.status} /> }),
+      helper.accessor('spaceLeftL', {
+        header: 'Space',
+        sortFn: 'basic',
+        cell: ({ row }) => <FillGauge firing={row.original} units={units} />,
+      }),
+      helper.accessor('status', {
+        header: 'Status',
+        enableSorting: false,
+        filterFn: 'equalsString',
+        cell: ({ row }) => <FiringStatusBadge status={row.original.status} />,
+      }),
       helper.display({
         id: 'open',
         header: () => <span className="sr-only">Open</span>,
@@ -118,7 +132,11 @@ export function FiringTable({ firings, kilns, zone, units, onOpen }: FiringTable
               {group.headers.map((header) => (
                 <Th
                   key={header.id}
-                  sort={header.column.getCanSort() ? { direction: header.column.getIsSorted(), onToggle: () => header.column.toggleSorting() } : undefined}
+                  sort={
+                    header.column.getCanSort()
+                      ? { direction: header.column.getIsSorted(), onToggle: () => header.column.toggleSorting() }
+                      : undefined
+                  }
                 >
                   {header.isPlaceholder ? null : <table.FlexRender header={header} />}
                 </Th>

@@ -110,7 +110,11 @@ export function KilnForm({ defaultValues, initialUnits, submitLabel, onSubmit, r
                 <Checkbox key={a.value} label={a.label} value={a.value} {...register('atmospheres')} />
               ))}
             </div>
-            {errors.atmospheres && <p className="mt-1 text-xs font-medium text-danger-700" role="alert">{errors.atmospheres.message ?? errors.atmospheres.root?.message}</p>}
+            {errors.atmospheres && (
+              <p className="mt-1 text-xs font-medium text-danger-700" role="alert">
+                {errors.atmospheres.message ?? errors.atmospheres.root?.message}
+              </p>
+            )}
           </fieldset>
         </Card>
 
@@ -145,10 +149,28 @@ export function KilnForm({ defaultValues, initialUnits, submitLabel, onSubmit, r
           </div>
           <div className="mt-4 grid gap-4 sm:grid-cols-3">
             <Field label="Shelves" error={errors.shelfCount?.message}>
-              {(a11y) => <TextInput {...a11y} type="number" min={0} inputMode="numeric" {...register('shelfCount', { valueAsNumber: true })} />}
+              {(a11y) => (
+                <TextInput {...a11y} type="number" min={0} inputMode="numeric" {...register('shelfCount', { valueAsNumber: true })} />
+              )}
             </Field>
-            <MeasureField control={control} name="shelfWidthMm" label="Shelf width" measure={length} units={units} empty={null} hint="Optional." />
-            <MeasureField control={control} name="shelfDepthMm" label="Shelf depth" measure={length} units={units} empty={null} hint="Optional; the diameter for round shelves." />
+            <MeasureField
+              control={control}
+              name="shelfWidthMm"
+              label="Shelf width"
+              measure={length}
+              units={units}
+              empty={null}
+              hint="Optional."
+            />
+            <MeasureField
+              control={control}
+              name="shelfDepthMm"
+              label="Shelf depth"
+              measure={length}
+              units={units}
+              empty={null}
+              hint="Optional; the diameter for round shelves."
+            />
           </div>
         </Card>
 
@@ -166,7 +188,14 @@ export function KilnForm({ defaultValues, initialUnits, submitLabel, onSubmit, r
             <Field label="Hottest cone" hint="e.g. 6 or 10" error={errors.maxCone?.message}>
               {(a11y) => <TextInput {...a11y} list="kiln-cones" autoComplete="off" {...register('maxCone')} />}
             </Field>
-            <MeasureField control={control} name="maxTempC" label="Top temperature" measure={temperatureMeasure(units)} units={units} hint="From the kiln’s plate or manual." />
+            <MeasureField
+              control={control}
+              name="maxTempC"
+              label="Top temperature"
+              measure={temperatureMeasure(units)}
+              units={units}
+              hint="From the kiln’s plate or manual."
+            />
             <MeasureField control={control} name="maxRampCPerHour" label="Fastest climb" measure={rateMeasure(units)} units={units} />
           </div>
           <div className="mt-4 grid gap-2 sm:grid-cols-2">
@@ -181,7 +210,11 @@ export function KilnForm({ defaultValues, initialUnits, submitLabel, onSubmit, r
         </Card>
 
         <Card>
-          <Field label="Notes" hint="Anything potters should know: elements replaced last spring, kiln wash on every shelf…" error={errors.notes?.message}>
+          <Field
+            label="Notes"
+            hint="Anything potters should know: elements replaced last spring, kiln wash on every shelf…"
+            error={errors.notes?.message}
+          >
             {(a11y) => <TextArea {...a11y} rows={3} {...register('notes')} />}
           </Field>
         </Card>

@@ -63,7 +63,11 @@ interface PriceListFormProps {
 /** How the kiln's space is priced, with the reference pieces quoted live as the fields change. */
 export function PriceListForm({ kiln, priceList, currency, units, readOnly, onSave }: PriceListFormProps) {
   const [volumeUnit, setVolumeUnit] = useState<VolumeUnit>(
-    priceList?.centsPerLitre !== undefined ? 'litre' : priceList?.centsPerCubicInch !== undefined || units === 'imperial' ? 'cubicInch' : 'litre',
+    priceList?.centsPerLitre !== undefined
+      ? 'litre'
+      : priceList?.centsPerCubicInch !== undefined || units === 'imperial'
+        ? 'cubicInch'
+        : 'litre',
   )
   const [depositKind, setDepositKind] = useState<'percent' | 'fixed'>(priceList && 'fixedCents' in priceList.deposit ? 'fixed' : 'percent')
   const [formError, setFormError] = useState<string | null>(null)
@@ -110,7 +114,9 @@ export function PriceListForm({ kiln, priceList, currency, units, readOnly, onSa
             Crew can see this price list but not change it; the server refuses changes from anyone but the studio’s owner.
           </Alert>
         )}
-        {!priceList && !readOnly && <Alert tone="info">This kiln has no prices yet, so potters cannot see what a firing costs. Set them here.</Alert>}
+        {!priceList && !readOnly && (
+          <Alert tone="info">This kiln has no prices yet, so potters cannot see what a firing costs. Set them here.</Alert>
+        )}
         {formError && <Alert tone="danger">{formError}</Alert>}
         <div className="grid gap-4 sm:grid-cols-2">
           <Field label="Price by" error={errors.model?.message}>
@@ -145,7 +151,14 @@ export function PriceListForm({ kiln, priceList, currency, units, readOnly, onSa
               )}
             </Field>
             {volumeUnit === 'cubicInch' ? (
-              <MeasureField control={control} name="centsPerCubicInch" label="Price per cubic inch" measure={rate} units={units} hint="Often a few cents: 0.04 is 4 ¢." />
+              <MeasureField
+                control={control}
+                name="centsPerCubicInch"
+                label="Price per cubic inch"
+                measure={rate}
+                units={units}
+                hint="Often a few cents: 0.04 is 4 ¢."
+              />
             ) : (
               <MeasureField control={control} name="centsPerLitre" label="Price per litre" measure={rate} units={units} />
             )}
@@ -168,8 +181,17 @@ export function PriceListForm({ kiln, priceList, currency, units, readOnly, onSa
             </Field>
           </div>
         )}
-        {model === 'kiln' && <MeasureField control={control} name="kilnCents" label="Price of the whole kiln" measure={money} units={units} />}
-        <MeasureField control={control} name="minimumPerPieceCents" label="Minimum per piece" measure={money} units={units} hint="Optional: the least a piece costs, however small." />
+        {model === 'kiln' && (
+          <MeasureField control={control} name="kilnCents" label="Price of the whole kiln" measure={money} units={units} />
+        )}
+        <MeasureField
+          control={control}
+          name="minimumPerPieceCents"
+          label="Minimum per piece"
+          measure={money}
+          units={units}
+          hint="Optional: the least a piece costs, however small."
+        />
         <fieldset>
           <legend className="mb-2 text-sm font-medium text-slip-800">Surcharges, as a percent of the price (optional)</legend>
           <div className="grid gap-4 sm:grid-cols-3">

@@ -18,7 +18,11 @@ export function StudioCreateForm({ onCreated }: { onCreated: (studio: MemberStud
   const create = useCreateStudio()
   const [byAddress, setByAddress] = useState(false)
   const [formError, setFormError] = useState<string | null>(null)
-  const { register, handleSubmit, setError, setValue, formState } = useForm<StudioCreateInput, unknown, z.output<typeof studioCreateSchema>>({
+  const { register, handleSubmit, setError, setValue, formState } = useForm<
+    StudioCreateInput,
+    unknown,
+    z.output<typeof studioCreateSchema>
+  >({
     resolver: zodResolver(studioCreateSchema),
   })
 
@@ -38,12 +42,28 @@ export function StudioCreateForm({ onCreated }: { onCreated: (studio: MemberStud
         {(a11y) => <TextInput {...a11y} autoComplete="organization" {...register('name')} />}
       </Field>
       {byAddress ? (
-        <Field label="Street address" hint="With the town and state, or the ZIP code." error={formState.errors.address?.message ?? formState.errors.postalCode?.message}>
+        <Field
+          label="Street address"
+          hint="With the town and state, or the ZIP code."
+          error={formState.errors.address?.message ?? formState.errors.postalCode?.message}
+        >
           {(a11y) => <TextInput {...a11y} autoComplete="street-address" {...register('address', { setValueAs: emptyToUndefined })} />}
         </Field>
       ) : (
-        <Field label="Postal code" hint="Puts the studio on the map; you can move the pin afterwards." error={formState.errors.postalCode?.message}>
-          {(a11y) => <TextInput {...a11y} autoComplete="postal-code" inputMode="text" className="max-w-40" {...register('postalCode', { setValueAs: emptyToUndefined })} />}
+        <Field
+          label="Postal code"
+          hint="Puts the studio on the map; you can move the pin afterwards."
+          error={formState.errors.postalCode?.message}
+        >
+          {(a11y) => (
+            <TextInput
+              {...a11y}
+              autoComplete="postal-code"
+              inputMode="text"
+              className="max-w-40"
+              {...register('postalCode', { setValueAs: emptyToUndefined })}
+            />
+          )}
         </Field>
       )}
       <button

@@ -12,9 +12,20 @@ export function RatingSummary({ studioId }: { studioId: string }) {
   const ratings = useStudioRatings(studioId)
   if (!ratings.data) return null
   const { mean, count: n } = ratings.data.summary
-  if (mean === null || n === 0) return <p className="text-sm text-slip-500" data-testid="rating-summary" data-count={0}>No ratings yet</p>
+  if (mean === null || n === 0)
+    return (
+      <p className="text-sm text-slip-500" data-testid="rating-summary" data-count={0}>
+        No ratings yet
+      </p>
+    )
   return (
-    <a href="#ratings-heading" className="inline-flex items-center gap-2 text-sm text-slip-800 hover:underline" data-testid="rating-summary" data-count={n} data-mean={mean}>
+    <a
+      href="#ratings-heading"
+      className="inline-flex items-center gap-2 text-sm text-slip-800 hover:underline"
+      data-testid="rating-summary"
+      data-count={n}
+      data-mean={mean}
+    >
       <StarsShown value={mean} />
       <span>
         <strong className="font-semibold">{mean.toFixed(1)}</strong> · {count(n)}
@@ -51,7 +62,11 @@ function RatingCard({ rating, zone }: { rating: PublicRating; zone: string }) {
           ))}
         </p>
       )}
-      {rating.text && <p className="whitespace-pre-line text-sm text-slip-800" data-testid="rating-text">{rating.text}</p>}
+      {rating.text && (
+        <p className="whitespace-pre-line text-sm text-slip-800" data-testid="rating-text">
+          {rating.text}
+        </p>
+      )}
       {rating.reply && (
         <div className="border-l-4 border-clay-200 pl-3">
           <p className="text-xs font-semibold text-slip-600">The studio’s reply</p>
@@ -97,8 +112,18 @@ export function StudioRatings({ studioId, zone }: { studioId: string; zone: stri
           <ul className="grid grid-cols-3 gap-2 sm:grid-cols-6" data-testid="studio-result-photos">
             {photos.data.photos.map((photo) => (
               <li key={photo.id}>
-                <a href={photo.url} target="_blank" rel="noreferrer" className="block overflow-hidden rounded-control border border-slip-200">
-                  <img src={photo.thumbUrl} alt="A fired piece from this studio" loading="lazy" className="aspect-square w-full object-cover" />
+                <a
+                  href={photo.url}
+                  target="_blank"
+                  rel="noreferrer"
+                  className="block overflow-hidden rounded-control border border-slip-200"
+                >
+                  <img
+                    src={photo.thumbUrl}
+                    alt="A fired piece from this studio"
+                    loading="lazy"
+                    className="aspect-square w-full object-cover"
+                  />
                 </a>
               </li>
             ))}

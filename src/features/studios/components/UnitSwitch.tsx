@@ -15,7 +15,14 @@ export function UnitSwitch({ value, onChange }: { value: UnitSystem; onChange: (
       <div className="inline-flex rounded-control border border-slip-300 bg-white p-0.5">
         {CHOICES.map((choice) => (
           <label key={choice.value} className="cursor-pointer">
-            <input type="radio" className="peer sr-only" name={name} value={choice.value} checked={value === choice.value} onChange={() => onChange(choice.value)} />
+            <input
+              type="radio"
+              className="peer sr-only"
+              name={name}
+              value={choice.value}
+              checked={value === choice.value}
+              onChange={() => onChange(choice.value)}
+            />
             <span className="block rounded-control px-3 py-1 text-sm font-medium text-slip-700 peer-checked:bg-clay-600 peer-checked:text-white peer-focus-visible:outline-2 peer-focus-visible:outline-offset-2 peer-focus-visible:outline-clay-500">
               {choice.label}
             </span>

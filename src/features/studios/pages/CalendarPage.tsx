@@ -64,7 +64,10 @@ function Calendar({ studio }: { studio: MemberStudio }) {
 
   const grid = useMemo(() => monthGrid(month, zone), [month, zone])
   const range = useMemo(
-    () => (view === 'month' ? { from: grid.from, to: grid.to, includeCancelled: true } : { from: showPast ? undefined : now.toISOString(), includeCancelled: true }),
+    () =>
+      view === 'month'
+        ? { from: grid.from, to: grid.to, includeCancelled: true }
+        : { from: showPast ? undefined : now.toISOString(), includeCancelled: true },
     [view, grid, showPast, now],
   )
   const kilns = useStudioKilns(studio.id)
@@ -157,7 +160,13 @@ function Calendar({ studio }: { studio: MemberStudio }) {
           }}
         />
       </Dialog>
-      <FiringDialog firing={dialog.selected} kilnName={dialog.selected ? kilnName(dialog.selected.kilnId) : ''} zone={zone} units={units} onClose={dialog.close} />
+      <FiringDialog
+        firing={dialog.selected}
+        kilnName={dialog.selected ? kilnName(dialog.selected.kilnId) : ''}
+        zone={zone}
+        units={units}
+        onClose={dialog.close}
+      />
     </>
   )
 }

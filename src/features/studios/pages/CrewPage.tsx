@@ -66,7 +66,10 @@ function Crew({ studio }: { studio: MemberStudio }) {
 
   return (
     <>
-      <PageHeader title="Crew" lead={`${studio.name}. Crew post firings and move them along; prices, kilns’ limits, policies and members stay with you.`} />
+      <PageHeader
+        title="Crew"
+        lead={`${studio.name}. Crew post firings and move them along; prices, kilns’ limits, policies and members stay with you.`}
+      />
       <StudioNav studioId={studio.id} role="owner" />
       <div className="grid gap-6 lg:grid-cols-[1fr_22rem]">
         <div className="space-y-6">
@@ -96,13 +99,18 @@ function Crew({ studio }: { studio: MemberStudio }) {
                     {crew.data.members.map((member) => (
                       <tr key={member.id} data-testid="crew-member">
                         <Td>
-                          <span className="font-medium">{member.displayName}</span> {member.role === 'owner' && <Badge tone="clay">Owner</Badge>}
+                          <span className="font-medium">{member.displayName}</span>{' '}
+                          {member.role === 'owner' && <Badge tone="clay">Owner</Badge>}
                         </Td>
                         <Td className="break-all">{member.email}</Td>
                         <Td className="whitespace-nowrap">{formatDate(member.since, zone)}</Td>
                         <Td className="text-right">
                           {member.role !== 'owner' && (
-                            <button type="button" onClick={() => setRemoving(member)} className="rounded-control px-3 py-1.5 text-sm font-semibold text-danger-700 hover:bg-danger-50">
+                            <button
+                              type="button"
+                              onClick={() => setRemoving(member)}
+                              className="rounded-control px-3 py-1.5 text-sm font-semibold text-danger-700 hover:bg-danger-50"
+                            >
                               Remove
                             </button>
                           )}
@@ -118,16 +126,27 @@ function Crew({ studio }: { studio: MemberStudio }) {
                 </h2>
                 {withdraw.isError && <Alert tone="danger">{withdraw.error.message}</Alert>}
                 {crew.data.invites.length === 0 ? (
-                  <EmptyState title="No invitations waiting">An invitation shows here until it is accepted, withdrawn or expires.</EmptyState>
+                  <EmptyState title="No invitations waiting">
+                    An invitation shows here until it is accepted, withdrawn or expires.
+                  </EmptyState>
                 ) : (
                   <ul className="divide-y divide-slip-200 rounded-card border border-slip-200 bg-white">
                     {crew.data.invites.map((pending) => (
-                      <li key={pending.id} className="flex flex-wrap items-center justify-between gap-2 px-4 py-3" data-testid="crew-invite">
+                      <li
+                        key={pending.id}
+                        className="flex flex-wrap items-center justify-between gap-2 px-4 py-3"
+                        data-testid="crew-invite"
+                      >
                         <div>
                           <p className="break-all font-medium">{pending.email}</p>
                           <p className="text-xs text-slip-500">Link works until {formatDate(pending.expiresAt, zone)}</p>
                         </div>
-                        <Button variant="secondary" size="sm" busy={withdraw.isPending && withdraw.variables === pending.id} onClick={() => withdraw.mutate(pending.id)}>
+                        <Button
+                          variant="secondary"
+                          size="sm"
+                          busy={withdraw.isPending && withdraw.variables === pending.id}
+                          onClick={() => withdraw.mutate(pending.id)}
+                        >
                           Withdraw
                         </Button>
                       </li>

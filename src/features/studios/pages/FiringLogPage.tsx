@@ -51,7 +51,10 @@ function FiringWorkbench({ firing, studio }: { firing: FiringRecord; studio: Mem
           ← {studio.name}’s calendar
         </Link>
       </p>
-      <PageHeader title="Firing log" lead={`${firingInWords(firing)}${kiln.data ? ` · ${kiln.data.name}` : ''} · fires ${formatDateTime(firing.firingDate, zone)}`} />
+      <PageHeader
+        title="Firing log"
+        lead={`${firingInWords(firing)}${kiln.data ? ` · ${kiln.data.name}` : ''} · fires ${formatDateTime(firing.firingDate, zone)}`}
+      />
       <StudioNav studioId={studio.id} role={studio.myRole} />
 
       {/* On a phone the status comes first; on a wide screen it heads the side column. */}
@@ -114,9 +117,21 @@ function FiringRequests({ firingId }: { firingId: string }) {
 }
 
 function FiringRequestRow({ request }: { request: FiringRequestLine }) {
-  const todo = request.state === 'deposit_paid' ? 'Check in' : request.state === 'fired' ? 'Post results' : request.state === 'accepted' ? 'Deposit not paid' : null
+  const todo =
+    request.state === 'deposit_paid'
+      ? 'Check in'
+      : request.state === 'fired'
+        ? 'Post results'
+        : request.state === 'accepted'
+          ? 'Deposit not paid'
+          : null
   return (
-    <li className="flex flex-wrap items-center justify-between gap-2 py-2" data-testid="firing-request" data-request-id={request.id} data-state={request.state}>
+    <li
+      className="flex flex-wrap items-center justify-between gap-2 py-2"
+      data-testid="firing-request"
+      data-request-id={request.id}
+      data-state={request.state}
+    >
       <div className="min-w-0">
         <Link to={`/requests/${request.id}`} className="font-medium text-clay-700 hover:underline">
           {request.potterName}

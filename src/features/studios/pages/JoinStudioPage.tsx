@@ -25,7 +25,14 @@ export function JoinStudioPage() {
 
   if (!token || token.length < 10) {
     return (
-      <EmptyState title="This invitation link is incomplete" action={<ButtonLink to="/" variant="secondary">Go to the start</ButtonLink>}>
+      <EmptyState
+        title="This invitation link is incomplete"
+        action={
+          <ButtonLink to="/" variant="secondary">
+            Go to the start
+          </ButtonLink>
+        }
+      >
         Open the link from the mail again, or copy all of it into the address bar.
       </EmptyState>
     )
@@ -35,7 +42,10 @@ export function JoinStudioPage() {
     const expired = invite.error instanceof ApiError && invite.error.code === 'bad-token'
     return (
       <div className="mx-auto max-w-lg py-6">
-        <Alert tone={expired ? 'warning' : 'danger'} title={expired ? 'This invitation has been used or has expired' : 'Could not check the invitation'}>
+        <Alert
+          tone={expired ? 'warning' : 'danger'}
+          title={expired ? 'This invitation has been used or has expired' : 'Could not check the invitation'}
+        >
           {expired ? 'Ask the studio’s owner to send a new one.' : invite.error.message}
         </Alert>
       </div>
@@ -50,7 +60,8 @@ export function JoinStudioPage() {
           Join {details.studioName}
         </h1>
         <p className="mt-1 text-sm text-slip-600">
-          Sent to <strong data-testid="invite-email">{details.email}</strong>; the link works until {formatDate(details.expiresAt, Intl.DateTimeFormat().resolvedOptions().timeZone)}.
+          Sent to <strong data-testid="invite-email">{details.email}</strong>; the link works until{' '}
+          {formatDate(details.expiresAt, Intl.DateTimeFormat().resolvedOptions().timeZone)}.
         </p>
         <p className="mt-3 text-sm text-slip-700">Crew post the studio’s firings and move them along from loading to unloading.</p>
         <div className="mt-6">
@@ -89,7 +100,11 @@ function SignedIn({ user, invite, token }: { user: PublicUser; invite: InviteDet
   return (
     <div className="space-y-3">
       {accept.isError && <Alert tone="danger">{accept.error.message}</Alert>}
-      <Button className="w-full" busy={accept.isPending} onClick={() => accept.mutate(token, { onSuccess: () => navigate('/kiln-room', { replace: true }) })}>
+      <Button
+        className="w-full"
+        busy={accept.isPending}
+        onClick={() => accept.mutate(token, { onSuccess: () => navigate('/kiln-room', { replace: true }) })}
+      >
         Join the crew
       </Button>
     </div>

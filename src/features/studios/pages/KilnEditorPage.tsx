@@ -46,7 +46,11 @@ export function NewKilnPage() {
   if (studio.isError) return <ApiProblem error={studio.error} what="this studio" />
   const found = studio.data
   if (!isMemberView(found) || found.myRole !== 'owner') {
-    return <Alert tone="warning" title="Only the studio’s owner adds kilns">Crew can post firings in the kilns the owner has listed.</Alert>
+    return (
+      <Alert tone="warning" title="Only the studio’s owner adds kilns">
+        Crew can post firings in the kilns the owner has listed.
+      </Alert>
+    )
   }
   return (
     <>
@@ -79,8 +83,16 @@ function KilnEditor({ kiln, studio }: { kiln: KilnRecord; studio: MemberStudio }
     <>
       <PageHeader
         title={<KilnTitle kiln={kiln} />}
-        lead={isOwner ? 'Change what this kiln can do. Firings already posted keep their cone and atmosphere.' : 'What this kiln can do. Only the owner changes its limits.'}
-        actions={<ButtonLink to={`/kilns/${kiln.id}`} variant="secondary">Kiln and prices</ButtonLink>}
+        lead={
+          isOwner
+            ? 'Change what this kiln can do. Firings already posted keep their cone and atmosphere.'
+            : 'What this kiln can do. Only the owner changes its limits.'
+        }
+        actions={
+          <ButtonLink to={`/kilns/${kiln.id}`} variant="secondary">
+            Kiln and prices
+          </ButtonLink>
+        }
       />
       <StudioNav studioId={studio.id} role={studio.myRole} />
       {!isOwner && (

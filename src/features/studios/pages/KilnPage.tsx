@@ -41,8 +41,8 @@ function KilnOverview({ kiln, studio }: { kiln: KilnRecord; studio: MemberStudio
           {kilnLimitsInWords(kiln, units)}
         </p>
         <p className="mt-1 text-sm text-slip-600">
-          Tops out at {formatTemperature(kiln.maxTempC, scaleOf(units))}, climbs at most {formatRate(kiln.maxRampCPerHour, scaleOf(units))}; holds about {formatSpace(kiln.volumeL, units)}.
-          {kiln.preheatHold ? ' Can candle.' : ''}
+          Tops out at {formatTemperature(kiln.maxTempC, scaleOf(units))}, climbs at most {formatRate(kiln.maxRampCPerHour, scaleOf(units))};
+          holds about {formatSpace(kiln.volumeL, units)}.{kiln.preheatHold ? ' Can candle.' : ''}
           {kiln.controlledCooling ? ' Can slow cool.' : ''}
         </p>
       </Card>

@@ -61,7 +61,9 @@ export function KilnRoomPage() {
             (isHost ? (
               <Card className="max-w-xl">
                 <h2 className="text-lg font-semibold">Set up your studio</h2>
-                <p className="mt-1 text-sm text-slip-600">A name and where it is are enough to begin. It stays a draft, seen only by you, until you publish it.</p>
+                <p className="mt-1 text-sm text-slip-600">
+                  A name and where it is are enough to begin. It stays a draft, seen only by you, until you publish it.
+                </p>
                 <div className="mt-4">
                   <StudioCreateForm
                     onCreated={(studio) => {
@@ -73,7 +75,8 @@ export function KilnRoomPage() {
               </Card>
             ) : (
               <EmptyState title="You are not on a studio’s crew yet">
-                Crew accounts join a studio through the owner’s invitation. If your invitation link has expired, ask the owner to send a new one.
+                Crew accounts join a studio through the owner’s invitation. If your invitation link has expired, ask the owner to send a new
+                one.
               </EmptyState>
             ))}
           {studios.data.map((studio) => (
@@ -100,7 +103,11 @@ function StudioPanel({ studio, units }: { studio: MemberStudio; units: UnitSyste
   const waitingLink = (firing: FiringRecord) => {
     const count = waiting.data?.perFiring.get(firing.id) ?? 0
     return count > 0 ? (
-      <Link to={`/firings/${firing.id}/requests`} className="text-sm font-semibold text-clay-700 hover:underline" data-testid="waiting-requests">
+      <Link
+        to={`/firings/${firing.id}/requests`}
+        className="text-sm font-semibold text-clay-700 hover:underline"
+        data-testid="waiting-requests"
+      >
         {count} {count === 1 ? 'request' : 'requests'} waiting
       </Link>
     ) : null
@@ -154,7 +161,13 @@ function StudioPanel({ studio, units }: { studio: MemberStudio; units: UnitSyste
       {isOwner && !studio.published && (
         <Alert tone="warning" title="Potters cannot see this studio yet">
           <span>Publish it when its kilns and firings are ready. </span>
-          <Button size="sm" variant="secondary" className="mt-2 sm:mt-0" busy={publish.isPending} onClick={() => publish.mutate({ published: true })}>
+          <Button
+            size="sm"
+            variant="secondary"
+            className="mt-2 sm:mt-0"
+            busy={publish.isPending}
+            onClick={() => publish.mutate({ published: true })}
+          >
             Publish now
           </Button>
           {publish.isError && <span className="ml-2 text-danger-700">{publish.error.message}</span>}
@@ -179,11 +192,20 @@ function StudioPanel({ studio, units }: { studio: MemberStudio; units: UnitSyste
                 ) : undefined
               }
             >
-              {liveKilns.length === 0 ? 'Add a kiln first; firings are posted per kiln.' : 'Post one, or a repeating series, for potters to book space in.'}
+              {liveKilns.length === 0
+                ? 'Add a kiln first; firings are posted per kiln.'
+                : 'Post one, or a repeating series, for potters to book space in.'}
             </EmptyState>
           ) : (
             <>
-              <FiringRows firings={upcoming} kilnName={kilnName} zone={studio.timezone} units={units} onOpen={dialog.open} extra={waitingLink} />
+              <FiringRows
+                firings={upcoming}
+                kilnName={kilnName}
+                zone={studio.timezone}
+                units={units}
+                onOpen={dialog.open}
+                extra={waitingLink}
+              />
               {firings.data.length > UPCOMING_SHOWN && (
                 <Link to={`/studios/${studio.id}/calendar`} className="text-sm font-medium text-clay-700 hover:underline">
                   {firings.data.length - UPCOMING_SHOWN} more in the calendar
@@ -214,7 +236,15 @@ function StudioPanel({ studio, units }: { studio: MemberStudio; units: UnitSyste
                   <Link to={`/kilns/${kiln.id}`} className="font-medium text-clay-700 hover:underline">
                     {kiln.name}
                   </Link>
-                  {kiln.retired ? <Badge>Retired</Badge> : !kiln.priceList ? <Badge tone="ember">No prices</Badge> : <span className="text-xs text-slip-500">cone {kiln.minCone}–{kiln.maxCone}</span>}
+                  {kiln.retired ? (
+                    <Badge>Retired</Badge>
+                  ) : !kiln.priceList ? (
+                    <Badge tone="ember">No prices</Badge>
+                  ) : (
+                    <span className="text-xs text-slip-500">
+                      cone {kiln.minCone}–{kiln.maxCone}
+                    </span>
+                  )}
                 </li>
               ))}
             </ul>
@@ -223,9 +253,22 @@ function StudioPanel({ studio, units }: { studio: MemberStudio; units: UnitSyste
       </div>
 
       <Dialog open={posting} onClose={() => setPosting(false)} title="Post a firing" description={`Times in ${studio.timezone}.`} size="lg">
-        <FiringForm studioId={studio.id} zone={studio.timezone} kilns={liveKilns} units={units} onCreated={() => setPosting(false)} onCancel={() => setPosting(false)} />
+        <FiringForm
+          studioId={studio.id}
+          zone={studio.timezone}
+          kilns={liveKilns}
+          units={units}
+          onCreated={() => setPosting(false)}
+          onCancel={() => setPosting(false)}
+        />
       </Dialog>
-      <FiringDialog firing={dialog.selected} kilnName={dialog.selected ? kilnName(dialog.selected.kilnId) : ''} zone={studio.timezone} units={units} onClose={dialog.close} />
+      <FiringDialog
+        firing={dialog.selected}
+        kilnName={dialog.selected ? kilnName(dialog.selected.kilnId) : ''}
+        zone={studio.timezone}
+        units={units}
+        onClose={dialog.close}
+      />
     </section>
   )
 }

@@ -48,7 +48,11 @@ function StudioProfile({ studio }: { studio: Studio }) {
   const mayRequest = !member && (!me.data || me.data.role === 'potter')
   const requestLink = (firing: FiringRecord) =>
     mayRequest && takesRequests(firing.status) && new Date(firing.dropOffBy).getTime() > Date.now() ? (
-      <ButtonLink to={`/firings/${firing.id}/request`} size="sm" aria-label={`Request space in the firing on ${formatDateTime(firing.firingDate, zone)}`}>
+      <ButtonLink
+        to={`/firings/${firing.id}/request`}
+        size="sm"
+        aria-label={`Request space in the firing on ${formatDateTime(firing.firingDate, zone)}`}
+      >
         Request space
       </ButtonLink>
     ) : null
@@ -58,7 +62,9 @@ function StudioProfile({ studio }: { studio: Studio }) {
       {member && <StudioNav studioId={studio.id} role={member.myRole} />}
       {member && !studio.published && (
         <Alert tone="warning" title="Draft: only your studio sees this page">
-          {member.myRole === 'owner' ? 'Publish the studio in its settings when it is ready for potters.' : 'The owner publishes it when it is ready.'}
+          {member.myRole === 'owner'
+            ? 'Publish the studio in its settings when it is ready for potters.'
+            : 'The owner publishes it when it is ready.'}
         </Alert>
       )}
       <header>
@@ -99,7 +105,12 @@ function StudioProfile({ studio }: { studio: Studio }) {
         </section>
 
         <aside className="space-y-4">
-          <Basemap center={[studio.lat, studio.lng]} zoom={12} className="h-64 rounded-card border border-slip-200" label={`Where ${studio.name} is`}>
+          <Basemap
+            center={[studio.lat, studio.lng]}
+            zoom={12}
+            className="h-64 rounded-card border border-slip-200"
+            label={`Where ${studio.name} is`}
+          >
             <StudioMarker position={[studio.lat, studio.lng]} title={studio.name} label={studio.name} selected />
           </Basemap>
           <Card as="div">
@@ -114,7 +125,12 @@ function StudioProfile({ studio }: { studio: Studio }) {
               <a href={subscribeUrl} className="font-semibold text-clay-700 hover:underline" data-testid="calendar-subscribe">
                 Subscribe
               </a>
-              <a href={calendarPath} download={`${studio.name}.ics`} className="font-semibold text-clay-700 hover:underline" data-testid="calendar-download">
+              <a
+                href={calendarPath}
+                download={`${studio.name}.ics`}
+                className="font-semibold text-clay-700 hover:underline"
+                data-testid="calendar-download"
+              >
                 Download .ics
               </a>
             </div>
@@ -205,7 +221,9 @@ function ExamplePrices({ kilns }: { kilns: KilnWithPrices[] }) {
                     {example ? (
                       <>
                         {formatMoney(example.quote.totalCents, example.quote.currency)}
-                        <span className="block text-xs text-slip-500">deposit {formatMoney(example.quote.depositCents, example.quote.currency)}</span>
+                        <span className="block text-xs text-slip-500">
+                          deposit {formatMoney(example.quote.depositCents, example.quote.currency)}
+                        </span>
                       </>
                     ) : (
                       '—'

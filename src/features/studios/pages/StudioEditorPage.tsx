@@ -111,7 +111,15 @@ function StudioEditor({ studio }: { studio: MemberStudio }) {
 
   return (
     <>
-      <PageHeader title="Studio settings" lead={studio.name} actions={<ButtonLink to={`/studios/${studio.id}`} variant="secondary">View public page</ButtonLink>} />
+      <PageHeader
+        title="Studio settings"
+        lead={studio.name}
+        actions={
+          <ButtonLink to={`/studios/${studio.id}`} variant="secondary">
+            View public page
+          </ButtonLink>
+        }
+      />
       <StudioNav studioId={studio.id} role="owner" />
       <form onSubmit={onSubmit} noValidate className="space-y-6" aria-label="Studio settings">
         {formError && <Alert tone="danger">{formError}</Alert>}
@@ -122,7 +130,11 @@ function StudioEditor({ studio }: { studio: MemberStudio }) {
             <Field label="Name" error={errors.name?.message}>
               {(a11y) => <TextInput {...a11y} {...register('name')} />}
             </Field>
-            <Field label="Description" hint="What kind of studio it is, what you fire, how to find the door." error={errors.description?.message}>
+            <Field
+              label="Description"
+              hint="What kind of studio it is, what you fire, how to find the door."
+              error={errors.description?.message}
+            >
               {(a11y) => <TextArea {...a11y} rows={4} {...register('description')} />}
             </Field>
             <Field label="Drop-off hours" hint="e.g. “Tue–Sat 10 am–6 pm; ring the side bell.”" error={errors.dropOffHours?.message}>
@@ -161,7 +173,11 @@ function StudioEditor({ studio }: { studio: MemberStudio }) {
             Potters see the town and the pin; the street address is shown only once their request is accepted.
           </p>
           <div className="grid gap-4 sm:grid-cols-[1fr_10rem]">
-            <Field label="Street address" hint="Changing it moves the pin, unless you move the pin yourself too." error={errors.address?.message}>
+            <Field
+              label="Street address"
+              hint="Changing it moves the pin, unless you move the pin yourself too."
+              error={errors.address?.message}
+            >
               {(a11y) => <TextInput {...a11y} autoComplete="street-address" {...register('address', { setValueAs: emptyToNull })} />}
             </Field>
             <Field label="Postal code" error={errors.postalCode?.message}>
@@ -179,7 +195,11 @@ function StudioEditor({ studio }: { studio: MemberStudio }) {
                 setValue('lng', p.lng, { shouldDirty: true })
               }}
             />
-            {errors.lat && <p className="mt-1 text-xs font-medium text-danger-700" role="alert">{errors.lat.message}</p>}
+            {errors.lat && (
+              <p className="mt-1 text-xs font-medium text-danger-700" role="alert">
+                {errors.lat.message}
+              </p>
+            )}
           </div>
         </Card>
 
@@ -199,20 +219,58 @@ function StudioEditor({ studio }: { studio: MemberStudio }) {
                 </p>
               )}
             </fieldset>
-            <Field label="Ware requirements" hint="What ware must be like to come in: bone dry, clean feet, cookies under runny glazes…" error={errors.policies?.wareRequirements?.message}>
+            <Field
+              label="Ware requirements"
+              hint="What ware must be like to come in: bone dry, clean feet, cookies under runny glazes…"
+              error={errors.policies?.wareRequirements?.message}
+            >
               {(a11y) => <TextArea {...a11y} rows={3} {...register('policies.wareRequirements')} />}
             </Field>
             <fieldset>
               <legend className="mb-2 text-sm font-medium text-slip-800">Cancellation by the potter</legend>
               <div className="grid gap-4 sm:grid-cols-3">
-                <Field label="Full refund until (days before the firing)" error={errors.policies?.cancellation?.fullRefundDaysBefore?.message}>
-                  {(a11y) => <TextInput {...a11y} type="number" min={0} max={90} inputMode="numeric" {...register('policies.cancellation.fullRefundDaysBefore', { valueAsNumber: true })} />}
+                <Field
+                  label="Full refund until (days before the firing)"
+                  error={errors.policies?.cancellation?.fullRefundDaysBefore?.message}
+                >
+                  {(a11y) => (
+                    <TextInput
+                      {...a11y}
+                      type="number"
+                      min={0}
+                      max={90}
+                      inputMode="numeric"
+                      {...register('policies.cancellation.fullRefundDaysBefore', { valueAsNumber: true })}
+                    />
+                  )}
                 </Field>
                 <Field label="Refund after that (%)" error={errors.policies?.cancellation?.laterRefundPercent?.message}>
-                  {(a11y) => <TextInput {...a11y} type="number" min={0} max={100} inputMode="decimal" {...register('policies.cancellation.laterRefundPercent', { valueAsNumber: true })} />}
+                  {(a11y) => (
+                    <TextInput
+                      {...a11y}
+                      type="number"
+                      min={0}
+                      max={100}
+                      inputMode="decimal"
+                      {...register('policies.cancellation.laterRefundPercent', { valueAsNumber: true })}
+                    />
+                  )}
                 </Field>
-                <Field label="Deposit hold (hours)" hint="How long an accepted request waits for its deposit." error={errors.policies?.depositHoldHours?.message}>
-                  {(a11y) => <TextInput {...a11y} type="number" min={1} max={336} inputMode="numeric" {...register('policies.depositHoldHours', { valueAsNumber: true })} />}
+                <Field
+                  label="Deposit hold (hours)"
+                  hint="How long an accepted request waits for its deposit."
+                  error={errors.policies?.depositHoldHours?.message}
+                >
+                  {(a11y) => (
+                    <TextInput
+                      {...a11y}
+                      type="number"
+                      min={1}
+                      max={336}
+                      inputMode="numeric"
+                      {...register('policies.depositHoldHours', { valueAsNumber: true })}
+                    />
+                  )}
                 </Field>
               </div>
             </fieldset>
@@ -226,7 +284,15 @@ function StudioEditor({ studio }: { studio: MemberStudio }) {
         </Card>
 
         <div className="sticky bottom-0 -mx-4 flex flex-wrap items-center justify-end gap-3 border-t border-slip-200 bg-slip-50/95 px-4 py-3">
-          {formState.isDirty ? <span className="text-sm text-slip-600">Unsaved changes</span> : saved && <span role="status" className="text-sm text-celadon-700">Saved.</span>}
+          {formState.isDirty ? (
+            <span className="text-sm text-slip-600">Unsaved changes</span>
+          ) : (
+            saved && (
+              <span role="status" className="text-sm text-celadon-700">
+                Saved.
+              </span>
+            )
+          )}
           <Button type="submit" busy={formState.isSubmitting}>
             Save settings
           </Button>
