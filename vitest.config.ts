@@ -1,15 +1,36 @@
 import { defineConfig } from 'vitest/config'
 
-// One config for every test: unit tests are pure; integration and end-to-end tests get a throwaway
-// PostgreSQL cluster from the global setup (started once for the whole run, removed afterwards).
+// Four projects. Unit tests are pure and start nothing; the stand-ins' tests start only the stand-in. Integration tests (real PostgreSQL) and
+// end-to-end tests (the built client in Chromium) share a throwaway PostgreSQL cluster from the global
+// setup, started once for the run and removed afterwards.
+//
+// Time limits are a safety net for a hung test, not a measure: tests wait on states (an element, a
+// row, a mail), so they are generous enough for a machine with every core busy.
+const withDatabase = { globalSetup: ['tests/setup/global-setup.ts'] }
+
 export default defineConfig({
   test: {
-    include: ['tests/**/*.test.ts'],
     environment: 'node',
-    globalSetup: ['tests/setup/global-setup.ts'],
     maxWorkers: 2,
-    testTimeout: 20_000,
-    hookTimeout: 60_000,
     reporters: ['default'],
+    projects: [
+      { extends: true, test: { name: 'unit', include: ['tests/unit/**/*.test.ts'], testTimeout: 30_000 } },
+      // The local stand-ins of Stripe and Meilisearch, tested through the official SDKs on their own.
+      { extends: true, test: { name: 'standins', include: ['tests/standins/**/*.test.ts'], testTimeout: 60_000 } },
+      {
+        extends: true,
+        test: {
+          name: 'integration',
+          include: ['tests/integration/**/*.test.ts'],
+          ...withDatabase,
+          testTimeout: 60_000,
+          hookTimeout: 120_000,
+        },
+      },
+      {
+        extends: true,
+        test: { name: 'e2e', include: ['tests/e2e/**/*.test.ts'], ...withDatabase, testTimeout: 180_000, hookTimeout: 180_000 },
+      },
+    ],
   },
 })

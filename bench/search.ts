@@ -112,7 +112,7 @@ async function main() {
     const searchPort = await freePort()
     const standIns = JSON.parse(
       await start(
-        ['server/fakes/main.ts'],
+        ['standins/main.ts'],
         { SMTP_URL: 'smtp://127.0.0.1:9', SEARCH_PORT: String(searchPort), MEILI_API_KEY: searchKey },
         'STANDINS ',
       ),

@@ -145,7 +145,7 @@ async function main() {
     const { standIns } = startChild(
       'the local stand-ins',
       process.execPath,
-      [...tsx, 'server/fakes/main.ts'],
+      [...tsx, 'standins/main.ts'],
       { APP_WEBHOOK_URL: `http://127.0.0.1:${apiPort}/api/webhooks/stripe` },
       { captureStandIns: true },
     )

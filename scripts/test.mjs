@@ -1,7 +1,7 @@
 #!/usr/bin/env node
 // `npm test`: every test, end-to-end included, from a fresh machine. Installs what is missing
-// (npm packages; PostgreSQL and Chromium from Debian's packages when root), type-checks, builds the
-// client, then runs Vitest, whose global setup starts a throwaway PostgreSQL cluster and removes it.
+// (npm packages; PostgreSQL and Chromium from Debian's packages when root), type-checks, lints, checks
+// the format, builds the client, then runs Vitest, whose global setup starts a throwaway PostgreSQL cluster and removes it.
 // Extra arguments go to Vitest (e.g. `npm test -- tests/unit`).
 import { spawnSync } from 'node:child_process'
 import path from 'node:path'
@@ -20,6 +20,14 @@ try {
   ensurePostgresInstalled()
   ensureChromium()
   step('type-checking', process.execPath, [path.join(repoRoot, 'node_modules/typescript/bin/tsc'), '--noEmit', '-p', 'tsconfig.json'])
+  step('linting', process.execPath, [path.join(repoRoot, 'node_modules/eslint/bin/eslint.js'), '.'])
+  step('checking the format', process.execPath, [
+    path.join(repoRoot, 'node_modules/prettier/bin/prettier.cjs'),
+    '--check',
+    '--log-level',
+    'warn',
+    '.',
+  ])
   buildClient()
   step('running the tests', process.execPath, [path.join(repoRoot, 'node_modules/vitest/vitest.mjs'), 'run', ...process.argv.slice(2)])
 } catch (error) {

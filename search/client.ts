@@ -1,12 +1,17 @@
 // The app's only way to the search engine: the official meilisearch SDK, pointed at MEILI_HOST.
 import { Meilisearch, type Index } from 'meilisearch'
-import type { Config } from '../server/config'
 import type { FiringDocument } from './documents'
 import { FIRINGS_INDEX, FIRINGS_INDEX_SETTINGS } from './settings'
 
+/** Where the engine is: MEILI_HOST and MEILI_API_KEY, as the server's config reads them. */
+export interface EngineConfig {
+  meiliHost: string
+  meiliApiKey: string
+}
+
 const clients = new Map<string, Meilisearch>()
 
-export function searchClient(config: Pick<Config, 'meiliHost' | 'meiliApiKey'>): Meilisearch {
+export function searchClient(config: EngineConfig): Meilisearch {
   const key = `${config.meiliHost}|${config.meiliApiKey}`
   let client = clients.get(key)
   if (!client) {
@@ -17,14 +22,14 @@ export function searchClient(config: Pick<Config, 'meiliHost' | 'meiliApiKey'>):
   return client
 }
 
-export function firingsIndex(config: Pick<Config, 'meiliHost' | 'meiliApiKey'>): Index<FiringDocument> {
+export function firingsIndex(config: EngineConfig): Index<FiringDocument> {
   return searchClient(config).index<FiringDocument>(FIRINGS_INDEX)
 }
 
 const ensured = new Map<string, Promise<void>>()
 
 /** Creates the index and applies its settings once per process (and again after a failure). */
-export function ensureFiringsIndex(config: Pick<Config, 'meiliHost' | 'meiliApiKey'>): Promise<void> {
+export function ensureFiringsIndex(config: EngineConfig): Promise<void> {
   const key = config.meiliHost
   let pending = ensured.get(key)
   if (!pending) {

@@ -8,7 +8,7 @@ import { createDataSource } from './db/data-source'
 import { seedDemo } from './db/seed'
 import { migrateQueue, startWorker } from './jobs/worker'
 import { warmGazetteer } from './services/gazetteer'
-import { enqueueReindex } from '../search/sync'
+import { enqueueReindex } from './services/search-sync'
 import { engineRebuildStarted } from './services/search'
 
 const log = consoleLogger()

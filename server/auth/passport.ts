@@ -5,8 +5,8 @@ import { User as UserEntity } from '../entities/User'
 import { authenticate } from '../services/users'
 
 declare global {
-  // eslint-disable-next-line @typescript-eslint/no-namespace
   namespace Express {
+    // eslint-disable-next-line @typescript-eslint/no-empty-object-type -- passport's user is our entity
     interface User extends UserEntity {}
   }
 }

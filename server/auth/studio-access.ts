@@ -1,6 +1,5 @@
 import type { Request, RequestHandler } from 'express'
 import type { AppContext } from '../context'
-import { Firing } from '../entities/Firing'
 import { Kiln } from '../entities/Kiln'
 import { Studio } from '../entities/Studio'
 import { StudioMember, type StudioRole } from '../entities/StudioMember'

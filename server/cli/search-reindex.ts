@@ -1,6 +1,6 @@
 // npm run search:reindex — rebuilds the search index from PostgreSQL: the search_documents table and
 // the engine at MEILI_HOST (the local stand-in runs while `npm start` does).
-import { reindexAll } from '../../search/sync'
+import { reindexAll } from '../services/search-sync'
 import { loadConfig } from '../config'
 import { consoleLogger } from '../context'
 import { withDatabase } from './local-database'

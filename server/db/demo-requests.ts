@@ -222,69 +222,61 @@ export async function seedDemoRequests(manager: EntityManager, userIdOf: (email:
     const path = PATH[demo.state]
     for (let i = 0; i < path.length; i++) {
       const actor = ['sent', 'draft'].includes(path[i]) ? potterId : null
-      await manager
-        .getRepository(RequestEvent)
-        .save({
-          requestId: request.id,
-          actorId: actor,
-          fromState: i ? path[i - 1] : null,
-          toState: path[i],
-          reason: '',
-          data: i ? {} : { demoKey: demo.key },
-        })
+      await manager.getRepository(RequestEvent).save({
+        requestId: request.id,
+        actorId: actor,
+        fromState: i ? path[i - 1] : null,
+        toState: path[i],
+        reason: '',
+        data: i ? {} : { demoKey: demo.key },
+      })
     }
     const currency = quote?.currency ?? 'USD'
     if (path.includes('deposit_paid') && quote && quote.depositCents > 0) {
-      await manager
-        .getRepository(LedgerEntry)
-        .save({
-          requestId: request.id,
-          direction: 'in',
-          kind: 'counter',
-          amountCents: quote.depositCents,
-          currency,
-          stripeSessionId: null,
-          stripePaymentIntentId: null,
-          stripeRefundId: null,
-          note: 'Deposit paid at the counter',
-        })
+      await manager.getRepository(LedgerEntry).save({
+        requestId: request.id,
+        direction: 'in',
+        kind: 'counter',
+        amountCents: quote.depositCents,
+        currency,
+        stripeSessionId: null,
+        stripePaymentIntentId: null,
+        stripeRefundId: null,
+        note: 'Deposit paid at the counter',
+      })
     }
     if (demo.state === 'collected' && quote) {
       const rest = quote.totalCents - quote.depositCents
       if (rest > 0)
-        await manager
-          .getRepository(LedgerEntry)
-          .save({
-            requestId: request.id,
-            direction: 'in',
-            kind: 'counter',
-            amountCents: rest,
-            currency,
-            stripeSessionId: null,
-            stripePaymentIntentId: null,
-            stripeRefundId: null,
-            note: 'Balance paid at the counter',
-          })
+        await manager.getRepository(LedgerEntry).save({
+          requestId: request.id,
+          direction: 'in',
+          kind: 'counter',
+          amountCents: rest,
+          currency,
+          stripeSessionId: null,
+          stripePaymentIntentId: null,
+          stripeRefundId: null,
+          note: 'Balance paid at the counter',
+        })
     }
     if (demo.rating) {
-      await manager
-        .getRepository(Rating)
-        .save({
-          requestId: request.id,
-          direction: 'potter-rates-studio',
-          studioId: studio.id,
-          potterId,
-          authorId: potterId,
-          stars: demo.rating.stars,
-          care: demo.rating.care,
-          communication: demo.rating.communication,
-          results: demo.rating.results,
-          asDeclared: null,
-          onTime: null,
-          text: demo.rating.text,
-          studioReply: 'Thank you, Wren. See you at the next cone 6.',
-          studioReplyAt: new Date(),
-        })
+      await manager.getRepository(Rating).save({
+        requestId: request.id,
+        direction: 'potter-rates-studio',
+        studioId: studio.id,
+        potterId,
+        authorId: potterId,
+        stars: demo.rating.stars,
+        care: demo.rating.care,
+        communication: demo.rating.communication,
+        results: demo.rating.results,
+        asDeclared: null,
+        onTime: null,
+        text: demo.rating.text,
+        studioReply: 'Thank you, Wren. See you at the next cone 6.',
+        studioReplyAt: new Date(),
+      })
     }
   }
 }

@@ -9,7 +9,7 @@ import { DropOffToPickup1796152667537 } from './migrations/1796152667537-DropOff
 import { SearchFacetColumns1796153787338 } from './migrations/1796153787338-SearchFacetColumns'
 import { SearchDocumentsNarrowRows1796158092958 } from './migrations/1796158092958-SearchDocumentsNarrowRows'
 
-export const migrations: Function[] = [
+export const migrations: (new () => unknown)[] = [
   Foundation1796149373286,
   StudiosKilnsFirings1796150510924,
   FiringRequests1796150607023,

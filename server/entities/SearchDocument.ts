@@ -1,5 +1,5 @@
 import { Column, Entity, Index, PrimaryColumn, UpdateDateColumn } from 'typeorm'
-import type { FiringDocument } from '../../search/documents'
+import type { FiringDocument } from '../../search/public'
 
 /**
  * The search document of one open upcoming firing, kept in PostgreSQL beside the engine's copy. It is

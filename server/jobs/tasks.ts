@@ -1,5 +1,5 @@
 import type { TaskList } from 'graphile-worker'
-import { REINDEX_TASK, reindexAll, SYNC_STUDIO_TASK, syncStudio } from '../../search/sync'
+import { REINDEX_TASK, reindexAll, SYNC_STUDIO_TASK, syncStudio } from '../services/search-sync'
 import type { AppContext } from '../context'
 import { FiringRequest } from '../entities/FiringRequest'
 import { sendQueuedMail } from '../services/mail'

@@ -12,13 +12,13 @@ import {
 import { requireAuth } from '../auth/guards'
 import { accountKey, makeLimiter } from '../auth/rate-limit'
 import type { AppContext } from '../context'
-import type { User } from '../entities/User'
 import { forbidden, HttpError } from '../http/errors'
 import { acceptInvite, inviteForRegistration } from '../services/crew'
 import { validateBody } from '../http/validate'
 import {
   confirmPasswordReset,
   registerUser,
+  updatePreferences,
   requestPasswordReset,
   resendVerification,
   publicUserWithStudios,
@@ -40,7 +40,7 @@ export function authRouter(ctx: AppContext, passport: PassportStatic, csrfToken:
   const resetPerAccount = makeLimiter(ctx.db, 'reset-account', { limit: 5, windowMs: WINDOW, key: accountKey })
   const registerPerAccount = makeLimiter(ctx.db, 'register-account', { limit: authPerAccountPer15Min, windowMs: WINDOW, key: accountKey })
 
-  const signIn = (req: Parameters<RequestHandler>[0], user: User) =>
+  const signIn = (req: Parameters<RequestHandler>[0], user: Express.User) =>
     new Promise<void>((resolve, reject) => req.login(user, (error) => (error ? reject(error) : resolve())))
 
   router.get('/csrf', csrfToken)
@@ -65,7 +65,7 @@ export function authRouter(ctx: AppContext, passport: PassportStatic, csrfToken:
   })
 
   router.post('/login', perIp, perAccount, validateBody(loginSchema), (req, res, next) => {
-    passport.authenticate('local', { session: false }, (error: unknown, user: User | false) => {
+    passport.authenticate('local', { session: false }, (error: unknown, user: Express.User | false) => {
       if (error) return next(error)
       if (!user) return next(new HttpError(401, 'bad-credentials', 'That e-mail and password do not match an account.'))
       if (user.suspendedAt) return next(forbidden('This account is suspended. Write to the Conewright team.', 'suspended'))
@@ -84,10 +84,7 @@ export function authRouter(ctx: AppContext, passport: PassportStatic, csrfToken:
   })
 
   router.patch('/me', requireAuth, validateBody(preferencesSchema), async (req, res) => {
-    const user = req.user!
-    Object.assign(user, req.body)
-    await ctx.db.getRepository('User').save(user)
-    res.json(await publicUserWithStudios(ctx, user))
+    res.json(await publicUserWithStudios(ctx, await updatePreferences(ctx, req.user!, req.body)))
   })
 
   router.post('/password-reset/request', perIp, resetPerAccount, validateBody(passwordResetRequestSchema), async (req, res) => {

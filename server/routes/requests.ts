@@ -13,14 +13,12 @@ import {
 import { REQUEST_STATES } from '../../shared/workflow/request-states'
 import { requireAuth, requireRole } from '../auth/guards'
 import type { AppContext } from '../context'
-import { FiringRequest } from '../entities/FiringRequest'
-import { StudioMember } from '../entities/StudioMember'
 import { conflict } from '../http/errors'
 import { requireUuidParams, validateBody, validateQuery } from '../http/validate'
 import { listMessages, postMessage } from '../services/messages'
 import { moneyOf, openCheckout } from '../services/payments'
 import { loadRequest, viewerOf } from '../services/request-context'
-import { requestRows, showRequest } from '../services/request-views'
+import { listRequests, showRequest, type RequestListQuery } from '../services/request-views'
 import {
   acceptRequest,
   answerMove,
@@ -53,26 +51,8 @@ export function requestsRouter(ctx: AppContext) {
 
   // Mine: a potter's own requests, and for studio people the requests to their studios.
   router.get('/requests', requireAuth, validateQuery(listQuery), async (req, res) => {
-    const q = res.locals.query as z.infer<typeof listQuery>
-    const user = req.user!
-    const memberships = await ctx.db.getRepository(StudioMember).find({ where: { userId: user.id } })
-    const studioIds = memberships.map((m) => m.studioId).filter((sid) => !q.studioId || sid === q.studioId)
-    const qb = ctx.db
-      .getRepository(FiringRequest)
-      .createQueryBuilder('r')
-      .innerJoin('r.firing', 'f')
-      .innerJoin('f.kiln', 'k')
-      .orderBy('r.updatedAt', 'DESC')
-      .take(200)
-    const asPotter = q.as !== 'studio'
-    const asStudio = q.as !== 'potter' && studioIds.length > 0
-    if (asPotter && asStudio)
-      qb.where('(r.potter_id = :me OR (k.studio_id IN (:...studioIds) AND r.state <> :draft))', { me: user.id, studioIds, draft: 'draft' })
-    else if (asStudio) qb.where('k.studio_id IN (:...studioIds) AND r.state <> :draft', { studioIds, draft: 'draft' })
-    else qb.where('r.potter_id = :me', { me: user.id })
-    if (q.firingId) qb.andWhere('r.firing_id = :firingId', { firingId: q.firingId })
-    if (q.state) qb.andWhere('r.state = :state', { state: q.state })
-    res.json({ requests: await requestRows(ctx.db.manager, await qb.getMany()) })
+    const q = res.locals.query as RequestListQuery
+    res.json({ requests: await listRequests(ctx.db.manager, req.user!, q) })
   })
 
   router.get('/requests/:id', requireAuth, id, async (req, res) => {

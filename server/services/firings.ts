@@ -8,9 +8,9 @@ import type { PriceList } from '../../shared/firing/quote'
 import { plannedFinalRateCPerHour } from '../../shared/firing/schedule'
 import type { FiringJson } from '../../shared/api/studios'
 import type { FiringCreateBody, FiringPatchBody } from '../../shared/schemas/studios'
-import { canMoveFiring, nextFiringStatuses, type FiringStatus } from '../../shared/workflow/firing-status'
+import { canMoveFiring, nextFiringStatuses } from '../../shared/workflow/firing-status'
 import { HOLDING_STATES } from '../../shared/workflow/request-states'
-import { enqueueStudioSync } from '../../search/sync'
+import { enqueueStudioSync } from './search-sync'
 import type { AppContext } from '../context'
 import { Firing } from '../entities/Firing'
 import { FiringRequest } from '../entities/FiringRequest'
@@ -211,16 +211,14 @@ export async function cancelFiring(
       .getRepository(FiringRequest)
       .find({ where: { firingId: id, state: In([...LIVE_REQUEST_STATES]) }, lock: { mode: 'pessimistic_write' } })
     for (const request of requests) {
-      await manager
-        .getRepository(RequestEvent)
-        .save({
-          requestId: request.id,
-          actorId,
-          fromState: request.state,
-          toState: 'cancelled',
-          reason: `Firing cancelled: ${reason}`,
-          data: { by: 'studio' },
-        })
+      await manager.getRepository(RequestEvent).save({
+        requestId: request.id,
+        actorId,
+        fromState: request.state,
+        toState: 'cancelled',
+        reason: `Firing cancelled: ${reason}`,
+        data: { by: 'studio' },
+      })
       await manager.update(FiringRequest, request.id, { state: 'cancelled' })
       if (request.state === 'draft') continue
       const potter = await manager.getRepository(User).findOneByOrFail({ id: request.potterId })

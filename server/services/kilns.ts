@@ -4,7 +4,7 @@ import { quoteRequest, type PriceList, type Quote } from '../../shared/firing/qu
 import { EXAMPLE_PIECES } from '../../shared/firing/examples'
 import type { KilnJson } from '../../shared/api/studios'
 import { kilnBodySchema, type KilnBody, type PriceListBody } from '../../shared/schemas/studios'
-import { enqueueStudioSync } from '../../search/sync'
+import { enqueueStudioSync } from './search-sync'
 import type { AppContext } from '../context'
 import { Kiln } from '../entities/Kiln'
 import { KilnPriceList } from '../entities/KilnPriceList'

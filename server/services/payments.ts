@@ -12,7 +12,7 @@ import { queueMail } from './mail'
 import { factsOf, loadRequest, moveRequest, studioPeople, type RequestContext } from './request-context'
 import { stripeFor } from './stripe'
 import { settleBalance } from './pickup'
-import { enqueueStudioSync } from '../../search/sync'
+import { enqueueStudioSync } from './search-sync'
 
 export const REFUND_TASK = 'refund-payment'
 export const OPEN_CHECKOUT_TASK = 'open-checkout'

@@ -2,7 +2,7 @@
 // ready, the balance, collection.
 import type { EntityManager } from 'typeorm'
 import { In } from 'typeorm'
-import { enqueueStudioSync } from '../../search/sync'
+import { enqueueStudioSync } from './search-sync'
 import { mmToIn } from '../../shared/firing/units'
 import { crossCheckCones } from '../../shared/firing/witness'
 import type { FiringLogBody } from '../../shared/schemas/pickup'
@@ -81,19 +81,17 @@ export async function checkIn(
     if (body.refuse) {
       const { net } = await moneyOf(manager, id)
       const refund = refundUnderTerms(net, rc.firing.firingDate, rc.studio.policies.cancellation).refundCents
-      await manager
-        .getRepository(CheckIn)
-        .save({
-          requestId: id,
-          receivedPieces: [],
-          conditionNotes: body.conditionNotes ?? '',
-          refused: true,
-          refusedReason: body.refuse.reason,
-          quoteBefore: rc.request.quote,
-          quoteAfter: null,
-          priceConfirmedAt: null,
-          checkedInBy: actor.id,
-        })
+      await manager.getRepository(CheckIn).save({
+        requestId: id,
+        receivedPieces: [],
+        conditionNotes: body.conditionNotes ?? '',
+        refused: true,
+        refusedReason: body.refuse.reason,
+        quoteBefore: rc.request.quote,
+        quoteAfter: null,
+        priceConfirmedAt: null,
+        checkedInBy: actor.id,
+      })
       await moveRequest(manager, rc.request, 'cancelled', actor.id, `Refused at drop-off: ${body.refuse.reason}`, {
         by: 'refused-at-door',
         refundCents: refund,
@@ -182,16 +180,14 @@ export async function confirmPrice(ctx: AppContext, potter: User, id: string) {
     const checkInRow = await manager.getRepository(CheckIn).findOne({ where: { requestId: id } })
     if (!checkInRow || checkInRow.priceConfirmedAt) throw conflict('No changed price waits for your confirmation.', 'nothing-to-confirm')
     await manager.update(CheckIn, id, { priceConfirmedAt: new Date() })
-    await manager
-      .getRepository(RequestEvent)
-      .save({
-        requestId: id,
-        actorId: potter.id,
-        fromState: rc.request.state,
-        toState: rc.request.state,
-        reason: 'New price confirmed',
-        data: { totalCents: checkInRow.quoteAfter?.totalCents },
-      })
+    await manager.getRepository(RequestEvent).save({
+      requestId: id,
+      actorId: potter.id,
+      fromState: rc.request.state,
+      toState: rc.request.state,
+      reason: 'New price confirmed',
+      data: { totalCents: checkInRow.quoteAfter?.totalCents },
+    })
   })
 }
 
@@ -278,16 +274,14 @@ export async function onFiringStatus(ctx: AppContext, manager: EntityManager, fi
       await moveRequest(manager, request, 'fired', actorId, 'The kiln was unloaded')
       await queueMail(manager, rc.potter.email, 'firing-progress', firingProgressMail(facts, 'unloaded'))
     } else {
-      await manager
-        .getRepository(RequestEvent)
-        .save({
-          requestId: request.id,
-          actorId,
-          fromState: 'received',
-          toState: 'received',
-          reason: STAGE_NOTE[to]!,
-          data: { firingStatus: to },
-        })
+      await manager.getRepository(RequestEvent).save({
+        requestId: request.id,
+        actorId,
+        fromState: 'received',
+        toState: 'received',
+        reason: STAGE_NOTE[to]!,
+        data: { firingStatus: to },
+      })
       if (to === 'firing') await queueMail(manager, rc.potter.email, 'firing-progress', firingProgressMail(facts, 'firing'))
     }
   }
@@ -309,24 +303,20 @@ export async function postResults(
       throw new HttpError(400, 'invalid-input', 'A result names a piece the request does not have.', {
         outcomes: `No piece ${bad.pieceIndex + 1}.`,
       })
-    await manager
-      .getRepository(RequestResult)
-      .save({
-        requestId: id,
-        outcomes: body.outcomes.map((o) => ({ ...o, notes: o.notes ?? '' })),
-        notes: body.notes ?? '',
-        postedBy: actor.id,
-      })
-    await manager
-      .getRepository(RequestEvent)
-      .save({
-        requestId: id,
-        actorId: actor.id,
-        fromState: rc.request.state,
-        toState: rc.request.state,
-        reason: 'Results posted',
-        data: {},
-      })
+    await manager.getRepository(RequestResult).save({
+      requestId: id,
+      outcomes: body.outcomes.map((o) => ({ ...o, notes: o.notes ?? '' })),
+      notes: body.notes ?? '',
+      postedBy: actor.id,
+    })
+    await manager.getRepository(RequestEvent).save({
+      requestId: id,
+      actorId: actor.id,
+      fromState: rc.request.state,
+      toState: rc.request.state,
+      reason: 'Results posted',
+      data: {},
+    })
   })
 }
 
@@ -393,16 +383,14 @@ export async function counterPayment(ctx: AppContext, actor: User, id: string, b
 
 /** A paid balance checkout, from the webhook: booked by the payments service; nothing else moves. */
 export async function settleBalance(_ctx: AppContext, manager: EntityManager, rc: RequestContext, payment: Payment) {
-  await manager
-    .getRepository(RequestEvent)
-    .save({
-      requestId: rc.request.id,
-      actorId: null,
-      fromState: rc.request.state,
-      toState: rc.request.state,
-      reason: 'Balance paid through Stripe',
-      data: { sessionId: payment.stripeSessionId },
-    })
+  await manager.getRepository(RequestEvent).save({
+    requestId: rc.request.id,
+    actorId: null,
+    fromState: rc.request.state,
+    toState: rc.request.state,
+    reason: 'Balance paid through Stripe',
+    data: { sessionId: payment.stripeSessionId },
+  })
 }
 
 export async function markCollected(ctx: AppContext, actor: User, id: string) {

@@ -1,5 +1,5 @@
 import type { EntityManager } from 'typeorm'
-import { enqueueStudioSync } from '../../search/sync'
+import { enqueueStudioSync } from './search-sync'
 import { summarise } from '../../shared/ratings'
 import type { AppContext } from '../context'
 import { Rating } from '../entities/Rating'

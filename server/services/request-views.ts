@@ -1,8 +1,9 @@
 import type { EntityManager } from 'typeorm'
-import { holdsSpace, nextRequestStates } from '../../shared/workflow/request-states'
+import { holdsSpace, nextRequestStates, type RequestState } from '../../shared/workflow/request-states'
 import { Firing } from '../entities/Firing'
 import { FiringRequest } from '../entities/FiringRequest'
 import { RequestEvent } from '../entities/RequestEvent'
+import { StudioMember } from '../entities/StudioMember'
 import { User } from '../entities/User'
 import { firingJson, heldLitres } from './firings'
 import { kilnJson } from './kilns'
@@ -178,4 +179,33 @@ export async function requestRows(manager: EntityManager, requests: FiringReques
 export async function showRequest(manager: EntityManager, requestId: string, user: User) {
   const rc = await loadRequest(manager, requestId)
   return requestJson(manager, rc, await viewerOf(manager, rc, user))
+}
+
+export interface RequestListQuery {
+  firingId?: string
+  studioId?: string
+  state?: RequestState
+  as?: 'potter' | 'studio'
+}
+
+/** Mine: a potter's own requests, and for studio people the requests to their studios (never drafts). */
+export async function listRequests(manager: EntityManager, user: Pick<User, 'id'>, q: RequestListQuery) {
+  const memberships = await manager.getRepository(StudioMember).find({ where: { userId: user.id } })
+  const studioIds = memberships.map((m) => m.studioId).filter((sid) => !q.studioId || sid === q.studioId)
+  const qb = manager
+    .getRepository(FiringRequest)
+    .createQueryBuilder('r')
+    .innerJoin('r.firing', 'f')
+    .innerJoin('f.kiln', 'k')
+    .orderBy('r.updatedAt', 'DESC')
+    .take(200)
+  const asPotter = q.as !== 'studio'
+  const asStudio = q.as !== 'potter' && studioIds.length > 0
+  if (asPotter && asStudio)
+    qb.where('(r.potter_id = :me OR (k.studio_id IN (:...studioIds) AND r.state <> :draft))', { me: user.id, studioIds, draft: 'draft' })
+  else if (asStudio) qb.where('k.studio_id IN (:...studioIds) AND r.state <> :draft', { studioIds, draft: 'draft' })
+  else qb.where('r.potter_id = :me', { me: user.id })
+  if (q.firingId) qb.andWhere('r.firing_id = :firingId', { firingId: q.firingId })
+  if (q.state) qb.andWhere('r.state = :state', { state: q.state })
+  return requestRows(manager, await qb.getMany())
 }

@@ -2,7 +2,7 @@
 // the deposit hold, moves, withdrawals and their refunds.
 import type { EntityManager } from 'typeorm'
 import { In } from 'typeorm'
-import { enqueueStudioSync } from '../../search/sync'
+import { enqueueStudioSync } from './search-sync'
 import { checkWare, requestVolumeL, type Piece, type WareCheck } from '../../shared/firing/check'
 import { quoteRequest } from '../../shared/firing/quote'
 import { takesRequests } from '../../shared/workflow/firing-status'
@@ -270,16 +270,14 @@ export async function proposeMove(ctx: AppContext, actor: User, id: string, firi
       throw new HttpError(422, 'ware-blocked', 'This ware cannot go in that firing.', undefined, { findings: check.findings })
     }
     await manager.update(FiringRequest, id, { proposedFiringId: target.id })
-    await manager
-      .getRepository(RequestEvent)
-      .save({
-        requestId: id,
-        actorId: actor.id,
-        fromState: 'sent',
-        toState: 'sent',
-        reason: 'Another firing proposed',
-        data: { proposedFiringId: target.id },
-      })
+    await manager.getRepository(RequestEvent).save({
+      requestId: id,
+      actorId: actor.id,
+      fromState: 'sent',
+      toState: 'sent',
+      reason: 'Another firing proposed',
+      data: { proposedFiringId: target.id },
+    })
     await queueMail(manager, rc.potter.email, 'move-proposed', moveProposedMail(factsOf(rc, ctx.config.publicUrl), target))
   })
 }
@@ -294,16 +292,14 @@ export async function answerMove(ctx: AppContext, potter: User, id: string, acce
     const to = rc.request.proposedFiringId
     if (!accept) {
       await manager.update(FiringRequest, id, { proposedFiringId: null })
-      await manager
-        .getRepository(RequestEvent)
-        .save({
-          requestId: id,
-          actorId: potter.id,
-          fromState: 'sent',
-          toState: 'sent',
-          reason: 'Move refused',
-          data: { proposedFiringId: to },
-        })
+      await manager.getRepository(RequestEvent).save({
+        requestId: id,
+        actorId: potter.id,
+        fromState: 'sent',
+        toState: 'sent',
+        reason: 'Move refused',
+        data: { proposedFiringId: to },
+      })
       return
     }
     const target = await manager.getRepository(Firing).findOneByOrFail({ id: to })
@@ -311,16 +307,14 @@ export async function answerMove(ctx: AppContext, potter: User, id: string, acce
     if (check.verdict === 'block')
       throw new HttpError(422, 'ware-blocked', 'The ware cannot go in that firing any more.', undefined, { findings: check.findings })
     await manager.update(FiringRequest, id, { firingId: to, quote, volumeL, verdict: check.verdict, findings: check.findings })
-    await manager
-      .getRepository(RequestEvent)
-      .save({
-        requestId: id,
-        actorId: potter.id,
-        fromState: 'sent',
-        toState: 'sent',
-        reason: 'Move accepted',
-        data: { from: rc.firing.id, to },
-      })
+    await manager.getRepository(RequestEvent).save({
+      requestId: id,
+      actorId: potter.id,
+      fromState: 'sent',
+      toState: 'sent',
+      reason: 'Move accepted',
+      data: { from: rc.firing.id, to },
+    })
     const moved = await loadRequest(manager, id, { lock: true })
     await holdSpace(ctx, manager, moved, potter.id, 'Moved to the proposed firing')
   })
@@ -425,15 +419,13 @@ export async function adminRefund(ctx: AppContext, id: string, amountCents: numb
         amountCents: `At most ${net} cents.`,
       })
     await enqueueRefund(manager, id, amountCents, `Refunded by the Conewright desk: ${reason}`)
-    await manager
-      .getRepository(RequestEvent)
-      .save({
-        requestId: id,
-        actorId: null,
-        fromState: null,
-        toState: (await manager.getRepository(FiringRequest).findOneByOrFail({ id })).state,
-        reason: `Refund of ${amountCents} cents by the desk: ${reason}`,
-        data: { amountCents },
-      })
+    await manager.getRepository(RequestEvent).save({
+      requestId: id,
+      actorId: null,
+      fromState: null,
+      toState: (await manager.getRepository(FiringRequest).findOneByOrFail({ id })).state,
+      reason: `Refund of ${amountCents} cents by the desk: ${reason}`,
+      data: { amountCents },
+    })
   })
 }

@@ -1,9 +1,14 @@
 import { MeilisearchApiError } from 'meilisearch'
-import { firingsIndex } from '../../search/client'
-import type { FiringDocument } from '../../search/documents'
-import { searchPostgres } from '../../search/fallback'
-import { distanceKm, engineFilter, engineSort, type FiringSearch } from '../../search/query'
-import { FIRING_FACETS } from '../../search/settings'
+import {
+  distanceKm,
+  engineFilter,
+  engineSort,
+  FIRING_FACETS,
+  firingsIndex,
+  searchPostgres,
+  type FiringDocument,
+  type FiringSearch,
+} from '../../search/public'
 import { DEFAULT_RADIUS_KM, type SearchHit, type SearchQuery, type SearchResponse } from '../../shared/schemas/search'
 import type { AppContext } from '../context'
 import { badRequest } from '../http/errors'

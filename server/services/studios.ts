@@ -8,7 +8,7 @@ import { StudioMember, type StudioRole } from '../entities/StudioMember'
 export type { PublicStudioJson, StudioJson }
 import type { User } from '../entities/User'
 import { badRequest, conflict, notFound } from '../http/errors'
-import { enqueueStudioSync } from '../../search/sync'
+import { enqueueStudioSync } from './search-sync'
 import { lookupPlace, timezoneAt, type Place } from './gazetteer'
 
 export function publicStudioJson(studio: Studio): PublicStudioJson {

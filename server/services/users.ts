@@ -125,3 +125,10 @@ export async function resendVerification(ctx: AppContext, user: User) {
     await sendVerificationMail(ctx, manager, user)
   })
 }
+
+/** The account's own settings: display name and unit system. */
+export async function updatePreferences(ctx: AppContext, user: User, patch: { unitSystem?: 'imperial' | 'metric'; displayName?: string }) {
+  Object.assign(user, patch)
+  await ctx.db.getRepository(User).update(user.id, patch)
+  return user
+}

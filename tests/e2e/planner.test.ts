@@ -1,6 +1,6 @@
 // The firing planner in a real browser against the real server, as a visitor: pick a demo kiln, put
 // in a greenware piece, see the wet-greenware block come and go, the curve drawn, and °C on request.
-import type { Browser, Page } from 'playwright-core'
+import type { Browser } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { launchBrowser, openPage } from '../support/browser'
 import { startTestApp, type TestApp } from '../support/test-app'

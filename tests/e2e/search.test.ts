@@ -3,7 +3,7 @@
 // the map, narrows by a piece's height, goes back to the earlier search, and opens a studio.
 import type { Browser, Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { startSearchEngine } from '../../search/engine/server'
+import { startSearchEngine } from '../../standins/search-engine/server'
 import { launchBrowser, openPage } from '../support/browser'
 import { createPerson, PERSON_PASSWORD, type Person } from '../support/people'
 import { HttpSession } from '../support/http-client'

@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { freePort } from '../../scripts/lib/system.mjs'
 import { OutboundMail } from '../../server/entities/OutboundMail'
-import { startMailCatcher, type MailCatcher } from '../../server/fakes/mail-catcher'
+import { startMailCatcher, type MailCatcher } from '../../standins/mail-catcher'
 import { queueMail, sendQueuedMail } from '../../server/services/mail'
 import { listMail, waitForMail } from '../support/mailbox'
 import { startTestApp, type TestApp } from '../support/test-app'

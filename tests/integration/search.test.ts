@@ -3,7 +3,7 @@
 import fc from 'fast-check'
 import { getDistance } from 'geolib'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { startSearchEngine } from '../../search/engine/server'
+import { startSearchEngine } from '../../standins/search-engine/server'
 import { pieceFitsFootprint, type Kiln } from '../../shared/firing/check'
 import { HttpSession } from '../support/http-client'
 import { createPerson, type Person } from '../support/people'

@@ -18,7 +18,18 @@ declare module 'vitest' {
   }
 }
 
-export default async function setup(project: TestProject) {
+interface SharedDatabase {
+  adminUrl: string
+  templateDatabase: string
+  users: number
+  close: () => Promise<void>
+}
+
+// The integration and end-to-end projects each call this setup; they share one cluster and template,
+// kept on globalThis (the setup module may be loaded once per project) and removed by the last user.
+const shared = globalThis as typeof globalThis & { conewrightTestDatabase?: Promise<SharedDatabase> }
+
+async function startDatabase(): Promise<SharedDatabase> {
   let adminUrl = process.env.TEST_PG_ADMIN_URL
   let remove: (() => void) | null = null
   if (!adminUrl) {
@@ -41,12 +52,28 @@ export default async function setup(project: TestProject) {
   await migrateQueue({ db, config: loadConfig({}, { databaseUrl: templateUrl }), log: silentLogger })
   await db.destroy()
 
-  project.provide('pgAdminUrl', adminUrl)
-  project.provide('templateDatabase', templateDatabase)
+  return {
+    adminUrl,
+    templateDatabase,
+    users: 0,
+    close: async () => {
+      await admin.query(`DROP DATABASE IF EXISTS ${templateDatabase} WITH (FORCE)`).catch(() => {})
+      await admin.end()
+      remove?.()
+    },
+  }
+}
+
+export default async function setup(project: TestProject) {
+  shared.conewrightTestDatabase ??= startDatabase()
+  const database = await shared.conewrightTestDatabase
+  database.users++
+  project.provide('pgAdminUrl', database.adminUrl)
+  project.provide('templateDatabase', database.templateDatabase)
 
   return async () => {
-    await admin.query(`DROP DATABASE IF EXISTS ${templateDatabase} WITH (FORCE)`).catch(() => {})
-    await admin.end()
-    remove?.()
+    if (--database.users > 0) return
+    shared.conewrightTestDatabase = undefined
+    await database.close()
   }
 }

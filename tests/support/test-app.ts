@@ -10,9 +10,9 @@ import { loadConfig, type Config } from '../../server/config'
 import { silentLogger, type AppContext } from '../../server/context'
 import { createDataSource } from '../../server/db/data-source'
 import { startWorker } from '../../server/jobs/worker'
-import { startMailCatcher, type MailCatcher } from '../../server/fakes/mail-catcher'
-import { startSearchEngine, type RunningSearchEngine } from '../../search/engine/server'
-import { startStripeStandIn, type StripeStandIn } from '../../server/fakes/stripe/standin'
+import { startMailCatcher, type MailCatcher } from '../../standins/mail-catcher'
+import { startSearchEngine, type RunningSearchEngine } from '../../standins/search-engine/server'
+import { startStripeStandIn, type StripeStandIn } from '../../standins/stripe/standin'
 import { createTestDatabase } from './database'
 
 export interface TestApp {

@@ -1,11 +1,10 @@
 // The shapes the requests API answers with (server/services/request-views.ts), and the firing,
 // kiln and studio records the compose page reads (server/services/firings.ts, kilns.ts, studios.ts).
-import type { Finding, Kiln, Piece, Verdict } from '../../../../shared/firing/check'
+import type { Finding, Piece, Verdict } from '../../../../shared/firing/check'
 import type { FiringLogRecord } from '../../../components/firing/FiringLog'
 import type { PhotoRecord } from '../../../components/photos/photoTypes'
 import type { PriceList, Quote } from '../../../../shared/firing/quote'
 import type { StudioPolicies } from '../../../../shared/schemas/studios'
-import type { FiringStatus } from '../../../../shared/workflow/firing-status'
 import type { RequestState } from '../../../../shared/workflow/request-states'
 
 import type { FiringJson as FiringRecord, KilnJson as KilnRecord } from '../../../../shared/api/studios'

@@ -16,8 +16,8 @@ import type { AddressInfo } from 'node:net'
 import Stripe from 'stripe'
 import { CARD_DECLINED, CARD_INSUFFICIENT_FUNDS, CARD_SUCCEEDS, submitCard } from '../support/checkout'
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest'
-import { startStripeStandIn, type StripeStandIn } from '../../server/fakes/stripe/standin'
-import { passesLuhn } from '../../server/fakes/stripe/test-cards'
+import { startStripeStandIn, type StripeStandIn } from '../../standins/stripe/standin'
+import { passesLuhn } from '../../standins/stripe/test-cards'
 
 const REAL_KEY = process.env.STRIPE_SECRET_KEY
 const REAL_BASE = process.env.STRIPE_API_BASE

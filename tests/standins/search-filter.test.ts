@@ -5,7 +5,13 @@
 
 import { describe, expect, it } from 'vitest'
 
-import { FilterSyntaxError, filterFields, parseFilter, parseFilterString, type FilterNode } from '../../search/engine/filter-parser'
+import {
+  FilterSyntaxError,
+  filterFields,
+  parseFilter,
+  parseFilterString,
+  type FilterNode,
+} from '../../standins/search-engine/filter-parser'
 
 function display(node: FilterNode): string {
   const token = (value: { value: string }) => `{${value.value}}`

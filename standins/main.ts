@@ -1,7 +1,7 @@
 // The local stand-ins `npm start` runs beside the app for each outside service that is not
 // configured. A process of its own, so restarting the app in development keeps caught mail and the
 // stand-ins' state. It prints one line, STANDINS {json}, with the environment that points the app at them.
-import { startSearchEngine } from '../../search/engine/server'
+import { startSearchEngine } from './search-engine/server'
 import { startMailCatcher } from './mail-catcher'
 import { startStripeStandIn } from './stripe/standin'
 

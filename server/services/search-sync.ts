@@ -3,11 +3,16 @@
 // writes them to the search_documents table and to the engine. A failed engine write is retried by
 // the queue, so an outage loses nothing.
 import { In, Not, type EntityManager } from 'typeorm'
-import type { AppContext } from '../server/context'
-import { SearchDocument } from '../server/entities/SearchDocument'
-import { enqueueJob } from '../server/jobs/queue'
-import { ensureFiringsIndex, firingsIndex } from './client'
-import { publishedStudioIds, studioDocuments, type FiringDocument } from './documents'
+import { firingDocument, replaceAllDocuments, writeStudioDocuments, type FiringDocument } from '../../search/public'
+import type { AppContext } from '../context'
+import { Firing } from '../entities/Firing'
+import { Kiln } from '../entities/Kiln'
+import { SearchDocument } from '../entities/SearchDocument'
+import { Studio } from '../entities/Studio'
+import { enqueueJob } from '../jobs/queue'
+import { heldLitres } from './firings'
+import { getPriceList, kilnSpec } from './kilns'
+import { studioRatings } from './studio-ratings'
 
 export const SYNC_STUDIO_TASK = 'search-sync-studio'
 export const REINDEX_TASK = 'search-reindex'
@@ -19,6 +24,55 @@ export async function enqueueStudioSync(manager: EntityManager, studioId: string
 
 export async function enqueueReindex(manager: EntityManager) {
   await enqueueJob(manager, REINDEX_TASK, {}, { jobKey: 'search-reindex', maxAttempts: 30 })
+}
+
+/** The documents of one studio as PostgreSQL has it now; empty when it is unpublished or gone. */
+export async function studioDocuments(manager: EntityManager, studioId: string, now = new Date()): Promise<FiringDocument[]> {
+  const studio = await manager.getRepository(Studio).findOne({ where: { id: studioId } })
+  if (!studio || !studio.published) return []
+  const kilns = (await manager.getRepository(Kiln).find({ where: { studioId } })).filter((k) => !k.retiredAt)
+  if (!kilns.length) return []
+  const firings = await manager
+    .getRepository(Firing)
+    .createQueryBuilder('f')
+    .where('f.kiln_id = ANY(:kilnIds)', { kilnIds: kilns.map((k) => k.id) })
+    .andWhere(`f.status = 'open'`)
+    .andWhere('f.drop_off_by > :now', { now })
+    .getMany()
+  const held = await heldLitres(
+    manager,
+    firings.map((f) => f.id),
+  )
+  const rating = (await studioRatings(manager, [studioId])).get(studioId) ?? null
+  const priceLists = new Map(await Promise.all(kilns.map(async (k) => [k.id, await getPriceList(manager, k.id)] as const)))
+  const byId = new Map(kilns.map((k) => [k.id, k]))
+  const place = {
+    id: studio.id,
+    name: studio.name,
+    city: studio.city,
+    region: studio.region,
+    verified: studio.verifiedAt !== null,
+    lat: studio.lat,
+    lng: studio.lng,
+    currency: studio.currency,
+  }
+  return firings.map((firing) => {
+    const kiln = byId.get(firing.kilnId)!
+    return firingDocument({
+      studio: place,
+      kiln: { id: kiln.id, name: kiln.name, kind: kiln.kind, spec: kilnSpec(kiln) },
+      firing,
+      spaceLeftL: firing.capacityL - (held.get(firing.id) ?? 0),
+      priceList: priceLists.get(kiln.id) ?? null,
+      rating,
+    })
+  })
+}
+
+/** Every studio that may have documents: the published ones. */
+async function publishedStudioIds(manager: EntityManager): Promise<string[]> {
+  const rows: { id: string }[] = await manager.query(`SELECT id FROM studios WHERE published`)
+  return rows.map((r) => r.id)
 }
 
 function rowOf(doc: FiringDocument): Omit<SearchDocument, 'updatedAt'> {
@@ -56,26 +110,11 @@ async function writeTable(ctx: AppContext, studioId: string, docs: FiringDocumen
   })
 }
 
-async function waitOk(
-  promise: { waitTask(options?: { timeout?: number }): Promise<{ status: string; error?: { message: string } | null }> },
-  what: string,
-) {
-  const task = await promise.waitTask({ timeout: 30_000 })
-  if (task.status !== 'succeeded') throw new Error(`search engine: ${what} ${task.status}: ${task.error?.message ?? ''}`)
-}
-
 /** Rebuilds one studio's documents in both places. Throws (for the queue to retry) if the engine fails. */
 export async function syncStudio(ctx: AppContext, studioId: string) {
   const docs = await studioDocuments(ctx.db.manager, studioId)
   await writeTable(ctx, studioId, docs)
-  await ensureFiringsIndex(ctx.config)
-  const index = firingsIndex(ctx.config)
-  if (docs.length) await waitOk(index.addDocuments(docs), 'adding documents')
-  const keep = docs.map((d) => `"${d.id}"`).join(', ')
-  await waitOk(
-    index.deleteDocuments({ filter: docs.length ? `studioId = "${studioId}" AND id NOT IN [${keep}]` : `studioId = "${studioId}"` }),
-    'deleting stale documents',
-  )
+  await writeStudioDocuments(ctx.config, studioId, docs)
 }
 
 /** Rebuilds the whole index from PostgreSQL: `npm run search:reindex`, and on every server start. */
@@ -84,21 +123,16 @@ export async function reindexAll(
   onProgress?: (done: number, total: number) => void,
 ): Promise<{ studios: number; documents: number }> {
   const studioIds = await publishedStudioIds(ctx.db.manager)
-  await ensureFiringsIndex(ctx.config)
-  const index = firingsIndex(ctx.config)
-  let documents = 0
   const all: FiringDocument[] = []
   for (const [i, studioId] of studioIds.entries()) {
     const docs = await studioDocuments(ctx.db.manager, studioId)
     await writeTable(ctx, studioId, docs)
     all.push(...docs)
-    documents += docs.length
     onProgress?.(i + 1, studioIds.length)
   }
   await ctx.db.query(`DELETE FROM search_documents WHERE NOT (studio_id = ANY($1::uuid[]))`, [studioIds])
-  await waitOk(index.deleteAllDocuments(), 'clearing the index')
-  for (let i = 0; i < all.length; i += 5000) await waitOk(index.addDocuments(all.slice(i, i + 5000)), 'adding documents')
+  await replaceAllDocuments(ctx.config, all)
   // Every row was just rewritten: reclaim the old versions so the fallback's scans stay short.
   await ctx.db.query('VACUUM (ANALYZE) search_documents').catch((error) => ctx.log.warn('could not vacuum search_documents', error))
-  return { studios: studioIds.length, documents }
+  return { studios: studioIds.length, documents: all.length }
 }

@@ -14,7 +14,7 @@ import { getDistance, isPointInPolygon } from 'geolib'
 import { Meilisearch, MeilisearchApiError, type Index, type Settings, type Task } from 'meilisearch'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 
-import { startSearchEngine, type RunningSearchEngine } from '../../search/engine/server'
+import { startSearchEngine, type RunningSearchEngine } from '../../standins/search-engine/server'
 
 type FiringDocument = {
   id: string
