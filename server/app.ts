@@ -18,6 +18,7 @@ import { invitesRouter } from './routes/invites'
 import { kilnsRouter } from './routes/kilns'
 import { metaRouter } from './routes/meta'
 import { photosRouter } from './routes/photos'
+import { firingLogsRouter } from './routes/firing-logs'
 import { pickupRouter } from './routes/pickup'
 import { placesRouter } from './routes/places'
 import { ratingsRouter } from './routes/ratings'
@@ -115,6 +116,7 @@ export function createApp(ctx: AppContext): App {
   app.use('/api', placesRouter(ctx))
   app.use('/api', requestsRouter(ctx))
   app.use('/api', pickupRouter(ctx))
+  app.use('/api', firingLogsRouter(ctx))
   app.use('/api', photosRouter(ctx))
   app.use('/api', ratingsRouter(ctx))
   app.use('/api', adminRouter(ctx))

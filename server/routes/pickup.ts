@@ -1,26 +1,14 @@
 import { Router } from 'express'
-import { checkInSchema, counterPaymentSchema, firingLogSchema, resultsSchema } from '../../shared/schemas/pickup'
+import { checkInSchema, counterPaymentSchema, resultsSchema } from '../../shared/schemas/pickup'
 import { requireAuth } from '../auth/guards'
-import { requireStudioMember, studioOfFiring } from '../auth/studio-access'
 import type { AppContext } from '../context'
 import { requireUuidParams, validateBody } from '../http/validate'
-import {
-  checkIn,
-  confirmPrice,
-  counterPayment,
-  firingLogJson,
-  markCollected,
-  markReady,
-  openBalance,
-  postResults,
-  putFiringLog,
-} from '../services/pickup'
+import { checkIn, confirmPrice, counterPayment, markCollected, markReady, openBalance, postResults } from '../services/pickup'
 import { showRequest } from '../services/request-views'
 
 export function pickupRouter(ctx: AppContext) {
   const router = Router()
   const id = requireUuidParams('id')
-  const firingMember = requireStudioMember(ctx, ['owner', 'crew'], studioOfFiring(ctx))
 
   const show = (requestId: string, user: Express.User) => showRequest(ctx.db.manager, requestId, user)
 
@@ -57,14 +45,6 @@ export function pickupRouter(ctx: AppContext) {
   router.post('/requests/:id/collected', requireAuth, id, async (req, res) => {
     await markCollected(ctx, req.user!, String(req.params.id))
     res.json(await show(String(req.params.id), req.user!))
-  })
-
-  router.put('/firings/:id/log', firingMember, validateBody(firingLogSchema), async (req, res) => {
-    res.json(await putFiringLog(ctx, req.user!.id, String(req.params.id), req.body))
-  })
-
-  router.get('/firings/:id/log', firingMember, async (req, res) => {
-    res.json((await firingLogJson(ctx.db.manager, String(req.params.id))) ?? { witnessCones: [], coneCheck: null })
   })
 
   return router

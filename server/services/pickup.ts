@@ -4,13 +4,10 @@ import type { EntityManager } from 'typeorm'
 import { In } from 'typeorm'
 import { enqueueStudioSync } from './search-sync'
 import { mmToIn } from '../../shared/firing/units'
-import { crossCheckCones } from '../../shared/firing/witness'
-import type { FiringLogBody } from '../../shared/schemas/pickup'
 import type { FiringStatus } from '../../shared/workflow/firing-status'
 import type { AppContext } from '../context'
 import { CheckIn, type ReceivedPiece } from '../entities/CheckIn'
 import type { Firing } from '../entities/Firing'
-import { FiringLog } from '../entities/FiringLog'
 import { FiringRequest } from '../entities/FiringRequest'
 import { LedgerEntry } from '../entities/LedgerEntry'
 import { RequestEvent } from '../entities/RequestEvent'
@@ -18,6 +15,7 @@ import { RequestResult, type PieceOutcome } from '../entities/RequestResult'
 import type { User } from '../entities/User'
 import { conflict, forbidden, HttpError } from '../http/errors'
 import { dropOffMail, firingProgressMail, noShowMail, pickupMail, readyMail, refusedMail } from '../mail/templates/pickup'
+import { firingLogJson } from './firing-log'
 import { queueMail } from './mail'
 import { enqueueRefund, moneyOf, openCheckout } from './payments'
 import { refundUnderTerms } from '../../shared/refunds'
@@ -189,54 +187,6 @@ export async function confirmPrice(ctx: AppContext, potter: User, id: string) {
       data: { totalCents: checkInRow.quoteAfter?.totalCents },
     })
   })
-}
-
-/** The firing's log, with the cone reached read from the witness cones and checked against the peak. */
-export async function firingLogJson(manager: EntityManager, firingId: string) {
-  const log = await manager.getRepository(FiringLog).findOne({ where: { firingId } })
-  if (!log) return null
-  const hours = log.startedAt && log.offAt ? (log.offAt.getTime() - log.startedAt.getTime()) / 3600_000 : null
-  return {
-    loadedAt: log.loadedAt?.toISOString() ?? null,
-    startedAt: log.startedAt?.toISOString() ?? null,
-    peakC: log.peakC,
-    finalRateCPerHour: log.finalRateCPerHour,
-    holdMinutes: log.holdMinutes,
-    offAt: log.offAt?.toISOString() ?? null,
-    openedAt: log.openedAt?.toISOString() ?? null,
-    totalHours: hours === null ? null : Math.round(hours * 10) / 10,
-    witnessCones: log.witnessCones,
-    notes: log.notes,
-    coneCheck: crossCheckCones(log.witnessCones, log.peakC, log.finalRateCPerHour),
-    updatedAt: log.updatedAt.toISOString(),
-  }
-}
-
-export async function putFiringLog(ctx: AppContext, actorId: string, firingId: string, body: FiringLogBody) {
-  const date = (v: string | null | undefined) => (v ? new Date(v) : null)
-  const times = [body.loadedAt, body.startedAt, body.offAt, body.openedAt].map(date)
-  for (let i = 1; i < times.length; i++) {
-    const earlier = times.slice(0, i).filter(Boolean).at(-1)
-    if (earlier && times[i] && times[i]! < earlier) {
-      throw new HttpError(400, 'invalid-input', 'The times must run in order: loaded, started, off, opened.', {
-        [['loadedAt', 'startedAt', 'offAt', 'openedAt'][i]]: 'Earlier than the step before it.',
-      })
-    }
-  }
-  await ctx.db.getRepository(FiringLog).save({
-    firingId,
-    loadedAt: times[0],
-    startedAt: times[1],
-    offAt: times[2],
-    openedAt: times[3],
-    peakC: body.peakC ?? null,
-    finalRateCPerHour: body.finalRateCPerHour ?? null,
-    holdMinutes: body.holdMinutes ?? null,
-    witnessCones: body.witnessCones,
-    notes: body.notes ?? '',
-    updatedBy: actorId,
-  })
-  return firingLogJson(ctx.db.manager, firingId)
 }
 
 const STAGE_NOTE: Partial<Record<FiringStatus, string>> = {
