@@ -19,6 +19,7 @@ import { kilnsRouter } from './routes/kilns'
 import { metaRouter } from './routes/meta'
 import { photosRouter } from './routes/photos'
 import { firingLogsRouter } from './routes/firing-logs'
+import { noticesRouter } from './routes/notices'
 import { pickupRouter } from './routes/pickup'
 import { placesRouter } from './routes/places'
 import { ratingsRouter } from './routes/ratings'
@@ -117,6 +118,7 @@ export function createApp(ctx: AppContext): App {
   app.use('/api', requestsRouter(ctx))
   app.use('/api', pickupRouter(ctx))
   app.use('/api', firingLogsRouter(ctx))
+  app.use('/api', noticesRouter(ctx))
   app.use('/api', photosRouter(ctx))
   app.use('/api', ratingsRouter(ctx))
   app.use('/api', adminRouter(ctx))

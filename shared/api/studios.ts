@@ -79,4 +79,6 @@ export interface FiringJson {
   notes: string
   seriesId: string | null
   cancelledReason: string | null
+  /** The last stage move while it can still be undone: back to `from`, until `until`. */
+  undo: { from: FiringStatus; until: string } | null
 }

@@ -153,11 +153,15 @@ export const firingCreateSchema = z
   .superRefine(datesInOrder)
 export type FiringCreateBody = z.infer<typeof firingCreateSchema>
 
-export const firingPatchSchema = z
-  .object({ ...firingFields, status: z.enum(FIRING_STATUSES, { error: 'Unknown firing status.' }) })
-  .partial()
-  .superRefine(datesInOrder)
+export const firingPatchSchema = z.strictObject({ ...firingFields }).partial().superRefine(datesInOrder)
 export type FiringPatchBody = z.infer<typeof firingPatchSchema>
+
+/** A stage move; `confirm` answers the question the server asked (a date ahead, requests that lapse). */
+export const firingMoveSchema = z.object({
+  status: z.enum(FIRING_STATUSES, { error: 'Unknown firing status.' }),
+  confirm: z.boolean().optional(),
+})
+export type FiringMoveBody = z.infer<typeof firingMoveSchema>
 
 export const firingCancelSchema = z.object({
   reason: z

@@ -39,7 +39,7 @@ const paid = (firingId: string, pieces = [mug()]) => sendAndPayDeposit(app, owne
 
 async function move(firingId: string, ...statuses: string[]) {
   for (const status of statuses) {
-    const reply = await owner.session.patch(`/api/firings/${firingId}`, { status })
+    const reply = await owner.session.post(`/api/firings/${firingId}/stage`, { status, confirm: true })
     expect(reply.status, JSON.stringify(reply.body)).toBe(200)
   }
 }
@@ -103,7 +103,7 @@ describe('the whole way, from drop-off to ratings', () => {
     const ready = await owner.session.post(`/api/requests/${sent.id}/ready`)
     expect(ready.body.state).toBe('ready')
     const owed = sent.quote.totalCents - sent.quote.depositCents
-    expect(ready.body.owedCents).toBe(owed)
+    expect(ready.body.price.balanceOwedCents).toBe(owed)
     const readyMail = await mailsFor('ready', sent.id)
     expect(readyMail[0].bodyText).toContain('Pickup hours')
     expect(readyMail[0].bodyText).toContain(new Intl.NumberFormat('en-US', { style: 'currency', currency: 'USD' }).format(owed / 100))
@@ -113,7 +113,7 @@ describe('the whole way, from drop-off to ratings', () => {
     const balance = await potter.session.post(`/api/requests/${sent.id}/balance`)
     expect(balance.body.amountCents).toBe(owed)
     await submitCard(balance.body.checkoutUrl, { cardNumber: CARD_SUCCEEDS })
-    await expect.poll(async () => (await potter.session.get(`/api/requests/${sent.id}`)).body.owedCents, { timeout: 15_000 }).toBe(0)
+    await expect.poll(async () => (await potter.session.get(`/api/requests/${sent.id}`)).body.price.balanceOwedCents, { timeout: 15_000 }).toBe(0)
     const ledger = (await potter.session.get(`/api/requests/${sent.id}`)).body.ledger.map(
       (l: { kind: string; amountCents: number }) => `${l.kind}:${l.amountCents}`,
     )
@@ -166,9 +166,9 @@ describe('drop-off', () => {
     const potterView = (await potter.session.get(`/api/requests/${sent.id}`)).body
     expect(potterView.actions).toContain('confirm-price')
     // Until confirmed, the declared price stands.
-    expect(potterView.owedCents).toBe(sent.quote.totalCents - sent.quote.depositCents)
+    expect(potterView.price.balanceOwedCents).toBe(sent.quote.totalCents - sent.quote.depositCents)
     await potter.session.post(`/api/requests/${sent.id}/confirm-price`)
-    expect((await potter.session.get(`/api/requests/${sent.id}`)).body.owedCents).toBe(
+    expect((await potter.session.get(`/api/requests/${sent.id}`)).body.price.balanceOwedCents).toBe(
       checkedIn.body.priceAfterCents - sent.quote.depositCents,
     )
   })
@@ -179,7 +179,7 @@ describe('drop-off', () => {
     const checkedIn = await owner.session.post(`/api/requests/${sent.id}/check-in`, { pieces: [{ pieceIndex: 0, received: 2 }] })
     expect(checkedIn.body.needsConfirmation).toBe(false)
     expect(checkedIn.body.priceAfterCents).toBeLessThan(sent.quote.totalCents)
-    expect((await potter.session.get(`/api/requests/${sent.id}`)).body.owedCents).toBe(
+    expect((await potter.session.get(`/api/requests/${sent.id}`)).body.price.balanceOwedCents).toBe(
       Math.max(0, checkedIn.body.priceAfterCents - sent.quote.depositCents),
     )
   })

@@ -67,7 +67,7 @@ describe('the deposit', () => {
         stripePaymentIntentId: expect.stringMatching(/^pi_/),
       }),
     ])
-    const mails = await app.ctx.db.getRepository(OutboundMail).findBy({ template: 'deposit-received' })
+    const mails = await app.ctx.db.getRepository(OutboundMail).findBy({ template: 'payment-received' })
     expect(
       mails
         .filter((m) => m.bodyText.includes(sent.id))
@@ -143,7 +143,7 @@ describe('webhooks', () => {
     // The hold runs out before the payment lands.
     await app.ctx.db.query(`UPDATE firing_requests SET deposit_due_at = now() - interval '1 minute' WHERE id = $1`, [sent.id])
     expect(await expireDepositHold(app.ctx, sent.id)).toBe(true)
-    expect(await state(sent.id)).toBe('cancelled')
+    expect(await state(sent.id)).toBe('lapsed')
     // The page was still open in a tab (the stand-in only learns of the expiry when asked), and it pays.
     await submitCard(deposit.body.checkoutUrl, { cardNumber: CARD_SUCCEEDS }).catch(() => null)
     await app.stripe!.idle()
@@ -156,7 +156,7 @@ describe('webhooks', () => {
         { timeout: 15_000 },
       )
       .toEqual([`in:${sent.quote.depositCents}`, `out:${sent.quote.depositCents}`])
-    expect(await state(sent.id)).toBe('cancelled')
+    expect(await state(sent.id)).toBe('lapsed')
   })
 })
 
@@ -171,14 +171,14 @@ describe('the deposit hold', () => {
     // The queued job, brought forward to now, releases it.
     await app.ctx.db.query(`UPDATE firing_requests SET deposit_due_at = now() - interval '1 second' WHERE id = $1`, [sent.id])
     await app.ctx.db.query(`UPDATE graphile_worker._private_jobs SET run_at = now() WHERE key = $1`, [`deposit-expiry:${sent.id}`])
-    await expect.poll(() => state(sent.id), { timeout: 15_000 }).toBe('cancelled')
+    await expect.poll(() => state(sent.id), { timeout: 15_000 }).toBe('lapsed')
     expect((await new HttpSession(app.url).get(`/api/firings/${firing.id}`)).body.heldL).toBe(0)
-    const mails = (await app.ctx.db.getRepository(OutboundMail).findBy({ template: 'hold-released' })).filter((m) =>
+    const mails = (await app.ctx.db.getRepository(OutboundMail).findBy({ template: 'lapsed' })).filter((m) =>
       m.bodyText.includes(sent.id),
     )
     expect(mails.map((m) => m.toAddress).sort()).toEqual([owner.email, potter.email].sort())
     const view = (await potter.session.get(`/api/requests/${sent.id}`)).body
-    expect(view.timeline.at(-1)).toMatchObject({ to: 'cancelled', by: 'Conewright' })
+    expect(view.timeline.at(-1)).toMatchObject({ to: 'lapsed', by: 'Conewright' })
   })
 })
 
@@ -245,8 +245,8 @@ describe('refunds', () => {
     const cancelled = await owner.session.post(`/api/requests/${sent.id}/decline`, { reason: 'Our kiln needs new elements' })
     expect(cancelled.body.state).toBe('cancelled')
     await expect
-      .poll(async () => (await potter.session.get(`/api/requests/${sent.id}`)).body.paid, { timeout: 15_000 })
-      .toEqual({ inCents: sent.quote.depositCents, refundedCents: sent.quote.depositCents, depositCents: sent.quote.depositCents })
+      .poll(async () => (await potter.session.get(`/api/requests/${sent.id}`)).body.price, { timeout: 15_000 })
+      .toMatchObject({ paidInCents: sent.quote.depositCents, refundedCents: sent.quote.depositCents, netPaidCents: 0 })
   })
 
   it('refunds in full when the studio cancels the firing', async () => {
@@ -255,7 +255,7 @@ describe('refunds', () => {
     await owner.session.post(`/api/firings/${firing.id}/cancel`, { reason: 'Power cut for the week' })
     expect(await state(sent.id)).toBe('cancelled')
     await expect
-      .poll(async () => (await potter.session.get(`/api/requests/${sent.id}`)).body.paid.refundedCents, { timeout: 15_000 })
+      .poll(async () => (await potter.session.get(`/api/requests/${sent.id}`)).body.price.refundedCents, { timeout: 15_000 })
       .toBe(sent.quote.depositCents)
   })
 })

@@ -22,6 +22,7 @@ export const STATE_TONES: Record<RequestState, BadgeTone> = {
   ready: 'celadon',
   collected: 'neutral',
   cancelled: 'danger',
+  lapsed: 'neutral',
   disputed: 'danger',
 }
 
@@ -44,7 +45,7 @@ export function potterNextStep(r: NextStepFacts): string {
     case 'received':
       return 'The studio has your ware; it goes in the kiln next'
     case 'fired':
-      return 'Fired; waiting for the studio to unload'
+      return 'Fired and unloaded; results come next'
     case 'ready':
       return 'Ready to collect'
     case 'collected':
@@ -55,6 +56,8 @@ export function potterNextStep(r: NextStepFacts): string {
       return 'You withdrew this request'
     case 'cancelled':
       return 'Cancelled'
+    case 'lapsed':
+      return 'Lapsed before it was settled; nothing more is owed'
     case 'disputed':
       return 'Being settled with the studio'
   }
