@@ -152,6 +152,27 @@ const ACTION_WORDS: Record<RequestAction, string> = {
 
 const STATE_WORDS = (state: RequestState) => state.replace('_', ' ')
 
+/** Why a refining predicate said no, for the actions whose "not now" has a better word than the state. */
+const NOT_NOW: Partial<Record<RequestAction, (facts: RequestFacts) => Omit<Refusal, 'status'>>> = {
+  accept: () => ({ code: 'firing-not-open', message: 'This firing is not taking ware any more.' }),
+  move: () => ({ code: 'firing-not-open', message: 'This firing is not taking ware any more.' }),
+  'answer-move': () => ({ code: 'no-move', message: 'No move is waiting for an answer.' }),
+  'pay-deposit': () => ({ code: 'nothing-owed', message: 'No deposit is owed for this request.' }),
+  'pay-balance': () => ({ code: 'nothing-owed', message: 'Nothing is owed.' }),
+  'counter-payment': () => ({ code: 'nothing-owed', message: 'Nothing is owed at this point.' }),
+  'check-in': () => ({ code: 'firing-loaded', message: 'The firing is already loaded; ware can no longer be checked in.' }),
+  'confirm-price': () => ({ code: 'nothing-to-confirm', message: 'No changed price waits for your answer.' }),
+  'decline-price': () => ({ code: 'nothing-to-confirm', message: 'No changed price waits for your answer.' }),
+  ready: () => ({ code: 'results-missing', message: 'Post the results first: the potter hears about them with the ready mail.' }),
+  collected: (f) => ({
+    code: 'balance-owed',
+    message: `${(f.balanceOwedCents / 100).toFixed(2)} is still owed. Take it at the counter or let the potter pay online first.`,
+  }),
+  rate: () => ({ code: 'already-rated', message: 'You have already rated this exchange.' }),
+  reply: () => ({ code: 'no-reply-now', message: 'There is no rating to answer, or it is answered already.' }),
+  'hand-back': () => ({ code: 'nothing-owed', message: 'No money from the counter is owed back.' }),
+}
+
 /** Why the side may not take the action now (null when it may): 403 for the wrong side, 409 for the wrong moment. */
 export function refusalOf(action: RequestAction, facts: RequestFacts, side: Side): Refusal | null {
   if (allowedActions(facts, side).includes(action)) return null
@@ -160,9 +181,6 @@ export function refusalOf(action: RequestAction, facts: RequestFacts, side: Side
     const code = side === 'potter' ? 'not-the-studio' : side === 'studio' ? 'not-the-potter' : 'not-your-side'
     return { status: 403, code, message: `Only ${who} can ${ACTION_WORDS[action]}.` }
   }
-  if ((action === 'accept' || action === 'move') && facts.state === 'sent' && !takesRequests(facts.firingStatus)) {
-    return { status: 409, code: 'firing-not-open', message: 'This firing is not taking ware any more.' }
-  }
   if (action === 'check-in' && facts.state === 'accepted') {
     return {
       status: 409,
@@ -170,13 +188,13 @@ export function refusalOf(action: RequestAction, facts: RequestFacts, side: Side
       message: 'The deposit is not paid yet. Record it at the counter first, or ask the potter to pay it on the request.',
     }
   }
-  if (action === 'ready' && facts.state === 'fired' && !facts.resultsPosted) {
-    return { status: 409, code: 'results-missing', message: 'Post the results first: the potter hears about them with the ready mail.' }
+  // Allowed in this state, but a predicate says not now.
+  if (TABLE[facts.state][side].includes(action) && NOT_NOW[action]) return { status: 409, ...NOT_NOW[action]!(facts) }
+  return {
+    status: 409,
+    code: 'bad-state-change',
+    message: `This request is ${STATE_WORDS(facts.state)}; you cannot ${ACTION_WORDS[action]} now.`,
   }
-  if (action === 'rate' && facts.ratedBy[side as 'potter' | 'studio']) {
-    return { status: 409, code: 'already-rated', message: 'You have already rated this exchange.' }
-  }
-  return { status: 409, code: 'bad-state-change', message: `This request is ${STATE_WORDS(facts.state)}; you cannot ${ACTION_WORDS[action]} now.` }
 }
 
 export { holdsSpace }
