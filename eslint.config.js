@@ -7,7 +7,7 @@ import tseslint from 'typescript-eslint'
 
 const restrict = (patterns) => ({ 'no-restricted-imports': ['error', { patterns }] })
 
-const FEATURES = ['admin', 'auth', 'home', 'planner', 'requests', 'search', 'studios']
+const FEATURES = ['admin', 'auth', 'home', 'notices', 'planner', 'requests', 'search', 'studios']
 
 export default tseslint.config(
   { ignores: ['dist/**', 'var/**', 'node_modules/**', 'public/**', 'coverage/**'] },

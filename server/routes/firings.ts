@@ -12,7 +12,8 @@ export function firingsRouter(ctx: AppContext) {
   const firing = studioOfFiring(ctx)
   const reader = allowStudioReader(ctx, firing)
   const member = requireStudioMember(ctx, ['owner', 'crew'], firing)
-  const json = async (found: Awaited<ReturnType<typeof getFiring>>, studioId: string) => (await firingsJson(ctx.db.manager, [found], studioId))[0]
+  const json = async (found: Awaited<ReturnType<typeof getFiring>>, studioId: string) =>
+    (await firingsJson(ctx.db.manager, [found], studioId))[0]
 
   router.get('/firings/:id', reader, async (req, res) => {
     const found = await getFiring(ctx.db.manager, String(req.params.id))

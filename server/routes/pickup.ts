@@ -3,7 +3,16 @@ import { checkInSchema, counterPaymentSchema, resultsSchema } from '../../shared
 import { requireAuth } from '../auth/guards'
 import type { AppContext } from '../context'
 import { requireUuidParams, validateBody } from '../http/validate'
-import { checkIn, confirmPrice, counterPayment, declinePrice, markCollected, markCounterRefundPaid, markReady, postResults } from '../services/pickup'
+import {
+  checkIn,
+  confirmPrice,
+  counterPayment,
+  declinePrice,
+  markCollected,
+  markCounterRefundPaid,
+  markReady,
+  postResults,
+} from '../services/pickup'
 import { checkoutFor } from '../services/payments'
 import { showRequest } from '../services/request-views'
 

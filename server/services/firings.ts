@@ -70,7 +70,8 @@ async function undoableMoves(manager: EntityManager, firingIds: string[], now = 
     )
   for (const row of rows) {
     const until = new Date(new Date(row.at).getTime() + UNDO_WINDOW_MS)
-    if (!row.undone_at && row.to_status !== 'cancelled' && until > now) moves.set(row.firing_id, { from: row.from_status, until: until.toISOString() })
+    if (!row.undone_at && row.to_status !== 'cancelled' && until > now)
+      moves.set(row.firing_id, { from: row.from_status, until: until.toISOString() })
   }
   return moves
 }

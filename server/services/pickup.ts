@@ -187,14 +187,12 @@ export async function postResults(
       throw new HttpError(400, 'invalid-input', 'A result names a piece the request does not have.', {
         outcomes: `No piece ${bad.pieceIndex + 1}.`,
       })
-    await manager
-      .getRepository(RequestResult)
-      .save({
-        requestId: id,
-        outcomes: body.outcomes.map((o) => ({ ...o, notes: o.notes ?? '' })),
-        notes: body.notes ?? '',
-        postedBy: actor.id,
-      })
+    await manager.getRepository(RequestResult).save({
+      requestId: id,
+      outcomes: body.outcomes.map((o) => ({ ...o, notes: o.notes ?? '' })),
+      notes: body.notes ?? '',
+      postedBy: actor.id,
+    })
     await step.note('Results posted')
   })
 }

@@ -4,7 +4,14 @@
 // before requests (by id), everywhere, so two actions never wait on each other in a circle; should
 // PostgreSQL still report a deadlock or a serialization failure, the whole action is run again.
 import { QueryFailedError, type EntityManager } from 'typeorm'
-import { allowedActions, refusalOf, SYSTEM_ACTIONS, type RequestAction, type RequestFacts, type SystemAction } from '../../shared/workflow/policy'
+import {
+  allowedActions,
+  refusalOf,
+  SYSTEM_ACTIONS,
+  type RequestAction,
+  type RequestFacts,
+  type SystemAction,
+} from '../../shared/workflow/policy'
 import { nextRequestStates, type RequestState } from '../../shared/workflow/request-states'
 import type { AppContext } from '../context'
 import { Firing } from '../entities/Firing'

@@ -44,7 +44,9 @@ function priceJson(rc: RequestContext, facts: RequestFacts, money: Awaited<Retur
 export async function requestJson(manager: EntityManager, rc: RequestContext, viewer: Viewer): Promise<RequestView> {
   const events = await manager.getRepository(RequestEvent).find({ where: { requestId: rc.request.id }, order: { at: 'ASC' } })
   const actorIds = [...new Set(events.map((e) => e.actorId).filter((id): id is string => Boolean(id)))]
-  const actors = new Map((actorIds.length ? await manager.getRepository(User).findBy({ id: In(actorIds) }) : []).map((u) => [u.id, u.displayName]))
+  const actors = new Map(
+    (actorIds.length ? await manager.getRepository(User).findBy({ id: In(actorIds) }) : []).map((u) => [u.id, u.displayName]),
+  )
   const money = await moneyOf(manager, rc.request.id)
   const facts = await requestFacts(manager, rc)
   const payments = await openPaymentsOf(manager, rc.request.id)

@@ -198,7 +198,14 @@ export interface RequestRow {
   findings: number
   volumeL: number
   pieceCount: number
-  price: { totalCents: number; depositCents: number; netPaidCents: number; owedCents: number; pricePending: boolean; currency: string } | null
+  price: {
+    totalCents: number
+    depositCents: number
+    netPaidCents: number
+    owedCents: number
+    pricePending: boolean
+    currency: string
+  } | null
   depositDueAt: string | null
   proposedFiringId: string | null
   updatedAt: string

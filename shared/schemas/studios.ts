@@ -153,7 +153,10 @@ export const firingCreateSchema = z
   .superRefine(datesInOrder)
 export type FiringCreateBody = z.infer<typeof firingCreateSchema>
 
-export const firingPatchSchema = z.strictObject({ ...firingFields }).partial().superRefine(datesInOrder)
+export const firingPatchSchema = z
+  .strictObject({ ...firingFields })
+  .partial()
+  .superRefine(datesInOrder)
 export type FiringPatchBody = z.infer<typeof firingPatchSchema>
 
 /** A stage move; `confirm` answers the question the server asked (a date ahead, requests that lapse). */

@@ -5,6 +5,7 @@ import { Logo } from '../components/Logo'
 import { Button } from '../components/ui/Button'
 import { useMe, useResendVerification, useSignOut } from '../features/auth/api/auth'
 import { homePath } from '../features/auth/homePath'
+import { NoticeBell } from '../features/notices/components/NoticeBell'
 import { useSiteMeta } from '../lib/meta'
 
 interface NavItem {
@@ -70,15 +71,19 @@ export function Layout() {
           <Link to={user ? homePath(user) : '/'} aria-label="Conewright home">
             <Logo />
           </Link>
-          <button
-            type="button"
-            className="rounded-control p-2 text-slip-700 hover:bg-slip-100 md:hidden"
-            aria-expanded={menuOpen}
-            aria-controls="main-nav"
-            onClick={() => setMenuOpen((open) => !open)}
-          >
-            Menu
-          </button>
+          {/* The notices stay in sight on a phone, beside the menu button. */}
+          <div className="ml-auto flex items-center gap-1 md:order-last md:ml-0">
+            {user && <NoticeBell />}
+            <button
+              type="button"
+              className="rounded-control p-2 text-slip-700 hover:bg-slip-100 md:hidden"
+              aria-expanded={menuOpen}
+              aria-controls="main-nav"
+              onClick={() => setMenuOpen((open) => !open)}
+            >
+              Menu
+            </button>
+          </div>
           <nav
             id="main-nav"
             aria-label="Main"

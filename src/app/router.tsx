@@ -13,6 +13,7 @@ import { MyWarePage } from '../features/requests/pages/MyWarePage'
 import { RequestPage } from '../features/requests/pages/RequestPage'
 import { FiringInboxPage, StudioInboxPage } from '../features/requests/pages/StudioInboxPage'
 import { FindFiringPage } from '../features/search/pages/FindFiringPage'
+import { NoticesPage } from '../features/notices/pages/NoticesPage'
 import { CalendarPage } from '../features/studios/pages/CalendarPage'
 import { CrewPage } from '../features/studios/pages/CrewPage'
 import { FiringLogPage } from '../features/studios/pages/FiringLogPage'
@@ -53,6 +54,14 @@ export const router = createBrowserRouter([
         element: (
           <RequireRole roles={['host', 'crew']}>
             <KilnRoomPage />
+          </RequireRole>
+        ),
+      },
+      {
+        path: 'notices',
+        element: (
+          <RequireRole roles={['potter', 'host', 'crew', 'admin']}>
+            <NoticesPage />
           </RequireRole>
         ),
       },

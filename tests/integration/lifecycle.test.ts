@@ -44,8 +44,10 @@ const state = async (id: string) => (await app.ctx.db.getRepository(FiringReques
 const view = async (who: Person, id: string) => (await who.session.get(`/api/requests/${id}`)).body
 const mailsFor = async (template: string, requestId: string) =>
   (await app.ctx.db.getRepository(OutboundMail).findBy({ template })).filter((m) => m.bodyText.includes(requestId))
-const noticesOf = async (who: Person) => (await who.session.get('/api/notices')).body as { items: { kind: string; path: string; read: boolean; id: string }[]; unread: number }
-const stage = (firingId: string, status: string, confirm = true) => owner.session.post(`/api/firings/${firingId}/stage`, { status, confirm })
+const noticesOf = async (who: Person) =>
+  (await who.session.get('/api/notices')).body as { items: { kind: string; path: string; read: boolean; id: string }[]; unread: number }
+const stage = (firingId: string, status: string, confirm = true) =>
+  owner.session.post(`/api/firings/${firingId}/stage`, { status, confirm })
 
 describe('nothing left hanging', () => {
   it('lapses a request still waiting for an answer when loading starts, offers no accept, and tells the potter', async () => {
@@ -84,10 +86,9 @@ describe('nothing left hanging', () => {
     expect(after.actions).toContain('hand-back')
     const handed = await owner.session.post(`/api/requests/${sent.id}/counter-refunds/${after.counterRefunds[0].id}/paid`)
     expect(handed.status).toBe(200)
-    expect(handed.body.ledger.map((l: { kind: string; direction: string; amountCents: number }) => `${l.kind}:${l.direction}:${l.amountCents}`)).toEqual([
-      'counter:in:100',
-      'counter-refund:out:100',
-    ])
+    expect(
+      handed.body.ledger.map((l: { kind: string; direction: string; amountCents: number }) => `${l.kind}:${l.direction}:${l.amountCents}`),
+    ).toEqual(['counter:in:100', 'counter-refund:out:100'])
     expect(handed.body.price.netPaidCents).toBe(0)
   })
 
@@ -132,7 +133,8 @@ describe('one price', () => {
     const inbox = (await owner.session.get(`/api/requests?as=studio&studioId=${ids.studioId}`)).body.requests.find(
       (r: { id: string }) => r.id === sent.id,
     )
-    for (const row of [mine, inbox]) expect(row.price).toMatchObject({ totalCents: raised.priceAfterCents, depositCents: sent.quote.depositCents })
+    for (const row of [mine, inbox])
+      expect(row.price).toMatchObject({ totalCents: raised.priceAfterCents, depositCents: sent.quote.depositCents })
     // To each of the studio's people: the owner and the crew.
     expect((await mailsFor('price-confirmed', sent.id)).map((m) => m.toAddress).sort()).toEqual([owner.email, crew.email].sort())
     expect((await noticesOf(owner)).items.some((n) => n.kind === 'price-confirmed')).toBe(true)
@@ -143,10 +145,10 @@ describe('one price', () => {
     const declined = await potter.session.post(`/api/requests/${sent.id}/price/decline`)
     expect(declined.status).toBe(200)
     expect(declined.body.state).toBe('withdrawn')
-    expect((await mailsFor('price-declined', sent.id)).map((m) => m.toAddress).sort()).toEqual([owner.email, crew.email, potter.email].sort())
-    await expect
-      .poll(async () => (await view(potter, sent.id)).price.refundedCents, { timeout: 20_000 })
-      .toBe(sent.quote.depositCents)
+    expect((await mailsFor('price-declined', sent.id)).map((m) => m.toAddress).sort()).toEqual(
+      [owner.email, crew.email, potter.email].sort(),
+    )
+    await expect.poll(async () => (await view(potter, sent.id)).price.refundedCents, { timeout: 20_000 }).toBe(sent.quote.depositCents)
   })
 
   it('sends a receipt to the potter and a notice to the studio when the balance is paid online', async () => {
@@ -163,9 +165,12 @@ describe('one price', () => {
     const receipts = await mailsFor('payment-received', sent.id)
     // One for the deposit and one for the balance, each to the potter and to the studio's two people.
     expect(receipts.filter((m) => m.subject.startsWith('Receipt:')).map((m) => m.toAddress)).toEqual([potter.email, potter.email])
-    expect(receipts.filter((m) => m.subject.includes('toward the balance')).map((m) => m.toAddress).sort()).toEqual(
-      [owner.email, crew.email].sort(),
-    )
+    expect(
+      receipts
+        .filter((m) => m.subject.includes('toward the balance'))
+        .map((m) => m.toAddress)
+        .sort(),
+    ).toEqual([owner.email, crew.email].sort())
     expect((await noticesOf(owner)).items.some((n) => n.kind === 'payment-received' && n.path === `/requests/${sent.id}`)).toBe(true)
   })
 })
@@ -247,11 +252,23 @@ describe('webhooks trust only what they can check', () => {
     return { sent, sessionId, amount: opened.body.amountCents as number }
   }
   const completed = (id: string, object: Record<string, unknown>) =>
-    JSON.stringify({ id, object: 'event', type: 'checkout.session.completed', data: { object: { object: 'checkout.session', payment_status: 'paid', ...object } } })
+    JSON.stringify({
+      id,
+      object: 'event',
+      type: 'checkout.session.completed',
+      data: { object: { object: 'checkout.session', payment_status: 'paid', ...object } },
+    })
 
   it('records and flags a payment of another amount or currency, and applies nothing', async () => {
     const { sent, sessionId } = await openDeposit()
-    const reply = await post(completed(`evt_yen_${sent.id}`, { id: sessionId, amount_total: 1, currency: 'jpy', metadata: { requestId: sent.id, purpose: 'deposit' } }))
+    const reply = await post(
+      completed(`evt_yen_${sent.id}`, {
+        id: sessionId,
+        amount_total: 1,
+        currency: 'jpy',
+        metadata: { requestId: sent.id, purpose: 'deposit' },
+      }),
+    )
     expect(reply.status).toBe(200)
     expect(await state(sent.id)).toBe('accepted')
     expect(await app.ctx.db.getRepository(LedgerEntry).findBy({ requestId: sent.id })).toEqual([])
@@ -284,7 +301,10 @@ describe('webhooks trust only what they can check', () => {
       const reply = await post(payload)
       expect(reply.status, id).toBe(400)
     }
-    expect((await app.ctx.db.query(`SELECT id FROM stripe_events WHERE id IN ('evt_no_data', 'evt_null_object') AND problem IS NOT NULL`)).length).toBe(2)
+    expect(
+      (await app.ctx.db.query(`SELECT id FROM stripe_events WHERE id IN ('evt_no_data', 'evt_null_object') AND problem IS NOT NULL`))
+        .length,
+    ).toBe(2)
   })
 })
 
@@ -313,7 +333,11 @@ describe('guards for the studio’s clicks', () => {
     expect(undone.status).toBe(200)
     expect(undone.body.status).toBe('cooling')
     expect(await state(sent.id)).toBe('received')
-    expect((await view(potter, sent.id)).timeline.at(-1)).toMatchObject({ from: 'fired', to: 'received', reason: expect.stringMatching(/^Undone/) })
+    expect((await view(potter, sent.id)).timeline.at(-1)).toMatchObject({
+      from: 'fired',
+      to: 'received',
+      reason: expect.stringMatching(/^Undone/),
+    })
     // The unloading mail was held back for the window and is gone with the undo.
     expect((await mailsFor('firing-progress', sent.id)).filter((m) => m.subject.startsWith('Unloaded'))).toEqual([])
     // Only the last move can be undone, once.
@@ -363,7 +387,15 @@ describe('one policy for who may do what', () => {
       (await who.session.get(`/api/requests?as=${as}`)).body.requests.find((r: { id: string }) => r.id === sent.id)
     expect((await rowOf(potter, 'potter')).actions).toContain('rate')
     expect((await rowOf(owner, 'studio')).actions).toContain('rate')
-    const rating = { stars: 5, text: 'Clean loading, results as promised, back on time.', care: 5, communication: 5, results: 5, asDeclared: 5, onTime: 5 }
+    const rating = {
+      stars: 5,
+      text: 'Clean loading, results as promised, back on time.',
+      care: 5,
+      communication: 5,
+      results: 5,
+      asDeclared: 5,
+      onTime: 5,
+    }
     expect((await potter.session.post(`/api/requests/${sent.id}/rating`, rating)).status).toBe(200)
     expect((await owner.session.post(`/api/requests/${sent.id}/rating`, rating)).status).toBe(200)
     expect((await rowOf(potter, 'potter')).actions).not.toContain('rate')

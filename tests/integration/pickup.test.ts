@@ -113,7 +113,9 @@ describe('the whole way, from drop-off to ratings', () => {
     const balance = await potter.session.post(`/api/requests/${sent.id}/balance`)
     expect(balance.body.amountCents).toBe(owed)
     await submitCard(balance.body.checkoutUrl, { cardNumber: CARD_SUCCEEDS })
-    await expect.poll(async () => (await potter.session.get(`/api/requests/${sent.id}`)).body.price.balanceOwedCents, { timeout: 15_000 }).toBe(0)
+    await expect
+      .poll(async () => (await potter.session.get(`/api/requests/${sent.id}`)).body.price.balanceOwedCents, { timeout: 15_000 })
+      .toBe(0)
     const ledger = (await potter.session.get(`/api/requests/${sent.id}`)).body.ledger.map(
       (l: { kind: string; amountCents: number }) => `${l.kind}:${l.amountCents}`,
     )

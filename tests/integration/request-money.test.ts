@@ -173,9 +173,7 @@ describe('the deposit hold', () => {
     await app.ctx.db.query(`UPDATE graphile_worker._private_jobs SET run_at = now() WHERE key = $1`, [`deposit-expiry:${sent.id}`])
     await expect.poll(() => state(sent.id), { timeout: 15_000 }).toBe('lapsed')
     expect((await new HttpSession(app.url).get(`/api/firings/${firing.id}`)).body.heldL).toBe(0)
-    const mails = (await app.ctx.db.getRepository(OutboundMail).findBy({ template: 'lapsed' })).filter((m) =>
-      m.bodyText.includes(sent.id),
-    )
+    const mails = (await app.ctx.db.getRepository(OutboundMail).findBy({ template: 'lapsed' })).filter((m) => m.bodyText.includes(sent.id))
     expect(mails.map((m) => m.toAddress).sort()).toEqual([owner.email, potter.email].sort())
     const view = (await potter.session.get(`/api/requests/${sent.id}`)).body
     expect(view.timeline.at(-1)).toMatchObject({ to: 'lapsed', by: 'Conewright' })

@@ -2,7 +2,15 @@
 // lifecycle as the README describes it (common practice for contract firing:
 // the studio decides and handles the ware, the potter pays and answers price changes).
 import { describe, expect, it } from 'vitest'
-import { allowedActions, canBeRated, owesMoney, refusalOf, REQUEST_ACTIONS, sideMayEver, type RequestFacts } from '../../shared/workflow/policy'
+import {
+  allowedActions,
+  canBeRated,
+  owesMoney,
+  refusalOf,
+  REQUEST_ACTIONS,
+  sideMayEver,
+  type RequestFacts,
+} from '../../shared/workflow/policy'
 import { REQUEST_STATES } from '../../shared/workflow/request-states'
 
 const facts = (over: Partial<RequestFacts> = {}): RequestFacts => ({

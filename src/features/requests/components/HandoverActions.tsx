@@ -9,17 +9,16 @@ import { ApiError } from '../../../lib/api'
 import { moneyMeasure, parseShown, shownText } from '../../../lib/units'
 import { useCounterPayment, useMarkCollected, useMarkReady } from '../api/pickup'
 import type { RequestView } from '../api/types'
-import { depositOwedCents } from './PotterActions'
 
 const problemOf = (error: unknown) => (error instanceof ApiError ? error.message : 'Something went wrong. Please try again.')
 
 /** What is owed at the counter now: the deposit while the request is accepted, otherwise the balance. */
-const counterOwedCents = (view: RequestView) => (view.state === 'accepted' ? depositOwedCents(view) : view.owedCents)
+const counterOwedCents = (view: RequestView) => (view.state === 'accepted' ? view.price.depositOwedCents : view.price.balanceOwedCents)
 
 /** Money handed over at the studio, recorded in the ledger; the full amount owed unless a part is given. */
 function CounterPaymentDialog({ view, open, onClose }: { view: RequestView; open: boolean; onClose: () => void }) {
   const record = useCounterPayment()
-  const currency = view.quote?.currency ?? 'USD'
+  const currency = view.price.currency
   const measure = moneyMeasure(currency)
   const owed = counterOwedCents(view)
   const [amount, setAmount] = useState(() => shownText(owed, measure))
@@ -91,10 +90,10 @@ export function HandoverActions({ view }: { view: RequestView }) {
   const collected = useMarkCollected()
   const [counter, setCounter] = useState(false)
   const can = (action: RequestView['actions'][number]) => view.actions.includes(action)
-  const currency = view.quote?.currency ?? 'USD'
+  const currency = view.price.currency
   const owedOnCollect =
     collected.error instanceof ApiError && collected.error.code === 'balance-owed'
-      ? Number(collected.error.body.owedCents ?? view.owedCents)
+      ? Number(collected.error.body.owedCents ?? view.price.balanceOwedCents)
       : null
   if (!can('ready') && !can('counter-payment') && !can('collected') && view.state !== 'ready') return null
 
@@ -119,9 +118,9 @@ export function HandoverActions({ view }: { view: RequestView }) {
       )}
       {view.state === 'ready' && (
         <p className="text-sm" data-testid="owed-now">
-          {view.owedCents > 0 ? (
+          {view.price.balanceOwedCents > 0 ? (
             <>
-              Still owed: <strong>{formatMoney(view.owedCents, currency)}</strong>
+              Still owed: <strong>{formatMoney(view.price.balanceOwedCents, currency)}</strong>
             </>
           ) : (
             <span className="text-celadon-700">Everything is paid.</span>
