@@ -38,8 +38,9 @@ export type Side = 'potter' | 'studio' | 'admin'
 
 type Table = Record<RequestState, Record<Side, readonly RequestAction[]>>
 
-// After a request ends the studio may still owe money taken at its counter: it hands it back.
-const ended: Record<Side, readonly RequestAction[]> = { potter: [], studio: ['hand-back'], admin: [] }
+// After a request ends both sides can still write (about a refund, say), and the studio may still owe
+// money taken at its counter: it hands it back.
+const ended: Record<Side, readonly RequestAction[]> = { potter: ['message'], studio: ['message', 'hand-back'], admin: [] }
 
 /** What each side may do in each state, before the predicates below narrow it. */
 const TABLE: Table = {

@@ -11,7 +11,7 @@ let browser: Browser
 beforeAll(async () => {
   app = await startTestApp({ worker: false, serveClient: true })
   browser = await launchBrowser()
-}, 90_000)
+})
 
 afterAll(async () => {
   await browser?.close()

@@ -79,7 +79,7 @@ beforeAll(async () => {
   const anyone = new HttpSession(app.url)
   await waitUntil(async () => (await anyone.get('/api/search?perPage=50')).body.total === 6, { what: 'the index to hold the six firings' })
   browser = await launchBrowser()
-}, 120_000)
+})
 
 afterAll(async () => {
   await browser?.close()
@@ -135,7 +135,7 @@ describe('finding a firing', () => {
 
     const expected = ['Alder Street Clay', 'Fernhill Kilns', 'Willamette Falls Pottery']
     // Markers are added to the cluster layer in chunks: wait for the map to hold them all.
-    await expect.poll(async () => (await shown(page)).markers, { timeout: 10_000 }).toBe(expected.length)
+    await expect.poll(async () => (await shown(page)).markers, { timeout: 60_000 }).toBe(expected.length)
     const near = await shown(page)
     expect(names(near.studios)).toEqual(expected)
     expect(near.cones).toEqual(expected.map(() => '10'))
@@ -165,7 +165,7 @@ describe('finding a firing', () => {
     await page.waitForURL((url) => url.searchParams.get('fitsHeightMm') === '609.6')
     const fits = ['Fernhill Kilns', 'Willamette Falls Pottery']
     await expect.poll(async () => names((await shown(page)).studios)).toEqual(fits)
-    await expect.poll(async () => (await shown(page)).markers, { timeout: 10_000 }).toBe(fits.length)
+    await expect.poll(async () => (await shown(page)).markers, { timeout: 60_000 }).toBe(fits.length)
     const url = new URL(page.url())
     expect(Object.fromEntries(url.searchParams)).toEqual({
       place: 'Portland, OR',
@@ -199,7 +199,7 @@ describe('finding a firing', () => {
   it('offers "Search this area" once the map is moved by hand, and searches around its centre', async () => {
     const { page, errors } = await newPage()
     await page.goto(`/find?${new URLSearchParams({ place: 'Portland, OR', cone: '10' })}`)
-    await expect.poll(async () => (await shown(page)).markers, { timeout: 10_000 }).toBeGreaterThan(0)
+    await expect.poll(async () => (await shown(page)).markers, { timeout: 60_000 }).toBeGreaterThan(0)
     expect(await page.getByText('Search this area').count()).toBe(0)
 
     const map = page.getByTestId('basemap')

@@ -148,7 +148,7 @@ describe('one price', () => {
     expect((await mailsFor('price-declined', sent.id)).map((m) => m.toAddress).sort()).toEqual(
       [owner.email, crew.email, potter.email].sort(),
     )
-    await expect.poll(async () => (await view(potter, sent.id)).price.refundedCents, { timeout: 20_000 }).toBe(sent.quote.depositCents)
+    await expect.poll(async () => (await view(potter, sent.id)).price.refundedCents, { timeout: 60_000 }).toBe(sent.quote.depositCents)
   })
 
   it('sends a receipt to the potter and a notice to the studio when the balance is paid online', async () => {
@@ -161,7 +161,7 @@ describe('one price', () => {
     const balance = await potter.session.post(`/api/requests/${sent.id}/balance`)
     expect(balance.status).toBe(200)
     await submitCard(balance.body.checkoutUrl, { cardNumber: CARD_SUCCEEDS })
-    await expect.poll(async () => (await view(potter, sent.id)).price.balanceOwedCents, { timeout: 20_000 }).toBe(0)
+    await expect.poll(async () => (await view(potter, sent.id)).price.balanceOwedCents, { timeout: 60_000 }).toBe(0)
     const receipts = await mailsFor('payment-received', sent.id)
     // One for the deposit and one for the balance, each to the potter and to the studio's two people.
     expect(receipts.filter((m) => m.subject.startsWith('Receipt:')).map((m) => m.toAddress)).toEqual([potter.email, potter.email])

@@ -114,7 +114,7 @@ describe('the whole way, from drop-off to ratings', () => {
     expect(balance.body.amountCents).toBe(owed)
     await submitCard(balance.body.checkoutUrl, { cardNumber: CARD_SUCCEEDS })
     await expect
-      .poll(async () => (await potter.session.get(`/api/requests/${sent.id}`)).body.price.balanceOwedCents, { timeout: 15_000 })
+      .poll(async () => (await potter.session.get(`/api/requests/${sent.id}`)).body.price.balanceOwedCents, { timeout: 60_000 })
       .toBe(0)
     const ledger = (await potter.session.get(`/api/requests/${sent.id}`)).body.ledger.map(
       (l: { kind: string; amountCents: number }) => `${l.kind}:${l.amountCents}`,

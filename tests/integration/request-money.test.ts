@@ -24,7 +24,7 @@ beforeAll(async () => {
   owner = await createPerson(app, 'host', 'Hal Host')
   potter = await createPerson(app, 'potter', 'Ivy Potter')
   ids = await publishedStudio(owner.session, 'Money Studio')
-}, 60_000)
+})
 
 afterAll(async () => {
   await app?.close()
@@ -84,7 +84,7 @@ describe('the deposit', () => {
     expect(declined.status).toBe(402)
     await app.stripe!.idle()
     await expect
-      .poll(async () => (await potter.session.get(`/api/requests/${sent.id}`)).body.payments[0].failureMessage, { timeout: 10_000 })
+      .poll(async () => (await potter.session.get(`/api/requests/${sent.id}`)).body.payments[0].failureMessage, { timeout: 60_000 })
       .toMatch(/declined/i)
     expect(await state(sent.id)).toBe('accepted')
     expect((await potter.session.get(`/api/requests/${sent.id}`)).body.ledger).toEqual([])
@@ -153,7 +153,7 @@ describe('webhooks', () => {
           const ledger = (await potter.session.get(`/api/requests/${sent.id}`)).body.ledger as { direction: string; amountCents: number }[]
           return ledger.map((l) => `${l.direction}:${l.amountCents}`)
         },
-        { timeout: 15_000 },
+        { timeout: 60_000 },
       )
       .toEqual([`in:${sent.quote.depositCents}`, `out:${sent.quote.depositCents}`])
     expect(await state(sent.id)).toBe('lapsed')
@@ -171,7 +171,7 @@ describe('the deposit hold', () => {
     // The queued job, brought forward to now, releases it.
     await app.ctx.db.query(`UPDATE firing_requests SET deposit_due_at = now() - interval '1 second' WHERE id = $1`, [sent.id])
     await app.ctx.db.query(`UPDATE graphile_worker._private_jobs SET run_at = now() WHERE key = $1`, [`deposit-expiry:${sent.id}`])
-    await expect.poll(() => state(sent.id), { timeout: 15_000 }).toBe('lapsed')
+    await expect.poll(() => state(sent.id), { timeout: 60_000 }).toBe('lapsed')
     expect((await new HttpSession(app.url).get(`/api/firings/${firing.id}`)).body.heldL).toBe(0)
     const mails = (await app.ctx.db.getRepository(OutboundMail).findBy({ template: 'lapsed' })).filter((m) => m.bodyText.includes(sent.id))
     expect(mails.map((m) => m.toAddress).sort()).toEqual([owner.email, potter.email].sort())
@@ -224,7 +224,7 @@ describe('refunds', () => {
           (await potter.session.get(`/api/requests/${sent.id}`)).body.ledger
             .filter((l: { direction: string }) => l.direction === 'out')
             .map((l: { amountCents: number; stripeRefundId: string }) => [l.amountCents, l.stripeRefundId.slice(0, 3)]),
-        { timeout: 15_000 },
+        { timeout: 60_000 },
       )
       .toEqual([[expected, 're_']])
     await expect
@@ -233,7 +233,7 @@ describe('refunds', () => {
           (await app.ctx.db.getRepository(OutboundMail).findBy({ template: 'refunded', toAddress: potter.email })).some((m) =>
             m.bodyText.includes(sent.id),
           ),
-        { timeout: 10_000 },
+        { timeout: 60_000 },
       )
       .toBe(true)
   })
@@ -243,7 +243,7 @@ describe('refunds', () => {
     const cancelled = await owner.session.post(`/api/requests/${sent.id}/decline`, { reason: 'Our kiln needs new elements' })
     expect(cancelled.body.state).toBe('cancelled')
     await expect
-      .poll(async () => (await potter.session.get(`/api/requests/${sent.id}`)).body.price, { timeout: 15_000 })
+      .poll(async () => (await potter.session.get(`/api/requests/${sent.id}`)).body.price, { timeout: 60_000 })
       .toMatchObject({ paidInCents: sent.quote.depositCents, refundedCents: sent.quote.depositCents, netPaidCents: 0 })
   })
 
@@ -253,7 +253,7 @@ describe('refunds', () => {
     await owner.session.post(`/api/firings/${firing.id}/cancel`, { reason: 'Power cut for the week' })
     expect(await state(sent.id)).toBe('cancelled')
     await expect
-      .poll(async () => (await potter.session.get(`/api/requests/${sent.id}`)).body.price.refundedCents, { timeout: 15_000 })
+      .poll(async () => (await potter.session.get(`/api/requests/${sent.id}`)).body.price.refundedCents, { timeout: 60_000 })
       .toBe(sent.quote.depositCents)
   })
 })

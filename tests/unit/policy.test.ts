@@ -85,11 +85,11 @@ describe('the policy table', () => {
     expect(canBeRated(facts({ state: 'ready' }), 'potter')).toBe(false)
   })
 
-  it('keeps a request that ended open to the studio only for handing back counter money', () => {
+  it('keeps a request that ended open only for the thread, and for handing back counter money', () => {
     for (const state of ['declined', 'withdrawn', 'cancelled', 'lapsed'] as const) {
-      expect(allowedActions(facts({ state }), 'studio')).toEqual([])
-      expect(allowedActions(facts({ state, counterRefundDueCents: 100 }), 'studio')).toEqual(['hand-back'])
-      expect(allowedActions(facts({ state, counterRefundDueCents: 100 }), 'potter')).toEqual([])
+      expect(allowedActions(facts({ state }), 'studio')).toEqual(['message'])
+      expect(allowedActions(facts({ state, counterRefundDueCents: 100 }), 'studio')).toEqual(['message', 'hand-back'])
+      expect(allowedActions(facts({ state, counterRefundDueCents: 100 }), 'potter')).toEqual(['message'])
     }
   })
 })

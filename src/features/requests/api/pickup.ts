@@ -33,7 +33,9 @@ export function useCheckIn(id: string) {
   return useMutation({
     mutationKey: checkInMutationKey(id),
     mutationFn: (body: CheckInBody) => api<CheckInOutcome>(`/api/requests/${id}/check-in`, { method: 'POST', body }),
-    onSuccess: (outcome) => changed(outcome.request, outcome.request),
+    onSuccess: (outcome) => {
+      void changed(outcome.request, outcome.request)
+    },
   })
 }
 

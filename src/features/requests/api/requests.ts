@@ -52,12 +52,18 @@ export function useRequestChanged() {
   }
 }
 
-/** Every change answers with the request as it now stands: it replaces the cached one, and what it touched refreshes. */
+/**
+ * Every change answers with the request as it now stands: it replaces the cached one at once, and
+ * what it touched refreshes in the background (the caller's own onSuccess must not wait on that: the
+ * new state may already have taken the caller off the screen).
+ */
 export function useRequestChange<TVariables>(request: (variables: TVariables) => Promise<RequestView>) {
   const changed = useRequestChanged()
   return useMutation({
     mutationFn: request,
-    onSuccess: (view) => changed(view, view),
+    onSuccess: (view) => {
+      void changed(view, view)
+    },
   })
 }
 

@@ -66,10 +66,12 @@ function FiringWorkbench({ firing, studio }: { firing: FiringRecord; studio: Mem
             </h2>
             {firing.status === 'cancelled' ? (
               <p className="text-sm text-slip-600">Cancelled{firing.cancelledReason ? `: ${firing.cancelledReason}` : '.'}</p>
-            ) : firing.nextStatuses.some((s) => s !== 'cancelled') ? (
-              <FiringStatusButtons firing={firing} />
             ) : (
-              <p className="text-sm text-slip-600">Unloaded: post the results on each request below.</p>
+              <div className="space-y-2">
+                {/* Also when nothing comes next: the last move may still be undone. */}
+                {(firing.nextStatuses.some((s) => s !== 'cancelled') || firing.undo) && <FiringStatusButtons firing={firing} />}
+                {firing.status === 'unloaded' && <p className="text-sm text-slip-600">Unloaded: post the results on each request below.</p>}
+              </div>
             )}
             <div className="mt-4">
               <FillGauge firing={firing} units={units} />
