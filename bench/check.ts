@@ -37,7 +37,7 @@ function piece(index: number): Piece {
     wallThicknessMm: [6, 7, 8, 9, 16][kind],
     clay: stoneware,
     state: 'bisque',
-    glaze: { minCone: '5', maxCone: '7', runny: index === 7, onFoot: index === 11, onCookie: false },
+    glaze: { minCone: '5', maxCone: '7', runny: index === 7, onFoot: index === 11, support: 'none' },
   }
   return index === 13 ? { ...base, heightMm: 700 } : base
 }
