@@ -75,11 +75,15 @@ export const kilnSchema = z
         .max(2000, { error: 'The fastest climb can be at most 2000 °C per hour.' }),
       preheatHold: z.boolean({ error: 'Say whether the kiln can hold a low preheat (candling).' }),
       controlledCooling: z.boolean({ error: 'Say whether the kiln can control its cooling.' }),
-      shelfLoadKg: z
-        .number({ error: 'Enter what one shelf may carry, in kg.' })
-        .positive({ error: 'What one shelf may carry must be more than 0 kg.' })
-        .max(1000, { error: 'What one shelf may carry can be at most 1000 kg.' })
-        .optional(),
+      // Empty (null from a form) means not said.
+      shelfLoadKg: z.preprocess(
+        (kg) => (kg === null ? undefined : kg),
+        z
+          .number({ error: 'Enter what one shelf may carry, in kg.' })
+          .positive({ error: 'What one shelf may carry must be more than 0 kg.' })
+          .max(1000, { error: 'What one shelf may carry can be at most 1000 kg.' })
+          .optional(),
+      ),
     },
     { error: 'Describe the kiln: its kind, inside size, cone range and limits.' },
   )
