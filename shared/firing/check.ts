@@ -201,12 +201,15 @@ export function usableHeightMm(kiln: Pick<Kiln, 'interior' | 'usableHeightMm'>):
   return Math.max(0, kiln.interior.heightMm - SHELF_THICKNESS_MM - HEADROOM_MM)
 }
 
+// A test kiln a few inches across has shelves cut to fit it: the clearance never takes more than a quarter.
+function shelfAcross(chamberMm: number): number {
+  return chamberMm - Math.min(SHELF_CLEARANCE_MM, chamberMm / 4)
+}
+
 export function shelfFootprint(kiln: Pick<Kiln, 'interior'>): ShelfFootprint {
   const interior = kiln.interior
-  // A test kiln a few inches across has shelves cut to fit it: the clearance never takes more than a quarter.
-  const shelf = (across: number) => across - Math.min(SHELF_CLEARANCE_MM, across / 4)
-  if (interior.shape === 'round') return { shape: 'round', diameterMm: shelf(interior.diameterMm) }
-  return { shape: 'box', widthMm: shelf(interior.widthMm), depthMm: shelf(interior.depthMm) }
+  if (interior.shape === 'round') return { shape: 'round', diameterMm: shelfAcross(interior.diameterMm) }
+  return { shape: 'box', widthMm: shelfAcross(interior.widthMm), depthMm: shelfAcross(interior.depthMm) }
 }
 
 /** Shelf area in mm², for shelf-share pricing. */
@@ -328,7 +331,8 @@ const SHELF_PACKING = 0.8
  * pieces can cover before the next is started. Only lines with a weight are laid.
  */
 export function planShelves(kiln: Pick<Kiln, 'interior'>, pieces: readonly Piece[]): ShelfLoad[] {
-  const area = shelfAreaMm2(kiln) * SHELF_PACKING
+  const shelfArea = shelfAreaMm2(kiln)
+  const area = shelfArea * SHELF_PACKING
   const shelves: ShelfLoad[] = []
   let current: ShelfLoad | null = null
   let free = 0
@@ -349,7 +353,7 @@ export function planShelves(kiln: Pick<Kiln, 'interior'>, pieces: readonly Piece
       const count = Math.min(left, fits)
       current!.lines.push({ pieceIndex: index, count })
       current!.weightKg += (count * piece.weightG) / 1000
-      current!.areaUsed = Math.min(1, current!.areaUsed + (count * footprint) / shelfAreaMm2(kiln))
+      current!.areaUsed = Math.min(1, current!.areaUsed + (count * footprint) / shelfArea)
       free -= count * footprint
       left -= count
     }

@@ -254,55 +254,67 @@ interface HeatingBand {
   holdMinutes: number
 }
 
+// Rate helpers take the kiln's limit and the wall as arguments rather than closing over them: the
+// ware check runs thousands of times a second and closures made per call cost more than the arithmetic.
+function byWall(rate: number, wall: number, maxRamp: number): number {
+  return Math.min(wallRate(rate, wall), maxRamp)
+}
+
+function quartzRate(rate: number, wall: number, maxRamp: number): number {
+  return Math.min(byWall(rate, wall, maxRamp), quartzCap(maxRamp))
+}
+
+function band(upToC: number, zone: SegmentZone, rate: number, holdMinutes = 0): HeatingBand {
+  return { upToC, zone, rate, holdMinutes }
+}
+
 function heatingBands(request: ScheduleRequest, wall: number, hasGreenware: boolean): HeatingBand[] {
   const { kind, kiln } = request
-  const maxRamp = kiln.maxRampCPerHour
-  const cap = (rate: number) => Math.min(rate, maxRamp)
-  const byWall = (rate: number) => cap(wallRate(rate, wall))
-  const quartz = (rate: number) => Math.min(byWall(rate), quartzCap(maxRamp))
+  const max = kiln.maxRampCPerHour
 
   if (kind === 'raku') {
     // Bisqued raku ware, warmed gently while damp glaze dries, then a fast climb (common practice).
     return [
-      { upToC: WATER_SMOKING_TO_C, zone: 'water-smoking', rate: byWall(RAKU_RAMP_RATE / 2), holdMinutes: 0 },
-      { upToC: QUARTZ_BAND_FROM_C, zone: 'ramp', rate: byWall(RAKU_RAMP_RATE), holdMinutes: 0 },
-      { upToC: QUARTZ_BAND_TO_C, zone: 'quartz-inversion', rate: quartz(RAKU_RAMP_RATE / 2), holdMinutes: 0 },
-      { upToC: THICKNESS_BANDS_TO_C, zone: 'ramp', rate: byWall(RAKU_RAMP_RATE), holdMinutes: 0 },
-      { upToC: Infinity, zone: 'ramp', rate: cap(RAKU_RAMP_RATE), holdMinutes: 0 },
+      band(WATER_SMOKING_TO_C, 'water-smoking', byWall(RAKU_RAMP_RATE / 2, wall, max)),
+      band(QUARTZ_BAND_FROM_C, 'ramp', byWall(RAKU_RAMP_RATE, wall, max)),
+      band(QUARTZ_BAND_TO_C, 'quartz-inversion', quartzRate(RAKU_RAMP_RATE / 2, wall, max)),
+      band(THICKNESS_BANDS_TO_C, 'ramp', byWall(RAKU_RAMP_RATE, wall, max)),
+      band(Infinity, 'ramp', Math.min(RAKU_RAMP_RATE, max)),
     ]
   }
   if (kind === 'lustre') {
     // Lustres, china paints and decal papers carry oils that burn off below about 550 °C with the kiln
     // vented (common practice); then the vent can close for the short climb to the cone.
     return [
-      { upToC: QUARTZ_BAND_FROM_C, zone: 'burnout', rate: byWall(LUSTRE_RAMP_RATE), holdMinutes: 0 },
-      { upToC: QUARTZ_BAND_TO_C, zone: 'quartz-inversion', rate: quartz(GLAZE_QUARTZ_RATE), holdMinutes: 0 },
-      { upToC: THICKNESS_BANDS_TO_C, zone: 'ramp', rate: byWall(LUSTRE_RAMP_RATE), holdMinutes: 0 },
-      { upToC: Infinity, zone: 'ramp', rate: cap(LUSTRE_RAMP_RATE), holdMinutes: 0 },
+      band(QUARTZ_BAND_FROM_C, 'burnout', byWall(LUSTRE_RAMP_RATE, wall, max)),
+      band(QUARTZ_BAND_TO_C, 'quartz-inversion', quartzRate(GLAZE_QUARTZ_RATE, wall, max)),
+      band(THICKNESS_BANDS_TO_C, 'ramp', byWall(LUSTRE_RAMP_RATE, wall, max)),
+      band(Infinity, 'ramp', Math.min(LUSTRE_RAMP_RATE, max)),
     ]
   }
   const clayStillChanging = kind !== 'glaze' || hasGreenware
   if (!clayStillChanging) {
     return [
-      { upToC: 120, zone: 'water-smoking', rate: byWall(BISQUE_WARE_FIRST_RATE), holdMinutes: 0 },
-      { upToC: QUARTZ_BAND_FROM_C, zone: 'ramp', rate: byWall(GLAZE_RAMP_RATE), holdMinutes: 0 },
-      { upToC: QUARTZ_BAND_TO_C, zone: 'quartz-inversion', rate: quartz(GLAZE_QUARTZ_RATE), holdMinutes: 0 },
-      { upToC: THICKNESS_BANDS_TO_C, zone: 'ramp', rate: byWall(GLAZE_RAMP_RATE), holdMinutes: 0 },
-      { upToC: Infinity, zone: 'ramp', rate: cap(GLAZE_RAMP_RATE), holdMinutes: 0 },
+      band(120, 'water-smoking', byWall(BISQUE_WARE_FIRST_RATE, wall, max)),
+      band(QUARTZ_BAND_FROM_C, 'ramp', byWall(GLAZE_RAMP_RATE, wall, max)),
+      band(QUARTZ_BAND_TO_C, 'quartz-inversion', quartzRate(GLAZE_QUARTZ_RATE, wall, max)),
+      band(THICKNESS_BANDS_TO_C, 'ramp', byWall(GLAZE_RAMP_RATE, wall, max)),
+      band(Infinity, 'ramp', Math.min(GLAZE_RAMP_RATE, max)),
     ]
   }
   const candling = hasGreenware && kiln.preheatHold ? candlingHoldMinutes(wall) : 0
   // Without a low hold, greenware climbs through the wet range at half the rate to give the steam time.
-  const wet = (rate: number) => (hasGreenware && !kiln.preheatHold ? cap(Math.max(MIN_RATE / 2, byWall(rate) / 2)) : byWall(rate))
+  const first = byWall(GREENWARE_FIRST_RATE, wall, max)
+  const wet = hasGreenware && !kiln.preheatHold ? Math.min(Math.max(MIN_RATE / 2, first / 2), max) : first
   return [
-    { upToC: CANDLING_C, zone: 'candling', rate: wet(GREENWARE_FIRST_RATE), holdMinutes: candling },
-    { upToC: WATER_SMOKING_TO_C, zone: 'water-smoking', rate: wet(GREENWARE_FIRST_RATE), holdMinutes: 0 },
-    { upToC: DEHYDROXYLATION_FROM_C, zone: 'ramp', rate: byWall(BISQUE_RAMP_RATE), holdMinutes: 0 },
-    { upToC: QUARTZ_BAND_FROM_C, zone: 'dehydroxylation', rate: byWall(BURNOUT_RATE), holdMinutes: 0 },
-    { upToC: QUARTZ_BAND_TO_C, zone: 'quartz-inversion', rate: quartz(BISQUE_QUARTZ_RATE), holdMinutes: 0 },
-    { upToC: THICKNESS_BANDS_TO_C, zone: 'burnout', rate: byWall(BURNOUT_RATE), holdMinutes: 0 },
-    { upToC: BURNOUT_TO_C, zone: 'burnout', rate: cap(BURNOUT_RATE), holdMinutes: 0 },
-    { upToC: Infinity, zone: 'ramp', rate: cap(BISQUE_RAMP_RATE), holdMinutes: 0 },
+    band(CANDLING_C, 'candling', wet, candling),
+    band(WATER_SMOKING_TO_C, 'water-smoking', wet),
+    band(DEHYDROXYLATION_FROM_C, 'ramp', byWall(BISQUE_RAMP_RATE, wall, max)),
+    band(QUARTZ_BAND_FROM_C, 'dehydroxylation', byWall(BURNOUT_RATE, wall, max)),
+    band(QUARTZ_BAND_TO_C, 'quartz-inversion', quartzRate(BISQUE_QUARTZ_RATE, wall, max)),
+    band(THICKNESS_BANDS_TO_C, 'burnout', byWall(BURNOUT_RATE, wall, max)),
+    band(BURNOUT_TO_C, 'burnout', Math.min(BURNOUT_RATE, max)),
+    band(Infinity, 'ramp', Math.min(BISQUE_RAMP_RATE, max)),
   ]
 }
 
@@ -314,7 +326,7 @@ export function coolingProfileFor(request: Pick<ScheduleRequest, 'kind' | 'kiln'
 }
 
 function coolingSegments(request: ScheduleRequest, peakC: number, profile: CoolingProfile, controlled: boolean): Segment[] {
-  const cap = (rate: number) => Math.min(rate, request.kiln.maxRampCPerHour)
+  const max = request.kiln.maxRampCPerHour
   const segments: Segment[] = []
   let atC = peakC
   if (request.kind === 'raku') {
@@ -326,7 +338,7 @@ function coolingSegments(request: ScheduleRequest, peakC: number, profile: Cooli
     segments.push({
       fromC: atC,
       toC: atC - DROP_C,
-      rateCPerHour: cap(COOLING_STEPS[0].naturalRate),
+      rateCPerHour: Math.min(COOLING_STEPS[0].naturalRate, max),
       holdMinutes: DROP_HOLD_MINUTES,
       zone: 'drop-and-hold',
     })
@@ -337,7 +349,7 @@ function coolingSegments(request: ScheduleRequest, peakC: number, profile: Cooli
       segments.push({
         fromC: atC,
         toC: GLAZE_DEVELOPMENT_FROM_C,
-        rateCPerHour: cap(COOLING_STEPS[0].naturalRate),
+        rateCPerHour: Math.min(COOLING_STEPS[0].naturalRate, max),
         holdMinutes: 0,
         zone: 'cool',
         estimate: true,
@@ -347,7 +359,7 @@ function coolingSegments(request: ScheduleRequest, peakC: number, profile: Cooli
     segments.push({
       fromC: atC,
       toC: GLAZE_DEVELOPMENT_TO_C,
-      rateCPerHour: cap(GLAZE_DEVELOPMENT_RATE),
+      rateCPerHour: Math.min(GLAZE_DEVELOPMENT_RATE, max),
       holdMinutes: 0,
       zone: 'glaze-development-cool',
     })
@@ -356,7 +368,7 @@ function coolingSegments(request: ScheduleRequest, peakC: number, profile: Cooli
   for (const step of COOLING_STEPS) {
     if (step.downToC >= atC) continue
     const slowed = controlled && step.controlledRate < step.naturalRate
-    const rate = cap(slowed ? step.controlledRate : step.naturalRate)
+    const rate = Math.min(slowed ? step.controlledRate : step.naturalRate, max)
     segments.push({
       fromC: atC,
       toC: step.downToC,
