@@ -203,3 +203,16 @@ export function mapReadings(table: CsvTable, mapping: CsvMapping, context: MapCo
   })
   return { readings, skipped }
 }
+
+/** Keeps at most `max` readings, evenly spread, always with the first, the hottest and the last. */
+export function thinReadings(readings: Reading[], max: number): Reading[] {
+  if (readings.length <= max) return readings
+  let hottest = 0
+  readings.forEach((r, i) => {
+    if (r.tempC > readings[hottest].tempC) hottest = i
+  })
+  const step = (readings.length - 1) / (max - 2)
+  const keep = new Set<number>([0, hottest, readings.length - 1])
+  for (let i = 0; keep.size < max && i * step < readings.length; i++) keep.add(Math.round(i * step))
+  return [...keep].sort((a, b) => a - b).map((i) => readings[i])
+}

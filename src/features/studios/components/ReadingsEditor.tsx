@@ -6,6 +6,7 @@ import {
   guessMapping,
   mapReadings,
   parseCsv,
+  thinReadings,
   type CsvMapping,
   type CsvTable,
   type Reading,
@@ -36,19 +37,6 @@ interface ReadingsEditorProps {
   startIso: string | null
   /** Field messages from the server for the readings. */
   error?: string
-}
-
-/** Keeps at most MAX_READINGS, evenly spread, always with the first, the hottest and the last. */
-export function thinReadings(readings: Reading[]): Reading[] {
-  if (readings.length <= MAX_READINGS) return readings
-  let hottest = 0
-  readings.forEach((r, i) => {
-    if (r.tempC > readings[hottest].tempC) hottest = i
-  })
-  const step = (readings.length - 1) / (MAX_READINGS - 2)
-  const keep = new Set<number>([0, hottest, readings.length - 1])
-  for (let i = 0; keep.size < MAX_READINGS && i * step < readings.length; i++) keep.add(Math.round(i * step))
-  return [...keep].sort((a, b) => a - b).map((i) => readings[i])
 }
 
 export function ReadingsEditor({ readings, onChange, zone, units, startIso, error }: ReadingsEditorProps) {
@@ -127,7 +115,7 @@ export function ReadingsEditor({ readings, onChange, zone, units, startIso, erro
         </ul>
       )}
 
-      <CsvImport zone={zone} units={units} startIso={startIso} onTake={(taken) => onChange(thinReadings(taken))} />
+      <CsvImport zone={zone} units={units} startIso={startIso} onTake={(taken) => onChange(thinReadings(taken, MAX_READINGS))} />
     </div>
   )
 }
