@@ -53,7 +53,7 @@ const CELADON_BOWLS: Piece = {
   clay: { body: 'porcelain', minCone: '9', maxCone: '11' },
   state: 'bisque',
   boneDry: true,
-  glaze: { minCone: '9', maxCone: '11', runny: true, onCookie: true },
+  glaze: { minCone: '9', maxCone: '11', runny: true, support: 'cookie' },
 }
 const GREEN_PLATES: Piece = {
   label: 'Greenware plates',

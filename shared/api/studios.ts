@@ -1,6 +1,6 @@
 // The shapes the studio, kiln and firing routes answer with: written by the server, read by the
 // client, declared once.
-import type { Atmosphere, FiringKind, Kiln } from '../firing/check'
+import type { Atmosphere, CoolingProfile, FiringKind, Kiln } from '../firing/check'
 import type { PriceList, Quote } from '../firing/quote'
 import type { Segment } from '../firing/schedule'
 import type { StudioPolicies } from '../schemas/studios'
@@ -67,6 +67,7 @@ export interface FiringJson {
   cone: string
   atmosphere: Atmosphere
   slowCool: boolean
+  cooling: CoolingProfile
   dropOffBy: string
   firingDate: string
   readyBy: string

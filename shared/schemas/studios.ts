@@ -1,6 +1,6 @@
 // Bodies of the studio, kiln, price list and firing routes. The editors use the same schemas.
 import { z } from 'zod'
-import { coneSchema, atmosphereSchema, kilnSchema, priceListSchema } from './firing'
+import { coneSchema, atmosphereSchema, coolingProfileSchema, firingKindSchema, kilnSchema, priceListSchema } from './firing'
 import { FIRING_STATUSES } from '../workflow/firing-status'
 import { SEGMENT_ZONES } from '../firing/schedule'
 
@@ -98,7 +98,7 @@ const kilnExtras = z.object({
   notes: text(2000, 'notes').optional(),
 })
 
-/** A kiln record: its limits (the Kiln of shared/firing/check.ts) and what a host adds. */
+/** A kiln record: its limits (the Kiln of shared/firing/check.ts) and what a studio adds. */
 export const kilnBodySchema = z.intersection(kilnExtras, kilnSchema)
 export type KilnBody = z.infer<typeof kilnBodySchema>
 
@@ -119,10 +119,11 @@ const segmentSchema = z.object({
 })
 
 const firingFields = {
-  kind: z.enum(['bisque', 'glaze', 'single'], { error: 'Choose bisque, glaze or single firing.' }),
+  kind: firingKindSchema,
   cone: coneSchema,
   atmosphere: atmosphereSchema,
   slowCool: z.boolean().optional(),
+  cooling: coolingProfileSchema.optional(),
   dropOffBy: instant('drop-off deadline'),
   firingDate: instant('firing date'),
   readyBy: instant('ready-by date'),

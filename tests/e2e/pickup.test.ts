@@ -226,12 +226,34 @@ describe('from drop-off to ratings in the browser', () => {
     await expect.poll(() => line.getAttribute('data-state')).toBe('fired')
 
     const form = hostPage.getByTestId('firing-log-form')
-    // Times are wall-clock in the studio's zone; twelve hours from start to off.
-    await form.getByLabel('Loaded', { exact: true }).fill('2027-01-08T07:30')
-    await form.getByLabel('Started', { exact: true }).fill('2027-01-08T09:00')
-    await form.getByLabel('Turned off', { exact: true }).fill('2027-01-08T21:00')
-    await form.getByLabel('Opened', { exact: true }).fill('2027-01-09T15:00')
+    // Times are wall-clock in the studio's zone (Portland), and a log is written after the fact: the
+    // firing started three days ago; twelve hours from start to off.
+    const portlandDay = (daysAgo: number) =>
+      new Intl.DateTimeFormat('en-CA', { timeZone: 'America/Los_Angeles', year: 'numeric', month: '2-digit', day: '2-digit' }).format(
+        Date.now() - daysAgo * 86_400_000,
+      )
+    const [firedOn, openedOn] = [portlandDay(3), portlandDay(2)]
+    await form.getByLabel('Loaded', { exact: true }).fill(`${firedOn}T07:30`)
+    await form.getByLabel('Started', { exact: true }).fill(`${firedOn}T09:00`)
+    await form.getByLabel('Turned off', { exact: true }).fill(`${firedOn}T21:00`)
+    await form.getByLabel('Opened', { exact: true }).fill(`${openedOn}T15:00`)
     expect(await form.getByTestId('total-hours').textContent()).toContain('12 h')
+
+    // The controller's export, mapped column by column: elapsed h:mm and °F, a steady 108 °F/h
+    // (60 °C/h) climb to 2232 °F (1222 °C), which the chart gives as cone 6.
+    const rows = ['Elapsed,Set point (F),Temp (F)']
+    for (let hour = 0; hour <= 20; hour++) rows.push(`${hour}:00,0,${Math.min(2232, 68 + 108 * hour)}`)
+    rows.push('20:02,0,2232')
+    await form.getByText('Take readings from a controller’s CSV export').click()
+    await form.getByLabel('CSV file').setInputFiles({ name: 'controller.csv', mimeType: 'text/csv', buffer: Buffer.from(rows.join('\n')) })
+    await form.getByTestId('csv-preview').waitFor()
+    expect(await form.getByLabel('Times are').inputValue()).toBe('elapsed-hms')
+    expect(await form.getByLabel('Temperature column').inputValue()).toBe('2')
+    expect(await form.getByLabel('Temperature unit').inputValue()).toBe('F')
+    await form.getByRole('button', { name: 'Use these 22 readings' }).click()
+    await form.getByTestId('log-chart').waitFor()
+    expect(await form.getByTestId('curve-cone').textContent()).toContain('cone 6')
+    expect(await form.getByTestId('curve-flags').getAttribute('data-count')).toBe('0')
     // Orton's self-supporting cone chart, 60 °C/h column: cone 6 bends at 1222 °C (the chart as
     // transcribed in shared/firing/cones.ts, from the maker's published table).
     await form.getByLabel('Peak temperature (°C)').fill('1222')
@@ -262,9 +284,11 @@ describe('from drop-off to ratings in the browser', () => {
       finalRateCPerHour: 60,
       holdMinutes: 10,
       totalHours: 12,
-      coneCheck: { fromCones: '6', fromPeak: '6', agree: true },
+      coneCheck: { fromCones: '6', fromCurve: '6', agree: true },
     })
     expect(saved.body.witnessCones).toHaveLength(3)
+    expect(saved.body.readings).toHaveLength(22)
+    expect(saved.body.curve).toMatchObject({ cone: '6', flags: [] })
     expect(hostErrors).toEqual([])
   })
 

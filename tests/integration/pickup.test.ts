@@ -75,15 +75,17 @@ describe('the whole way, from drop-off to ratings', () => {
     )
 
     // The log, seen by every potter in the firing on their request.
+    // Log times are in the past (a log records what happened): loaded 40 hours ago, opened 8 hours ago.
+    const hoursAgo = (hours: number) => new Date(Date.now() - hours * 3_600_000).toISOString()
     const log = await owner.session.put(`/api/firings/${firingId}/log`, {
-      loadedAt: '2027-01-08T15:00:00Z',
-      startedAt: '2027-01-08T17:00:00Z',
+      loadedAt: hoursAgo(40),
+      startedAt: hoursAgo(38),
       // Orton's self-supporting chart: cone 6 at 1222 °C when the last 100 °C climb at 60 °C/h.
       peakC: 1222,
       finalRateCPerHour: 60,
       holdMinutes: 10,
-      offAt: '2027-01-09T05:00:00Z',
-      openedAt: '2027-01-10T03:00:00Z',
+      offAt: hoursAgo(26),
+      openedAt: hoursAgo(8),
       witnessCones: [
         { cone: '5', bend: 'touching' },
         { cone: '6', bend: 'three-oclock' },
@@ -91,7 +93,8 @@ describe('the whole way, from drop-off to ratings', () => {
       ],
     })
     expect(log.status, JSON.stringify(log.body)).toBe(200)
-    expect(log.body).toMatchObject({ totalHours: 12, coneCheck: { fromCones: '6', fromPeak: '6', agree: true, inconsistent: false } })
+    // The heat work of a 60 °C/h climb to 1222 °C and a 10-minute hold: cone 6 (the chart's 60 °C/h column).
+    expect(log.body).toMatchObject({ totalHours: 12, coneCheck: { fromCones: '6', fromCurve: '6', agree: true, inconsistent: false } })
     expect((await potter.session.get(`/api/requests/${sent.id}`)).body.firingLog.coneCheck.fromCones).toBe('6')
 
     // Ready needs results first.

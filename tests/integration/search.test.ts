@@ -159,7 +159,7 @@ describe('filters', () => {
   })
 
   it('fits a piece by height against the usable height checkWare uses', async () => {
-    // Usable height = interior less a 16 mm shelf and 25 mm headroom: 645 mm for Alder, 416 for Salem.
+    // Usable height = interior less about 65 mm for posts, a shelf and the lid: 621 mm for Alder, 392 for Salem.
     expect(studioIdsOf(await search('fitsHeightMm=600&perPage=50')).sort()).toEqual([studios.Alder, studios.Fern, studios.Seattle].sort())
     expect(studioIdsOf(await search('fitsHeightMm=650&perPage=50')).sort()).toEqual([studios.Fern, studios.Seattle].sort())
   })

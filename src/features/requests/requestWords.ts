@@ -109,6 +109,7 @@ const CLAY_WORDS: Record<Piece['clay']['body'], string> = {
   earthenware: 'Earthenware',
   stoneware: 'Stoneware',
   porcelain: 'Porcelain',
+  raku: 'Raku clay',
   other: 'Other clay',
 }
 
@@ -127,14 +128,22 @@ export function glazeInWords(piece: Piece): string {
   const notes = [
     piece.glaze.runny && 'runny',
     piece.glaze.onFoot && 'glaze on the foot',
-    piece.glaze.onCookie && 'on a cookie or stilt',
+    piece.glaze.support && piece.glaze.support !== 'none' && `on a ${piece.glaze.support === 'tray' ? 'catch tray' : piece.glaze.support}`,
+    piece.glaze.tested === false && 'not tested',
+    piece.glaze.reductionOnly && 'reduction glaze',
+    piece.glaze.colourants?.length && piece.glaze.colourants.map((c) => (c === 'chrome-tin' ? 'chrome–tin' : c)).join(' and '),
   ].filter(Boolean)
   return `Glaze ${formatCone(piece.glaze.minCone)} to ${piece.glaze.maxCone}${notes.length ? ` (${notes.join(', ')})` : ''}`
 }
 
 export function pieceStateInWords(piece: Piece): string {
-  if (piece.state === 'bisque') return 'Bisque'
-  return piece.boneDry ? 'Greenware, bone dry' : 'Greenware, not bone dry'
+  const form =
+    piece.form === 'closed' ? (piece.ventHole ? ', closed (vented)' : ', closed, no vent') : piece.form === 'solid' ? ', solid' : ''
+  const extras = piece.materials?.length ? `; with ${piece.materials.map((m) => m.replace('-', ' ')).join(', ')}` : ''
+  const weight = piece.weightG !== undefined ? `, ${Math.round(piece.weightG)} g each` : ''
+  if (piece.state === 'bisque') return `Bisque${form}${weight}${extras}`
+  if (piece.state === 'glazed') return `Glaze fired${form}${weight}${extras}`
+  return `${piece.boneDry ? 'Greenware, bone dry' : 'Greenware, not bone dry'}${form}${weight}${extras}`
 }
 
 /** Actions that are the reader's to take now (not merely available): a row with one of these wants them. */

@@ -1,5 +1,7 @@
 import { Link, useParams } from 'react-router-dom'
 import { formatDateTime } from '../../../../shared/dates'
+import type { Kiln } from '../../../../shared/firing/check'
+import { planSchedule, type Segment } from '../../../../shared/firing/schedule'
 import { REQUEST_STATE_LABELS } from '../../../../shared/workflow/request-states'
 import { Alert } from '../../../components/ui/Alert'
 import { Badge } from '../../../components/ui/Badge'
@@ -85,7 +87,14 @@ function FiringWorkbench({ firing, studio }: { firing: FiringRecord; studio: Mem
           ) : log.isError ? (
             <ApiProblem error={log.error} what="the log" onRetry={() => log.refetch()} />
           ) : (
-            <FiringLogForm firingId={firing.id} log={log.data} zone={zone} units={units} />
+            <FiringLogForm
+              firingId={firing.id}
+              log={log.data}
+              zone={zone}
+              units={units}
+              plan={log.data?.plan ?? planFor(firing, kiln.data)}
+              firingCone={firing.cone}
+            />
           )}
         </div>
 
@@ -98,6 +107,14 @@ function FiringWorkbench({ firing, studio }: { firing: FiringRecord; studio: Mem
       </div>
     </>
   )
+}
+
+/** The plan a new log is held against, by the rule the server uses: the posted schedule, or the plan for firing and kiln. */
+function planFor(firing: FiringRecord, kiln: Kiln | undefined): Segment[] {
+  if (firing.schedule && firing.schedule.length > 0) return firing.schedule
+  if (!kiln) return []
+  return planSchedule({ kind: firing.kind, cone: firing.cone, kiln, pieces: [], slowCool: firing.slowCool, cooling: firing.cooling })
+    .segments
 }
 
 /** States where the request's ware is (or was meant to be) in this firing. */
