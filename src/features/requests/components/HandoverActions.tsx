@@ -3,6 +3,7 @@ import { formatMoney } from '../../../../shared/dates'
 import { counterPaymentSchema } from '../../../../shared/schemas/pickup'
 import { Alert } from '../../../components/ui/Alert'
 import { Button } from '../../../components/ui/Button'
+import { ConfirmDialog } from '../../../components/ui/ConfirmDialog'
 import { Dialog } from '../../../components/ui/Dialog'
 import { Field, TextInput } from '../../../components/ui/Field'
 import { ApiError } from '../../../lib/api'
@@ -89,6 +90,7 @@ export function HandoverActions({ view }: { view: RequestView }) {
   const ready = useMarkReady()
   const collected = useMarkCollected()
   const [counter, setCounter] = useState(false)
+  const [handingOver, setHandingOver] = useState(false)
   const can = (action: RequestView['actions'][number]) => view.actions.includes(action)
   const currency = view.price.currency
   const owedOnCollect =
@@ -134,11 +136,23 @@ export function HandoverActions({ view }: { view: RequestView }) {
           </Button>
         )}
         {(can('collected') || view.state === 'ready') && (
-          <Button variant={can('collected') ? 'primary' : 'secondary'} busy={collected.isPending} onClick={() => collected.mutate(view.id)}>
-            Collected
+          <Button variant={can('collected') ? 'primary' : 'secondary'} busy={collected.isPending} onClick={() => setHandingOver(true)}>
+            Collected…
           </Button>
         )}
       </div>
+      <ConfirmDialog
+        open={handingOver}
+        onClose={() => setHandingOver(false)}
+        title={`Hand the ware over to ${view.potter.displayName}?`}
+        confirmLabel="Yes, collected"
+        busy={collected.isPending}
+        onConfirm={() => collected.mutate(view.id, { onSettled: () => setHandingOver(false) })}
+      >
+        <p>
+          The request is marked collected and {view.potter.displayName} is mailed the receipt. After this, each side can rate the other.
+        </p>
+      </ConfirmDialog>
       {owedOnCollect !== null ? (
         <Alert tone="warning" title="Not handed over yet">
           {formatMoney(owedOnCollect, currency)} is still owed. Take it at the counter, or let the potter pay online first.
