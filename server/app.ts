@@ -20,6 +20,7 @@ import { metaRouter } from './routes/meta'
 import { photosRouter } from './routes/photos'
 import { firingLogsRouter } from './routes/firing-logs'
 import { noticesRouter } from './routes/notices'
+import { payoutsRouter } from './routes/payouts'
 import { pickupRouter } from './routes/pickup'
 import { placesRouter } from './routes/places'
 import { ratingsRouter } from './routes/ratings'
@@ -111,6 +112,7 @@ export function createApp(ctx: AppContext): App {
   app.use('/api', wareChecksRouter(ctx))
 
   app.use('/api', studiosRouter(ctx))
+  app.use('/api', payoutsRouter(ctx))
   app.use('/api', kilnsRouter(ctx))
   app.use('/api', firingsRouter(ctx))
   app.use('/api', invitesRouter(ctx))

@@ -20,6 +20,12 @@ export interface Config {
   stripeSecretKey: string
   stripeApiBase: string | null
   stripeWebhookSecret: string
+  /** The signing secret of the Connect endpoint (events about studios' connected accounts). */
+  stripeConnectWebhookSecret: string
+  /** The marketplace's fee on what potters pay online: a percentage with a minimum per request. */
+  marketplaceFee: { percent: number; minimumCents: number }
+  /** Hours after collection before a studio's share is transferred (0: at collection). */
+  payoutHoldHours: number
   meiliHost: string
   meiliApiKey: string
   tileUrl: string | null
@@ -35,6 +41,12 @@ export interface Config {
 function int(value: string | undefined, fallback: number): number {
   const n = value === undefined || value === '' ? NaN : Number(value)
   return Number.isInteger(n) ? n : fallback
+}
+
+/** A percentage with up to two decimals, from 0 to 100. */
+function percent(value: string | undefined, fallback: number): number {
+  const n = value === undefined || value === '' ? NaN : Number(value)
+  return Number.isFinite(n) && n >= 0 && n <= 100 && Math.round(n * 100) === n * 100 ? n : fallback
 }
 
 export function loadConfig(env: NodeJS.ProcessEnv = process.env, overrides: Partial<Config> = {}): Config {
@@ -57,6 +69,12 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env, overrides: Part
     stripeSecretKey: env.STRIPE_SECRET_KEY ?? 'sk_test_conewright_local',
     stripeApiBase: env.STRIPE_API_BASE ?? null,
     stripeWebhookSecret: env.STRIPE_WEBHOOK_SECRET ?? 'whsec_conewright_local',
+    stripeConnectWebhookSecret: env.STRIPE_CONNECT_WEBHOOK_SECRET ?? 'whsec_conewright_local_connect',
+    marketplaceFee: {
+      percent: percent(env.MARKETPLACE_FEE_PERCENT, 10),
+      minimumCents: Math.max(0, int(env.MARKETPLACE_FEE_MINIMUM_CENTS, 100)),
+    },
+    payoutHoldHours: Math.max(0, int(env.PAYOUT_HOLD_HOURS, 0)),
     meiliHost: env.MEILI_HOST ?? 'http://127.0.0.1:4617',
     meiliApiKey: env.MEILI_API_KEY ?? 'conewright-local-search-key',
     tileUrl: env.TILE_URL ?? null,

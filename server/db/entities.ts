@@ -13,14 +13,19 @@ import { Payment } from '../entities/Payment'
 import { Photo } from '../entities/Photo'
 import { KilnPriceList } from '../entities/KilnPriceList'
 import { OutboundMail } from '../entities/OutboundMail'
+import { PayoutAccount } from '../entities/PayoutAccount'
 import { Rating } from '../entities/Rating'
 import { RequestEvent } from '../entities/RequestEvent'
 import { RequestMessage } from '../entities/RequestMessage'
+import { RequestPayout } from '../entities/RequestPayout'
 import { RequestResult } from '../entities/RequestResult'
 import { SearchDocument } from '../entities/SearchDocument'
 import { StripeEvent } from '../entities/StripeEvent'
 import { Studio } from '../entities/Studio'
 import { StudioMember } from '../entities/StudioMember'
+import { StudioPayout } from '../entities/StudioPayout'
+import { StudioTransfer } from '../entities/StudioTransfer'
+import { TransferReversal } from '../entities/TransferReversal'
 import { User } from '../entities/User'
 
 export const entities = [
@@ -47,4 +52,9 @@ export const entities = [
   Notice,
   FiringEvent,
   CounterRefund,
+  PayoutAccount,
+  RequestPayout,
+  StudioTransfer,
+  TransferReversal,
+  StudioPayout,
 ]

@@ -8,6 +8,7 @@ import { EXPIRE_CHECKOUTS_TASK, makeRefund, OPEN_CHECKOUT_TASK, openCheckout, RE
 import { DEPOSIT_EXPIRY_TASK, expireDepositHold, sweepStaleRequests } from '../services/requests'
 import { expireOpenCheckouts } from '../services/payments'
 import { engineIsBack, engineRebuilt } from '../services/search'
+import { PAYOUT_SWEEP_TASK, PAYOUT_TASK, payStudio, sweepPayouts } from '../services/payouts'
 
 /** The scheduled sweep of requests made stale by dates alone (see sweepStaleRequests). */
 export const REQUEST_SWEEP_TASK = 'request-sweep'
@@ -38,6 +39,13 @@ export function taskList(ctx: AppContext): TaskList {
     },
     [EXPIRE_CHECKOUTS_TASK]: async (payload) => {
       await expireOpenCheckouts(ctx, (payload as { requestId: string }).requestId)
+    },
+    [PAYOUT_TASK]: async (payload) => {
+      await payStudio(ctx, (payload as { requestId: string }).requestId)
+    },
+    [PAYOUT_SWEEP_TASK]: async () => {
+      const queued = await sweepPayouts(ctx)
+      if (queued) ctx.log.info(`payout sweep: ${queued} requests queued for a payout run`)
     },
     [REQUEST_SWEEP_TASK]: async () => {
       const lapsed = await sweepStaleRequests(ctx)

@@ -6,6 +6,8 @@ import { requireUuidParams, validateBody, validateQuery } from '../http/validate
 import { adminRefundSchema } from '../../shared/schemas/requests'
 import { deskDisputes, deskStudios, deskUsers, setSuspended } from '../services/admin'
 import { adminRefund } from '../services/requests'
+import { disputeSettleSchema } from '../../shared/schemas/payouts'
+import { settleDispute } from '../services/payouts'
 
 const usersQuery = z.object({ q: z.string().trim().max(120).optional() })
 
@@ -41,6 +43,12 @@ export function adminRouter(ctx: AppContext) {
   router.post('/admin/requests/:id/refund', admin, requireUuidParams('id'), validateBody(adminRefundSchema), async (req, res) => {
     await adminRefund(ctx, req.user!, String(req.params.id), req.body.amountCents, req.body.reason)
     res.status(202).json({ queued: true })
+  })
+
+  // Settling a dispute releases what the studio keeps (after any refund above) and tells both sides.
+  router.post('/admin/requests/:id/settle', admin, requireUuidParams('id'), validateBody(disputeSettleSchema), async (req, res) => {
+    await settleDispute(ctx, req.user!, String(req.params.id), req.body.note)
+    res.json({ settled: true })
   })
 
   return router

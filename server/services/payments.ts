@@ -20,6 +20,7 @@ import { queueMail } from './mail'
 import { factsOf, loadRequest } from './request-context'
 import { inTransaction, requestAction, requestActionIn, type ActionStep } from './request-door'
 import { stripeFor } from './stripe'
+import { enqueuePayoutIfEarned, handleTransferEvent, moneyQueueOf, transferGroupOf } from './payouts'
 import { enqueueStudioSync } from './search-sync'
 
 export const REFUND_TASK = 'refund-payment'
@@ -98,7 +99,8 @@ export async function openCheckout(
       client_reference_id: requestId,
       customer_email: rc.potter.email,
       metadata: { requestId, purpose },
-      payment_intent_data: { metadata: { requestId, purpose } },
+      // The request's transfer group ties its charges to the transfers that pay the studio its share.
+      payment_intent_data: { metadata: { requestId, purpose }, transfer_group: transferGroupOf(requestId) },
       expires_at: Math.floor(Date.now() / 1000) + CHECKOUT_LIFETIME_S,
     },
     { idempotencyKey: `${purpose}:${requestId}:${attempt}:${amountCents}` },
@@ -160,7 +162,13 @@ export async function enqueueRefund(
   options: Pick<JobOptions, 'runAt' | 'jobKey'> = {},
 ) {
   if (amountCents <= 0) return
-  await enqueueJob(manager, REFUND_TASK, { requestId, amountCents, reason, key: `${requestId}:${Date.now()}` }, options)
+  // In the request's money queue: a refund runs before any payout run queued after it.
+  await enqueueJob(
+    manager,
+    REFUND_TASK,
+    { requestId, amountCents, reason, key: `${requestId}:${Date.now()}` },
+    { ...options, queueName: moneyQueueOf(requestId) },
+  )
 }
 
 export const EXPIRE_CHECKOUTS_TASK = 'expire-checkouts'
@@ -212,6 +220,8 @@ async function bookRefund(ctx: AppContext, requestId: string, refund: Stripe.Ref
       ],
     )
     if (!inserted.length) return
+    // A refund after the studio was paid takes back the studio's part of it.
+    await enqueuePayoutIfEarned(manager, requestId)
     const rc = await loadRequest(manager, requestId)
     await queueMail(manager, rc.potter.email, 'refunded', refundedMail(factsOf(rc, ctx.config.publicUrl), refund.amount))
   })
@@ -352,7 +362,14 @@ export async function handleStripeEvent(ctx: AppContext, raw: unknown): Promise<
             stripeSessionId: null,
             note: 'Refunded in Stripe',
           })
+          await enqueuePayoutIfEarned(manager, payment.requestId)
         }
+        break
+      }
+      case 'transfer.created':
+      case 'transfer.updated':
+      case 'transfer.reversed': {
+        await handleTransferEvent(manager, event)
         break
       }
       default:

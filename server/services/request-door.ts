@@ -25,6 +25,7 @@ import { isUuid } from '../http/validate'
 import type { MailContent } from '../mail/render'
 import { tell } from './notices'
 import { moneyOf } from './payments'
+import { earnPayout } from './payouts'
 import { loadRequest, moveRequest, studioPeople, viewerOf, type RequestContext, type Viewer } from './request-context'
 
 const RETRYABLE = new Set(['40P01', '40001'])
@@ -209,6 +210,10 @@ export async function requestActionIn<T>(
       },
       hold,
     }
-    return apply(step)
+    const before = rc.request.state
+    const result = await apply(step)
+    // Reaching collection, or ending with money the studio keeps, earns the studio its share.
+    if (rc.request.state !== before) await earnPayout(step)
+    return result
   }
 }

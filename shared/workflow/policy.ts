@@ -30,8 +30,11 @@ export const REQUEST_ACTIONS = [
 ] as const
 export type RequestAction = (typeof REQUEST_ACTIONS)[number]
 
-/** Actions Conewright itself takes: a paid deposit arriving, a hold or a firing running out, a firing moving. */
-export const SYSTEM_ACTIONS = ['deposit-paid', 'balance-paid', 'lapse', 'firing-moved', 'desk-refund'] as const
+/**
+ * Actions Conewright itself takes: a paid deposit arriving, a hold or a firing running out, a firing
+ * moving; and the desk's own (behind the admin guard): a refund, settling a dispute.
+ */
+export const SYSTEM_ACTIONS = ['deposit-paid', 'balance-paid', 'lapse', 'firing-moved', 'desk-refund', 'desk-settle'] as const
 export type SystemAction = (typeof SYSTEM_ACTIONS)[number]
 
 export type Side = 'potter' | 'studio' | 'admin'

@@ -39,6 +39,7 @@ export async function startTestApp(
         port: 0,
         secretKey: 'sk_test_conewright_tests',
         webhookSecret: 'whsec_conewright_tests',
+        connectWebhookSecret: 'whsec_conewright_tests_connect',
         webhookRetry: { baseDelayMs: 100 },
       })
     : null
@@ -54,6 +55,7 @@ export async function startTestApp(
       meiliApiKey: 'test-search-key',
       stripeSecretKey: 'sk_test_conewright_tests',
       stripeWebhookSecret: 'whsec_conewright_tests',
+      stripeConnectWebhookSecret: 'whsec_conewright_tests_connect',
       // Without the stand-in, Stripe calls go to a port that answers nothing.
       stripeApiBase: stripe?.url ?? 'http://127.0.0.1:9',
       serveClient: options.serveClient ?? false,
@@ -73,6 +75,7 @@ export async function startTestApp(
   const url = `http://127.0.0.1:${(server.address() as AddressInfo).port}`
   if (!options.config?.publicUrl) config.publicUrl = url
   stripe?.setWebhookUrl(`${url}/api/webhooks/stripe`)
+  stripe?.setConnectWebhookUrl(`${url}/api/webhooks/stripe-connect`)
   const testApp: TestApp = {
     url,
     ctx,
