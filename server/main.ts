@@ -5,6 +5,7 @@ import { createApp } from './app'
 import { loadConfig } from './config'
 import { consoleLogger, type AppContext } from './context'
 import { createDataSource } from './db/data-source'
+import { seedDemoPayouts } from './db/demo-payouts'
 import { seedDemo } from './db/seed'
 import { migrateQueue, startWorker } from './jobs/worker'
 import { warmGazetteer } from './services/gazetteer'
@@ -37,6 +38,13 @@ const worker = config.runWorker ? await startWorker(ctx) : null
 const { app, close } = createApp(ctx)
 const server: Server = app.listen(config.port, config.host, () => {
   log.info(`listening on http://${config.host}:${config.port} (public address ${config.publicUrl})`)
+  // The demo's card payments and the community studio's onboarding go through Stripe, whose
+  // webhooks need this server listening.
+  if (process.env.SEED_DEMO === 'true')
+    seedDemoPayouts(ctx).then(
+      () => log.info('demo payouts are in place'),
+      (error) => log.warn('the demo payouts could not be made', error),
+    )
 })
 
 let stopping = false

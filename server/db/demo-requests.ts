@@ -1,7 +1,8 @@
 // Demo requests, so the board has life on first start: a firing nearly full, requests waiting for a
-// decision, a paid deposit, a draft, and a past firing collected and rated. Money in the demo was
-// taken "at the counter", so seeding never calls Stripe. Each is found again by the key its first
-// timeline entry carries.
+// decision, a paid deposit, a draft, and past firings collected (one rated). Money in flight was taken
+// "at the counter", so seeding never calls Stripe; the collected past firings were paid by card, and
+// that payment is made through Stripe (the local stand-in) after start, by demo-payouts.ts. Each
+// request is found again by the key its first timeline entry carries.
 import type { EntityManager } from 'typeorm'
 import type { Piece } from '../../shared/firing/check'
 import type { RequestState } from '../../shared/workflow/request-states'
@@ -74,6 +75,10 @@ interface DemoRequest {
   kiln: string
   /** Which firing of that kiln: the nth upcoming one (0 = next), or a past one made for the purpose. */
   firing: number | 'past'
+  /** A past firing's cone and atmosphere (cone 6 oxidation with a slow cool when left out). */
+  pastFiring?: { cone: string; atmosphere: Firing['atmosphere']; slowCool: boolean; notes: string }
+  /** Paid by card (after start, through Stripe) rather than at the counter. */
+  paidOnline?: boolean
   potter: string
   pieces: Piece[]
   notes: string
@@ -143,6 +148,7 @@ const DEMO_REQUESTS: DemoRequest[] = [
     pieces: [MUGS],
     notes: 'Matte glazes; slow cool if you can.',
     state: 'collected',
+    paidOnline: true,
     rating: {
       stars: 5,
       care: 5,
@@ -151,7 +157,22 @@ const DEMO_REQUESTS: DemoRequest[] = [
       text: 'Marisol slow-cooled the load as promised; the matte glazes came out buttery.',
     },
   },
+  {
+    key: 'celadon-collected',
+    studio: 'Fernhollow Gas Works',
+    kiln: 'The Car',
+    firing: 'past',
+    pastFiring: { cone: '10', atmosphere: 'reduction', slowCool: false, notes: 'Heavy reduction from cone 6; cooled over 36 hours.' },
+    potter: 'theo.marsh@demo.conewright.test',
+    pieces: [CELADON_BOWLS],
+    notes: 'Celadon bowls, each on its own cookie.',
+    state: 'collected',
+    paidOnline: true,
+  },
 ]
+
+/** The demo requests paid by card, by key: demo-payouts.ts makes their payments through Stripe. */
+export const DEMO_PAID_ONLINE = DEMO_REQUESTS.filter((d) => d.paidOnline).map((d) => d.key)
 
 /** The path a demo request walks to reach its state. */
 const PATH: Record<string, RequestState[]> = {
@@ -175,16 +196,16 @@ export async function seedDemoRequests(manager: EntityManager, userIdOf: (email:
         manager.getRepository(Firing).create({
           kilnId: kiln.id,
           kind: 'glaze',
-          cone: '6',
-          atmosphere: 'oxidation',
-          slowCool: true,
+          cone: demo.pastFiring?.cone ?? '6',
+          atmosphere: demo.pastFiring?.atmosphere ?? 'oxidation',
+          slowCool: demo.pastFiring?.slowCool ?? true,
           dropOffBy: new Date(fired.getTime() - 2 * 86400_000),
           firingDate: fired,
           readyBy: new Date(fired.getTime() + 3 * 86400_000),
           capacityL: 140,
           status: 'unloaded',
           schedule: null,
-          notes: 'Slow cool through 1900 °F.',
+          notes: demo.pastFiring?.notes ?? 'Slow cool through 1900 °F.',
           seriesId: null,
           cancelledReason: null,
         }),
@@ -236,7 +257,7 @@ export async function seedDemoRequests(manager: EntityManager, userIdOf: (email:
       })
     }
     const currency = quote?.currency ?? 'USD'
-    if (path.includes('deposit_paid') && quote && quote.depositCents > 0) {
+    if (!demo.paidOnline && path.includes('deposit_paid') && quote && quote.depositCents > 0) {
       await manager.getRepository(LedgerEntry).save({
         requestId: request.id,
         direction: 'in',
@@ -249,7 +270,7 @@ export async function seedDemoRequests(manager: EntityManager, userIdOf: (email:
         note: 'Deposit paid at the counter',
       })
     }
-    if (demo.state === 'collected' && quote) {
+    if (!demo.paidOnline && demo.state === 'collected' && quote) {
       const rest = quote.totalCents - quote.depositCents
       if (rest > 0)
         await manager.getRepository(LedgerEntry).save({

@@ -311,9 +311,10 @@ async function chargesOf(ctx: AppContext, requestId: string): Promise<{ id: stri
 export async function payStudio(ctx: AppContext, requestId: string, now = new Date()): Promise<RequestLedger | null> {
   const first = await payoutFactsOf(ctx.db.manager, ctx.config, requestId, now)
   if (!first || !first.row) return first?.ledger ?? null
-  await syncTransfers(ctx, requestId, first.studioId)
+  const account = await ctx.db.getRepository(PayoutAccount).findOne({ where: { studioId: first.studioId } })
+  // Without a payout account there is nowhere a transfer could have gone.
+  if (account) await syncTransfers(ctx, requestId, first.studioId)
   let facts = (await payoutFactsOf(ctx.db.manager, ctx.config, requestId, now))!
-  const account = await ctx.db.getRepository(PayoutAccount).findOne({ where: { studioId: facts.studioId } })
   const due = facts.ledger.dueCents
   if (due > 0 && facts.stage === 'earned') {
     if (canReceiveTransfers(account)) await transferDue(ctx, facts, account!)

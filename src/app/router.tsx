@@ -21,6 +21,7 @@ import { JoinStudioPage } from '../features/studios/pages/JoinStudioPage'
 import { KilnEditorPage, NewKilnPage } from '../features/studios/pages/KilnEditorPage'
 import { KilnPage } from '../features/studios/pages/KilnPage'
 import { KilnRoomPage } from '../features/studios/pages/KilnRoomPage'
+import { MoneyPage } from '../features/studios/pages/MoneyPage'
 import { PublicStudioPage } from '../features/studios/pages/PublicStudioPage'
 import { StudioEditorPage } from '../features/studios/pages/StudioEditorPage'
 import { ErrorPage, NotFoundPage } from './ErrorPage'
@@ -87,6 +88,14 @@ export const router = createBrowserRouter([
         element: (
           <RequireRole roles={['host', 'crew']}>
             <CrewPage />
+          </RequireRole>
+        ),
+      },
+      {
+        path: 'studios/:id/money',
+        element: (
+          <RequireRole roles={['host', 'crew']}>
+            <MoneyPage />
           </RequireRole>
         ),
       },

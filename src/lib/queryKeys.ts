@@ -44,6 +44,8 @@ export const keys = {
     firings: (id: string) => ['studios', 'detail', id, 'firings'] as const,
     firingsIn: (id: string, window: FiringWindow) => ['studios', 'detail', id, 'firings', window] as const,
     crew: (id: string) => ['studios', 'detail', id, 'crew'] as const,
+    /** The owner's money page: payout account, balance, transfers, earnings. */
+    payouts: (id: string) => ['studios', 'detail', id, 'payouts'] as const,
     ratings: (id: string) => ['studios', 'detail', id, 'ratings'] as const,
     photos: (id: string) => ['studios', 'detail', id, 'photos'] as const,
     waiting: (id: string) => ['studios', 'detail', id, 'waiting-requests'] as const,
