@@ -1,13 +1,17 @@
 import { StrictMode } from 'react'
 import { createRoot } from 'react-dom/client'
 import { RouterProvider } from 'react-router-dom'
-import { Providers } from './app/providers'
+import { startPrefetching } from './app/prefetch'
+import { createQueryClient, Providers } from './app/providers'
 import { router } from './app/router'
 import './styles.css'
 
+const queryClient = createQueryClient()
+startPrefetching(router, queryClient)
+
 createRoot(document.getElementById('root')!).render(
   <StrictMode>
-    <Providers>
+    <Providers client={queryClient}>
       <RouterProvider router={router} />
     </Providers>
   </StrictMode>,

@@ -1,10 +1,11 @@
 import L, { type Map as LeafletMap } from 'leaflet'
 import { useEffect, useRef, useState } from 'react'
 import { Circle } from 'react-leaflet'
-import type { SearchHit, SearchResponse } from '../../../../shared/schemas/search'
+import type { SearchResponse } from '../../../../shared/schemas/search'
 import { Basemap, type LatLngPair } from '../../../components/map/Basemap'
 import { ClusteredMarkers, StudioMarker } from '../../../components/map/markers'
 import { Button } from '../../../components/ui/Button'
+import type { AreaSearch, MapFit, MapStudio } from '../mapStudios'
 import { whereKey } from '../searchState'
 
 /** Where the map opens before the first answer: the lower 48 states. */
@@ -13,36 +14,6 @@ const FIT_PADDING: [number, number] = [36, 36]
 /** Close enough to see the studios apart, far enough to see what is around them. */
 const FIT_MAX_ZOOM = 12
 const MAX_RADIUS_KM = 2000
-
-export interface MapStudio {
-  id: string
-  name: string
-  position: LatLngPair
-}
-
-/** One pin per studio: a studio's firings all stand at the same place. */
-export function studiosOf(hits: readonly SearchHit[]): MapStudio[] {
-  const seen = new Map<string, MapStudio>()
-  for (const hit of hits) {
-    if (!seen.has(hit.studio.id))
-      seen.set(hit.studio.id, { id: hit.studio.id, name: hit.studio.name, position: [hit.studio.lat, hit.studio.lng] })
-  }
-  return [...seen.values()]
-}
-
-/** The view a set of results is shown in: the searched place and the studios found around it. */
-export interface MapFit {
-  /** Changes when the map should go somewhere else (a new place or distance), not for a new cone: `whereKey`. */
-  key: string
-  origin: SearchResponse['origin']
-  radiusKm: number | null
-  studios: MapStudio[]
-}
-
-export interface AreaSearch {
-  near: string
-  radiusKm: string
-}
 
 const areaKey = (area: AreaSearch) => whereKey({ near: area.near, radiusKm: area.radiusKm })
 
