@@ -1,4 +1,5 @@
-import { readdir, readFile, stat, writeFile } from 'node:fs/promises'
+import { createHash } from 'node:crypto'
+import { copyFile, mkdir, readdir, readFile, rm, stat, writeFile } from 'node:fs/promises'
 import path from 'node:path'
 import { promisify } from 'node:util'
 import zlib from 'node:zlib'
@@ -20,12 +21,31 @@ async function* filesUnder(dir: string): AsyncGenerator<string> {
   }
 }
 
+const exists = (file: string) =>
+  stat(file).then(
+    () => true,
+    () => false,
+  )
+
+const ENCODERS = {
+  br: (raw: Buffer) =>
+    brotli(raw, {
+      params: {
+        [zlib.constants.BROTLI_PARAM_QUALITY]: zlib.constants.BROTLI_MAX_QUALITY,
+        [zlib.constants.BROTLI_PARAM_SIZE_HINT]: raw.length,
+        [zlib.constants.BROTLI_PARAM_MODE]: zlib.constants.BROTLI_MODE_TEXT,
+      },
+    }),
+  gz: (raw: Buffer) => gzip(raw, { level: zlib.constants.Z_BEST_COMPRESSION }),
+}
+
 /**
  * Writes `file.br` (brotli, best) and `file.gz` (gzip, best) beside every compressible file of the
  * built client, so the server sends them as they are instead of compressing on every request.
- * A variant that would not be smaller is not written.
+ * A variant that would not be smaller is not written. Best compression is slow, so each result is
+ * kept in `cacheDir` by the hash of the file; what a build did not use is dropped from it.
  */
-export function precompress(): Plugin {
+export function precompress(cacheDir: string): Plugin {
   let outDir = ''
   return {
     name: 'conewright:precompress',
@@ -34,28 +54,33 @@ export function precompress(): Plugin {
       outDir = path.resolve(config.root, config.build.outDir)
     },
     async closeBundle() {
+      await mkdir(cacheDir, { recursive: true })
+      const used = new Set<string>()
       const jobs: Promise<void>[] = []
       for await (const file of filesUnder(outDir)) {
         if (!COMPRESSIBLE.test(file) || (await stat(file)).size < MIN_BYTES) continue
         jobs.push(
           (async () => {
             const raw = await readFile(file)
-            const [br, gz] = await Promise.all([
-              brotli(raw, {
-                params: {
-                  [zlib.constants.BROTLI_PARAM_QUALITY]: zlib.constants.BROTLI_MAX_QUALITY,
-                  [zlib.constants.BROTLI_PARAM_SIZE_HINT]: raw.length,
-                  [zlib.constants.BROTLI_PARAM_MODE]: zlib.constants.BROTLI_MODE_TEXT,
-                },
-              }),
-              gzip(raw, { level: zlib.constants.Z_BEST_COMPRESSION }),
-            ])
-            if (br.length < raw.length) await writeFile(`${file}.br`, br)
-            if (gz.length < raw.length) await writeFile(`${file}.gz`, gz)
+            const sha = createHash('sha256').update(raw).digest('hex')
+            for (const [suffix, encode] of Object.entries(ENCODERS)) {
+              const cached = path.join(cacheDir, `${sha}.${suffix}`)
+              const none = `${cached}.none`
+              used.add(path.basename(cached)).add(path.basename(none))
+              if (await exists(cached)) await copyFile(cached, `${file}.${suffix}`)
+              else if (!(await exists(none))) {
+                const packed = await encode(raw)
+                if (packed.length < raw.length) {
+                  await writeFile(cached, packed)
+                  await copyFile(cached, `${file}.${suffix}`)
+                } else await writeFile(none, '')
+              }
+            }
           })(),
         )
       }
       await Promise.all(jobs)
+      for (const entry of await readdir(cacheDir)) if (!used.has(entry)) await rm(path.join(cacheDir, entry), { force: true })
     },
   }
 }

@@ -30,6 +30,8 @@ import { studiosRouter } from './routes/studios'
 import { webhooksRouter } from './routes/webhooks'
 import { wareChecksRouter } from './routes/ware-checks'
 
+const SESSION_COOKIE = 'cw.sid'
+
 export interface App {
   app: Express
   /** Stops timers the app owns (the session pruner); the data source is the caller's. */
@@ -76,7 +78,7 @@ export function createApp(ctx: AppContext): App {
   app.use(
     '/api',
     session({
-      name: 'cw.sid',
+      name: SESSION_COOKIE,
       secret: config.sessionSecret,
       store,
       resave: false,
@@ -127,7 +129,7 @@ export function createApp(ctx: AppContext): App {
   app.use('/api', notFoundApi)
 
   if (config.serveClient && existsSync(path.join(config.clientDir, 'index.html'))) {
-    app.use(clientFiles(config.clientDir))
+    app.use(clientFiles(config.clientDir, { sessionCookie: SESSION_COOKIE }))
   }
 
   app.use(errorHandler(ctx.log.error))

@@ -1,4 +1,5 @@
 import type { Request, RequestHandler, Response } from 'express'
+import { existsSync, readFileSync } from 'node:fs'
 import { stat } from 'node:fs/promises'
 import path from 'node:path'
 
@@ -21,6 +22,23 @@ const ENCODINGS = [
 
 const NEVER_SERVED = /\.(map|br|gz)$/
 
+/**
+ * Whether an Accept-Encoding header takes an encoding (RFC 9110 §12.5.3: named or `*`, with a
+ * q-value above zero). Our own order of preference decides among those taken, since every browser
+ * lists them in its own order with the same q.
+ */
+export function accepts(header: string | undefined, encoding: string): boolean {
+  let wildcard: boolean | null = null
+  for (const part of (header ?? '').split(',')) {
+    const [name, ...params] = part.trim().toLowerCase().split(';')
+    const q = params.map((p) => /^\s*q=([\d.]+)\s*$/.exec(p)).find(Boolean)
+    const taken = !q || Number(q[1]) > 0
+    if (name === encoding) return taken
+    if (name === '*') wildcard = taken
+  }
+  return wildcard ?? false
+}
+
 async function isFile(file: string): Promise<boolean> {
   return stat(file).then(
     (s) => s.isFile(),
@@ -38,8 +56,9 @@ function relativeFile(clientDir: string, urlPath: string): string | null {
   }
   if (decoded.includes('\0')) return null
   const relative = path.posix.normalize(decoded).replace(/^\/+/, '')
-  const full = path.resolve(clientDir, relative)
-  return full.startsWith(path.resolve(clientDir) + path.sep) ? relative : null
+  const root = path.resolve(clientDir)
+  const full = path.resolve(root, relative)
+  return full === root || full.startsWith(root + path.sep) ? relative : null
 }
 
 /** Sends one file of the client, as the best precompressed copy the browser accepts. */
@@ -53,8 +72,7 @@ async function sendClientFile(req: Request, res: Response, clientDir: string, re
   if (available.length > 0) {
     // Caches must keep one copy per encoding, whichever this answer is.
     res.vary('Accept-Encoding')
-    const chosen = req.acceptsEncodings(available.map((e) => e.name))
-    const encoding = available.find((e) => e.name === chosen)
+    const encoding = available.find((e) => accepts(req.headers['accept-encoding'], e.name))
     if (encoding) {
       file = relative + encoding.suffix
       headers['Content-Encoding'] = encoding.name
@@ -65,11 +83,23 @@ async function sendClientFile(req: Request, res: Response, clientDir: string, re
   )
 }
 
+/** Which pages have their first screen drawn into their own HTML (written by build/prerender.ts). */
+type PrerenderManifest = Record<string, { file: string; visitorsOnly: boolean }>
+
+function readPrerendered(clientDir: string): PrerenderManifest {
+  const file = path.join(clientDir, 'prerendered.json')
+  return existsSync(file) ? (JSON.parse(readFileSync(file, 'utf8')) as PrerenderManifest) : {}
+}
+
 /**
- * Serves the built client: its files, and index.html for every other path (the client routes
- * itself). Requests under /assets/ for files that do not exist get a plain 404, not the page.
+ * Serves the built client: its files, and for every other path the page's HTML: index.html, or the
+ * prerendered copy of a page that has one (for a page meant for visitors, only to requests without
+ * a session cookie). The client routes itself from there. Requests under /assets/ for files that
+ * do not exist get a plain 404, not the page.
  */
-export function clientFiles(clientDir: string): RequestHandler {
+export function clientFiles(clientDir: string, { sessionCookie }: { sessionCookie: string }): RequestHandler {
+  const prerendered = readPrerendered(clientDir)
+  const hasSession = (req: Request) => (req.headers.cookie ?? '').split(/;\s*/).some((c) => c.startsWith(`${sessionCookie}=`))
   return async (req, res, next) => {
     if (req.method !== 'GET' && req.method !== 'HEAD') return next()
     try {
@@ -79,7 +109,10 @@ export function clientFiles(clientDir: string): RequestHandler {
         return await sendClientFile(req, res, clientDir, relative, relative.startsWith('assets/') ? IMMUTABLE : FIXED_NAME)
       }
       if (relative.startsWith('assets/')) return void res.status(404).type('text/plain').send('Not found')
-      await sendClientFile(req, res, clientDir, 'index.html', REVALIDATE)
+      const page = prerendered[req.path]
+      if (page?.visitorsOnly) res.vary('Cookie')
+      const html = page && !(page.visitorsOnly && hasSession(req)) ? page.file : 'index.html'
+      await sendClientFile(req, res, clientDir, html, REVALIDATE)
     } catch (error) {
       // A client that went away mid-file is no error of ours.
       if ((error as NodeJS.ErrnoException).code === 'ECONNABORTED' || res.headersSent) return

@@ -1,7 +1,8 @@
 import type { ComponentType } from 'react'
-import { createBrowserRouter, type RouteObject } from 'react-router-dom'
+import type { RouteObject } from 'react-router-dom'
 import type { UserRole } from '../../shared/schemas/auth'
 import { LandingPage } from '../features/home/pages/LandingPage'
+import { FIND_HEADING } from '../features/search/heading'
 import { ErrorPage, NotFoundPage } from './ErrorPage'
 import { Layout } from './Layout'
 import { PageSkeleton } from './PageSkeleton'
@@ -10,6 +11,8 @@ import { RequireRole } from './RequireRole'
 
 export interface PageHandle {
   page: PageName
+  /** Drawn by the skeleton while the page's code arrives, and by the build into the page's HTML. */
+  heading?: { title: string; lead?: string }
 }
 
 const studioSide: UserRole[] = ['host', 'crew']
@@ -23,9 +26,10 @@ function page<K extends keyof typeof pages>(
   name: K,
   pick: (module: Awaited<ReturnType<(typeof pages)[K]>>) => ComponentType,
   roles?: UserRole[],
+  heading?: PageHandle['heading'],
 ): Pick<RouteObject, 'lazy' | 'handle'> {
   return {
-    handle: { page: name } satisfies PageHandle,
+    handle: { page: name, heading } satisfies PageHandle,
     lazy: async () => {
       const load = pages[name] as () => Promise<Awaited<ReturnType<(typeof pages)[K]>>>
       const Page = pick(await load())
@@ -61,7 +65,7 @@ export const routes: RouteObject[] = [
           { path: 'reset-password', ...page('resetPassword', (m) => m.ResetPasswordPage) },
           { path: 'safety', ...page('safety', (m) => m.SafetyPage) },
           { path: 'planner', ...page('planner', (m) => m.PlannerPage) },
-          { path: 'find', ...page('find', (m) => m.FindFiringPage) },
+          { path: 'find', ...page('find', (m) => m.FindFiringPage, undefined, FIND_HEADING) },
           { path: 'my-ware', ...page('myWare', (m) => m.MyWarePage, ['potter']) },
           { path: 'kiln-room', ...page('kilnRoom', (m) => m.KilnRoomPage, studioSide) },
           { path: 'studios/:id', ...page('publicStudio', (m) => m.PublicStudioPage) },
@@ -84,5 +88,3 @@ export const routes: RouteObject[] = [
     ],
   },
 ]
-
-export const router = createBrowserRouter(routes)

@@ -1,5 +1,5 @@
 import L, { type Map as LeafletMap } from 'leaflet'
-import { useEffect, useRef, useState } from 'react'
+import { useCallback, useEffect, useRef, useState } from 'react'
 import { Circle } from 'react-leaflet'
 import type { SearchResponse } from '../../../../shared/schemas/search'
 import { Basemap, type LatLngPair } from '../../../components/map/Basemap'
@@ -45,6 +45,12 @@ export function ResultsMap({
   className = '',
 }: ResultsMapProps) {
   const mapRef = useRef<LeafletMap | null>(null)
+  // The map exists only after its first render; a fit that is already there then waits for it.
+  const [map, setMap] = useState<LeafletMap | null>(null)
+  const attachMap = useCallback((created: LeafletMap | null) => {
+    mapRef.current = created
+    setMap(created)
+  }, [])
   const moving = useRef(false)
   const fittedKey = useRef<string | null>(null)
   const keepViewFor = useRef<string | null>(null)
@@ -62,7 +68,7 @@ export function ResultsMap({
   }
 
   useEffect(() => {
-    if (!fit || fit.key === fittedKey.current) return
+    if (!map || !fit || fit.key === fittedKey.current) return
     fittedKey.current = fit.key
     setMovedByHand(false)
     // The potter asked for the area they were looking at: it stays in view as they left it.
@@ -80,7 +86,7 @@ export function ResultsMap({
       if (points.length === 1 && !(fit.origin && fit.studios.length === 0 && fit.radiusKm)) map.setView(points[0], 11, { animate: false })
       else map.fitBounds(bounds, { padding: FIT_PADDING, maxZoom: FIT_MAX_ZOOM, animate: false })
     })
-  }, [fit])
+  }, [fit, map])
 
   useEffect(() => {
     const studio = studios.find((s) => s.id === selectedStudioId)
@@ -105,7 +111,7 @@ export function ResultsMap({
   return (
     <div className={`relative ${className}`}>
       <Basemap
-        ref={mapRef}
+        ref={attachMap}
         center={START.center}
         zoom={START.zoom}
         label="Map of the firings found"
