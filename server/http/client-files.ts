@@ -30,7 +30,8 @@ const NEVER_SERVED = /\.(map|br|gz)$/
 export function accepts(header: string | undefined, encoding: string): boolean {
   let wildcard: boolean | null = null
   for (const part of (header ?? '').split(',')) {
-    const [name, ...params] = part.trim().toLowerCase().split(';')
+    const [raw, ...params] = part.toLowerCase().split(';')
+    const name = raw.trim()
     const q = params.map((p) => /^\s*q=([\d.]+)\s*$/.exec(p)).find(Boolean)
     const taken = !q || Number(q[1]) > 0
     if (name === encoding) return taken
