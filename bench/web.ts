@@ -173,6 +173,8 @@ async function measure(page: Page, cdp: CDPSession, base: string, spec: PageSpec
   await page.goto(base + spec.path, { waitUntil: 'commit', timeout: 120_000 })
   try {
     for (const selector of spec.ready) await page.locator(selector).first().waitFor({ state: 'visible', timeout: 60_000 })
+    // A prerendered page shows its heading before its scripts are in: wait for them too.
+    await page.waitForFunction(() => document.readyState === 'complete', undefined, { timeout: 60_000 })
   } catch (error) {
     throw new Error(`${spec.path} never showed ${spec.ready.join(' and ')}; page errors: ${errors.join(' | ') || 'none'}`, { cause: error })
   }
