@@ -127,7 +127,12 @@ function watchNetwork(cdp: CDPSession) {
     async quiet() {
       let quietSince = Date.now()
       let seen = requests.size
+      const giveUpAt = Date.now() + 60_000
       while (Date.now() - quietSince < QUIET_MS) {
+        if (Date.now() > giveUpAt) {
+          const open = [...requests.values()].filter((r) => !r.done).map((r) => r.url)
+          throw new Error(`the page never went quiet; still loading: ${open.join(', ') || 'nothing (new requests kept starting)'}`)
+        }
         await new Promise((r) => setTimeout(r, 100))
         if (requests.size !== seen || [...requests.values()].some((r) => !r.done)) {
           seen = requests.size

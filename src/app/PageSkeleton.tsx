@@ -1,20 +1,16 @@
-import { useMatches } from 'react-router-dom'
-import { PageHeader } from '../components/ui/Card'
-import type { PageHandle } from './router'
+import { useRouteHeading } from './RouteHeading'
 
 /**
- * Shown in the page's place while its code arrives on a first visit: the page's own heading when
- * the route names it, then the shape of a page (two cards) in the slip colours, so the layout does
+ * Shown in the page's place while its code arrives on a first visit: the shape of a page (a title
+ * unless the route draws its own heading above, two cards) in the slip colours, so the layout does
  * not jump when the page comes in.
  */
 export function PageSkeleton() {
-  const heading = (useMatches().at(-1)?.handle as PageHandle | undefined)?.heading
+  const heading = useRouteHeading()
   return (
     <div role="status" aria-live="polite" data-testid="page-skeleton">
       <span className="sr-only">Loading the page…</span>
-      {heading ? (
-        <PageHeader title={heading.title} lead={heading.lead} />
-      ) : (
+      {!heading && (
         <div className="mb-6 animate-pulse space-y-3" aria-hidden>
           <div className="h-8 w-2/3 max-w-md rounded-control bg-slip-200" />
           <div className="h-4 w-full max-w-xl rounded-control bg-slip-100" />

@@ -8,10 +8,11 @@ import { Layout } from './Layout'
 import { PageSkeleton } from './PageSkeleton'
 import { pages, type PageName } from './pages'
 import { RequireRole } from './RequireRole'
+import { RouteHeading } from './RouteHeading'
 
 export interface PageHandle {
   page: PageName
-  /** Drawn by the skeleton while the page's code arrives, and by the build into the page's HTML. */
+  /** Drawn above the page by RouteHeading (the page draws no heading of its own), from the first paint on. */
   heading?: { title: string; lead?: string }
 }
 
@@ -52,37 +53,44 @@ export const routes: RouteObject[] = [
     errorElement: <ErrorPage />,
     children: [
       {
-        // On a first visit to a lazy page the header and footer are drawn at once and the page's
-        // place holds a skeleton until its chunk arrives.
-        HydrateFallback: PageSkeleton,
+        // A route's named heading is drawn here, above the page, so it is the same element before
+        // and after the page's code arrives.
+        element: <RouteHeading />,
         children: [
-          // The landing page is in the main chunk: the first thing most people see needs no second trip.
-          { index: true, element: <LandingPage />, handle: { page: 'landing' } satisfies PageHandle },
-          { path: 'sign-in', ...page('signIn', (m) => m.SignInPage) },
-          { path: 'join', ...page('register', (m) => m.RegisterPage) },
-          { path: 'verify-email', ...page('verifyEmail', (m) => m.VerifyEmailPage) },
-          { path: 'forgot-password', ...page('forgotPassword', (m) => m.ForgotPasswordPage) },
-          { path: 'reset-password', ...page('resetPassword', (m) => m.ResetPasswordPage) },
-          { path: 'safety', ...page('safety', (m) => m.SafetyPage) },
-          { path: 'planner', ...page('planner', (m) => m.PlannerPage) },
-          { path: 'find', ...page('find', (m) => m.FindFiringPage, undefined, FIND_HEADING) },
-          { path: 'my-ware', ...page('myWare', (m) => m.MyWarePage, ['potter']) },
-          { path: 'kiln-room', ...page('kilnRoom', (m) => m.KilnRoomPage, studioSide) },
-          { path: 'studios/:id', ...page('publicStudio', (m) => m.PublicStudioPage) },
-          { path: 'studios/:id/edit', ...page('studioEditor', (m) => m.StudioEditorPage, studioSide) },
-          { path: 'studios/:id/calendar', ...page('calendar', (m) => m.CalendarPage, studioSide) },
-          { path: 'studios/:id/crew', ...page('crew', (m) => m.CrewPage, studioSide) },
-          { path: 'studios/:id/kilns/new', ...page('kilnEditor', (m) => m.NewKilnPage, studioSide) },
-          { path: 'studios/:id/requests', ...page('inbox', (m) => m.StudioInboxPage, studioSide) },
-          { path: 'firings/:firingId/request', ...page('composeRequest', (m) => m.ComposeRequestPage, ['potter']) },
-          { path: 'firings/:firingId/requests', ...page('inbox', (m) => m.FiringInboxPage, studioSide) },
-          { path: 'firings/:firingId/log', ...page('firingLog', (m) => m.FiringLogPage, studioSide) },
-          { path: 'requests/:id', ...page('request', (m) => m.RequestPage, ['potter', 'host', 'crew']) },
-          { path: 'kilns/:id', ...page('kiln', (m) => m.KilnPage, studioSide) },
-          { path: 'kilns/:id/edit', ...page('kilnEditor', (m) => m.KilnEditorPage, studioSide) },
-          { path: 'join-studio', ...page('joinStudio', (m) => m.JoinStudioPage) },
-          { path: 'front-desk', ...page('frontDesk', (m) => m.FrontDeskPage, ['admin']) },
-          { path: '*', element: <NotFoundPage />, handle: { page: 'notFound' } satisfies PageHandle },
+          {
+            // On a first visit to a lazy page the header and footer are drawn at once and the page's
+            // place holds a skeleton until its chunk arrives.
+            HydrateFallback: PageSkeleton,
+            children: [
+              // The landing page is in the main chunk: the first thing most people see needs no second trip.
+              { index: true, element: <LandingPage />, handle: { page: 'landing' } satisfies PageHandle },
+              { path: 'sign-in', ...page('signIn', (m) => m.SignInPage) },
+              { path: 'join', ...page('register', (m) => m.RegisterPage) },
+              { path: 'verify-email', ...page('verifyEmail', (m) => m.VerifyEmailPage) },
+              { path: 'forgot-password', ...page('forgotPassword', (m) => m.ForgotPasswordPage) },
+              { path: 'reset-password', ...page('resetPassword', (m) => m.ResetPasswordPage) },
+              { path: 'safety', ...page('safety', (m) => m.SafetyPage) },
+              { path: 'planner', ...page('planner', (m) => m.PlannerPage) },
+              { path: 'find', ...page('find', (m) => m.FindFiringPage, undefined, FIND_HEADING) },
+              { path: 'my-ware', ...page('myWare', (m) => m.MyWarePage, ['potter']) },
+              { path: 'kiln-room', ...page('kilnRoom', (m) => m.KilnRoomPage, studioSide) },
+              { path: 'studios/:id', ...page('publicStudio', (m) => m.PublicStudioPage) },
+              { path: 'studios/:id/edit', ...page('studioEditor', (m) => m.StudioEditorPage, studioSide) },
+              { path: 'studios/:id/calendar', ...page('calendar', (m) => m.CalendarPage, studioSide) },
+              { path: 'studios/:id/crew', ...page('crew', (m) => m.CrewPage, studioSide) },
+              { path: 'studios/:id/kilns/new', ...page('kilnEditor', (m) => m.NewKilnPage, studioSide) },
+              { path: 'studios/:id/requests', ...page('inbox', (m) => m.StudioInboxPage, studioSide) },
+              { path: 'firings/:firingId/request', ...page('composeRequest', (m) => m.ComposeRequestPage, ['potter']) },
+              { path: 'firings/:firingId/requests', ...page('inbox', (m) => m.FiringInboxPage, studioSide) },
+              { path: 'firings/:firingId/log', ...page('firingLog', (m) => m.FiringLogPage, studioSide) },
+              { path: 'requests/:id', ...page('request', (m) => m.RequestPage, ['potter', 'host', 'crew']) },
+              { path: 'kilns/:id', ...page('kiln', (m) => m.KilnPage, studioSide) },
+              { path: 'kilns/:id/edit', ...page('kilnEditor', (m) => m.KilnEditorPage, studioSide) },
+              { path: 'join-studio', ...page('joinStudio', (m) => m.JoinStudioPage) },
+              { path: 'front-desk', ...page('frontDesk', (m) => m.FrontDeskPage, ['admin']) },
+              { path: '*', element: <NotFoundPage />, handle: { page: 'notFound' } satisfies PageHandle },
+            ],
+          },
         ],
       },
     ],

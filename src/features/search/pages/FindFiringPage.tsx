@@ -3,12 +3,10 @@ import { useSearchParams } from 'react-router-dom'
 import type { SearchHit } from '../../../../shared/schemas/search'
 import { Alert } from '../../../components/ui/Alert'
 import { Button } from '../../../components/ui/Button'
-import { PageHeader } from '../../../components/ui/Card'
 import { MapPlaceholder } from '../../../components/map/MapPlaceholder'
 import { ApiError, type FieldErrors } from '../../../lib/api'
 import { useMe } from '../../auth/api/auth'
 import { useFiringSearch } from '../api/search'
-import { FIND_HEADING } from '../heading'
 import { NoResults } from '../components/NoResults'
 import { Pagination } from '../components/Pagination'
 import { ResultList, ResultSkeletons } from '../components/ResultList'
@@ -110,7 +108,6 @@ export function FindFiringPage() {
 
   return (
     <>
-      <PageHeader title={FIND_HEADING.title} lead={FIND_HEADING.lead} />
       <SearchFilters
         state={state}
         units={units}
