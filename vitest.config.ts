@@ -29,7 +29,14 @@ export default defineConfig({
       },
       {
         extends: true,
-        test: { name: 'e2e', include: ['tests/e2e/**/*.test.ts'], ...withDatabase, testTimeout: 180_000, hookTimeout: 180_000 },
+        test: {
+          name: 'e2e',
+          include: ['tests/e2e/**/*.test.ts'],
+          ...withDatabase,
+          setupFiles: ['tests/setup/e2e-failures.ts'],
+          testTimeout: 180_000,
+          hookTimeout: 180_000,
+        },
       },
     ],
   },

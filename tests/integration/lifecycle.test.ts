@@ -32,7 +32,7 @@ beforeAll(async () => {
   ids = await publishedStudio(owner.session, 'Lifecycle Studio')
   crew = await createPerson(app, 'crew', 'Cal Crew')
   await app.ctx.db.query(`INSERT INTO studio_members (studio_id, user_id, role) VALUES ($1, $2, 'crew')`, [ids.studioId, crew.id])
-}, 90_000)
+})
 
 afterAll(async () => {
   await app?.close()

@@ -21,7 +21,7 @@ beforeAll(async () => {
   owner = await createPerson(app, 'host', 'Ravi Host')
   potter = await createPerson(app, 'potter', 'Sol Potter')
   ids = await publishedStudio(owner.session, 'Pickup Studio')
-}, 60_000)
+})
 
 afterAll(async () => {
   await app?.close()

@@ -7,7 +7,7 @@ let app: TestApp
 
 beforeAll(async () => {
   app = await startTestApp({ worker: false })
-}, 60_000)
+})
 afterAll(async () => {
   await app?.close()
 })
