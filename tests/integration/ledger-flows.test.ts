@@ -30,7 +30,7 @@ beforeAll(async () => {
   app = await startTestApp({ stripe: true, config: { marketplaceFee: { percent: 10, minimumCents: 100 }, payoutHoldHours: 0 } })
   potter = await createPerson(app, 'potter', 'Flow Potter')
   admin = await createPerson(app, 'admin', 'Flow Desk')
-}, 120_000)
+})
 
 afterAll(async () => {
   await app?.close()

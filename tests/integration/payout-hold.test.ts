@@ -20,7 +20,7 @@ beforeAll(async () => {
   app = await startTestApp({ stripe: true, config: { marketplaceFee: { percent: 10, minimumCents: 100 }, payoutHoldHours: HOLD_HOURS } })
   owner = await createPerson(app, 'host', 'Hold Owner')
   potter = await createPerson(app, 'potter', 'Hold Potter')
-}, 120_000)
+})
 
 afterAll(async () => {
   await app?.close()

@@ -30,7 +30,7 @@ beforeAll(async () => {
   crew = await createPerson(app, 'crew', 'Cy Crew')
   ids = await publishedStudio(owner.session, 'Payout Studio')
   await app.ctx.db.query(`INSERT INTO studio_members (studio_id, user_id, role) VALUES ($1, $2, 'crew')`, [ids.studioId, crew.id])
-}, 120_000)
+})
 
 afterAll(async () => {
   await app?.close()
