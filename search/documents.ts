@@ -4,7 +4,7 @@
 import { shelfFootprint, usableHeightMm, type Atmosphere, type Kiln as KilnSpec } from '../shared/firing/check'
 import { coneIndex } from '../shared/firing/cones'
 import { EXAMPLE_MUG } from '../shared/firing/examples'
-import { quoteRequest, type PriceList } from '../shared/firing/quote'
+import { quoteRequest, type PriceList, type QuoteKiln } from '../shared/firing/quote'
 
 export interface FiringDocument {
   id: string
@@ -43,6 +43,9 @@ export interface FiringDocument {
   ratingMean: number | null
   ratingCount: number
   notes: string
+  /** The kiln's price list and what of the kiln a quote reads, so a search can price the potter's own piece. */
+  priceList?: PriceList | null
+  quoteKiln?: QuoteKiln
   _geo: { lat: number; lng: number }
 }
 
@@ -112,6 +115,8 @@ export function firingDocument({ studio, kiln, firing, spaceLeftL, priceList, ra
     ratingMean: rating?.mean ?? null,
     ratingCount: rating?.count ?? 0,
     notes: firing.notes,
+    priceList,
+    quoteKiln: { interior: spec.interior, controlledCooling: spec.controlledCooling, preheatHold: spec.preheatHold },
     _geo: { lat: studio.lat, lng: studio.lng },
   }
 }

@@ -25,6 +25,7 @@ export const pages = {
   kiln: () => import('../features/studios/pages/KilnPage'),
   joinStudio: () => import('../features/studios/pages/JoinStudioPage'),
   frontDesk: () => import('../features/admin/pages/FrontDeskPage'),
+  notices: () => import('../features/notices/pages/NoticesPage'),
 }
 
 export type PageName = keyof typeof pages | 'landing' | 'notFound'
