@@ -122,7 +122,8 @@ async function shown(page: Page) {
 }
 
 /** The studios' tags on the map, without the search centre. */
-const studioPins = (page: Page) => page.locator('[data-testid="basemap"] .leaflet-marker-icon:not([title^="Searched from"])')
+const studioPins = (page: Page) =>
+  page.locator('[data-testid="basemap"] .leaflet-marker-pane .leaflet-marker-icon:not([title^="Searched from"])')
 
 const names = (list: string[]) => [...list].sort()
 
@@ -209,6 +210,10 @@ describe('finding a firing', () => {
     expect(await studioPins(page).evaluateAll((els) => els.map((el) => el.textContent))).toEqual(expected.map(() => '∆10R'))
     await page.locator('.leaflet-marker-icon[title="Searched from Portland, OR"]').waitFor()
     await page.locator('[data-testid="basemap"] path.stroke-clay-400').waitFor()
+    // Town names from the gazetteer at city zoom, under the pins: Portland, and others beside it.
+    const towns = page.locator('[data-testid="basemap"] .leaflet-town-labels-pane .leaflet-marker-icon')
+    await towns.filter({ hasText: /^Portland$/ }).waitFor()
+    expect(await towns.count()).toBeGreaterThan(3)
     expect(await page.getByRole('button', { name: 'Look for firings in this part of the map' }).isDisabled()).toBe(true)
 
     // A tag picked on the map brings its studio's card under the map, its name beside the tag.
