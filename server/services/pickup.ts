@@ -281,7 +281,7 @@ export async function markCounterRefundPaid(ctx: AppContext, actor: User, id: st
 export async function markCollected(ctx: AppContext, actor: User, id: string) {
   return requestAction(ctx, actor, id, 'collected', async (step) => {
     const { manager, rc } = step
-    await step.move('collected', 'Collected by the potter')
+    await step.move('collected', 'Picked up by the potter')
     const quote = rc.request.standingQuote ?? rc.request.quote
     const { paidIn, refunded } = await moneyOf(manager, id)
     await step.tellPotter('pickup', pickupMail(factsOf(rc, ctx.config.publicUrl), quote?.lines ?? [], paidIn, refunded))
