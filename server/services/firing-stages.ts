@@ -277,7 +277,7 @@ export async function cancelFiring(
     if (!firing) throw notFound('That firing')
     if (firing.status === 'cancelled') throw conflict('This firing is already cancelled.', 'firing-cancelled')
     if (!canMoveFiring(firing.status, 'cancelled')) {
-      throw conflict('Ware is already in the kiln; this firing can no longer be cancelled.', 'bad-status-change', {
+      throw conflict('Ware is already in the kiln; this firing can no longer be called off.', 'bad-status-change', {
         allowed: nextFiringStatuses(firing.status),
       })
     }

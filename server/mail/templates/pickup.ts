@@ -20,7 +20,7 @@ export function dropOffMail(r: RequestFacts, c: CheckInFacts): MailContent {
     subject: `Ware received at ${r.studioName}`,
     greeting: `Hello ${r.potterName},`,
     paragraphs: [
-      `${r.studioName} checked your ware in for the ${title(r)} on ${formatDateTime(new Date(), r.timezone)}. This is what they recorded.`,
+      `${r.studioName} took your ware in for the ${title(r)} on ${formatDateTime(new Date(), r.timezone)}. This is what they recorded.`,
       c.conditionNotes ? `Condition at drop-off: ${c.conditionNotes}` : 'No damage was noted at drop-off.',
       ...(changed
         ? [

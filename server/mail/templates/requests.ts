@@ -172,7 +172,7 @@ export function disputedMail(r: RequestFacts, by: string, reason: string): MailC
     subject: `Dispute raised: the ${title(r)}`,
     paragraphs: [
       `${by} raised a dispute about this firing: “${reason}”`,
-      'The Conewright desk will look at the record (check-in, firing log, results and messages) and contact both sides.',
+      'The Conewright desk will look at the record (drop-off, firing log, results and messages) and contact both sides.',
     ],
     details: firingRows(r),
     action: { label: 'See it on Conewright', url: r.requestUrl },

@@ -23,8 +23,8 @@ export function studioPickupStep(state: RequestState, view: Partial<Pick<Request
   switch (state) {
     case 'received':
       return view.price?.pending
-        ? 'Checked in; the potter has to confirm the new price before the firing'
-        : 'Checked in; it goes in the kiln with this firing'
+        ? 'Taken in; the potter has to confirm the new price before the firing'
+        : 'Taken in; it goes in the kiln with this firing'
     case 'fired':
       return view.results
         ? 'Results posted; mark it ready for pickup'

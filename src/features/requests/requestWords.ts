@@ -174,7 +174,7 @@ export function rowNextStep(row: RequestRow): string {
   if (row.state === 'collected')
     return row.actions.includes('rate') ? `Picked up: answer a few questions about the ${studio ? 'potter' : 'firing'}` : 'Picked up'
   if (row.state === 'received' && row.price?.pricePending)
-    return studio ? 'Checked in; waiting for the potter to answer the new price' : 'Answer the new price the studio measured'
+    return studio ? 'Taken in; waiting for the potter to answer the new price' : 'Answer the new price the studio measured'
   if (row.state === 'ready')
     return owed
       ? studio

@@ -102,7 +102,7 @@ export function CheckInForm({ view, units }: { view: RequestView; units: UnitSys
 
   return (
     <>
-      <form onSubmit={submit} noValidate className="space-y-5" aria-label="Check the ware in" data-testid="check-in-form">
+      <form onSubmit={submit} noValidate className="space-y-5" aria-label="Take the ware in" data-testid="check-in-form">
         <p className="text-sm text-slip-700">
           Count what came in against what was declared. Measure a piece only if it looks bigger or smaller than the potter declared: the
           check and the price are worked out again from what you enter.
@@ -127,18 +127,18 @@ export function CheckInForm({ view, units }: { view: RequestView; units: UnitSys
         <PhotoUploader
           uploadUrl={`/api/requests/${view.id}/photos`}
           fields={{ kind: 'check-in' }}
-          label="Check-in photos"
+          label="Drop-off photos"
           hint="A photo of the ware as it came in, especially of any damage."
           onUploaded={() => void refreshPhotos()}
         />
         {checkIn.isError && (
-          <Alert tone="danger" title="Not checked in">
+          <Alert tone="danger" title="Not taken in">
             {problemOf(checkIn.error)}
           </Alert>
         )}
         <div className="flex flex-wrap items-center gap-2">
           <Button type="submit" busy={checkIn.isPending}>
-            Check the ware in
+            Take the ware in
           </Button>
           <button
             type="button"

@@ -23,7 +23,7 @@ export function DisputeAction({ view }: { view: RequestView }) {
         open={open}
         onClose={() => setOpen(false)}
         title="Raise a dispute"
-        description="The Conewright desk reads the whole record — check-in, firing log, results, messages — and contacts both sides. Try the message thread first; a dispute ends the normal path of this firing for this ware."
+        description="The Conewright desk reads the whole record — drop-off, firing log, results, messages — and contacts both sides. Try the message thread first; a dispute ends the normal path of this firing for this ware."
         footer={
           <>
             <Button variant="secondary" onClick={() => setOpen(false)}>

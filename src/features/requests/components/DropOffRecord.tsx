@@ -88,7 +88,7 @@ export function DropOffRecord({ view, checkIn, units }: { view: RequestView; che
   }
   return (
     <div className="space-y-4" data-testid="drop-off-record" data-refused="false">
-      <p className="text-sm text-slip-600">Checked in {formatDateTime(checkIn.at, zone)}.</p>
+      <p className="text-sm text-slip-600">Taken in {formatDateTime(checkIn.at, zone)}.</p>
       <Table caption="Pieces received">
         <thead>
           <tr>
@@ -119,7 +119,7 @@ export function DropOffRecord({ view, checkIn, units }: { view: RequestView; che
       </div>
       <PriceChangeNote view={view} currency={currency} />
       {view.viewer !== 'potter' && <CheckInFindings view={view} />}
-      <PhotoGallery photos={view.photos} kinds={['check-in']} empty="No photos were taken at check-in." />
+      <PhotoGallery photos={view.photos} kinds={['check-in']} empty="No photos were taken at drop-off." />
     </div>
   )
 }

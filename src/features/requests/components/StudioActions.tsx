@@ -202,7 +202,7 @@ export function StudioActions({ view, units }: { view: RequestView; units: UnitS
     <div className="space-y-3">
       {can('check-in') && (
         <a href="#check-in-heading" className="block text-sm font-semibold text-clay-700 hover:underline">
-          Check the ware in ↓
+          Take the ware in ↓
         </a>
       )}
       {can('results') && (

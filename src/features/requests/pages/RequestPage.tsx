@@ -301,7 +301,7 @@ function RequestDetail({ view, units, paidFor, unpaidFor, waitedOut }: DetailPro
           {view.actions.includes('check-in') && (
             <Card>
               <h2 id="check-in-heading" className="mb-3 scroll-mt-4 text-lg font-semibold">
-                Check the ware in
+                Take the ware in
               </h2>
               <CheckInForm view={view} units={units} />
             </Card>
@@ -385,7 +385,7 @@ function RequestDetail({ view, units, paidFor, unpaidFor, waitedOut }: DetailPro
           </Card>
 
           <Card>
-            <h2 className="mb-3 text-lg font-semibold">{remeasured ? 'Quote, as measured at check-in' : 'Quote'}</h2>
+            <h2 className="mb-3 text-lg font-semibold">{remeasured ? 'Quote, as measured at drop-off' : 'Quote'}</h2>
             {standing ? (
               <QuoteSummary
                 quote={standing}

@@ -96,7 +96,7 @@ export const ResultCard = forwardRef<HTMLElement, ResultCardProps>(function Resu
           to={`/firings/${hit.firingId}/request`}
           className="rounded-control bg-clay-600 px-3 py-1.5 text-sm font-semibold text-white hover:bg-clay-700"
         >
-          Request space<span className="sr-only"> at {hit.studio.name}</span>
+          Ask for space<span className="sr-only"> at {hit.studio.name}</span>
         </Link>
       </div>
     </article>

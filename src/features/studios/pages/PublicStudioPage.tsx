@@ -147,7 +147,7 @@ function StudioProfile({ studio }: { studio: Studio }) {
         ) : kilns.isError ? (
           <ApiProblem error={kilns.error} what="the kilns" />
         ) : kilns.data.length === 0 ? (
-          <EmptyState title="No kilns listed yet" />
+          <EmptyState title="No kilns added yet" />
         ) : (
           <>
             <ul className="grid gap-3 md:grid-cols-2">

@@ -278,7 +278,7 @@ function StudioEditor({ studio }: { studio: MemberStudio }) {
         </Card>
 
         <Card>
-          <h2 className="mb-3 font-semibold">Listing</h2>
+          <h2 className="mb-3 font-semibold">On Conewright</h2>
           <Checkbox label="Published: potters can find this studio, its kilns and firings" {...register('published')} />
           <p className="mt-2 text-xs text-slip-500">A draft is seen only by you and your crew.</p>
         </Card>
