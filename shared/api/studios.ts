@@ -99,3 +99,28 @@ export interface StudioReviewsJson {
   /** Newest first, with the potter's first name. */
   reviews: (ReviewJson & { author: string })[]
 }
+
+/** A member of a studio's crew, as its owner sees them (server/services/crew.ts). */
+export interface CrewMemberJson {
+  id: string
+  userId: string
+  displayName: string
+  email: string
+  role: StudioRole
+  since: string
+}
+
+/** An invitation still waiting for its invitee. */
+export interface CrewInviteJson {
+  id: string
+  email: string
+  expiresAt: string
+}
+
+/** What an invitation link shows before the invitee joins. */
+export interface InviteDetailsJson {
+  studioId: string
+  studioName: string
+  email: string
+  expiresAt: string
+}
