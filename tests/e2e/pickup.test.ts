@@ -199,7 +199,7 @@ describe('from drop-off to the answers after pickup in the browser', () => {
     expect(potterErrors).toEqual([])
   })
 
-  it('the host moves the firing through loading, firing, cooling and unloaded from its log page and fills the log', async () => {
+  it('the studio owner moves the firing through loading, firing, cooling and unloaded from its log page and fills the log', async () => {
     await hostPage.goto(`/studios/${studioId}/calendar?view=list`)
     await hostPage.getByRole('button', { name: 'Manage' }).first().click()
     await hostPage.getByRole('dialog').getByRole('link', { name: 'Firing log' }).click()
@@ -296,7 +296,7 @@ describe('from drop-off to the answers after pickup in the browser', () => {
     expect(hostErrors).toEqual([])
   })
 
-  it('the host posts results with a photo and marks the ware ready; the potter sees the results, the photo and the log', async () => {
+  it('the studio owner posts results with a photo and marks the ware ready; the potter sees the results, the photo and the log', async () => {
     await hostPage.goto(`/requests/${requestId}`)
     await expect.poll(() => stateOf(hostPage)).toBe('fired')
     const form = hostPage.getByTestId('results-form')
