@@ -123,7 +123,7 @@ describe('a studio owner sets up a studio and crew in the browser', () => {
     await firingForm.getByLabel('Cone').selectOption('6')
     await firingForm.getByLabel(/^Drop-off closes/).fill(studioLocal(5, '12:00'))
     await firingForm.getByLabel(/^Firing starts/).fill(studioLocal(7, '18:00'))
-    await firingForm.getByLabel(/^Ready to collect/).fill(studioLocal(10, '12:00'))
+    await firingForm.getByLabel(/^Ready for pickup/).fill(studioLocal(10, '12:00'))
     await firingForm.getByLabel('Space on sale (cu ft)').fill(String(CAPACITY_CUBIC_FEET))
     await firingForm.getByRole('button', { name: 'Post the firing' }).click()
     await firingForm.waitFor({ state: 'detached' })
