@@ -174,7 +174,7 @@ function StudioPanel({ studio, units }: { studio: MemberStudio; units: UnitSyste
         </Alert>
       )}
 
-      <div className="grid gap-4 lg:grid-cols-[1fr_18rem]">
+      <div className="grid grid-cols-1 gap-4 lg:grid-cols-[minmax(0,1fr)_18rem]">
         <div className="space-y-2">
           <h3 className="text-sm font-semibold uppercase tracking-wide text-slip-600">Coming firings</h3>
           {firings.isPending ? (
