@@ -1,3 +1,4 @@
+import { zoneName } from '../../../../shared/dates'
 import { useState } from 'react'
 import { Link } from 'react-router-dom'
 import { Alert } from '../../../components/ui/Alert'
@@ -125,7 +126,7 @@ function StudioPanel({ studio, units }: { studio: MemberStudio; units: UnitSyste
             {studio.verified && <Badge tone="clay">Verified</Badge>}
             <Badge>{isOwner ? 'Owner' : 'Crew'}</Badge>
             <span>
-              {[studio.city, studio.region].filter(Boolean).join(', ')} · times in {studio.timezone}
+              {[studio.city, studio.region].filter(Boolean).join(', ')} · times in {zoneName(studio.timezone)}
             </span>
           </div>
         </div>
@@ -252,7 +253,13 @@ function StudioPanel({ studio, units }: { studio: MemberStudio; units: UnitSyste
         </Card>
       </div>
 
-      <Dialog open={posting} onClose={() => setPosting(false)} title="Post a firing" description={`Times in ${studio.timezone}.`} size="lg">
+      <Dialog
+        open={posting}
+        onClose={() => setPosting(false)}
+        title="Post a firing"
+        description={`Times in ${zoneName(studio.timezone)}.`}
+        size="lg"
+      >
         <FiringForm
           studioId={studio.id}
           zone={studio.timezone}
