@@ -31,7 +31,7 @@ import { RequestProblem } from '../components/RequestProblem'
 import { RequestStateBadge } from '../components/RequestStateBadge'
 import { SpaceGauge } from '../components/SpaceGauge'
 import { StudioActions } from '../components/StudioActions'
-import { Timeline } from '../components/Timeline'
+import { Timeline } from '../../../components/requests/Timeline'
 import { DisputeAction } from '../components/DisputeAction'
 import { potterNextStep, studioNextStep } from '../requestWords'
 
