@@ -55,42 +55,6 @@ afterAll(async () => {
   await app?.close()
 })
 
-interface Violation {
-  id: string
-  impact: string | null
-  help: string
-  nodes: { target: string[]; failureSummary?: string }[]
-}
-
-/** Waits for the page's data: a heading in the main region and no spinner left in it. */
-async function settled(page: Page) {
-  await page.locator('main h1').first().waitFor()
-  await expect.poll(() => page.locator('main .animate-spin, main [aria-busy="true"]').count()).toBe(0)
-}
-
-/** axe-core's serious and critical findings against WCAG 2.1 A and AA, in a line each. */
-async function seriousViolations(page: Page): Promise<string[]> {
-  // Evaluated through the DevTools protocol, which the page's script-src policy does not govern.
-  if (!(await page.evaluate(() => 'axe' in window))) await page.evaluate(AXE_SOURCE)
-  const violations = await page.evaluate(async () => {
-    const axe = (window as unknown as { axe: { run: (c: Document, o: object) => Promise<{ violations: Violation[] }> } }).axe
-    const result = await axe.run(document, { runOnly: { type: 'tag', values: ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa'] } })
-    return result.violations
-  })
-  return violations
-    .filter((v) => v.impact === 'serious' || v.impact === 'critical')
-    .flatMap((v) =>
-      v.nodes.map((n) => `${v.id} (${v.impact}) at ${n.target.join(' ')}: ${n.failureSummary?.split('\n').slice(1).join(' ')}`),
-    )
-}
-
-/** How far the page scrolls sideways at the current width: 0 when nothing sticks out. */
-const sidewaysOverflow = (page: Page) =>
-  page.evaluate(() => {
-    const root = document.scrollingElement!
-    return root.scrollWidth - root.clientWidth
-  })
-
 /**
  * Tabs through the page (up to `stops` controls) and names every control that takes keyboard focus
  * without drawing an outline or a ring around itself.
