@@ -4,16 +4,14 @@
 // measured at a phone's 390 × 844 for sideways scrolling. The pages run over the demo data plus one
 // disputed request with every kind of evidence, so the request page, the firing log and the front desk
 // show their fullest state.
-import { createRequire } from 'node:module'
 import type { Browser, BrowserContext, Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { DEMO_PASSWORD, seedDemo } from '../../server/db/seed'
 import { launchBrowser, openPage } from '../support/browser'
 import { disputedRequest } from '../support/dispute-fixture'
 import { HttpSession } from '../support/http-client'
+import { seriousViolations, settled, sidewaysOverflow } from '../support/readability'
 import { startTestApp, type TestApp } from '../support/test-app'
-
-const AXE_SOURCE: string = (createRequire(import.meta.url)('axe-core') as { source: string }).source
 
 const POTTER = 'wren.alvarado@demo.conewright.test'
 const OWNER = 'marisol.okafor@demo.conewright.test'

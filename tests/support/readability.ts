@@ -2,6 +2,7 @@
 // engine injected into the page, no network) and how far the page scrolls sideways.
 import { createRequire } from 'node:module'
 import type { Page } from 'playwright-core'
+import { expect } from 'vitest'
 
 const AXE_SOURCE: string = (createRequire(import.meta.url)('axe-core') as { source: string }).source
 
@@ -34,3 +35,9 @@ export const sidewaysOverflow = (page: Page) =>
     const root = document.scrollingElement!
     return root.scrollWidth - root.clientWidth
   })
+
+/** Waits for the page's data: a heading in the main region and no spinner left in it. */
+export async function settled(page: Page) {
+  await page.locator('main h1').first().waitFor()
+  await expect.poll(() => page.locator('main .animate-spin, main [aria-busy="true"]').count()).toBe(0)
+}

@@ -3,6 +3,8 @@ import { useId, type ReactNode, type TdHTMLAttributes, type ThHTMLAttributes } f
 /**
  * A bordered table that scrolls sideways on a narrow screen instead of squeezing its columns. The
  * scrolling box takes keyboard focus (named by the caption), so it can be scrolled without a mouse.
+ * It is positioned so that screen-reader-only words in a far column (absolutely placed) scroll inside
+ * it too, rather than pushing the whole page sideways.
  */
 export function Table({ caption, children, className = '' }: { caption?: ReactNode; children: ReactNode; className?: string }) {
   const captionId = useId()
@@ -11,7 +13,7 @@ export function Table({ caption, children, className = '' }: { caption?: ReactNo
       role="region"
       tabIndex={0}
       aria-labelledby={caption ? captionId : undefined}
-      className={`focus-ring overflow-x-auto rounded-card border border-slip-200 bg-white ${className}`}
+      className={`focus-ring relative overflow-x-auto rounded-card border border-slip-200 bg-white ${className}`}
     >
       <table className="min-w-full divide-y divide-slip-200 text-left text-sm">
         {caption && (
