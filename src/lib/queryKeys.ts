@@ -35,6 +35,14 @@ export const keys = {
     detail: (id: string) => ['kilns', id] as const,
     priceList: (id: string) => ['kilns', id, 'price-list'] as const,
   },
+  desk: {
+    all: ['desk'] as const,
+    studios: () => ['desk', 'studios'] as const,
+    studioPage: (query: object) => ['desk', 'studios', query] as const,
+    accounts: () => ['desk', 'accounts'] as const,
+    accountPage: (query: object) => ['desk', 'accounts', query] as const,
+    disputes: () => ['desk', 'disputes'] as const,
+  },
   studios: {
     all: ['studios'] as const,
     mine: () => ['studios', 'mine'] as const,

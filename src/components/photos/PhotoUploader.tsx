@@ -282,7 +282,7 @@ function UploadRow({ item, onRetry, onRemove }: { item: UploadItem; onRetry: () 
     >
       <div className="size-14 shrink-0 overflow-hidden rounded-control bg-slip-100">
         {thumb ? (
-          <img src={thumb} alt="" className="size-full object-cover" />
+          <img src={thumb} alt={`Preview of ${item.name}`} className="size-full object-cover" />
         ) : (
           <span className="flex size-full items-center justify-center text-xs text-slip-500">—</span>
         )}

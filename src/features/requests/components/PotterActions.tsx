@@ -7,7 +7,7 @@ import { Dialog } from '../../../components/ui/Dialog'
 import { Field, TextArea } from '../../../components/ui/Field'
 import { ApiError } from '../../../lib/api'
 import { firingInWords } from '../../../lib/firingWords'
-import { formatSpace, type UnitSystem } from '../../../lib/units'
+import { formatVolume, type UnitSystem } from '../../../lib/units'
 import { QuoteSummary } from '../../../components/ware/QuoteSummary'
 import { ConfirmDialog } from '../../../components/ui/ConfirmDialog'
 import { useConfirmPrice, useDeclinePrice } from '../api/pickup'
@@ -129,7 +129,7 @@ export function PotterActions({ view, units }: { view: RequestView; units: UnitS
           <p className="text-sm text-slip-700">
             Drop off by {formatDateTime(view.proposedFiring.dropOffBy, zone)}; fired {formatDateTime(view.proposedFiring.firingDate, zone)}.
           </p>
-          <p className="text-xs text-slip-600">{formatSpace(view.proposedFiring.spaceLeftL, units)} left in it.</p>
+          <p className="text-xs text-slip-600">{formatVolume(view.proposedFiring.spaceLeftL, units)} left in it.</p>
           <div className="mt-3 flex flex-wrap gap-2">
             <Button
               busy={answer.isPending && answer.variables?.accept === true}

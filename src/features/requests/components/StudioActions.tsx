@@ -1,5 +1,5 @@
 import { useState } from 'react'
-import { formatDateTime, formatMoney } from '../../../../shared/dates'
+import { formatDateTime, formatMoney, zoneName } from '../../../../shared/dates'
 import { requestDeclineSchema } from '../../../../shared/schemas/requests'
 import { takesRequests } from '../../../../shared/workflow/firing-status'
 import { Alert } from '../../../components/ui/Alert'
@@ -10,7 +10,7 @@ import { Field, Select, TextArea } from '../../../components/ui/Field'
 import { Spinner } from '../../../components/ui/Spinner'
 import { ApiError } from '../../../lib/api'
 import { firingInWords } from '../../../lib/firingWords'
-import { formatSpace, type UnitSystem } from '../../../lib/units'
+import { formatVolume, type UnitSystem } from '../../../lib/units'
 import { useStudioFirings } from '../api/firings'
 import { useAcceptRequest, useDeclineRequest, useProposeMove } from '../api/requests'
 import type { RequestView } from '../api/types'
@@ -49,7 +49,7 @@ export function AcceptButton({ view, size = 'md', units }: { view: RequestView; 
       >
         <ul className="list-disc space-y-1 pl-5" data-testid="accept-effects">
           <li>
-            {formatSpace(view.volumeL, units)} of the firing is held for it ({formatSpace(view.firing.spaceLeftL, units)} is free now).
+            {formatVolume(view.volumeL, units)} of the firing is held for it ({formatVolume(view.firing.spaceLeftL, units)} is free now).
           </li>
           {deposit > 0 ? (
             <li>
@@ -172,13 +172,13 @@ export function MoveDialog({ view, open, onClose, units }: { view: RequestView; 
         </p>
       ) : (
         <div className="space-y-3">
-          <Field label="Firing" hint={`Times in ${zone.replace(/_/g, ' ')}. The ware needs ${formatSpace(view.volumeL, units)}.`}>
+          <Field label="Firing" hint={`Times in ${zoneName(zone)}. The ware needs ${formatVolume(view.volumeL, units)}.`}>
             {(a11y) => (
               <Select {...a11y} value={firingId} onChange={(event) => setFiringId(event.target.value)}>
                 <option value="">Choose a firing</option>
                 {choices.map((f) => (
                   <option key={f.id} value={f.id} disabled={f.spaceLeftL < view.volumeL}>
-                    {formatDateTime(f.firingDate, zone)} · {firingInWords(f)} · {formatSpace(f.spaceLeftL, units)} left
+                    {formatDateTime(f.firingDate, zone)} · {firingInWords(f)} · {formatVolume(f.spaceLeftL, units)} left
                   </option>
                 ))}
               </Select>
@@ -237,7 +237,7 @@ export function StudioActions({ view, units }: { view: RequestView; units: UnitS
         </div>
       )}
       {can('accept') && (
-        <p className="text-xs text-slip-600">Taking it on holds {formatSpace(view.volumeL, units)} and asks the potter for the deposit.</p>
+        <p className="text-xs text-slip-600">Taking it on holds {formatVolume(view.volumeL, units)} and asks the potter for the deposit.</p>
       )}
       <ReasonDialog requestId={view.id} open={dialog === 'decline'} onClose={() => setDialog(null)} mode="decline" />
       <ReasonDialog

@@ -181,7 +181,7 @@ function ComposeForm({ firing, kiln, priceList, studio, draft, units }: ComposeF
               </Alert>
             )}
             {serverBlocked && (
-              <Alert tone="danger" title="The server’s check blocks this ware">
+              <Alert tone="danger" title="Conewright’s check blocks this ware">
                 <p>Change what is marked and try again.</p>
                 <div className="mt-2">
                   <FindingsList findings={serverBlocked.findings.filter((f) => f.severity === 'block')} pieces={serverBlocked.pieces} />

@@ -4,7 +4,7 @@ import { ButtonLink } from '../../../components/ui/Button'
 import { EmptyState, PageHeader } from '../../../components/ui/Card'
 import { Spinner } from '../../../components/ui/Spinner'
 import { firingInWords } from '../../../lib/firingWords'
-import { formatSpace, type UnitSystem } from '../../../lib/units'
+import { formatVolume, type UnitSystem } from '../../../lib/units'
 import { useMe } from '../../auth/api/auth'
 import { useRequests } from '../api/requests'
 import type { RequestRow } from '../api/types'
@@ -89,7 +89,7 @@ function RequestCard({ row, units }: { row: RequestRow; units: UnitSystem }) {
         {next}
       </p>
       <p className="mt-1 text-xs text-slip-500">
-        {row.pieceCount} {row.pieceCount === 1 ? 'piece' : 'pieces'} · {formatSpace(row.volumeL, units)}
+        {row.pieceCount} {row.pieceCount === 1 ? 'piece' : 'pieces'} · {formatVolume(row.volumeL, units)}
         {money && <span data-testid="row-money"> · {money}</span>}
       </p>
     </li>

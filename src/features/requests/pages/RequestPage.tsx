@@ -10,7 +10,7 @@ import { ButtonLink } from '../../../components/ui/Button'
 import { FindingsList, VerdictLine } from '../../../components/ware/CheckResults'
 import { QuoteSummary } from '../../../components/ware/QuoteSummary'
 import { firingInWords } from '../../../lib/firingWords'
-import { formatSpace, type UnitSystem } from '../../../lib/units'
+import { formatVolume, type UnitSystem } from '../../../lib/units'
 import { useMe } from '../../auth/api/auth'
 import { useRequest, type RequestPolling } from '../api/requests'
 import type { RequestView } from '../api/types'
@@ -31,7 +31,7 @@ import { RequestProblem } from '../components/RequestProblem'
 import { RequestStateBadge } from '../components/RequestStateBadge'
 import { SpaceGauge } from '../components/SpaceGauge'
 import { StudioActions } from '../components/StudioActions'
-import { Timeline } from '../components/Timeline'
+import { Timeline } from '../../../components/requests/Timeline'
 import { DisputeAction } from '../components/DisputeAction'
 import { potterNextStep, studioNextStep } from '../requestWords'
 
@@ -355,7 +355,7 @@ function RequestDetail({ view, units, paidFor, unpaidFor, waitedOut }: DetailPro
 
           <section aria-labelledby="pieces-heading" className="space-y-3">
             <h2 id="pieces-heading" className="text-lg font-semibold">
-              Pieces <span className="text-sm font-normal text-slip-600">· {formatSpace(view.volumeL, units)} in all</span>
+              Pieces <span className="text-sm font-normal text-slip-600">· {formatVolume(view.volumeL, units)} in all</span>
             </h2>
             <PiecesTable pieces={view.pieces} units={units} />
             {view.notes && (
@@ -435,7 +435,7 @@ function RequestDetail({ view, units, paidFor, unpaidFor, waitedOut }: DetailPro
             <h2 id="ledger-heading" className="text-lg font-semibold">
               Money in and out
             </h2>
-            <Ledger entries={view.ledger} zone={zone} />
+            <Ledger entries={view.ledger} zone={zone} showReferences={view.viewer !== 'potter'} />
           </section>
 
           <section aria-labelledby="timeline-heading" className="space-y-3">

@@ -1,3 +1,4 @@
+import { zoneName } from '../../../../shared/dates'
 import { useState } from 'react'
 import { Link } from 'react-router-dom'
 import { Alert } from '../../../components/ui/Alert'
@@ -126,7 +127,7 @@ function StudioPanel({ studio, units }: { studio: MemberStudio; units: UnitSyste
             {studio.verified && <Badge tone="clay">Verified</Badge>}
             <Badge>{isOwner ? 'Owner' : 'Crew'}</Badge>
             <span>
-              {[studio.city, studio.region].filter(Boolean).join(', ')} · times in {studio.timezone}
+              {[studio.city, studio.region].filter(Boolean).join(', ')} · times in {zoneName(studio.timezone)}
             </span>
           </div>
         </div>
@@ -175,7 +176,7 @@ function StudioPanel({ studio, units }: { studio: MemberStudio; units: UnitSyste
         </Alert>
       )}
 
-      <div className="grid gap-4 lg:grid-cols-[1fr_18rem]">
+      <div className="grid grid-cols-1 gap-4 lg:grid-cols-[minmax(0,1fr)_18rem]">
         <div className="space-y-2">
           <h3 className="text-sm font-semibold uppercase tracking-wide text-slip-600">Coming firings</h3>
           {firings.isPending ? (
@@ -253,7 +254,13 @@ function StudioPanel({ studio, units }: { studio: MemberStudio; units: UnitSyste
         </Card>
       </div>
 
-      <Dialog open={posting} onClose={() => setPosting(false)} title="Post a firing" description={`Times in ${studio.timezone}.`} size="lg">
+      <Dialog
+        open={posting}
+        onClose={() => setPosting(false)}
+        title="Post a firing"
+        description={`Times in ${zoneName(studio.timezone)}.`}
+        size="lg"
+      >
         <FiringForm
           studioId={studio.id}
           zone={studio.timezone}

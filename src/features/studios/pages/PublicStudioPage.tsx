@@ -85,7 +85,7 @@ function StudioProfile({ studio }: { studio: Studio }) {
         {studio.description && <p className="mt-4 max-w-3xl whitespace-pre-line text-slip-800">{studio.description}</p>}
       </header>
 
-      <div className="grid gap-8 lg:grid-cols-[1fr_22rem]">
+      <div className="grid grid-cols-1 gap-8 lg:grid-cols-[minmax(0,1fr)_22rem]">
         <section aria-labelledby="firings-heading" className="space-y-3">
           <div className="flex flex-wrap items-baseline justify-between gap-2">
             <h2 id="firings-heading" className="text-xl font-bold tracking-tight">

@@ -1,3 +1,4 @@
+import { zoneCity, zoneName } from '../../../../shared/dates'
 import { zodResolver } from '@hookform/resolvers/zod'
 import { lazy, Suspense, useMemo, useState } from 'react'
 import { useForm, useWatch, type FieldNamesMarkedBoolean } from 'react-hook-form'
@@ -149,7 +150,7 @@ function StudioEditor({ studio }: { studio: MemberStudio }) {
                   <Select {...a11y} {...register('timezone')}>
                     {zones.map((zone) => (
                       <option key={zone} value={zone}>
-                        {zone.replace(/_/g, ' ')}
+                        {zoneName(zone)} ({zoneCity(zone)})
                       </option>
                     ))}
                   </Select>
