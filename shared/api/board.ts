@@ -23,7 +23,7 @@ export interface BoardFiring {
 export interface BoardStudio {
   studio: SearchHit['studio']
   distanceKm: number | null
-  rating: SearchHit['rating']
+  reviews: SearchHit['reviews']
   /** The kilns of the firings found, each once, in the order their first firing comes. */
   kilns: BoardKiln[]
   /** The firings found, in the search's order, at most FIRINGS_PER_STUDIO of them. */

@@ -32,7 +32,7 @@ export function groupByStudio(
     cards.push({
       studio: first.studio,
       distanceKm: first.distanceKm,
-      rating: first.rating,
+      reviews: first.reviews,
       kilns: [...kilns.values()],
       firings: shown.map((hit) => ({
         firingId: hit.firingId,

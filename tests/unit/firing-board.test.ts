@@ -41,7 +41,7 @@ function hit(owner: SearchHit['studio'], kilnId: string, cone: string, day: numb
     capacityL: 100,
     distanceKm: 3.2,
     priceExample: { label: 'Mug', totalCents: 900, currency: 'USD' },
-    rating: null,
+    reviews: null,
     piecePrice: null,
   }
 }

@@ -1,7 +1,7 @@
 import { Link } from 'react-router-dom'
 import type { BoardFiring } from '../../../../shared/api/board'
 import { formatMoney } from '../../../../shared/dates'
-import { formatSpace, type UnitSystem } from '../units'
+import { formatVolume, type UnitSystem } from '../../../lib/units'
 import { atmosphereLabel, firingKindLabel, formatWhen } from '../words'
 
 const chipDay = new Intl.DateTimeFormat(undefined, { weekday: 'short', month: 'short', day: 'numeric' })
@@ -24,7 +24,7 @@ export function FiringChip({ firing, studioName, units, compact = false }: Firin
   const said = [
     `Cone ${firing.cone} ${atmosphereLabel(firing.atmosphere).toLowerCase()} ${firingKindLabel(firing.kind).toLowerCase()} firing at ${studioName}`,
     `drop off by ${formatWhen(firing.dropOffBy)}`,
-    `${formatSpace(firing.spaceLeftL, units)} left`,
+    `${formatVolume(firing.spaceLeftL, units)} left`,
     price ? `your piece ${price}` : null,
   ]
     .filter(Boolean)
@@ -49,7 +49,7 @@ export function FiringChip({ firing, studioName, units, compact = false }: Firin
         {firingKindLabel(firing.kind).toLowerCase()}
       </span>
       <span className="block text-slip-600">
-        {full ? 'full' : `${formatSpace(firing.spaceLeftL, 'metric')} left`}
+        {full ? 'full' : `${formatVolume(firing.spaceLeftL, units)} left`}
         {price && <span className="font-semibold text-slip-900"> · {price}</span>}
       </span>
     </Link>

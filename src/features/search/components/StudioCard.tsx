@@ -2,7 +2,8 @@ import { Link } from 'react-router-dom'
 import type { BoardKiln, BoardStudio } from '../../../../shared/api/board'
 import { formatMoney } from '../../../../shared/dates'
 import { Badge } from '../../../components/ui/Badge'
-import { formatDistance, formatLength, type UnitSystem } from '../units'
+import { formatLength, type UnitSystem } from '../../../lib/units'
+import { formatDistance } from '../units'
 import { kilnKindLabel } from '../words'
 import { FiringChip } from './FiringChip'
 
@@ -55,15 +56,9 @@ export function StudioCard({ card, units, ownPiece, selected = false, onShowOnMa
           </p>
         </div>
         <div className="text-right text-sm">
-          {card.rating && (
-            <p
-              className="text-slip-700"
-              aria-label={`Rated ${card.rating.mean} out of 5 by ${card.rating.count} ${card.rating.count === 1 ? 'potter' : 'potters'}`}
-            >
-              <span aria-hidden className="text-ember-500">
-                ★
-              </span>{' '}
-              {card.rating.mean.toFixed(1)} <span className="text-slip-500">({card.rating.count})</span>
+          {card.reviews && (
+            <p className="text-slip-700" data-testid="studio-reviews">
+              {card.reviews.fireAgain} of {card.reviews.count} would fire here again
             </p>
           )}
           {yours ? (
