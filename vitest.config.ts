@@ -25,6 +25,8 @@ export default defineConfig({
           ...withDatabase,
           testTimeout: 60_000,
           hookTimeout: 120_000,
+          // expect.poll waits on a state; the ceiling is for a busy machine (Vitest's own default is 1 s).
+          expect: { poll: { timeout: 30_000 } },
         },
       },
       {
@@ -36,6 +38,7 @@ export default defineConfig({
           setupFiles: ['tests/setup/e2e-failures.ts'],
           testTimeout: 180_000,
           hookTimeout: 180_000,
+          expect: { poll: { timeout: 60_000 } },
         },
       },
     ],

@@ -3,6 +3,6 @@
 export { ensureFiringsIndex, firingsIndex, searchClient, type EngineConfig } from './client'
 export { firingDocument, type FiringDocument, type FiringFacts } from './documents'
 export { replaceAllDocuments, writeStudioDocuments } from './engine-writes'
-export { searchPostgres } from './fallback'
+export { searchPostgres, searchStudiosPostgres } from './fallback'
 export { distanceKm, engineFilter, engineSort, sqlQuery, type FiringSearch } from './query'
 export { FIRING_FACETS, FIRINGS_INDEX, FIRINGS_INDEX_SETTINGS } from './settings'

@@ -14,7 +14,7 @@ import { Photo } from '../entities/Photo'
 import { KilnPriceList } from '../entities/KilnPriceList'
 import { OutboundMail } from '../entities/OutboundMail'
 import { PayoutAccount } from '../entities/PayoutAccount'
-import { Rating } from '../entities/Rating'
+import { Review } from '../entities/Review'
 import { RequestEvent } from '../entities/RequestEvent'
 import { RequestMessage } from '../entities/RequestMessage'
 import { RequestPayout } from '../entities/RequestPayout'
@@ -39,7 +39,7 @@ export const entities = [
   Firing,
   FiringRequest,
   RequestEvent,
-  Rating,
+  Review,
   SearchDocument,
   LedgerEntry,
   Payment,

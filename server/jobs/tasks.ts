@@ -6,6 +6,7 @@ import { sendQueuedMail } from '../services/mail'
 import { MESSAGE_DIGEST_TASK, sendMessageDigest } from '../services/messages'
 import { EXPIRE_CHECKOUTS_TASK, makeRefund, OPEN_CHECKOUT_TASK, openCheckout, REFUND_TASK } from '../services/payments'
 import { DEPOSIT_EXPIRY_TASK, expireDepositHold, sweepStaleRequests } from '../services/requests'
+import { PUBLISH_REVIEWS_TASK, publishDueReviews } from '../services/reviews'
 import { expireOpenCheckouts } from '../services/payments'
 import { engineIsBack, engineRebuilt } from '../services/search'
 import { PAYOUT_SWEEP_TASK, PAYOUT_TASK, payStudio, sweepPayouts } from '../services/payouts'
@@ -54,6 +55,9 @@ export function taskList(ctx: AppContext): TaskList {
     [MESSAGE_DIGEST_TASK]: async (payload) => {
       const { requestId, to } = payload as { requestId: string; to: 'potter' | 'studio' }
       await sendMessageDigest(ctx, requestId, to)
+    },
+    [PUBLISH_REVIEWS_TASK]: async (payload) => {
+      await publishDueReviews(ctx, (payload as { requestId: string }).requestId)
     },
     [REINDEX_TASK]: async () => {
       const { documents } = await reindexAll(ctx)

@@ -12,7 +12,7 @@ import { Studio } from '../entities/Studio'
 import { enqueueJob } from '../jobs/queue'
 import { heldLitres } from './firings'
 import { getPriceList, kilnSpec } from './kilns'
-import { studioRatings } from './studio-ratings'
+import { studioReviewSummaries } from './reviews'
 
 export const SYNC_STUDIO_TASK = 'search-sync-studio'
 export const REINDEX_TASK = 'search-reindex'
@@ -43,7 +43,7 @@ export async function studioDocuments(manager: EntityManager, studioId: string, 
     manager,
     firings.map((f) => f.id),
   )
-  const rating = (await studioRatings(manager, [studioId])).get(studioId) ?? null
+  const reviews = (await studioReviewSummaries(manager, [studioId])).get(studioId) ?? null
   const priceLists = new Map(await Promise.all(kilns.map(async (k) => [k.id, await getPriceList(manager, k.id)] as const)))
   const byId = new Map(kilns.map((k) => [k.id, k]))
   const place = {
@@ -64,7 +64,7 @@ export async function studioDocuments(manager: EntityManager, studioId: string, 
       firing,
       spaceLeftL: firing.capacityL - (held.get(firing.id) ?? 0),
       priceList: priceLists.get(kiln.id) ?? null,
-      rating,
+      reviews,
     })
   })
 }

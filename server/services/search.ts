@@ -6,10 +6,15 @@ import {
   FIRING_FACETS,
   firingsIndex,
   searchPostgres,
+  searchStudiosPostgres,
   type FiringDocument,
   type FiringSearch,
 } from '../../search/public'
+import type { BoardResponse } from '../../shared/api/board'
+import type { Atmosphere, Piece } from '../../shared/firing/check'
+import { quoteRequest } from '../../shared/firing/quote'
 import { DEFAULT_RADIUS_KM, type SearchHit, type SearchQuery, type SearchResponse } from '../../shared/schemas/search'
+import { FIRINGS_PER_STUDIO, groupByStudio, pieceOfSearch, type BoardHit } from '../../shared/search/board'
 import type { AppContext } from '../context'
 import { badRequest } from '../http/errors'
 import { lookupPlace } from './gazetteer'
@@ -63,7 +68,7 @@ export function toHit(doc: FiringDocument, origin: { lat: number; lng: number } 
     distanceKm: origin ? Math.round(distanceKm(origin, doc._geo) * 10) / 10 : null,
     priceExample:
       doc.priceExampleCents !== null ? { label: doc.priceExampleLabel!, totalCents: doc.priceExampleCents, currency: doc.currency } : null,
-    rating: doc.ratingMean !== null ? { mean: Math.round(doc.ratingMean * 10) / 10, count: doc.ratingCount } : null,
+    reviews: doc.reviewCount > 0 ? { fireAgain: doc.reviewFireAgain, count: doc.reviewCount } : null,
   }
 }
 
@@ -118,17 +123,14 @@ async function searchEngine(ctx: AppContext, search: FiringSearch) {
 }
 
 /**
- * Open upcoming firings matching the potter's needs. Asks the engine; when it cannot be reached
- * (or errs), answers from PostgreSQL and says so with `degraded: true`.
+ * Asks the engine; when it cannot be reached (or errs), answers from PostgreSQL and says so with
+ * `degraded: true`.
  */
-export async function searchFirings(ctx: AppContext, query: SearchQuery): Promise<SearchResponse> {
-  const origin = resolveOrigin(query)
-  const search = toFiringSearch(query, origin)
+async function engineOrPostgres<T>(ctx: AppContext, engine: () => Promise<T>, postgres: () => Promise<T>) {
   let degraded = Date.now() < Math.max(rebuildingUntil, engineDownUntil)
-  let found: Awaited<ReturnType<typeof searchEngine>> | null = null
   if (!degraded) {
     try {
-      found = await searchEngine(ctx, search)
+      return { found: await engine(), degraded }
     } catch (error) {
       degraded = true
       engineDownUntil = Date.now() + ENGINE_RETRY_MS
@@ -136,8 +138,19 @@ export async function searchFirings(ctx: AppContext, query: SearchQuery): Promis
       else ctx.log.warn(`search engine unreachable, answering from PostgreSQL: ${(error as Error).message}`)
     }
   }
-  if (!found) found = await searchPostgres(poolOf(ctx), search)
-  const facets = Object.fromEntries(FIRING_FACETS.map((f) => [f, found!.facets[f] ?? {}]))
+  return { found: await postgres(), degraded }
+}
+
+/** Open upcoming firings matching the potter's needs, one hit per firing. */
+export async function searchFirings(ctx: AppContext, query: SearchQuery): Promise<SearchResponse> {
+  const origin = resolveOrigin(query)
+  const search = toFiringSearch(query, origin)
+  const { found, degraded } = await engineOrPostgres(
+    ctx,
+    () => searchEngine(ctx, search),
+    () => searchPostgres(poolOf(ctx), search),
+  )
+  const facets = Object.fromEntries(FIRING_FACETS.map((f) => [f, found.facets[f] ?? {}]))
   return {
     hits: found.documents.map((doc) => toHit(doc, search.origin)),
     total: found.total,
@@ -146,6 +159,87 @@ export async function searchFirings(ctx: AppContext, query: SearchQuery): Promis
     degraded,
     origin,
     facets,
+  }
+}
+
+/** Enough for a page of 50 studios with a few months of firings each; `counts` says what lies beyond. */
+const BOARD_FIRINGS_FETCHED = 1000
+
+/**
+ * The board through the engine: a page of studios by `distinct` on the studio (each stands where its
+ * best firing ranks, and the total counts studios), beside the facets and firing count of the whole
+ * search; then the firings of those studios, with their counts as a facet.
+ */
+async function boardEngine(ctx: AppContext, search: FiringSearch) {
+  const index = firingsIndex(ctx.config)
+  const filter = engineFilter(search)
+  const sort = engineSort(search)
+  const q = search.q ?? ''
+  const [studioPage, whole] = await Promise.all([
+    index.search(q, {
+      filter,
+      sort,
+      page: search.page,
+      hitsPerPage: search.perPage,
+      distinct: 'studioId',
+      attributesToRetrieve: ['studioId'],
+    }),
+    index.search(q, { filter, page: 1, hitsPerPage: 0, facets: [...FIRING_FACETS] }),
+  ])
+  const studioIds = studioPage.hits.map((hit) => hit.studioId)
+  const firings = studioIds.length
+    ? await index.search(q, {
+        filter: [...filter, `studioId IN [${studioIds.map((id) => JSON.stringify(id)).join(', ')}]`],
+        sort,
+        page: 1,
+        hitsPerPage: BOARD_FIRINGS_FETCHED,
+        facets: ['studioId'],
+      })
+    : null
+  return {
+    studioIds,
+    counts: new Map(Object.entries(firings?.facetDistribution?.studioId ?? {})),
+    documents: (firings?.hits ?? []) as FiringDocument[],
+    total: studioPage.totalHits ?? 0,
+    firingTotal: whole.totalHits ?? 0,
+    facets: (whole.facetDistribution ?? {}) as Record<string, Record<string, number>>,
+  }
+}
+
+/** The shared quote for the potter's piece at this firing; null without a price list or a piece. */
+export function piecePriceAt(doc: FiringDocument, piece: Piece | null): BoardHit['piecePrice'] {
+  if (!piece || !doc.priceList || !doc.quoteKiln) return null
+  try {
+    const quote = quoteRequest(doc.priceList, { atmosphere: doc.atmosphere as Atmosphere, slowCool: doc.slowCool }, [piece], doc.quoteKiln)
+    return { totalCents: quote.totalCents, currency: quote.currency }
+  } catch (error) {
+    // A price list the quote cannot read (a shelf price without a shelf) prices nothing rather than fail the page.
+    if (error instanceof RangeError) return null
+    throw error
+  }
+}
+
+/** The firing board: studios that have a matching firing, a page of them, each with its firings. */
+export async function searchBoard(ctx: AppContext, query: SearchQuery): Promise<BoardResponse> {
+  const origin = resolveOrigin(query)
+  const search = toFiringSearch(query, origin)
+  const { found, degraded } = await engineOrPostgres(
+    ctx,
+    () => boardEngine(ctx, search),
+    () => searchStudiosPostgres(poolOf(ctx), search, FIRINGS_PER_STUDIO),
+  )
+  const piece = pieceOfSearch(search.fits)
+  const hits = found.documents.map((doc) => ({ ...toHit(doc, search.origin), piecePrice: piecePriceAt(doc, piece) }))
+  return {
+    studios: groupByStudio(found.studioIds, hits, found.counts),
+    total: found.total,
+    firingTotal: found.firingTotal,
+    page: search.page,
+    perPage: search.perPage,
+    degraded,
+    origin,
+    facets: Object.fromEntries(FIRING_FACETS.map((f) => [f, found.facets[f] ?? {}])),
+    piece: piece ? { heightMm: piece.heightMm, widthMm: piece.widthMm, depthMm: search.fits.depthMm } : null,
   }
 }
 

@@ -1,5 +1,5 @@
 import { Gauge } from '../../../components/ui/Gauge'
-import { formatSpace, type UnitSystem } from '../../../lib/units'
+import { formatVolume, type UnitSystem } from '../../../lib/units'
 
 /** The space the ware takes against what is left in the firing. */
 export function SpaceGauge({ needL, leftL, units }: { needL: number; leftL: number; units: UnitSystem }) {
@@ -10,10 +10,10 @@ export function SpaceGauge({ needL, leftL, units }: { needL: number; leftL: numb
         value={needL}
         max={Math.max(leftL, 0.001)}
         label="Space your ware takes"
-        valueText={`${formatSpace(needL, units)} of ${formatSpace(leftL, units)} left`}
+        valueText={`${formatVolume(needL, units)} of ${formatVolume(leftL, units)} left`}
       />
       <p className={`text-sm ${over ? 'font-semibold text-danger-700' : 'text-slip-700'}`}>
-        Takes <strong data-testid="space-needed">{formatSpace(needL, units)}</strong> of the {formatSpace(leftL, units)} left
+        Takes <strong data-testid="space-needed">{formatVolume(needL, units)}</strong> of the {formatVolume(leftL, units)} left
         {over && ': more than there is.'}
       </p>
     </div>

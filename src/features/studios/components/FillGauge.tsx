@@ -1,6 +1,6 @@
 import { Gauge } from '../../../components/ui/Gauge'
 import type { FiringRecord } from '../api/types'
-import { formatLitres, formatSpace, type UnitSystem } from '../../../lib/units'
+import { formatVolume, type UnitSystem } from '../../../lib/units'
 
 /** Space held against space on sale, with the space left in words beside it. */
 export function FillGauge({ firing, units }: { firing: Pick<FiringRecord, 'heldL' | 'capacityL' | 'spaceLeftL'>; units: UnitSystem }) {
@@ -10,13 +10,13 @@ export function FillGauge({ firing, units }: { firing: Pick<FiringRecord, 'heldL
         value={firing.heldL}
         max={firing.capacityL}
         label="Space held"
-        valueText={`${formatLitres(firing.heldL)} of ${formatLitres(firing.capacityL)} held`}
+        valueText={`${formatVolume(firing.heldL, units)} of ${formatVolume(firing.capacityL, units)} held`}
       />
       <p className="text-xs text-slip-600">
         <span data-testid="space-left" className="font-semibold text-slip-800">
-          {formatSpace(firing.spaceLeftL, units)} left
+          {formatVolume(firing.spaceLeftL, units)} left
         </span>{' '}
-        of {formatLitres(firing.capacityL)}
+        of {formatVolume(firing.capacityL, units)}
       </p>
     </div>
   )

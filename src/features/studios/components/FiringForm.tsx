@@ -3,7 +3,7 @@ import { useMemo, useState } from 'react'
 import { useForm, useWatch } from 'react-hook-form'
 import type { z } from 'zod'
 import { CONES, coneIndex } from '../../../../shared/firing/cones'
-import { formatDate } from '../../../../shared/dates'
+import { formatDate, zoneName } from '../../../../shared/dates'
 import { firingCreateSchema } from '../../../../shared/schemas/studios'
 import { Alert } from '../../../components/ui/Alert'
 import { Button } from '../../../components/ui/Button'
@@ -11,7 +11,7 @@ import { Checkbox, Field, Select, TextArea, TextInput } from '../../../component
 import { applyServerErrors } from '../../../lib/forms'
 import { useCreateFirings } from '../api/firings'
 import type { FiringRecord, KilnRecord } from '../api/types'
-import { capacityMeasure, formatSpace, type UnitSystem } from '../../../lib/units'
+import { capacityMeasure, formatVolume, type UnitSystem } from '../../../lib/units'
 import { weekdayIn } from '../zonedTime'
 import { ATMOSPHERES, COOLING_CHOICES, FIRING_KINDS } from '../../../lib/firingWords'
 import { MeasureField } from '../../../components/ui/MeasureField'
@@ -169,16 +169,16 @@ export function FiringForm({ studioId, zone, kilns, units, onCreated, onCancel }
       <div className="grid gap-4 sm:grid-cols-3">
         <ZonedDateTimeField control={control} name="dropOffBy" label="Drop-off closes" zone={zone} />
         <ZonedDateTimeField control={control} name="firingDate" label="Firing starts" zone={zone} />
-        <ZonedDateTimeField control={control} name="readyBy" label="Ready to collect" zone={zone} />
+        <ZonedDateTimeField control={control} name="readyBy" label="Ready for pickup" zone={zone} />
       </div>
-      <p className="-mt-2 text-xs text-slip-500">Times are the studio’s ({zone}), whatever zone your device is set to.</p>
+      <p className="-mt-2 text-xs text-slip-500">Times are the studio’s ({zoneName(zone)}), whatever zone your device is set to.</p>
       <MeasureField
         control={control}
         name="capacityL"
         label="Space on sale"
         measure={capacityMeasure(units)}
         units={units}
-        hint={`The kiln holds about ${formatSpace(kiln.volumeL, units)} in all; offer what is left after shelves, posts and your own ware.`}
+        hint={`The kiln holds about ${formatVolume(kiln.volumeL, units)} in all; offer what is left after shelves, posts and your own ware.`}
       />
       <Field label="Notes for potters" error={errors.notes?.message}>
         {(a11y) => <TextArea {...a11y} rows={2} {...register('notes')} />}

@@ -1,8 +1,10 @@
-import { formatDateTime } from '../../../../shared/dates'
-import type { TimelineEntry } from '../api/types'
-import { stateLabel } from '../requestWords'
+import type { TimelineEntryJson as TimelineEntry } from '../../../shared/api/requests'
+import { formatDateTime } from '../../../shared/dates'
+import { REQUEST_STATE_LABELS } from '../../../shared/workflow/request-states'
 
-/** Every change of the request: who, when, from what to what, and why. */
+const stateLabel = (state: TimelineEntry['to']) => REQUEST_STATE_LABELS[state]
+
+/** Every change of a request: who, when, from what to what, and why. Read by either side and by the desk. */
 export function Timeline({ entries, zone }: { entries: TimelineEntry[]; zone: string }) {
   if (entries.length === 0) return <p className="text-sm text-slip-600">Nothing has happened yet.</p>
   return (
