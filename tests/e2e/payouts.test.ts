@@ -174,8 +174,8 @@ describe('a new studio is paid through its money page', () => {
 
     await ownerPage.goto(`/requests/${requestId}`)
     await expect.poll(() => stateOf(ownerPage), WAIT).toBe('ready')
-    await ownerPage.getByRole('button', { name: 'Collected…', exact: true }).click()
-    await ownerPage.getByRole('dialog').getByRole('button', { name: 'Yes, collected' }).click()
+    await ownerPage.getByRole('button', { name: 'Picked up…', exact: true }).click()
+    await ownerPage.getByRole('dialog').getByRole('button', { name: 'Yes, picked up' }).click()
     await expect.poll(() => stateOf(ownerPage), WAIT).toBe('collected')
     await moneyQuiet(app)
 

@@ -162,8 +162,8 @@ function AccountCard(props: {
       <p className="mt-4 text-xs text-slip-500">
         Conewright’s fee is {props.money.fee.words}. Money taken at your own counter stays with you and carries no fee.
         {props.money.holdHours > 0
-          ? ` Your share is transferred ${props.money.holdHours} hours after the ware is collected.`
-          : ' Your share is transferred when the ware is collected.'}
+          ? ` Your share is transferred ${props.money.holdHours} hours after the ware is picked up.`
+          : ' Your share is transferred when the ware is picked up.'}
       </p>
     </Card>
   )
@@ -201,7 +201,7 @@ function Balance({ money }: { money: StudioPayoutsJson }) {
           cents={balance.waitingCents}
           currency={balance.currency}
           testId="balance-waiting"
-          hint="Paid by potters whose ware is still with you; earned when it is collected."
+          hint="Paid by potters whose ware is still with you; earned when it is picked up."
         />
         <Stat
           label="Transferred"
@@ -249,7 +249,7 @@ function Months({ studioId, months, currency }: { studioId: string; months: Earn
         </div>
       </div>
       {months.length === 0 ? (
-        <EmptyState title="Nothing earned yet">A firing’s money shows here in the month its ware is collected.</EmptyState>
+        <EmptyState title="Nothing earned yet">A firing’s money shows here in the month its ware is picked up.</EmptyState>
       ) : (
         <Table caption="Earnings by month">
           <thead>
@@ -353,7 +353,7 @@ function Transfers({ transfers, zone }: { transfers: TransferJson[]; zone: strin
       </h2>
       {transfers.length === 0 ? (
         <EmptyState title="No transfers yet">
-          Your share of a firing is transferred once its ware is collected and payouts are on.
+          Your share of a firing is transferred once its ware is picked up and payouts are on.
         </EmptyState>
       ) : (
         <ul className="divide-y divide-slip-200 rounded-card border border-slip-200 bg-white">
