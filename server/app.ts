@@ -7,7 +7,7 @@ import { existsSync } from 'node:fs'
 import path from 'node:path'
 import type { PassportStatic } from 'passport'
 import { createPassport } from './auth/passport'
-import type { AppContext } from './context'
+import { outageLog, type AppContext } from './context'
 import { errorHandler, notFoundApi } from './http/errors'
 import { poolOf } from './jobs/worker'
 import { adminRouter } from './routes/admin'
@@ -131,7 +131,10 @@ export function createApp(ctx: AppContext): App {
     })
   }
 
-  app.use(errorHandler(ctx.log.error))
+  // One log line per database outage; the first connection that succeeds afterwards closes it.
+  const database = outageLog(ctx.log, 'the database')
+  poolOf(ctx)?.on('connect', () => database.recovered())
+  app.use(errorHandler(ctx.log.error, { databaseDown: (error) => database.failed(error) }))
 
   return { app, close: () => store.close() }
 }

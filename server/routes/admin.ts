@@ -1,5 +1,6 @@
 import { Router } from 'express'
 import { z } from 'zod'
+import { text } from '../../shared/schemas/text'
 import { requireRole } from '../auth/guards'
 import type { AppContext } from '../context'
 import { requireUuidParams, validateBody, validateQuery } from '../http/validate'
@@ -7,7 +8,7 @@ import { adminRefundSchema } from '../../shared/schemas/requests'
 import { deskDisputes, deskStudios, deskUsers, setSuspended } from '../services/admin'
 import { adminRefund } from '../services/requests'
 
-const usersQuery = z.object({ q: z.string().trim().max(120).optional() })
+const usersQuery = z.object({ q: text().trim().max(120).optional() })
 
 /** The marketplace desk: studios to verify, and accounts to suspend or restore. Admins only. */
 export function adminRouter(ctx: AppContext) {

@@ -45,7 +45,7 @@ export function authRouter(ctx: AppContext, passport: PassportStatic, csrfToken:
 
   router.get('/csrf', csrfToken)
 
-  router.post('/register', perIp, registerPerAccount, validateBody(registerSchema), async (req, res) => {
+  router.post('/register', perIp, validateBody(registerSchema), registerPerAccount, async (req, res) => {
     const { inviteToken, ...body } = req.body as RegisterBody
     // Registering through a crew invitation: the account joins the studio, and the mailed link has
     // already proven the address.
@@ -64,7 +64,7 @@ export function authRouter(ctx: AppContext, passport: PassportStatic, csrfToken:
     res.status(201).json(await publicUserWithStudios(ctx, user))
   })
 
-  router.post('/login', perIp, perAccount, validateBody(loginSchema), (req, res, next) => {
+  router.post('/login', perIp, validateBody(loginSchema), perAccount, (req, res, next) => {
     passport.authenticate('local', { session: false }, (error: unknown, user: Express.User | false) => {
       if (error) return next(error)
       if (!user) return next(new HttpError(401, 'bad-credentials', 'That e-mail and password do not match an account.'))
@@ -87,7 +87,7 @@ export function authRouter(ctx: AppContext, passport: PassportStatic, csrfToken:
     res.json(await publicUserWithStudios(ctx, await updatePreferences(ctx, req.user!, req.body)))
   })
 
-  router.post('/password-reset/request', perIp, resetPerAccount, validateBody(passwordResetRequestSchema), async (req, res) => {
+  router.post('/password-reset/request', perIp, validateBody(passwordResetRequestSchema), resetPerAccount, async (req, res) => {
     await requestPasswordReset(ctx, req.body.email)
     res.status(202).json({ ok: true })
   })

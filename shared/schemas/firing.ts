@@ -2,6 +2,7 @@
 // and the route validate with the same ones; what passes is safe to hand to shared/firing/check.ts.
 
 import { z } from 'zod'
+import { text } from './text'
 import { compareCones, isCone, parseCone } from '../firing/cones'
 
 // Range checks skip cones that already failed to parse; those carry their own message.
@@ -10,7 +11,7 @@ function conesInOrder(minCone: unknown, maxCone: unknown): boolean {
 }
 
 /** A cone as people write it ("6", "06", "^6", "cone 04"), read into its canonical form. */
-export const coneSchema = z.string({ error: 'Enter a cone number, like 6 or 04.' }).transform((value, ctx) => {
+export const coneSchema = text({ error: 'Enter a cone number, like 6 or 04.' }).transform((value, ctx) => {
   const parsed = parseCone(value)
   if (!parsed.ok) {
     ctx.addIssue({ code: 'custom', message: parsed.reason })
@@ -119,7 +120,7 @@ export const MAX_PIECES = 200
 export const pieceSchema = z
   .object(
     {
-      label: z.string().trim().max(80, { error: 'Keep the label under 80 characters.' }).optional(),
+      label: text().trim().max(80, { error: 'Keep the label under 80 characters.' }).optional(),
       quantity: z
         .number({ error: 'Enter how many of this piece.' })
         .int({ error: 'Enter a whole number of pieces.' })
@@ -187,8 +188,7 @@ function percent(what: string, max: number) {
 export const priceListSchema = z
   .object(
     {
-      currency: z
-        .string({ error: 'Enter the currency, like USD.' })
+      currency: text({ error: 'Enter the currency, like USD.' })
         .trim()
         .toUpperCase()
         .regex(/^[A-Z]{3}$/, { error: 'Enter the currency as a three-letter code, like USD or EUR.' }),
@@ -251,7 +251,7 @@ export const wareCheckInlineSchema = z.strictObject(
 
 export const wareCheckByFiringSchema = z.strictObject(
   {
-    firingId: z.string({ error: 'Give the firing’s id.' }).trim().min(1, { error: 'Give the firing’s id.' }).max(100),
+    firingId: text({ error: 'Give the firing’s id.' }).trim().min(1, { error: 'Give the firing’s id.' }).max(100),
     pieces: piecesSchema,
   },
   { error: (issue) => (issue.code === 'unrecognized_keys' ? `Unexpected field: ${issue.keys.join(', ')}. ${BODY_SHAPE}` : BODY_SHAPE) },

@@ -1,5 +1,6 @@
 // Bodies of the drop-off-to-pickup routes: check-in, the firing log, results, balance, ratings.
 import { z } from 'zod'
+import { text } from './text'
 import { coneSchema } from './firing'
 
 const mm = (what: string) =>
@@ -20,8 +21,8 @@ export const checkInSchema = z
         }),
       )
       .max(200),
-    conditionNotes: z.string().trim().max(4000).optional(),
-    refuse: z.object({ reason: z.string().trim().min(3, 'Say why the ware is refused.').max(1000) }).optional(),
+    conditionNotes: text().trim().max(4000).optional(),
+    refuse: z.object({ reason: text().trim().min(3, 'Say why the ware is refused.').max(1000) }).optional(),
   })
   .refine((b) => b.refuse || b.pieces.some((p) => p.received > 0), {
     message: 'Record the pieces received, or refuse the ware with a reason.',
@@ -43,12 +44,12 @@ export const firingLogSchema = z.object({
       z.object({
         cone: coneSchema,
         bend: z.enum(CONE_BENDS, { error: 'Say how far the cone bent.' }),
-        position: z.string().trim().max(80).optional(),
+        position: text().trim().max(80).optional(),
       }),
     )
     .max(30)
     .default([]),
-  notes: z.string().trim().max(4000).optional(),
+  notes: text().trim().max(4000).optional(),
 })
 export type FiringLogBody = z.infer<typeof firingLogSchema>
 
@@ -56,12 +57,10 @@ export const PIECE_OUTCOMES = ['fine', 'cracked', 'blown-out', 'glaze-ran', 'stu
 
 export const resultsSchema = z.object({
   outcomes: z
-    .array(
-      z.object({ pieceIndex: z.number().int().min(0), outcome: z.enum(PIECE_OUTCOMES), notes: z.string().trim().max(1000).optional() }),
-    )
+    .array(z.object({ pieceIndex: z.number().int().min(0), outcome: z.enum(PIECE_OUTCOMES), notes: text().trim().max(1000).optional() }))
     .min(1)
     .max(200),
-  notes: z.string().trim().max(4000).optional(),
+  notes: text().trim().max(4000).optional(),
 })
 
 const stars = (what: string) =>
@@ -78,14 +77,14 @@ export const ratingSchema = z.object({
   results: stars('the results').optional(),
   asDeclared: stars('ware as declared').optional(),
   onTime: stars('being on time').optional(),
-  text: z.string().trim().max(2000, 'Keep it under 2000 characters.').default(''),
+  text: text().trim().max(2000, 'Keep it under 2000 characters.').default(''),
 })
 
-export const ratingReplySchema = z.object({ text: z.string().trim().min(2, 'Write a reply.').max(2000) })
+export const ratingReplySchema = z.object({ text: text().trim().min(2, 'Write a reply.').max(2000) })
 
 export const counterPaymentSchema = z.object({
   amountCents: z.number().int('Whole cents.').positive('Enter what was paid.').max(100_000_000).optional(),
-  note: z.string().trim().max(300).optional(),
+  note: text().trim().max(300).optional(),
 })
 
 export const photoPatchSchema = z.object({ public: z.boolean() })

@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { text } from './text'
 import { coneIndex, parseCone } from '../firing/cones'
 
 const number = (what: string, min: number, max: number) =>
@@ -13,7 +14,7 @@ const conePart = (value: string) => {
 }
 
 /** "6", "^6", "cone 04", or a range "04..6". */
-export const coneFilterSchema = z.string().transform((value, ctx) => {
+export const coneFilterSchema = text().transform((value, ctx) => {
   const [a, b] = value.split('..')
   const low = conePart(a)
   const high = b === undefined ? low : conePart(b)
@@ -28,8 +29,7 @@ export const coneFilterSchema = z.string().transform((value, ctx) => {
   return { minRank: low, maxRank: high }
 })
 
-const day = z
-  .string()
+const day = text()
   .refine((s) => !Number.isNaN(Date.parse(s)), 'Enter a date like 2027-03-05.')
   .transform((s) => new Date(/^\d{4}-\d{2}-\d{2}$/.test(s) ? `${s}T00:00:00Z` : s))
 
@@ -40,13 +40,12 @@ export const SEARCH_SORTS = ['distance', 'price', 'soonest', 'rating'] as const
 
 export const searchQuerySchema = z
   .object({
-    near: z
-      .string()
+    near: text()
       .regex(/^\s*-?\d+(\.\d+)?\s*,\s*-?\d+(\.\d+)?\s*$/, 'Give near as latitude,longitude, like 45.52,-122.68.')
       .transform((s) => s.split(',').map(Number) as [number, number])
       .refine(([lat, lng]) => Math.abs(lat) <= 90 && Math.abs(lng) <= 180, 'That point is not on the map.')
       .optional(),
-    place: z.string().trim().min(2, 'Enter a town or a postal code.').max(120).optional(),
+    place: text().trim().min(2, 'Enter a town or a postal code.').max(120).optional(),
     radiusKm: number('distance', 1, 2000).optional(),
     cone: coneFilterSchema.optional(),
     atmosphere: z.enum(['oxidation', 'reduction', 'neutral'], { error: 'Choose oxidation, reduction or neutral.' }).optional(),
@@ -56,7 +55,7 @@ export const searchQuerySchema = z
     fitsHeightMm: number('height', 1, 3000).optional(),
     fitsWidthMm: number('width', 1, 3000).optional(),
     fitsDepthMm: number('depth', 1, 3000).optional(),
-    q: z.string().trim().max(100, 'Keep the words under 100 characters.').optional(),
+    q: text().trim().max(100, 'Keep the words under 100 characters.').optional(),
     sort: z.enum(SEARCH_SORTS, { error: 'Sort by distance, price, soonest or rating.' }).optional(),
     page: z.coerce.number().int('Pages are whole numbers.').min(1, 'Pages start at 1.').max(250).default(1),
     perPage: z.coerce.number().int().min(1).max(50, 'At most 50 per page.').default(20),
