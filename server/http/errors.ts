@@ -78,15 +78,21 @@ export function isDatabaseUnavailable(error: unknown): boolean {
  * have caught it first, so it is also logged.
  */
 function isRefusedData(error: unknown): boolean {
-  const code = (error as { driverError?: { code?: unknown } } | null)?.driverError?.code
-  return typeof code === 'string' && code.startsWith('22')
+  return sqlState(error).startsWith('22')
 }
+
+/** A constraint refused the change (class 23): two changes met, or a check the code should have made first. */
+function isConstraintConflict(error: unknown): boolean {
+  return sqlState(error).startsWith('23')
+}
+
+const sqlState = (error: unknown) => String((error as { driverError?: { code?: unknown } } | null)?.driverError?.code ?? '')
 
 export interface ErrorHandlerHooks {
   /** Called for every request answered 503 because the database is out of reach. */
   databaseDown?: (error: unknown) => void
-  /** Called when a value the validation let through was refused by the database. */
-  unvalidatedInput?: (message: string, error: unknown) => void
+  /** Called when the database refused what the code let through (a value, or a change against a constraint). */
+  refusedByDatabase?: (message: string, error: unknown) => void
 }
 
 /** Turns anything thrown in a route into the one error shape; only the unexpected are 500s. */
@@ -113,8 +119,12 @@ export function errorHandler(log: (message: string, error: unknown) => void, hoo
       return send(503, 'database-unavailable', 'Conewright cannot reach its database just now. Nothing was changed; try again in a minute.')
     }
     if (isRefusedData(error)) {
-      ;(hooks.unvalidatedInput ?? log)(`input reached the database unvalidated on ${req.method} ${req.path}`, error)
+      ;(hooks.refusedByDatabase ?? log)(`input reached the database unvalidated on ${req.method} ${req.path}`, error)
       return send(400, 'invalid-input', 'Some of what was sent cannot be stored. Check the fields and try again.')
+    }
+    if (isConstraintConflict(error)) {
+      ;(hooks.refusedByDatabase ?? log)(`a constraint refused a change on ${req.method} ${req.path}, unchecked by the code`, error)
+      return send(409, 'conflict', 'That change clashes with another made at the same time. Reload and try again.')
     }
     log(`unhandled error on ${req.method} ${req.originalUrl}`, error)
     return send(500, 'internal', 'Something went wrong on our side. Nothing was changed; please try again.')

@@ -10,15 +10,17 @@ function conesInOrder(minCone: unknown, maxCone: unknown): boolean {
   return !isCone(minCone) || !isCone(maxCone) || compareCones(minCone, maxCone) <= 0
 }
 
-/** A cone as people write it ("6", "06", "^6", "cone 04"), read into its canonical form. */
-export const coneSchema = text({ error: 'Enter a cone number, like 6 or 04.' }).transform((value, ctx) => {
-  const parsed = parseCone(value)
-  if (!parsed.ok) {
-    ctx.addIssue({ code: 'custom', message: parsed.reason })
-    return z.NEVER
-  }
-  return parsed.cone
-})
+/** A cone as people write it ("6", "06", "^6", "cone 04"), read into its canonical form. The examples help generated test input. */
+export const coneSchema = text({ error: 'Enter a cone number, like 6 or 04.' })
+  .transform((value, ctx) => {
+    const parsed = parseCone(value)
+    if (!parsed.ok) {
+      ctx.addIssue({ code: 'custom', message: parsed.reason })
+      return z.NEVER
+    }
+    return parsed.cone
+  })
+  .meta({ examples: ['6', '04', '10', '022', '5'] })
 
 export const atmosphereSchema = z.enum(['oxidation', 'reduction', 'neutral'], {
   error: 'Choose oxidation, reduction or neutral.',
@@ -265,15 +267,19 @@ export type WareCheckBody = WareCheckInlineBody | WareCheckByFiringBody
  * `{kiln, firing, pieces, priceList?}` or `{firingId, pieces}`. The shape is chosen by the presence of
  * firingId so that errors name the fields of the shape meant, not a bare "invalid input".
  */
-export const wareCheckBodySchema = z.unknown().transform((body, ctx): WareCheckBody => {
-  const byFiring = typeof body === 'object' && body !== null && 'firingId' in body
-  const parsed = byFiring ? wareCheckByFiringSchema.safeParse(body) : wareCheckInlineSchema.safeParse(body)
-  if (parsed.success) return parsed.data
-  for (const issue of parsed.error.issues) {
-    ctx.addIssue({ code: 'custom', message: issue.message, path: [...issue.path] as (string | number)[] })
-  }
-  return z.NEVER
-})
+export const wareCheckBodySchema = z
+  .unknown()
+  .transform((body, ctx): WareCheckBody => {
+    const byFiring = typeof body === 'object' && body !== null && 'firingId' in body
+    const parsed = byFiring ? wareCheckByFiringSchema.safeParse(body) : wareCheckInlineSchema.safeParse(body)
+    if (parsed.success) return parsed.data
+    for (const issue of parsed.error.issues) {
+      ctx.addIssue({ code: 'custom', message: issue.message, path: [...issue.path] as (string | number)[] })
+    }
+    return z.NEVER
+  })
+  // Says which shapes the body takes, for tools that generate input from schemas (the fuzz suite).
+  .meta({ oneOf: [wareCheckInlineSchema, wareCheckByFiringSchema] })
 
 export type KilnInput = z.input<typeof kilnSchema>
 export type PieceInput = z.input<typeof pieceSchema>

@@ -19,7 +19,8 @@ export const placesQuerySchema = z.object({
   q: text({ error: 'Type a town, a ZIP code or a postal code.' })
     .trim()
     .min(1, 'Type a town, a ZIP code or a postal code.')
-    .max(PLACE_QUERY_MAX, `Keep the place under ${PLACE_QUERY_MAX} characters.`),
+    .max(PLACE_QUERY_MAX, `Keep the place under ${PLACE_QUERY_MAX} characters.`)
+    .meta({ examples: ['Portland', '972', 'V6B 1A1'] }),
   limit: z.coerce
     .number({ error: 'The number of places must be a whole number.' })
     .int('The number of places must be a whole number.')

@@ -14,20 +14,22 @@ const conePart = (value: string) => {
 }
 
 /** "6", "^6", "cone 04", or a range "04..6". */
-export const coneFilterSchema = text().transform((value, ctx) => {
-  const [a, b] = value.split('..')
-  const low = conePart(a)
-  const high = b === undefined ? low : conePart(b)
-  if (low === null || high === null) {
-    ctx.addIssue({ code: 'custom', message: 'Enter a cone like 6 or 04, or a range like 04..6.' })
-    return z.NEVER
-  }
-  if (low > high) {
-    ctx.addIssue({ code: 'custom', message: 'Put the cooler cone first, like 04..6.' })
-    return z.NEVER
-  }
-  return { minRank: low, maxRank: high }
-})
+export const coneFilterSchema = text()
+  .transform((value, ctx) => {
+    const [a, b] = value.split('..')
+    const low = conePart(a)
+    const high = b === undefined ? low : conePart(b)
+    if (low === null || high === null) {
+      ctx.addIssue({ code: 'custom', message: 'Enter a cone like 6 or 04, or a range like 04..6.' })
+      return z.NEVER
+    }
+    if (low > high) {
+      ctx.addIssue({ code: 'custom', message: 'Put the cooler cone first, like 04..6.' })
+      return z.NEVER
+    }
+    return { minRank: low, maxRank: high }
+  })
+  .meta({ examples: ['6', '04..6', '^10'] })
 
 const day = text()
   .refine((s) => !Number.isNaN(Date.parse(s)), 'Enter a date like 2027-03-05.')
@@ -45,7 +47,12 @@ export const searchQuerySchema = z
       .transform((s) => s.split(',').map(Number) as [number, number])
       .refine(([lat, lng]) => Math.abs(lat) <= 90 && Math.abs(lng) <= 180, 'That point is not on the map.')
       .optional(),
-    place: text().trim().min(2, 'Enter a town or a postal code.').max(120).optional(),
+    place: text()
+      .trim()
+      .min(2, 'Enter a town or a postal code.')
+      .max(120)
+      .meta({ examples: ['Portland, OR', '97214', 'V6B'] })
+      .optional(),
     radiusKm: number('distance', 1, 2000).optional(),
     cone: coneFilterSchema.optional(),
     atmosphere: z.enum(['oxidation', 'reduction', 'neutral'], { error: 'Choose oxidation, reduction or neutral.' }).optional(),

@@ -56,8 +56,16 @@ const name = text({ error: 'Enter the studio’s name.' })
   .trim()
   .min(2, 'Enter the studio’s name.')
   .max(120, 'Keep the name under 120 characters.')
-const postalCode = text().trim().min(3, 'Enter a postal or ZIP code.').max(12, 'That postal code is too long.')
-const address = text().trim().min(5, 'Enter the street address with its town or ZIP code.').max(300, 'That address is too long.')
+const postalCode = text()
+  .trim()
+  .min(3, 'Enter a postal or ZIP code.')
+  .max(12, 'That postal code is too long.')
+  .meta({ examples: ['97214', '98101', 'V6B'] })
+const address = text()
+  .trim()
+  .min(5, 'Enter the street address with its town or ZIP code.')
+  .max(300, 'That address is too long.')
+  .meta({ examples: ['1200 SE Morrison St, Portland, OR 97214'] })
 
 export const studioCreateSchema = z
   .object({ name, postalCode: postalCode.optional(), address: address.optional() })
@@ -72,7 +80,9 @@ export const studioPatchSchema = z
     postalCode,
     lat: z.number().min(-90).max(90),
     lng: z.number().min(-180).max(180),
-    timezone: text().refine(isTimeZone, 'Choose a time zone from the list.'),
+    timezone: text()
+      .refine(isTimeZone, 'Choose a time zone from the list.')
+      .meta({ examples: ['America/Los_Angeles', 'America/Vancouver'] }),
     currency: text()
       .trim()
       .toUpperCase()

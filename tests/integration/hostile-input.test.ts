@@ -110,6 +110,19 @@ describe('hostile query strings', () => {
   })
 })
 
+describe('edits that race', () => {
+  it('keeps a price list whole when two edits switch its deposit between percent and fixed at once', async () => {
+    const bodies = Array.from({ length: 24 }, (_, i) => ({
+      currency: 'USD',
+      model: 'volume',
+      centsPerCubicInch: 4,
+      deposit: i % 2 ? { percent: 10 + i } : { fixedCents: 500 + i },
+    }))
+    const replies = await Promise.all(bodies.map((body) => owner.session.put(`/api/kilns/${ids.kilnId}/price-list`, body)))
+    expect(replies.map((r) => r.status)).toEqual(replies.map(() => 200))
+  })
+})
+
 describe('broken bodies', () => {
   const multipart = (session: HttpSession, body: string, contentType: string) =>
     session.request('POST', `/api/requests/${requestId}/photos`, undefined, { raw: body, headers: { 'Content-Type': contentType } })
