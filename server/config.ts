@@ -32,6 +32,16 @@ export interface Config {
   runWorker: boolean
 }
 
+/**
+ * The values used when a secret is not set. They are written here, so anyone can read them: fine on
+ * a developer's loopback, never anywhere else.
+ */
+export const LOCAL_SECRETS = {
+  sessionSecret: 'conewright-local-session-secret',
+  stripeSecretKey: 'sk_test_conewright_local',
+  stripeWebhookSecret: 'whsec_conewright_local',
+} as const
+
 function int(value: string | undefined, fallback: number): number {
   const n = value === undefined || value === '' ? NaN : Number(value)
   return Number.isInteger(n) ? n : fallback
@@ -49,14 +59,14 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env, overrides: Part
     host,
     publicUrl,
     databaseUrl: env.DATABASE_URL ?? '',
-    sessionSecret: env.SESSION_SECRET ?? 'conewright-local-session-secret',
+    sessionSecret: env.SESSION_SECRET || LOCAL_SECRETS.sessionSecret,
     secureCookies: publicUrl.startsWith('https:'),
     smtpUrl: env.SMTP_URL ?? 'smtp://127.0.0.1:4625',
     mailFrom: env.MAIL_FROM ?? 'Conewright <studio-mail@conewright.test>',
     mailInboxUrl: env.MAIL_INBOX_URL ?? null,
-    stripeSecretKey: env.STRIPE_SECRET_KEY ?? 'sk_test_conewright_local',
+    stripeSecretKey: env.STRIPE_SECRET_KEY || LOCAL_SECRETS.stripeSecretKey,
     stripeApiBase: env.STRIPE_API_BASE ?? null,
-    stripeWebhookSecret: env.STRIPE_WEBHOOK_SECRET ?? 'whsec_conewright_local',
+    stripeWebhookSecret: env.STRIPE_WEBHOOK_SECRET || LOCAL_SECRETS.stripeWebhookSecret,
     meiliHost: env.MEILI_HOST ?? 'http://127.0.0.1:4617',
     meiliApiKey: env.MEILI_API_KEY ?? 'conewright-local-search-key',
     tileUrl: env.TILE_URL ?? null,
@@ -74,4 +84,39 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env, overrides: Part
     ...overrides,
   }
   return config
+}
+
+const LOOPBACK = new Set(['127.0.0.1', 'localhost', '[::1]', '::1'])
+const isLiveKey = (key: string) => /^(sk|rk)_live_/.test(key)
+const isTestKey = (key: string) => /^(sk|rk)_test_/.test(key)
+
+/**
+ * Local development: served on loopback only, not marked production, and no live Stripe key. Anything
+ * else may be reached by people other than its developer.
+ */
+export function isLocalDevelopment(config: Pick<Config, 'publicUrl' | 'stripeSecretKey'>, env: NodeJS.ProcessEnv = process.env): boolean {
+  const host = new URL(config.publicUrl).hostname
+  return LOOPBACK.has(host) && env.NODE_ENV !== 'production' && !isLiveKey(config.stripeSecretKey)
+}
+
+/**
+ * Why this configuration must not start, or [] when it may. Outside local development every secret
+ * must be set and not be one of the values written in this file, and a Stripe test key is refused
+ * where everything else looks live (unless STRIPE_TEST_MODE=true says it is a rehearsal site).
+ */
+export function secretProblems(config: Config, env: NodeJS.ProcessEnv = process.env): string[] {
+  const problems: string[] = []
+  if (isLiveKey(config.stripeSecretKey) && config.stripeApiBase)
+    problems.push('STRIPE_API_BASE points the SDK away from Stripe while STRIPE_SECRET_KEY is a live key; unset one of them.')
+  if (isLocalDevelopment(config, env)) return problems
+  if (config.sessionSecret === LOCAL_SECRETS.sessionSecret) problems.push('SESSION_SECRET is not set: set it to a long random value.')
+  else if (config.sessionSecret.length < 32) problems.push('SESSION_SECRET is too short: use at least 32 random characters.')
+  if (config.stripeWebhookSecret === LOCAL_SECRETS.stripeWebhookSecret)
+    problems.push('STRIPE_WEBHOOK_SECRET is not set: copy the signing secret of the webhook endpoint from the Stripe dashboard.')
+  if (config.stripeSecretKey === LOCAL_SECRETS.stripeSecretKey) problems.push('STRIPE_SECRET_KEY is not set.')
+  else if (isTestKey(config.stripeSecretKey) && env.STRIPE_TEST_MODE !== 'true')
+    problems.push(
+      'STRIPE_SECRET_KEY is a test key on a site that looks live (production, or a public address): no payment would be real. Set a live key, or STRIPE_TEST_MODE=true for a rehearsal site.',
+    )
+  return problems
 }
