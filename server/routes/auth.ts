@@ -75,8 +75,11 @@ export function authRouter(ctx: AppContext, passport: PassportStatic, csrfToken:
     })(req, res, next)
   })
 
+  // The stored session is deleted outright (passport's logout would save it, emptied, for 30 days);
+  // a visitor with no session has nothing to end.
   router.post('/logout', (req, res, next) => {
-    req.logout((error) => (error ? next(error) : res.status(204).end()))
+    if (!req.user) return res.status(204).end()
+    req.session.destroy((error) => (error ? next(error) : res.clearCookie('cw.sid', { path: '/' }).status(204).end()))
   })
 
   router.get('/me', requireAuth, async (req, res) => {
