@@ -27,7 +27,15 @@ export interface Config {
   clientDir: string
   serveClient: boolean
   dev: boolean
-  rateLimits: { authPerIpPer15Min: number; authPerAccountPer15Min: number; openApiPerIpPerMin: number }
+  rateLimits: {
+    /** Sign-in, registration and reset attempts from one address (IP). */
+    authPerIpPer15Min: number
+    /** Wrong passwords for one account from one address before that pair is paused. */
+    authPerAccountPer15Min: number
+    /** Wrong passwords for one account from all addresses together before password sign-in is paused for it. */
+    authAccountWidePer15Min: number
+    openApiPerIpPerMin: number
+  }
   workerConcurrency: number
   runWorker: boolean
 }
@@ -47,7 +55,10 @@ function int(value: string | undefined, fallback: number): number {
   return Number.isInteger(n) ? n : fallback
 }
 
-export function loadConfig(env: NodeJS.ProcessEnv = process.env, overrides: Partial<Config> = {}): Config {
+/** Settings to put in place of what the environment says; rate limits may be given one by one. */
+export type ConfigOverrides = Partial<Omit<Config, 'rateLimits'>> & { rateLimits?: Partial<Config['rateLimits']> }
+
+export function loadConfig(env: NodeJS.ProcessEnv = process.env, overrides: ConfigOverrides = {}): Config {
   const port = int(env.PORT, 4610)
   const host = env.HOST ?? '127.0.0.1'
   const publicUrl = (env.PUBLIC_URL ?? `http://${host}:${port}`).replace(/\/$/, '')
@@ -74,14 +85,16 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env, overrides: Part
     clientDir: env.CLIENT_DIR ?? path.join(repoRoot, 'dist', 'client'),
     serveClient: env.SERVE_CLIENT !== 'false',
     dev: env.NODE_ENV === 'development',
-    rateLimits: {
-      authPerIpPer15Min: int(env.RATE_LIMIT_AUTH_PER_IP, 100),
-      authPerAccountPer15Min: int(env.RATE_LIMIT_AUTH_PER_ACCOUNT, 10),
-      openApiPerIpPerMin: int(env.RATE_LIMIT_OPEN_API_PER_IP, 300),
-    },
     workerConcurrency: int(env.WORKER_CONCURRENCY, 4),
     runWorker: env.RUN_WORKER !== 'false',
     ...overrides,
+    rateLimits: {
+      authPerIpPer15Min: int(env.RATE_LIMIT_AUTH_PER_IP, 100),
+      authPerAccountPer15Min: int(env.RATE_LIMIT_AUTH_PER_ACCOUNT, 10),
+      authAccountWidePer15Min: int(env.RATE_LIMIT_AUTH_ACCOUNT_WIDE, 50),
+      openApiPerIpPerMin: int(env.RATE_LIMIT_OPEN_API_PER_IP, 300),
+      ...overrides.rateLimits,
+    },
   }
   return config
 }

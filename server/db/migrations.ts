@@ -8,6 +8,7 @@ import { PaymentsAndMessages1796151940233 } from './migrations/1796151940233-Pay
 import { DropOffToPickup1796152667537 } from './migrations/1796152667537-DropOffToPickup'
 import { SearchFacetColumns1796153787338 } from './migrations/1796153787338-SearchFacetColumns'
 import { SearchDocumentsNarrowRows1796158092958 } from './migrations/1796158092958-SearchDocumentsNarrowRows'
+import { Hardening1796172202396 } from './migrations/1796172202396-Hardening'
 
 export const migrations: (new () => unknown)[] = [
   Foundation1796149373286,
@@ -18,4 +19,5 @@ export const migrations: (new () => unknown)[] = [
   DropOffToPickup1796152667537,
   SearchFacetColumns1796153787338,
   SearchDocumentsNarrowRows1796158092958,
+  Hardening1796172202396,
 ]

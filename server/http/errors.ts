@@ -102,7 +102,11 @@ export function errorHandler(log: (message: string, error: unknown) => void, hoo
     const send = (status: number, code: string, message: string, fields?: FieldErrors, extra?: object) =>
       res.status(status).json({ error: { code, message, ...(fields ? { fields } : {}), ...extra } })
 
-    if (error instanceof HttpError) return send(error.status, error.code, error.message, error.fields, error.extra)
+    if (error instanceof HttpError) {
+      const retryAfter = error.extra?.retryAfterSeconds
+      if (typeof retryAfter === 'number') res.set('Retry-After', String(retryAfter))
+      return send(error.status, error.code, error.message, error.fields, error.extra)
+    }
     if (error instanceof ZodError) return send(400, 'invalid-input', 'Some fields need fixing.', fieldErrorsFrom(error))
     const e = error as BodyParserError
     if (e?.type === 'entity.parse.failed') return send(400, 'malformed-json', 'The request body is not valid JSON.')

@@ -52,6 +52,10 @@ export const passwordResetConfirmSchema = z.object({ token, password: newPasswor
 
 export const verifyEmailSchema = z.object({ token })
 
+export const signInLinkRequestSchema = z.object({ email })
+
+export const signInLinkConfirmSchema = z.object({ token })
+
 export const preferencesSchema = z.object({
   unitSystem: z.enum(['imperial', 'metric']).optional(),
   displayName: text().trim().min(1).max(80).optional(),

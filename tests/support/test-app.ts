@@ -7,7 +7,7 @@ import type { Express } from 'express'
 import type { Runner } from 'graphile-worker'
 import { freePort } from '../../scripts/lib/system.mjs'
 import { createApp } from '../../server/app'
-import { loadConfig, type Config } from '../../server/config'
+import { loadConfig, type ConfigOverrides } from '../../server/config'
 import { silentLogger, type AppContext, type Logger } from '../../server/context'
 import { createDataSource } from '../../server/db/data-source'
 import { startWorker } from '../../server/jobs/worker'
@@ -37,7 +37,7 @@ export async function startTestApp(
     search?: boolean
     stripe?: boolean
     worker?: boolean
-    config?: Partial<Config>
+    config?: ConfigOverrides
     serveClient?: boolean
     /** Where the app logs; silent unless TEST_LOG is set. */
     log?: Logger
