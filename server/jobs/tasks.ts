@@ -8,6 +8,7 @@ import { makeRefund, OPEN_CHECKOUT_TASK, openCheckout, REFUND_TASK } from '../se
 import { DEPOSIT_EXPIRY_TASK, expireDepositHold } from '../services/requests'
 import { expireOpenCheckouts } from '../services/payments'
 import { engineIsBack, engineRebuilt } from '../services/search'
+import { PROCESS_PHOTO_TASK, processPhoto } from '../services/photos'
 
 /** Every background task by name. Handlers are thin: the work lives in services. */
 export function taskList(ctx: AppContext): TaskList {
@@ -36,6 +37,9 @@ export function taskList(ctx: AppContext): TaskList {
     [MESSAGE_DIGEST_TASK]: async (payload) => {
       const { requestId, to } = payload as { requestId: string; to: 'potter' | 'studio' }
       await sendMessageDigest(ctx, requestId, to)
+    },
+    [PROCESS_PHOTO_TASK]: async (payload) => {
+      await processPhoto(ctx, (payload as { photoId: string }).photoId)
     },
     [REINDEX_TASK]: async () => {
       const { documents } = await reindexAll(ctx)

@@ -42,10 +42,15 @@ export function PhotoGallery({ photos, kinds = KIND_ORDER, headings = {}, below,
                 <button
                   type="button"
                   onClick={() => setOpen({ kind: g.kind, index })}
+                  disabled={photo.processing}
                   className="block aspect-square w-full overflow-hidden rounded-control border border-slip-200 bg-slip-100 hover:border-clay-400"
                   aria-label={`${g.title}: photo ${index + 1} of ${g.photos.length}, open at full size`}
                 >
-                  <img src={photo.thumbUrl} alt="" loading="lazy" className="size-full object-cover" />
+                  {photo.processing ? (
+                    <span className="flex size-full items-center justify-center text-xs text-slip-500">Preparing…</span>
+                  ) : (
+                    <img src={photo.thumbUrl} alt="" loading="lazy" className="size-full object-cover" />
+                  )}
                 </button>
                 {below?.(photo)}
               </li>
