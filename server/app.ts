@@ -9,6 +9,7 @@ import { csrfTokens } from './auth/csrf'
 import { createPassport } from './auth/passport'
 import { outageLog, type AppContext } from './context'
 import { errorHandler, notFoundApi } from './http/errors'
+import { monitorSearchEngine } from './services/search'
 import { poolOf } from './jobs/worker'
 import { adminRouter } from './routes/admin'
 import { authRouter } from './routes/auth'
@@ -30,7 +31,7 @@ import { wareChecksRouter } from './routes/ware-checks'
 
 export interface App {
   app: Express
-  /** Stops timers the app owns (the session pruner); the data source is the caller's. */
+  /** Stops timers the app owns (the session pruner, the search monitor); the data source is the caller's. */
   close(): void
 }
 
@@ -129,5 +130,12 @@ export function createApp(ctx: AppContext): App {
   poolOf(ctx)?.on('connect', () => database.recovered())
   app.use(errorHandler(ctx.log.error, { databaseDown: (error) => database.failed(error) }))
 
-  return { app, close: () => store.close() }
+  const stopMonitor = monitorSearchEngine(ctx, config.searchProbeMs)
+  return {
+    app,
+    close: () => {
+      stopMonitor()
+      void store.close()
+    },
+  }
 }

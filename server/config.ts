@@ -38,6 +38,8 @@ export interface Config {
   }
   workerConcurrency: number
   runWorker: boolean
+  /** How often each process looks at the search engine, to notice it leave and come back. */
+  searchProbeMs: number
 }
 
 /**
@@ -87,6 +89,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env, overrides: Conf
     dev: env.NODE_ENV === 'development',
     workerConcurrency: int(env.WORKER_CONCURRENCY, 4),
     runWorker: env.RUN_WORKER !== 'false',
+    searchProbeMs: int(env.SEARCH_PROBE_MS, 10_000),
     ...overrides,
     rateLimits: {
       authPerIpPer15Min: int(env.RATE_LIMIT_AUTH_PER_IP, 100),

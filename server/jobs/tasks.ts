@@ -7,7 +7,7 @@ import { MESSAGE_DIGEST_TASK, sendMessageDigest } from '../services/messages'
 import { makeRefund, OPEN_CHECKOUT_TASK, openCheckout, REFUND_TASK } from '../services/payments'
 import { DEPOSIT_EXPIRY_TASK, expireDepositHold } from '../services/requests'
 import { expireOpenCheckouts } from '../services/payments'
-import { engineIsBack, engineRebuilt } from '../services/search'
+import { engineRebuilt } from '../services/search'
 import { PROCESS_PHOTO_TASK, processPhoto } from '../services/photos'
 
 /** Every background task by name. Handlers are thin: the work lives in services. */
@@ -18,7 +18,6 @@ export function taskList(ctx: AppContext): TaskList {
     },
     [SYNC_STUDIO_TASK]: async (payload) => {
       await syncStudio(ctx, (payload as { studioId: string }).studioId)
-      engineIsBack()
     },
     [REFUND_TASK]: async (payload) => {
       await makeRefund(ctx, payload as { requestId: string; amountCents: number; reason: string; key: string })
