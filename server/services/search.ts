@@ -70,13 +70,17 @@ export async function checkSearchEngine(ctx: AppContext): Promise<EngineState> {
     return engine
   }
   if (createdAt === null || (knownIndexCreatedAt !== null && createdAt !== knownIndexCreatedAt)) {
+    const hadIndex = knownIndexCreatedAt !== null
     forgetFiringsIndex(ctx.config)
     await ensureFiringsIndex(ctx.config)
     knownIndexCreatedAt = await firingsIndexCreatedAt(ctx.config)
     await ctx.db.transaction((manager) => enqueueReindex(manager))
+    // The first index this process sees may be one it just created; only a lost one is news.
+    if (engine === 'down' || hadIndex) {
+      outageOf(ctx).failed(new Error('its index is missing or new'))
+      outageOf(ctx).recovered('index and settings re-created; rebuilding from PostgreSQL')
+    }
     engine = 'rebuilding'
-    outageOf(ctx).failed(new Error('its index is missing or new'))
-    outageOf(ctx).recovered('index and settings re-created; rebuilding from PostgreSQL')
     return engine
   }
   knownIndexCreatedAt = createdAt
