@@ -168,6 +168,28 @@ const health = async () => (await fetch(`${url}/api/health`).catch(() => null))?
 const pause = (ms: number) => new Promise((r) => setTimeout(r, ms))
 const ledgerIn = async () => Number((await ctx.db.query(`SELECT count(*) AS n FROM ledger_entries WHERE direction = 'in'`))[0].n)
 
+let stranded = 0
+/**
+ * Waits for every queued mail to be sent. The queue backs off between attempts (minutes after a few
+ * failures), so the suite runs the waiting mail now, as an operator would after an outage; a job whose
+ * worker lost its connection while finishing it stays locked (graphile-worker frees such jobs only
+ * after four hours), and the operator's remedy, force_unlock_workers, is applied and counted. The
+ * mail's own sent_at keeps a mail from going twice.
+ */
+async function drainMail(what: string) {
+  const locked: { locked_by: string }[] = await ctx.db.query(
+    `SELECT DISTINCT locked_by FROM graphile_worker.jobs WHERE locked_at < now() - interval '5 seconds' AND locked_by IS NOT NULL`,
+  )
+  if (locked.length) await ctx.db.query(`SELECT graphile_worker.force_unlock_workers($1::text[])`, [locked.map((r) => r.locked_by)])
+  stranded += locked.length
+  await runWaitingJobsNow(ctx.db, 'send-mail')
+  await waitUntil(async () => Number((await ctx.db.query(`SELECT count(*) AS n FROM outbound_mail WHERE sent_at IS NULL`))[0].n) === 0, {
+    timeout: 120_000,
+    interval: 1000,
+    what,
+  })
+}
+
 async function acceptedDeposit(): Promise<{ requestId: string; checkoutUrl: string }> {
   const sent = await draftAndSend(potter.session, firingId, [mug({ quantity: 1 })])
   const accepted = await owner.session.post(`/api/requests/${sent.id}/accept`)
@@ -213,10 +235,7 @@ describe('outages under a stream of requests', () => {
     // The mail catcher stops; invitations keep coming; it is started again on the same ports.
     phase = 'mail down'
     invitesHeld = true
-    await waitUntil(async () => Number((await ctx.db.query(`SELECT count(*) AS n FROM outbound_mail WHERE sent_at IS NULL`))[0].n) === 0, {
-      timeout: 60_000,
-      what: 'mail in flight to land before the catcher stops',
-    })
+    await drainMail('mail in flight to land before the catcher stops')
     caught.push(...(await listMail(mail.webUrl)))
     await mail.close()
     invitesHeld = false
@@ -229,23 +248,8 @@ describe('outages under a stream of requests', () => {
     streaming = false
     await running
 
-    // Everything queued goes out, once. The queue backs off between attempts (up to minutes after a few
-    // failures), so the suite asks it to run the waiting mail now, as an operator would after an SMTP outage.
-    await runWaitingJobsNow(ctx.db, 'send-mail')
-    // A job whose worker lost its connection while finishing it stays locked (graphile-worker frees
-    // such jobs only after four hours); the operator's remedy is force_unlock_workers. Counted and
-    // printed, since it is a delay the outage caused; the mail's own sent_at keeps it from going twice.
-    await pause(5000)
-    const stranded: { locked_by: string }[] = await ctx.db.query(
-      `SELECT DISTINCT locked_by FROM graphile_worker.jobs WHERE locked_at < now() - interval '5 seconds' AND locked_by IS NOT NULL`,
-    )
-    if (stranded.length) await ctx.db.query(`SELECT graphile_worker.force_unlock_workers($1::text[])`, [stranded.map((r) => r.locked_by)])
-    await runWaitingJobsNow(ctx.db, 'send-mail')
-    await waitUntil(async () => Number((await ctx.db.query(`SELECT count(*) AS n FROM outbound_mail WHERE sent_at IS NULL`))[0].n) === 0, {
-      timeout: 120_000,
-      interval: 1000,
-      what: 'every queued mail to be sent',
-    })
+    // Everything queued goes out, once.
+    await drainMail('every queued mail to be sent')
     await stripe.idle()
     await waitUntil(async () => (await ledgerIn()) === ledgerBefore + deposits.length, {
       timeout: 60_000,
@@ -271,7 +275,7 @@ describe('outages under a stream of requests', () => {
         `invitations answered 202: ${invited.length}; mails caught for them: ${invitesMailed.reduce((a, b) => a + b, 0)} (each address: ${[...new Set(invitesMailed)].join(', ')})`,
         `ledger lines in: before ${ledgerBefore}, after ${ledgerAfter} (deposits paid during outages: ${deposits.length}; lines per deposit: ${perRequest.map((r) => r.n).join(', ')})`,
         `search after the outages: ${finalSearch.total} firing(s), degraded ${finalSearch.degraded}`,
-        `queue workers whose jobs were stranded by the database outage and unlocked: ${stranded.length}`,
+        `queue workers whose jobs were stranded by the database outage and unlocked: ${stranded}`,
         `log lines about outages:`,
         ...lines.filter((l) => /unreachable|is back/.test(l)).map((l) => `  ${l}`),
         `other warnings and errors: ${lines.filter((l) => /^(warn|error)/.test(l) && !/unreachable|is back/.test(l)).length}`,
