@@ -7,7 +7,7 @@ import tseslint from 'typescript-eslint'
 
 const restrict = (patterns) => ({ 'no-restricted-imports': ['error', { patterns }] })
 
-const FEATURES = ['admin', 'auth', 'home', 'planner', 'requests', 'search', 'studios']
+const FEATURES = ['admin', 'auth', 'home', 'notices', 'planner', 'requests', 'search', 'studios']
 
 export default tseslint.config(
   { ignores: ['dist/**', 'var/**', 'node_modules/**', 'public/**', 'coverage/**'] },
@@ -99,8 +99,10 @@ export default tseslint.config(
     rules: restrict([{ regex: '^(\\.\\./)+(server|search)/', message: 'The client talks to the server over HTTP only.' }]),
   },
   // Text reaches the API through shared/schemas/text.ts only, which refuses NUL and broken surrogates.
+  // payments.ts reads events already signed by Stripe (its own shape check), not text from people.
   {
     files: ['shared/**/*.ts', 'server/**/*.ts'],
+    ignores: ['server/services/payments.ts'],
     rules: {
       'no-restricted-syntax': [
         'error',

@@ -18,9 +18,19 @@ const kiln: Kiln = {
   maxRampCPerHour: 300,
   preheatHold: true,
   controlledCooling: false,
+  // Exercises the shelf plan on every check.
+  shelfLoadKg: 25,
 }
 
-const firing: Firing = { kind: 'glaze', cone: '6', atmosphere: 'oxidation', remainingCapacityL: 120, slowCool: false }
+const firing: Firing = {
+  kind: 'glaze',
+  cone: '6',
+  atmosphere: 'oxidation',
+  remainingCapacityL: 120,
+  slowCool: false,
+  cooling: 'glaze-development',
+  sharedLoad: true,
+}
 
 const stoneware = { body: 'stoneware' as const, minCone: '5', maxCone: '7' }
 
@@ -35,9 +45,20 @@ function piece(index: number): Piece {
     depthMm: [90, 180, 260, 140, 120][kind],
     round: kind !== 4,
     wallThicknessMm: [6, 7, 8, 9, 16][kind],
+    form: kind === 4 ? 'closed' : 'open',
+    ventHole: true,
+    weightG: [400, 700, 1200, 1500, 2500][kind],
     clay: stoneware,
     state: 'bisque',
-    glaze: { minCone: '5', maxCone: '7', runny: index === 7, onFoot: index === 11, onCookie: false },
+    glaze: {
+      minCone: '5',
+      maxCone: '7',
+      runny: index === 7,
+      onFoot: index === 11,
+      support: 'none',
+      colourants: index === 5 ? ['copper'] : [],
+      tested: index !== 9,
+    },
   }
   return index === 13 ? { ...base, heightMm: 700 } : base
 }
@@ -51,7 +72,19 @@ const troublesome: Piece[] = pieces.map((p) => ({
   state: 'greenware',
   boneDry: false,
   wallThicknessMm: 20,
-  glaze: { minCone: '04', maxCone: '04', runny: true, onFoot: true },
+  form: 'closed',
+  ventHole: false,
+  materials: ['glass', 'metal'],
+  glaze: {
+    minCone: '04',
+    maxCone: '04',
+    runny: true,
+    onFoot: true,
+    support: 'stilt',
+    colourants: ['chrome-tin'],
+    tested: false,
+    reductionOnly: true,
+  },
 }))
 
 let sink = 0

@@ -8,6 +8,8 @@ import type { PassportStatic } from 'passport'
 import { csrfTokens } from './auth/csrf'
 import { createPassport } from './auth/passport'
 import { outageLog, type AppContext } from './context'
+import { compressApi, revalidateApiReads } from './http/api-responses'
+import { clientFiles } from './http/client-files'
 import { errorHandler, notFoundApi } from './http/errors'
 import { monitorSearchEngine } from './services/search'
 import { poolOf } from './jobs/worker'
@@ -20,6 +22,7 @@ import { kilnsRouter } from './routes/kilns'
 import { metaRouter } from './routes/meta'
 import { photosRouter } from './routes/photos'
 import { firingLogsRouter } from './routes/firing-logs'
+import { noticesRouter } from './routes/notices'
 import { pickupRouter } from './routes/pickup'
 import { placesRouter } from './routes/places'
 import { ratingsRouter } from './routes/ratings'
@@ -28,6 +31,8 @@ import { searchRouter } from './routes/search'
 import { studiosRouter } from './routes/studios'
 import { webhooksRouter } from './routes/webhooks'
 import { wareChecksRouter } from './routes/ware-checks'
+
+const SESSION_COOKIE = 'cw.sid'
 
 export interface App {
   app: Express
@@ -60,6 +65,7 @@ export function createApp(ctx: AppContext): App {
     }),
   )
 
+  app.use('/api', compressApi(), revalidateApiReads())
   app.use('/api', healthRouter(ctx))
   app.use('/api', metaRouter(ctx))
 
@@ -76,7 +82,7 @@ export function createApp(ctx: AppContext): App {
   app.use(
     '/api',
     session({
-      name: 'cw.sid',
+      name: SESSION_COOKIE,
       secret: config.sessionSecret,
       store,
       resave: false,
@@ -111,6 +117,7 @@ export function createApp(ctx: AppContext): App {
   app.use('/api', requestsRouter(ctx))
   app.use('/api', pickupRouter(ctx))
   app.use('/api', firingLogsRouter(ctx))
+  app.use('/api', noticesRouter(ctx))
   app.use('/api', photosRouter(ctx))
   app.use('/api', ratingsRouter(ctx))
   app.use('/api', adminRouter(ctx))
@@ -118,11 +125,7 @@ export function createApp(ctx: AppContext): App {
   app.use('/api', notFoundApi)
 
   if (config.serveClient && existsSync(path.join(config.clientDir, 'index.html'))) {
-    app.use(express.static(config.clientDir, { index: false, maxAge: '1h', immutable: false }))
-    // The client routes everything else itself.
-    app.get('/{*path}', (_req, res) => {
-      res.sendFile(path.join(config.clientDir, 'index.html'), { headers: { 'Cache-Control': 'no-cache' } })
-    })
+    app.use(clientFiles(config.clientDir, { sessionCookie: SESSION_COOKIE }))
   }
 
   // One log line per database outage; the first connection that succeeds afterwards closes it.

@@ -53,7 +53,7 @@ const CELADON_BOWLS: Piece = {
   clay: { body: 'porcelain', minCone: '9', maxCone: '11' },
   state: 'bisque',
   boneDry: true,
-  glaze: { minCone: '9', maxCone: '11', runny: true, onCookie: true },
+  glaze: { minCone: '9', maxCone: '11', runny: true, support: 'cookie' },
 }
 const GREEN_PLATES: Piece = {
   label: 'Greenware plates',
@@ -214,6 +214,10 @@ export async function seedDemoRequests(manager: EntityManager, userIdOf: (email:
       findings: check.findings,
       acknowledgedWarnings: check.findings.filter((f) => f.severity === 'warn').map((f) => f.code),
       quote,
+      standingQuote: demo.state === 'draft' ? null : quote,
+      pendingQuote: null,
+      // The deposit was asked when the studio took the request on.
+      depositAskedCents: quote && PATH[demo.state].includes('accepted') ? quote.depositCents : null,
       policiesVersion: demo.state === 'draft' ? null : studio.policiesVersion,
       depositDueAt: null,
       proposedFiringId: null,

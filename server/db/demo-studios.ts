@@ -299,7 +299,7 @@ export const DEMO_STUDIOS: DemoStudio[] = [
     policies: {
       clayBodies: ['earthenware', 'stoneware', 'porcelain', 'other'],
       wareRequirements:
-        'Bone dry greenware only: cool to the touch against your cheek. Walls over 3/4 in get an extra candling charge. No glaze on anything.',
+        'Bone dry greenware only: it must no longer feel cool against your cheek (cool means water is still in it). Walls over 3/4 in get an extra candling charge. No glaze on anything.',
       cancellation: { fullRefundDaysBefore: 1, laterRefundPercent: 0 },
       depositHoldHours: 24,
     },

@@ -1,11 +1,14 @@
 // Every entity, listed once for the data source (esbuild-based runners cannot glob decorated classes).
 import { AuthToken } from '../entities/AuthToken'
 import { CheckIn } from '../entities/CheckIn'
+import { CounterRefund } from '../entities/CounterRefund'
 import { Firing } from '../entities/Firing'
+import { FiringEvent } from '../entities/FiringEvent'
 import { FiringLog } from '../entities/FiringLog'
 import { FiringRequest } from '../entities/FiringRequest'
 import { Kiln } from '../entities/Kiln'
 import { LedgerEntry } from '../entities/LedgerEntry'
+import { Notice } from '../entities/Notice'
 import { Payment } from '../entities/Payment'
 import { Photo } from '../entities/Photo'
 import { KilnPriceList } from '../entities/KilnPriceList'
@@ -41,4 +44,7 @@ export const entities = [
   Photo,
   FiringLog,
   RequestResult,
+  Notice,
+  FiringEvent,
+  CounterRefund,
 ]

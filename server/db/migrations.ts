@@ -8,6 +8,10 @@ import { PaymentsAndMessages1796151940233 } from './migrations/1796151940233-Pay
 import { DropOffToPickup1796152667537 } from './migrations/1796152667537-DropOffToPickup'
 import { SearchFacetColumns1796153787338 } from './migrations/1796153787338-SearchFacetColumns'
 import { SearchDocumentsNarrowRows1796158092958 } from './migrations/1796158092958-SearchDocumentsNarrowRows'
+import { RequestLifecycle1796166638665 } from './migrations/1796166638665-RequestLifecycle'
+import { FiringSciencePass1796167522134 } from './migrations/1796167522134-FiringSciencePass'
+import { FiringKindsAndHalfCones1796167600000 } from './migrations/1796167600000-FiringKindsAndHalfCones'
+import { PieceSupport1796167700000 } from './migrations/1796167700000-PieceSupport'
 import { Hardening1796172202396 } from './migrations/1796172202396-Hardening'
 
 export const migrations: (new () => unknown)[] = [
@@ -19,5 +23,9 @@ export const migrations: (new () => unknown)[] = [
   DropOffToPickup1796152667537,
   SearchFacetColumns1796153787338,
   SearchDocumentsNarrowRows1796158092958,
+  RequestLifecycle1796166638665,
+  FiringSciencePass1796167522134,
+  FiringKindsAndHalfCones1796167600000,
+  PieceSupport1796167700000,
   Hardening1796172202396,
 ]

@@ -1,11 +1,12 @@
 import { Check, Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm'
-import type { Atmosphere, Cone, FiringKind } from '../../shared/firing/check'
-import type { Segment } from '../../shared/firing/schedule'
+import { FIRING_KINDS, type Atmosphere, type Cone, type FiringKind } from '../../shared/firing/check'
+import { COOLING_PROFILES, type CoolingProfile, type Segment } from '../../shared/firing/schedule'
 import { FIRING_STATUSES, type FiringStatus } from '../../shared/workflow/firing-status'
 import type { Kiln } from './Kiln'
 
 @Entity({ name: 'firings' })
-@Check('firings_kind_check', `"kind" IN ('bisque', 'glaze', 'single')`)
+@Check('firings_kind_check', `"kind" IN (${FIRING_KINDS.map((k) => `'${k}'`).join(', ')})`)
+@Check('firings_cooling_check', `"cooling" IN (${COOLING_PROFILES.map((c) => `'${c}'`).join(', ')})`)
 @Check('firings_atmosphere_check', `"atmosphere" IN ('oxidation', 'reduction', 'neutral')`)
 @Check('firings_cone_check', `cone_rank("cone") IS NOT NULL`)
 @Check('firings_status_check', `"status" IN (${FIRING_STATUSES.map((s) => `'${s}'`).join(', ')})`)
@@ -35,6 +36,10 @@ export class Firing {
 
   @Column({ name: 'slow_cool', type: 'boolean', default: false })
   slowCool: boolean
+
+  /** How a glaze firing cools from its peak. */
+  @Column({ type: 'text', default: 'natural' })
+  cooling: CoolingProfile
 
   @Column({ name: 'drop_off_by', type: 'timestamptz' })
   dropOffBy: Date

@@ -1,7 +1,7 @@
 import { Column, Entity, JoinColumn, OneToOne, PrimaryColumn, UpdateDateColumn } from 'typeorm'
+import type { Reading } from '../../shared/firing/readings'
+import type { ConeBend } from '../../shared/firing/witness'
 import type { Firing } from './Firing'
-
-export type ConeBend = 'standing' | 'three-oclock' | 'touching'
 
 export interface WitnessCone {
   cone: string
@@ -10,7 +10,7 @@ export interface WitnessCone {
   position?: string
 }
 
-/** The record of one firing as it ran: times, peak, hold and the witness cones. */
+/** The record of one firing as it ran: times, peak, hold, the curve and the witness cones. */
 @Entity({ name: 'firing_logs' })
 export class FiringLog {
   @PrimaryColumn({ name: 'firing_id', type: 'uuid' })
@@ -44,6 +44,10 @@ export class FiringLog {
 
   @Column({ name: 'witness_cones', type: 'jsonb', default: [] })
   witnessCones: WitnessCone[]
+
+  /** The logged curve: temperatures in °C at instants, in time order, typed in or read from a controller's export. */
+  @Column({ type: 'jsonb', default: [] })
+  readings: Reading[]
 
   @Column({ type: 'text', default: '' })
   notes: string

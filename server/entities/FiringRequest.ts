@@ -54,8 +54,21 @@ export class FiringRequest {
   @Column({ name: 'acknowledged_warnings', type: 'text', array: true, default: '{}' })
   acknowledgedWarnings: string[]
 
+  /** The price as quoted when the request was sent: what the potter agreed to. */
   @Column({ type: 'jsonb', nullable: true })
   quote: Quote | null
+
+  /** The price that stands now: the sent quote, or the measured one at check-in once it stands. */
+  @Column({ name: 'standing_quote', type: 'jsonb', nullable: true })
+  standingQuote: Quote | null
+
+  /** A higher price from the measured ware, waiting for the potter to confirm or turn down. */
+  @Column({ name: 'pending_quote', type: 'jsonb', nullable: true })
+  pendingQuote: Quote | null
+
+  /** The deposit asked when the studio took the request on; never recomputed afterwards. */
+  @Column({ name: 'deposit_asked_cents', type: 'integer', nullable: true })
+  depositAskedCents: number | null
 
   /** The version of the studio's policies the potter agreed to when sending. */
   @Column({ name: 'policies_version', type: 'integer', nullable: true })

@@ -30,6 +30,7 @@ import type { Studio } from './Studio'
   'kilns_sizes_check',
   `"height_mm" > 0 AND ("usable_height_mm" IS NULL OR ("usable_height_mm" > 0 AND "usable_height_mm" <= "height_mm")) AND "max_temp_c" > 0 AND "max_ramp_c_per_hour" > 0 AND "shelf_count" >= 0 AND ("shelf_width_mm" IS NULL OR "shelf_width_mm" > 0) AND ("shelf_depth_mm" IS NULL OR "shelf_depth_mm" > 0)`,
 )
+@Check('kilns_shelf_load_check', `"shelf_load_kg" IS NULL OR "shelf_load_kg" > 0`)
 export class Kiln {
   @PrimaryGeneratedColumn('uuid')
   id: string
@@ -95,6 +96,10 @@ export class Kiln {
 
   @Column({ name: 'shelf_depth_mm', type: 'double precision', nullable: true })
   shelfDepthMm: number | null
+
+  /** What one shelf may carry, kg. */
+  @Column({ name: 'shelf_load_kg', type: 'double precision', nullable: true })
+  shelfLoadKg: number | null
 
   @Column({ type: 'text', default: '' })
   notes: string

@@ -12,6 +12,10 @@ export class StripeEvent {
   @Column({ type: 'jsonb' })
   payload: Record<string, unknown>
 
+  /** Why the event was not applied (malformed, an amount we did not ask for, …); the desk looks at these. */
+  @Column({ type: 'text', nullable: true })
+  problem: string | null
+
   @CreateDateColumn({ name: 'received_at', type: 'timestamptz' })
   receivedAt: Date
 }

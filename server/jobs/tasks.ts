@@ -4,11 +4,14 @@ import type { AppContext } from '../context'
 import { FiringRequest } from '../entities/FiringRequest'
 import { sendQueuedMail } from '../services/mail'
 import { MESSAGE_DIGEST_TASK, sendMessageDigest } from '../services/messages'
-import { makeRefund, OPEN_CHECKOUT_TASK, openCheckout, REFUND_TASK } from '../services/payments'
-import { DEPOSIT_EXPIRY_TASK, expireDepositHold } from '../services/requests'
+import { EXPIRE_CHECKOUTS_TASK, makeRefund, OPEN_CHECKOUT_TASK, openCheckout, REFUND_TASK } from '../services/payments'
+import { DEPOSIT_EXPIRY_TASK, expireDepositHold, sweepStaleRequests } from '../services/requests'
 import { expireOpenCheckouts } from '../services/payments'
 import { engineRebuilt } from '../services/search'
 import { PROCESS_PHOTO_TASK, processPhoto } from '../services/photos'
+
+/** The scheduled sweep of requests made stale by dates alone (see sweepStaleRequests). */
+export const REQUEST_SWEEP_TASK = 'request-sweep'
 
 /** Every background task by name. Handlers are thin: the work lives in services. */
 export function taskList(ctx: AppContext): TaskList {
@@ -32,6 +35,13 @@ export function taskList(ctx: AppContext): TaskList {
     [DEPOSIT_EXPIRY_TASK]: async (payload) => {
       const { requestId } = payload as { requestId: string }
       if (await expireDepositHold(ctx, requestId)) await expireOpenCheckouts(ctx, requestId)
+    },
+    [EXPIRE_CHECKOUTS_TASK]: async (payload) => {
+      await expireOpenCheckouts(ctx, (payload as { requestId: string }).requestId)
+    },
+    [REQUEST_SWEEP_TASK]: async () => {
+      const lapsed = await sweepStaleRequests(ctx)
+      if (lapsed) ctx.log.info(`request sweep: ${lapsed} stale requests lapsed`)
     },
     [MESSAGE_DIGEST_TASK]: async (payload) => {
       const { requestId, to } = payload as { requestId: string; to: 'potter' | 'studio' }

@@ -2,7 +2,7 @@ import { Logger as WorkerLogger, run, runMigrations, type Runner, type TaskList 
 import type { Pool } from 'pg'
 import type { PostgresDriver } from 'typeorm/driver/postgres/PostgresDriver.js'
 import type { AppContext } from '../context'
-import { taskList } from './tasks'
+import { REQUEST_SWEEP_TASK, taskList } from './tasks'
 
 export function poolOf(ctx: AppContext): Pool {
   return (ctx.db.driver as PostgresDriver).master as Pool
@@ -28,5 +28,8 @@ export async function startWorker(ctx: AppContext, tasks: TaskList = taskList(ct
     pollInterval: 1000,
     logger: quietLogger(ctx),
     taskList: tasks,
+    // What dates alone make stale is swept every ten minutes (graphile-worker's crontab: one run per
+    // slot across all workers, and a missed slot after downtime is caught up once).
+    ...(tasks[REQUEST_SWEEP_TASK] ? { crontab: `*/10 * * * * ${REQUEST_SWEEP_TASK} ?fill=1h` } : {}),
   })
 }

@@ -35,12 +35,12 @@ export function adminRouter(ctx: AppContext) {
     },
   )
 
-  router.get('/admin/disputes', admin, async (_req, res) => {
-    res.json({ requests: await deskDisputes(ctx.db.manager) })
+  router.get('/admin/disputes', admin, async (req, res) => {
+    res.json({ requests: await deskDisputes(ctx.db.manager, req.user!) })
   })
 
   router.post('/admin/requests/:id/refund', admin, requireUuidParams('id'), validateBody(adminRefundSchema), async (req, res) => {
-    await adminRefund(ctx, String(req.params.id), req.body.amountCents, req.body.reason)
+    await adminRefund(ctx, req.user!, String(req.params.id), req.body.amountCents, req.body.reason)
     res.status(202).json({ queued: true })
   })
 

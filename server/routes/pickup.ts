@@ -3,7 +3,17 @@ import { checkInSchema, counterPaymentSchema, resultsSchema } from '../../shared
 import { requireAuth } from '../auth/guards'
 import type { AppContext } from '../context'
 import { requireUuidParams, validateBody } from '../http/validate'
-import { checkIn, confirmPrice, counterPayment, markCollected, markReady, openBalance, postResults } from '../services/pickup'
+import {
+  checkIn,
+  confirmPrice,
+  counterPayment,
+  declinePrice,
+  markCollected,
+  markCounterRefundPaid,
+  markReady,
+  postResults,
+} from '../services/pickup'
+import { checkoutFor } from '../services/payments'
 import { showRequest } from '../services/request-views'
 
 export function pickupRouter(ctx: AppContext) {
@@ -22,6 +32,16 @@ export function pickupRouter(ctx: AppContext) {
     res.json(await show(String(req.params.id), req.user!))
   })
 
+  router.post('/requests/:id/price/decline', requireAuth, id, async (req, res) => {
+    await declinePrice(ctx, req.user!, String(req.params.id))
+    res.json(await show(String(req.params.id), req.user!))
+  })
+
+  router.post('/requests/:id/counter-refunds/:refundId/paid', requireAuth, requireUuidParams('id', 'refundId'), async (req, res) => {
+    await markCounterRefundPaid(ctx, req.user!, String(req.params.id), String(req.params.refundId))
+    res.json(await show(String(req.params.id), req.user!))
+  })
+
   router.post('/requests/:id/results', requireAuth, id, validateBody(resultsSchema), async (req, res) => {
     await postResults(ctx, req.user!, String(req.params.id), req.body)
     res.json(await show(String(req.params.id), req.user!))
@@ -33,7 +53,7 @@ export function pickupRouter(ctx: AppContext) {
   })
 
   router.post('/requests/:id/balance', requireAuth, id, async (req, res) => {
-    const payment = await openBalance(ctx, req.user!, String(req.params.id))
+    const payment = await checkoutFor(ctx, req.user!, String(req.params.id), 'balance')
     res.json({ checkoutUrl: payment.checkoutUrl, amountCents: payment.amountCents, expiresAt: payment.expiresAt.toISOString() })
   })
 

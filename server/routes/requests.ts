@@ -16,8 +16,7 @@ import type { AppContext } from '../context'
 import { conflict } from '../http/errors'
 import { requireUuidParams, validateBody, validateQuery } from '../http/validate'
 import { listMessages, postMessage } from '../services/messages'
-import { moneyOf, openCheckout } from '../services/payments'
-import { loadRequest, viewerOf } from '../services/request-context'
+import { checkoutFor } from '../services/payments'
 import { listRequests, showRequest, type RequestListQuery } from '../services/request-views'
 import {
   acceptRequest,
@@ -102,14 +101,8 @@ export function requestsRouter(ctx: AppContext) {
   })
 
   router.post('/requests/:id/deposit', requireAuth, id, async (req, res) => {
-    const rc = await loadRequest(ctx.db.manager, String(req.params.id))
-    const viewer = await viewerOf(ctx.db.manager, rc, req.user!)
-    if (viewer.side === 'studio') throw conflict('The potter pays the deposit.', 'not-the-potter')
-    if (rc.request.state !== 'accepted' || !rc.request.depositDueAt)
-      throw conflict('No deposit is due for this request.', 'nothing-owed', { state: rc.request.state })
-    const { depositPaid } = await moneyOf(ctx.db.manager, rc.request.id)
-    const payment = await openCheckout(ctx, rc.request.id, 'deposit', (rc.request.quote?.depositCents ?? 0) - depositPaid)
-    res.json({ checkoutUrl: payment.checkoutUrl, expiresAt: payment.expiresAt.toISOString() })
+    const payment = await checkoutFor(ctx, req.user!, String(req.params.id), 'deposit')
+    res.json({ checkoutUrl: payment.checkoutUrl, amountCents: payment.amountCents, expiresAt: payment.expiresAt.toISOString() })
   })
 
   router.get('/requests/:id/messages', requireAuth, id, async (req, res) => {

@@ -36,9 +36,9 @@ export async function setSuspended(ctx: AppContext, adminId: string, userId: str
   })
 }
 
-export async function deskDisputes(manager: EntityManager) {
+export async function deskDisputes(manager: EntityManager, reader: Pick<User, 'id'>) {
   const disputed = await manager
     .getRepository(FiringRequest)
     .find({ where: { state: 'disputed' }, order: { updatedAt: 'DESC' }, take: 100 })
-  return requestRows(manager, disputed)
+  return requestRows(manager, disputed, reader)
 }

@@ -1,30 +1,24 @@
 import { TZDate } from '@date-fns/tz'
+import type { EntityManager } from 'typeorm'
 import { addWeeks } from 'date-fns'
 import { randomUUID } from 'node:crypto'
-import { In, type EntityManager } from 'typeorm'
 import { kilnVolumeL, type Firing as FiringSpec, type Kiln as KilnSpec } from '../../shared/firing/check'
 import { compareCones, coneTemperatureC, formatCone } from '../../shared/firing/cones'
 import type { PriceList } from '../../shared/firing/quote'
 import { plannedFinalRateCPerHour } from '../../shared/firing/schedule'
 import type { FiringJson } from '../../shared/api/studios'
 import type { FiringCreateBody, FiringPatchBody } from '../../shared/schemas/studios'
-import { canMoveFiring, nextFiringStatuses } from '../../shared/workflow/firing-status'
+import { nextFiringStatuses, type FiringStatus } from '../../shared/workflow/firing-status'
+import { UNDO_WINDOW_MS } from '../../shared/workflow/undo'
 import { HOLDING_STATES } from '../../shared/workflow/request-states'
 import { enqueueStudioSync } from './search-sync'
 import type { AppContext } from '../context'
 import { Firing } from '../entities/Firing'
-import { FiringRequest } from '../entities/FiringRequest'
 import { Kiln } from '../entities/Kiln'
-import { RequestEvent } from '../entities/RequestEvent'
 import { Studio } from '../entities/Studio'
-import { User } from '../entities/User'
 import { badRequest, conflict, type FieldErrors, HttpError, notFound } from '../http/errors'
 import { isUuid } from '../http/validate'
-import { firingCancelledMail } from '../mail/templates/firings'
 import { getKiln, getPriceList, kilnSpec } from './kilns'
-import { queueMail } from './mail'
-import { onFiringStatus } from './pickup'
-import { refundCancelledByFiring } from './requests'
 
 /** Litres held per firing by the requests in holding states; computed, never stored. */
 export async function heldLitres(manager: EntityManager, firingIds: string[]): Promise<Map<string, number>> {
@@ -39,7 +33,7 @@ export async function heldLitres(manager: EntityManager, firingIds: string[]): P
   return held
 }
 
-export function firingJson(firing: Firing, studioId: string, heldL: number): FiringJson {
+export function firingJson(firing: Firing, studioId: string, heldL: number, undo: FiringJson['undo'] = null): FiringJson {
   return {
     id: firing.id,
     kilnId: firing.kilnId,
@@ -48,6 +42,7 @@ export function firingJson(firing: Firing, studioId: string, heldL: number): Fir
     cone: firing.cone,
     atmosphere: firing.atmosphere,
     slowCool: firing.slowCool,
+    cooling: firing.cooling,
     dropOffBy: firing.dropOffBy.toISOString(),
     firingDate: firing.firingDate.toISOString(),
     readyBy: firing.readyBy.toISOString(),
@@ -60,7 +55,26 @@ export function firingJson(firing: Firing, studioId: string, heldL: number): Fir
     notes: firing.notes,
     seriesId: firing.seriesId,
     cancelledReason: firing.cancelledReason,
+    undo,
   }
+}
+
+/** Each firing's last stage move that can still be undone (see firing-stages.ts). */
+async function undoableMoves(manager: EntityManager, firingIds: string[], now = new Date()): Promise<Map<string, FiringJson['undo']>> {
+  const moves = new Map<string, FiringJson['undo']>()
+  if (!firingIds.length) return moves
+  const rows: { firing_id: string; from_status: FiringStatus; to_status: FiringStatus; at: Date; undone_at: Date | null }[] =
+    await manager.query(
+      `SELECT DISTINCT ON (firing_id) firing_id, from_status, to_status, at, undone_at FROM firing_events
+       WHERE firing_id = ANY($1::uuid[]) ORDER BY firing_id, at DESC`,
+      [firingIds],
+    )
+  for (const row of rows) {
+    const until = new Date(new Date(row.at).getTime() + UNDO_WINDOW_MS)
+    if (!row.undone_at && row.to_status !== 'cancelled' && until > now)
+      moves.set(row.firing_id, { from: row.from_status, until: until.toISOString() })
+  }
+  return moves
 }
 
 const round1 = (n: number) => Math.round(n * 10) / 10
@@ -71,7 +85,14 @@ export async function firingsJson(manager: EntityManager, firings: Firing[], stu
     manager,
     firings.map((f) => f.id),
   )
-  return firings.map((f) => firingJson(f, studioId, held.get(f.id) ?? 0))
+  const undo = await undoableMoves(
+    manager,
+    firings.map((f) => f.id),
+  )
+  return firings.map((f) => {
+    const move = undo.get(f.id)
+    return firingJson(f, studioId, held.get(f.id) ?? 0, move && f.status !== 'cancelled' ? move : null)
+  })
 }
 
 /** Why a firing cannot be run in this kiln, per field; empty when it can. */
@@ -121,6 +142,7 @@ export async function createFirings(ctx: AppContext, kilnId: string, body: Firin
         cone: body.cone,
         atmosphere: body.atmosphere,
         slowCool: body.slowCool ?? false,
+        cooling: body.cooling ?? 'natural',
         dropOffBy: shift(body.dropOffBy, i),
         firingDate: shift(body.firingDate, i),
         readyBy: shift(body.readyBy, i),
@@ -138,22 +160,13 @@ export async function createFirings(ctx: AppContext, kilnId: string, body: Firin
   })
 }
 
-export async function updateFiring(ctx: AppContext, id: string, patch: FiringPatchBody, actorId: string): Promise<Firing> {
+export async function updateFiring(ctx: AppContext, id: string, patch: FiringPatchBody): Promise<Firing> {
   return ctx.db.transaction(async (manager) => {
     const firing = await getFiring(manager, id, true)
     const kiln = await getKiln(manager, firing.kilnId)
-    const { status, ...fields } = patch
+    // The stage (status) moves through firing-stages.ts; this changes dates, space and notes.
+    const fields = patch
     if (firing.status === 'cancelled') throw conflict('This firing is cancelled.', 'firing-cancelled')
-    if (status && status !== firing.status) {
-      if (status === 'cancelled') throw conflict('Cancel a firing with its cancel action, giving a reason.', 'use-cancel')
-      if (!canMoveFiring(firing.status, status)) {
-        throw conflict(`A firing that is ${firing.status} cannot become ${status}.`, 'bad-status-change', {
-          allowed: nextFiringStatuses(firing.status),
-        })
-      }
-      firing.status = status
-      await onFiringStatus(ctx, manager, firing, status, actorId)
-    }
     if (Object.keys(fields).length) {
       const problems = firingProblems(kilnSpec(kiln), fields)
       if (Object.keys(problems).length) throw badRequest('This firing does not suit the kiln.', problems)
@@ -179,75 +192,6 @@ export async function updateFiring(ctx: AppContext, id: string, patch: FiringPat
     const saved = await manager.getRepository(Firing).save(firing)
     await enqueueStudioSync(manager, kiln.studioId)
     return saved
-  })
-}
-
-/** Requests that still expect this firing to happen. */
-const LIVE_REQUEST_STATES = ['draft', 'sent', 'accepted', 'deposit_paid'] as const
-
-/** Cancels a firing and every live request in it, refunds what was paid in full and mails each potter. */
-export async function cancelFiring(
-  ctx: AppContext,
-  id: string,
-  reason: string,
-  actorId: string,
-): Promise<{ firing: Firing; requestIds: string[] }> {
-  return ctx.db.transaction(async (manager) => {
-    const firing = await getFiring(manager, id, true)
-    if (firing.status === 'cancelled') throw conflict('This firing is already cancelled.', 'firing-cancelled')
-    if (!canMoveFiring(firing.status, 'cancelled')) {
-      throw conflict('Ware is already in the kiln; this firing can no longer be cancelled.', 'bad-status-change', {
-        allowed: nextFiringStatuses(firing.status),
-      })
-    }
-    firing.status = 'cancelled'
-    firing.cancelledReason = reason
-    await manager.getRepository(Firing).save(firing)
-
-    const kiln = await manager.getRepository(Kiln).findOneByOrFail({ id: firing.kilnId })
-    const studio = await manager.getRepository(Studio).findOneByOrFail({ id: kiln.studioId })
-    await enqueueStudioSync(manager, studio.id)
-    const requests = await manager
-      .getRepository(FiringRequest)
-      .find({ where: { firingId: id, state: In([...LIVE_REQUEST_STATES]) }, lock: { mode: 'pessimistic_write' } })
-    for (const request of requests) {
-      await manager.getRepository(RequestEvent).save({
-        requestId: request.id,
-        actorId,
-        fromState: request.state,
-        toState: 'cancelled',
-        reason: `Firing cancelled: ${reason}`,
-        data: { by: 'studio' },
-      })
-      await manager.update(FiringRequest, request.id, { state: 'cancelled' })
-      if (request.state === 'draft') continue
-      const potter = await manager.getRepository(User).findOneByOrFail({ id: request.potterId })
-      await queueMail(
-        manager,
-        potter.email,
-        'firing-cancelled',
-        firingCancelledMail(
-          potter.displayName,
-          {
-            studioName: studio.name,
-            kilnName: kiln.name,
-            cone: firing.cone,
-            atmosphere: firing.atmosphere,
-            kind: firing.kind,
-            firingDate: firing.firingDate,
-            timezone: studio.timezone,
-          },
-          reason,
-          `${ctx.config.publicUrl}/requests/${request.id}`,
-        ),
-      )
-    }
-    // Everything paid for those requests goes back in full.
-    await refundCancelledByFiring(
-      manager,
-      requests.map((r) => r.id),
-    )
-    return { firing, requestIds: requests.map((r) => r.id) }
   })
 }
 
@@ -295,6 +239,7 @@ export async function loadFiringForCheck(
       cone: firing.cone,
       atmosphere: firing.atmosphere,
       slowCool: firing.slowCool,
+      cooling: firing.cooling,
       remainingCapacityL: Math.max(0, firing.capacityL - held),
     },
     priceList: await getPriceList(ctx.db.manager, kiln.id),

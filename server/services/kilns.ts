@@ -26,6 +26,7 @@ export function kilnSpec(kiln: Kiln): KilnSpec {
     maxRampCPerHour: kiln.maxRampCPerHour,
     preheatHold: kiln.preheatHold,
     controlledCooling: kiln.controlledCooling,
+    ...(kiln.shelfLoadKg !== null ? { shelfLoadKg: kiln.shelfLoadKg } : {}),
   }
 }
 
@@ -64,6 +65,7 @@ export function kilnColumns(body: KilnBody): Partial<Kiln> {
     maxRampCPerHour: body.maxRampCPerHour,
     preheatHold: body.preheatHold,
     controlledCooling: body.controlledCooling,
+    shelfLoadKg: body.shelfLoadKg ?? null,
     shelfCount: body.shelfCount,
     shelfWidthMm: body.shelfWidthMm ?? null,
     shelfDepthMm: body.shelfDepthMm ?? null,
@@ -108,14 +110,16 @@ export async function updateKiln(ctx: AppContext, id: string, patch: Record<stri
       maxRampCPerHour: current.maxRampCPerHour,
       preheatHold: current.preheatHold,
       controlledCooling: current.controlledCooling,
+      shelfLoadKg: current.shelfLoadKg,
       shelfCount: current.shelfCount,
       shelfWidthMm: current.shelfWidthMm,
       shelfDepthMm: current.shelfDepthMm,
       notes: current.notes,
       ...patch,
     }
-    // null clears the usable height, which then follows from the interior again.
+    // null clears the usable height, which then follows from the interior again, and the shelf load.
     if (merged.usableHeightMm === null) delete (merged as Record<string, unknown>).usableHeightMm
+    if (merged.shelfLoadKg === null) delete (merged as Record<string, unknown>).shelfLoadKg
     const parsed = kilnBodySchema.safeParse(merged)
     if (!parsed.success) throw new HttpError(400, 'invalid-input', 'Some fields need fixing.', fieldErrorsFrom(parsed.error))
     Object.assign(kiln, kilnColumns(parsed.data))

@@ -2,11 +2,17 @@ import nodemailer, { type Transporter } from 'nodemailer'
 import type { EntityManager } from 'typeorm'
 import type { AppContext } from '../context'
 import { OutboundMail } from '../entities/OutboundMail'
-import { enqueueJob } from '../jobs/queue'
+import { enqueueJob, type JobOptions } from '../jobs/queue'
 import { renderMail, type MailContent } from '../mail/render'
 
-/** Writes a mail and its send job in the caller's transaction. */
-export async function queueMail(manager: EntityManager, to: string, template: string, content: MailContent) {
+/** Writes a mail and its send job in the caller's transaction (held back until `runAt` if given). */
+export async function queueMail(
+  manager: EntityManager,
+  to: string,
+  template: string,
+  content: MailContent,
+  options: Pick<JobOptions, 'runAt' | 'jobKey'> = {},
+) {
   const rendered = renderMail(content)
   const mail = await manager.getRepository(OutboundMail).save({
     toAddress: to,
@@ -15,7 +21,7 @@ export async function queueMail(manager: EntityManager, to: string, template: st
     bodyText: rendered.text,
     bodyHtml: rendered.html,
   })
-  await enqueueJob(manager, 'send-mail', { mailId: mail.id })
+  await enqueueJob(manager, 'send-mail', { mailId: mail.id }, options)
   return mail
 }
 

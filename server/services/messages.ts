@@ -4,8 +4,9 @@ import { RequestMessage } from '../entities/RequestMessage'
 import { User } from '../entities/User'
 import { enqueueJob } from '../jobs/queue'
 import { newMessagesMail } from '../mail/templates/requests'
-import { queueMail } from './mail'
+import { tell } from './notices'
 import { factsOf, loadRequest, studioPeople, viewerOf } from './request-context'
+import { requestAction } from './request-door'
 
 export const MESSAGE_DIGEST_TASK = 'message-digest'
 /** Messages wait this long before the other side is mailed, so a burst becomes one mail. */
@@ -33,9 +34,7 @@ export async function listMessages(ctx: AppContext, user: User, requestId: strin
  * side, so each new message pushes the mail back instead of sending another.
  */
 export async function postMessage(ctx: AppContext, user: User, requestId: string, body: string) {
-  return ctx.db.transaction(async (manager) => {
-    const rc = await loadRequest(manager, requestId)
-    const viewer = await viewerOf(manager, rc, user)
+  return requestAction(ctx, user, requestId, 'message', async ({ manager, viewer }) => {
     const side = viewer.side === 'potter' ? 'potter' : 'studio'
     const message = await manager.getRepository(RequestMessage).save({ requestId, authorId: user.id, side, body, notifiedAt: null })
     const to = side === 'potter' ? 'studio' : 'potter'
@@ -68,7 +67,8 @@ export async function sendMessageDigest(ctx: AppContext, requestId: string, to: 
       pending.map((m) => ({ author: authors.get(m.authorId) ?? 'Someone', body: m.body })),
     )
     const recipients = to === 'potter' ? [rc.potter] : await studioPeople(manager, rc.studio.id)
-    for (const person of recipients) await queueMail(manager, person.email, 'new-messages', content)
+    const links = { path: `/requests/${requestId}`, requestId, firingId: rc.firing.id }
+    for (const person of recipients) await tell(manager, person, 'new-messages', content, links)
     await manager.getRepository(RequestMessage).update(
       pending.map((m) => m.id),
       { notifiedAt: new Date() },

@@ -1,17 +1,25 @@
 // Money through Stripe: checkout sessions for deposits and balances, refunds, and the webhook events
 // that confirm them. Every movement is booked in the ledger; every event is handled once.
+import { randomUUID } from 'node:crypto'
 import type Stripe from 'stripe'
+import { z } from 'zod'
 import { In, type EntityManager } from 'typeorm'
 import type { AppContext } from '../context'
+import { CounterRefund } from '../entities/CounterRefund'
 import { LedgerEntry } from '../entities/LedgerEntry'
 import { Payment } from '../entities/Payment'
+import { formatMoney } from '../../shared/dates'
+import { minimumOnlineCharge, payableOnline } from '../../shared/payments'
+import type { User } from '../entities/User'
 import { badRequest, conflict } from '../http/errors'
-import { enqueueJob } from '../jobs/queue'
-import { depositReceivedMail, refundedMail } from '../mail/templates/requests'
-import { queueMail } from './mail'
-import { factsOf, loadRequest, moveRequest, studioPeople, type RequestContext } from './request-context'
+import { isUuid } from '../http/validate'
+import { enqueueJob, type JobOptions } from '../jobs/queue'
+import { paymentReceivedMail } from '../mail/templates/pickup'
+import { refundedMail } from '../mail/templates/requests'
+import { tell } from './notices'
+import { factsOf, loadRequest } from './request-context'
+import { inTransaction, requestAction, requestActionIn, type ActionStep } from './request-door'
 import { stripeFor } from './stripe'
-import { settleBalance } from './pickup'
 import { enqueueStudioSync } from './search-sync'
 
 export const REFUND_TASK = 'refund-payment'
@@ -20,13 +28,30 @@ export const OPEN_CHECKOUT_TASK = 'open-checkout'
 /** How long a hosted checkout page stays open (Stripe allows 30 minutes to 24 hours). */
 const CHECKOUT_LIFETIME_S = 2 * 3600
 
-/** What came in and went out for a request, from the ledger. */
+const sum = (entries: { amountCents: number }[]) => entries.reduce((n, e) => n + e.amountCents, 0)
+
+/**
+ * What came in and went out for a request, from the ledger and the counter refunds still owed.
+ * `net` is what the potter has paid and not had back (or been promised back at the counter);
+ * `onlineNet` is the part that went through Stripe, which is all a Stripe refund can return.
+ */
 export async function moneyOf(manager: EntityManager, requestId: string) {
   const entries = await manager.getRepository(LedgerEntry).find({ where: { requestId }, order: { at: 'ASC' } })
-  const paidIn = entries.filter((e) => e.direction === 'in').reduce((n, e) => n + e.amountCents, 0)
-  const refunded = entries.filter((e) => e.direction === 'out').reduce((n, e) => n + e.amountCents, 0)
-  const depositPaid = entries.filter((e) => e.kind === 'deposit').reduce((n, e) => n + e.amountCents, 0)
-  return { entries, paidIn, refunded, depositPaid, net: paidIn - refunded }
+  const counterRefunds = await manager.getRepository(CounterRefund).find({ where: { requestId }, order: { createdAt: 'ASC' } })
+  const paidIn = sum(entries.filter((e) => e.direction === 'in'))
+  const refunded = sum(entries.filter((e) => e.direction === 'out'))
+  const counterRefundDue = sum(counterRefunds.filter((r) => !r.paidAt))
+  const onlineIn = sum(entries.filter((e) => e.kind === 'deposit' || e.kind === 'balance'))
+  const onlineOut = sum(entries.filter((e) => e.kind === 'refund'))
+  return {
+    entries,
+    counterRefunds,
+    paidIn,
+    refunded,
+    counterRefundDue,
+    net: paidIn - refunded - counterRefundDue,
+    onlineNet: onlineIn - onlineOut,
+  }
 }
 
 /**
@@ -45,8 +70,15 @@ export async function openCheckout(
   const open = await payments.findOne({ where: { requestId, purpose, status: 'open' }, order: { createdAt: 'DESC' } })
   if (open && open.expiresAt.getTime() > Date.now() + 5 * 60_000 && open.amountCents === amountCents) return open
   if (amountCents <= 0) throw conflict('Nothing is owed.', 'nothing-owed')
+  const currency = ((rc.request.standingQuote ?? rc.request.quote)?.currency ?? rc.studio.currency).toLowerCase()
+  if (!payableOnline(amountCents, currency)) {
+    throw conflict(
+      `${formatMoney(amountCents, currency.toUpperCase())} is less than a card can be charged; pay it at the studio’s counter.`,
+      'below-minimum',
+      { minimumCents: minimumOnlineCharge(currency) },
+    )
+  }
   const attempt = await payments.count({ where: { requestId, purpose } })
-  const currency = (rc.request.quote?.currency ?? rc.studio.currency).toLowerCase()
   const base = `${ctx.config.publicUrl}/requests/${requestId}`
   const session = await stripeFor(ctx.config).checkout.sessions.create(
     {
@@ -94,8 +126,25 @@ export async function openCheckout(
   return payments.findOneByOrFail({ stripeSessionId: session.id })
 }
 
+/**
+ * The potter's checkout page for what is owed now (the deposit before drop-off, the balance once the
+ * ware is ready), after the door has checked that they may pay it.
+ */
+export async function checkoutFor(ctx: AppContext, potter: User, requestId: string, purpose: 'deposit' | 'balance') {
+  const owed = await requestAction(ctx, potter, requestId, purpose === 'deposit' ? 'pay-deposit' : 'pay-balance', async ({ facts }) =>
+    purpose === 'deposit' ? facts.depositOwedCents : facts.balanceOwedCents,
+  )
+  // Stripe is asked outside the transaction: no lock is held across a network call.
+  return openCheckout(ctx, requestId, purpose, owed)
+}
+
 /** Queues the deposit's checkout session so it exists by the time the potter opens the request. */
 export async function enqueueOpenCheckout(manager: EntityManager, requestId: string, purpose: 'deposit' | 'balance', amountCents: number) {
+  const currency = (
+    await manager.query(`SELECT coalesce(standing_quote, quote) ->> 'currency' AS c FROM firing_requests WHERE id = $1`, [requestId])
+  )[0]?.c
+  // A deposit smaller than a card can be charged is taken at the counter: no page to open.
+  if (currency && !payableOnline(amountCents, currency)) return
   await enqueueJob(manager, OPEN_CHECKOUT_TASK, { requestId, purpose, amountCents }, { jobKey: `checkout:${purpose}:${requestId}` })
 }
 
@@ -103,9 +152,26 @@ export async function enqueueOpenCheckout(manager: EntityManager, requestId: str
  * Queues a refund of up to `amountCents` of what was paid for a request, in the caller's transaction.
  * The worker makes it through Stripe, payment by payment, with idempotency keys, and books it.
  */
-export async function enqueueRefund(manager: EntityManager, requestId: string, amountCents: number, reason: string) {
+export async function enqueueRefund(
+  manager: EntityManager,
+  requestId: string,
+  amountCents: number,
+  reason: string,
+  options: Pick<JobOptions, 'runAt' | 'jobKey'> = {},
+) {
   if (amountCents <= 0) return
-  await enqueueJob(manager, REFUND_TASK, { requestId, amountCents, reason, key: `${requestId}:${Date.now()}` })
+  await enqueueJob(manager, REFUND_TASK, { requestId, amountCents, reason, key: `${requestId}:${Date.now()}` }, options)
+}
+
+export const EXPIRE_CHECKOUTS_TASK = 'expire-checkouts'
+
+/** Queues the closing of a request's open checkout pages (its space was released). */
+export async function enqueueExpireCheckouts(
+  manager: EntityManager,
+  requestId: string,
+  options: Pick<JobOptions, 'runAt' | 'jobKey'> = {},
+) {
+  await enqueueJob(manager, EXPIRE_CHECKOUTS_TASK, { requestId }, options)
 }
 
 /** Makes a queued refund: splits it over the request's paid payments, newest first. */
@@ -147,7 +213,11 @@ async function bookRefund(ctx: AppContext, requestId: string, refund: Stripe.Ref
     )
     if (!inserted.length) return
     const rc = await loadRequest(manager, requestId)
-    await queueMail(manager, rc.potter.email, 'refunded', refundedMail(factsOf(rc, ctx.config.publicUrl), refund.amount))
+    await tell(manager, rc.potter, 'refunded', refundedMail(factsOf(rc, ctx.config.publicUrl), refund.amount), {
+      path: `/requests/${requestId}`,
+      requestId,
+      firingId: rc.firing.id,
+    })
   })
 }
 
@@ -170,22 +240,47 @@ export function verifyWebhook(ctx: AppContext, rawBody: Buffer, signature: strin
   return event
 }
 
-const metadataOf = (object: { metadata?: Stripe.Metadata | null }) => ({
-  requestId: object.metadata?.requestId ?? null,
-  purpose: (object.metadata?.purpose ?? null) as 'deposit' | 'balance' | null,
+/** The least a signed event must carry before anything in it is trusted. */
+const eventShape = z.object({
+  id: z.string().min(1).max(255),
+  type: z.string().min(1).max(255),
+  data: z.object({ object: z.looseObject({ id: z.string().optional() }) }),
 })
+
+/** Records an event that cannot be applied, for the front desk to look at. Idempotent by event id. */
+async function recordProblem(manager: EntityManager, id: string, type: string, payload: unknown, problem: string) {
+  await manager.query(
+    `INSERT INTO stripe_events (id, type, payload, problem) VALUES ($1, $2, $3, $4) ON CONFLICT (id) DO UPDATE SET problem = EXCLUDED.problem`,
+    [id, type, JSON.stringify(payload ?? null), problem],
+  )
+}
 
 /**
  * Handles one verified Stripe event, once. Events may come twice, late or out of order: each is
  * recorded by id in the same transaction as its effects, and each effect checks the state it finds.
+ * A payment is found by its own checkout session id in our table, never by the metadata alone, and is
+ * applied only when the amount and currency are the ones we asked for; anything else is recorded
+ * with its problem for the front desk and changes nothing. A malformed signed event is a 400.
  */
-export async function handleStripeEvent(ctx: AppContext, event: Stripe.Event): Promise<'handled' | 'duplicate'> {
-  return ctx.db.transaction(async (manager) => {
+export async function handleStripeEvent(ctx: AppContext, raw: unknown): Promise<'handled' | 'duplicate' | 'flagged'> {
+  const parsed = eventShape.safeParse(raw)
+  if (!parsed.success) {
+    const id = typeof (raw as { id?: unknown })?.id === 'string' ? (raw as { id: string }).id.slice(0, 255) : `malformed:${randomUUID()}`
+    await ctx.db.transaction((manager) => recordProblem(manager, id, 'malformed', raw, 'The event is not shaped as Stripe sends them.'))
+    throw badRequest('That event is not shaped as Stripe sends them.', undefined, 'malformed-event')
+  }
+  const event = raw as Stripe.Event
+  return inTransaction(ctx, async (manager) => {
     const recorded: unknown[] = await manager.query(
       `INSERT INTO stripe_events (id, type, payload) VALUES ($1, $2, $3) ON CONFLICT (id) DO NOTHING RETURNING id`,
       [event.id, event.type, JSON.stringify(event)],
     )
     if (!recorded.length) return 'duplicate'
+    const flag = async (problem: string) => {
+      await manager.query(`UPDATE stripe_events SET problem = $2 WHERE id = $1`, [event.id, problem])
+      ctx.log.warn(`stripe event ${event.id} (${event.type}) not applied: ${problem}`)
+      return 'flagged' as const
+    }
 
     switch (event.type) {
       case 'checkout.session.completed': {
@@ -194,26 +289,39 @@ export async function handleStripeEvent(ctx: AppContext, event: Stripe.Event): P
         const payment = await manager
           .getRepository(Payment)
           .findOne({ where: { stripeSessionId: session.id }, lock: { mode: 'pessimistic_write' } })
-        const { requestId, purpose } = metadataOf(session)
-        if (!payment || !requestId || !purpose || payment.status === 'paid') break
+        if (!payment) return flag('No checkout session of ours has this id.')
+        if (payment.status === 'paid') break
+        const currency = (session.currency ?? '').toUpperCase()
+        if (session.amount_total !== payment.amountCents || currency !== payment.currency) {
+          return flag(
+            `Paid ${session.amount_total ?? '?'} ${currency || '?'} where ${payment.amountCents} ${payment.currency} was asked for.`,
+          )
+        }
+        if (session.metadata?.requestId && session.metadata.requestId !== payment.requestId) {
+          return flag('The metadata names another request than the session was opened for.')
+        }
         const paymentIntentId = typeof session.payment_intent === 'string' ? session.payment_intent : (session.payment_intent?.id ?? null)
         await manager.update(Payment, payment.id, { status: 'paid', stripePaymentIntentId: paymentIntentId })
-        payment.status = 'paid'
-        payment.stripePaymentIntentId = paymentIntentId
+        Object.assign(payment, { status: 'paid', stripePaymentIntentId: paymentIntentId })
         await manager.getRepository(LedgerEntry).save({
-          requestId,
+          requestId: payment.requestId,
           direction: 'in',
-          kind: purpose,
-          amountCents: session.amount_total ?? payment.amountCents,
-          currency: (session.currency ?? payment.currency).toUpperCase(),
+          kind: payment.purpose,
+          amountCents: payment.amountCents,
+          currency: payment.currency,
           stripeSessionId: session.id,
           stripePaymentIntentId: paymentIntentId,
           stripeRefundId: null,
           note: '',
         })
-        const rc = await loadRequest(manager, requestId, { lock: true })
-        if (purpose === 'deposit') await settleDeposit(ctx, manager, rc, payment)
-        else await settleBalance(ctx, manager, rc, payment)
+        await requestActionIn(
+          ctx,
+          manager,
+          null,
+          payment.requestId,
+          payment.purpose === 'deposit' ? 'deposit-paid' : 'balance-paid',
+          (step) => settlePayment(step, payment),
+        )
         break
       }
       case 'checkout.session.expired': {
@@ -222,8 +330,10 @@ export async function handleStripeEvent(ctx: AppContext, event: Stripe.Event): P
       }
       case 'payment_intent.payment_failed': {
         const intent = event.data.object
-        const { requestId, purpose } = metadataOf(intent)
-        if (!requestId || !purpose) break
+        const requestId = intent.metadata?.requestId
+        const purpose = intent.metadata?.purpose
+        if (!requestId || !isUuid(requestId) || (purpose !== 'deposit' && purpose !== 'balance')) break
+        // Only a failure message is written, and only on our own open page for that request.
         await manager
           .getRepository(Payment)
           .update(
@@ -241,7 +351,7 @@ export async function handleStripeEvent(ctx: AppContext, event: Stripe.Event): P
         const payment = intentId ? await manager.getRepository(Payment).findOne({ where: { stripePaymentIntentId: intentId } }) : null
         if (!payment) break
         // A refund made outside Conewright (in Stripe's dashboard, say) is booked here; ours already are.
-        const refunds = charge.refunds?.data ?? []
+        const refunds = (charge.refunds?.data ?? []).filter((r) => typeof r?.id === 'string' && Number.isInteger(r.amount) && r.amount > 0)
         const known = await manager.getRepository(LedgerEntry).find({ where: { stripeRefundId: In(refunds.map((r) => r.id)) } })
         for (const refund of refunds.filter((r) => !known.some((k) => k.stripeRefundId === r.id))) {
           await manager.getRepository(LedgerEntry).save({
@@ -249,7 +359,7 @@ export async function handleStripeEvent(ctx: AppContext, event: Stripe.Event): P
             direction: 'out',
             kind: 'refund',
             amountCents: refund.amount,
-            currency: refund.currency.toUpperCase(),
+            currency: payment.currency,
             stripeRefundId: refund.id,
             stripePaymentIntentId: intentId!,
             stripeSessionId: null,
@@ -265,19 +375,40 @@ export async function handleStripeEvent(ctx: AppContext, event: Stripe.Event): P
   })
 }
 
-/** A paid deposit confirms the space, or, when it came after the request ended, goes straight back. */
-async function settleDeposit(ctx: AppContext, manager: EntityManager, rc: RequestContext, payment: Payment) {
-  if (rc.request.state === 'accepted') {
-    await moveRequest(manager, rc.request, 'deposit_paid', null, 'Deposit paid through Stripe', { sessionId: payment.stripeSessionId })
-    const facts = factsOf(rc, ctx.config.publicUrl)
-    await queueMail(manager, rc.potter.email, 'deposit-received', depositReceivedMail(facts, 'potter', payment.amountCents))
-    for (const person of await studioPeople(manager, rc.studio.id)) {
-      await queueMail(manager, person.email, 'deposit-received', depositReceivedMail(facts, 'studio', payment.amountCents))
+/**
+ * A paid deposit books the space (or, when it came after the request ended, goes straight back); a
+ * paid balance is receipted. Either way both sides are told.
+ */
+async function settlePayment(step: ActionStep, payment: Payment) {
+  const { manager, rc, ctx } = step
+  const facts = factsOf(rc, ctx.config.publicUrl)
+  const { net } = await moneyOf(manager, rc.request.id)
+  if (payment.purpose === 'deposit') {
+    if (rc.request.state !== 'accepted') {
+      await step.note(`A deposit of ${payment.amountCents} cents arrived after the request was ${rc.request.state}; it is refunded`)
+      await enqueueRefund(manager, rc.request.id, payment.amountCents, `Deposit arrived after the request was ${rc.request.state}`)
+      return
     }
+    const owed = Math.max(0, (rc.request.depositAskedCents ?? 0) - net)
+    const receipt = { what: 'deposit' as const, how: 'online' as const, amountCents: payment.amountCents, paidCents: net, owedCents: owed }
+    if (owed === 0) await step.move('deposit_paid', 'Deposit paid through Stripe', { sessionId: payment.stripeSessionId })
+    else await step.note('Part of the deposit paid through Stripe', { sessionId: payment.stripeSessionId })
+    await step.tellPotter('payment-received', paymentReceivedMail(facts, 'potter', receipt))
+    await step.tellStudio('payment-received', paymentReceivedMail(facts, 'studio', receipt))
     await enqueueStudioSync(manager, rc.studio.id)
-  } else {
-    await enqueueRefund(manager, rc.request.id, payment.amountCents, `Deposit arrived after the request was ${rc.request.state}`)
+    return
   }
+  const total = (rc.request.standingQuote ?? rc.request.quote)?.totalCents ?? 0
+  const receipt = {
+    what: 'balance' as const,
+    how: 'online' as const,
+    amountCents: payment.amountCents,
+    paidCents: net,
+    owedCents: Math.max(0, total - net),
+  }
+  await step.note('Balance paid through Stripe', { sessionId: payment.stripeSessionId })
+  await step.tellPotter('payment-received', paymentReceivedMail(facts, 'potter', receipt))
+  await step.tellStudio('payment-received', paymentReceivedMail(facts, 'studio', receipt))
 }
 
 export async function openPaymentsOf(manager: EntityManager, requestId: string) {

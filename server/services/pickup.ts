@@ -1,81 +1,51 @@
-// From drop-off to pickup: check-in (or refusal at the door), the firing's progress and log, results,
-// ready, the balance, collection.
+// From drop-off to pickup: check-in (or refusal at the door), a price raised by the measured ware
+// and the potter's answer, results, ready, the balance, collection. Every action goes through the
+// one door (request-door.ts).
 import type { EntityManager } from 'typeorm'
-import { In } from 'typeorm'
-import { enqueueStudioSync } from './search-sync'
 import { mmToIn } from '../../shared/firing/units'
-import type { FiringStatus } from '../../shared/workflow/firing-status'
+import { refundUnderTerms } from '../../shared/refunds'
 import type { AppContext } from '../context'
 import { CheckIn, type ReceivedPiece } from '../entities/CheckIn'
-import type { Firing } from '../entities/Firing'
 import { FiringRequest } from '../entities/FiringRequest'
 import { LedgerEntry } from '../entities/LedgerEntry'
-import { RequestEvent } from '../entities/RequestEvent'
 import { RequestResult, type PieceOutcome } from '../entities/RequestResult'
 import type { User } from '../entities/User'
-import { conflict, forbidden, HttpError } from '../http/errors'
-import { dropOffMail, firingProgressMail, noShowMail, pickupMail, readyMail, refusedMail } from '../mail/templates/pickup'
+import { HttpError } from '../http/errors'
+import {
+  dropOffMail,
+  paymentReceivedMail,
+  pickupMail,
+  priceAnsweredMail,
+  priceDeclinedPotterMail,
+  readyMail,
+  refusedMail,
+} from '../mail/templates/pickup'
 import { firingLogJson } from './firing-log'
-import { queueMail } from './mail'
-import { enqueueRefund, moneyOf, openCheckout } from './payments'
-import { refundUnderTerms } from '../../shared/refunds'
-import { factsOf, loadRequest, moveRequest, stateConflict, viewerOf, type RequestContext } from './request-context'
-import { checkAgainstFiring } from './requests'
-import type { Payment } from '../entities/Payment'
-
-async function studioSide(manager: EntityManager, rc: RequestContext, user: User) {
-  const viewer = await viewerOf(manager, rc, user)
-  if (viewer.side === 'potter') throw forbidden('Only the studio’s people do that.', 'not-the-studio')
-  return viewer
-}
-
-/** The price that stands: the check-in quote once the potter confirmed it (or when it went down). */
-export async function standingQuote(manager: EntityManager, rc: RequestContext) {
-  return quoteThatStands(rc.request, await manager.getRepository(CheckIn).findOne({ where: { requestId: rc.request.id } }))
-}
-
-function quoteThatStands(request: FiringRequest, checkIn: CheckIn | null) {
-  return checkIn?.quoteAfter && checkIn.priceConfirmedAt ? checkIn.quoteAfter : request.quote
-}
-
-/** What the potter still owes: the standing total less what came in, plus what went back out. */
-export async function owedCents(manager: EntityManager, rc: RequestContext) {
-  const quote = await standingQuote(manager, rc)
-  const { net } = await moneyOf(manager, rc.request.id)
-  return Math.max(0, (quote?.totalCents ?? 0) - net)
-}
+import { enqueueExpireCheckouts, enqueueRefund, moneyOf } from './payments'
+import { factsOf, type RequestContext } from './request-context'
+import { requestAction } from './request-door'
+import { checkAgainstFiring, recordCounterRefundDue } from './requests'
+import { enqueueStudioSync } from './search-sync'
 
 const describeSize = (m: { heightMm: number; widthMm: number; depthMm: number }) =>
   `${mmToIn(m.heightMm).toFixed(1)} × ${mmToIn(m.widthMm).toFixed(1)} × ${mmToIn(m.depthMm).toFixed(1)} in`
 
+export interface CheckInBody {
+  pieces: { pieceIndex: number; received: number; measured?: { heightMm: number; widthMm: number; depthMm: number } }[]
+  conditionNotes?: string
+  refuse?: { reason: string }
+}
+
 /**
  * Checks the ware in against the request: pieces received (count; measured size where it differs),
  * the condition they came in, or a refusal at the door. Measured changes re-run the ware check and
- * the quote; a higher price waits for the potter's confirmation.
+ * the quote; a lower price stands at once, a higher one waits for the potter to confirm or turn down.
  */
-export async function checkIn(
-  ctx: AppContext,
-  actor: User,
-  id: string,
-  body: {
-    pieces: { pieceIndex: number; received: number; measured?: { heightMm: number; widthMm: number; depthMm: number } }[]
-    conditionNotes?: string
-    refuse?: { reason: string }
-  },
-) {
-  return ctx.db.transaction(async (manager) => {
-    const rc = await loadRequest(manager, id, { lock: true })
-    await studioSide(manager, rc, actor)
-    if (rc.request.state === 'accepted') {
-      throw conflict(
-        'The deposit is not paid yet. Record it at the counter first, or ask the potter to pay it on the request.',
-        'deposit-unpaid',
-        { state: 'accepted' },
-      )
-    }
-    if (rc.request.state !== 'deposit_paid')
-      throw stateConflict(rc.request, `This request is ${rc.request.state.replace('_', ' ')}; only booked ware is checked in.`)
+export async function checkIn(ctx: AppContext, actor: User, id: string, body: CheckInBody) {
+  return requestAction(ctx, actor, id, 'check-in', async (step) => {
+    const { manager, rc } = step
     const facts = factsOf(rc, ctx.config.publicUrl)
+    const asked = rc.request.standingQuote ?? rc.request.quote
     if (body.refuse) {
       const { net } = await moneyOf(manager, id)
       const refund = refundUnderTerms(net, rc.firing.firingDate, rc.studio.policies.cancellation).refundCents
@@ -85,17 +55,15 @@ export async function checkIn(
         conditionNotes: body.conditionNotes ?? '',
         refused: true,
         refusedReason: body.refuse.reason,
-        quoteBefore: rc.request.quote,
+        quoteBefore: asked,
         quoteAfter: null,
         priceConfirmedAt: null,
         checkedInBy: actor.id,
       })
-      await moveRequest(manager, rc.request, 'cancelled', actor.id, `Refused at drop-off: ${body.refuse.reason}`, {
-        by: 'refused-at-door',
-        refundCents: refund,
-      })
+      await step.move('cancelled', `Refused at drop-off: ${body.refuse.reason}`, { by: 'refused-at-door', refundCents: refund })
       await enqueueRefund(manager, id, refund, 'Ware refused at drop-off; refunded under the studio’s terms')
-      await queueMail(manager, rc.potter.email, 'ware-refused', refusedMail(facts, body.refuse.reason, refund))
+      await recordCounterRefundDue(step, refund)
+      await step.tellPotter('ware-refused', refusedMail(facts, body.refuse.reason, refund))
       await enqueueStudioSync(manager, rc.studio.id)
       return { refused: true as const, findings: [] }
     }
@@ -114,38 +82,34 @@ export async function checkIn(
       .map((piece, i) => ({ ...piece, quantity: received[i].received, ...(received[i].measured ?? {}) }))
       .filter((piece) => piece.quantity > 0)
     const { check, quote } = await checkAgainstFiring(manager, rc.firing, actual, { own: rc.request })
-    const before = rc.request.quote?.totalCents ?? 0
+    const before = asked?.totalCents ?? 0
     const after = quote?.totalCents ?? before
-    const needsConfirmation = after > before
+    const raised = after > before
     await manager.getRepository(CheckIn).save({
       requestId: id,
       receivedPieces: received,
       conditionNotes: body.conditionNotes ?? '',
       refused: false,
       refusedReason: null,
-      quoteBefore: rc.request.quote,
+      quoteBefore: asked,
       quoteAfter: quote,
       // A lower price needs nobody's agreement.
-      priceConfirmedAt: needsConfirmation ? null : new Date(),
+      priceConfirmedAt: raised ? null : new Date(),
       checkedInBy: actor.id,
     })
-    await moveRequest(
-      manager,
-      rc.request,
-      'received',
-      actor.id,
-      body.conditionNotes ? `Checked in. Condition: ${body.conditionNotes}` : 'Checked in',
-      {
-        received: received.map((r) => r.received),
-        priceBeforeCents: before,
-        priceAfterCents: after,
-      },
-    )
-    await queueMail(
-      manager,
-      rc.potter.email,
-      'drop-off',
-      dropOffMail(facts, {
+    if (quote && after !== before) {
+      const change = raised ? { pendingQuote: quote } : { standingQuote: quote }
+      Object.assign(rc.request, change)
+      await manager.update(FiringRequest, id, change)
+    }
+    await step.move('received', body.conditionNotes ? `Checked in. Condition: ${body.conditionNotes}` : 'Checked in', {
+      received: received.map((r) => r.received),
+      priceBeforeCents: before,
+      priceAfterCents: after,
+    })
+    await step.tellPotter(
+      raised ? 'price-raised' : 'drop-off',
+      dropOffMail(factsOf(rc, ctx.config.publicUrl), {
         rows: received.map((r, i) => ({
           label: declared[i].label || `Piece ${i + 1}`,
           declared: r.declared,
@@ -155,7 +119,7 @@ export async function checkIn(
         conditionNotes: body.conditionNotes ?? '',
         quoteBeforeCents: before,
         quoteAfterCents: after,
-        needsConfirmation,
+        needsConfirmation: raised,
       }),
     )
     return {
@@ -164,77 +128,50 @@ export async function checkIn(
       verdict: check.verdict,
       priceBeforeCents: before,
       priceAfterCents: after,
-      needsConfirmation,
+      needsConfirmation: raised,
     }
   })
 }
 
-/** The potter agrees to the price the measured ware gives. */
+/** The potter agrees to the price the measured ware gives; it becomes the price that stands. */
 export async function confirmPrice(ctx: AppContext, potter: User, id: string) {
-  return ctx.db.transaction(async (manager) => {
-    const rc = await loadRequest(manager, id, { lock: true })
-    const viewer = await viewerOf(manager, rc, potter)
-    if (viewer.side !== 'potter') throw forbidden('Only the potter confirms a changed price.')
-    const checkInRow = await manager.getRepository(CheckIn).findOne({ where: { requestId: id } })
-    if (!checkInRow || checkInRow.priceConfirmedAt) throw conflict('No changed price waits for your confirmation.', 'nothing-to-confirm')
+  return requestAction(ctx, potter, id, 'confirm-price', async (step) => {
+    const { manager, rc } = step
+    const pending = rc.request.pendingQuote!
+    rc.request.standingQuote = pending
+    rc.request.pendingQuote = null
+    await manager.update(FiringRequest, id, { standingQuote: pending, pendingQuote: null })
     await manager.update(CheckIn, id, { priceConfirmedAt: new Date() })
-    await manager.getRepository(RequestEvent).save({
-      requestId: id,
-      actorId: potter.id,
-      fromState: rc.request.state,
-      toState: rc.request.state,
-      reason: 'New price confirmed',
-      data: { totalCents: checkInRow.quoteAfter?.totalCents },
-    })
+    await step.note('New price confirmed', { totalCents: pending.totalCents })
+    await step.tellStudio('price-confirmed', priceAnsweredMail(factsOf(rc, ctx.config.publicUrl), 'confirmed', 0))
   })
-}
-
-const STAGE_NOTE: Partial<Record<FiringStatus, string>> = {
-  loading: 'Loaded into the kiln',
-  firing: 'The firing started',
-  cooling: 'The kiln is cooling',
 }
 
 /**
- * A firing moving through loading, firing, cooling and unloaded moves every request in it along:
- * each gets the step on its timeline; ware never dropped off lapses when loading starts; unloading
- * marks the ware fired.
+ * The potter turns the measured price down: the request is withdrawn, the ware stays out of the load
+ * for them to collect, and everything paid goes back in full (the price changed, not their mind).
  */
-export async function onFiringStatus(ctx: AppContext, manager: EntityManager, firing: Firing, to: FiringStatus, actorId: string) {
-  if (!['loading', 'firing', 'cooling', 'unloaded'].includes(to)) return
-  const requests = await manager
-    .getRepository(FiringRequest)
-    .find({ where: { firingId: firing.id, state: In(['accepted', 'deposit_paid', 'received']) }, lock: { mode: 'pessimistic_write' } })
-  for (const request of requests) {
-    const rc = await loadRequest(manager, request.id)
+export async function declinePrice(ctx: AppContext, potter: User, id: string) {
+  return requestAction(ctx, potter, id, 'decline-price', async (step) => {
+    const { manager, rc } = step
+    const { net } = await moneyOf(manager, id)
+    const declined = rc.request.pendingQuote!
+    rc.request.pendingQuote = null
+    await manager.update(FiringRequest, id, { pendingQuote: null })
+    await step.move('withdrawn', 'The potter turned down the price from the measured ware', {
+      by: 'price-declined',
+      declinedTotalCents: declined.totalCents,
+      refundCents: net,
+    })
+    await enqueueRefund(manager, id, net, 'The potter turned down the price from the measured ware: refunded in full')
+    await recordCounterRefundDue(step, net)
+    await enqueueExpireCheckouts(manager, id)
     const facts = factsOf(rc, ctx.config.publicUrl)
-    if (request.state !== 'received') {
-      if (to !== 'loading') continue
-      const { net } = await moneyOf(manager, request.id)
-      const refund = refundUnderTerms(net, firing.firingDate, rc.studio.policies.cancellation).refundCents
-      await moveRequest(manager, request, 'cancelled', null, 'The ware was not dropped off before loading', {
-        by: 'no-show',
-        refundCents: refund,
-      })
-      await enqueueRefund(manager, request.id, refund, 'No-show: refunded under the studio’s terms')
-      await queueMail(manager, rc.potter.email, 'no-show', noShowMail(facts, refund))
-      continue
-    }
-    if (to === 'unloaded') {
-      await moveRequest(manager, request, 'fired', actorId, 'The kiln was unloaded')
-      await queueMail(manager, rc.potter.email, 'firing-progress', firingProgressMail(facts, 'unloaded'))
-    } else {
-      await manager.getRepository(RequestEvent).save({
-        requestId: request.id,
-        actorId,
-        fromState: 'received',
-        toState: 'received',
-        reason: STAGE_NOTE[to]!,
-        data: { firingStatus: to },
-      })
-      if (to === 'firing') await queueMail(manager, rc.potter.email, 'firing-progress', firingProgressMail(facts, 'firing'))
-    }
-  }
+    await step.tellStudio('price-declined', priceAnsweredMail(facts, 'declined', net))
+    await step.tellPotter('price-declined', priceDeclinedPotterMail(facts, net))
+    await enqueueStudioSync(manager, rc.studio.id)
+    return { refundCents: net }
+  })
 }
 
 export async function postResults(
@@ -243,11 +180,8 @@ export async function postResults(
   id: string,
   body: { outcomes: { pieceIndex: number; outcome: PieceOutcome; notes?: string }[]; notes?: string },
 ) {
-  return ctx.db.transaction(async (manager) => {
-    const rc = await loadRequest(manager, id, { lock: true })
-    await studioSide(manager, rc, actor)
-    if (!['fired', 'ready'].includes(rc.request.state))
-      throw conflict('Results are posted once the kiln is unloaded.', 'not-fired', { state: rc.request.state })
+  return requestAction(ctx, actor, id, 'results', async (step) => {
+    const { manager, rc } = step
     const bad = body.outcomes.find((o) => o.pieceIndex >= rc.request.pieces.length)
     if (bad)
       throw new HttpError(400, 'invalid-input', 'A result names a piece the request does not have.', {
@@ -259,110 +193,103 @@ export async function postResults(
       notes: body.notes ?? '',
       postedBy: actor.id,
     })
-    await manager.getRepository(RequestEvent).save({
-      requestId: id,
-      actorId: actor.id,
-      fromState: rc.request.state,
-      toState: rc.request.state,
-      reason: 'Results posted',
-      data: {},
-    })
+    await step.note('Results posted')
   })
 }
 
 export async function markReady(ctx: AppContext, actor: User, id: string) {
-  return ctx.db.transaction(async (manager) => {
-    const rc = await loadRequest(manager, id, { lock: true })
-    await studioSide(manager, rc, actor)
-    if (rc.request.state === 'fired' && !(await manager.getRepository(RequestResult).exists({ where: { requestId: id } }))) {
-      throw conflict('Post the results first: the potter hears about them with the ready mail.', 'results-missing')
-    }
-    await moveRequest(manager, rc.request, 'ready', actor.id, 'Ready for pickup')
-    await queueMail(
-      manager,
-      rc.potter.email,
+  return requestAction(ctx, actor, id, 'ready', async (step) => {
+    await step.move('ready', 'Ready for pickup')
+    await step.tellPotter(
       'ready',
-      readyMail(factsOf(rc, ctx.config.publicUrl), rc.studio.dropOffHours, await owedCents(manager, rc)),
+      readyMail(factsOf(step.rc, ctx.config.publicUrl), step.rc.studio.dropOffHours, step.facts.balanceOwedCents),
     )
   })
 }
 
-/** The potter's checkout page for what is still owed. */
-export async function openBalance(ctx: AppContext, potter: User, id: string) {
-  const rc = await loadRequest(ctx.db.manager, id)
-  const viewer = await viewerOf(ctx.db.manager, rc, potter)
-  if (viewer.side === 'studio') throw forbidden('The potter pays the balance; record a payment at the counter instead.')
-  if (rc.request.state !== 'ready') throw conflict('The balance is paid once the ware is ready.', 'not-ready', { state: rc.request.state })
-  const owed = await owedCents(ctx.db.manager, rc)
-  if (owed <= 0) throw conflict('Nothing is owed.', 'nothing-owed')
-  return openCheckout(ctx, id, 'balance', owed)
-}
-
-/** Money taken at the studio's counter: the deposit (which books the space) or the balance. */
+/**
+ * Money taken at the studio's counter: toward the deposit (which books the space once it is all
+ * paid) or the balance. Never more than is owed; the potter gets a receipt, the studio a notice.
+ */
 export async function counterPayment(ctx: AppContext, actor: User, id: string, body: { amountCents?: number; note?: string }) {
-  return ctx.db.transaction(async (manager) => {
-    const rc = await loadRequest(manager, id, { lock: true })
-    await studioSide(manager, rc, actor)
-    const { depositPaid } = await moneyOf(manager, id)
-    const owed =
-      rc.request.state === 'accepted'
-        ? Math.max(0, (rc.request.quote?.depositCents ?? 0) - depositPaid)
-        : rc.request.state === 'ready'
-          ? await owedCents(manager, rc)
-          : 0
-    if (owed <= 0) throw conflict('Nothing is owed at this point.', 'nothing-owed', { state: rc.request.state })
+  return requestAction(ctx, actor, id, 'counter-payment', async (step) => {
+    const { manager, rc, facts } = step
+    const deposit = rc.request.state === 'accepted'
+    const owed = deposit ? facts.depositOwedCents : facts.balanceOwedCents
     const amount = body.amountCents ?? owed
-    if (amount > owed)
-      throw new HttpError(400, 'invalid-input', 'That is more than is owed.', { amountCents: `At most ${owed} cents are owed.` })
+    if (amount > owed) {
+      throw new HttpError(400, 'invalid-input', `That is more than is owed: ${owed} cents ${deposit ? 'toward the deposit' : 'in all'}.`, {
+        amountCents: `At most ${owed} cents are owed.`,
+      })
+    }
+    const currency = (rc.request.standingQuote ?? rc.request.quote)?.currency ?? rc.studio.currency
     await manager.getRepository(LedgerEntry).save({
       requestId: id,
       direction: 'in',
       kind: 'counter',
       amountCents: amount,
-      currency: rc.request.quote?.currency ?? rc.studio.currency,
+      currency,
       stripeSessionId: null,
       stripePaymentIntentId: null,
       stripeRefundId: null,
-      note: body.note ?? (rc.request.state === 'accepted' ? 'Deposit paid at the counter' : 'Balance paid at the counter'),
+      note: body.note ?? (deposit ? 'Deposit paid at the counter' : 'Balance paid at the counter'),
     })
-    if (rc.request.state === 'accepted' && amount >= owed)
-      await moveRequest(manager, rc.request, 'deposit_paid', actor.id, 'Deposit paid at the counter')
-    return { owedCents: owed - amount }
+    const left = owed - amount
+    if (deposit && left === 0) {
+      await step.move('deposit_paid', 'Deposit paid at the counter', { amountCents: amount })
+      await enqueueExpireCheckouts(manager, id)
+      await enqueueStudioSync(manager, rc.studio.id)
+    } else await step.note(`${amount} cents paid at the counter`, { amountCents: amount, owedCents: left })
+    const { net } = await moneyOf(manager, id)
+    const receipt = {
+      what: deposit ? ('deposit' as const) : ('balance' as const),
+      how: 'counter' as const,
+      amountCents: amount,
+      paidCents: net,
+      owedCents: left,
+    }
+    const mailFacts = factsOf(rc, ctx.config.publicUrl)
+    await step.tellPotter('payment-received', paymentReceivedMail(mailFacts, 'potter', receipt))
+    await step.tellStudio('payment-received', paymentReceivedMail(mailFacts, 'studio', receipt))
+    return { owedCents: left }
   })
 }
 
-/** A paid balance checkout, from the webhook: booked by the payments service; nothing else moves. */
-export async function settleBalance(_ctx: AppContext, manager: EntityManager, rc: RequestContext, payment: Payment) {
-  await manager.getRepository(RequestEvent).save({
-    requestId: rc.request.id,
-    actorId: null,
-    fromState: rc.request.state,
-    toState: rc.request.state,
-    reason: 'Balance paid through Stripe',
-    data: { sessionId: payment.stripeSessionId },
+/** The studio hands back money owed from the counter and marks it so. */
+export async function markCounterRefundPaid(ctx: AppContext, actor: User, id: string, refundId: string) {
+  return requestAction(ctx, actor, id, 'hand-back', async (step) => {
+    const { manager } = step
+    const { counterRefunds } = await moneyOf(manager, id)
+    const due = counterRefunds.find((r) => r.id === refundId && !r.paidAt)
+    if (!due) throw new HttpError(404, 'not-found', 'That counter refund was not found, or is already marked paid.')
+    await manager.query(`UPDATE counter_refunds SET paid_at = now(), paid_by = $2 WHERE id = $1`, [due.id, actor.id])
+    await manager.getRepository(LedgerEntry).save({
+      requestId: id,
+      direction: 'out',
+      kind: 'counter-refund',
+      amountCents: due.amountCents,
+      currency: due.currency,
+      stripeSessionId: null,
+      stripePaymentIntentId: null,
+      stripeRefundId: null,
+      note: 'Handed back at the counter',
+    })
+    await step.note(`${due.amountCents} cents handed back at the counter`, { amountCents: due.amountCents })
   })
 }
 
 export async function markCollected(ctx: AppContext, actor: User, id: string) {
-  return ctx.db.transaction(async (manager) => {
-    const rc = await loadRequest(manager, id, { lock: true })
-    await studioSide(manager, rc, actor)
-    const owed = await owedCents(manager, rc)
-    if (rc.request.state === 'ready' && owed > 0)
-      throw conflict(
-        `${(owed / 100).toFixed(2)} is still owed. Take it at the counter or let the potter pay online first.`,
-        'balance-owed',
-        { owedCents: owed },
-      )
-    await moveRequest(manager, rc.request, 'collected', actor.id, 'Collected by the potter')
-    const quote = await standingQuote(manager, rc)
+  return requestAction(ctx, actor, id, 'collected', async (step) => {
+    const { manager, rc } = step
+    await step.move('collected', 'Collected by the potter')
+    const quote = rc.request.standingQuote ?? rc.request.quote
     const { paidIn, refunded } = await moneyOf(manager, id)
-    await queueMail(manager, rc.potter.email, 'pickup', pickupMail(factsOf(rc, ctx.config.publicUrl), quote?.lines ?? [], paidIn, refunded))
+    await step.tellPotter('pickup', pickupMail(factsOf(rc, ctx.config.publicUrl), quote?.lines ?? [], paidIn, refunded))
   })
 }
 
-/** The drop-off-to-pickup side of a request's view; `netPaidCents` is what the caller's ledger read gave. */
-export async function pickupJson(manager: EntityManager, rc: RequestContext, netPaidCents: number) {
+/** The drop-off-to-pickup side of a request's view. */
+export async function pickupJson(manager: EntityManager, rc: RequestContext) {
   const checkInRow = await manager.getRepository(CheckIn).findOne({ where: { requestId: rc.request.id } })
   const result = await manager.getRepository(RequestResult).findOne({ where: { requestId: rc.request.id } })
   return {
@@ -380,6 +307,5 @@ export async function pickupJson(manager: EntityManager, rc: RequestContext, net
       : null,
     results: result ? { outcomes: result.outcomes, notes: result.notes, at: result.updatedAt.toISOString() } : null,
     firingLog: await firingLogJson(manager, rc.firing.id),
-    owedCents: Math.max(0, (quoteThatStands(rc.request, checkInRow)?.totalCents ?? 0) - netPaidCents),
   }
 }

@@ -91,8 +91,9 @@ export function factsOf(rc: RequestContext, publicUrl: string): RequestFacts {
     dropOffBy: rc.firing.dropOffBy,
     timezone: rc.studio.timezone,
     pieceCount: rc.request.pieces.reduce((n, p) => n + p.quantity, 0),
-    currency: rc.request.quote?.currency ?? rc.studio.currency,
-    totalCents: rc.request.quote?.totalCents ?? 0,
-    depositCents: rc.request.quote?.depositCents ?? 0,
+    currency: (rc.request.standingQuote ?? rc.request.quote)?.currency ?? rc.studio.currency,
+    // The price that stands and the deposit as asked: the same figures on every screen and in every mail.
+    totalCents: (rc.request.standingQuote ?? rc.request.quote)?.totalCents ?? 0,
+    depositCents: rc.request.depositAskedCents ?? rc.request.quote?.depositCents ?? 0,
   }
 }

@@ -1,64 +1,64 @@
-import type { EntityManager } from 'typeorm'
+// Requests as the API answers them: the whole view of one request for a person with standing on it,
+// and list rows. What each reader may do comes from the one policy table (shared/workflow/policy.ts).
+import { In, type EntityManager } from 'typeorm'
+import type { PriceJson, RequestRow, RequestView } from '../../shared/api/requests'
+import { minimumOnlineCharge } from '../../shared/payments'
+import { allowedActions, type RequestFacts } from '../../shared/workflow/policy'
 import { holdsSpace, nextRequestStates, type RequestState } from '../../shared/workflow/request-states'
 import { Firing } from '../entities/Firing'
 import { FiringRequest } from '../entities/FiringRequest'
 import { RequestEvent } from '../entities/RequestEvent'
 import { StudioMember } from '../entities/StudioMember'
 import { User } from '../entities/User'
-import { firingJson, heldLitres } from './firings'
+import { firingsJson } from './firings'
 import { kilnJson } from './kilns'
 import { moneyOf, openPaymentsOf } from './payments'
-import { loadRequest, viewerOf, type RequestContext, type Viewer } from './request-context'
-import { potterRecord } from './requests'
 import { requestPhotos } from './photos'
 import { pickupJson } from './pickup'
 import { ratingsOfRequest } from './ratings'
+import { loadRequest, viewerOf, type RequestContext, type Viewer } from './request-context'
+import { requestFacts } from './request-door'
+import { potterRecord } from './requests'
 
-/** What each side may do next with a request, for the page to offer (the server still checks). */
-function actionsFor(rc: RequestContext, viewer: Viewer, pickup: Awaited<ReturnType<typeof pickupJson>>): string[] {
-  const state = rc.request.state
-  const studio = viewer.side !== 'potter'
-  const potter = viewer.side === 'potter' || viewer.side === 'admin'
-  const actions: string[] = ['message']
-  if (potter && state === 'draft') actions.push('edit', 'send')
-  if (potter && ['sent', 'accepted', 'deposit_paid'].includes(state)) actions.push('withdraw')
-  if (potter && state === 'accepted' && rc.request.depositDueAt) actions.push('pay-deposit')
-  if (potter && state === 'sent' && rc.request.proposedFiringId) actions.push('answer-move')
-  if (studio && state === 'sent') actions.push('accept', 'decline', 'move')
-  if (studio && ['accepted', 'deposit_paid'].includes(state)) actions.push('cancel')
-  if (studio && state === 'deposit_paid') actions.push('check-in')
-  if (studio && (state === 'accepted' || (state === 'ready' && pickup.owedCents > 0))) actions.push('counter-payment')
-  if (studio && ['fired', 'ready'].includes(state)) actions.push('results')
-  if (studio && state === 'fired') actions.push('ready')
-  if (studio && state === 'ready' && pickup.owedCents === 0) actions.push('collected')
-  if (potter && state === 'received' && pickup.checkIn && !pickup.checkIn.priceConfirmedAt) actions.push('confirm-price')
-  if (potter && state === 'ready' && pickup.owedCents > 0) actions.push('pay-balance')
-  if (['collected', 'disputed'].includes(state) && viewer.side !== 'admin') actions.push('rate')
-  if (studio && ['collected', 'disputed'].includes(state)) actions.push('reply')
-  if (viewer.side !== 'admin' && ['fired', 'ready', 'collected'].includes(state)) actions.push('dispute')
-  return actions
+function priceJson(rc: RequestContext, facts: RequestFacts, money: Awaited<ReturnType<typeof moneyOf>>): PriceJson {
+  const standing = rc.request.standingQuote ?? rc.request.quote
+  const currency = standing?.currency ?? rc.studio.currency
+  return {
+    currency,
+    asked: rc.request.quote,
+    standing,
+    pending: rc.request.pendingQuote,
+    totalCents: standing?.totalCents ?? 0,
+    depositCents: rc.request.depositAskedCents ?? standing?.depositCents ?? 0,
+    depositAsked: rc.request.depositAskedCents !== null,
+    paidInCents: money.paidIn,
+    refundedCents: money.refunded,
+    netPaidCents: money.net,
+    depositOwedCents: facts.depositOwedCents,
+    balanceOwedCents: holdsSpace(rc.request.state) ? facts.balanceOwedCents : 0,
+    counterRefundDueCents: money.counterRefundDue,
+    minimumOnlineCents: minimumOnlineCharge(currency),
+  }
 }
 
-export async function requestJson(manager: EntityManager, rc: RequestContext, viewer: Viewer) {
+export async function requestJson(manager: EntityManager, rc: RequestContext, viewer: Viewer): Promise<RequestView> {
   const events = await manager.getRepository(RequestEvent).find({ where: { requestId: rc.request.id }, order: { at: 'ASC' } })
+  const actorIds = [...new Set(events.map((e) => e.actorId).filter((id): id is string => Boolean(id)))]
   const actors = new Map(
-    (await manager.getRepository(User).findByIds([...new Set(events.map((e) => e.actorId).filter(Boolean))] as string[])).map((u) => [
-      u.id,
-      u.displayName,
-    ]),
+    (actorIds.length ? await manager.getRepository(User).findBy({ id: In(actorIds) }) : []).map((u) => [u.id, u.displayName]),
   )
   const money = await moneyOf(manager, rc.request.id)
+  const facts = await requestFacts(manager, rc)
   const payments = await openPaymentsOf(manager, rc.request.id)
-  const held = (await heldLitres(manager, [rc.firing.id])).get(rc.firing.id) ?? 0
-  const pickup = await pickupJson(manager, rc, money.net)
   const proposed = rc.request.proposedFiringId ? await manager.getRepository(Firing).findOneBy({ id: rc.request.proposedFiringId }) : null
+  const [firing, proposedFiring] = await firingsJson(manager, proposed ? [rc.firing, proposed] : [rc.firing], rc.studio.id)
   // The street address goes to a potter only once the studio has agreed to take the ware.
   const showAddress = viewer.side !== 'potter' || holdsSpace(rc.request.state)
   return {
     id: rc.request.id,
     state: rc.request.state,
     nextStates: nextRequestStates(rc.request.state),
-    actions: actionsFor(rc, viewer, pickup),
+    actions: allowedActions(facts, viewer.side),
     viewer: viewer.side,
     pieces: rc.request.pieces,
     notes: rc.request.notes,
@@ -66,13 +66,14 @@ export async function requestJson(manager: EntityManager, rc: RequestContext, vi
     verdict: rc.request.verdict,
     findings: rc.request.findings,
     acknowledgedWarnings: rc.request.acknowledgedWarnings,
-    quote: rc.request.quote,
+    quote: rc.request.standingQuote ?? rc.request.quote,
+    price: priceJson(rc, facts, money),
     policiesVersion: rc.request.policiesVersion,
     depositDueAt: rc.request.depositDueAt?.toISOString() ?? null,
     sentAt: rc.request.sentAt?.toISOString() ?? null,
     createdAt: rc.request.createdAt.toISOString(),
-    firing: firingJson(rc.firing, rc.studio.id, held),
-    proposedFiring: proposed ? firingJson(proposed, rc.studio.id, (await heldLitres(manager, [proposed.id])).get(proposed.id) ?? 0) : null,
+    firing,
+    proposedFiring: proposedFiring ?? null,
     kiln: kilnJson(rc.kiln),
     studio: {
       id: rc.studio.id,
@@ -108,8 +109,14 @@ export async function requestJson(manager: EntityManager, rc: RequestContext, vi
       stripeRefundId: e.stripeRefundId,
       note: e.note,
     })),
-    paid: { inCents: money.paidIn, refundedCents: money.refunded, depositCents: money.depositPaid },
-    ...pickup,
+    counterRefunds: money.counterRefunds.map((r) => ({
+      id: r.id,
+      amountCents: r.amountCents,
+      currency: r.currency,
+      reason: r.reason,
+      paidAt: r.paidAt?.toISOString() ?? null,
+    })),
+    ...(await pickupJson(manager, rc)),
     photos: await requestPhotos(manager, rc.request.id),
     ratings: await ratingsOfRequest(manager, rc.request.id),
     payments: payments.map((p) => ({
@@ -124,24 +131,41 @@ export async function requestJson(manager: EntityManager, rc: RequestContext, vi
   }
 }
 
-/** A list row: enough to show state and next step. */
-export async function requestRows(manager: EntityManager, requests: FiringRequest[]) {
+interface RowFacts {
+  id: string
+  potter_id: string
+  firing_id: string
+  firing_date: Date
+  drop_off_by: Date
+  firing_status: RequestFacts['firingStatus']
+  cone: string
+  atmosphere: RequestRow['firing']['atmosphere']
+  kind: RequestRow['firing']['kind']
+  studio_id: string
+  studio_name: string
+  timezone: string
+  kiln_name: string
+  potter_name: string
+  net: number
+  counter_due: number
+  results: boolean
+  potter_rated: boolean
+  studio_rated: boolean
+  replied: boolean
+}
+
+/** List rows: enough to show state, price and next step, with the reader's actions from the policy. */
+export async function requestRows(manager: EntityManager, requests: FiringRequest[], reader: Pick<User, 'id'>): Promise<RequestRow[]> {
   if (!requests.length) return []
-  const rows: {
-    id: string
-    firing_id: string
-    firing_date: Date
-    drop_off_by: string
-    cone: string
-    atmosphere: string
-    kind: string
-    studio_id: string
-    studio_name: string
-    timezone: string
-    kiln_name: string
-    potter_name: string
-  }[] = await manager.query(
-    `SELECT r.id, f.id AS firing_id, f.firing_date, f.drop_off_by, f.cone, f.atmosphere, f.kind, s.id AS studio_id, s.name AS studio_name, s.timezone, k.name AS kiln_name, u.display_name AS potter_name
+  const rows: RowFacts[] = await manager.query(
+    `SELECT r.id, r.potter_id, f.id AS firing_id, f.firing_date, f.drop_off_by, f.status AS firing_status, f.cone, f.atmosphere, f.kind,
+            s.id AS studio_id, s.name AS studio_name, s.timezone, k.name AS kiln_name, u.display_name AS potter_name,
+            coalesce((SELECT sum(CASE WHEN l.direction = 'in' THEN l.amount_cents ELSE -l.amount_cents END) FROM ledger_entries l WHERE l.request_id = r.id), 0)::int AS net,
+            coalesce((SELECT sum(c.amount_cents) FROM counter_refunds c WHERE c.request_id = r.id AND c.paid_at IS NULL), 0)::int AS counter_due,
+            EXISTS (SELECT 1 FROM request_results x WHERE x.request_id = r.id) AS results,
+            EXISTS (SELECT 1 FROM ratings g WHERE g.request_id = r.id AND g.direction = 'potter-rates-studio') AS potter_rated,
+            EXISTS (SELECT 1 FROM ratings g WHERE g.request_id = r.id AND g.direction = 'studio-rates-potter') AS studio_rated,
+            EXISTS (SELECT 1 FROM ratings g WHERE g.request_id = r.id AND g.direction = 'potter-rates-studio' AND g.studio_reply IS NOT NULL) AS replied
      FROM firing_requests r JOIN firings f ON f.id = r.firing_id JOIN kilns k ON k.id = f.kiln_id JOIN studios s ON s.id = k.studio_id JOIN users u ON u.id = r.potter_id
      WHERE r.id = ANY($1::uuid[])`,
     [requests.map((r) => r.id)],
@@ -149,14 +173,41 @@ export async function requestRows(manager: EntityManager, requests: FiringReques
   const byId = new Map(rows.map((r) => [r.id, r]))
   return requests.map((r) => {
     const row = byId.get(r.id)!
+    const standing = r.standingQuote ?? r.quote
+    const net = row.net - row.counter_due
+    const facts: RequestFacts = {
+      state: r.state,
+      firingStatus: row.firing_status,
+      depositOwedCents: r.state === 'accepted' ? Math.max(0, (r.depositAskedCents ?? 0) - net) : 0,
+      balanceOwedCents: Math.max(0, (standing?.totalCents ?? 0) - net),
+      pricePending: r.pendingQuote !== null,
+      proposedMove: r.proposedFiringId !== null,
+      resultsPosted: row.results,
+      ratedBy: { potter: row.potter_rated, studio: row.studio_rated },
+      replied: row.replied,
+      counterRefundDueCents: row.counter_due,
+    }
+    const side = row.potter_id === reader.id ? 'potter' : 'studio'
+    const owed = facts.state === 'accepted' ? facts.depositOwedCents : holdsSpace(r.state) ? facts.balanceOwedCents : 0
     return {
       id: r.id,
       state: r.state,
+      side,
+      actions: allowedActions(facts, side),
       verdict: r.verdict,
       findings: r.findings.length,
       volumeL: Math.round(r.volumeL * 100) / 100,
       pieceCount: r.pieces.reduce((n, p) => n + p.quantity, 0),
-      quote: r.quote ? { totalCents: r.quote.totalCents, depositCents: r.quote.depositCents, currency: r.quote.currency } : null,
+      price: standing
+        ? {
+            totalCents: standing.totalCents,
+            depositCents: r.depositAskedCents ?? standing.depositCents,
+            netPaidCents: net,
+            owedCents: owed,
+            pricePending: r.pendingQuote !== null,
+            currency: standing.currency,
+          }
+        : null,
       depositDueAt: r.depositDueAt?.toISOString() ?? null,
       proposedFiringId: r.proposedFiringId,
       updatedAt: r.updatedAt.toISOString(),
@@ -169,6 +220,7 @@ export async function requestRows(manager: EntityManager, requests: FiringReques
         atmosphere: row.atmosphere,
         kind: row.kind,
         kilnName: row.kiln_name,
+        status: row.firing_status,
       },
       studio: { id: row.studio_id, name: row.studio_name, timezone: row.timezone },
     }
@@ -176,7 +228,7 @@ export async function requestRows(manager: EntityManager, requests: FiringReques
 }
 
 /** A request as the given person may see it (a 404 for anyone without a right to it). */
-export async function showRequest(manager: EntityManager, requestId: string, user: User) {
+export async function showRequest(manager: EntityManager, requestId: string, user: Pick<User, 'id' | 'role'>) {
   const rc = await loadRequest(manager, requestId)
   return requestJson(manager, rc, await viewerOf(manager, rc, user))
 }
@@ -207,5 +259,5 @@ export async function listRequests(manager: EntityManager, user: Pick<User, 'id'
   else qb.where('r.potter_id = :me', { me: user.id })
   if (q.firingId) qb.andWhere('r.firing_id = :firingId', { firingId: q.firingId })
   if (q.state) qb.andWhere('r.state = :state', { state: q.state })
-  return requestRows(manager, await qb.getMany())
+  return requestRows(manager, await qb.getMany(), user)
 }

@@ -1,46 +1,40 @@
 // The firing request workflow: draft, send (the server's own ware check), the studio's decision,
-// the deposit hold, moves, withdrawals and their refunds.
+// the deposit hold, moves, withdrawals, lapses and their refunds. Every action after the draft is
+// made goes through the one door (request-door.ts): lock, authorize, apply, record, tell.
 import type { EntityManager } from 'typeorm'
-import { In } from 'typeorm'
-import { enqueueStudioSync } from './search-sync'
 import { checkWare, requestVolumeL, type Piece, type WareCheck } from '../../shared/firing/check'
 import { quoteRequest } from '../../shared/firing/quote'
+import { depositToAsk } from '../../shared/payments'
+import { refundUnderTerms } from '../../shared/refunds'
 import { takesRequests } from '../../shared/workflow/firing-status'
 import { holdsSpace, type RequestState } from '../../shared/workflow/request-states'
 import type { AppContext } from '../context'
+import { CounterRefund } from '../entities/CounterRefund'
 import { Firing } from '../entities/Firing'
 import { FiringRequest } from '../entities/FiringRequest'
 import { Kiln } from '../entities/Kiln'
 import { RequestEvent } from '../entities/RequestEvent'
 import { Studio } from '../entities/Studio'
 import type { User } from '../entities/User'
-import { conflict, forbidden, HttpError } from '../http/errors'
+import { conflict, HttpError } from '../http/errors'
 import { enqueueJob } from '../jobs/queue'
 import {
-  holdReleasedMail,
+  disputedMail,
+  lapsedMail,
   moveProposedMail,
   requestAcceptedMail,
   requestDeclinedMail,
   requestSentMail,
   studioCancelledMail,
   withdrawnMail,
-  disputedMail,
+  type LapseCause,
 } from '../mail/templates/requests'
 import { heldLitres } from './firings'
 import { getPriceList, kilnSpec } from './kilns'
-import { queueMail } from './mail'
-import { enqueueOpenCheckout, enqueueRefund, moneyOf } from './payments'
-import { refundUnderTerms } from '../../shared/refunds'
-import {
-  factsOf,
-  loadRequest,
-  moveRequest,
-  stateConflict,
-  studioPeople,
-  viewerOf,
-  type RequestContext,
-  type Viewer,
-} from './request-context'
+import { enqueueExpireCheckouts, enqueueOpenCheckout, enqueueRefund, moneyOf } from './payments'
+import { factsOf } from './request-context'
+import { heldJobKey, requestAction, type ActionStep } from './request-door'
+import { enqueueStudioSync } from './search-sync'
 
 export const DEPOSIT_EXPIRY_TASK = 'deposit-expiry'
 
@@ -77,12 +71,12 @@ async function requireOpenFiring(manager: EntityManager, firingId: string) {
   return { firing, studio }
 }
 
+const notTakingWare = () => conflict('This firing is not taking ware any more.', 'firing-not-open')
+
 export async function createDraft(ctx: AppContext, potter: User, firingId: string, body: { pieces: Piece[]; notes?: string }) {
   return ctx.db.transaction(async (manager) => {
     const { firing } = await requireOpenFiring(manager, firingId)
-    if (!takesRequests(firing.status) || firing.dropOffBy.getTime() < Date.now()) {
-      throw conflict('This firing is not taking ware any more.', 'firing-not-open')
-    }
+    if (!takesRequests(firing.status) || firing.dropOffBy.getTime() < Date.now()) throw notTakingWare()
     const { check, quote, volumeL } = await checkAgainstFiring(manager, firing, body.pieces)
     const request = await manager.getRepository(FiringRequest).save({
       firingId,
@@ -95,6 +89,9 @@ export async function createDraft(ctx: AppContext, potter: User, firingId: strin
       findings: check.findings,
       acknowledgedWarnings: [],
       quote,
+      standingQuote: null,
+      pendingQuote: null,
+      depositAskedCents: null,
       policiesVersion: null,
       depositDueAt: null,
       proposedFiringId: null,
@@ -108,12 +105,7 @@ export async function createDraft(ctx: AppContext, potter: User, firingId: strin
 }
 
 export async function updateDraft(ctx: AppContext, potter: User, id: string, body: { pieces?: Piece[]; notes?: string }) {
-  return ctx.db.transaction(async (manager) => {
-    const rc = await loadRequest(manager, id, { lock: true })
-    const viewer = await viewerOf(manager, rc, potter)
-    if (viewer.side !== 'potter') throw forbidden('Only the potter edits the ware of a request.')
-    if (rc.request.state !== 'draft')
-      throw conflict('Only a draft can be changed; this request was sent.', 'not-a-draft', { state: rc.request.state })
+  return requestAction(ctx, potter, id, 'edit', async ({ manager, rc }) => {
     const pieces = body.pieces ?? rc.request.pieces
     const { check, quote, volumeL } = await checkAgainstFiring(manager, rc.firing, pieces)
     await manager.update(FiringRequest, id, {
@@ -130,26 +122,20 @@ export async function updateDraft(ctx: AppContext, potter: User, id: string, bod
 /**
  * Sends a draft. The server checks the ware again (the browser's check is never trusted): blocking
  * findings are a 422 with the findings; each warning must be acknowledged by its code; the potter
- * agrees to the studio's policies in their current version.
+ * agrees to the studio's policies in their current version. The quote sent is the price that stands.
  */
 export async function sendRequest(ctx: AppContext, potter: User, id: string, body: { acknowledged: string[]; policiesVersion: number }) {
-  return ctx.db.transaction(async (manager) => {
-    const rc = await loadRequest(manager, id, { lock: true })
-    const viewer = await viewerOf(manager, rc, potter)
-    if (viewer.side !== 'potter') throw forbidden('Only the potter sends a request.')
-    if (!takesRequests(rc.firing.status) || rc.firing.dropOffBy.getTime() < Date.now())
-      throw conflict('This firing is not taking ware any more.', 'firing-not-open')
+  return requestAction(ctx, potter, id, 'send', async (step) => {
+    const { manager, rc } = step
+    if (!takesRequests(rc.firing.status) || rc.firing.dropOffBy.getTime() < Date.now()) throw notTakingWare()
     const { check, quote, volumeL } = await checkAgainstFiring(manager, rc.firing, rc.request.pieces)
-    await manager.update(FiringRequest, id, { verdict: check.verdict, findings: check.findings, quote, volumeL })
     if (check.verdict === 'block') {
       throw new HttpError(
         422,
         'ware-blocked',
         'The ware cannot go in this firing as described. Change what the findings say and try again.',
         undefined,
-        {
-          findings: check.findings,
-        },
+        { findings: check.findings },
       )
     }
     const warnings = [...new Set(check.findings.filter((f) => f.severity === 'warn').map((f) => f.code))]
@@ -165,159 +151,152 @@ export async function sendRequest(ctx: AppContext, potter: User, id: string, bod
         policiesVersion: rc.studio.policiesVersion,
       })
     }
+    Object.assign(rc.request, { quote, standingQuote: quote, volumeL, verdict: check.verdict, findings: check.findings })
     await manager.update(FiringRequest, id, {
+      verdict: check.verdict,
+      findings: check.findings,
+      quote,
+      standingQuote: quote,
+      volumeL,
       acknowledgedWarnings: warnings,
       policiesVersion: rc.studio.policiesVersion,
       sentAt: new Date(),
     })
-    await moveRequest(manager, rc.request, 'sent', potter.id, '', { acknowledged: warnings, policiesVersion: rc.studio.policiesVersion })
-    rc.request.quote = quote
-    const facts = factsOf(rc, ctx.config.publicUrl)
-    for (const person of await studioPeople(manager, rc.studio.id))
-      await queueMail(manager, person.email, 'request-sent', requestSentMail(facts))
+    await step.move('sent', '', { acknowledged: warnings, policiesVersion: rc.studio.policiesVersion })
+    await step.tellStudio('request-sent', requestSentMail(factsOf(rc, ctx.config.publicUrl)))
   })
-}
-
-function requireStudioSide(viewer: Viewer) {
-  if (viewer.side === 'potter') throw forbidden('Only the studio decides on a request.', 'not-the-studio')
 }
 
 /**
- * Accepts a request, holding its space. The firing's row is locked for the check, so concurrent
- * accepts are served one at a time and the firing is never oversold.
+ * Takes a request on, holding its space. The firing's row is locked first, so concurrent accepts are
+ * served one at a time and the firing is never oversold.
  */
 export async function acceptRequest(ctx: AppContext, actor: User, id: string) {
-  return ctx.db.transaction(async (manager) => {
-    const rc = await loadRequest(manager, id, { lock: true })
-    requireStudioSide(await viewerOf(manager, rc, actor))
-    await holdSpace(ctx, manager, rc, actor.id, 'Accepted by the studio')
-  })
+  return requestAction(ctx, actor, id, 'accept', (step) => holdSpace(step, 'Taken on by the studio'))
 }
 
-async function holdSpace(ctx: AppContext, manager: EntityManager, rc: RequestContext, actorId: string, reason: string) {
-  const firing = await manager
-    .getRepository(Firing)
-    .findOneOrFail({ where: { id: rc.request.firingId }, lock: { mode: 'pessimistic_write' } })
-  if (rc.request.state !== 'sent')
-    throw stateConflict(rc.request, `Only a sent request can be accepted; this one is ${rc.request.state.replace('_', ' ')}.`)
-  const held = (await heldLitres(manager, [firing.id])).get(firing.id) ?? 0
-  const left = firing.capacityL - held
+async function holdSpace(step: ActionStep, reason: string) {
+  const { manager, rc, ctx } = step
+  const held = (await heldLitres(manager, [rc.firing.id])).get(rc.firing.id) ?? 0
+  const left = rc.firing.capacityL - held
   if (rc.request.volumeL > left + 1e-9) {
     throw conflict(
       `Not enough space left: the ware needs ${rc.request.volumeL.toFixed(1)} L and ${Math.max(0, left).toFixed(1)} L are free.`,
       'no-space',
-      {
-        spaceLeftL: Math.max(0, left),
-      },
+      { spaceLeftL: Math.max(0, left) },
     )
   }
-  const deposit = rc.request.quote?.depositCents ?? 0
+  const quote = rc.request.standingQuote ?? rc.request.quote
+  const deposit = quote ? depositToAsk(quote.depositCents, quote.totalCents, quote.currency) : 0
   const holdHours = rc.studio.policies.depositHoldHours
   const due = deposit > 0 ? new Date(Date.now() + holdHours * 3600_000) : null
-  await manager.update(FiringRequest, rc.request.id, { depositDueAt: due, proposedFiringId: null })
-  await moveRequest(manager, rc.request, 'accepted', actorId, reason)
+  rc.request.depositAskedCents = deposit
+  rc.request.depositDueAt = due
+  await manager.update(FiringRequest, rc.request.id, { depositDueAt: due, depositAskedCents: deposit, proposedFiringId: null })
+  await step.move('accepted', reason, { depositAskedCents: deposit, depositDueAt: due?.toISOString() ?? null })
   const facts = factsOf(rc, ctx.config.publicUrl)
   if (due) {
     await enqueueOpenCheckout(manager, rc.request.id, 'deposit', deposit)
     await enqueueJob(manager, DEPOSIT_EXPIRY_TASK, { requestId: rc.request.id }, { runAt: due, jobKey: `deposit-expiry:${rc.request.id}` })
   } else {
-    await moveRequest(manager, rc.request, 'deposit_paid', null, 'No deposit is asked for this firing')
+    await step.move('deposit_paid', 'No deposit is asked for this firing')
   }
-  await queueMail(manager, rc.potter.email, 'request-accepted', requestAcceptedMail(facts, due))
+  await step.tellPotter('request-accepted', requestAcceptedMail(facts, due))
   await enqueueStudioSync(manager, rc.studio.id)
 }
 
 /**
- * Declines a sent request with a reason. After acceptance the studio can still call it off: the
+ * Declines a sent request with a reason. After taking it on the studio can still call it off: the
  * request is cancelled and everything paid is refunded in full.
  */
 export async function declineRequest(ctx: AppContext, actor: User, id: string, reason: string) {
-  return ctx.db.transaction(async (manager) => {
-    const rc = await loadRequest(manager, id, { lock: true })
-    requireStudioSide(await viewerOf(manager, rc, actor))
-    const facts = factsOf(rc, ctx.config.publicUrl)
-    if (rc.request.state === 'sent') {
-      await moveRequest(manager, rc.request, 'declined', actor.id, reason)
-      await queueMail(manager, rc.potter.email, 'request-declined', requestDeclinedMail(facts, reason))
-      return
-    }
-    if (rc.request.state !== 'accepted' && rc.request.state !== 'deposit_paid') {
-      throw stateConflict(rc.request, `A request that is ${rc.request.state.replace('_', ' ')} can no longer be declined or called off.`)
-    }
-    const { net } = await moneyOf(manager, id)
-    await moveRequest(manager, rc.request, 'cancelled', actor.id, reason, { by: 'studio' })
-    await enqueueRefund(manager, id, net, `Cancelled by the studio: ${reason}`)
-    await queueMail(manager, rc.potter.email, 'request-cancelled', studioCancelledMail(facts, reason, net))
-    await enqueueStudioSync(manager, rc.studio.id)
-  })
+  return requestAction(
+    ctx,
+    actor,
+    id,
+    (state) => (state === 'sent' ? 'decline' : 'cancel'),
+    async (step) => {
+      const { manager, rc } = step
+      const facts = factsOf(rc, ctx.config.publicUrl)
+      if (rc.request.state === 'sent') {
+        await step.move('declined', reason)
+        await step.tellPotter('request-declined', requestDeclinedMail(facts, reason))
+        return
+      }
+      const { net } = await moneyOf(manager, id)
+      await step.move('cancelled', reason, { by: 'studio', refundCents: net })
+      await enqueueRefund(manager, id, net, `Cancelled by the studio: ${reason}`)
+      await enqueueExpireCheckouts(manager, id)
+      await step.tellPotter('request-cancelled', studioCancelledMail(facts, reason, net))
+      await enqueueStudioSync(manager, rc.studio.id)
+    },
+  )
 }
 
 /** The studio offers another of its firings instead; the potter accepts or refuses. */
 export async function proposeMove(ctx: AppContext, actor: User, id: string, firingId: string) {
-  return ctx.db.transaction(async (manager) => {
-    const rc = await loadRequest(manager, id, { lock: true })
-    requireStudioSide(await viewerOf(manager, rc, actor))
-    if (rc.request.state !== 'sent') throw stateConflict(rc.request, 'Only a sent request can be moved to another firing.')
-    const target = await manager.getRepository(Firing).findOne({ where: { id: firingId } })
-    const targetKiln = target && (await manager.getRepository(Kiln).findOneByOrFail({ id: target.kilnId }))
-    if (!target || targetKiln!.studioId !== rc.studio.id)
-      throw new HttpError(400, 'invalid-input', 'Choose one of this studio’s firings.', { firingId: 'Not a firing of this studio.' })
-    if (target.id === rc.firing.id)
-      throw new HttpError(400, 'invalid-input', 'That is the firing the request is already for.', { firingId: 'Choose another firing.' })
-    if (!takesRequests(target.status)) throw conflict('That firing is not taking ware.', 'firing-not-open')
-    const { check } = await checkAgainstFiring(manager, target, rc.request.pieces)
-    if (check.verdict === 'block') {
-      throw new HttpError(422, 'ware-blocked', 'This ware cannot go in that firing.', undefined, { findings: check.findings })
-    }
-    await manager.update(FiringRequest, id, { proposedFiringId: target.id })
-    await manager.getRepository(RequestEvent).save({
-      requestId: id,
-      actorId: actor.id,
-      fromState: 'sent',
-      toState: 'sent',
-      reason: 'Another firing proposed',
-      data: { proposedFiringId: target.id },
-    })
-    await queueMail(manager, rc.potter.email, 'move-proposed', moveProposedMail(factsOf(rc, ctx.config.publicUrl), target))
-  })
+  return requestAction(
+    ctx,
+    actor,
+    id,
+    'move',
+    async (step) => {
+      const { manager, rc } = step
+      const target = await manager.getRepository(Firing).findOne({ where: { id: firingId } })
+      const targetKiln = target && (await manager.getRepository(Kiln).findOneByOrFail({ id: target.kilnId }))
+      if (!target || targetKiln!.studioId !== rc.studio.id)
+        throw new HttpError(400, 'invalid-input', 'Choose one of this studio’s firings.', { firingId: 'Not a firing of this studio.' })
+      if (target.id === rc.firing.id)
+        throw new HttpError(400, 'invalid-input', 'That is the firing the request is already for.', { firingId: 'Choose another firing.' })
+      if (!takesRequests(target.status)) throw conflict('That firing is not taking ware.', 'firing-not-open')
+      const { check } = await checkAgainstFiring(manager, target, rc.request.pieces)
+      if (check.verdict === 'block') {
+        throw new HttpError(422, 'ware-blocked', 'This ware cannot go in that firing.', undefined, { findings: check.findings })
+      }
+      await manager.update(FiringRequest, id, { proposedFiringId: target.id })
+      await step.note('Another firing proposed', { proposedFiringId: target.id })
+      await step.tellPotter('move-proposed', moveProposedMail(factsOf(rc, ctx.config.publicUrl), target))
+    },
+    { alsoLock: () => [firingId] },
+  )
 }
 
 /** The potter's answer to a proposed move: accepting takes (and holds) the place in the other firing. */
 export async function answerMove(ctx: AppContext, potter: User, id: string, accept: boolean) {
-  return ctx.db.transaction(async (manager) => {
-    const rc = await loadRequest(manager, id, { lock: true })
-    const viewer = await viewerOf(manager, rc, potter)
-    if (viewer.side !== 'potter') throw forbidden('Only the potter answers a proposed move.')
-    if (rc.request.state !== 'sent' || !rc.request.proposedFiringId) throw conflict('No move is waiting for an answer.', 'no-move')
-    const to = rc.request.proposedFiringId
-    if (!accept) {
-      await manager.update(FiringRequest, id, { proposedFiringId: null })
-      await manager.getRepository(RequestEvent).save({
-        requestId: id,
-        actorId: potter.id,
-        fromState: 'sent',
-        toState: 'sent',
-        reason: 'Move refused',
-        data: { proposedFiringId: to },
+  return requestAction(
+    ctx,
+    potter,
+    id,
+    'answer-move',
+    async (step) => {
+      const { manager, rc } = step
+      const to = rc.request.proposedFiringId!
+      if (!accept) {
+        await manager.update(FiringRequest, id, { proposedFiringId: null })
+        await step.note('Move refused', { proposedFiringId: to })
+        return
+      }
+      const target = await manager.getRepository(Firing).findOneByOrFail({ id: to })
+      if (!takesRequests(target.status)) throw conflict('That firing is not taking ware any more.', 'firing-not-open')
+      const { check, quote, volumeL } = await checkAgainstFiring(manager, target, rc.request.pieces)
+      if (check.verdict === 'block')
+        throw new HttpError(422, 'ware-blocked', 'The ware cannot go in that firing any more.', undefined, { findings: check.findings })
+      await manager.update(FiringRequest, id, {
+        firingId: to,
+        quote,
+        standingQuote: quote,
+        volumeL,
+        verdict: check.verdict,
+        findings: check.findings,
       })
-      return
-    }
-    const target = await manager.getRepository(Firing).findOneByOrFail({ id: to })
-    const { check, quote, volumeL } = await checkAgainstFiring(manager, target, rc.request.pieces)
-    if (check.verdict === 'block')
-      throw new HttpError(422, 'ware-blocked', 'The ware cannot go in that firing any more.', undefined, { findings: check.findings })
-    await manager.update(FiringRequest, id, { firingId: to, quote, volumeL, verdict: check.verdict, findings: check.findings })
-    await manager.getRepository(RequestEvent).save({
-      requestId: id,
-      actorId: potter.id,
-      fromState: 'sent',
-      toState: 'sent',
-      reason: 'Move accepted',
-      data: { from: rc.firing.id, to },
-    })
-    const moved = await loadRequest(manager, id, { lock: true })
-    await holdSpace(ctx, manager, moved, potter.id, 'Moved to the proposed firing')
-  })
+      await step.note('Move accepted', { from: rc.firing.id, to })
+      Object.assign(rc.request, { firingId: to, quote, standingQuote: quote, volumeL })
+      rc.firing = target
+      await holdSpace(step, 'Moved to the proposed firing')
+    },
+    // The proposed firing is locked with the request's own, in id order, before the request.
+    { alsoLock: (request) => (request.proposedFiringId ? [request.proposedFiringId] : []) },
+  )
 }
 
 /**
@@ -325,50 +304,112 @@ export async function answerMove(ctx: AppContext, potter: User, id: string, acce
  * until N days before the firing, P % after.
  */
 export async function withdrawRequest(ctx: AppContext, potter: User, id: string, reason?: string) {
-  return ctx.db.transaction(async (manager) => {
-    const rc = await loadRequest(manager, id, { lock: true })
-    const viewer = await viewerOf(manager, rc, potter)
-    if (viewer.side !== 'potter') throw forbidden('Only the potter withdraws a request; the studio declines it.')
+  return requestAction(ctx, potter, id, 'withdraw', async (step) => {
+    const { manager, rc } = step
     const { net } = await moneyOf(manager, id)
     const refund = refundUnderTerms(net, rc.firing.firingDate, rc.studio.policies.cancellation).refundCents
-    const heldSpace = rc.request.state === 'accepted' || rc.request.state === 'deposit_paid'
-    await moveRequest(manager, rc.request, 'withdrawn', potter.id, reason ?? '', { paidCents: net, refundCents: refund })
+    const heldSpace = holdsSpace(rc.request.state)
+    const wasSent = rc.request.sentAt !== null
+    await step.move('withdrawn', reason ?? '', { paidCents: net, refundCents: refund })
     await enqueueRefund(manager, id, refund, 'Withdrawn by the potter')
-    if (rc.request.sentAt) {
-      const facts = factsOf(rc, ctx.config.publicUrl)
-      for (const person of await studioPeople(manager, rc.studio.id))
-        await queueMail(manager, person.email, 'request-withdrawn', withdrawnMail(facts, refund, reason))
-    }
+    await recordCounterRefundDue(step, refund)
+    await enqueueExpireCheckouts(manager, id)
+    if (wasSent) await step.tellStudio('request-withdrawn', withdrawnMail(factsOf(rc, ctx.config.publicUrl), refund, reason))
     if (heldSpace) await enqueueStudioSync(manager, rc.studio.id)
     return { refundCents: refund }
   })
 }
 
-/** The deposit hold ran out: an accepted request that is still unpaid releases its space. */
-export async function expireDepositHold(ctx: AppContext, id: string, now = new Date()) {
-  const released = await ctx.db.transaction(async (manager) => {
-    const rc = await loadRequest(manager, id, { lock: true })
-    if (rc.request.state !== 'accepted' || !rc.request.depositDueAt || rc.request.depositDueAt > now) return false
-    await moveRequest(manager, rc.request, 'cancelled', null, 'The deposit was not paid in time; the space was released', {
-      by: 'deposit-hold',
+/**
+ * Money taken at the counter cannot go back through Stripe: when a refund is owed and the online
+ * payments cannot cover it, the rest is recorded as a counter refund the studio owes the potter.
+ */
+export async function recordCounterRefundDue(step: Pick<ActionStep, 'manager' | 'rc' | 'hold'>, refundCents: number) {
+  const { manager, rc } = step
+  if (refundCents <= 0) return
+  const { onlineNet } = await moneyOf(manager, rc.request.id)
+  const atCounter = refundCents - Math.min(refundCents, onlineNet)
+  if (atCounter > 0) {
+    const due = await manager.getRepository(CounterRefund).save({
+      requestId: rc.request.id,
+      amountCents: atCounter,
+      currency: (rc.request.standingQuote ?? rc.request.quote)?.currency ?? rc.studio.currency,
+      reason: 'Owed back from money taken at the counter',
+      paidAt: null,
+      paidBy: null,
     })
-    const facts = factsOf(rc, ctx.config.publicUrl)
-    await queueMail(manager, rc.potter.email, 'hold-released', holdReleasedMail(facts, 'potter'))
-    for (const person of await studioPeople(manager, rc.studio.id))
-      await queueMail(manager, person.email, 'hold-released', holdReleasedMail(facts, 'studio'))
-    await enqueueStudioSync(manager, rc.studio.id)
-    return true
-  })
-  return released
+    step.hold?.counterRefundIds.push(due.id)
+  }
 }
 
-/** Requests of a firing that hold space when it is cancelled are refunded in full (see cancelFiring). */
-export async function refundCancelledByFiring(manager: EntityManager, requestIds: string[]) {
-  const requests = await manager.getRepository(FiringRequest).find({ where: { id: In(requestIds) } })
-  for (const request of requests) {
-    const { net } = await moneyOf(manager, request.id)
-    await enqueueRefund(manager, request.id, net, 'The firing was cancelled by the studio')
+/**
+ * A request still waiting (for the studio's answer, or for its deposit) lapses: the space is released,
+ * money paid goes back (in full unless the potter let the deposit hold run out, then under the terms),
+ * and both sides are told.
+ */
+export async function lapse(step: ActionStep, cause: LapseCause, { tellStudio = true } = {}) {
+  const { manager, rc, ctx, hold } = step
+  const held = (what: string) => (hold ? { runAt: hold.runAt, jobKey: heldJobKey(hold, what) } : {})
+  const { net } = await moneyOf(manager, rc.request.id)
+  const refund = cause === 'deposit-late' ? refundUnderTerms(net, rc.firing.firingDate, rc.studio.policies.cancellation).refundCents : net
+  const heldSpace = holdsSpace(rc.request.state)
+  await step.move('lapsed', LAPSE_REASON[cause], { by: cause, refundCents: refund })
+  await enqueueRefund(manager, rc.request.id, refund, `Lapsed: ${LAPSE_REASON[cause]}`, held('refund'))
+  await recordCounterRefundDue(step, refund)
+  await enqueueExpireCheckouts(manager, rc.request.id, held('checkouts'))
+  const facts = factsOf(rc, ctx.config.publicUrl)
+  await step.tellPotter('lapsed', lapsedMail(facts, 'potter', cause, refund))
+  // A lapse the studio caused by its own stage move was named in the confirmation it agreed to.
+  if (tellStudio) await step.tellStudio('lapsed', lapsedMail(facts, 'studio', cause, refund))
+  if (heldSpace) await enqueueStudioSync(manager, rc.studio.id)
+}
+
+const LAPSE_REASON: Record<LapseCause, string> = {
+  'firing-closed': 'The firing stopped taking ware before the request was settled',
+  'firing-loading': 'Loading started before the request was settled',
+  'deposit-late': 'The deposit was not paid in time; the space was released',
+  'drop-off-passed': 'The drop-off deadline passed with no answer',
+}
+
+/** The deposit hold ran out: a request taken on and still unpaid lapses and releases its space. */
+export async function expireDepositHold(ctx: AppContext, id: string, now = new Date()) {
+  return requestAction(ctx, null, id, 'lapse', async (step) => {
+    const { request } = step.rc
+    if (request.state !== 'accepted' || !request.depositDueAt || request.depositDueAt > now || step.facts.depositOwedCents === 0)
+      return false
+    await lapse(step, 'deposit-late')
+    return true
+  })
+}
+
+/**
+ * The sweep for what dates alone make stale: a request still unanswered when drop-off closes, or taken
+ * on with its deposit hold run out (should its own timer job have been lost). Runs on a schedule.
+ */
+export async function sweepStaleRequests(ctx: AppContext, now = new Date()): Promise<number> {
+  const rows: { id: string; state: RequestState }[] = await ctx.db.query(
+    `SELECT r.id, r.state FROM firing_requests r JOIN firings f ON f.id = r.firing_id
+     WHERE (r.state = 'sent' AND f.drop_off_by < $1) OR (r.state = 'accepted' AND r.deposit_due_at < $1)
+     ORDER BY r.id LIMIT 500`,
+    [now],
+  )
+  let lapsed = 0
+  for (const row of rows) {
+    const done = await requestAction(ctx, null, row.id, 'lapse', async (step) => {
+      const { request, firing } = step.rc
+      if (request.state === 'sent' && firing.dropOffBy < now) {
+        await lapse(step, 'drop-off-passed')
+        return true
+      }
+      if (request.state === 'accepted' && request.depositDueAt && request.depositDueAt < now && step.facts.depositOwedCents > 0) {
+        await lapse(step, 'deposit-late')
+        return true
+      }
+      return false
+    })
+    if (done) lapsed++
   }
+  return lapsed
 }
 
 /** A potter's record, as studios see it when deciding on a new request. */
@@ -388,8 +429,12 @@ export async function potterRecord(manager: EntityManager, potterId: string) {
   return {
     requests: count(() => true),
     collected: count((r) => r.state === 'collected'),
-    // Not showing up: space held and released for an unpaid deposit, or ware refused at the door.
-    noShows: count((r) => r.state === 'cancelled' && (r.by === 'deposit-hold' || r.by === 'refused-at-door')),
+    // Not showing up: space held and released for an unpaid deposit, or ware refused at the door or never brought.
+    noShows: count(
+      (r) =>
+        (r.state === 'lapsed' && r.by === 'deposit-late') ||
+        (r.state === 'cancelled' && (r.by === 'deposit-hold' || r.by === 'refused-at-door' || r.by === 'no-show')),
+    ),
     rating: rating.count ? { mean: Math.round(rating.mean * 10) / 10, count: rating.count } : null,
   }
 }
@@ -399,33 +444,25 @@ export async function potterRecord(manager: EntityManager, potterId: string) {
  * waits for the marketplace's admins, who may refund.
  */
 export async function disputeRequest(ctx: AppContext, user: User, id: string, reason: string) {
-  return ctx.db.transaction(async (manager) => {
-    const rc = await loadRequest(manager, id, { lock: true })
-    const viewer = await viewerOf(manager, rc, user)
-    await moveRequest(manager, rc.request, 'disputed', user.id, reason, { by: viewer.side })
-    const facts = factsOf(rc, ctx.config.publicUrl)
-    const others = viewer.side === 'potter' ? await studioPeople(manager, rc.studio.id) : [rc.potter]
-    for (const person of others) await queueMail(manager, person.email, 'disputed', disputedMail(facts, user.displayName, reason))
+  return requestAction(ctx, user, id, 'dispute', async (step) => {
+    const side = step.viewer.side
+    await step.move('disputed', reason, { by: side })
+    const mail = disputedMail(factsOf(step.rc, ctx.config.publicUrl), user.displayName, reason)
+    if (side === 'potter') await step.tellStudio('disputed', mail)
+    else await step.tellPotter('disputed', mail)
   })
 }
 
 /** An admin's refund while settling a dispute: at most what was paid and not yet refunded. */
-export async function adminRefund(ctx: AppContext, id: string, amountCents: number, reason: string) {
-  return ctx.db.transaction(async (manager) => {
-    await loadRequest(manager, id, { lock: true })
-    const { net } = await moneyOf(manager, id)
+export async function adminRefund(ctx: AppContext, admin: User, id: string, amountCents: number, reason: string) {
+  return requestAction(ctx, admin, id, 'desk-refund', async (step) => {
+    const { net } = await moneyOf(step.manager, id)
     if (amountCents > net)
       throw new HttpError(400, 'invalid-input', 'That is more than was paid and not yet refunded.', {
         amountCents: `At most ${net} cents.`,
       })
-    await enqueueRefund(manager, id, amountCents, `Refunded by the Conewright desk: ${reason}`)
-    await manager.getRepository(RequestEvent).save({
-      requestId: id,
-      actorId: null,
-      fromState: null,
-      toState: (await manager.getRepository(FiringRequest).findOneByOrFail({ id })).state,
-      reason: `Refund of ${amountCents} cents by the desk: ${reason}`,
-      data: { amountCents },
-    })
+    await enqueueRefund(step.manager, id, amountCents, `Refunded by the Conewright desk: ${reason}`)
+    await recordCounterRefundDue(step, amountCents)
+    await step.note(`Refund of ${amountCents} cents by the desk: ${reason}`, { amountCents })
   })
 }

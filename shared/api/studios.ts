@@ -1,6 +1,6 @@
 // The shapes the studio, kiln and firing routes answer with: written by the server, read by the
 // client, declared once.
-import type { Atmosphere, FiringKind, Kiln } from '../firing/check'
+import type { Atmosphere, CoolingProfile, FiringKind, Kiln } from '../firing/check'
 import type { PriceList, Quote } from '../firing/quote'
 import type { Segment } from '../firing/schedule'
 import type { StudioPolicies } from '../schemas/studios'
@@ -67,6 +67,7 @@ export interface FiringJson {
   cone: string
   atmosphere: Atmosphere
   slowCool: boolean
+  cooling: CoolingProfile
   dropOffBy: string
   firingDate: string
   readyBy: string
@@ -79,4 +80,31 @@ export interface FiringJson {
   notes: string
   seriesId: string | null
   cancelledReason: string | null
+  /** The last stage move while it can still be undone: back to `from`, until `until`. */
+  undo: { from: FiringStatus; until: string } | null
+}
+
+/** A member of a studio's crew, as its owner sees them (server/services/crew.ts). */
+export interface CrewMemberJson {
+  id: string
+  userId: string
+  displayName: string
+  email: string
+  role: StudioRole
+  since: string
+}
+
+/** An invitation still waiting for its invitee. */
+export interface CrewInviteJson {
+  id: string
+  email: string
+  expiresAt: string
+}
+
+/** What an invitation link shows before the invitee joins. */
+export interface InviteDetailsJson {
+  studioId: string
+  studioName: string
+  email: string
+  expiresAt: string
 }

@@ -5,8 +5,8 @@
 /** A cone number written the trade's way: "022" … "01", "1" … "14" (canonical form from parseCone). */
 export type Cone = string
 
-/** Every cone the table covers, coolest first. "06" is cooler than "6"; "022" is the coolest. */
-export const CONES: readonly Cone[] = [
+/** The whole cones of the published chart, coolest first. "06" is cooler than "6"; "022" is the coolest. */
+export const CHARTED_CONES: readonly Cone[] = [
   '022',
   '021',
   '020',
@@ -45,15 +45,26 @@ export const CONES: readonly Cone[] = [
   '14',
 ]
 
+/**
+ * The half cones made besides the whole ones (05½ and 5½, from memory of the cone maker's range).
+ * The chart prints no row for them; they bend between their neighbours and are placed midway.
+ */
+export const HALF_CONES: readonly Cone[] = ['05½', '5½']
+
+/** Every cone we read and offer, half cones included, coolest first. */
+export const CONES: readonly Cone[] = CHARTED_CONES.flatMap((cone) =>
+  cone === '05' ? [cone, '05½'] : cone === '5' ? [cone, '5½'] : [cone],
+)
+
 /** Heating rates (°C/h over the last 100 °C) of the published table's three columns. */
 export const CONE_TABLE_RATES_C_PER_HOUR = [15, 60, 150] as const
 
-// Temperature equivalents (°C) of regular self-supporting cones at 15 / 60 / 150 °C/h, in CONES order,
+// Temperature equivalents (°C) of regular self-supporting cones at 15 / 60 / 150 °C/h, in CHARTED_CONES order,
 // from the cone maker's published temperature-equivalent chart (Orton, self-supporting, regular),
 // checked column by column in tests/unit/firing/cones.test.ts, where the provenance of each value is
 // noted. The chart gives no 150 °C/h value for 022–020; those rows hold their 60 °C/h value for faster
 // rates rather than extrapolate or borrow another cone type's column.
-const SELF_SUPPORTING_C: readonly (readonly [number, number, number | null])[] = [
+const CHARTED_C: readonly (readonly [number, number, number | null])[] = [
   [586, 590, null],
   [600, 617, null],
   [626, 638, null],
@@ -92,6 +103,27 @@ const SELF_SUPPORTING_C: readonly (readonly [number, number, number | null])[] =
   [1351, 1365, 1384],
 ]
 
+type Row = readonly [number, number, number | null]
+
+// Each half cone sits midway between its neighbours in every column: our placement, not a charted value.
+const SELF_SUPPORTING_C: readonly Row[] = CONES.map((cone) => {
+  const at = CHARTED_CONES.indexOf(cone)
+  if (at >= 0) return CHARTED_C[at]
+  const below = CHARTED_C[CHARTED_CONES.indexOf(cone.replace('½', ''))]
+  const above = CHARTED_C[CHARTED_CONES.indexOf(cone.replace('½', '')) + 1]
+  return [0, 1, 2].map((column) => {
+    const low = below[column] ?? below[1]
+    const high = above[column] ?? above[1]
+    return Math.round((low + high) / 2)
+  }) as unknown as Row
+})
+
+/** The chart's row for a whole cone: [15, 60, 150 °C/h]; null for a half cone. */
+export function chartedTemperaturesC(cone: Cone): Row | null {
+  const at = CHARTED_CONES.indexOf(cone)
+  return at >= 0 ? CHARTED_C[at] : null
+}
+
 const INDEX_BY_CONE = new Map<string, number>(CONES.map((cone, index) => [cone, index]))
 
 const LOG_15 = Math.log(15)
@@ -101,19 +133,27 @@ const LOG_150 = Math.log(150)
 export type ParseConeResult = { ok: true; cone: Cone } | { ok: false; reason: string }
 
 const CONE_PATTERN = /^\s*(?:cone\s*)?(?:\^\s*)?(\d{1,4})\s*$/i
+const HALF_PATTERN = /^\s*(?:cone\s*)?(?:\^\s*)?(\d{1,4})\s*(?:½|\.5|\s1\/2|-1\/2|1\/2)\s*$/i
 
 /**
- * Reads a cone as people write it: "6", "06", "^6", "cone 6", "Cone 04". The leading zero matters
- * (cone 06 is a low-fire cone, cone 6 a mid-fire one), so it is kept, never dropped.
+ * Reads a cone as people write it: "6", "06", "^6", "cone 6", "Cone 04", and the half cones "5½",
+ * "5.5", "5 1/2", "05½". The leading zero matters (cone 06 is a low-fire cone, cone 6 a mid-fire
+ * one), so it is kept, never dropped.
  */
 export function parseCone(input: string): ParseConeResult {
   if (typeof input !== 'string' || input.trim() === '') {
     return { ok: false, reason: 'Enter a cone number, like 6 or 04.' }
   }
+  const half = HALF_PATTERN.exec(input)
+  if (half) {
+    const cone = `${half[1]}½`
+    if (INDEX_BY_CONE.has(cone)) return { ok: true, cone }
+    return { ok: false, reason: `Cone ${half[1]}½ is not made; the half cones are 05½ and 5½.` }
+  }
   const match = CONE_PATTERN.exec(input)
   if (!match) {
     if (/[½.]/.test(input)) {
-      return { ok: false, reason: 'Half cones are not in our table; pick the whole cone next to it, like 5 or 6.' }
+      return { ok: false, reason: 'The only half cones are 05½ and 5½; otherwise pick a whole cone, like 5 or 6.' }
     }
     return { ok: false, reason: `"${input.trim()}" is not a cone number. Write it like 6, 06, ^6 or cone 04.` }
   }
@@ -142,6 +182,16 @@ export function coneIndex(cone: Cone): number {
   const parsed = parseCone(cone)
   if (!parsed.ok) throw new RangeError(parsed.reason)
   return INDEX_BY_CONE.get(parsed.cone) as number
+}
+
+/**
+ * A cone's place counted in whole cones: 022 is 0, each whole cone one more, a half cone half way
+ * (05½ is 17.5). Tolerances of "one cone" are measured on this scale.
+ */
+export function coneStep(cone: Cone): number {
+  const canonical = CONES[coneIndex(cone)]
+  const at = CHARTED_CONES.indexOf(canonical)
+  return at >= 0 ? at : CHARTED_CONES.indexOf(canonical.replace('½', '')) + 0.5
 }
 
 /** <0 when a is cooler than b, 0 when the same cone, >0 when a is hotter. */

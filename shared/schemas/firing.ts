@@ -3,7 +3,9 @@
 
 import { z } from 'zod'
 import { text } from './text'
+import { CLAY_BODIES, COLOURANTS, FIRING_KINDS, GLAZE_SUPPORTS, MATERIALS, PIECE_FORMS, PIECE_STATES } from '../firing/check'
 import { compareCones, isCone, parseCone } from '../firing/cones'
+import { COOLING_PROFILES } from '../firing/schedule'
 
 // Range checks skip cones that already failed to parse; those carry their own message.
 function conesInOrder(minCone: unknown, maxCone: unknown): boolean {
@@ -76,6 +78,15 @@ export const kilnSchema = z
         .max(2000, { error: 'The fastest climb can be at most 2000 °C per hour.' }),
       preheatHold: z.boolean({ error: 'Say whether the kiln can hold a low preheat (candling).' }),
       controlledCooling: z.boolean({ error: 'Say whether the kiln can control its cooling.' }),
+      // Empty (null from a form) means not said.
+      shelfLoadKg: z.preprocess(
+        (kg) => (kg === null ? undefined : kg),
+        z
+          .number({ error: 'Enter what one shelf may carry, in kg.' })
+          .positive({ error: 'What one shelf may carry must be more than 0 kg.' })
+          .max(1000, { error: 'What one shelf may carry can be at most 1000 kg.' })
+          .optional(),
+      ),
     },
     { error: 'Describe the kiln: its kind, inside size, cone range and limits.' },
   )
@@ -95,7 +106,7 @@ function coneRangeMessage(what: string) {
 export const claySchema = z
   .object(
     {
-      body: z.enum(['earthenware', 'stoneware', 'porcelain', 'other'], { error: 'Choose the clay body.' }),
+      body: z.enum(CLAY_BODIES, { error: 'Choose the clay body.' }),
       minCone: coneSchema,
       maxCone: coneSchema,
     },
@@ -110,11 +121,23 @@ export const glazeSchema = z
       maxCone: coneSchema,
       runny: z.boolean().optional(),
       onFoot: z.boolean().optional(),
-      onCookie: z.boolean().optional(),
+      support: z.enum(GLAZE_SUPPORTS, { error: 'Say what the piece stands on: nothing, a cookie, a tray or a stilt.' }).optional(),
+      colourants: z
+        .array(z.enum(COLOURANTS, { error: 'Choose copper, chrome–tin, cobalt or manganese.' }))
+        .max(COLOURANTS.length)
+        .optional(),
+      reductionOnly: z.boolean().optional(),
+      tested: z.boolean().optional(),
     },
     { error: 'Describe the glaze: the cones it fires to.' },
   )
   .refine((glaze) => conesInOrder(glaze.minCone, glaze.maxCone), coneRangeMessage('glaze'))
+
+export const firingKindSchema = z.enum(FIRING_KINDS, { error: 'Choose bisque, glaze, single, lustre or raku firing.' })
+
+export const coolingProfileSchema = z.enum(COOLING_PROFILES, {
+  error: 'Choose a natural cool, a slow cool through glaze development, or a drop and hold.',
+})
 
 export const MAX_PIECE_QUANTITY = 500
 export const MAX_PIECES = 200
@@ -133,10 +156,21 @@ export const pieceSchema = z
       depthMm: millimetres('depth', MAX_PIECE_MM),
       round: z.boolean().optional(),
       wallThicknessMm: millimetres('wall thickness', 500),
+      form: z.enum(PIECE_FORMS, { error: 'Say whether the piece is open, closed or solid.' }).optional(),
+      ventHole: z.boolean().optional(),
+      weightG: z
+        .number({ error: 'Enter the weight in grams.' })
+        .positive({ error: 'The weight must be more than 0 g.' })
+        .max(500_000, { error: 'The weight can be at most 500 kg.' })
+        .optional(),
       clay: claySchema,
-      state: z.enum(['greenware', 'bisque'], { error: 'Say whether the piece is greenware or bisque.' }),
+      state: z.enum(PIECE_STATES, { error: 'Say whether the piece is greenware, bisque or glazed.' }),
       boneDry: z.boolean().optional(),
       glaze: glazeSchema.optional(),
+      materials: z
+        .array(z.enum(MATERIALS, { error: 'Choose glass, metal, combustibles, saggar salts or paper clay.' }))
+        .max(MATERIALS.length)
+        .optional(),
     },
     { error: 'Describe each piece: its size, wall, clay and state.' },
   )
@@ -152,9 +186,11 @@ export const piecesSchema = z
 
 export const firingSpecSchema = z.object(
   {
-    kind: z.enum(['bisque', 'glaze', 'single'], { error: 'Choose bisque, glaze or single firing.' }),
+    kind: firingKindSchema,
     cone: coneSchema,
     atmosphere: atmosphereSchema,
+    cooling: coolingProfileSchema.optional(),
+    sharedLoad: z.boolean().optional(),
     remainingCapacityL: z
       .number({ error: 'Enter the free space in litres.' })
       .min(0, { error: 'Free space cannot be below 0 litres.' })

@@ -1,5 +1,6 @@
 // Bodies of the drop-off-to-pickup routes: check-in, the firing log, results, balance, ratings.
 import { z } from 'zod'
+import { CONE_BENDS } from '../firing/witness'
 import { text } from './text'
 import { coneSchema } from './firing'
 
@@ -29,7 +30,18 @@ export const checkInSchema = z
     path: ['pieces'],
   })
 
-export const CONE_BENDS = ['standing', 'three-oclock', 'touching'] as const
+export { CONE_BENDS }
+
+/** Readings a log keeps: a controller's export at one a minute covers over three days. */
+export const MAX_READINGS = 5000
+
+export const readingSchema = z.object({
+  at: instant,
+  tempC: z
+    .number({ error: 'Enter the temperature in °C.' })
+    .min(-50, 'A reading below −50 °C is not a kiln temperature.')
+    .max(2000, 'A reading above 2000 °C is not a kiln temperature.'),
+})
 
 export const firingLogSchema = z.object({
   loadedAt: instant.nullable().optional(),
@@ -47,8 +59,9 @@ export const firingLogSchema = z.object({
         position: text().trim().max(80).optional(),
       }),
     )
-    .max(30)
+    .max(60)
     .default([]),
+  readings: z.array(readingSchema).max(MAX_READINGS, `At most ${MAX_READINGS} readings; keep one a minute or fewer.`).default([]),
   notes: text().trim().max(4000).optional(),
 })
 export type FiringLogBody = z.infer<typeof firingLogSchema>

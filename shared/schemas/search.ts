@@ -1,5 +1,6 @@
 import { z } from 'zod'
 import { text } from './text'
+import { FIRING_KINDS } from '../firing/check'
 import { coneIndex, parseCone } from '../firing/cones'
 
 const number = (what: string, min: number, max: number) =>
@@ -56,7 +57,7 @@ export const searchQuerySchema = z
     radiusKm: number('distance', 1, 2000).optional(),
     cone: coneFilterSchema.optional(),
     atmosphere: z.enum(['oxidation', 'reduction', 'neutral'], { error: 'Choose oxidation, reduction or neutral.' }).optional(),
-    kind: z.enum(['bisque', 'glaze', 'single'], { error: 'Choose bisque, glaze or single.' }).optional(),
+    kind: z.enum(FIRING_KINDS, { error: 'Choose bisque, glaze, single, lustre or raku.' }).optional(),
     from: day.optional(),
     to: day.optional(),
     fitsHeightMm: number('height', 1, 3000).optional(),

@@ -1,7 +1,7 @@
 // Bodies of the studio, kiln, price list and firing routes. The editors use the same schemas.
 import { z } from 'zod'
 import { text } from './text'
-import { coneSchema, atmosphereSchema, kilnSchema, priceListSchema } from './firing'
+import { coneSchema, atmosphereSchema, coolingProfileSchema, firingKindSchema, kilnSchema, priceListSchema } from './firing'
 import { FIRING_STATUSES } from '../workflow/firing-status'
 import { SEGMENT_ZONES } from '../firing/schedule'
 
@@ -106,7 +106,7 @@ const kilnExtras = z.object({
   notes: longText(2000, 'notes').optional(),
 })
 
-/** A kiln record: its limits (the Kiln of shared/firing/check.ts) and what a host adds. */
+/** A kiln record: its limits (the Kiln of shared/firing/check.ts) and what a studio adds. */
 export const kilnBodySchema = z.intersection(kilnExtras, kilnSchema)
 export type KilnBody = z.infer<typeof kilnBodySchema>
 
@@ -127,10 +127,11 @@ const segmentSchema = z.object({
 })
 
 const firingFields = {
-  kind: z.enum(['bisque', 'glaze', 'single'], { error: 'Choose bisque, glaze or single firing.' }),
+  kind: firingKindSchema,
   cone: coneSchema,
   atmosphere: atmosphereSchema,
   slowCool: z.boolean().optional(),
+  cooling: coolingProfileSchema.optional(),
   dropOffBy: instant('drop-off deadline'),
   firingDate: instant('firing date'),
   readyBy: instant('ready-by date'),
@@ -162,10 +163,17 @@ export const firingCreateSchema = z
 export type FiringCreateBody = z.infer<typeof firingCreateSchema>
 
 export const firingPatchSchema = z
-  .object({ ...firingFields, status: z.enum(FIRING_STATUSES, { error: 'Unknown firing status.' }) })
+  .strictObject({ ...firingFields })
   .partial()
   .superRefine(datesInOrder)
 export type FiringPatchBody = z.infer<typeof firingPatchSchema>
+
+/** A stage move; `confirm` answers the question the server asked (a date ahead, requests that lapse). */
+export const firingMoveSchema = z.object({
+  status: z.enum(FIRING_STATUSES, { error: 'Unknown firing status.' }),
+  confirm: z.boolean().optional(),
+})
+export type FiringMoveBody = z.infer<typeof firingMoveSchema>
 
 export const firingCancelSchema = z.object({
   reason: text({ error: 'Say why the firing is cancelled; potters holding space will read it.' })

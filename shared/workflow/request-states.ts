@@ -13,22 +13,26 @@ export const REQUEST_STATES = [
   'ready',
   'collected',
   'cancelled',
+  'lapsed',
   'disputed',
 ] as const
 export type RequestState = (typeof REQUEST_STATES)[number]
 
 const NEXT: Record<RequestState, readonly RequestState[]> = {
   draft: ['sent', 'cancelled'],
-  sent: ['accepted', 'declined', 'withdrawn', 'cancelled'],
-  accepted: ['deposit_paid', 'withdrawn', 'cancelled'],
+  // Waiting for an answer, or for the deposit: lapses when the firing stops taking ware or time runs out.
+  sent: ['accepted', 'declined', 'withdrawn', 'cancelled', 'lapsed'],
+  accepted: ['deposit_paid', 'withdrawn', 'cancelled', 'lapsed'],
   declined: [],
   withdrawn: [],
   deposit_paid: ['received', 'withdrawn', 'cancelled'],
-  received: ['fired'],
+  // At the studio: the potter may still turn down a price raised at check-in, which withdraws the ware.
+  received: ['fired', 'withdrawn'],
   fired: ['ready', 'disputed'],
   ready: ['collected', 'disputed'],
   collected: ['disputed'],
   cancelled: [],
+  lapsed: [],
   disputed: [],
 }
 
@@ -47,6 +51,11 @@ export function holdsSpace(state: RequestState): boolean {
   return HOLDING_STATES.includes(state)
 }
 
+/** States a request never leaves. */
+export function isFinal(state: RequestState): boolean {
+  return NEXT[state].length === 0
+}
+
 export const REQUEST_STATE_LABELS: Record<RequestState, string> = {
   draft: 'Draft',
   sent: 'Sent',
@@ -59,5 +68,6 @@ export const REQUEST_STATE_LABELS: Record<RequestState, string> = {
   ready: 'Ready',
   collected: 'Collected',
   cancelled: 'Cancelled',
+  lapsed: 'Lapsed',
   disputed: 'Disputed',
 }

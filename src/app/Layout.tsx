@@ -5,6 +5,7 @@ import { Logo } from '../components/Logo'
 import { Button } from '../components/ui/Button'
 import { useMe, useResendVerification, useSignOut } from '../features/auth/api/auth'
 import { homePath } from '../features/auth/homePath'
+import { NoticeBell } from '../features/notices/components/NoticeBell'
 import { useSiteMeta } from '../lib/meta'
 
 interface NavItem {
@@ -70,19 +71,23 @@ export function Layout() {
           <Link to={user ? homePath(user) : '/'} aria-label="Conewright home">
             <Logo />
           </Link>
-          <button
-            type="button"
-            className="rounded-control p-2 text-slip-700 hover:bg-slip-100 md:hidden"
-            aria-expanded={menuOpen}
-            aria-controls="main-nav"
-            onClick={() => setMenuOpen((open) => !open)}
-          >
-            Menu
-          </button>
+          {/* The notices stay in sight on a phone, beside the menu button. */}
+          <div className="ml-auto flex items-center gap-1 md:order-last md:ml-1">
+            {user && <NoticeBell />}
+            <button
+              type="button"
+              className="rounded-control p-2 text-slip-700 hover:bg-slip-100 md:hidden"
+              aria-expanded={menuOpen}
+              aria-controls="main-nav"
+              onClick={() => setMenuOpen((open) => !open)}
+            >
+              Menu
+            </button>
+          </div>
           <nav
             id="main-nav"
             aria-label="Main"
-            className={`${menuOpen ? 'flex' : 'hidden'} absolute inset-x-0 top-14 z-40 flex-col gap-1 border-b border-slip-200 bg-white p-3 md:static md:flex md:flex-row md:items-center md:border-0 md:p-0`}
+            className={`${menuOpen ? 'flex' : 'hidden'} absolute inset-x-0 top-14 z-40 flex-col gap-1 border-b border-slip-200 bg-white p-3 md:static md:ml-auto md:flex md:flex-row md:items-center md:border-0 md:p-0`}
           >
             {items.map((item) => (
               <NavLink key={item.to} to={item.to} className={linkClass} onClick={() => setMenuOpen(false)}>

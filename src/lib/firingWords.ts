@@ -1,5 +1,5 @@
-// Kilns, firings and policies in plain words, as potters and hosts read them.
-import type { Atmosphere, FiringKind, Kiln, KilnInterior, KilnKind } from '../../shared/firing/check'
+// Kilns, firings and policies in plain words, as potters and studios read them.
+import type { Atmosphere, CoolingProfile, FiringKind, Kiln, KilnInterior, KilnKind } from '../../shared/firing/check'
 import { formatCone } from '../../shared/firing/cones'
 import type { StudioPolicies } from '../../shared/schemas/studios'
 import { formatLength, type UnitSystem } from './units'
@@ -23,7 +23,21 @@ export const FIRING_KINDS: readonly { value: FiringKind; label: string }[] = [
   { value: 'bisque', label: 'Bisque' },
   { value: 'glaze', label: 'Glaze' },
   { value: 'single', label: 'Single firing' },
+  { value: 'lustre', label: 'Lustre, decals and china paint' },
+  { value: 'raku', label: 'Raku' },
 ]
+
+export const COOLING_CHOICES: readonly { value: CoolingProfile; label: string; hint: string }[] = [
+  { value: 'natural', label: 'Natural cool', hint: 'The kiln cools by itself.' },
+  {
+    value: 'glaze-development',
+    label: 'Slow through glaze development',
+    hint: 'About 80 °C/h from 1040 to 760 °C, for mattes and crystals to grow. Needs controlled cooling.',
+  },
+  { value: 'drop-and-hold', label: 'Drop and hold', hint: 'Down about 55 °C from the peak, held 30 minutes, to heal pinholes.' },
+]
+
+export const coolingLabel = (cooling: CoolingProfile) => COOLING_CHOICES.find((c) => c.value === cooling)?.label ?? cooling
 
 const kindLabel = (kind: KilnKind) => KILN_KINDS.find((k) => k.value === kind)?.label ?? kind
 export const firingKindLabel = (kind: FiringKind) => FIRING_KINDS.find((k) => k.value === kind)?.label ?? kind
@@ -54,9 +68,16 @@ export function kilnLimitsInWords(
   ].join(', ')
 }
 
-/** "Glaze, cone 6 oxidation" (with slow cooling when asked). */
-export function firingInWords(firing: { kind: FiringKind; cone: string; atmosphere: Atmosphere; slowCool?: boolean }): string {
-  return `${firingKindLabel(firing.kind)}, ${formatCone(firing.cone)} ${firing.atmosphere}${firing.slowCool ? ', slow cooled' : ''}`
+/** "Glaze, cone 6 oxidation" (with slow cooling and the cooling profile when asked). */
+export function firingInWords(firing: {
+  kind: FiringKind
+  cone: string
+  atmosphere: Atmosphere
+  slowCool?: boolean
+  cooling?: CoolingProfile
+}): string {
+  const cooling = firing.cooling && firing.cooling !== 'natural' ? `, ${coolingLabel(firing.cooling).toLowerCase()}` : ''
+  return `${firingKindLabel(firing.kind)}, ${formatCone(firing.cone)} ${firing.atmosphere}${firing.slowCool ? ', slow cooled' : ''}${cooling}`
 }
 
 export function policiesInWords(policies: StudioPolicies): string[] {

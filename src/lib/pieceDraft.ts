@@ -1,7 +1,7 @@
 // A piece as a form holds it while it is typed: sizes in mm (SI, as the firing science takes them),
 // numbers possibly empty or not numbers yet, and the choices that hide fields ("round", "glazed").
 
-import type { ClayBody, Piece, PieceState } from '../../shared/firing/check'
+import type { ClayBody, Colourant, GlazeSupport, Material, Piece, PieceForm, PieceState } from '../../shared/firing/check'
 
 /** A number field's value: undefined while empty, NaN while it holds something that is not a number. */
 export type NumberDraft = number | undefined
@@ -15,11 +15,25 @@ export interface PieceDraft {
   depthMm: NumberDraft
   round: boolean
   wallThicknessMm: NumberDraft
+  form: PieceForm
+  ventHole: boolean
+  weightG: NumberDraft
   clay: { body: ClayBody; minCone: string; maxCone: string }
   state: PieceState
   boneDry: boolean
   glazed: boolean
-  glaze: { minCone: string; maxCone: string; runny: boolean; onFoot: boolean; onCookie: boolean }
+  glaze: {
+    minCone: string
+    maxCone: string
+    runny: boolean
+    onFoot: boolean
+    support: GlazeSupport
+    /** Checkbox lists hold the values ticked; react-hook-form gives false when none is. */
+    colourants: Colourant[] | false
+    reductionOnly: boolean
+    untested: boolean
+  }
+  materials: Material[] | false
 }
 
 /** A form with a list of pieces, as the shared piece rows edit it. */
@@ -37,11 +51,24 @@ export function newPiece(): PieceDraft {
     depthMm: 88.9,
     round: true,
     wallThicknessMm: 6.35,
+    form: 'open',
+    ventHole: false,
+    weightG: undefined,
     clay: { body: 'stoneware', minCone: '5', maxCone: '10' },
     state: 'bisque',
     boneDry: false,
     glazed: true,
-    glaze: { minCone: '5', maxCone: '6', runny: false, onFoot: false, onCookie: false },
+    glaze: {
+      minCone: '5',
+      maxCone: '6',
+      runny: false,
+      onFoot: false,
+      support: 'none',
+      colourants: [],
+      reductionOnly: false,
+      untested: false,
+    },
+    materials: [],
   }
 }
 
@@ -56,10 +83,28 @@ export function pieceInputOf(piece: PieceDraft) {
     depthMm: piece.round ? piece.widthMm : piece.depthMm,
     round: piece.round,
     wallThicknessMm: piece.wallThicknessMm,
+    form: piece.form,
+    ventHole: piece.form === 'closed' ? piece.ventHole : undefined,
+    weightG: piece.weightG,
     clay: piece.clay,
     state: piece.state,
     boneDry: piece.state === 'greenware' ? piece.boneDry : undefined,
-    glaze: piece.glazed ? piece.glaze : undefined,
+    glaze: piece.glazed ? glazeInputOf(piece.glaze) : undefined,
+    materials: piece.materials ? piece.materials : [],
+  }
+}
+
+function glazeInputOf(glaze: PieceDraft['glaze']) {
+  return {
+    minCone: glaze.minCone,
+    maxCone: glaze.maxCone,
+    runny: glaze.runny,
+    onFoot: glaze.onFoot,
+    support: glaze.support,
+    colourants: glaze.colourants ? glaze.colourants : [],
+    reductionOnly: glaze.reductionOnly,
+    // Left out unless the potter says it is untried, so saying nothing raises no finding.
+    ...(glaze.untested ? { tested: false } : {}),
   }
 }
 
@@ -74,6 +119,9 @@ export function pieceDraftOf(piece: Piece): PieceDraft {
     depthMm: piece.depthMm,
     round: piece.round ?? false,
     wallThicknessMm: piece.wallThicknessMm,
+    form: piece.form ?? 'open',
+    ventHole: piece.ventHole ?? false,
+    weightG: piece.weightG,
     clay: { ...piece.clay },
     state: piece.state,
     boneDry: piece.boneDry ?? false,
@@ -84,8 +132,12 @@ export function pieceDraftOf(piece: Piece): PieceDraft {
           maxCone: piece.glaze.maxCone,
           runny: piece.glaze.runny ?? false,
           onFoot: piece.glaze.onFoot ?? false,
-          onCookie: piece.glaze.onCookie ?? false,
+          support: piece.glaze.support ?? 'none',
+          colourants: piece.glaze.colourants ?? [],
+          reductionOnly: piece.glaze.reductionOnly ?? false,
+          untested: piece.glaze.tested === false,
         }
       : blank.glaze,
+    materials: piece.materials ?? [],
   }
 }

@@ -3,7 +3,18 @@
 // Conversions come from shared/firing/units.ts.
 
 import type { UnitSystem } from '../../shared/schemas/auth'
-import { cToF, cubicInchesToLitres, fToC, inToMm, litresToCubicInches, mmToIn, rateCToF, rateFToC } from '../../shared/firing/units'
+import {
+  cToF,
+  cubicInchesToLitres,
+  fToC,
+  gToLb,
+  inToMm,
+  lbToG,
+  litresToCubicInches,
+  mmToIn,
+  rateCToF,
+  rateFToC,
+} from '../../shared/firing/units'
 
 export type { UnitSystem }
 export type TemperatureScale = 'F' | 'C'
@@ -36,6 +47,10 @@ export const CUBIC_FEET: Measure = {
   fromShown: (cubicFeet) => cubicInchesToLitres(cubicFeet * CUBIC_INCHES_PER_CUBIC_FOOT),
   decimals: 2,
 }
+export const GRAMS: Measure = { suffix: 'g', toShown: same, fromShown: same, decimals: 0 }
+export const POUNDS: Measure = { suffix: 'lb', toShown: gToLb, fromShown: lbToG, decimals: 2 }
+export const KILOGRAMS: Measure = { suffix: 'kg', toShown: same, fromShown: same, decimals: 1 }
+export const POUNDS_FROM_KG: Measure = { suffix: 'lb', toShown: (kg) => gToLb(kg * 1000), fromShown: (lb) => lbToG(lb) / 1000, decimals: 1 }
 export const COUNT: Measure = { suffix: '', toShown: same, fromShown: same, decimals: 0 }
 export const PLAIN_NUMBER: Measure = { suffix: '', toShown: same, fromShown: same, decimals: 2 }
 export const PERCENT: Measure = { suffix: '%', toShown: same, fromShown: same, decimals: 2 }
@@ -43,6 +58,10 @@ export const PERCENT: Measure = { suffix: '%', toShown: same, fromShown: same, d
 export const FRACTIONAL_CENTS: Measure = { suffix: '¢', toShown: same, fromShown: same, decimals: 3 }
 
 export const lengthMeasure = (units: UnitSystem) => (units === 'metric' ? MILLIMETRES : INCHES)
+/** A piece's weight, stored in grams. */
+export const pieceWeightMeasure = (units: UnitSystem) => (units === 'metric' ? GRAMS : POUNDS)
+/** A shelf's load, stored in kilograms. */
+export const shelfLoadMeasure = (units: UnitSystem) => (units === 'metric' ? KILOGRAMS : POUNDS_FROM_KG)
 export const temperatureMeasure = (units: UnitSystem) => (units === 'metric' ? CELSIUS : FAHRENHEIT)
 export const rateMeasure = (units: UnitSystem) => (units === 'metric' ? CELSIUS_PER_HOUR : FAHRENHEIT_PER_HOUR)
 export const capacityMeasure = (units: UnitSystem) => (units === 'metric' ? LITRES : CUBIC_FEET)

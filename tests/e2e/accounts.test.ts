@@ -13,7 +13,7 @@ const PASSWORD = 'brushed-shino-over-iron-slip'
 beforeAll(async () => {
   app = await startTestApp({ mail: true, serveClient: true })
   browser = await launchBrowser()
-}, 90_000)
+})
 
 afterAll(async () => {
   await browser?.close()

@@ -18,7 +18,7 @@ const contexts: BrowserContext[] = []
 beforeAll(async () => {
   app = await startTestApp({ mail: true, serveClient: true })
   browser = await launchBrowser()
-}, 90_000)
+})
 
 afterAll(async () => {
   for (const context of contexts) await context.close().catch(() => undefined)

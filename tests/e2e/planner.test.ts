@@ -11,7 +11,7 @@ let browser: Browser
 beforeAll(async () => {
   app = await startTestApp({ worker: false, serveClient: true })
   browser = await launchBrowser()
-}, 90_000)
+})
 
 afterAll(async () => {
   await browser?.close()
@@ -83,6 +83,58 @@ describe('the firing planner', () => {
     await page.getByText('mm · °C', { exact: true }).click()
     // 4 in = 101.6 mm exactly (NIST SP 811).
     expect(await piece.getByLabel('Height (mm)').inputValue()).toBe('101.6')
+    expect(errors).toEqual([])
+  })
+})
+
+describe('lustre and raku in the planner', () => {
+  it('plans a raku firing: a fast climb, ware pulled hot, and the outdoor and protective-gear caution', async () => {
+    const { page, errors } = await newPage()
+    await page.goto('/planner')
+    await page.getByLabel('Start from a demo kiln').selectOption({ label: 'Raku kiln, fibre-lined, gas, to cone 04' })
+    const firing = page.getByRole('region', { name: 'Firing' })
+    await firing.getByLabel('Firing', { exact: true }).selectOption('raku')
+    await firing.getByLabel('Cone').fill('06')
+    const piece = page.getByRole('group', { name: 'Piece 1' })
+    await piece.getByLabel('Clay body').selectOption('raku')
+    await piece.getByLabel('Clay matures from cone').fill('010')
+    await piece.getByLabel('Clay rated to cone').fill('04')
+    await piece.getByLabel('Glaze from cone').fill('07')
+    await piece.getByLabel('Glaze to cone').fill('05')
+
+    const safety = page.locator('[data-finding="firing-safety"]')
+    await safety.waitFor()
+    expect(await safety.textContent()).toMatch(/outdoors/)
+    expect(await page.getByTestId('verdict').getAttribute('data-verdict')).toBe('ok')
+    await page.locator('[data-testid="firing-curve"] svg.recharts-surface').waitFor()
+    await page.getByRole('cell', { name: 'Pulled hot (cools outside the kiln)' }).waitFor()
+
+    // The same pot in stoneware is refused: only a raku body survives being pulled hot.
+    await piece.getByLabel('Clay body').selectOption('stoneware')
+    await page.locator('[data-finding="raku-body"]').waitFor()
+    expect(await page.getByTestId('verdict').getAttribute('data-verdict')).toBe('block')
+    expect(errors).toEqual([])
+  })
+
+  it('plans a lustre firing on glaze-fired ware at cone 018, vented through the burnout', async () => {
+    const { page, errors } = await newPage()
+    await page.goto('/planner')
+    await page.getByLabel('Start from a demo kiln').selectOption({ label: 'Electric top-loader, 7 cu ft, to cone 10' })
+    const firing = page.getByRole('region', { name: 'Firing' })
+    await firing.getByLabel('Firing', { exact: true }).selectOption('lustre')
+    await firing.getByLabel('Cone').fill('018')
+    const piece = page.getByRole('group', { name: 'Piece 1' })
+
+    // Bisque is not glazed ware: lustre goes over a fired glaze.
+    await page.locator('[data-finding="lustre-ware"]').waitFor()
+    await piece.getByLabel('State').selectOption('glazed')
+    await page.locator('[data-finding="lustre-ware"]').waitFor({ state: 'detached' })
+    expect(await page.locator('[data-finding="firing-safety"]').textContent()).toMatch(/fumes/)
+    expect(await page.getByTestId('verdict').getAttribute('data-verdict')).toBe('ok')
+    await page.getByText('°C', { exact: true }).click()
+    // Chart, 60 °C/h column: cone 018 bends at 715 °C.
+    expect(await page.getByTestId('peak-temperature').textContent()).toBe('715 °C')
+    expect(await page.getByTestId('predicted-cone').textContent()).toBe('cone 018')
     expect(errors).toEqual([])
   })
 })

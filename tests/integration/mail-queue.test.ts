@@ -48,7 +48,7 @@ describe('the mail queue', () => {
     const mail = await app.ctx.db.transaction((manager) => queueMail(manager, 'outage@example.test', 'test', content('After the outage')))
     // The worker tries, fails, and records the failure on the mail and the job.
     await expect
-      .poll(async () => (await app.ctx.db.getRepository(OutboundMail).findOneByOrFail({ id: mail.id })).attempts, { timeout: 10_000 })
+      .poll(async () => (await app.ctx.db.getRepository(OutboundMail).findOneByOrFail({ id: mail.id })).attempts, { timeout: 60_000 })
       .toBeGreaterThan(0)
     const failed = await app.ctx.db.getRepository(OutboundMail).findOneByOrFail({ id: mail.id })
     expect(failed.sentAt).toBeNull()
@@ -62,9 +62,9 @@ describe('the mail queue', () => {
     expect(caught.text).toContain('Your ware is ready for pickup.')
     expect(caught.html).toContain('Your ware is ready for pickup.')
     await expect
-      .poll(async () => (await app.ctx.db.getRepository(OutboundMail).findOneByOrFail({ id: mail.id })).sentAt, { timeout: 10_000 })
+      .poll(async () => (await app.ctx.db.getRepository(OutboundMail).findOneByOrFail({ id: mail.id })).sentAt, { timeout: 60_000 })
       .not.toBeNull()
-    await expect.poll(async () => (await jobsFor(mail.id)).length, { timeout: 10_000 }).toBe(0)
+    await expect.poll(async () => (await jobsFor(mail.id)).length, { timeout: 60_000 }).toBe(0)
   })
 
   it('sends a mail once even when two workers take it at the same moment', async () => {

@@ -39,7 +39,7 @@ const paid = (firingId: string, pieces = [mug()]) => sendAndPayDeposit(app, owne
 
 async function move(firingId: string, ...statuses: string[]) {
   for (const status of statuses) {
-    const reply = await owner.session.patch(`/api/firings/${firingId}`, { status })
+    const reply = await owner.session.post(`/api/firings/${firingId}/stage`, { status, confirm: true })
     expect(reply.status, JSON.stringify(reply.body)).toBe(200)
   }
 }
@@ -75,15 +75,17 @@ describe('the whole way, from drop-off to ratings', () => {
     )
 
     // The log, seen by every potter in the firing on their request.
+    // Log times are in the past (a log records what happened): loaded 40 hours ago, opened 8 hours ago.
+    const hoursAgo = (hours: number) => new Date(Date.now() - hours * 3_600_000).toISOString()
     const log = await owner.session.put(`/api/firings/${firingId}/log`, {
-      loadedAt: '2027-01-08T15:00:00Z',
-      startedAt: '2027-01-08T17:00:00Z',
+      loadedAt: hoursAgo(40),
+      startedAt: hoursAgo(38),
       // Orton's self-supporting chart: cone 6 at 1222 °C when the last 100 °C climb at 60 °C/h.
       peakC: 1222,
       finalRateCPerHour: 60,
       holdMinutes: 10,
-      offAt: '2027-01-09T05:00:00Z',
-      openedAt: '2027-01-10T03:00:00Z',
+      offAt: hoursAgo(26),
+      openedAt: hoursAgo(8),
       witnessCones: [
         { cone: '5', bend: 'touching' },
         { cone: '6', bend: 'three-oclock' },
@@ -91,7 +93,8 @@ describe('the whole way, from drop-off to ratings', () => {
       ],
     })
     expect(log.status, JSON.stringify(log.body)).toBe(200)
-    expect(log.body).toMatchObject({ totalHours: 12, coneCheck: { fromCones: '6', fromPeak: '6', agree: true, inconsistent: false } })
+    // The heat work of a 60 °C/h climb to 1222 °C and a 10-minute hold: cone 6 (the chart's 60 °C/h column).
+    expect(log.body).toMatchObject({ totalHours: 12, coneCheck: { fromCones: '6', fromCurve: '6', agree: true, inconsistent: false } })
     expect((await potter.session.get(`/api/requests/${sent.id}`)).body.firingLog.coneCheck.fromCones).toBe('6')
 
     // Ready needs results first.
@@ -103,7 +106,7 @@ describe('the whole way, from drop-off to ratings', () => {
     const ready = await owner.session.post(`/api/requests/${sent.id}/ready`)
     expect(ready.body.state).toBe('ready')
     const owed = sent.quote.totalCents - sent.quote.depositCents
-    expect(ready.body.owedCents).toBe(owed)
+    expect(ready.body.price.balanceOwedCents).toBe(owed)
     const readyMail = await mailsFor('ready', sent.id)
     expect(readyMail[0].bodyText).toContain('Pickup hours')
     expect(readyMail[0].bodyText).toContain(new Intl.NumberFormat('en-US', { style: 'currency', currency: 'USD' }).format(owed / 100))
@@ -113,7 +116,9 @@ describe('the whole way, from drop-off to ratings', () => {
     const balance = await potter.session.post(`/api/requests/${sent.id}/balance`)
     expect(balance.body.amountCents).toBe(owed)
     await submitCard(balance.body.checkoutUrl, { cardNumber: CARD_SUCCEEDS })
-    await expect.poll(async () => (await potter.session.get(`/api/requests/${sent.id}`)).body.owedCents, { timeout: 15_000 }).toBe(0)
+    await expect
+      .poll(async () => (await potter.session.get(`/api/requests/${sent.id}`)).body.price.balanceOwedCents, { timeout: 60_000 })
+      .toBe(0)
     const ledger = (await potter.session.get(`/api/requests/${sent.id}`)).body.ledger.map(
       (l: { kind: string; amountCents: number }) => `${l.kind}:${l.amountCents}`,
     )
@@ -166,9 +171,9 @@ describe('drop-off', () => {
     const potterView = (await potter.session.get(`/api/requests/${sent.id}`)).body
     expect(potterView.actions).toContain('confirm-price')
     // Until confirmed, the declared price stands.
-    expect(potterView.owedCents).toBe(sent.quote.totalCents - sent.quote.depositCents)
+    expect(potterView.price.balanceOwedCents).toBe(sent.quote.totalCents - sent.quote.depositCents)
     await potter.session.post(`/api/requests/${sent.id}/confirm-price`)
-    expect((await potter.session.get(`/api/requests/${sent.id}`)).body.owedCents).toBe(
+    expect((await potter.session.get(`/api/requests/${sent.id}`)).body.price.balanceOwedCents).toBe(
       checkedIn.body.priceAfterCents - sent.quote.depositCents,
     )
   })
@@ -179,7 +184,7 @@ describe('drop-off', () => {
     const checkedIn = await owner.session.post(`/api/requests/${sent.id}/check-in`, { pieces: [{ pieceIndex: 0, received: 2 }] })
     expect(checkedIn.body.needsConfirmation).toBe(false)
     expect(checkedIn.body.priceAfterCents).toBeLessThan(sent.quote.totalCents)
-    expect((await potter.session.get(`/api/requests/${sent.id}`)).body.owedCents).toBe(
+    expect((await potter.session.get(`/api/requests/${sent.id}`)).body.price.balanceOwedCents).toBe(
       Math.max(0, checkedIn.body.priceAfterCents - sent.quote.depositCents),
     )
   })

@@ -208,7 +208,7 @@ describe('the message thread', () => {
           (await app.ctx.db.getRepository(OutboundMail).find({ where: { template: 'new-messages' } })).filter((m) =>
             m.bodyText.includes(sent.id),
           ).length,
-        { timeout: 15_000 },
+        { timeout: 60_000 },
       )
       .toBe(3)
     const toOwner = (

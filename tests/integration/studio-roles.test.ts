@@ -119,10 +119,27 @@ const ROUTES: WriteRoute[] = [
     expect: { owner: 201, crew: 201, ...refused, admin: 201 },
   },
   {
-    name: 'move a firing’s status',
+    name: 'change a firing’s space',
     method: 'PATCH',
-    path: freshFiring,
-    body: { status: 'closed' },
+    path: async () => `/api/firings/${await freshFiring()}`,
+    body: { capacityL: 30 },
+    expect: { owner: 200, crew: 200, ...refused, admin: 200 },
+  },
+  {
+    name: 'move a firing’s stage',
+    method: 'POST',
+    path: async () => `/api/firings/${await freshFiring()}/stage`,
+    body: { status: 'closed', confirm: true },
+    expect: { owner: 200, crew: 200, ...refused, admin: 200 },
+  },
+  {
+    name: 'undo a firing’s last stage move',
+    method: 'POST',
+    path: async () => {
+      const firingId = await freshFiring()
+      await session('owner').post(`/api/firings/${firingId}/stage`, { status: 'closed', confirm: true })
+      return `/api/firings/${firingId}/undo`
+    },
     expect: { owner: 200, crew: 200, ...refused, admin: 200 },
   },
   {
@@ -162,9 +179,8 @@ const ROUTES: WriteRoute[] = [
 
 describe.each(ROUTES)('$method to $name', (route) => {
   it.each([...ROLES, 'admin' as Role])('as %s', async (role) => {
-    let path = await route.path()
     // Firing routes act on a fresh firing so one role's change does not decide the next one's answer.
-    if (route.name === 'move a firing’s status') path = `/api/firings/${path}`
+    const path = await route.path()
     const reply = await session(role).request(route.method, path, route.body)
     expect(reply.status, JSON.stringify(reply.body)).toBe(route.expect[role])
     if (reply.status >= 400) expect(reply.body.error).toMatchObject({ code: expect.any(String), message: expect.any(String) })

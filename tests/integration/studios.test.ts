@@ -185,11 +185,11 @@ describe('repeating a firing', () => {
 describe('firing status', () => {
   it('moves only along the allowed path; a forbidden move is a 409 naming the allowed ones', async () => {
     const firing = (await owner.session.post(`/api/kilns/${ids.kilnId}/firings`, firingBody())).body.firings[0]
-    const jump = await owner.session.patch(`/api/firings/${firing.id}`, { status: 'cooling' })
+    const jump = await owner.session.post(`/api/firings/${firing.id}/stage`, { status: 'cooling' })
     expect(jump.status).toBe(409)
     expect(jump.body.error.allowed).toEqual(['full', 'closed', 'loading', 'cancelled'])
     for (const status of ['loading', 'firing', 'cooling', 'unloaded']) {
-      expect((await owner.session.patch(`/api/firings/${firing.id}`, { status })).body.status).toBe(status)
+      expect((await owner.session.post(`/api/firings/${firing.id}/stage`, { status, confirm: true })).body.status).toBe(status)
     }
     const cancel = await owner.session.post(`/api/firings/${firing.id}/cancel`, { reason: 'Too late' })
     expect(cancel.status).toBe(409)
@@ -275,7 +275,7 @@ describe('crew invitations', () => {
     // One use only.
     expect((await new HttpSession(app.url).post('/api/invites/lookup', { token })).status).toBe(400)
     // Crew run the firings, but the price list is the owner's.
-    expect((await session.patch(`/api/firings/${ids.firingId}`, { status: 'closed' })).status).toBe(200)
+    expect((await session.post(`/api/firings/${ids.firingId}/stage`, { status: 'closed', confirm: true })).status).toBe(200)
     expect(
       (await session.put(`/api/kilns/${ids.kilnId}/price-list`, { currency: 'USD', model: 'kiln', kilnCents: 1, deposit: { percent: 0 } }))
         .status,

@@ -101,7 +101,8 @@ describe('POST /api/ware-checks, verdicts', () => {
     const reply = await check({ kiln: weakKiln, firing: { ...glazeFiring, atmosphere: 'reduction' }, pieces: [mug] })
     expect(reply.status).toBe(200)
     expect(reply.body.verdict).toBe('block')
-    expect(codes(reply.body)).toEqual(['atmosphere-unavailable', 'kiln-cone-range', 'kiln-max-temp'])
+    // A reduction firing also carries its carbon monoxide caution (an info finding).
+    expect(codes(reply.body)).toEqual(['atmosphere-unavailable', 'firing-safety', 'kiln-cone-range', 'kiln-max-temp'])
   })
 
   it('blocks a piece taller than the kiln and warns in the same answer: the verdict is the worst', async () => {
@@ -207,13 +208,15 @@ describe('POST /api/ware-checks, bad input', () => {
     expect(reply.body.error.code).toBe('malformed-json')
   })
 
-  it('a price list that cannot price this kiln is a 400 on the price list', async () => {
-    // A 20 mm round chamber leaves no shelf once the 25 mm clearance is taken (check.ts).
+  it('prices shelf space in a tiny test chamber on a shelf cut to fit it', async () => {
+    // A 20 mm round chamber: the clearance takes at most a quarter of it (check.ts), so a 15 mm shelf.
     const tiny = { ...electricKiln, interior: { shape: 'round', diameterMm: 20, heightMm: 686 } }
     const priceList = { currency: 'USD', model: 'shelf', shelfCents: 2000, deposit: { percent: 50 } }
     const reply = await check({ kiln: tiny, firing: glazeFiring, pieces: [mug], priceList })
-    expect(reply.status).toBe(400)
-    expect(reply.body.error.fields.priceList).toMatch(/shelf/)
+    expect(reply.status).toBe(200)
+    expect(reply.body.fit.shelf).toEqual({ shape: 'round', diameterMm: 15 })
+    expect(codes(reply.body)).toContain('piece-too-wide')
+    expect(Number.isInteger(reply.body.quote.totalCents)).toBe(true)
   })
 
   it('a firing id that names no firing is a 404', async () => {

@@ -30,7 +30,7 @@ export function watchPageErrors(page: Page): string[] {
   return errors
 }
 
-/** A fresh browser context and page on the app, with page errors collected and a 15 s default wait. */
+/** A fresh browser context and page on the app, with page errors collected and a 60 s default wait (a ceiling for a busy machine; every wait is on a state). */
 export async function openPage(
   browser: Browser,
   baseURL: string,
@@ -38,6 +38,6 @@ export async function openPage(
 ): Promise<{ page: Page; errors: string[]; context: BrowserContext }> {
   const context = await browser.newContext({ baseURL, viewport: { width: 1280, height: 900 }, ...options })
   const page = await context.newPage()
-  page.setDefaultTimeout(15_000)
+  page.setDefaultTimeout(60_000)
   return { page, errors: watchPageErrors(page), context }
 }

@@ -17,7 +17,7 @@ export async function listMail(inboxUrl: string): Promise<CaughtMail[]> {
 export async function waitForMail(
   inboxUrl: string,
   match: { to: string; subject?: string | RegExp; after?: Date },
-  timeoutMs = 15_000,
+  timeoutMs = 60_000,
 ): Promise<CaughtMail> {
   const deadline = Date.now() + timeoutMs
   while (Date.now() < deadline) {

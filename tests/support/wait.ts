@@ -1,5 +1,5 @@
 /** Polls until `check` returns true (for set-up code, where expect.poll is not available). */
-export async function waitUntil(check: () => Promise<boolean>, { timeout = 20_000, interval = 250, what = 'the condition' } = {}) {
+export async function waitUntil(check: () => Promise<boolean>, { timeout = 60_000, interval = 250, what = 'the condition' } = {}) {
   const deadline = Date.now() + timeout
   while (Date.now() < deadline) {
     if (await check()) return

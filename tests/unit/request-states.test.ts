@@ -4,7 +4,9 @@ import { canMoveFiring, FIRING_STATUSES, type FiringStatus } from '../../shared/
 
 // The request lifecycle as the product design states it: draft → sent → accepted | declined |
 // withdrawn → deposit paid → received → fired → ready → collected, with cancelled reachable until
-// received and disputed after fired. Withdrawal stays open to the potter until drop-off.
+// received and disputed after fired. Withdrawal stays open to the potter until drop-off, and after it
+// only to turn down a price the measured ware raised. A request still waiting for an answer or for
+// its deposit lapses when its firing stops taking ware or its time runs out.
 const ALLOWED: [RequestState, RequestState][] = [
   ['draft', 'sent'],
   ['draft', 'cancelled'],
@@ -12,13 +14,16 @@ const ALLOWED: [RequestState, RequestState][] = [
   ['sent', 'declined'],
   ['sent', 'withdrawn'],
   ['sent', 'cancelled'],
+  ['sent', 'lapsed'],
   ['accepted', 'deposit_paid'],
   ['accepted', 'withdrawn'],
   ['accepted', 'cancelled'],
+  ['accepted', 'lapsed'],
   ['deposit_paid', 'received'],
   ['deposit_paid', 'withdrawn'],
   ['deposit_paid', 'cancelled'],
   ['received', 'fired'],
+  ['received', 'withdrawn'],
   ['fired', 'ready'],
   ['fired', 'disputed'],
   ['ready', 'collected'],
@@ -40,8 +45,9 @@ describe('the request state machine', () => {
       expect(canMoveRequest(state, 'cancelled')).toBe(false)
   })
 
-  it('ends declined, withdrawn, cancelled and disputed requests for good', () => {
-    for (const state of ['declined', 'withdrawn', 'cancelled', 'disputed'] as RequestState[]) expect(nextRequestStates(state)).toEqual([])
+  it('ends declined, withdrawn, cancelled, lapsed and disputed requests for good', () => {
+    for (const state of ['declined', 'withdrawn', 'cancelled', 'lapsed', 'disputed'] as RequestState[])
+      expect(nextRequestStates(state)).toEqual([])
   })
 
   it('holds space from acceptance on, and not before or after an ending that frees it', () => {

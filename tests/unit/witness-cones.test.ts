@@ -46,22 +46,21 @@ describe('cross-checking the cones with the peak', () => {
         { cone: '6', bend: 'three-oclock' },
         { cone: '7', bend: 'standing' },
       ],
-      1222,
-      60,
+      { peakC: 1222, finalRateCPerHour: 60 },
     )
-    expect(check).toMatchObject({ fromCones: '6', fromPeak: '6', agree: true, inconsistent: false })
+    expect(check).toMatchObject({ fromCones: '6', fromCurve: '6', agree: true, inconsistent: false })
   })
 
-  it('flags a thermocouple reading that does not match the cones', () => {
-    // Orton self-supporting, 60 °C/h: cone 6 1222 °C, cone 7 1239 °C; a 1245 °C peak predicts cone 7.
+  it('flags a thermocouple reading more than one cone from the cones', () => {
+    // Orton self-supporting, 60 °C/h: cone 6 1222 °C, cone 9 1260 °C; a 1262 °C peak predicts cone 9.
     const check = crossCheckCones(
       [
         { cone: '6', bend: 'three-oclock' },
         { cone: '7', bend: 'standing' },
       ],
-      1245,
-      60,
+      { peakC: 1262, finalRateCPerHour: 60 },
     )
+    expect(check.fromCurve).toBe('9')
     expect(check.agree).toBe(false)
     expect(check.message).toMatch(/thermocouple/)
   })
@@ -73,8 +72,7 @@ describe('cross-checking the cones with the peak', () => {
           { cone: '5', bend: 'standing' },
           { cone: '6', bend: 'touching' },
         ],
-        null,
-        null,
+        {},
       ).inconsistent,
     ).toBe(true)
   })

@@ -116,3 +116,68 @@ export function firingProgressMail(r: RequestFacts, stage: 'firing' | 'unloaded'
     action: { label: 'See the request', url: r.requestUrl },
   }
 }
+
+/** The studio hears how the potter answered a price raised at check-in. */
+export function priceAnsweredMail(r: RequestFacts, answer: 'confirmed' | 'declined', refundCents: number): MailContent {
+  return {
+    subject: `${answer === 'confirmed' ? 'New price confirmed' : 'New price turned down'}: ${r.potterName}, ${title(r)}`,
+    paragraphs: [
+      answer === 'confirmed'
+        ? `${r.potterName} agreed to the price from the measured ware, ${formatMoney(r.totalCents, r.currency)}. The ware can go in the kiln.`
+        : `${r.potterName} turned down the price from the measured ware. The request is withdrawn: keep the ware aside for them to collect, and leave it out of the load.`,
+      ...(answer === 'declined' && refundCents > 0
+        ? [`Everything they paid, ${formatMoney(refundCents, r.currency)}, is refunded to them in full.`]
+        : []),
+    ],
+    action: { label: 'See the request', url: r.requestUrl },
+  }
+}
+
+/** The potter's own record of turning the new price down. */
+export function priceDeclinedPotterMail(r: RequestFacts, refundCents: number): MailContent {
+  return {
+    subject: `Withdrawn at the new price: the ${title(r)}`,
+    greeting: `Hello ${r.potterName},`,
+    paragraphs: [
+      'You turned down the price from the measured ware, so your request is withdrawn and your ware will not be fired.',
+      refundCents > 0
+        ? `Everything you paid, ${formatMoney(refundCents, r.currency)}, is being refunded to your card.`
+        : 'You had paid nothing, so nothing is owed.',
+      `Collect your ware from ${r.studioName} during their opening hours.`,
+    ],
+    action: { label: 'See the request', url: r.requestUrl },
+  }
+}
+
+/** A payment came in: a receipt to the potter, a note to the studio. */
+export function paymentReceivedMail(
+  r: RequestFacts,
+  audience: 'potter' | 'studio',
+  payment: { what: 'deposit' | 'balance'; how: 'online' | 'counter'; amountCents: number; paidCents: number; owedCents: number },
+): MailContent {
+  const amount = formatMoney(payment.amountCents, r.currency)
+  const where = payment.how === 'online' ? 'online' : `at the counter of ${r.studioName}`
+  return {
+    subject:
+      audience === 'potter'
+        ? `Receipt: ${amount} ${payment.what === 'deposit' ? 'deposit' : 'balance'} for the ${title(r)}`
+        : `Paid: ${r.potterName}, ${amount} ${payment.what === 'deposit' ? 'toward the deposit' : 'toward the balance'}`,
+    ...(audience === 'potter' ? { greeting: `Hello ${r.potterName},` } : {}),
+    paragraphs: [
+      audience === 'potter'
+        ? `We received ${amount} ${where}. This is your receipt.`
+        : `${r.potterName} paid ${amount} ${payment.how === 'online' ? 'online' : 'at your counter'}.`,
+      payment.owedCents > 0
+        ? `${formatMoney(payment.owedCents, r.currency)} is still owed ${payment.what === 'deposit' ? 'toward the deposit' : 'before pickup'}.`
+        : payment.what === 'deposit'
+          ? 'The deposit is paid: the space is booked.'
+          : 'Nothing more is owed.',
+    ],
+    details: [
+      ['Price', formatMoney(r.totalCents, r.currency)],
+      ['Paid so far', formatMoney(payment.paidCents, r.currency)],
+      ['Still owed', formatMoney(payment.owedCents, r.currency)],
+    ],
+    action: { label: 'See the request', url: r.requestUrl },
+  }
+}

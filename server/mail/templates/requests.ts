@@ -180,3 +180,44 @@ export function disputedMail(r: RequestFacts, by: string, reason: string): MailC
     action: { label: 'See the request', url: r.requestUrl },
   }
 }
+
+/** Why a request lapsed, in the reader's words. */
+export type LapseCause = 'firing-closed' | 'firing-loading' | 'deposit-late' | 'drop-off-passed'
+
+const LAPSE_WORDS: Record<LapseCause, { potter: string; studio: (potter: string) => string }> = {
+  'firing-closed': {
+    potter: 'The studio stopped taking ware for this firing before your request was settled.',
+    studio: (p) => `The firing stopped taking ware, so ${p}’s request, still waiting, has lapsed.`,
+  },
+  'firing-loading': {
+    potter: 'The studio started loading this firing before your request was settled.',
+    studio: (p) => `Loading started, so ${p}’s request, still waiting, has lapsed.`,
+  },
+  'deposit-late': {
+    potter: 'The deposit was not paid in time, so the space went back to the studio.',
+    studio: (p) => `${p} did not pay the deposit in time; the space is free again.`,
+  },
+  'drop-off-passed': {
+    potter: 'The drop-off deadline passed before the studio answered your request.',
+    studio: (p) => `The drop-off deadline passed with ${p}’s request still unanswered; it has lapsed.`,
+  },
+}
+
+export function lapsedMail(r: RequestFacts, audience: 'potter' | 'studio', cause: LapseCause, refundCents: number): MailContent {
+  const words = LAPSE_WORDS[cause]
+  return {
+    subject: audience === 'potter' ? `Lapsed: your request for the ${title(r)}` : `Lapsed: ${r.potterName}, ${title(r)}`,
+    ...(audience === 'potter' ? { greeting: `Hello ${r.potterName},` } : {}),
+    paragraphs: [
+      audience === 'potter' ? words.potter : words.studio(r.potterName),
+      refundCents > 0
+        ? audience === 'potter'
+          ? `${money(r, refundCents)} you paid is being refunded to your card.`
+          : `${money(r, refundCents)} the potter paid is refunded to them.`
+        : 'Nothing was paid, so nothing is owed either way.',
+      ...(audience === 'potter' ? ['You can look for another firing on Conewright.'] : []),
+    ],
+    details: firingRows(r),
+    action: { label: 'See the request', url: r.requestUrl },
+  }
+}

@@ -2,50 +2,47 @@
 // peak; the witness cones and what they say against the peak.
 import { formatDateTime } from '../../../shared/dates'
 import { formatCone } from '../../../shared/firing/cones'
-import type { ConeBend, WitnessCheck } from '../../../shared/firing/witness'
+import type { FiringLogRecord } from '../../../shared/api/firing-log'
+import { BEND_LABELS, type ConeBend, type WitnessCheck } from '../../../shared/firing/witness'
 import { formatDuration, formatRate, formatTemperature, scaleOf, type UnitSystem } from '../../lib/units'
+import { curveOfReadings } from '../../../shared/firing/curve'
 import { Alert } from '../ui/Alert'
+import { LogChart } from './LogChart'
 import { Table, Td, Th } from '../ui/Table'
 
-export interface WitnessConeRecord {
-  cone: string
-  bend: ConeBend
-  position?: string
-}
-
-export interface FiringLogRecord {
-  loadedAt: string | null
-  startedAt: string | null
-  peakC: number | null
-  finalRateCPerHour: number | null
-  holdMinutes: number | null
-  offAt: string | null
-  openedAt: string | null
-  totalHours: number | null
-  witnessCones: WitnessConeRecord[]
-  notes: string
-  coneCheck: WitnessCheck
-  updatedAt: string
-}
+export type { FiringLogRecord, WitnessConeRecord } from '../../../shared/api/firing-log'
 
 export const BEND_WORDS: Record<ConeBend, { short: string; long: string }> = {
-  standing: { short: 'Standing', long: 'Standing: not reached' },
-  'three-oclock': { short: 'Tip at 3 o’clock', long: 'Tip at 3 o’clock: reached' },
-  touching: { short: 'Tip touching', long: 'Tip touching: past it' },
+  standing: { short: BEND_LABELS.standing, long: 'Standing: not reached' },
+  bending: { short: BEND_LABELS.bending, long: 'Bending: on its way' },
+  'three-oclock': { short: BEND_LABELS['three-oclock'], long: 'Tip level with base: reached' },
+  touching: { short: BEND_LABELS.touching, long: 'Tip touching: past it' },
 }
 
-/** What the cones and the peak say together, as the studio and the potters read it. */
+/** What the cones, position by position, and the logged heat work say together, as the studio and the potters read it. */
 export function ConeCheckNote({ check }: { check: WitnessCheck }) {
-  const tone = check.agree === false || check.inconsistent ? 'warning' : check.agree ? 'success' : 'info'
+  const tone = check.agree === false || check.inconsistent || check.coldSpotReached === false ? 'warning' : check.agree ? 'success' : 'info'
   return (
     <div className="space-y-2" data-testid="cone-check" data-agree={check.agree === null ? 'unknown' : String(check.agree)}>
       <p className="text-sm">
-        <span className="text-slip-600">Cone reached: </span>
+        <span className="text-slip-600">Cone reached everywhere: </span>
         <strong className="font-semibold" data-testid="cone-reached">
           {check.fromCones ? formatCone(check.fromCones) : 'not read yet'}
         </strong>
-        {check.fromPeak && <span className="text-slip-600"> · the peak predicts {formatCone(check.fromPeak)}</span>}
+        {check.fromCurve && <span className="text-slip-600"> · the logged heat work gives {formatCone(check.fromCurve)}</span>}
       </p>
+      {check.positions.length > 1 && (
+        <ul className="text-sm text-slip-700" data-testid="cone-positions">
+          {check.positions.map((p) => (
+            <li key={p.position} data-position={p.position}>
+              {p.position}: {p.reached ? `${formatCone(p.reached)} down` : 'none down'}
+              {p.bending ? `, ${formatCone(p.bending)} bending` : ''}
+              {check.coolest?.position === p.position && ' (coolest)'}
+              {check.hottest?.position === p.position && check.hottest !== check.coolest && ' (hottest)'}
+            </li>
+          ))}
+        </ul>
+      )}
       <Alert tone={tone}>
         {check.message}
         {check.inconsistent &&
@@ -110,6 +107,12 @@ export function FiringLogView({ log, zone, units }: FiringLogViewProps) {
         <p className="text-sm text-slip-600">No witness cones recorded.</p>
       )}
       <ConeCheckNote check={log.coneCheck} />
+      {log.readings.length >= 2 && (
+        <div>
+          <h3 className="mb-2 font-semibold text-slip-900">The logged curve</h3>
+          <LogChart plan={log.plan} curve={curveOfReadings(log.readings)} flags={log.curve?.flags} scale={scale} />
+        </div>
+      )}
       {log.notes && <p className="whitespace-pre-line text-sm text-slip-800">{log.notes}</p>}
       <p className="text-xs text-slip-500">
         Times are the studio’s: {zone.replace(/_/g, ' ')}. Last written {formatDateTime(log.updatedAt, zone)}.

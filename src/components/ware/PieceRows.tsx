@@ -1,7 +1,7 @@
 import { useFieldArray, useWatch, type Control, type UseFormRegister } from 'react-hook-form'
 import { newPiece, type PieceFormValues } from '../../lib/pieceDraft'
 import type { FieldMessages } from '../../lib/schemaMessages'
-import { COUNT, lengthMeasure, type UnitSystem } from '../../lib/units'
+import { COUNT, lengthMeasure, pieceWeightMeasure, type UnitSystem } from '../../lib/units'
 import { Button } from '../ui/Button'
 import { Checkbox, Field, Select, TextInput } from '../ui/Field'
 import { FormSection } from '../ui/FormSection'
@@ -97,13 +97,39 @@ function PieceRow({ control, register, messages, units, index, onRemove }: RowPr
         <MeasureField
           {...measured}
           name={`${at}.wallThicknessMm`}
-          label="Wall thickness"
+          label={piece.form === 'solid' ? 'Thickness at its thickest' : 'Wall thickness'}
           measure={length}
           error={messages[`${at}.wallThicknessMm`]}
         />
         <div className="flex items-end pb-2">
           <Checkbox label="Round" {...register(`${at}.round`)} />
         </div>
+        <Field
+          label="Form"
+          hint="Closed: hollow and sealed, like a bead or a hollow sculpture. Solid: no inside at all."
+          error={messages[`${at}.form`]}
+        >
+          {(a11y) => (
+            <Select {...a11y} {...register(`${at}.form`)}>
+              <option value="open">Open (a pot, a dish)</option>
+              <option value="closed">Closed</option>
+              <option value="solid">Solid</option>
+            </Select>
+          )}
+        </Field>
+        {piece.form === 'closed' && (
+          <div className="flex items-end pb-2">
+            <Checkbox label="Has a vent hole" {...register(`${at}.ventHole`)} />
+          </div>
+        )}
+        <MeasureField
+          {...measured}
+          name={`${at}.weightG`}
+          label="Weight of one"
+          hint="Optional: lets the studio check what a shelf carries."
+          measure={pieceWeightMeasure(units)}
+          error={messages[`${at}.weightG`]}
+        />
       </div>
 
       <div className="mt-3 grid gap-3 sm:grid-cols-3">
@@ -113,17 +139,23 @@ function PieceRow({ control, register, messages, units, index, onRemove }: RowPr
               <option value="earthenware">Earthenware</option>
               <option value="stoneware">Stoneware</option>
               <option value="porcelain">Porcelain</option>
+              <option value="raku">Raku clay</option>
               <option value="other">Other</option>
             </Select>
           )}
         </Field>
         <ConeField register={register} error={messages[`${at}.clay.minCone`]} name={`${at}.clay.minCone`} label="Clay matures from cone" />
         <ConeField register={register} error={messages[`${at}.clay.maxCone`]} name={`${at}.clay.maxCone`} label="Clay rated to cone" />
-        <Field label="State" hint="Greenware has not been fired yet." error={messages[`${at}.state`]}>
+        <Field
+          label="State"
+          hint="Greenware has not been fired yet; glaze fired is ready for lustre or decals."
+          error={messages[`${at}.state`]}
+        >
           {(a11y) => (
             <Select {...a11y} {...register(`${at}.state`)}>
               <option value="greenware">Greenware</option>
               <option value="bisque">Bisque</option>
+              <option value="glazed">Glaze fired</option>
             </Select>
           )}
         </Field>
@@ -140,13 +172,47 @@ function PieceRow({ control, register, messages, units, index, onRemove }: RowPr
           <div className="grid gap-3 border-l-2 border-clay-100 pl-3 sm:grid-cols-2">
             <ConeField register={register} error={messages[`${at}.glaze.minCone`]} name={`${at}.glaze.minCone`} label="Glaze from cone" />
             <ConeField register={register} error={messages[`${at}.glaze.maxCone`]} name={`${at}.glaze.maxCone`} label="Glaze to cone" />
-            <div className="space-y-2 sm:col-span-2">
+            <Field
+              label="Stands on"
+              hint="A cookie or catch tray catches drips; a stilt lifts a glazed foot at low fire only."
+              error={messages[`${at}.glaze.support`]}
+            >
+              {(a11y) => (
+                <Select {...a11y} {...register(`${at}.glaze.support`)}>
+                  <option value="none">The shelf</option>
+                  <option value="cookie">A cookie</option>
+                  <option value="tray">A catch tray</option>
+                  <option value="stilt">A stilt</option>
+                </Select>
+              )}
+            </Field>
+            <div className="space-y-2">
               <Checkbox label="Runny glaze" {...register(`${at}.glaze.runny`)} />
               <Checkbox label="Glaze on the foot" {...register(`${at}.glaze.onFoot`)} />
-              <Checkbox label="Set on a cookie or stilt" {...register(`${at}.glaze.onCookie`)} />
+              <Checkbox label="Reduction glaze (copper red, celadon, shino)" {...register(`${at}.glaze.reductionOnly`)} />
+              <Checkbox label="Not yet tried on a test tile at this cone" {...register(`${at}.glaze.untested`)} />
             </div>
+            <fieldset className="sm:col-span-2">
+              <legend className="text-sm font-medium text-slip-800">Colourants that travel or fume</legend>
+              <div className="mt-1 flex flex-wrap gap-x-4 gap-y-2">
+                <Checkbox label="Copper" value="copper" {...register(`${at}.glaze.colourants`)} />
+                <Checkbox label="Chrome–tin pink" value="chrome-tin" {...register(`${at}.glaze.colourants`)} />
+                <Checkbox label="Cobalt" value="cobalt" {...register(`${at}.glaze.colourants`)} />
+                <Checkbox label="Manganese" value="manganese" {...register(`${at}.glaze.colourants`)} />
+              </div>
+            </fieldset>
           </div>
         )}
+        <fieldset>
+          <legend className="text-sm font-medium text-slip-800">Anything in it besides clay and glaze</legend>
+          <div className="mt-1 flex flex-wrap gap-x-4 gap-y-2">
+            <Checkbox label="Glass" value="glass" {...register(`${at}.materials`)} />
+            <Checkbox label="Metal (wire, hooks)" value="metal" {...register(`${at}.materials`)} />
+            <Checkbox label="Combustibles (sawdust, seeds, fibre)" value="combustible" {...register(`${at}.materials`)} />
+            <Checkbox label="Saggar with salts" value="saggar-salts" {...register(`${at}.materials`)} />
+            <Checkbox label="Paper clay" value="paper-clay" {...register(`${at}.materials`)} />
+          </div>
+        </fieldset>
       </div>
 
       {onRemove && (

@@ -1,8 +1,11 @@
 import { formatMoney } from '../../../shared/dates'
 import type { Quote } from '../../../shared/firing/quote'
 
-/** A quote's lines, its total and the deposit that books the space. */
-export function QuoteSummary({ quote }: { quote: Quote }) {
+/**
+ * A quote's lines, its total and the deposit. Once the studio has asked for a deposit, that figure is
+ * shown as asked (it is never recomputed from a later price).
+ */
+export function QuoteSummary({ quote, deposit }: { quote: Quote; deposit?: { cents: number; label: string } }) {
   const money = (cents: number) => formatMoney(cents, quote.currency)
   return (
     <table className="w-full text-sm" data-testid="quote">
@@ -26,9 +29,11 @@ export function QuoteSummary({ quote }: { quote: Quote }) {
         </tr>
         <tr>
           <th scope="row" className="py-1 pr-3 text-left font-normal text-slip-600">
-            Deposit to book
+            {deposit?.label ?? 'Deposit to book'}
           </th>
-          <td className="py-1 text-right tabular-nums text-slip-700">{money(quote.depositCents)}</td>
+          <td className="py-1 text-right tabular-nums text-slip-700" data-testid="quote-deposit">
+            {money(deposit?.cents ?? quote.depositCents)}
+          </td>
         </tr>
       </tfoot>
     </table>

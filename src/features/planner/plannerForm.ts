@@ -3,7 +3,7 @@
 // schema's own message beside its field.
 
 import { z } from 'zod'
-import type { Atmosphere, Firing, FiringKind, Kiln, KilnKind, Piece } from '../../../shared/firing/check'
+import type { Atmosphere, CoolingProfile, Firing, FiringKind, Kiln, KilnKind, Piece } from '../../../shared/firing/check'
 import type { PriceList, PricingModel } from '../../../shared/firing/quote'
 import { firingSpecSchema, kilnSchema, piecesSchema, priceListSchema } from '../../../shared/schemas/firing'
 import { newPiece, pieceInputOf, type NumberDraft, type PieceDraft } from '../../lib/pieceDraft'
@@ -22,6 +22,7 @@ export interface KilnDraft {
   maxRampCPerHour: NumberDraft
   preheatHold: boolean
   controlledCooling: boolean
+  shelfLoadKg: NumberDraft
 }
 
 export interface FiringDraft {
@@ -29,6 +30,9 @@ export interface FiringDraft {
   cone: string
   atmosphere: Atmosphere
   slowCool: boolean
+  cooling: CoolingProfile
+  /** Other people's ware in the load (a shared firing); off: the kiln to oneself. */
+  sharedLoad: boolean
 }
 
 export interface PriceListDraft {
@@ -71,6 +75,7 @@ export function kilnDraftOf(kiln: Kiln): KilnDraft {
     maxRampCPerHour: kiln.maxRampCPerHour,
     preheatHold: kiln.preheatHold,
     controlledCooling: kiln.controlledCooling,
+    shelfLoadKg: kiln.shelfLoadKg,
   }
 }
 
@@ -79,7 +84,7 @@ export function plannerDefaults(): PlannerValues {
   return {
     demoKilnId: demo.id,
     kiln: kilnDraftOf(demo.kiln),
-    firing: { kind: 'glaze', cone: '6', atmosphere: 'oxidation', slowCool: false },
+    firing: { kind: 'glaze', cone: '6', atmosphere: 'oxidation', slowCool: false, cooling: 'natural', sharedLoad: true },
     pieces: [{ ...newPiece(), label: 'Mug', quantity: 4 }],
     quoteOn: false,
     // An example community-studio rate, not advice: 4 ¢ per cubic inch, half down.
@@ -119,8 +124,16 @@ export function checkInputOf(values: PlannerValues) {
       maxRampCPerHour: kiln.maxRampCPerHour,
       preheatHold: kiln.preheatHold,
       controlledCooling: kiln.controlledCooling,
+      shelfLoadKg: kiln.shelfLoadKg,
     },
-    firing: { kind: firing.kind, cone: firing.cone, atmosphere: firing.atmosphere, slowCool: firing.slowCool },
+    firing: {
+      kind: firing.kind,
+      cone: firing.cone,
+      atmosphere: firing.atmosphere,
+      slowCool: firing.slowCool,
+      cooling: firing.cooling,
+      sharedLoad: firing.sharedLoad,
+    },
     pieces: values.pieces.map(pieceInputOf),
   }
 }

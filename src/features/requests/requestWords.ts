@@ -8,6 +8,7 @@ import type { StudioPolicies } from '../../../shared/schemas/studios'
 import { REQUEST_STATE_LABELS, type RequestState } from '../../../shared/workflow/request-states'
 import type { BadgeTone } from '../../components/ui/Badge'
 import { formatLength, type UnitSystem } from '../../lib/units'
+import { formatMoney } from '../../../shared/dates'
 import type { RequestRow } from './api/types'
 
 export const STATE_TONES: Record<RequestState, BadgeTone> = {
@@ -22,6 +23,7 @@ export const STATE_TONES: Record<RequestState, BadgeTone> = {
   ready: 'celadon',
   collected: 'neutral',
   cancelled: 'danger',
+  lapsed: 'neutral',
   disputed: 'danger',
 }
 
@@ -44,7 +46,7 @@ export function potterNextStep(r: NextStepFacts): string {
     case 'received':
       return 'The studio has your ware; it goes in the kiln next'
     case 'fired':
-      return 'Fired; waiting for the studio to unload'
+      return 'Fired and unloaded; results come next'
     case 'ready':
       return 'Ready to collect'
     case 'collected':
@@ -55,6 +57,8 @@ export function potterNextStep(r: NextStepFacts): string {
       return 'You withdrew this request'
     case 'cancelled':
       return 'Cancelled'
+    case 'lapsed':
+      return 'Lapsed before it was settled; nothing more is owed'
     case 'disputed':
       return 'Being settled with the studio'
   }
@@ -105,6 +109,7 @@ const CLAY_WORDS: Record<Piece['clay']['body'], string> = {
   earthenware: 'Earthenware',
   stoneware: 'Stoneware',
   porcelain: 'Porcelain',
+  raku: 'Raku clay',
   other: 'Other clay',
 }
 
@@ -123,12 +128,70 @@ export function glazeInWords(piece: Piece): string {
   const notes = [
     piece.glaze.runny && 'runny',
     piece.glaze.onFoot && 'glaze on the foot',
-    piece.glaze.onCookie && 'on a cookie or stilt',
+    piece.glaze.support && piece.glaze.support !== 'none' && `on a ${piece.glaze.support === 'tray' ? 'catch tray' : piece.glaze.support}`,
+    piece.glaze.tested === false && 'not tested',
+    piece.glaze.reductionOnly && 'reduction glaze',
+    piece.glaze.colourants?.length && piece.glaze.colourants.map((c) => (c === 'chrome-tin' ? 'chrome–tin' : c)).join(' and '),
   ].filter(Boolean)
   return `Glaze ${formatCone(piece.glaze.minCone)} to ${piece.glaze.maxCone}${notes.length ? ` (${notes.join(', ')})` : ''}`
 }
 
 export function pieceStateInWords(piece: Piece): string {
-  if (piece.state === 'bisque') return 'Bisque'
-  return piece.boneDry ? 'Greenware, bone dry' : 'Greenware, not bone dry'
+  const form =
+    piece.form === 'closed' ? (piece.ventHole ? ', closed (vented)' : ', closed, no vent') : piece.form === 'solid' ? ', solid' : ''
+  const extras = piece.materials?.length ? `; with ${piece.materials.map((m) => m.replace('-', ' ')).join(', ')}` : ''
+  const weight = piece.weightG !== undefined ? `, ${Math.round(piece.weightG)} g each` : ''
+  if (piece.state === 'bisque') return `Bisque${form}${weight}${extras}`
+  if (piece.state === 'glazed') return `Glaze fired${form}${weight}${extras}`
+  return `${piece.boneDry ? 'Greenware, bone dry' : 'Greenware, not bone dry'}${form}${weight}${extras}`
+}
+
+/** Actions that are the reader's to take now (not merely available): a row with one of these wants them. */
+const CALLS_FOR: RequestRow['actions'] = [
+  'send',
+  'pay-deposit',
+  'answer-move',
+  'accept',
+  'check-in',
+  'confirm-price',
+  'results',
+  'ready',
+  'pay-balance',
+  'collected',
+  'rate',
+  'hand-back',
+]
+
+/** Whether a list row is waiting on its reader. */
+export const rowWantsMe = (row: Pick<RequestRow, 'actions'>) => row.actions.some((a) => CALLS_FOR.includes(a))
+
+/** A list row's next step for its reader, from the actions the policy gives them. */
+export function rowNextStep(row: RequestRow): string {
+  const facts = { ...row, dropOffBy: row.firing.dropOffBy, timezone: row.studio.timezone }
+  const studio = row.side === 'studio'
+  const owed = row.price && row.price.owedCents > 0 ? formatMoney(row.price.owedCents, row.price.currency) : null
+  if (row.actions.includes('hand-back')) return 'Money taken at the counter is owed back: hand it back and mark it'
+  if (row.state === 'collected') return row.actions.includes('rate') ? `Collected: rate the ${studio ? 'potter' : 'studio'}` : 'Collected'
+  if (row.state === 'received' && row.price?.pricePending)
+    return studio ? 'Checked in; waiting for the potter to answer the new price' : 'Answer the new price the studio measured'
+  if (row.state === 'ready')
+    return owed
+      ? studio
+        ? `Ready; ${owed} still owed`
+        : `Ready to collect: pay ${owed} online or at the counter`
+      : studio
+        ? 'Ready and paid; hand it over'
+        : 'Ready to collect; everything is paid'
+  if (row.state === 'fired' && studio)
+    return row.actions.includes('ready') ? 'Results posted; mark it ready for pickup' : 'Out of the kiln: post the results'
+  return studio ? studioNextStep(facts) : potterNextStep(facts)
+}
+
+/** The row's money in a line: the price that stands, the deposit as asked, and what is owed now. */
+export function rowMoneyLine(row: RequestRow): string | null {
+  if (!row.price) return null
+  const money = (cents: number) => formatMoney(cents, row.price!.currency)
+  const parts = [money(row.price.totalCents), `deposit ${money(row.price.depositCents)}`]
+  if (row.price.netPaidCents > 0) parts.push(`paid ${money(row.price.netPaidCents)}`)
+  return parts.join(' · ')
 }

@@ -11,6 +11,8 @@ export const FIRING_KIND_CHOICES = [
   { value: 'bisque', label: 'Bisque' },
   { value: 'glaze', label: 'Glaze' },
   { value: 'single', label: 'Single firing' },
+  { value: 'lustre', label: 'Lustre, decals and china paint' },
+  { value: 'raku', label: 'Raku' },
 ] as const
 
 export const SORT_CHOICES = [

@@ -1,6 +1,15 @@
 import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
-import { CONES, compareCones, coneReached, coneTemperatureC, formatCone, parseCone } from '../../../shared/firing/cones'
+import {
+  CHARTED_CONES,
+  CONES,
+  compareCones,
+  coneReached,
+  coneStep,
+  coneTemperatureC,
+  formatCone,
+  parseCone,
+} from '../../../shared/firing/cones'
 import { cToF, rateFToC } from '../../../shared/firing/units'
 
 // Source: Orton Ceramic Foundation, "Temperature Equivalent Chart for Orton Pyrometric Cones (°C),
@@ -75,8 +84,8 @@ const CHART_RATES_C = [15, 60, 150] as const
 const CHART_RATES_F = [27, 108, 270] as const
 
 describe('cone order', () => {
-  it('lists cones 022 to 01 then 1 to 14, coolest first', () => {
-    expect(CONES).toEqual(
+  it('lists the charted cones 022 to 01 then 1 to 14, coolest first', () => {
+    expect(CHARTED_CONES).toEqual(
       Object.keys(ORTON_SELF_SUPPORTING_C).sort((a, b) => {
         // The chart's own order: 0-prefixed cones count down to 01, then plain cones count up.
         const rank = (cone: string) => (cone.startsWith('0') ? -Number(cone) : Number(cone))
@@ -85,6 +94,16 @@ describe('cone order', () => {
     )
     expect(CONES[0]).toBe('022')
     expect(CONES.at(-1)).toBe('14')
+  })
+
+  it('places the half cones 05½ and 5½ between their whole neighbours (the cones made in half sizes, from memory)', () => {
+    expect(CONES.filter((cone) => !CHARTED_CONES.includes(cone))).toEqual(['05½', '5½'])
+    expect(compareCones('05', '05½')).toBeLessThan(0)
+    expect(compareCones('05½', '04')).toBeLessThan(0)
+    expect(compareCones('5', '5½')).toBeLessThan(0)
+    expect(compareCones('5½', '6')).toBeLessThan(0)
+    expect(coneStep('5½') - coneStep('5')).toBe(0.5)
+    expect(coneStep('6') - coneStep('5')).toBe(1)
   })
 
   it('puts cone 06 below cone 6 and 022 below everything', () => {
@@ -110,11 +129,17 @@ describe('parseCone', () => {
     ['CONE 10', '10'],
     [' 022 ', '022'],
     ['14', '14'],
+    ['5½', '5½'],
+    ['5.5', '5½'],
+    ['5 1/2', '5½'],
+    ['cone 5½', '5½'],
+    ['05½', '05½'],
+    ['05.5', '05½'],
   ])('reads %j as cone %s', (input, cone) => {
     expect(parseCone(input)).toEqual({ ok: true, cone })
   })
 
-  it.each(['', '0', '00', '15', '023', 'six', 'cone', '6a', '-6', '5½', '5.5'])('rejects %j with a reason', (input) => {
+  it.each(['', '0', '00', '15', '023', 'six', 'cone', '6a', '-6', '6½', '4.5', '06½'])('rejects %j with a reason', (input) => {
     const parsed = parseCone(input)
     expect(parsed.ok).toBe(false)
     if (!parsed.ok) expect(parsed.reason.length).toBeGreaterThan(10)
@@ -188,9 +213,11 @@ describe('coneTemperatureC against the published chart', () => {
 })
 
 describe('coneReached', () => {
-  it('gives cone 6 for 1222 °C at 60 °C/h and cone 5 just below it', () => {
+  it('gives cone 6 for 1222 °C at 60 °C/h and the half cone 5½ just below it', () => {
     expect(coneReached(1222, 60)).toBe('6')
-    expect(coneReached(1221, 60)).toBe('5')
+    // 5½ sits midway between 5 (1186) and 6 (1222): our placement, the chart has no row for it.
+    expect(coneReached(1221, 60)).toBe('5½')
+    expect(coneReached(1203, 60)).toBe('5')
     // At 150 °C/h 1222 °C is not yet cone 6 (chart: 1243) but is past cone 5 (1207).
     expect(coneReached(1222, 150)).toBe('5')
   })

@@ -84,7 +84,7 @@ const pieceRaw = fc
       state: fc.constantFrom('greenware', 'bisque'),
       boneDry: fc.boolean(),
       glaze: fc.record(
-        { range: coneRange, runny: fc.boolean(), onFoot: fc.boolean(), onCookie: fc.boolean() },
+        { range: coneRange, runny: fc.boolean(), onFoot: fc.boolean(), support: fc.constantFrom('none', 'cookie', 'tray', 'stilt') },
         { requiredKeys: ['range'] },
       ),
     },
@@ -93,7 +93,7 @@ const pieceRaw = fc
   .map(({ clay, glaze, ...piece }) => ({
     ...piece,
     clay: { body: clay.body, ...clay.range },
-    ...(glaze ? { glaze: { runny: glaze.runny, onFoot: glaze.onFoot, onCookie: glaze.onCookie, ...glaze.range } } : {}),
+    ...(glaze ? { glaze: { runny: glaze.runny, onFoot: glaze.onFoot, support: glaze.support, ...glaze.range } } : {}),
   }))
 
 const priceListRaw = fc.oneof(

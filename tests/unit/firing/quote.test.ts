@@ -98,8 +98,8 @@ describe('shelf pricing', () => {
   })
 
   it('sizes the shelf from the kiln when given', () => {
-    // Box kiln 425 × 425 mm inside; the shelf is 25 mm smaller each way, 400 × 400 = 160 000 mm².
-    const kiln = electricKiln({ interior: { shape: 'box', widthMm: 425, depthMm: 425, heightMm: 600 } })
+    // Box kiln 450 × 450 mm inside; the shelf is about 50 mm smaller each way (from memory), 400 × 400 = 160 000 mm².
+    const kiln = electricKiln({ interior: { shape: 'box', widthMm: 450, depthMm: 450, heightMm: 600 } })
     // 40 000 mm² is exactly a quarter of that shelf: 1000 ¢.
     expect(quoteRequest(prices, glazeFiring(), [footprint(40_000)], kiln).totalCents).toBe(1000)
   })

@@ -16,8 +16,11 @@ const ZONE_FILL: Record<SegmentZone, string> = {
   burnout: 'var(--color-ember-300)',
   'final-100': 'var(--color-clay-200)',
   cool: 'var(--color-slip-200)',
+  'glaze-development-cool': 'var(--color-celadon-100)',
+  'drop-and-hold': 'var(--color-celadon-300)',
   'quartz-inversion-cool': 'var(--color-clay-100)',
   'cristobalite-cool': 'var(--color-clay-200)',
+  'pulled-hot': 'var(--color-ember-100)',
 }
 
 /** Zones narrower than this share of the firing get no label on the chart; the table names them all. */
@@ -147,12 +150,19 @@ function SegmentTable({ schedule, scale }: { schedule: FiringSchedule; scale: Te
               </td>
               <td className="py-1 pr-3 tabular-nums">{formatTemperature(segment.fromC, scale)}</td>
               <td className="py-1 pr-3 tabular-nums">{formatTemperature(segment.toC, scale)}</td>
-              <td className="py-1 pr-3 tabular-nums">{formatRate(segment.rateCPerHour, scale)}</td>
+              <td className="py-1 pr-3 tabular-nums">
+                {segment.estimate ? `≈ ${formatRate(segment.rateCPerHour, scale)}` : formatRate(segment.rateCPerHour, scale)}
+              </td>
               <td className="py-1 tabular-nums">{segment.holdMinutes > 0 ? formatDuration(segment.holdMinutes) : '—'}</td>
             </tr>
           ))}
         </tbody>
       </table>
+      {schedule.segments.some((segment) => segment.estimate) && (
+        <p className="mt-2 text-xs text-slip-600">
+          Rows marked ≈ are estimates of the kiln (or the ware) cooling by itself, for the time only: they are not steps to program.
+        </p>
+      )}
     </div>
   )
 }

@@ -5,7 +5,7 @@ import { DEMO_KILNS } from '../demoKilns'
 import { FormSection } from '../../../components/ui/FormSection'
 import { MeasureField } from '../../../components/ui/MeasureField'
 import { ConeField } from '../../../components/ware/ConeField'
-import { lengthMeasure, rateMeasure, temperatureMeasure } from '../../../lib/units'
+import { lengthMeasure, rateMeasure, shelfLoadMeasure, temperatureMeasure } from '../../../lib/units'
 import type { FormSectionProps } from './sectionProps'
 
 const KINDS = [
@@ -132,7 +132,7 @@ export function KilnFields({ control, register, messages, units, onPickDemo }: F
           error={m('kiln.usableHeightMm')}
           label="Usable height"
           measure={length}
-          hint="Optional. Left empty: the inside height less one shelf and headroom."
+          hint="Optional. Left empty: the inside height less about 65 mm (2½ in) for posts, a shelf and the lid."
         />
         <ConeField register={register} error={m('kiln.minCone')} name="kiln.minCone" label="Coolest cone" />
         <ConeField register={register} error={m('kiln.maxCone')} name="kiln.maxCone" label="Hottest cone" />
@@ -150,8 +150,16 @@ export function KilnFields({ control, register, messages, units, onPickDemo }: F
           label="Fastest climb"
           measure={rateMeasure(units)}
         />
+        <MeasureField
+          {...shared}
+          name="kiln.shelfLoadKg"
+          error={m('kiln.shelfLoadKg')}
+          label="One shelf carries"
+          measure={shelfLoadMeasure(units)}
+          hint="Optional: what one shelf may hold; heavy pieces are checked against it."
+        />
         <div className="space-y-2 sm:col-span-2">
-          <Checkbox label="Can hold a low preheat (candling)" {...register('kiln.preheatHold')} />
+          <Checkbox label="Can hold a low preheat below boiling (candling)" {...register('kiln.preheatHold')} />
           <Checkbox label="Can control its cooling (slow cool, fire down)" {...register('kiln.controlledCooling')} />
         </div>
       </div>

@@ -7,7 +7,7 @@ import type { FiringRecord, KilnRecord, PriceListAnswer, StudioRecord } from './
 
 export function useFiring(firingId: string | undefined) {
   return useQuery({
-    queryKey: requestKeys.firing(firingId ?? ''),
+    queryKey: requestKeys.firings.detail(firingId ?? ''),
     queryFn: () => api<FiringRecord>(`/api/firings/${firingId}`),
     enabled: Boolean(firingId),
   })
@@ -15,7 +15,7 @@ export function useFiring(firingId: string | undefined) {
 
 export function useKiln(kilnId: string | undefined) {
   return useQuery({
-    queryKey: requestKeys.kiln(kilnId ?? ''),
+    queryKey: requestKeys.kilns.detail(kilnId ?? ''),
     queryFn: () => api<KilnRecord>(`/api/kilns/${kilnId}`),
     enabled: Boolean(kilnId),
   })
@@ -24,7 +24,7 @@ export function useKiln(kilnId: string | undefined) {
 /** The kiln's price list, or null when the studio has not set one (prices on request). */
 export function usePriceList(kilnId: string | undefined) {
   return useQuery({
-    queryKey: requestKeys.priceList(kilnId ?? ''),
+    queryKey: requestKeys.kilns.priceList(kilnId ?? ''),
     queryFn: async () => {
       try {
         return (await api<PriceListAnswer>(`/api/kilns/${kilnId}/price-list`)).priceList
@@ -39,7 +39,7 @@ export function usePriceList(kilnId: string | undefined) {
 
 export function useStudio(studioId: string | undefined) {
   return useQuery({
-    queryKey: requestKeys.studio(studioId ?? ''),
+    queryKey: requestKeys.studios.detail(studioId ?? ''),
     queryFn: () => api<StudioRecord>(`/api/studios/${studioId}`),
     enabled: Boolean(studioId),
   })
@@ -48,7 +48,7 @@ export function useStudio(studioId: string | undefined) {
 /** The studio's coming firings (members see every status; the page keeps the open ones). */
 export function useStudioFirings(studioId: string | undefined, { enabled = true }: { enabled?: boolean } = {}) {
   return useQuery({
-    queryKey: requestKeys.studioFirings(studioId ?? ''),
+    queryKey: requestKeys.studios.firingsIn(studioId ?? '', { from: 'upcoming' }),
     queryFn: () =>
       api<{ firings: FiringRecord[] }>(`/api/studios/${studioId}/firings?from=${encodeURIComponent(new Date().toISOString())}`).then(
         (r) => r.firings,

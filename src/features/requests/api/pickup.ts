@@ -7,7 +7,7 @@ import type { checkInSchema, ratingSchema, resultsSchema } from '../../../../sha
 import type { PhotoRecord } from '../../../components/photos/photoTypes'
 import { api } from '../../../lib/api'
 import { requestKeys } from './keys'
-import { useRequestChange } from './requests'
+import { useRequestChange, useRequestChanged } from './requests'
 import type { CheckInOutcome, RequestRatings, RequestView } from './types'
 
 export type CheckInBody = z.infer<typeof checkInSchema>
@@ -18,32 +18,41 @@ export type RatingBody = z.infer<typeof ratingSchema>
 export const checkInMutationKey = (id: string) => ['requests', 'detail', id, 'check-in'] as const
 
 /** Changes that answer with something else: the request they touched is fetched again. */
-function useRefetchingChange<TVariables extends { id: string }, TAnswer>(request: (variables: TVariables) => Promise<TAnswer>) {
-  const queryClient = useQueryClient()
+function useRefetchingChange<TVariables extends { view: Pick<RequestView, 'id' | 'firing'> }, TAnswer>(
+  request: (variables: TVariables) => Promise<TAnswer>,
+) {
+  const changed = useRequestChanged()
   return useMutation({
     mutationFn: request,
-    onSuccess: (_answer, { id }) =>
-      Promise.all([
-        queryClient.invalidateQueries({ queryKey: requestKeys.detail(id), exact: true }),
-        queryClient.invalidateQueries({ queryKey: requestKeys.lists() }),
-      ]),
+    onSuccess: (_answer, { view }) => changed(view),
   })
 }
 
 export function useCheckIn(id: string) {
-  const queryClient = useQueryClient()
+  const changed = useRequestChanged()
   return useMutation({
     mutationKey: checkInMutationKey(id),
     mutationFn: (body: CheckInBody) => api<CheckInOutcome>(`/api/requests/${id}/check-in`, { method: 'POST', body }),
     onSuccess: (outcome) => {
-      queryClient.setQueryData(requestKeys.detail(id), outcome.request)
-      return queryClient.invalidateQueries({ queryKey: requestKeys.lists() })
+      void changed(outcome.request, outcome.request)
     },
   })
 }
 
 export function useConfirmPrice() {
   return useRequestChange((id: string) => api<RequestView>(`/api/requests/${id}/confirm-price`, { method: 'POST' }))
+}
+
+/** Turning the measured price down withdraws the request; everything paid comes back. */
+export function useDeclinePrice() {
+  return useRequestChange((id: string) => api<RequestView>(`/api/requests/${id}/price/decline`, { method: 'POST' }))
+}
+
+/** The studio marks money taken at its counter as handed back. */
+export function useMarkHandedBack() {
+  return useRequestChange(({ id, refundId }: { id: string; refundId: string }) =>
+    api<RequestView>(`/api/requests/${id}/counter-refunds/${refundId}/paid`, { method: 'POST' }),
+  )
 }
 
 export function usePostResults() {
@@ -58,8 +67,8 @@ export function useMarkReady() {
 
 /** Money taken at the studio's counter: what is owed now, unless a smaller amount is given. */
 export function useCounterPayment() {
-  return useRefetchingChange(({ id, amountCents, note }: { id: string; amountCents?: number; note?: string }) =>
-    api<{ owedCents: number }>(`/api/requests/${id}/balance/counter`, {
+  return useRequestChange(({ id, amountCents, note }: { id: string; amountCents?: number; note?: string }) =>
+    api<RequestView>(`/api/requests/${id}/balance/counter`, {
       method: 'POST',
       body: { ...(amountCents ? { amountCents } : {}), ...(note ? { note } : {}) },
     }),
@@ -71,14 +80,14 @@ export function useMarkCollected() {
 }
 
 export function useRate() {
-  return useRefetchingChange(({ id, body }: { id: string; body: RatingBody }) =>
-    api<RequestRatings>(`/api/requests/${id}/rating`, { method: 'POST', body }),
+  return useRefetchingChange(({ view, body }: { view: RequestView; body: RatingBody }) =>
+    api<RequestRatings>(`/api/requests/${view.id}/rating`, { method: 'POST', body }),
   )
 }
 
 export function useReplyToRating() {
-  return useRefetchingChange(({ id, text }: { id: string; text: string }) =>
-    api<RequestRatings>(`/api/requests/${id}/rating/reply`, { method: 'POST', body: { text } }),
+  return useRefetchingChange(({ view, text }: { view: RequestView; text: string }) =>
+    api<RequestRatings>(`/api/requests/${view.id}/rating/reply`, { method: 'POST', body: { text } }),
   )
 }
 
@@ -89,7 +98,7 @@ export function useSetPhotoPublic(requestId: string) {
     mutationFn: ({ photoId, shown }: { photoId: string; shown: boolean }) =>
       api<PhotoRecord>(`/api/photos/${photoId}`, { method: 'PATCH', body: { public: shown } }),
     onSuccess: (photo) =>
-      queryClient.setQueryData<RequestView>(requestKeys.detail(requestId), (view) =>
+      queryClient.setQueryData<RequestView>(requestKeys.requests.detail(requestId), (view) =>
         view ? { ...view, photos: view.photos.map((p) => (p.id === photo.id ? photo : p)) } : view,
       ),
   })
@@ -103,8 +112,8 @@ export function useRefreshPhotos(requestId: string) {
   const queryClient = useQueryClient()
   return async () => {
     for (let round = 0; round < 30; round++) {
-      await queryClient.invalidateQueries({ queryKey: requestKeys.detail(requestId), exact: true })
-      const view = queryClient.getQueryData<{ photos: PhotoRecord[] }>(requestKeys.detail(requestId))
+      await queryClient.invalidateQueries({ queryKey: requestKeys.requests.detail(requestId), exact: true })
+      const view = queryClient.getQueryData<{ photos: PhotoRecord[] }>(requestKeys.requests.detail(requestId))
       if (!view?.photos.some((photo) => photo.processing)) return
       await new Promise((resolve) => setTimeout(resolve, 2000))
     }

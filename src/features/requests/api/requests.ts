@@ -13,7 +13,7 @@ function listPath(filter: RequestFilter): string {
 
 export function useRequests(filter: RequestFilter, { enabled = true }: { enabled?: boolean } = {}) {
   return useQuery({
-    queryKey: requestKeys.list(filter),
+    queryKey: requestKeys.requests.list(filter),
     queryFn: () => api<{ requests: RequestRow[] }>(listPath(filter)).then((r) => r.requests),
     enabled,
   })
@@ -24,7 +24,7 @@ export type RequestPolling = (view: RequestView | undefined) => number | false
 
 export function useRequest(id: string | undefined, polling?: RequestPolling) {
   return useQuery({
-    queryKey: requestKeys.detail(id ?? ''),
+    queryKey: requestKeys.requests.detail(id ?? ''),
     queryFn: () => api<RequestView>(`/api/requests/${id}`),
     enabled: Boolean(id),
     // Other pages move requests along (a firing unloaded moves every request in it): coming back
@@ -34,14 +34,35 @@ export function useRequest(id: string | undefined, polling?: RequestPolling) {
   })
 }
 
-/** Every change answers with the request as it now stands: it replaces the cached one and lists refresh. */
-export function useRequestChange<TVariables>(request: (variables: TVariables) => Promise<RequestView>) {
+/**
+ * What a change to one request touches: the request itself, every request list, its firing (space
+ * held or freed), the studio's firing lists, and the notices it wrote.
+ */
+export function useRequestChanged() {
   const queryClient = useQueryClient()
+  return (view: Pick<RequestView, 'id' | 'firing'>, full?: RequestView) => {
+    if (full) queryClient.setQueryData(requestKeys.requests.detail(view.id), full)
+    return Promise.all([
+      full ? null : queryClient.invalidateQueries({ queryKey: requestKeys.requests.detail(view.id), exact: true }),
+      queryClient.invalidateQueries({ queryKey: requestKeys.requests.lists() }),
+      queryClient.invalidateQueries({ queryKey: requestKeys.firings.detail(view.firing.id), exact: true }),
+      queryClient.invalidateQueries({ queryKey: requestKeys.studios.firings(view.firing.studioId) }),
+      queryClient.invalidateQueries({ queryKey: requestKeys.notices }),
+    ])
+  }
+}
+
+/**
+ * Every change answers with the request as it now stands: it replaces the cached one at once, and
+ * what it touched refreshes in the background (the caller's own onSuccess must not wait on that: the
+ * new state may already have taken the caller off the screen).
+ */
+export function useRequestChange<TVariables>(request: (variables: TVariables) => Promise<RequestView>) {
+  const changed = useRequestChanged()
   return useMutation({
     mutationFn: request,
     onSuccess: (view) => {
-      queryClient.setQueryData(requestKeys.detail(view.id), view)
-      return queryClient.invalidateQueries({ queryKey: requestKeys.lists() })
+      void changed(view, view)
     },
   })
 }
@@ -108,7 +129,7 @@ export const THREAD_REFRESH_MS = 10_000
 
 export function useMessages(id: string) {
   return useQuery({
-    queryKey: requestKeys.messages(id),
+    queryKey: requestKeys.requests.messages(id),
     queryFn: () => api<{ messages: RequestMessage[] }>(`/api/requests/${id}/messages`).then((r) => r.messages),
     refetchInterval: THREAD_REFRESH_MS,
   })
@@ -118,6 +139,6 @@ export function usePostMessage(id: string) {
   const queryClient = useQueryClient()
   return useMutation({
     mutationFn: (body: string) => api(`/api/requests/${id}/messages`, { method: 'POST', body: { body } }),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: requestKeys.messages(id) }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: requestKeys.requests.messages(id) }),
   })
 }

@@ -235,8 +235,8 @@ function RefuseDialog({ view, open, onClose }: { view: RequestView; open: boolea
   const body: CheckInBody = { pieces: [], refuse: { reason: reason.trim() }, ...(notes.trim() ? { conditionNotes: notes.trim() } : {}) }
   const parsed = checkInSchema.safeParse(body)
   const reasonError = parsed.success ? undefined : parsed.error.issues.find((i) => i.path[0] === 'refuse')?.message
-  const paid = view.paid.inCents - view.paid.refundedCents
-  const currency = view.quote?.currency ?? view.ledger[0]?.currency ?? 'USD'
+  const paid = view.price.netPaidCents
+  const currency = view.price.currency
   const refund = refundIfWithdrawn(paid, view.firing.firingDate, view.studio.policies.cancellation)
   return (
     <Dialog

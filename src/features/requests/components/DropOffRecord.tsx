@@ -46,7 +46,10 @@ export function PriceChangeNote({ view, currency }: { view: RequestView; currenc
   const higher = change.afterCents > change.beforeCents
   const mine = view.viewer === 'potter'
   return (
-    <Alert tone={change.waiting ? 'warning' : 'info'} title={higher ? 'The measured ware costs more' : 'The measured ware costs less'}>
+    <Alert
+      tone={change.waiting || change.declined ? 'warning' : 'info'}
+      title={higher ? 'The measured ware costs more' : 'The measured ware costs less'}
+    >
       <p data-testid="price-change">
         {money(change.beforeCents)} → <strong>{money(change.afterCents)}</strong>
       </p>
@@ -55,9 +58,13 @@ export function PriceChangeNote({ view, currency }: { view: RequestView; currenc
           ? mine
             ? 'Confirm the new price before the firing; if it looks wrong, message the studio.'
             : 'The potter has to confirm the higher price before the firing. Until then the first price stands.'
-          : higher
-            ? 'The potter confirmed the new price.'
-            : 'The lower price applies at once.'}
+          : change.declined
+            ? mine
+              ? 'You turned the new price down: the request is withdrawn and what you paid is refunded.'
+              : 'The potter turned the new price down: the request is withdrawn; keep the ware out of the load.'
+            : higher
+              ? 'The potter confirmed the new price.'
+              : 'The lower price applies at once.'}
       </p>
     </Alert>
   )

@@ -3,23 +3,23 @@ import { formatMoney } from '../../../../shared/dates'
 import { counterPaymentSchema } from '../../../../shared/schemas/pickup'
 import { Alert } from '../../../components/ui/Alert'
 import { Button } from '../../../components/ui/Button'
+import { ConfirmDialog } from '../../../components/ui/ConfirmDialog'
 import { Dialog } from '../../../components/ui/Dialog'
 import { Field, TextInput } from '../../../components/ui/Field'
 import { ApiError } from '../../../lib/api'
 import { moneyMeasure, parseShown, shownText } from '../../../lib/units'
 import { useCounterPayment, useMarkCollected, useMarkReady } from '../api/pickup'
 import type { RequestView } from '../api/types'
-import { depositOwedCents } from './PotterActions'
 
 const problemOf = (error: unknown) => (error instanceof ApiError ? error.message : 'Something went wrong. Please try again.')
 
 /** What is owed at the counter now: the deposit while the request is accepted, otherwise the balance. */
-const counterOwedCents = (view: RequestView) => (view.state === 'accepted' ? depositOwedCents(view) : view.owedCents)
+const counterOwedCents = (view: RequestView) => (view.state === 'accepted' ? view.price.depositOwedCents : view.price.balanceOwedCents)
 
 /** Money handed over at the studio, recorded in the ledger; the full amount owed unless a part is given. */
 function CounterPaymentDialog({ view, open, onClose }: { view: RequestView; open: boolean; onClose: () => void }) {
   const record = useCounterPayment()
-  const currency = view.quote?.currency ?? 'USD'
+  const currency = view.price.currency
   const measure = moneyMeasure(currency)
   const owed = counterOwedCents(view)
   const [amount, setAmount] = useState(() => shownText(owed, measure))
@@ -90,11 +90,12 @@ export function HandoverActions({ view }: { view: RequestView }) {
   const ready = useMarkReady()
   const collected = useMarkCollected()
   const [counter, setCounter] = useState(false)
+  const [handingOver, setHandingOver] = useState(false)
   const can = (action: RequestView['actions'][number]) => view.actions.includes(action)
-  const currency = view.quote?.currency ?? 'USD'
+  const currency = view.price.currency
   const owedOnCollect =
     collected.error instanceof ApiError && collected.error.code === 'balance-owed'
-      ? Number(collected.error.body.owedCents ?? view.owedCents)
+      ? Number(collected.error.body.owedCents ?? view.price.balanceOwedCents)
       : null
   if (!can('ready') && !can('counter-payment') && !can('collected') && view.state !== 'ready') return null
 
@@ -119,9 +120,9 @@ export function HandoverActions({ view }: { view: RequestView }) {
       )}
       {view.state === 'ready' && (
         <p className="text-sm" data-testid="owed-now">
-          {view.owedCents > 0 ? (
+          {view.price.balanceOwedCents > 0 ? (
             <>
-              Still owed: <strong>{formatMoney(view.owedCents, currency)}</strong>
+              Still owed: <strong>{formatMoney(view.price.balanceOwedCents, currency)}</strong>
             </>
           ) : (
             <span className="text-celadon-700">Everything is paid.</span>
@@ -135,11 +136,23 @@ export function HandoverActions({ view }: { view: RequestView }) {
           </Button>
         )}
         {(can('collected') || view.state === 'ready') && (
-          <Button variant={can('collected') ? 'primary' : 'secondary'} busy={collected.isPending} onClick={() => collected.mutate(view.id)}>
-            Collected
+          <Button variant={can('collected') ? 'primary' : 'secondary'} busy={collected.isPending} onClick={() => setHandingOver(true)}>
+            Collected…
           </Button>
         )}
       </div>
+      <ConfirmDialog
+        open={handingOver}
+        onClose={() => setHandingOver(false)}
+        title={`Hand the ware over to ${view.potter.displayName}?`}
+        confirmLabel="Yes, collected"
+        busy={collected.isPending}
+        onConfirm={() => collected.mutate(view.id, { onSettled: () => setHandingOver(false) })}
+      >
+        <p>
+          The request is marked collected and {view.potter.displayName} is mailed the receipt. After this, each side can rate the other.
+        </p>
+      </ConfirmDialog>
       {owedOnCollect !== null ? (
         <Alert tone="warning" title="Not handed over yet">
           {formatMoney(owedOnCollect, currency)} is still owed. Take it at the counter, or let the potter pay online first.

@@ -9,7 +9,8 @@ import { ApiError } from '../../../lib/api'
 import { firingInWords } from '../../../lib/firingWords'
 import { formatSpace, type UnitSystem } from '../../../lib/units'
 import { QuoteSummary } from '../../../components/ware/QuoteSummary'
-import { useConfirmPrice } from '../api/pickup'
+import { ConfirmDialog } from '../../../components/ui/ConfirmDialog'
+import { useConfirmPrice, useDeclinePrice } from '../api/pickup'
 import { useAnswerMove, useOpenCheckout, useWithdrawRequest } from '../api/requests'
 import type { RequestView } from '../api/types'
 import { refundIfWithdrawn } from '../requestWords'
@@ -17,8 +18,8 @@ import { SendDialog } from './SendDialog'
 
 const problemOf = (error: unknown) => (error instanceof ApiError ? error.message : 'Something went wrong. Please try again.')
 
-/** The deposit still owed: the quote's deposit less what has come in for it. */
-export const depositOwedCents = (view: RequestView) => Math.max(0, (view.quote?.depositCents ?? 0) - view.paid.depositCents)
+/** What a card can be charged for: the processor refuses less, and the counter takes it instead. */
+const payableByCard = (view: RequestView, cents: number) => cents >= view.price.minimumOnlineCents
 
 /** Opens the hosted payment page for the deposit or the balance and leaves for it. */
 function CheckoutButton({ view, purpose, label }: { view: RequestView; purpose: 'deposit' | 'balance'; label: string }) {
@@ -40,31 +41,33 @@ function CheckoutButton({ view, purpose, label }: { view: RequestView; purpose: 
   )
 }
 
-export function PayDepositButton({ view, label }: { view: RequestView; label?: string }) {
+function UnderCardMinimum({ view, cents }: { view: RequestView; cents: number }) {
   return (
-    <CheckoutButton
-      view={view}
-      purpose="deposit"
-      label={label ?? `Pay the deposit · ${formatMoney(depositOwedCents(view), view.quote?.currency ?? 'USD')}`}
-    />
+    <p className="text-sm text-slip-700" data-testid="pay-at-counter">
+      {formatMoney(cents, view.price.currency)} is less than a card can be charged: pay it at the studio’s counter.
+    </p>
   )
 }
 
+export function PayDepositButton({ view, label }: { view: RequestView; label?: string }) {
+  const owed = view.price.depositOwedCents
+  if (!payableByCard(view, owed)) return <UnderCardMinimum view={view} cents={owed} />
+  return <CheckoutButton view={view} purpose="deposit" label={label ?? `Pay the deposit · ${formatMoney(owed, view.price.currency)}`} />
+}
+
 export function PayBalanceButton({ view, label }: { view: RequestView; label?: string }) {
-  return (
-    <CheckoutButton
-      view={view}
-      purpose="balance"
-      label={label ?? `Pay the balance · ${formatMoney(view.owedCents, view.quote?.currency ?? 'USD')}`}
-    />
-  )
+  const owed = view.price.balanceOwedCents
+  if (!payableByCard(view, owed)) return <UnderCardMinimum view={view} cents={owed} />
+  return <CheckoutButton view={view} purpose="balance" label={label ?? `Pay the balance · ${formatMoney(owed, view.price.currency)}`} />
 }
 
 /** The price the measured ware gives, before and after, for the potter to agree to. */
 function ConfirmPrice({ view }: { view: RequestView }) {
   const confirm = useConfirmPrice()
-  const before = view.checkIn?.quoteBefore
-  const after = view.checkIn?.quoteAfter
+  const decline = useDeclinePrice()
+  const [declining, setDeclining] = useState(false)
+  const before = view.price.standing
+  const after = view.price.pending
   if (!after) return null
   const currency = after.currency
   return (
@@ -75,15 +78,36 @@ function ConfirmPrice({ view }: { view: RequestView }) {
         <strong>{formatMoney(after.totalCents, currency)}</strong>. It needs your agreement before the firing.
       </p>
       <QuoteSummary quote={after} />
-      <Button busy={confirm.isPending} onClick={() => confirm.mutate(view.id)}>
-        Confirm the new price
-      </Button>
+      <div className="flex flex-wrap gap-2">
+        <Button busy={confirm.isPending} onClick={() => confirm.mutate(view.id)}>
+          Confirm the new price
+        </Button>
+        <Button variant="secondary" onClick={() => setDeclining(true)}>
+          Turn it down…
+        </Button>
+      </div>
       {confirm.isError && (
         <p className="text-sm font-medium text-danger-700" role="alert">
           {problemOf(confirm.error)}
         </p>
       )}
-      <p className="text-xs text-slip-600">If the sizes look wrong, ask the studio in the messages before confirming.</p>
+      <p className="text-xs text-slip-600">If the sizes look wrong, ask the studio in the messages before answering.</p>
+      <ConfirmDialog
+        open={declining}
+        onClose={() => setDeclining(false)}
+        title="Turn the new price down?"
+        confirmLabel="Turn it down and withdraw"
+        tone="danger"
+        busy={decline.isPending}
+        problem={decline.isError ? problemOf(decline.error) : null}
+        onConfirm={() => decline.mutate(view.id, { onSuccess: () => setDeclining(false) })}
+      >
+        <p>
+          Your request is withdrawn and the ware is not fired. Everything you paid,{' '}
+          <strong>{formatMoney(view.price.netPaidCents, currency)}</strong>, comes back to you in full.
+        </p>
+        <p>Collect your ware from {view.studio.name} in their opening hours.</p>
+      </ConfirmDialog>
     </div>
   )
 }
@@ -186,10 +210,10 @@ export function PotterActions({ view, units }: { view: RequestView; units: UnitS
 function WithdrawDialog({ view, open, onClose }: { view: RequestView; open: boolean; onClose: () => void }) {
   const withdraw = useWithdrawRequest()
   const [reason, setReason] = useState('')
-  const paidCents = view.paid.inCents - view.paid.refundedCents
+  const paidCents = view.price.netPaidCents
   const terms = view.studio.policies.cancellation
   const preview = refundIfWithdrawn(paidCents, view.firing.firingDate, terms)
-  const currency = view.quote?.currency ?? view.ledger[0]?.currency ?? 'USD'
+  const currency = view.price.currency
   const money = (cents: number) => formatMoney(cents, currency)
   const parsed = requestWithdrawSchema.safeParse({ reason })
 

@@ -88,7 +88,7 @@ function RatingForm({
       onSubmit={(event) => {
         event.preventDefault()
         setTouched(true)
-        if (parsed.success) rate.mutate({ id: view.id, body: parsed.data }, { onSuccess: onDone })
+        if (parsed.success) rate.mutate({ view, body: parsed.data }, { onSuccess: onDone })
       }}
     >
       <div className="grid gap-4 sm:grid-cols-2">
@@ -148,7 +148,7 @@ function ReplyForm({ view }: { view: RequestView }) {
       onSubmit={(event) => {
         event.preventDefault()
         setTouched(true)
-        if (parsed.success) reply.mutate({ id: view.id, text: parsed.data.text })
+        if (parsed.success) reply.mutate({ view, text: parsed.data.text })
       }}
     >
       <Field

@@ -82,7 +82,7 @@ function SendForm({ requestId, onClose, onSent }: { requestId: string; onClose: 
             })
           } else if (error.code === 'policies-changed') {
             setAgreed(false)
-            void queryClient.invalidateQueries({ queryKey: requestKeys.detail(view.id) })
+            void queryClient.invalidateQueries({ queryKey: requestKeys.requests.detail(view.id) })
             setProblem({ title: 'The studio changed its policies', text: 'Read them again above and agree to the new version to send.' })
           } else setProblem({ title: 'Not sent', text: error.message })
         },

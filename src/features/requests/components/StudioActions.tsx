@@ -3,6 +3,7 @@ import { formatDateTime, formatMoney } from '../../../../shared/dates'
 import { requestDeclineSchema } from '../../../../shared/schemas/requests'
 import { takesRequests } from '../../../../shared/workflow/firing-status'
 import { Alert } from '../../../components/ui/Alert'
+import { ConfirmDialog } from '../../../components/ui/ConfirmDialog'
 import { Button } from '../../../components/ui/Button'
 import { Dialog } from '../../../components/ui/Dialog'
 import { Field, Select, TextArea } from '../../../components/ui/Field'
@@ -17,19 +18,50 @@ import { HandoverActions } from './HandoverActions'
 
 const problemOf = (error: unknown) => (error instanceof ApiError ? error.message : 'Something went wrong. Please try again.')
 
-/** Accepting holds the space; the server refuses it when the firing has filled up meanwhile. */
-export function AcceptButton({ requestId, size = 'md' }: { requestId: string; size?: 'sm' | 'md' }) {
+/**
+ * Taking a request on holds its space and asks for the deposit: the button says so before it does it.
+ * The server refuses when the firing has filled up or stopped taking ware meanwhile.
+ */
+export function AcceptButton({ view, size = 'md', units }: { view: RequestView; size?: 'sm' | 'md'; units: UnitSystem }) {
   const accept = useAcceptRequest()
+  const [asking, setAsking] = useState(false)
+  const deposit = view.price.depositCents
+  const holdHours = view.studio.policies.depositHoldHours
+  const dueBy = new Date(Date.now() + holdHours * 3600_000).toISOString()
   return (
     <span className="inline-flex flex-col gap-1">
-      <Button size={size} busy={accept.isPending} onClick={() => accept.mutate(requestId)}>
-        Accept
+      <Button size={size} onClick={() => setAsking(true)}>
+        Take it on…
       </Button>
-      {accept.isError && (
+      {accept.isError && !asking && (
         <span className="text-xs font-medium text-danger-700" role="alert">
           {problemOf(accept.error)}
         </span>
       )}
+      <ConfirmDialog
+        open={asking}
+        onClose={() => setAsking(false)}
+        title={`Take on ${view.potter.displayName}’s ware?`}
+        confirmLabel="Take it on"
+        busy={accept.isPending}
+        problem={accept.isError ? problemOf(accept.error) : null}
+        onConfirm={() => accept.mutate(view.id, { onSuccess: () => setAsking(false) })}
+      >
+        <ul className="list-disc space-y-1 pl-5" data-testid="accept-effects">
+          <li>
+            {formatSpace(view.volumeL, units)} of the firing is held for it ({formatSpace(view.firing.spaceLeftL, units)} is free now).
+          </li>
+          {deposit > 0 ? (
+            <li>
+              {view.potter.displayName} is asked for a deposit of <strong>{formatMoney(deposit, view.price.currency)}</strong>, to pay by{' '}
+              {formatDateTime(dueBy, view.studio.timezone)}; unpaid by then, the space is released.
+            </li>
+          ) : (
+            <li>No deposit is asked: the space is booked at once.</li>
+          )}
+          <li>The potter gets your street address and a mail.</li>
+        </ul>
+      </ConfirmDialog>
     </span>
   )
 }
@@ -163,8 +195,8 @@ export function MoveDialog({ view, open, onClose, units }: { view: RequestView; 
 export function StudioActions({ view, units }: { view: RequestView; units: UnitSystem }) {
   const [dialog, setDialog] = useState<'decline' | 'cancel' | 'move' | null>(null)
   const can = (action: RequestView['actions'][number]) => view.actions.includes(action)
-  const paid = view.paid.inCents - view.paid.refundedCents
-  const currency = view.quote?.currency ?? view.ledger[0]?.currency ?? 'USD'
+  const paid = view.price.netPaidCents
+  const currency = view.price.currency
   const deciding = can('accept') || can('decline') || can('move') || can('cancel')
   return (
     <div className="space-y-3">
@@ -186,7 +218,7 @@ export function StudioActions({ view, units }: { view: RequestView; units: UnitS
       )}
       {deciding && (
         <div className="flex flex-wrap items-start gap-2">
-          {can('accept') && <AcceptButton requestId={view.id} />}
+          {can('accept') && <AcceptButton view={view} units={units} />}
           {can('decline') && view.state === 'sent' && (
             <Button variant="secondary" onClick={() => setDialog('decline')}>
               Decline…

@@ -1,5 +1,5 @@
 import { Link } from 'react-router-dom'
-import { formatDateTime, formatMoney } from '../../../../shared/dates'
+import { formatDateTime } from '../../../../shared/dates'
 import { ButtonLink } from '../../../components/ui/Button'
 import { EmptyState, PageHeader } from '../../../components/ui/Card'
 import { Spinner } from '../../../components/ui/Spinner'
@@ -10,7 +10,7 @@ import { useRequests } from '../api/requests'
 import type { RequestRow } from '../api/types'
 import { RequestProblem } from '../components/RequestProblem'
 import { RequestStateBadge } from '../components/RequestStateBadge'
-import { potterNextStep } from '../requestWords'
+import { rowNextStep, rowWantsMe, rowMoneyLine } from '../requestWords'
 
 /** Drafts first (they wait on the potter), then the rest as the server orders them: latest change first. */
 function inOrder(requests: RequestRow[]): RequestRow[] {
@@ -61,8 +61,9 @@ export function MyWarePage() {
 
 function RequestCard({ row, units }: { row: RequestRow; units: UnitSystem }) {
   const zone = row.studio.timezone
-  const next = potterNextStep({ ...row, dropOffBy: row.firing.dropOffBy, timezone: zone })
-  const needsMe = ['draft', 'accepted'].includes(row.state) || (row.state === 'sent' && row.proposedFiringId !== null)
+  const next = rowNextStep(row)
+  const needsMe = rowWantsMe(row)
+  const money = rowMoneyLine(row)
   return (
     <li
       data-testid="my-request"
@@ -89,8 +90,7 @@ function RequestCard({ row, units }: { row: RequestRow; units: UnitSystem }) {
       </p>
       <p className="mt-1 text-xs text-slip-500">
         {row.pieceCount} {row.pieceCount === 1 ? 'piece' : 'pieces'} · {formatSpace(row.volumeL, units)}
-        {row.quote &&
-          ` · ${formatMoney(row.quote.totalCents, row.quote.currency)} (deposit ${formatMoney(row.quote.depositCents, row.quote.currency)})`}
+        {money && <span data-testid="row-money"> · {money}</span>}
       </p>
     </li>
   )

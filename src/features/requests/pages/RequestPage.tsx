@@ -24,7 +24,8 @@ import { PayBalanceButton, PayDepositButton, PotterActions } from '../components
 import { RatingsPanel } from '../components/RatingsPanel'
 import { ResultsForm, ResultsView } from '../components/ResultsPanel'
 import { WarePhotos } from '../components/WarePhotos'
-import { potterPickupStep, priceChange, standingQuote, studioPickupStep } from '../pickupWords'
+import { potterPickupStep, priceChange, ratingStep, studioPickupStep } from '../pickupWords'
+import { CounterRefunds } from '../components/CounterRefunds'
 import { PotterRecordLine } from '../components/PotterRecordLine'
 import { RequestProblem } from '../components/RequestProblem'
 import { RequestStateBadge } from '../components/RequestStateBadge'
@@ -75,7 +76,7 @@ const paymentPurpose = (value: string | null): PaymentPurpose | null => (value =
 
 /** Whether the page still waits for the webhook to book what the potter just paid. */
 const awaitingConfirmation = (view: RequestView, purpose: PaymentPurpose) =>
-  purpose === 'deposit' ? view.state === 'accepted' : view.state === 'ready' && view.owedCents > 0
+  purpose === 'deposit' ? view.state === 'accepted' : view.state === 'ready' && view.price.balanceOwedCents > 0
 
 interface DetailProps {
   view: RequestView
@@ -139,7 +140,7 @@ function BalanceNotices({ view, returnedPaid, returnedUnpaid, waitedOut }: Notic
     <div className="space-y-3" aria-live="polite" data-testid="balance-notices">
       {returnedPaid && awaiting && !waitedOut && <ConfirmingPayment />}
       {returnedPaid && awaiting && waitedOut && <NotConfirmedYet />}
-      {returnedPaid && !awaiting && view.owedCents === 0 && (
+      {returnedPaid && !awaiting && view.price.balanceOwedCents === 0 && (
         <Alert tone="success" title="Balance paid">
           Thank you: nothing more is owed. Collect your ware in the studio’s pickup hours.
         </Alert>
@@ -205,13 +206,16 @@ function RequestDetail({ view, units, paidFor, unpaidFor, waitedOut }: DetailPro
     timezone: zone,
   }
   const nextStep =
-    view.viewer === 'studio'
-      ? (studioPickupStep(view.state, view) ?? studioNextStep(facts))
-      : (potterPickupStep(view.state, view) ?? potterNextStep(facts))
-  const standing = standingQuote(view)
+    view.state === 'collected'
+      ? ratingStep(view)
+      : view.viewer === 'studio'
+        ? (studioPickupStep(view.state, view) ?? studioNextStep(facts))
+        : (potterPickupStep(view.state, view) ?? potterNextStep(facts))
+  const standing = view.quote
   const change = priceChange(view)
-  const remeasured = change !== null && !change.waiting
-  const currency = view.quote?.currency ?? view.ledger[0]?.currency ?? 'USD'
+  const remeasured = change !== null && !change.waiting && !change.declined
+  const price = view.price
+  const currency = price.currency
   const showResults = view.results !== null || view.actions.includes('results') || view.photos.some((p) => p.kind === 'result')
   const showRatings = view.actions.includes('rate') || view.ratings.ofStudio !== null || view.ratings.ofPotter !== null
   const warnings = view.findings.filter((f) => f.severity === 'warn')
@@ -378,7 +382,10 @@ function RequestDetail({ view, units, paidFor, unpaidFor, waitedOut }: DetailPro
           <Card>
             <h2 className="mb-3 text-lg font-semibold">{remeasured ? 'Quote, as measured at check-in' : 'Quote'}</h2>
             {standing ? (
-              <QuoteSummary quote={standing} />
+              <QuoteSummary
+                quote={standing}
+                deposit={price.depositAsked ? { cents: price.depositCents, label: 'Deposit asked' } : undefined}
+              />
             ) : (
               <p className="text-sm text-slip-600">The kiln has no price list; the studio quotes in the messages.</p>
             )}
@@ -387,20 +394,30 @@ function RequestDetail({ view, units, paidFor, unpaidFor, waitedOut }: DetailPro
                 <PriceChangeNote view={view} currency={currency} />
               </div>
             )}
-            {(view.paid.inCents > 0 || view.paid.refundedCents > 0) && (
+            {(price.paidInCents > 0 || price.refundedCents > 0) && (
               <p className="mt-3 text-sm text-slip-700" data-testid="paid-summary">
-                Paid {formatMoney(view.paid.inCents, currency)}
-                {view.paid.refundedCents > 0 && `, refunded ${formatMoney(view.paid.refundedCents, currency)}`}.
+                Paid {formatMoney(price.paidInCents, currency)}
+                {price.refundedCents > 0 && `, refunded ${formatMoney(price.refundedCents, currency)}`}.
+              </p>
+            )}
+            {view.state === 'accepted' && price.depositOwedCents > 0 && (
+              <p className="mt-2 text-sm font-semibold text-slip-900" data-testid="deposit-owed" data-owed-cents={price.depositOwedCents}>
+                Deposit still owed: {formatMoney(price.depositOwedCents, currency)}
               </p>
             )}
             {OWING_STATES.includes(view.state) && (
               <p
-                className={`mt-2 text-sm ${view.owedCents > 0 ? 'font-semibold text-slip-900' : 'text-celadon-700'}`}
+                className={`mt-2 text-sm ${price.balanceOwedCents > 0 ? 'font-semibold text-slip-900' : 'text-celadon-700'}`}
                 data-testid="owed"
-                data-owed-cents={view.owedCents}
+                data-owed-cents={price.balanceOwedCents}
               >
-                {view.owedCents > 0 ? `Still owed: ${formatMoney(view.owedCents, currency)}` : 'Nothing more is owed.'}
+                {price.balanceOwedCents > 0 ? `Still owed: ${formatMoney(price.balanceOwedCents, currency)}` : 'Nothing more is owed.'}
               </p>
+            )}
+            {view.counterRefunds.length > 0 && (
+              <div className="mt-3">
+                <CounterRefunds view={view} />
+              </div>
             )}
           </Card>
 

@@ -1,6 +1,6 @@
 import { useState } from 'react'
 import { Link, useParams, useSearchParams } from 'react-router-dom'
-import { formatDateTime, formatMoney } from '../../../../shared/dates'
+import { formatDateTime } from '../../../../shared/dates'
 import { REQUEST_STATES, type RequestState } from '../../../../shared/workflow/request-states'
 import { Badge } from '../../../components/ui/Badge'
 import { Button, ButtonLink } from '../../../components/ui/Button'
@@ -18,8 +18,7 @@ import { RequestProblem } from '../components/RequestProblem'
 import { RequestStateBadge } from '../components/RequestStateBadge'
 import { SpaceGauge } from '../components/SpaceGauge'
 import { AcceptButton, ReasonDialog } from '../components/StudioActions'
-import { studioPickupStep } from '../pickupWords'
-import { stateLabel, studioNextStep } from '../requestWords'
+import { rowMoneyLine, rowNextStep, stateLabel } from '../requestWords'
 
 /** /studios/:id/requests: every request to the studio. */
 export function StudioInboxPage() {
@@ -159,7 +158,7 @@ function InboxRow({
   const [declining, setDeclining] = useState(false)
   const zone = row.studio.timezone
   const verdict = VERDICT_WORDS[row.verdict]
-  const canDecide = detail.data?.actions.includes('accept') ?? waiting
+  const canDecide = row.actions.includes('accept')
   return (
     <li
       data-testid="inbox-request"
@@ -193,9 +192,7 @@ function InboxRow({
                 <span className="text-slip-500">Loading the potter’s record…</span>
               )
             ) : (
-              <span className="text-slip-600">
-                {studioPickupStep(row.state) ?? studioNextStep({ ...row, dropOffBy: row.firing.dropOffBy, timezone: zone })}
-              </span>
+              <span className="text-slip-600">{rowNextStep(row)}</span>
             )}
           </p>
           <p className="flex flex-wrap items-center gap-2 text-sm text-slip-700">
@@ -204,19 +201,14 @@ function InboxRow({
               {row.findings === 0 ? 'no findings' : `${row.findings} ${row.findings === 1 ? 'finding' : 'findings'}`} · {row.pieceCount}{' '}
               {row.pieceCount === 1 ? 'piece' : 'pieces'}
             </span>
-            {row.quote && (
-              <span>
-                · {formatMoney(row.quote.totalCents, row.quote.currency)}{' '}
-                <span className="text-slip-500">(deposit {formatMoney(row.quote.depositCents, row.quote.currency)})</span>
-              </span>
-            )}
+            {row.price && <span data-testid="row-money">· {rowMoneyLine(row)}</span>}
           </p>
         </div>
         <div>{waiting && spaceLeftL !== undefined ? <SpaceGauge needL={row.volumeL} leftL={spaceLeftL} units={units} /> : null}</div>
         <div className="flex flex-wrap items-start gap-2 md:justify-end">
           {canDecide && (
             <>
-              <AcceptButton requestId={row.id} size="sm" />
+              {detail.data && <AcceptButton view={detail.data} size="sm" units={units} />}
               <Button size="sm" variant="secondary" onClick={() => setDeclining(true)}>
                 Decline…
               </Button>

@@ -6,7 +6,7 @@ import type { CrewInvite, CrewMember, InviteDetails } from './types'
 
 export function useCrew(studioId: string | undefined) {
   return useQuery({
-    queryKey: studioKeys.crew(studioId ?? ''),
+    queryKey: studioKeys.studios.crew(studioId ?? ''),
     queryFn: () => api<{ members: CrewMember[]; invites: CrewInvite[] }>(`/api/studios/${studioId}/crew`),
     enabled: Boolean(studioId),
   })
@@ -16,7 +16,7 @@ export function useInviteCrew(studioId: string) {
   const queryClient = useQueryClient()
   return useMutation({
     mutationFn: (body: { email: string }) => api<{ email: string }>(`/api/studios/${studioId}/invites`, { method: 'POST', body }),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: studioKeys.crew(studioId) }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: studioKeys.studios.crew(studioId) }),
   })
 }
 
@@ -24,7 +24,7 @@ export function useWithdrawInvite(studioId: string) {
   const queryClient = useQueryClient()
   return useMutation({
     mutationFn: (inviteId: string) => api(`/api/studios/${studioId}/invites/${inviteId}`, { method: 'DELETE' }),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: studioKeys.crew(studioId) }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: studioKeys.studios.crew(studioId) }),
   })
 }
 
@@ -32,14 +32,14 @@ export function useRemoveCrewMember(studioId: string) {
   const queryClient = useQueryClient()
   return useMutation({
     mutationFn: (memberId: string) => api(`/api/studios/${studioId}/crew/${memberId}`, { method: 'DELETE' }),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: studioKeys.crew(studioId) }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: studioKeys.studios.crew(studioId) }),
   })
 }
 
 /** What an invitation link is for; asked without signing in. */
 export function useInviteLookup(token: string | null) {
   return useQuery({
-    queryKey: studioKeys.invite(token ?? ''),
+    queryKey: studioKeys.studios.invite(token ?? ''),
     queryFn: () => api<InviteDetails>('/api/invites/lookup', { method: 'POST', body: { token } }),
     enabled: Boolean(token && token.length >= 10),
     staleTime: Infinity,
@@ -54,7 +54,7 @@ export function useAcceptInvite() {
     onSuccess: () =>
       Promise.all([
         queryClient.invalidateQueries({ queryKey: authKeys.me }),
-        queryClient.invalidateQueries({ queryKey: studioKeys.mine() }),
+        queryClient.invalidateQueries({ queryKey: studioKeys.studios.mine() }),
       ]),
   })
 }

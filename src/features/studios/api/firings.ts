@@ -1,5 +1,6 @@
 import { keepPreviousData, useMutation, useQuery, useQueryClient } from '@tanstack/react-query'
 import type { FiringCreateBody, FiringPatchBody } from '../../../../shared/schemas/studios'
+import type { FiringStatus } from '../../../../shared/workflow/firing-status'
 import { api } from '../../../lib/api'
 import { studioKeys, type FiringWindow } from './keys'
 import type { FiringRecord } from './types'
@@ -7,7 +8,7 @@ import type { FiringRecord } from './types'
 /** A studio's firings in a window; members see every status, the public the upcoming open ones. */
 export function useStudioFirings(studioId: string | undefined, window: FiringWindow) {
   return useQuery({
-    queryKey: studioKeys.firingsIn(studioId ?? '', window),
+    queryKey: studioKeys.studios.firingsIn(studioId ?? '', window),
     queryFn: () => {
       const query = new URLSearchParams()
       if (window.from) query.set('from', window.from)
@@ -27,23 +28,57 @@ export function useCreateFirings(studioId: string) {
   return useMutation({
     mutationFn: ({ kilnId, body }: { kilnId: string; body: FiringCreateBody }) =>
       api<{ firings: FiringRecord[] }>(`/api/kilns/${kilnId}/firings`, { method: 'POST', body }).then((r) => r.firings),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: studioKeys.firings(studioId) }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: studioKeys.studios.firings(studioId) }),
   })
 }
 
-export function useUpdateFiring(studioId: string) {
+/** A firing as it now stands replaces the cached one; every list of the studio's firings refreshes. */
+function useFiringChanged(studioId: string) {
   const queryClient = useQueryClient()
+  return (firing: FiringRecord, { requestsMoved }: { requestsMoved: boolean }) => {
+    queryClient.setQueryData(studioKeys.firings.detail(firing.id), firing)
+    return Promise.all([
+      queryClient.invalidateQueries({ queryKey: studioKeys.studios.firings(studioId) }),
+      // A stage move can move every request in the firing (loading lapses what still waits, unloading
+      // fires the rest), and tells people: requests and notices are read again.
+      ...(requestsMoved
+        ? [
+            queryClient.invalidateQueries({ queryKey: studioKeys.requests.all }),
+            queryClient.invalidateQueries({ queryKey: studioKeys.notices }),
+          ]
+        : []),
+    ])
+  }
+}
+
+export function useUpdateFiring(studioId: string) {
+  const changed = useFiringChanged(studioId)
   return useMutation({
     mutationFn: ({ firingId, body }: { firingId: string; body: FiringPatchBody }) =>
       api<FiringRecord>(`/api/firings/${firingId}`, { method: 'PATCH', body }),
-    // A status move can move every request in the firing (loading lapses no-shows, unloading fires the rest).
-    onSuccess: (firing) => {
-      queryClient.setQueryData(studioKeys.firing(firing.id), firing)
-      return Promise.all([
-        queryClient.invalidateQueries({ queryKey: studioKeys.firings(studioId) }),
-        queryClient.invalidateQueries({ queryKey: studioKeys.firingRequests(firing.id) }),
-      ])
-    },
+    onSuccess: (firing) => changed(firing, { requestsMoved: false }),
+  })
+}
+
+/**
+ * Moves a firing to another stage. The server answers 409 `needs-confirmation` with its question (a
+ * date ahead, requests that will lapse) until the move is sent again with `confirm`.
+ */
+export function useMoveFiring(studioId: string) {
+  const changed = useFiringChanged(studioId)
+  return useMutation({
+    mutationFn: ({ firingId, status, confirm }: { firingId: string; status: FiringStatus; confirm?: boolean }) =>
+      api<FiringRecord>(`/api/firings/${firingId}/stage`, { method: 'POST', body: { status, ...(confirm ? { confirm } : {}) } }),
+    onSuccess: (firing) => changed(firing, { requestsMoved: true }),
+  })
+}
+
+/** Takes back the last stage move within its undo window. */
+export function useUndoFiringMove(studioId: string) {
+  const changed = useFiringChanged(studioId)
+  return useMutation({
+    mutationFn: (firingId: string) => api<FiringRecord>(`/api/firings/${firingId}/undo`, { method: 'POST' }),
+    onSuccess: (firing) => changed(firing, { requestsMoved: true }),
   })
 }
 
@@ -52,6 +87,12 @@ export function useCancelFiring(studioId: string) {
   return useMutation({
     mutationFn: ({ firingId, reason }: { firingId: string; reason: string }) =>
       api<FiringRecord & { cancelledRequests: number }>(`/api/firings/${firingId}/cancel`, { method: 'POST', body: { reason } }),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: studioKeys.firings(studioId) }),
+    onSuccess: (firing) =>
+      Promise.all([
+        queryClient.setQueryData(studioKeys.firings.detail(firing.id), firing),
+        queryClient.invalidateQueries({ queryKey: studioKeys.studios.firings(studioId) }),
+        queryClient.invalidateQueries({ queryKey: studioKeys.requests.all }),
+        queryClient.invalidateQueries({ queryKey: studioKeys.notices }),
+      ]),
   })
 }

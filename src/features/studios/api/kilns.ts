@@ -7,7 +7,7 @@ import type { ExamplePrice, KilnRecord, KilnWithPrices } from './types'
 
 export function useStudioKilns(studioId: string | undefined) {
   return useQuery({
-    queryKey: studioKeys.kilns(studioId ?? ''),
+    queryKey: studioKeys.studios.kilns(studioId ?? ''),
     queryFn: () => api<{ kilns: KilnWithPrices[] }>(`/api/studios/${studioId}/kilns`).then((r) => r.kilns),
     enabled: Boolean(studioId),
   })
@@ -15,7 +15,7 @@ export function useStudioKilns(studioId: string | undefined) {
 
 export function useKiln(kilnId: string | undefined) {
   return useQuery({
-    queryKey: studioKeys.kiln(kilnId ?? ''),
+    queryKey: studioKeys.kilns.detail(kilnId ?? ''),
     queryFn: () => api<KilnRecord>(`/api/kilns/${kilnId}`),
     enabled: Boolean(kilnId),
   })
@@ -26,8 +26,8 @@ export function useCreateKiln(studioId: string) {
   return useMutation({
     mutationFn: (body: KilnBody) => api<KilnRecord>(`/api/studios/${studioId}/kilns`, { method: 'POST', body }),
     onSuccess: (kiln) => {
-      queryClient.setQueryData(studioKeys.kiln(kiln.id), kiln)
-      return queryClient.invalidateQueries({ queryKey: studioKeys.kilns(studioId) })
+      queryClient.setQueryData(studioKeys.kilns.detail(kiln.id), kiln)
+      return queryClient.invalidateQueries({ queryKey: studioKeys.studios.kilns(studioId) })
     },
   })
 }
@@ -37,8 +37,8 @@ export function useUpdateKiln(kilnId: string, studioId: string) {
   return useMutation({
     mutationFn: (body: Partial<KilnBody> | Record<string, unknown>) => api<KilnRecord>(`/api/kilns/${kilnId}`, { method: 'PATCH', body }),
     onSuccess: (kiln) => {
-      queryClient.setQueryData(studioKeys.kiln(kilnId), kiln)
-      return queryClient.invalidateQueries({ queryKey: studioKeys.kilns(studioId) })
+      queryClient.setQueryData(studioKeys.kilns.detail(kilnId), kiln)
+      return queryClient.invalidateQueries({ queryKey: studioKeys.studios.kilns(studioId) })
     },
   })
 }
@@ -52,9 +52,9 @@ export function useRemoveKiln(kilnId: string, studioId: string) {
       return answer?.retired ? 'retired' : 'deleted'
     },
     onSuccess: (outcome) => {
-      if (outcome === 'deleted') queryClient.removeQueries({ queryKey: studioKeys.kiln(kilnId) })
-      else queryClient.invalidateQueries({ queryKey: studioKeys.kiln(kilnId), exact: true })
-      return queryClient.invalidateQueries({ queryKey: studioKeys.kilns(studioId) })
+      if (outcome === 'deleted') queryClient.removeQueries({ queryKey: studioKeys.kilns.detail(kilnId) })
+      else queryClient.invalidateQueries({ queryKey: studioKeys.kilns.detail(kilnId), exact: true })
+      return queryClient.invalidateQueries({ queryKey: studioKeys.studios.kilns(studioId) })
     },
   })
 }
@@ -67,7 +67,7 @@ export interface PriceListAnswer {
 /** The kiln's price list, or null when the host has not set one yet. */
 export function usePriceList(kilnId: string | undefined) {
   return useQuery({
-    queryKey: studioKeys.priceList(kilnId ?? ''),
+    queryKey: studioKeys.kilns.priceList(kilnId ?? ''),
     queryFn: async () => {
       try {
         return await api<PriceListAnswer>(`/api/kilns/${kilnId}/price-list`)
@@ -85,8 +85,8 @@ export function useSavePriceList(kilnId: string, studioId: string) {
   return useMutation({
     mutationFn: (body: PriceListBody) => api<PriceListAnswer>(`/api/kilns/${kilnId}/price-list`, { method: 'PUT', body }),
     onSuccess: (answer) => {
-      queryClient.setQueryData(studioKeys.priceList(kilnId), answer)
-      return queryClient.invalidateQueries({ queryKey: studioKeys.kilns(studioId) })
+      queryClient.setQueryData(studioKeys.kilns.priceList(kilnId), answer)
+      return queryClient.invalidateQueries({ queryKey: studioKeys.studios.kilns(studioId) })
     },
   })
 }

@@ -31,7 +31,7 @@ export interface PublicPhoto {
 /** Result photos potters chose to show on the studio's page. */
 export function useStudioPhotos(studioId: string) {
   return useQuery({
-    queryKey: studioKeys.photos(studioId),
+    queryKey: studioKeys.studios.photos(studioId),
     queryFn: () => api<{ photos: PublicPhoto[] }>(`/api/studios/${studioId}/photos`),
   })
 }
@@ -39,7 +39,7 @@ export function useStudioPhotos(studioId: string) {
 /** Potters' ratings of a studio, newest first, with the mean and how many there are. */
 export function useStudioRatings(studioId: string) {
   return useQuery({
-    queryKey: studioKeys.ratings(studioId),
+    queryKey: studioKeys.studios.ratings(studioId),
     queryFn: () => api<StudioRatingsPage>(`/api/studios/${studioId}/ratings`),
   })
 }

@@ -7,7 +7,7 @@ import type { MemberStudio, Studio } from './types'
 /** The signed-in person's studios, drafts included, each with their role in it. */
 export function useMyStudios() {
   return useQuery({
-    queryKey: studioKeys.mine(),
+    queryKey: studioKeys.studios.mine(),
     queryFn: () => api<{ studios: MemberStudio[] }>('/api/studios?mine=true').then((r) => r.studios),
   })
 }
@@ -15,7 +15,7 @@ export function useMyStudios() {
 /** A studio as the caller may see it: the public side, or the member side for its own people. */
 export function useStudio(studioId: string | undefined) {
   return useQuery({
-    queryKey: studioKeys.detail(studioId ?? ''),
+    queryKey: studioKeys.studios.detail(studioId ?? ''),
     queryFn: () => api<Studio>(`/api/studios/${studioId}`),
     enabled: Boolean(studioId),
   })
@@ -26,8 +26,8 @@ export function useCreateStudio() {
   return useMutation({
     mutationFn: (body: StudioCreateBody) => api<MemberStudio>('/api/studios', { method: 'POST', body }),
     onSuccess: (studio) => {
-      queryClient.setQueryData(studioKeys.detail(studio.id), studio)
-      return queryClient.invalidateQueries({ queryKey: studioKeys.mine() })
+      queryClient.setQueryData(studioKeys.studios.detail(studio.id), studio)
+      return queryClient.invalidateQueries({ queryKey: studioKeys.studios.mine() })
     },
   })
 }
@@ -37,8 +37,8 @@ export function useUpdateStudio(studioId: string) {
   return useMutation({
     mutationFn: (body: StudioPatchBody) => api<MemberStudio>(`/api/studios/${studioId}`, { method: 'PATCH', body }),
     onSuccess: (studio) => {
-      queryClient.setQueryData(studioKeys.detail(studioId), studio)
-      return queryClient.invalidateQueries({ queryKey: studioKeys.mine() })
+      queryClient.setQueryData(studioKeys.studios.detail(studioId), studio)
+      return queryClient.invalidateQueries({ queryKey: studioKeys.studios.mine() })
     },
   })
 }

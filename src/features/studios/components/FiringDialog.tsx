@@ -94,7 +94,7 @@ function FiringDetails({ firing, zone, units, onCancel }: { firing: FiringRecord
           </ButtonLink>
         </div>
       )}
-      {movable || canCancel ? (
+      {movable || canCancel || firing.undo ? (
         <div className="space-y-2">
           <p className="text-sm font-medium text-slip-800">Move this firing on</p>
           <FiringStatusButtons firing={firing}>

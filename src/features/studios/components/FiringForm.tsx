@@ -13,7 +13,7 @@ import { useCreateFirings } from '../api/firings'
 import type { FiringRecord, KilnRecord } from '../api/types'
 import { capacityMeasure, formatSpace, type UnitSystem } from '../../../lib/units'
 import { weekdayIn } from '../zonedTime'
-import { ATMOSPHERES, FIRING_KINDS } from '../../../lib/firingWords'
+import { ATMOSPHERES, COOLING_CHOICES, FIRING_KINDS } from '../../../lib/firingWords'
 import { MeasureField } from '../../../components/ui/MeasureField'
 import { ZonedDateTimeField } from './ZonedDateTimeField'
 
@@ -58,6 +58,7 @@ export function FiringForm({ studioId, zone, kilns, units, onCreated, onCancel }
       cone: cones.includes('6') ? '6' : cones[cones.length - 1],
       atmosphere: kiln?.atmospheres[0] ?? 'oxidation',
       slowCool: false,
+      cooling: 'natural',
       dropOffBy: '',
       firingDate: '',
       readyBy: '',
@@ -67,6 +68,7 @@ export function FiringForm({ studioId, zone, kilns, units, onCreated, onCancel }
   })
   const firingDate = useWatch({ control, name: 'firingDate' })
   const repeat = useWatch({ control, name: 'repeat' })
+  const cooling = useWatch({ control, name: 'cooling' })
 
   const chooseKiln = (id: string) => {
     const next = kilns.find((k) => k.id === id)
@@ -148,7 +150,22 @@ export function FiringForm({ studioId, zone, kilns, units, onCreated, onCancel }
           )}
         </Field>
       </div>
-      {kiln.controlledCooling && <Checkbox label="Slow cool (controlled cooling after the peak)" {...register('slowCool')} />}
+      {kiln.controlledCooling && (
+        <div className="grid gap-4 sm:grid-cols-2 sm:items-end">
+          <Field label="Glaze cooling" hint={COOLING_CHOICES.find((c) => c.value === cooling)?.hint} error={errors.cooling?.message}>
+            {(a11y) => (
+              <Select {...a11y} {...register('cooling')}>
+                {COOLING_CHOICES.map((choice) => (
+                  <option key={choice.value} value={choice.value}>
+                    {choice.label}
+                  </option>
+                ))}
+              </Select>
+            )}
+          </Field>
+          <Checkbox label="Slow cool through the inversions (controlled cooling after the peak)" {...register('slowCool')} />
+        </div>
+      )}
       <div className="grid gap-4 sm:grid-cols-3">
         <ZonedDateTimeField control={control} name="dropOffBy" label="Drop-off closes" zone={zone} />
         <ZonedDateTimeField control={control} name="firingDate" label="Firing starts" zone={zone} />

@@ -1,9 +1,13 @@
 import { useState } from 'react'
 import { useFieldArray, useForm, useWatch, type Control, type Path } from 'react-hook-form'
-import { parseCone } from '../../../../shared/firing/cones'
+import { parseCone, type Cone } from '../../../../shared/firing/cones'
+import { curveOfReadings } from '../../../../shared/firing/curve'
+import type { Reading } from '../../../../shared/firing/readings'
+import type { Segment } from '../../../../shared/firing/schedule'
 import { crossCheckCones, type ConeBend, type WitnessReading } from '../../../../shared/firing/witness'
 import { CONE_BENDS, firingLogSchema } from '../../../../shared/schemas/pickup'
 import { BEND_WORDS, ConeCheckNote, type FiringLogRecord } from '../../../components/firing/FiringLog'
+import { LogChart } from '../../../components/firing/LogChart'
 import { Alert } from '../../../components/ui/Alert'
 import { Button } from '../../../components/ui/Button'
 import { Field, Select, TextArea, TextInput } from '../../../components/ui/Field'
@@ -11,8 +15,10 @@ import { FormSection } from '../../../components/ui/FormSection'
 import { MeasureField } from '../../../components/ui/MeasureField'
 import { ConeField, ConeSuggestions } from '../../../components/ware/ConeField'
 import { applyServerErrors } from '../../../lib/forms'
-import { COUNT, rateMeasure, temperatureMeasure, type UnitSystem } from '../../../lib/units'
+import { ApiError } from '../../../lib/api'
+import { COUNT, rateMeasure, scaleOf, temperatureMeasure, type UnitSystem } from '../../../lib/units'
 import { useSaveFiringLog } from '../api/firingLog'
+import { ReadingsEditor } from './ReadingsEditor'
 import { ZonedDateTimeField } from './ZonedDateTimeField'
 
 interface LogValues {
@@ -51,7 +57,7 @@ function valuesOf(log: FiringLogRecord | null): LogValues {
 }
 
 /** The body the API takes: empty times and numbers as null, cones as written (the schema reads them). */
-function bodyOf(values: LogValues) {
+function bodyOf(values: LogValues, readings: Reading[]) {
   const number = (n: number | null | undefined) => (n === undefined ? null : n)
   return {
     loadedAt: values.loadedAt || null,
@@ -66,6 +72,7 @@ function bodyOf(values: LogValues) {
       bend: c.bend,
       ...(c.position.trim() ? { position: c.position.trim() } : {}),
     })),
+    readings,
     notes: values.notes.trim(),
   }
 }
@@ -82,6 +89,9 @@ interface FiringLogFormProps {
   log: FiringLogRecord | null
   zone: string
   units: UnitSystem
+  /** The plan the logged curve is held against. */
+  plan: Segment[]
+  firingCone: Cone
 }
 
 /**
@@ -89,17 +99,29 @@ interface FiringLogFormProps {
  * peak in the reader's units, witness cones row by row; the cone reached and its cross-check with
  * the peak update as they type.
  */
-export function FiringLogForm({ firingId, log, zone, units }: FiringLogFormProps) {
+export function FiringLogForm({ firingId, log, zone, units, plan, firingCone }: FiringLogFormProps) {
   const save = useSaveFiringLog(firingId)
   const [formError, setFormError] = useState<string | null>(null)
   const [saved, setSaved] = useState(false)
+  // Readings can run to thousands from a controller's export: kept beside the form, not as its fields.
+  const [readings, setReadingsState] = useState<Reading[]>(log?.readings ?? [])
+  const [readingsDirty, setReadingsDirty] = useState(false)
+  const [readingsError, setReadingsError] = useState<string | undefined>()
+  const setReadings = (next: Reading[]) => {
+    setReadingsState(next)
+    setReadingsDirty(true)
+    setSaved(false)
+  }
   const { control, register, handleSubmit, setError, setValue, reset, formState } = useForm<LogValues>({ defaultValues: valuesOf(log) })
   const cones = useFieldArray({ control, name: 'witnessCones' })
+  // Elapsed times in an export count from the start, else from the loading.
+  const [startedAt, loadedAt] = useWatch({ control, name: ['startedAt', 'loadedAt'] })
 
   const onSubmit = handleSubmit(async (values) => {
     setFormError(null)
     setSaved(false)
-    const parsed = firingLogSchema.safeParse(bodyOf(values))
+    setReadingsError(undefined)
+    const parsed = firingLogSchema.safeParse(bodyOf(values, readings))
     if (!parsed.success) {
       for (const issue of parsed.error.issues) {
         // A number field holding text reaches the schema as NaN; say so in words.
@@ -113,8 +135,11 @@ export function FiringLogForm({ firingId, log, zone, units }: FiringLogFormProps
     try {
       const next = await save.mutateAsync(parsed.data)
       reset(valuesOf(next))
+      setReadingsState(next.readings)
+      setReadingsDirty(false)
       setSaved(true)
     } catch (error) {
+      if (error instanceof ApiError && error.fields.readings) setReadingsError(error.fields.readings)
       setFormError(applyServerErrors(error, setError))
     }
   })
@@ -204,8 +229,27 @@ export function FiringLogForm({ firingId, log, zone, units }: FiringLogFormProps
           <Button variant="secondary" size="sm" onClick={() => cones.append({ cone: '', bend: 'standing', position: '' })}>
             Add a witness cone
           </Button>
-          <LiveConeCheck control={control} />
+          <LiveConeCheck control={control} readings={readings} firingCone={firingCone} />
         </div>
+      </FormSection>
+
+      <FormSection
+        title="The logged curve"
+        lead="Readings typed in as the kiln climbs, or a controller’s export. The chart holds them against the plan in the zones where speed hurts ware."
+      >
+        <ReadingsEditor
+          readings={readings}
+          onChange={setReadings}
+          zone={zone}
+          units={units}
+          startIso={startedAt || loadedAt || null}
+          error={readingsError}
+        />
+        {readings.length >= 2 && (
+          <div className="mt-4">
+            <LogChart plan={plan} curve={curveOfReadings(readings)} scale={scaleOf(units)} />
+          </div>
+        )}
       </FormSection>
 
       <FormSection title="Notes">
@@ -223,10 +267,10 @@ export function FiringLogForm({ firingId, log, zone, units }: FiringLogFormProps
           <Button type="submit" busy={formState.isSubmitting}>
             Save the log
           </Button>
-          {saved && !formState.isDirty && (
+          {saved && !formState.isDirty && !readingsDirty && (
             <span className="text-sm text-celadon-700">Saved. Every potter in the firing sees it on their request.</span>
           )}
-          {formState.isDirty && <span className="text-sm text-slip-600">Changes not saved yet.</span>}
+          {(formState.isDirty || readingsDirty) && <span className="text-sm text-slip-600">Changes not saved yet.</span>}
         </div>
       </div>
     </form>
@@ -244,18 +288,25 @@ function TotalHours({ control }: { control: Control<LogValues> }) {
 }
 
 /** The cross-check as it will be saved, worked out by the same rule the server uses. */
-function LiveConeCheck({ control }: { control: Control<LogValues> }) {
-  const [witnessCones, peakC, finalRate] = useWatch({ control, name: ['witnessCones', 'peakC', 'finalRateCPerHour'] })
-  const readings: WitnessReading[] = []
+function LiveConeCheck({ control, readings, firingCone }: { control: Control<LogValues>; readings: Reading[]; firingCone: Cone }) {
+  const [witnessCones, peakC, finalRate, hold] = useWatch({ control, name: ['witnessCones', 'peakC', 'finalRateCPerHour', 'holdMinutes'] })
+  const cones: WitnessReading[] = []
   for (const row of witnessCones ?? []) {
     const cone = parseCone(row.cone ?? '')
-    if (cone.ok) readings.push({ cone: cone.cone, bend: row.bend })
+    if (cone.ok) cones.push({ cone: cone.cone, bend: row.bend, position: row.position })
   }
-  const peak = typeof peakC === 'number' && Number.isFinite(peakC) ? peakC : null
-  const rate = typeof finalRate === 'number' && Number.isFinite(finalRate) && finalRate > 0 ? finalRate : null
+  const number = (n: unknown) => (typeof n === 'number' && Number.isFinite(n) ? n : null)
+  const rate = number(finalRate)
+  const curve = curveOfReadings(readings)
+  const record = {
+    curve: curve.length >= 2 ? curve : null,
+    peakC: number(peakC),
+    finalRateCPerHour: rate !== null && rate > 0 ? rate : null,
+    holdMinutes: number(hold),
+  }
   return (
     <div className="border-t border-slip-200 pt-3" aria-live="polite">
-      <ConeCheckNote check={crossCheckCones(readings, peak, rate)} />
+      <ConeCheckNote check={crossCheckCones(cones, record, firingCone)} />
     </div>
   )
 }

@@ -9,7 +9,7 @@ import { Button } from '../../../components/ui/Button'
 import { Card } from '../../../components/ui/Card'
 import { Checkbox, Field, Select, TextArea, TextInput } from '../../../components/ui/Field'
 import { applyServerErrors } from '../../../lib/forms'
-import { lengthMeasure, localiseMessage, rateMeasure, temperatureMeasure, type UnitSystem } from '../../../lib/units'
+import { lengthMeasure, localiseMessage, rateMeasure, shelfLoadMeasure, temperatureMeasure, type UnitSystem } from '../../../lib/units'
 import { ATMOSPHERES, KILN_KINDS } from '../../../lib/firingWords'
 import { MeasureField } from '../../../components/ui/MeasureField'
 import { UnitSwitch } from './UnitSwitch'
@@ -17,7 +17,7 @@ import { UnitSwitch } from './UnitSwitch'
 export type KilnInput = z.input<typeof kilnBodySchema>
 export type KilnOutput = z.output<typeof kilnBodySchema>
 
-/** A new kiln starts as the common electric top-loader, its sizes and limits left for the host. */
+/** A new kiln starts as the common electric top-loader, its sizes and limits left for the studio. */
 export const NEW_KILN: DefaultValues<KilnInput> = {
   name: '',
   kind: 'electric',
@@ -30,6 +30,7 @@ export const NEW_KILN: DefaultValues<KilnInput> = {
   shelfCount: 0,
   shelfWidthMm: null,
   shelfDepthMm: null,
+  shelfLoadKg: null,
   notes: '',
 }
 
@@ -144,7 +145,7 @@ export function KilnForm({ defaultValues, initialUnits, submitLabel, onSubmit, r
               label="Usable height"
               measure={length}
               units={units}
-              hint="The tallest piece it takes. Leave empty to allow for one shelf and headroom."
+              hint="The tallest piece it takes. Leave empty to allow about 65 mm (2½ in) for posts, one shelf and the lid."
             />
           </div>
           <div className="mt-4 grid gap-4 sm:grid-cols-3">
@@ -198,8 +199,19 @@ export function KilnForm({ defaultValues, initialUnits, submitLabel, onSubmit, r
             />
             <MeasureField control={control} name="maxRampCPerHour" label="Fastest climb" measure={rateMeasure(units)} units={units} />
           </div>
+          <div className="mt-4 grid gap-4 sm:grid-cols-2 lg:grid-cols-4">
+            <MeasureField
+              control={control}
+              name="shelfLoadKg"
+              label="One shelf carries"
+              measure={shelfLoadMeasure(units)}
+              units={units}
+              empty={null}
+              hint="Optional: from the shelf maker. Heavy pieces and full shelves are checked against it."
+            />
+          </div>
           <div className="mt-4 grid gap-2 sm:grid-cols-2">
-            <Checkbox label="Can hold a low preheat (candling)" {...register('preheatHold')} />
+            <Checkbox label="Can hold a low preheat below boiling (candling)" {...register('preheatHold')} />
             <Checkbox label="Can control its cooling (slow cool)" {...register('controlledCooling')} />
           </div>
           {(errors.preheatHold || errors.controlledCooling) && (

@@ -1,5 +1,7 @@
 import { Link, useParams } from 'react-router-dom'
 import { formatDateTime } from '../../../../shared/dates'
+import type { Kiln } from '../../../../shared/firing/check'
+import { planSchedule, type Segment } from '../../../../shared/firing/schedule'
 import { REQUEST_STATE_LABELS } from '../../../../shared/workflow/request-states'
 import { Alert } from '../../../components/ui/Alert'
 import { Badge } from '../../../components/ui/Badge'
@@ -66,10 +68,12 @@ function FiringWorkbench({ firing, studio }: { firing: FiringRecord; studio: Mem
             </h2>
             {firing.status === 'cancelled' ? (
               <p className="text-sm text-slip-600">Cancelled{firing.cancelledReason ? `: ${firing.cancelledReason}` : '.'}</p>
-            ) : firing.nextStatuses.some((s) => s !== 'cancelled') ? (
-              <FiringStatusButtons firing={firing} />
             ) : (
-              <p className="text-sm text-slip-600">Unloaded: post the results on each request below.</p>
+              <div className="space-y-2">
+                {/* Also when nothing comes next: the last move may still be undone. */}
+                {(firing.nextStatuses.some((s) => s !== 'cancelled') || firing.undo) && <FiringStatusButtons firing={firing} />}
+                {firing.status === 'unloaded' && <p className="text-sm text-slip-600">Unloaded: post the results on each request below.</p>}
+              </div>
             )}
             <div className="mt-4">
               <FillGauge firing={firing} units={units} />
@@ -83,7 +87,14 @@ function FiringWorkbench({ firing, studio }: { firing: FiringRecord; studio: Mem
           ) : log.isError ? (
             <ApiProblem error={log.error} what="the log" onRetry={() => log.refetch()} />
           ) : (
-            <FiringLogForm firingId={firing.id} log={log.data} zone={zone} units={units} />
+            <FiringLogForm
+              firingId={firing.id}
+              log={log.data}
+              zone={zone}
+              units={units}
+              plan={log.data?.plan ?? planFor(firing, kiln.data)}
+              firingCone={firing.cone}
+            />
           )}
         </div>
 
@@ -96,6 +107,14 @@ function FiringWorkbench({ firing, studio }: { firing: FiringRecord; studio: Mem
       </div>
     </>
   )
+}
+
+/** The plan a new log is held against, by the rule the server uses: the posted schedule, or the plan for firing and kiln. */
+function planFor(firing: FiringRecord, kiln: Kiln | undefined): Segment[] {
+  if (firing.schedule && firing.schedule.length > 0) return firing.schedule
+  if (!kiln) return []
+  return planSchedule({ kind: firing.kind, cone: firing.cone, kiln, pieces: [], slowCool: firing.slowCool, cooling: firing.cooling })
+    .segments
 }
 
 /** States where the request's ware is (or was meant to be) in this firing. */

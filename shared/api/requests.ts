@@ -1,0 +1,233 @@
+// The shapes the requests API answers with (server/services/request-views.ts), declared once for the
+// routes and the client.
+import type { Finding, Piece, Verdict } from '../firing/check'
+import type { Quote } from '../firing/quote'
+import type { StudioPolicies } from '../schemas/studios'
+import type { RequestAction } from '../workflow/policy'
+import type { RequestState } from '../workflow/request-states'
+import type { FiringLogJson } from './firing-log'
+import type { PhotoJson } from './photos'
+import type { FiringJson, KilnJson } from './studios'
+
+export interface MeasuredSize {
+  heightMm: number
+  widthMm: number
+  depthMm: number
+}
+
+/** What the studio recorded when the ware came in (or was turned away). */
+export interface CheckInJson {
+  refused: boolean
+  refusedReason: string | null
+  receivedPieces: { pieceIndex: number; declared: number; received: number; measured?: MeasuredSize }[]
+  conditionNotes: string
+  quoteBefore: Quote | null
+  quoteAfter: Quote | null
+  /** Null while a higher price waits for the potter. */
+  priceConfirmedAt: string | null
+  at: string
+}
+
+export type PieceOutcome = 'fine' | 'cracked' | 'blown-out' | 'glaze-ran' | 'stuck-to-shelf' | 'other'
+
+export interface ResultsJson {
+  outcomes: { pieceIndex: number; outcome: PieceOutcome; notes: string }[]
+  notes: string
+  at: string
+}
+
+export interface RatingJson {
+  stars: number
+  care: number | null
+  communication: number | null
+  results: number | null
+  asDeclared: number | null
+  onTime: number | null
+  text: string
+  reply: string | null
+  at: string
+  editableUntil: string
+}
+
+export interface RequestRatingsJson {
+  /** The potter's rating of the studio. */
+  ofStudio: RatingJson | null
+  /** The studio's rating of the potter. */
+  ofPotter: RatingJson | null
+}
+
+export interface PotterRecordJson {
+  requests: number
+  collected: number
+  noShows: number
+  rating: { mean: number; count: number } | null
+}
+
+export interface TimelineEntryJson {
+  at: string
+  from: RequestState | null
+  to: RequestState
+  by: string
+  reason: string
+}
+
+export interface LedgerEntryJson {
+  at: string
+  direction: 'in' | 'out'
+  kind: 'deposit' | 'balance' | 'refund' | 'counter' | 'counter-refund'
+  amountCents: number
+  currency: string
+  stripeSessionId: string | null
+  stripePaymentIntentId: string | null
+  stripeRefundId: string | null
+  note: string
+}
+
+export interface PaymentJson {
+  purpose: 'deposit' | 'balance'
+  status: 'open' | 'paid' | 'expired' | 'failed'
+  amountCents: number
+  currency: string
+  checkoutUrl: string | null
+  failureMessage: string | null
+  expiresAt: string
+}
+
+/** Money taken at the counter that the studio owes back. */
+export interface CounterRefundJson {
+  id: string
+  amountCents: number
+  currency: string
+  reason: string
+  paidAt: string | null
+}
+
+/**
+ * The request's money in one place, the same on every screen and in every mail: the price that stands,
+ * the deposit as asked (never recomputed), what was paid and what is owed now.
+ */
+export interface PriceJson {
+  currency: string
+  /** The quote the potter sent the request with. */
+  asked: Quote | null
+  /** The price that stands now (the sent quote, or the measured one once it stands). */
+  standing: Quote | null
+  /** A higher price from the measured ware, waiting for the potter's answer. */
+  pending: Quote | null
+  totalCents: number
+  /** The deposit asked when the studio took the request on; before that, what the quote would ask. */
+  depositCents: number
+  depositAsked: boolean
+  paidInCents: number
+  refundedCents: number
+  /** Paid and not had back: what the potter has in now. */
+  netPaidCents: number
+  depositOwedCents: number
+  balanceOwedCents: number
+  counterRefundDueCents: number
+  /** The smallest amount a card can be charged; less is paid at the counter. */
+  minimumOnlineCents: number
+}
+
+export interface RequestView {
+  id: string
+  state: RequestState
+  nextStates: readonly RequestState[]
+  actions: RequestAction[]
+  viewer: 'potter' | 'studio' | 'admin'
+  pieces: Piece[]
+  notes: string
+  volumeL: number
+  verdict: Verdict
+  findings: Finding[]
+  acknowledgedWarnings: string[]
+  /** The quote that stands, with its lines. */
+  quote: Quote | null
+  price: PriceJson
+  policiesVersion: number | null
+  depositDueAt: string | null
+  sentAt: string | null
+  createdAt: string
+  firing: FiringJson
+  proposedFiring: FiringJson | null
+  kiln: KilnJson
+  studio: {
+    id: string
+    name: string
+    city: string
+    region: string
+    timezone: string
+    dropOffHours: string
+    policies: StudioPolicies
+    policiesVersion: number
+    address: string | null
+  }
+  potter: { id: string; displayName: string; email?: string; record?: PotterRecordJson }
+  timeline: TimelineEntryJson[]
+  ledger: LedgerEntryJson[]
+  counterRefunds: CounterRefundJson[]
+  payments: PaymentJson[]
+  checkIn: CheckInJson | null
+  results: ResultsJson | null
+  /** The log of the firing the ware is in, once the studio has written one. */
+  firingLog: FiringLogJson | null
+  photos: PhotoJson[]
+  ratings: RequestRatingsJson
+}
+
+/** What the check-in answers besides the request: the server's check of the ware as it came in. */
+export interface CheckInOutcome {
+  refused: boolean
+  findings: Finding[]
+  verdict?: Verdict
+  priceBeforeCents?: number
+  priceAfterCents?: number
+  needsConfirmation?: boolean
+  request: RequestView
+}
+
+/** One line of a request list, with what the reader may do next. */
+export interface RequestRow {
+  id: string
+  state: RequestState
+  /** Whose list row this is: the reader's own request, or one to their studio. */
+  side: 'potter' | 'studio'
+  actions: RequestAction[]
+  verdict: Verdict
+  /** How many findings the server's check made. */
+  findings: number
+  volumeL: number
+  pieceCount: number
+  price: {
+    totalCents: number
+    depositCents: number
+    netPaidCents: number
+    owedCents: number
+    pricePending: boolean
+    currency: string
+  } | null
+  depositDueAt: string | null
+  proposedFiringId: string | null
+  updatedAt: string
+  potterName: string
+  firing: {
+    id: string
+    firingDate: string
+    dropOffBy: string
+    cone: string
+    atmosphere: FiringJson['atmosphere']
+    kind: FiringJson['kind']
+    kilnName: string
+    status: FiringJson['status']
+  }
+  studio: { id: string; name: string; timezone: string }
+}
+
+export interface RequestMessageJson {
+  id: string
+  side: 'potter' | 'studio'
+  author: string
+  body: string
+  at: string
+  mine: boolean
+}
