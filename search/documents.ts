@@ -39,9 +39,11 @@ export interface FiringDocument {
   priceExampleCents: number | null
   priceExampleLabel: string | null
   currency: string
+  /** The studio's ranking score from its published answers (shared/reviews fireAgainScore). */
   ratingScore: number | null
-  ratingMean: number | null
-  ratingCount: number
+  /** Of the potters whose answers are published, how many would fire there again. */
+  reviewFireAgain: number
+  reviewCount: number
   notes: string
   _geo: { lat: number; lng: number }
 }
@@ -66,10 +68,10 @@ export interface FiringFacts {
   }
   spaceLeftL: number
   priceList: PriceList | null
-  rating: { score: number; mean: number; count: number } | null
+  reviews: { score: number; fireAgain: number; count: number } | null
 }
 
-export function firingDocument({ studio, kiln, firing, spaceLeftL, priceList, rating }: FiringFacts): FiringDocument {
+export function firingDocument({ studio, kiln, firing, spaceLeftL, priceList, reviews }: FiringFacts): FiringDocument {
   const spec = kiln.spec
   const shelf = shelfFootprint(spec)
   const example = priceList
@@ -108,9 +110,9 @@ export function firingDocument({ studio, kiln, firing, spaceLeftL, priceList, ra
     priceExampleCents: example?.totalCents ?? null,
     priceExampleLabel: example ? EXAMPLE_MUG.label! : null,
     currency: priceList?.currency ?? studio.currency,
-    ratingScore: rating?.score ?? null,
-    ratingMean: rating?.mean ?? null,
-    ratingCount: rating?.count ?? 0,
+    ratingScore: reviews?.score ?? null,
+    reviewFireAgain: reviews?.fireAgain ?? 0,
+    reviewCount: reviews?.count ?? 0,
     notes: firing.notes,
     _geo: { lat: studio.lat, lng: studio.lng },
   }

@@ -25,7 +25,7 @@ import { firingLogsRouter } from './routes/firing-logs'
 import { noticesRouter } from './routes/notices'
 import { pickupRouter } from './routes/pickup'
 import { placesRouter } from './routes/places'
-import { ratingsRouter } from './routes/ratings'
+import { reviewsRouter } from './routes/reviews'
 import { requestsRouter } from './routes/requests'
 import { searchRouter } from './routes/search'
 import { studiosRouter } from './routes/studios'
@@ -119,7 +119,7 @@ export function createApp(ctx: AppContext): App {
   app.use('/api', firingLogsRouter(ctx))
   app.use('/api', noticesRouter(ctx))
   app.use('/api', photosRouter(ctx))
-  app.use('/api', ratingsRouter(ctx))
+  app.use('/api', reviewsRouter(ctx))
   app.use('/api', adminRouter(ctx))
 
   app.use('/api', notFoundApi)

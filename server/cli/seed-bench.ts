@@ -42,11 +42,11 @@ await withDatabase(async (db) => {
     )
     await db.query(`DELETE FROM studios WHERE name LIKE $1`, [`${BENCH_PREFIX} %`])
   }
-  const ownerEmail = 'bench.host@demo.conewright.test'
+  const ownerEmail = 'bench.owner@demo.conewright.test'
   const [owner] = await db.query(
-    `INSERT INTO users (email, password_hash, display_name, role, email_verified_at) VALUES ($1, $2, 'Bench Host', 'host', now())
+    `INSERT INTO users (email, password_hash, display_name, role, email_verified_at) VALUES ($1, $2, 'Bench Studio Owner', 'host', now())
      ON CONFLICT (email) DO UPDATE SET display_name = EXCLUDED.display_name RETURNING id`,
-    [ownerEmail, await hashPassword('bench-host-password-unused')],
+    [ownerEmail, await hashPassword('bench-owner-password-unused')],
   )
   const started = Date.now()
   const kilnIds: string[] = []

@@ -1,5 +1,5 @@
 // Demo requests, so the board has life on first start: a firing nearly full, requests waiting for a
-// decision, a paid deposit, a draft, and a past firing collected and rated. Money in the demo was
+// decision, a paid deposit, a draft, and a past firing picked up and answered for by both sides. Money in the demo was
 // taken "at the counter", so seeding never calls Stripe. Each is found again by the key its first
 // timeline entry carries.
 import type { EntityManager } from 'typeorm'
@@ -9,10 +9,13 @@ import { Firing } from '../entities/Firing'
 import { FiringRequest } from '../entities/FiringRequest'
 import { Kiln } from '../entities/Kiln'
 import { LedgerEntry } from '../entities/LedgerEntry'
-import { Rating } from '../entities/Rating'
 import { RequestEvent } from '../entities/RequestEvent'
+import { RequestMessage } from '../entities/RequestMessage'
+import { Review } from '../entities/Review'
 import { Studio } from '../entities/Studio'
+import { StudioMember } from '../entities/StudioMember'
 import { checkAgainstFiring } from '../services/requests'
+import { reviewWindowClosesAt } from '../../shared/reviews'
 
 const stoneware = { body: 'stoneware' as const, minCone: '5', maxCone: '10' }
 const glaze6 = { minCone: '5', maxCone: '7' }
@@ -79,7 +82,13 @@ interface DemoRequest {
   notes: string
   state: RequestState
   acknowledged?: string[]
-  rating?: { stars: number; text: string; care: number; communication: number; results: number }
+  /** Both sides' answers after pickup, published: the potter's about the studio, the studio's about the potter. */
+  reviews?: {
+    potter: Pick<Review, 'loading' | 'resultsAsLogged' | 'turnaround' | 'communication' | 'fireAgain' | 'note'>
+    studio: Pick<Review, 'asDeclared' | 'cleanAndDry' | 'onTime' | 'note'>
+  }
+  /** A word from the studio in the thread after pickup. */
+  thanks?: string
 }
 
 const DEMO_REQUESTS: DemoRequest[] = [
@@ -143,13 +152,18 @@ const DEMO_REQUESTS: DemoRequest[] = [
     pieces: [MUGS],
     notes: 'Matte glazes; slow cool if you can.',
     state: 'collected',
-    rating: {
-      stars: 5,
-      care: 5,
-      communication: 5,
-      results: 4,
-      text: 'Marisol slow-cooled the load as promised; the matte glazes came out buttery.',
+    reviews: {
+      potter: {
+        loading: 'yes',
+        resultsAsLogged: 'yes',
+        turnaround: 'partly',
+        communication: 'yes',
+        fireAgain: true,
+        note: 'Marisol slow-cooled the load as promised; the matte glazes came out buttery. Ready a day later than the date given.',
+      },
+      studio: { asDeclared: 'yes', cleanAndDry: 'yes', onTime: 'yes', note: 'Feet wiped clean, all six as declared.' },
     },
+    thanks: 'Thank you, Wren. See you at the next cone 6.',
   },
 ]
 
@@ -264,23 +278,22 @@ export async function seedDemoRequests(manager: EntityManager, userIdOf: (email:
           note: 'Balance paid at the counter',
         })
     }
-    if (demo.rating) {
-      await manager.getRepository(Rating).save({
-        requestId: request.id,
-        direction: 'potter-rates-studio',
-        studioId: studio.id,
-        potterId,
-        authorId: potterId,
-        stars: demo.rating.stars,
-        care: demo.rating.care,
-        communication: demo.rating.communication,
-        results: demo.rating.results,
-        asDeclared: null,
-        onTime: null,
-        text: demo.rating.text,
-        studioReply: 'Thank you, Wren. See you at the next cone 6.',
-        studioReplyAt: new Date(),
-      })
+    const studioOwnerId = (await manager.getRepository(StudioMember).findOneByOrFail({ studioId: studio.id, role: 'owner' })).userId
+    if (demo.reviews) {
+      const at = new Date()
+      const closesAt = reviewWindowClosesAt(at)
+      const none = { loading: null, resultsAsLogged: null, turnaround: null, communication: null, fireAgain: null }
+      const noneOfStudio = { asDeclared: null, cleanAndDry: null, onTime: null }
+      const common = { requestId: request.id, studioId: studio.id, potterId, closesAt, publishedAt: at }
+      await manager.getRepository(Review).insert([
+        { ...common, side: 'potter', authorId: potterId, ...noneOfStudio, ...demo.reviews.potter },
+        { ...common, side: 'studio', authorId: studioOwnerId, ...none, ...demo.reviews.studio },
+      ])
+    }
+    if (demo.thanks) {
+      await manager
+        .getRepository(RequestMessage)
+        .insert({ requestId: request.id, authorId: studioOwnerId, side: 'studio', body: demo.thanks, notifiedAt: new Date() })
     }
   }
 }

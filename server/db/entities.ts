@@ -13,7 +13,7 @@ import { Payment } from '../entities/Payment'
 import { Photo } from '../entities/Photo'
 import { KilnPriceList } from '../entities/KilnPriceList'
 import { OutboundMail } from '../entities/OutboundMail'
-import { Rating } from '../entities/Rating'
+import { Review } from '../entities/Review'
 import { RequestEvent } from '../entities/RequestEvent'
 import { RequestMessage } from '../entities/RequestMessage'
 import { RequestResult } from '../entities/RequestResult'
@@ -34,7 +34,7 @@ export const entities = [
   Firing,
   FiringRequest,
   RequestEvent,
-  Rating,
+  Review,
   SearchDocument,
   LedgerEntry,
   Payment,

@@ -13,6 +13,7 @@ import { FiringSciencePass1796167522134 } from './migrations/1796167522134-Firin
 import { FiringKindsAndHalfCones1796167600000 } from './migrations/1796167600000-FiringKindsAndHalfCones'
 import { PieceSupport1796167700000 } from './migrations/1796167700000-PieceSupport'
 import { Hardening1796172202396 } from './migrations/1796172202396-Hardening'
+import { ReviewsAfterPickup1796174002687 } from './migrations/1796174002687-ReviewsAfterPickup'
 
 export const migrations: (new () => unknown)[] = [
   Foundation1796149373286,
@@ -28,4 +29,5 @@ export const migrations: (new () => unknown)[] = [
   FiringKindsAndHalfCones1796167600000,
   PieceSupport1796167700000,
   Hardening1796172202396,
+  ReviewsAfterPickup1796174002687,
 ]

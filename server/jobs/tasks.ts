@@ -6,6 +6,7 @@ import { sendQueuedMail } from '../services/mail'
 import { MESSAGE_DIGEST_TASK, sendMessageDigest } from '../services/messages'
 import { EXPIRE_CHECKOUTS_TASK, makeRefund, OPEN_CHECKOUT_TASK, openCheckout, REFUND_TASK } from '../services/payments'
 import { DEPOSIT_EXPIRY_TASK, expireDepositHold, sweepStaleRequests } from '../services/requests'
+import { PUBLISH_REVIEWS_TASK, publishDueReviews } from '../services/reviews'
 import { expireOpenCheckouts } from '../services/payments'
 import { engineRebuilt } from '../services/search'
 import { PROCESS_PHOTO_TASK, processPhoto } from '../services/photos'
@@ -49,6 +50,9 @@ export function taskList(ctx: AppContext): TaskList {
     },
     [PROCESS_PHOTO_TASK]: async (payload) => {
       await processPhoto(ctx, (payload as { photoId: string }).photoId)
+    },
+    [PUBLISH_REVIEWS_TASK]: async (payload) => {
+      await publishDueReviews(ctx, (payload as { requestId: string }).requestId)
     },
     [REINDEX_TASK]: async () => {
       const { documents } = await reindexAll(ctx)

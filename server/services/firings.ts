@@ -182,7 +182,7 @@ export async function updateFiring(ctx: AppContext, id: string, patch: FiringPat
       if (fields.capacityL !== undefined) {
         const held = (await heldLitres(manager, [id])).get(id) ?? 0
         if (fields.capacityL < held) {
-          throw new HttpError(409, 'capacity-below-held', `Requests already hold ${round1(held)} litres; offer at least that.`, {
+          throw new HttpError(409, 'capacity-below-held', `Potters already hold ${round1(held)} litres; offer at least that.`, {
             capacityL: `At least ${round1(held)} litres are held.`,
           })
         }
@@ -202,7 +202,7 @@ export async function listKilnFirings(manager: EntityManager, kilnId: string, { 
   return qb.getMany()
 }
 
-/** A studio's firings between two instants (all kilns), for the calendar and the host home. */
+/** A studio's firings between two instants (all kilns), for the calendar and the kiln room. */
 export async function listStudioFirings(
   manager: EntityManager,
   studioId: string,

@@ -138,7 +138,7 @@ export async function removeKiln(ctx: AppContext, id: string): Promise<'deleted'
        FROM firings WHERE kiln_id = $1`,
       [id],
     )
-    if (upcoming > 0) throw conflict('This kiln has firings coming up. Cancel them first.', 'has-upcoming-firings')
+    if (upcoming > 0) throw conflict('This kiln has firings coming up. Call them off first.', 'has-upcoming-firings')
     await enqueueStudioSync(manager, kiln.studioId)
     if (total === 0) {
       await manager.delete(Kiln, { id })

@@ -13,6 +13,7 @@ import { minimumOnlineCharge, payableOnline } from '../../shared/payments'
 import type { User } from '../entities/User'
 import { badRequest, conflict } from '../http/errors'
 import { isUuid } from '../http/validate'
+import { REQUEST_STATE_LABELS } from '../../shared/workflow/request-states'
 import { enqueueJob, type JobOptions } from '../jobs/queue'
 import { paymentReceivedMail } from '../mail/templates/pickup'
 import { refundedMail } from '../mail/templates/requests'
@@ -385,7 +386,9 @@ async function settlePayment(step: ActionStep, payment: Payment) {
   const { net } = await moneyOf(manager, rc.request.id)
   if (payment.purpose === 'deposit') {
     if (rc.request.state !== 'accepted') {
-      await step.note(`A deposit of ${payment.amountCents} cents arrived after the request was ${rc.request.state}; it is refunded`)
+      await step.note(
+        `A deposit of ${payment.amountCents} cents arrived after this stood at “${REQUEST_STATE_LABELS[rc.request.state]}”; it is refunded`,
+      )
       await enqueueRefund(manager, rc.request.id, payment.amountCents, `Deposit arrived after the request was ${rc.request.state}`)
       return
     }

@@ -138,8 +138,8 @@ export async function addPhotos(ctx: AppContext, user: User, requestId: string, 
   if (!mayUpload(viewer.side, kind))
     throw forbidden(
       viewer.side === 'potter'
-        ? 'Potters add photos of their ware; the studio posts check-in and result photos.'
-        : 'The studio posts check-in and result photos; the potter adds photos of the ware.',
+        ? 'Potters add photos of their ware; the studio posts drop-off and result photos.'
+        : 'The studio posts drop-off and result photos; the potter adds photos of the ware.',
     )
   // Every file is checked before anything is decoded or written, so a bad one in a batch stores nothing.
   const inspected = []

@@ -13,7 +13,7 @@ import { enqueueJob } from '../jobs/queue'
 import { heldLitres } from './firings'
 import { getPriceList, kilnSpec } from './kilns'
 import { engineFailed, engineIsUp } from './search'
-import { studioRatings } from './studio-ratings'
+import { studioReviewSummaries } from './reviews'
 
 export const SYNC_STUDIO_TASK = 'search-sync-studio'
 export const REINDEX_TASK = 'search-reindex'
@@ -44,7 +44,7 @@ export async function studioDocuments(manager: EntityManager, studioId: string, 
     manager,
     firings.map((f) => f.id),
   )
-  const rating = (await studioRatings(manager, [studioId])).get(studioId) ?? null
+  const reviews = (await studioReviewSummaries(manager, [studioId])).get(studioId) ?? null
   const priceLists = new Map(await Promise.all(kilns.map(async (k) => [k.id, await getPriceList(manager, k.id)] as const)))
   const byId = new Map(kilns.map((k) => [k.id, k]))
   const place = {
@@ -65,7 +65,7 @@ export async function studioDocuments(manager: EntityManager, studioId: string, 
       firing,
       spaceLeftL: firing.capacityL - (held.get(firing.id) ?? 0),
       priceList: priceLists.get(kiln.id) ?? null,
-      rating,
+      reviews,
     })
   })
 }

@@ -142,7 +142,7 @@ export function toHit(doc: FiringDocument, origin: { lat: number; lng: number } 
     distanceKm: origin ? Math.round(distanceKm(origin, doc._geo) * 10) / 10 : null,
     priceExample:
       doc.priceExampleCents !== null ? { label: doc.priceExampleLabel!, totalCents: doc.priceExampleCents, currency: doc.currency } : null,
-    rating: doc.ratingMean !== null ? { mean: Math.round(doc.ratingMean * 10) / 10, count: doc.ratingCount } : null,
+    reviews: doc.reviewCount > 0 ? { fireAgain: doc.reviewFireAgain, count: doc.reviewCount } : null,
   }
 }
 

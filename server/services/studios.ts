@@ -92,7 +92,7 @@ export async function updateStudio(ctx: AppContext, id: string, patch: StudioPat
     const studio = await getStudio(manager, id, true)
     const { address, postalCode, lat, lng, policies, ...plain } = patch
     Object.assign(studio, plain)
-    // A new address moves the pin unless the host also placed the pin by hand.
+    // A new address moves the pin unless the owner also placed the pin by hand.
     if ((address !== undefined && address !== null) || postalCode !== undefined) {
       const place = address ? placeFor(address, 'address') : placeFor(postalCode!, 'postalCode')
       if (address !== undefined) studio.addressLine = address

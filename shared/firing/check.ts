@@ -418,7 +418,7 @@ export function checkWare(kiln: Kiln, firing: Firing, pieces: readonly Piece[]):
     findings.push({
       code: 'raku-kiln',
       severity: 'block',
-      message: `Raku ware is pulled from the kiln at full heat; this is a ${kiln.kind} kiln. Book a raku kiln for it.`,
+      message: `Raku ware is pulled from the kiln at full heat; this is a ${kiln.kind} kiln. Look for a raku firing instead.`,
       detail:
         'Opening an electric or shut kiln at glaze heat exposes live elements and cracks its lining; raku kilns are built to be opened hot.',
     })
@@ -667,7 +667,7 @@ export function checkWare(kiln: Kiln, firing: Firing, pieces: readonly Piece[]):
             code: 'foreign-material',
             severity: 'block',
             pieceIndex: index,
-            message: `${name} has ${materialWord(material)} in it, and this load is shared. Set it in a catch tray or a saggar, or book the kiln to yourself.`,
+            message: `${name} has ${materialWord(material)} in it, and this load is shared. Set it in a catch tray or a saggar, or ask for a kiln load of your own.`,
             detail:
               material === 'glass'
                 ? 'Glass melts and runs far below glaze heat and can run off the piece onto the shelf.'
@@ -806,7 +806,7 @@ export function checkWare(kiln: Kiln, firing: Firing, pieces: readonly Piece[]):
     findings.push({
       code: 'over-capacity',
       severity: 'block',
-      message: `These pieces take about ${litres(volumeL)} of kiln space; this firing has ${litres(remaining as number)} left. Bring fewer pieces or book another firing.`,
+      message: `These pieces take about ${litres(volumeL)} of kiln space; this firing has ${litres(remaining as number)} left. Bring fewer pieces or ask for space in another firing.`,
       detail: 'Space is counted as each piece’s bounding box (height × width × depth).',
     })
   }

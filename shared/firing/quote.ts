@@ -1,4 +1,4 @@
-// Prices a firing request from a host's price list. Money is integer cents throughout; fractional
+// Prices a firing request from a studio's price list. Money is integer cents throughout; fractional
 // amounts appear only inside a line's arithmetic and are rounded half-up once, at the line.
 
 import { shelfAreaMm2, pieceDepthMm, type Firing, type Kiln, type Piece } from './check'
@@ -111,7 +111,7 @@ function baseLines(priceList: PriceList, pieces: readonly Piece[], kiln: QuoteKi
 }
 
 /**
- * Quote for a request: base lines by the host's model, then surcharges as a percent of the base,
+ * Quote for a request: base lines by the studio's pricing model, then surcharges as a percent of the base,
  * then the deposit (a percent of the total, or a fixed sum never above the total). The kiln, when
  * given, sizes shelf shares and drops surcharges for things the kiln will not do.
  */

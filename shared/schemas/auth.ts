@@ -1,8 +1,20 @@
 import { z } from 'zod'
 import { text } from './text'
 
+/**
+ * Stored and API role values. `host` is the stored value for a studio owner (kept so the API and the
+ * data stay as they are); people only ever read ROLE_LABELS.
+ */
 export const USER_ROLES = ['potter', 'host', 'crew', 'admin'] as const
 export type UserRole = (typeof USER_ROLES)[number]
+
+/** The roles as people read them. */
+export const ROLE_LABELS: Record<UserRole, string> = {
+  potter: 'Potter',
+  host: 'Studio owner',
+  crew: 'Studio crew',
+  admin: 'Conewright desk',
+}
 export type UnitSystem = 'imperial' | 'metric'
 
 /** What the API says about the signed-in person. */
@@ -33,7 +45,7 @@ export const registerSchema = z.object({
     .trim()
     .min(1, 'Enter the name others will see.')
     .max(80, 'Keep the name under 80 characters.'),
-  role: z.enum(['potter', 'host'], { error: 'Choose whether you bring ware (potter) or fire it (host).' }),
+  role: z.enum(['potter', 'host'], { error: 'Choose whether you bring ware (potter) or fire it (studio).' }),
   inviteToken: text().min(10).max(200).optional(),
 })
 export type RegisterBody = z.infer<typeof registerSchema>

@@ -150,7 +150,7 @@ export const pieceSchema = z
         .number({ error: 'Enter how many of this piece.' })
         .int({ error: 'Enter a whole number of pieces.' })
         .min(1, { error: 'Bring at least one piece.' })
-        .max(MAX_PIECE_QUANTITY, { error: `At most ${MAX_PIECE_QUANTITY} of one piece per request.` }),
+        .max(MAX_PIECE_QUANTITY, { error: `At most ${MAX_PIECE_QUANTITY} of one piece per ask.` }),
       heightMm: millimetres('height', MAX_PIECE_MM),
       widthMm: millimetres('width', MAX_PIECE_MM),
       depthMm: millimetres('depth', MAX_PIECE_MM),
@@ -182,7 +182,7 @@ export const pieceSchema = z
 export const piecesSchema = z
   .array(pieceSchema, { error: 'List the pieces.' })
   .min(1, { error: 'Add at least one piece.' })
-  .max(MAX_PIECES, { error: `At most ${MAX_PIECES} different pieces per request.` })
+  .max(MAX_PIECES, { error: `At most ${MAX_PIECES} different pieces per ask.` })
 
 export const firingSpecSchema = z.object(
   {

@@ -1,7 +1,8 @@
-// Bodies of the drop-off-to-pickup routes: check-in, the firing log, results, balance, ratings.
+// Bodies of the drop-off-to-pickup routes: check-in, the firing log, results, balance, the answers after pickup.
 import { z } from 'zod'
 import { CONE_BENDS } from '../firing/witness'
 import { text } from './text'
+import { ANSWERS } from '../reviews'
 import { coneSchema } from './firing'
 
 const mm = (what: string) =>
@@ -76,24 +77,23 @@ export const resultsSchema = z.object({
   notes: text().trim().max(4000).optional(),
 })
 
-const stars = (what: string) =>
-  z
-    .number({ error: `Give ${what} 1 to 5 stars.` })
-    .int()
-    .min(1, '1 to 5 stars.')
-    .max(5, '1 to 5 stars.')
+const answer = z.enum(ANSWERS, { error: 'Choose yes, partly or no.' })
 
-export const ratingSchema = z.object({
-  stars: stars('the exchange'),
-  care: stars('care of the ware').optional(),
-  communication: stars('communication').optional(),
-  results: stars('the results').optional(),
-  asDeclared: stars('ware as declared').optional(),
-  onTime: stars('being on time').optional(),
-  text: text().trim().max(2000, 'Keep it under 2000 characters.').default(''),
+/**
+ * One side's answers after pickup. Every question is optional here because the server decides the side
+ * from who is asking; `unanswered` (shared/reviews) then names the questions that side left open.
+ */
+export const reviewSchema = z.object({
+  loading: answer.optional(),
+  resultsAsLogged: answer.optional(),
+  turnaround: answer.optional(),
+  communication: answer.optional(),
+  fireAgain: z.boolean({ error: 'Say whether you would fire here again.' }).optional(),
+  asDeclared: answer.optional(),
+  cleanAndDry: answer.optional(),
+  onTime: answer.optional(),
+  note: text().trim().max(2000, 'Keep it under 2000 characters.').default(''),
 })
-
-export const ratingReplySchema = z.object({ text: text().trim().min(2, 'Write a reply.').max(2000) })
 
 export const counterPaymentSchema = z.object({
   amountCents: z.number().int('Whole cents.').positive('Enter what was paid.').max(100_000_000).optional(),

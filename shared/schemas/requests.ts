@@ -11,8 +11,8 @@ export const requestPatchSchema = z.object({ pieces: piecesSchema.optional(), no
 
 export const requestSendSchema = z.object({
   acknowledged: z.array(text().max(60)).max(50).default([]),
-  agreePolicies: z.literal(true, { error: 'Agree to the studio’s policies to send the request.' }),
-  policiesVersion: z.number({ error: 'Say which version of the policies you agreed to.' }).int().min(1),
+  agreePolicies: z.literal(true, { error: 'Agree to the studio’s terms to send your ask.' }),
+  policiesVersion: z.number({ error: 'Say which version of the terms you agreed to.' }).int().min(1),
 })
 
 export const requestDeclineSchema = z.object({

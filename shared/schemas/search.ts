@@ -104,7 +104,8 @@ export interface SearchHit {
   capacityL: number
   distanceKm: number | null
   priceExample: { label: string; totalCents: number; currency: string } | null
-  rating: { mean: number; count: number } | null
+  /** Published answers from potters: how many, and how many would fire there again. */
+  reviews: { fireAgain: number; count: number } | null
 }
 
 export interface SearchResponse {

@@ -31,7 +31,7 @@ beforeAll(async () => {
   const anyone = new HttpSession(app.url)
   await waitUntil(async () => (await anyone.get('/api/search?perPage=5')).body.total >= 1, { what: 'the index to hold the firing' })
   browser = await launchBrowser()
-}, 120_000)
+})
 
 afterAll(async () => {
   await browser?.close()

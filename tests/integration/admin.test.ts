@@ -19,7 +19,7 @@ beforeAll(async () => {
   const ids = await publishedStudio(host.session, 'Needs A Look')
   studioId = ids.studioId
   firingId = ids.firingId
-}, 60_000)
+})
 afterAll(async () => {
   await app?.close()
 })

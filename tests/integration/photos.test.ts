@@ -52,7 +52,7 @@ beforeAll(async () => {
   studioId = ids.studioId
   await app.ctx.db.getRepository(StudioMember).save({ studioId: ids.studioId, userId: crew.id, role: 'crew' })
   requestId = (await draftAndSend(potter.session, ids.firingId, [mug()])).id
-}, 60_000)
+})
 
 afterAll(async () => {
   await app?.close()

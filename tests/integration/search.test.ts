@@ -121,7 +121,7 @@ beforeAll(async () => {
   await waitUntil(async () => (await anyone().get('/api/search?perPage=50')).body.total === 6, {
     what: 'the index to hold the six published firings',
   })
-}, 90_000)
+})
 
 afterAll(async () => {
   await app?.close()

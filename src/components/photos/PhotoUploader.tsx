@@ -27,7 +27,7 @@ interface PhotoUploaderProps {
   /** Where the photos go: a multipart POST, each file in the field `photos`, beside `fields`. */
   uploadUrl: string
   fields: Record<string, string>
-  /** What the photos are of, e.g. "Check-in photos"; names the drop zone and the file picker. */
+  /** What the photos are of, e.g. "Drop-off photos"; names the drop zone and the file picker. */
   label: string
   hint?: ReactNode
   /** Called once per stored file, so the page can show it where it belongs. */

@@ -19,7 +19,7 @@ export interface PhotoRecord {
 
 export const PHOTO_KIND_WORDS: Record<PhotoKind, string> = {
   ware: 'From the potter',
-  'check-in': 'At check-in',
+  'check-in': 'At drop-off',
   refusal: 'Refused at the door',
   result: 'Results',
 }

@@ -19,7 +19,7 @@ export const SORT_CHOICES = [
   { value: 'distance', label: 'Nearest first' },
   { value: 'soonest', label: 'Soonest drop-off' },
   { value: 'price', label: 'Lowest example price' },
-  { value: 'rating', label: 'Best rated' },
+  { value: 'rating', label: 'Most would fire here again' },
 ] as const
 
 const KILN_KINDS: Record<string, string> = { electric: 'Electric', gas: 'Gas', wood: 'Wood', soda: 'Soda', salt: 'Salt', raku: 'Raku' }

@@ -1,4 +1,5 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query'
+import type { UserRole } from '../../../../shared/schemas/auth'
 import { api } from '../../../lib/api'
 
 export const adminKeys = {
@@ -24,7 +25,7 @@ export interface DeskUser {
   id: string
   email: string
   displayName: string
-  role: string
+  role: UserRole
   suspended: boolean
   createdAt: string
 }

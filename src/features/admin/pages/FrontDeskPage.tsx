@@ -7,6 +7,7 @@ import { Card, EmptyState, PageHeader } from '../../../components/ui/Card'
 import { Field, TextInput } from '../../../components/ui/Field'
 import { Spinner } from '../../../components/ui/Spinner'
 import { formatDateTime, formatMoney } from '../../../../shared/dates'
+import { ROLE_LABELS } from '../../../../shared/schemas/auth'
 import {
   useDeskRefund,
   useDeskStudios,
@@ -89,7 +90,7 @@ function DisputeRow({ request }: { request: DisputedRequest }) {
           Refund
         </Button>
       </div>
-      {refund.isSuccess && <Alert tone="success">The refund is on its way through Stripe; it shows in the request’s ledger.</Alert>}
+      {refund.isSuccess && <Alert tone="success">The refund is on its way through Stripe; it shows in the ware’s money in and out.</Alert>}
       {refund.isError && <Alert tone="danger">{refund.error.message}</Alert>}
     </li>
   )
@@ -101,7 +102,7 @@ function Disputes() {
     <Card>
       <h2 className="text-lg font-semibold">Disputes</h2>
       <p className="mt-1 text-sm text-slip-600">
-        Open the request to read its record (check-in, firing log, results, messages) before refunding.
+        Open the ware’s page to read its record (drop-off, firing log, results, messages) before refunding.
       </p>
       {disputes.isPending ? (
         <Spinner />
@@ -158,7 +159,7 @@ function Accounts() {
               <span>
                 <span className="font-medium">{user.displayName}</span>{' '}
                 <span className="text-slip-600">
-                  {user.email} · {user.role}
+                  {user.email} · {ROLE_LABELS[user.role]}
                 </span>
               </span>
               <span className="flex items-center gap-2">

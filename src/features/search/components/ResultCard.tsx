@@ -37,15 +37,9 @@ export const ResultCard = forwardRef<HTMLElement, ResultCardProps>(function Resu
             {hit.distanceKm !== null && <span data-testid="result-distance"> · {formatDistance(hit.distanceKm, units)} away</span>}
           </p>
         </div>
-        {hit.rating && (
-          <p
-            className="text-sm text-slip-700"
-            aria-label={`Rated ${hit.rating.mean} out of 5 by ${hit.rating.count} ${hit.rating.count === 1 ? 'potter' : 'potters'}`}
-          >
-            <span aria-hidden className="text-ember-500">
-              ★
-            </span>{' '}
-            {hit.rating.mean.toFixed(1)} <span className="text-slip-500">({hit.rating.count})</span>
+        {hit.reviews && (
+          <p className="text-sm text-slip-700" data-testid="result-fire-again">
+            {hit.reviews.fireAgain} of {hit.reviews.count} would fire here again
           </p>
         )}
       </div>
@@ -102,7 +96,7 @@ export const ResultCard = forwardRef<HTMLElement, ResultCardProps>(function Resu
           to={`/firings/${hit.firingId}/request`}
           className="rounded-control bg-clay-600 px-3 py-1.5 text-sm font-semibold text-white hover:bg-clay-700"
         >
-          Request space<span className="sr-only"> at {hit.studio.name}</span>
+          Ask for space<span className="sr-only"> at {hit.studio.name}</span>
         </Link>
       </div>
     </article>

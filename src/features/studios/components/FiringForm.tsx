@@ -169,7 +169,7 @@ export function FiringForm({ studioId, zone, kilns, units, onCreated, onCancel }
       <div className="grid gap-4 sm:grid-cols-3">
         <ZonedDateTimeField control={control} name="dropOffBy" label="Drop-off closes" zone={zone} />
         <ZonedDateTimeField control={control} name="firingDate" label="Firing starts" zone={zone} />
-        <ZonedDateTimeField control={control} name="readyBy" label="Ready to collect" zone={zone} />
+        <ZonedDateTimeField control={control} name="readyBy" label="Ready for pickup" zone={zone} />
       </div>
       <p className="-mt-2 text-xs text-slip-500">Times are the studio’s ({zone}), whatever zone your device is set to.</p>
       <MeasureField

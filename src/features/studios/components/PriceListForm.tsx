@@ -201,7 +201,7 @@ export function PriceListForm({ kiln, priceList, currency, units, readOnly, onSa
           </div>
         </fieldset>
         <fieldset>
-          <legend className="mb-2 text-sm font-medium text-slip-800">Deposit when a request is accepted</legend>
+          <legend className="mb-2 text-sm font-medium text-slip-800">Deposit when you take ware on</legend>
           <div className="grid gap-4 sm:grid-cols-2">
             <Field label="Deposit is">
               {(a11y) => (

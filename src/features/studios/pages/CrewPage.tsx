@@ -68,7 +68,7 @@ function Crew({ studio }: { studio: MemberStudio }) {
     <>
       <PageHeader
         title="Crew"
-        lead={`${studio.name}. Crew post firings and move them along; prices, kilns’ limits, policies and members stay with you.`}
+        lead={`${studio.name}. Crew post firings and move them along; prices, kilns’ limits, your terms and members stay with you.`}
       />
       <StudioNav studioId={studio.id} role="owner" />
       <div className="grid gap-6 lg:grid-cols-[1fr_22rem]">

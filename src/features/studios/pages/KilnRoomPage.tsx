@@ -23,7 +23,7 @@ import type { UnitSystem } from '../../../lib/units'
 /** How many upcoming firings each studio shows here; the calendar has the rest. */
 const UPCOMING_SHOWN = 8
 
-/** The host's and crew's home: each studio's coming firings, how full they are, and what to do next. */
+/** The studio owner's and crew's home: each studio's coming firings, how full they are, and what to do next. */
 export function KilnRoomPage() {
   const me = useMe()
   const studios = useMyStudios()
@@ -31,7 +31,8 @@ export function KilnRoomPage() {
   const [justCreated, setJustCreated] = useState<string | null>(null)
   const user = me.data
   const units: UnitSystem = user?.unitSystem ?? 'imperial'
-  const isHost = user?.role === 'host' || user?.role === 'admin'
+  // The stored role value for a studio owner is 'host'.
+  const isStudioOwner = user?.role === 'host' || user?.role === 'admin'
 
   return (
     <>
@@ -39,7 +40,7 @@ export function KilnRoomPage() {
         title="Kiln room"
         lead={`Welcome, ${user?.displayName ?? ''}. Your studios’ coming firings and how full they are.`}
         actions={
-          isHost && studios.data && studios.data.length > 0 && !adding ? (
+          isStudioOwner && studios.data && studios.data.length > 0 && !adding ? (
             <Button variant="secondary" onClick={() => setAdding(true)}>
               Add another studio
             </Button>
@@ -58,7 +59,7 @@ export function KilnRoomPage() {
             </Alert>
           )}
           {(studios.data.length === 0 || adding) &&
-            (isHost ? (
+            (isStudioOwner ? (
               <Card className="max-w-xl">
                 <h2 className="text-lg font-semibold">Set up your studio</h2>
                 <p className="mt-1 text-sm text-slip-600">
@@ -108,7 +109,7 @@ function StudioPanel({ studio, units }: { studio: MemberStudio; units: UnitSyste
         className="text-sm font-semibold text-clay-700 hover:underline"
         data-testid="waiting-requests"
       >
-        {count} {count === 1 ? 'request' : 'requests'} waiting
+        {count} {count === 1 ? 'ask' : 'asks'} waiting
       </Link>
     ) : null
   }
@@ -134,7 +135,7 @@ function StudioPanel({ studio, units }: { studio: MemberStudio; units: UnitSyste
             Post a firing
           </Button>
           <ButtonLink to={`/studios/${studio.id}/requests`} variant="secondary">
-            Requests{waiting.data && waiting.data.total > 0 ? ` (${waiting.data.total} waiting)` : ''}
+            Asks{waiting.data && waiting.data.total > 0 ? ` (${waiting.data.total} waiting)` : ''}
           </ButtonLink>
           <ButtonLink to={`/studios/${studio.id}/calendar`} variant="secondary">
             Open calendar
@@ -194,7 +195,7 @@ function StudioPanel({ studio, units }: { studio: MemberStudio; units: UnitSyste
             >
               {liveKilns.length === 0
                 ? 'Add a kiln first; firings are posted per kiln.'
-                : 'Post one, or a repeating series, for potters to book space in.'}
+                : 'Post one, or a repeating series, for potters to ask for space in.'}
             </EmptyState>
           ) : (
             <>
