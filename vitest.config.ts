@@ -1,6 +1,6 @@
 import { defineConfig } from 'vitest/config'
 
-// Four projects. Unit tests are pure and start nothing; the stand-ins' tests start only the stand-in. Integration tests (real PostgreSQL) and
+// Five projects. Unit tests are pure and start nothing; the stand-ins' tests start only the stand-in. Integration tests (real PostgreSQL) and
 // end-to-end tests (the built client in Chromium) share a throwaway PostgreSQL cluster from the global
 // setup, started once for the run and removed afterwards.
 //
@@ -29,6 +29,8 @@ export default defineConfig({
           expect: { poll: { timeout: 30_000 } },
         },
       },
+      // PostgreSQL, the search engine and the mail catcher stopped and started under load; its own cluster.
+      { extends: true, test: { name: 'outage', include: ['tests/outage/**/*.test.ts'], testTimeout: 400_000, hookTimeout: 180_000 } },
       {
         extends: true,
         test: {

@@ -2,7 +2,7 @@
 // its environment; `npm start` sets that environment for the local stand-ins.
 import type { Server } from 'node:http'
 import { createApp } from './app'
-import { loadConfig } from './config'
+import { isLocalDevelopment, loadConfig, secretProblems } from './config'
 import { consoleLogger, type AppContext } from './context'
 import { createDataSource } from './db/data-source'
 import { seedDemoPayouts } from './db/demo-payouts'
@@ -14,6 +14,13 @@ import { engineRebuildStarted } from './services/search'
 
 const log = consoleLogger()
 const config = loadConfig()
+// Secrets with public defaults would let anyone sign a session cookie or a webhook: refuse to serve.
+const problems = secretProblems(config)
+if (problems.length) {
+  for (const problem of problems) log.error(`refusing to start: ${problem}`)
+  process.exit(1)
+}
+if (isLocalDevelopment(config)) log.info('local development: secrets not set are the fixed local ones, fit only for this machine')
 const db = createDataSource(config.databaseUrl)
 await db.initialize()
 const ctx: AppContext = { config, db, log }

@@ -1,6 +1,7 @@
 // The front desk's list queries: words, filters, order and page, validated on the route and built by
 // the desk's tables. The lists can grow long, so the server pages and filters them.
 import { z } from 'zod'
+import { text } from './text'
 import { USER_ROLES } from './auth'
 
 const page = z.coerce.number({ error: 'Pages are numbers.' }).int('Pages are whole numbers.').min(1, 'Pages start at 1.').max(10_000)
@@ -9,7 +10,7 @@ const perPage = z.coerce
   .int('Whole rows.')
   .min(5, 'At least 5 per page.')
   .max(100, 'At most 100 per page.')
-const words = z.string().trim().max(120, 'Keep the words under 120 characters.')
+const words = text().trim().max(120, 'Keep the words under 120 characters.')
 
 export const DESK_STUDIO_STATES = ['waiting', 'verified', 'unverified', 'draft'] as const
 export type DeskStudioState = (typeof DESK_STUDIO_STATES)[number]

@@ -1,6 +1,7 @@
 // Bodies of the drop-off-to-pickup routes: check-in, the firing log, results, balance, the answers after pickup.
 import { z } from 'zod'
 import { CONE_BENDS } from '../firing/witness'
+import { text } from './text'
 import { ANSWERS } from '../reviews'
 import { coneSchema } from './firing'
 
@@ -22,8 +23,8 @@ export const checkInSchema = z
         }),
       )
       .max(200),
-    conditionNotes: z.string().trim().max(4000).optional(),
-    refuse: z.object({ reason: z.string().trim().min(3, 'Say why the ware is refused.').max(1000) }).optional(),
+    conditionNotes: text().trim().max(4000).optional(),
+    refuse: z.object({ reason: text().trim().min(3, 'Say why the ware is refused.').max(1000) }).optional(),
   })
   .refine((b) => b.refuse || b.pieces.some((p) => p.received > 0), {
     message: 'Record the pieces received, or refuse the ware with a reason.',
@@ -56,13 +57,13 @@ export const firingLogSchema = z.object({
       z.object({
         cone: coneSchema,
         bend: z.enum(CONE_BENDS, { error: 'Say how far the cone bent.' }),
-        position: z.string().trim().max(80).optional(),
+        position: text().trim().max(80).optional(),
       }),
     )
     .max(60)
     .default([]),
   readings: z.array(readingSchema).max(MAX_READINGS, `At most ${MAX_READINGS} readings; keep one a minute or fewer.`).default([]),
-  notes: z.string().trim().max(4000).optional(),
+  notes: text().trim().max(4000).optional(),
 })
 export type FiringLogBody = z.infer<typeof firingLogSchema>
 
@@ -70,12 +71,10 @@ export const PIECE_OUTCOMES = ['fine', 'cracked', 'blown-out', 'glaze-ran', 'stu
 
 export const resultsSchema = z.object({
   outcomes: z
-    .array(
-      z.object({ pieceIndex: z.number().int().min(0), outcome: z.enum(PIECE_OUTCOMES), notes: z.string().trim().max(1000).optional() }),
-    )
+    .array(z.object({ pieceIndex: z.number().int().min(0), outcome: z.enum(PIECE_OUTCOMES), notes: text().trim().max(1000).optional() }))
     .min(1)
     .max(200),
-  notes: z.string().trim().max(4000).optional(),
+  notes: text().trim().max(4000).optional(),
 })
 
 const answer = z.enum(ANSWERS, { error: 'Choose yes, partly or no.' })
@@ -93,12 +92,12 @@ export const reviewSchema = z.object({
   asDeclared: answer.optional(),
   cleanAndDry: answer.optional(),
   onTime: answer.optional(),
-  note: z.string().trim().max(2000, 'Keep it under 2000 characters.').default(''),
+  note: text().trim().max(2000, 'Keep it under 2000 characters.').default(''),
 })
 
 export const counterPaymentSchema = z.object({
   amountCents: z.number().int('Whole cents.').positive('Enter what was paid.').max(100_000_000).optional(),
-  note: z.string().trim().max(300).optional(),
+  note: text().trim().max(300).optional(),
 })
 
 export const photoPatchSchema = z.object({ public: z.boolean() })

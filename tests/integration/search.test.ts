@@ -4,7 +4,7 @@ import fc from 'fast-check'
 import { getDistance } from 'geolib'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { startSearchEngine } from '../../standins/search-engine/server'
-import { engineIsBack } from '../../server/services/search'
+import { engineRebuilt } from '../../server/services/search'
 import type { BoardResponse } from '../../shared/api/board'
 import { pieceFitsFootprint, type Kiln } from '../../shared/firing/check'
 import { HttpSession } from '../support/http-client'
@@ -287,7 +287,7 @@ describe('the firing board', () => {
     } finally {
       app.search = await startSearchEngine({ port, masterKey: 'test-search-key', state })
       // The next tests start with the engine trusted again, not after the retry pause.
-      engineIsBack()
+      engineRebuilt()
     }
   })
 })

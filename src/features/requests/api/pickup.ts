@@ -96,8 +96,18 @@ export function useSetPhotoPublic(requestId: string) {
   })
 }
 
-/** After an upload: the request's photos are read again. */
+/**
+ * After an upload: the request's photos are read again, and again every two seconds while the
+ * server is still preparing large ones (for at most a minute).
+ */
 export function useRefreshPhotos(requestId: string) {
   const queryClient = useQueryClient()
-  return () => queryClient.invalidateQueries({ queryKey: requestKeys.requests.detail(requestId), exact: true })
+  return async () => {
+    for (let round = 0; round < 30; round++) {
+      await queryClient.invalidateQueries({ queryKey: requestKeys.requests.detail(requestId), exact: true })
+      const view = queryClient.getQueryData<{ photos: PhotoRecord[] }>(requestKeys.requests.detail(requestId))
+      if (!view?.photos.some((photo) => photo.processing)) return
+      await new Promise((resolve) => setTimeout(resolve, 2000))
+    }
+  }
 }
