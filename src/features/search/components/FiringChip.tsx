@@ -28,11 +28,12 @@ export function FiringChip({ firing, studioName, units, compact = false }: Firin
       data-firing-id={firing.firingId}
       data-cone={firing.cone}
       data-atmosphere={firing.atmosphere}
-      className={`block max-w-full min-w-0 rounded-control border px-2.5 py-1.5 text-xs leading-snug hover:border-clay-500 hover:bg-clay-50 ${
+      className={`relative block max-w-full min-w-0 rounded-control border px-2.5 py-1.5 text-xs leading-snug hover:border-clay-500 hover:bg-clay-50 ${
         full ? 'border-slip-200 bg-slip-50 text-slip-600' : 'border-slip-300 bg-white text-slip-800'
       }`}
     >
-      {/* The chip's own words name the link; what it does and where is added for a screen reader. */}
+      {/* The chip's own words name the link; what it does and where is added for a screen reader (the chip is
+          positioned, so the hidden words stay inside it and never widen a phone's page). */}
       <span className="sr-only">Ask for space at {studioName}: </span>
       <span className="block font-semibold text-slip-900">
         {compact ? chipDay.format(new Date(firing.dropOffBy)) : `By ${chipDay.format(new Date(firing.dropOffBy))}`}
