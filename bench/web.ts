@@ -8,6 +8,7 @@
 // changed). Each page is opened RUNS times in a fresh browser context (an empty cache), and the
 // median is printed; then once more in the same context, as a repeat visit.
 import { spawn, type ChildProcess } from 'node:child_process'
+import { randomBytes } from 'node:crypto'
 import { cpSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs'
 import os from 'node:os'
 import path from 'node:path'
@@ -262,6 +263,11 @@ async function main() {
 
     const port = await freePort()
     const base = `http://127.0.0.1:${port}`
+    const secrets = {
+      STRIPE_SECRET_KEY: `sk_test_bench_${randomBytes(8).toString('hex')}`,
+      STRIPE_WEBHOOK_SECRET: `whsec_${randomBytes(16).toString('hex')}`,
+      STRIPE_CONNECT_WEBHOOK_SECRET: `whsec_${randomBytes(16).toString('hex')}`,
+    }
     const standIns = JSON.parse(
       await start(
         'standins/main.ts',
@@ -271,6 +277,7 @@ async function main() {
           SEARCH_PORT: String(await freePort()),
           STRIPE_PORT: String(await freePort()),
           APP_WEBHOOK_URL: `${base}/api/webhooks/stripe`,
+          ...secrets,
         },
         'STANDINS ',
       ),
@@ -283,7 +290,12 @@ async function main() {
         DATABASE_URL: throwaway.cluster.url('conewright'),
         PORT: String(port),
         SEED_DEMO: 'true',
+        // Served as in production (compressed, cached assets), so the start-up refuses the secrets written in
+        // the code: the bench gives fresh ones and says its Stripe is a rehearsal (the stand-in above).
         NODE_ENV: 'production',
+        ...secrets,
+        SESSION_SECRET: randomBytes(32).toString('hex'),
+        STRIPE_TEST_MODE: 'true',
         CLIENT_DIR: clientDir,
       },
       'listening on ',
