@@ -64,7 +64,6 @@ const firingRaw = fc.record(
     kind: fc.constantFrom('bisque', 'glaze', 'single'),
     cone: coneText,
     atmosphere: fc.constantFrom('oxidation', 'reduction', 'neutral'),
-    remainingCapacityL: number(0, 1000),
     slowCool: fc.boolean(),
   },
   { requiredKeys: ['kind', 'cone', 'atmosphere'] },
