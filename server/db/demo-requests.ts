@@ -1,10 +1,12 @@
-// Demo requests, so the board has life on first start: a firing nearly full, requests waiting for a
-// decision, a paid deposit, a draft, and a past firing collected and rated. Money in the demo was
-// taken "at the counter", so seeding never calls Stripe. Each is found again by the key its first
-// timeline entry carries.
+// Demo requests, so the board has life on first start: a firing nearly full whose ware is checked in
+// as tagged pieces and planned on its shelves, requests waiting for a decision, a paid deposit, a
+// draft, and a past firing collected and rated. Money in the demo was taken "at the counter", so
+// seeding never calls Stripe. Each is found again by the key its first timeline entry carries.
 import type { EntityManager } from 'typeorm'
 import type { Piece } from '../../shared/firing/check'
+import { itemApplies } from '../../shared/schemas/pieces'
 import type { RequestState } from '../../shared/workflow/request-states'
+import { CheckIn } from '../entities/CheckIn'
 import { Firing } from '../entities/Firing'
 import { FiringRequest } from '../entities/FiringRequest'
 import { Kiln } from '../entities/Kiln'
@@ -12,6 +14,7 @@ import { LedgerEntry } from '../entities/LedgerEntry'
 import { Rating } from '../entities/Rating'
 import { RequestEvent } from '../entities/RequestEvent'
 import { Studio } from '../entities/Studio'
+import { insertPiece } from '../services/pieces'
 import { checkAgainstFiring } from '../services/requests'
 
 const stoneware = { body: 'stoneware' as const, minCone: '5', maxCone: '10' }
@@ -31,7 +34,7 @@ const MUGS: Piece = {
 }
 const VASES: Piece = {
   label: 'Tall vases',
-  quantity: 5,
+  quantity: 4,
   heightMm: 400,
   widthMm: 250,
   depthMm: 250,
@@ -78,6 +81,8 @@ interface DemoRequest {
   pieces: Piece[]
   notes: string
   state: RequestState
+  /** Checked in piece by piece against the studio's checklist (every item passed), each piece tagged. */
+  checkedInBy?: string
   acknowledged?: string[]
   rating?: { stars: number; text: string; care: number; communication: number; results: number }
 }
@@ -91,7 +96,8 @@ const DEMO_REQUESTS: DemoRequest[] = [
     potter: 'theo.marsh@demo.conewright.test',
     pieces: [VASES],
     notes: 'Tall forms: please keep them off the top shelf.',
-    state: 'deposit_paid',
+    state: 'received',
+    checkedInBy: 'dev.ramanathan@demo.conewright.test',
   },
   {
     key: 'mugs-paid',
@@ -101,6 +107,17 @@ const DEMO_REQUESTS: DemoRequest[] = [
     potter: 'wren.alvarado@demo.conewright.test',
     pieces: [MUGS],
     notes: 'Could these go in the slow-cool part of the load?',
+    state: 'received',
+    checkedInBy: 'dev.ramanathan@demo.conewright.test',
+  },
+  {
+    key: 'bowls-paid',
+    studio: 'Alder Street Clay Commons',
+    kiln: 'Big Ten',
+    firing: 1,
+    potter: 'wren.alvarado@demo.conewright.test',
+    pieces: [{ ...MUGS, label: 'Soup bowls', quantity: 4, heightMm: 80, widthMm: 150, depthMm: 150, round: true }],
+    notes: '',
     state: 'deposit_paid',
   },
   {
@@ -158,6 +175,7 @@ const PATH: Record<string, RequestState[]> = {
   draft: ['draft'],
   sent: ['draft', 'sent'],
   deposit_paid: ['draft', 'sent', 'accepted', 'deposit_paid'],
+  received: ['draft', 'sent', 'accepted', 'deposit_paid', 'received'],
   collected: ['draft', 'sent', 'accepted', 'deposit_paid', 'received', 'fired', 'ready', 'collected'],
 }
 
@@ -181,7 +199,7 @@ export async function seedDemoRequests(manager: EntityManager, userIdOf: (email:
           dropOffBy: new Date(fired.getTime() - 2 * 86400_000),
           firingDate: fired,
           readyBy: new Date(fired.getTime() + 3 * 86400_000),
-          capacityL: 140,
+          layersOnSale: null,
           status: 'unloaded',
           schedule: null,
           notes: 'Slow cool through 1900 °F.',
@@ -235,6 +253,7 @@ export async function seedDemoRequests(manager: EntityManager, userIdOf: (email:
         data: i ? {} : { demoKey: demo.key },
       })
     }
+    if (demo.checkedInBy) await checkInDemoWare(manager, request, studio, await userIdOf(demo.checkedInBy))
     const currency = quote?.currency ?? 'USD'
     if (path.includes('deposit_paid') && quote && quote.depositCents > 0) {
       await manager.getRepository(LedgerEntry).save({
@@ -283,4 +302,45 @@ export async function seedDemoRequests(manager: EntityManager, userIdOf: (email:
       })
     }
   }
+}
+
+/** The ware as it came in: every piece tagged against the studio's checklist, every item passed. */
+async function checkInDemoWare(manager: EntityManager, request: FiringRequest, studio: Studio, crewId: string) {
+  for (const [pieceIndex, line] of request.pieces.entries()) {
+    const checks = studio.dropOffChecklist
+      .filter((item) => itemApplies(item, line))
+      .map((item) => ({ id: item.id, label: item.label, passed: true }))
+    for (let copy = 1; copy <= line.quantity; copy++) {
+      await insertPiece(manager, {
+        requestId: request.id,
+        pieceIndex,
+        copy,
+        heightMm: line.heightMm,
+        widthMm: line.widthMm,
+        depthMm: line.round === true ? line.widthMm : line.depthMm,
+        round: line.round === true,
+        weightG: line.weightG ?? null,
+        checks,
+        status: 'in-load',
+        holdReason: null,
+        heldAt: null,
+        outcome: null,
+        outcomeNotes: '',
+        outcomeAt: null,
+        outcomeBy: null,
+        checkedInBy: crewId,
+      })
+    }
+  }
+  await manager.getRepository(CheckIn).save({
+    requestId: request.id,
+    receivedPieces: request.pieces.map((line, pieceIndex) => ({ pieceIndex, declared: line.quantity, received: line.quantity })),
+    conditionNotes: '',
+    refused: false,
+    refusedReason: null,
+    quoteBefore: request.standingQuote,
+    quoteAfter: request.standingQuote,
+    priceConfirmedAt: new Date(),
+    checkedInBy: crewId,
+  })
 }

@@ -7,6 +7,7 @@ import { FiringEvent } from '../entities/FiringEvent'
 import { FiringLog } from '../entities/FiringLog'
 import { FiringRequest } from '../entities/FiringRequest'
 import { Kiln } from '../entities/Kiln'
+import { LoadPlanRecord } from '../entities/LoadPlanRecord'
 import { LedgerEntry } from '../entities/LedgerEntry'
 import { Notice } from '../entities/Notice'
 import { Payment } from '../entities/Payment'
@@ -22,6 +23,7 @@ import { StripeEvent } from '../entities/StripeEvent'
 import { Studio } from '../entities/Studio'
 import { StudioMember } from '../entities/StudioMember'
 import { User } from '../entities/User'
+import { WarePiece } from '../entities/WarePiece'
 
 export const entities = [
   User,
@@ -47,4 +49,6 @@ export const entities = [
   Notice,
   FiringEvent,
   CounterRefund,
+  WarePiece,
+  LoadPlanRecord,
 ]

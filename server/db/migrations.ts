@@ -12,6 +12,7 @@ import { RequestLifecycle1796166638665 } from './migrations/1796166638665-Reques
 import { FiringSciencePass1796167522134 } from './migrations/1796167522134-FiringSciencePass'
 import { FiringKindsAndHalfCones1796167600000 } from './migrations/1796167600000-FiringKindsAndHalfCones'
 import { PieceSupport1796167700000 } from './migrations/1796167700000-PieceSupport'
+import { LoadPiecesAndPlans1796175115835 } from './migrations/1796175115835-LoadPiecesAndPlans'
 
 export const migrations: (new () => unknown)[] = [
   Foundation1796149373286,
@@ -26,4 +27,5 @@ export const migrations: (new () => unknown)[] = [
   FiringSciencePass1796167522134,
   FiringKindsAndHalfCones1796167600000,
   PieceSupport1796167700000,
+  LoadPiecesAndPlans1796175115835,
 ]

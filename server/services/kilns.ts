@@ -27,6 +27,12 @@ export function kilnSpec(kiln: Kiln): KilnSpec {
     preheatHold: kiln.preheatHold,
     controlledCooling: kiln.controlledCooling,
     ...(kiln.shelfLoadKg !== null ? { shelfLoadKg: kiln.shelfLoadKg } : {}),
+    shelves: {
+      count: kiln.shelfCount,
+      ...(kiln.shelfWidthMm !== null ? { widthMm: kiln.shelfWidthMm } : {}),
+      ...(kiln.shelfDepthMm !== null ? { depthMm: kiln.shelfDepthMm } : {}),
+      ...(kiln.furniture ? { furniture: kiln.furniture } : {}),
+    },
   }
 }
 
@@ -69,6 +75,7 @@ export function kilnColumns(body: KilnBody): Partial<Kiln> {
     shelfCount: body.shelfCount,
     shelfWidthMm: body.shelfWidthMm ?? null,
     shelfDepthMm: body.shelfDepthMm ?? null,
+    furniture: body.furniture ?? null,
     notes: body.notes ?? '',
   }
 }
@@ -110,6 +117,7 @@ export async function updateKiln(ctx: AppContext, id: string, patch: Record<stri
       shelfCount: current.shelfCount,
       shelfWidthMm: current.shelfWidthMm,
       shelfDepthMm: current.shelfDepthMm,
+      furniture: kiln.furniture,
       notes: current.notes,
       ...patch,
     }

@@ -111,7 +111,7 @@ export async function addPhotos(ctx: AppContext, user: User, requestId: string, 
   for (const file of files) stored.push(await storeImage(ctx, file))
   const saved = await ctx.db
     .getRepository(Photo)
-    .save(stored.map((s) => ({ ...s, requestId, kind, uploadedBy: user.id, publicOptIn: false })))
+    .save(stored.map((s) => ({ ...s, requestId, kind, pieceId: null, uploadedBy: user.id, publicOptIn: false })))
   return saved.map(photoJson)
 }
 
@@ -122,6 +122,7 @@ export function photoJson(photo: Photo) {
     width: photo.width,
     height: photo.height,
     public: photo.publicOptIn,
+    pieceId: photo.pieceId,
     url: `/api/photos/${photo.id}`,
     thumbUrl: `/api/photos/${photo.id}/thumb`,
     at: photo.createdAt.toISOString(),

@@ -2,6 +2,8 @@
 // routes and the client.
 import type { Finding, Piece, Verdict } from '../firing/check'
 import type { Quote } from '../firing/quote'
+import type { PieceOutcome } from '../schemas/pickup'
+import type { PieceJson } from './load'
 import type { StudioPolicies } from '../schemas/studios'
 import type { RequestAction } from '../workflow/policy'
 import type { RequestState } from '../workflow/request-states'
@@ -19,7 +21,7 @@ export interface MeasuredSize {
 export interface CheckInJson {
   refused: boolean
   refusedReason: string | null
-  receivedPieces: { pieceIndex: number; declared: number; received: number; measured?: MeasuredSize }[]
+  receivedPieces: { pieceIndex: number; declared: number; received: number; held?: number; measured?: MeasuredSize }[]
   conditionNotes: string
   quoteBefore: Quote | null
   quoteAfter: Quote | null
@@ -28,10 +30,12 @@ export interface CheckInJson {
   at: string
 }
 
-export type PieceOutcome = 'fine' | 'cracked' | 'blown-out' | 'glaze-ran' | 'stuck-to-shelf' | 'other'
+export type { PieceOutcome }
 
+/** The request's results, once every piece in the load has its outcome: each piece, and the counts. */
 export interface ResultsJson {
-  outcomes: { pieceIndex: number; outcome: PieceOutcome; notes: string }[]
+  outcomes: { pieceId: string; tag: string; pieceIndex: number; copy: number; outcome: PieceOutcome; notes: string }[]
+  counts: Partial<Record<PieceOutcome, number>>
   notes: string
   at: string
 }
@@ -168,6 +172,10 @@ export interface RequestView {
   counterRefunds: CounterRefundJson[]
   payments: PaymentJson[]
   checkIn: CheckInJson | null
+  /** Every piece received, tagged, in line and copy order. */
+  pieceRecords: PieceJson[]
+  /** The shelves the ware takes, planned alone on the kiln's shelves. */
+  shelvesNeeded: number
   results: ResultsJson | null
   /** The log of the firing the ware is in, once the studio has written one. */
   firingLog: FiringLogJson | null
@@ -198,6 +206,8 @@ export interface RequestRow {
   findings: number
   volumeL: number
   pieceCount: number
+  /** For a request waiting for an answer: the shelves its ware takes. */
+  shelvesNeeded: number | null
   price: {
     totalCents: number
     depositCents: number

@@ -1,7 +1,7 @@
 // Prices a firing request from a studio's price list. Money is integer cents throughout; fractional
 // amounts appear only inside a line's arithmetic and are rounded half-up once, at the line.
 
-import { shelfAreaMm2, pieceDepthMm, type Firing, type FiringKind, type Kiln, type Piece } from './check'
+import { pieceDepthMm, type Firing, type FiringKind, type Kiln, type Piece } from './check'
 import { gapFor, loadKiln, piecesOfLine, shelfShare } from './load'
 import { THICK_WALL_MM, wareAsksForSlowCooling } from './schedule'
 import { MM3_PER_LITRE, MM_PER_INCH } from './units'
