@@ -6,9 +6,15 @@ import type { PieceOutcome, RequestView } from './api/types'
 export const OUTCOMES: readonly { value: PieceOutcome; label: string }[] = [
   { value: 'fine', label: 'Fine' },
   { value: 'cracked', label: 'Cracked' },
+  { value: 'dunted', label: 'Dunted' },
   { value: 'blown-out', label: 'Blown out' },
+  { value: 'bloated', label: 'Bloated' },
   { value: 'glaze-ran', label: 'Glaze ran' },
   { value: 'stuck-to-shelf', label: 'Stuck to the shelf' },
+  { value: 'crawled', label: 'Crawled' },
+  { value: 'pinholed', label: 'Pinholed' },
+  { value: 'underfired', label: 'Underfired' },
+  { value: 'crazed', label: 'Crazed' },
   { value: 'other', label: 'Other' },
 ]
 

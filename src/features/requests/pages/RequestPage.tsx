@@ -254,10 +254,10 @@ function RequestDetail({ view, units, paidFor, unpaidFor, waitedOut }: DetailPro
         <div className="min-w-0 lg:col-start-2 lg:row-start-1">
           <Card>
             <h2 className="mb-3 text-lg font-semibold">Next</h2>
-            {view.viewer === 'studio' ? <StudioActions view={view} units={units} /> : <PotterActions view={view} units={units} />}
+            {view.viewer === 'studio' ? <StudioActions view={view} /> : <PotterActions view={view} />}
             {view.viewer === 'admin' && (
               <div className="mt-4 border-t border-slip-200 pt-4">
-                <StudioActions view={view} units={units} />
+                <StudioActions view={view} />
               </div>
             )}
             {view.actions.includes('dispute') && (
@@ -274,7 +274,7 @@ function RequestDetail({ view, units, paidFor, unpaidFor, waitedOut }: DetailPro
             <FiringSummary firing={view.firing} kiln={view.kiln} studio={view.studio} units={units} showSpace={!decided} />
             {!decided && view.state !== 'draft' && (
               <div className="mt-4">
-                <SpaceGauge needL={view.volumeL} leftL={view.firing.spaceLeftL} units={units} />
+                <SpaceGauge need={view.shelvesNeeded} left={view.firing.space.shelvesLeft} />
               </div>
             )}
             {view.proposedFiring && view.viewer === 'studio' && (

@@ -3,7 +3,8 @@ import { Link } from 'react-router-dom'
 import { formatMoney } from '../../../../shared/dates'
 import type { SearchHit } from '../../../../shared/schemas/search'
 import { Badge } from '../../../components/ui/Badge'
-import { formatDistance, formatLength, formatSpace, type UnitSystem } from '../units'
+import { formatShelves } from '../../../lib/units'
+import { formatDistance, formatLength, type UnitSystem } from '../units'
 import { atmosphereLabel, firingKindLabel, formatDay, formatWhen, kilnKindLabel } from '../words'
 
 interface ResultCardProps {
@@ -73,7 +74,7 @@ export const ResultCard = forwardRef<HTMLElement, ResultCardProps>(function Resu
         <dd className="text-slip-800">{formatDay(hit.firingDate)}</dd>
         <dt className="text-slip-500">Space left</dt>
         <dd className="text-slip-800">
-          {formatSpace(hit.spaceLeftL, units)} <span className="text-slip-500">of {Math.round(hit.capacityL)} L</span>
+          {formatShelves(hit.space.shelvesLeft)} <span className="text-slip-500">of {formatShelves(hit.space.shelvesTotal)}</span>
         </dd>
         {hit.priceExample && (
           <>
