@@ -8,6 +8,8 @@ import path from 'node:path'
 import type { PassportStatic } from 'passport'
 import { createPassport } from './auth/passport'
 import type { AppContext } from './context'
+import { compressApi, revalidateApiReads } from './http/api-responses'
+import { clientFiles } from './http/client-files'
 import { errorHandler, notFoundApi } from './http/errors'
 import { poolOf } from './jobs/worker'
 import { adminRouter } from './routes/admin'
@@ -30,6 +32,8 @@ import { searchRouter } from './routes/search'
 import { studiosRouter } from './routes/studios'
 import { webhooksRouter } from './routes/webhooks'
 import { wareChecksRouter } from './routes/ware-checks'
+
+const SESSION_COOKIE = 'cw.sid'
 
 export interface App {
   app: Express
@@ -62,6 +66,7 @@ export function createApp(ctx: AppContext): App {
     }),
   )
 
+  app.use('/api', compressApi(), revalidateApiReads())
   app.use('/api', healthRouter(ctx))
   app.use('/api', metaRouter(ctx))
 
@@ -76,7 +81,7 @@ export function createApp(ctx: AppContext): App {
   app.use(
     '/api',
     session({
-      name: 'cw.sid',
+      name: SESSION_COOKIE,
       secret: config.sessionSecret,
       store,
       resave: false,
@@ -130,11 +135,7 @@ export function createApp(ctx: AppContext): App {
   app.use('/api', notFoundApi)
 
   if (config.serveClient && existsSync(path.join(config.clientDir, 'index.html'))) {
-    app.use(express.static(config.clientDir, { index: false, maxAge: '1h', immutable: false }))
-    // The client routes everything else itself.
-    app.get('/{*path}', (_req, res) => {
-      res.sendFile(path.join(config.clientDir, 'index.html'), { headers: { 'Cache-Control': 'no-cache' } })
-    })
+    app.use(clientFiles(config.clientDir, { sessionCookie: SESSION_COOKIE }))
   }
 
   app.use(errorHandler(ctx.log.error))

@@ -13,7 +13,7 @@ function clientFingerprint() {
     if (stat.isDirectory()) for (const entry of readdirSync(p).sort()) walk(path.join(p, entry))
     else hash.update(`${p}:${stat.size}:${stat.mtimeMs}\n`)
   }
-  for (const p of ['src', 'shared', 'index.html', 'vite.config.ts', 'package-lock.json', 'public']) walk(path.join(repoRoot, p))
+  for (const p of ['src', 'shared', 'build', 'index.html', 'vite.config.ts', 'package-lock.json', 'public']) walk(path.join(repoRoot, p))
   return hash.digest('hex')
 }
 

@@ -16,7 +16,7 @@ import { isUuid } from '../http/validate'
 import { enqueueJob, type JobOptions } from '../jobs/queue'
 import { paymentReceivedMail } from '../mail/templates/pickup'
 import { refundedMail } from '../mail/templates/requests'
-import { queueMail } from './mail'
+import { tell } from './notices'
 import { factsOf, loadRequest } from './request-context'
 import { inTransaction, requestAction, requestActionIn, type ActionStep } from './request-door'
 import { stripeFor } from './stripe'
@@ -213,7 +213,11 @@ async function bookRefund(ctx: AppContext, requestId: string, refund: Stripe.Ref
     )
     if (!inserted.length) return
     const rc = await loadRequest(manager, requestId)
-    await queueMail(manager, rc.potter.email, 'refunded', refundedMail(factsOf(rc, ctx.config.publicUrl), refund.amount))
+    await tell(manager, rc.potter, 'refunded', refundedMail(factsOf(rc, ctx.config.publicUrl), refund.amount), {
+      path: `/requests/${requestId}`,
+      requestId,
+      firingId: rc.firing.id,
+    })
   })
 }
 

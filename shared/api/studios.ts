@@ -88,3 +88,28 @@ export interface FiringJson {
   /** The last stage move while it can still be undone: back to `from`, until `until`. */
   undo: { from: FiringStatus; until: string } | null
 }
+
+/** A member of a studio's crew, as its owner sees them (server/services/crew.ts). */
+export interface CrewMemberJson {
+  id: string
+  userId: string
+  displayName: string
+  email: string
+  role: StudioRole
+  since: string
+}
+
+/** An invitation still waiting for its invitee. */
+export interface CrewInviteJson {
+  id: string
+  email: string
+  expiresAt: string
+}
+
+/** What an invitation link shows before the invitee joins. */
+export interface InviteDetailsJson {
+  studioId: string
+  studioName: string
+  email: string
+  expiresAt: string
+}

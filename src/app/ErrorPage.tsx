@@ -2,9 +2,14 @@ import { isRouteErrorResponse, useRouteError } from 'react-router-dom'
 import { Logo } from '../components/Logo'
 import { ButtonLink } from '../components/ui/Button'
 
+// What browsers say when a page's chunk cannot be fetched: after a new release (the old hashed
+// files are gone) or when the connection dropped.
+const CHUNK_FAILED = /dynamically imported module|Importing a module script failed|error loading dynamically imported module/i
+
 /** The router's error boundary: something broke while drawing a page. */
 export function ErrorPage() {
   const error = useRouteError()
+  const chunkFailed = error instanceof Error && CHUNK_FAILED.test(error.message)
   const message = isRouteErrorResponse(error)
     ? `${error.status} ${error.statusText}`
     : error instanceof Error
@@ -13,8 +18,12 @@ export function ErrorPage() {
   return (
     <div className="mx-auto max-w-lg px-4 py-16">
       <Logo />
-      <h1 className="mt-8 text-2xl font-bold">This page cracked in the firing</h1>
-      <p className="mt-2 text-slip-600">Something went wrong while showing it. Nothing you entered was sent twice; reload to try again.</p>
+      <h1 className="mt-8 text-2xl font-bold">{chunkFailed ? 'This page did not arrive' : 'This page cracked in the firing'}</h1>
+      <p className="mt-2 text-slip-600">
+        {chunkFailed
+          ? 'Its part of Conewright could not be loaded: the connection dropped, or a newer Conewright came out while this tab was open. Reload to fetch it again.'
+          : 'Something went wrong while showing it. Nothing you entered was sent twice; reload to try again.'}
+      </p>
       <pre className="mt-4 overflow-auto rounded-control bg-slip-100 p-3 text-xs text-slip-700">{message}</pre>
       <div className="mt-6 flex gap-2">
         <button

@@ -72,7 +72,7 @@ export function Layout() {
             <Logo />
           </Link>
           {/* The notices stay in sight on a phone, beside the menu button. */}
-          <div className="ml-auto flex items-center gap-1 md:order-last md:ml-0">
+          <div className="ml-auto flex items-center gap-1 md:order-last md:ml-1">
             {user && <NoticeBell />}
             <button
               type="button"
@@ -87,7 +87,7 @@ export function Layout() {
           <nav
             id="main-nav"
             aria-label="Main"
-            className={`${menuOpen ? 'flex' : 'hidden'} absolute inset-x-0 top-14 z-40 flex-col gap-1 border-b border-slip-200 bg-white p-3 md:static md:flex md:flex-row md:items-center md:border-0 md:p-0`}
+            className={`${menuOpen ? 'flex' : 'hidden'} absolute inset-x-0 top-14 z-40 flex-col gap-1 border-b border-slip-200 bg-white p-3 md:static md:ml-auto md:flex md:flex-row md:items-center md:border-0 md:p-0`}
           >
             {items.map((item) => (
               <NavLink key={item.to} to={item.to} className={linkClass} onClick={() => setMenuOpen(false)}>

@@ -208,7 +208,7 @@ describe('a firing request in the browser', () => {
     expect(await hostPage.getByTestId('ledger-line').first().textContent()).toContain(dollars(DEPOSIT_CENTS))
 
     await waitForMail(app.mail!.webUrl, { to: potter.email, subject: 'Receipt:' })
-    await waitForMail(app.mail!.webUrl, { to: host.email, subject: 'Deposit paid' })
+    await waitForMail(app.mail!.webUrl, { to: host.email, subject: 'Paid:' })
     expect(errors).toEqual([])
   })
 

@@ -1,10 +1,11 @@
 import 'leaflet/dist/leaflet.css'
-import { useQuery } from '@tanstack/react-query'
+import { useQueries, useQueryClient } from '@tanstack/react-query'
 import type { Map as LeafletMap, PathOptions } from 'leaflet'
 import { useEffect, useRef, useState, type ReactNode, type Ref } from 'react'
 import { GeoJSON, MapContainer, Pane, TileLayer, useMap, useMapEvents } from 'react-leaflet'
 import { useSiteMeta } from '../../lib/meta'
-import { loadCountyLayers, loadUsLayers, loadWorldLayers } from './offline-layers'
+import type { Bounds } from './basemap-grid'
+import { basemapIndex, cellsFor, loadCell, type CellShapes, type WantedCell } from './offline-layers'
 
 export type LatLngPair = [lat: number, lng: number]
 
@@ -28,17 +29,22 @@ export interface BasemapProps {
   ref?: Ref<LeafletMap>
 }
 
-export const OFFLINE_ATTRIBUTION = 'Map data: Natural Earth, U.S. Census Bureau'
-
-/** Counties appear from this zoom on; further out they are a grey blur. */
-export const COUNTY_MIN_ZOOM = 8
+export const OFFLINE_ATTRIBUTION = basemapIndex.attribution
 
 // Colours come from the design tokens through Tailwind classes on the SVG paths; the stroke and
-// fill attributes Leaflet writes lose to any stylesheet rule.
-const landStyle: PathOptions = { className: 'fill-slip-100 stroke-water-300', weight: 1, fillOpacity: 1 }
-const borderStyle: PathOptions = { className: 'stroke-slip-400', weight: 1, fill: false }
-const stateStyle: PathOptions = { className: 'stroke-slip-300', weight: 1, dashArray: '4 3', fill: false }
-const countyStyle: PathOptions = { className: 'stroke-slip-200', weight: 0.75, fill: false }
+// fill attributes Leaflet writes lose to any stylesheet rule. Land is filled without a stroke (its
+// cells overlap at their edges); the coast is drawn as a line of its own.
+const LAYER_STYLES: Record<string, PathOptions> = {
+  land: { className: 'fill-slip-100', stroke: false, fillOpacity: 1 },
+  coast: { className: 'stroke-water-300', weight: 1, fill: false },
+  borders: { className: 'stroke-slip-400', weight: 1, fill: false },
+  states: { className: 'stroke-slip-300', weight: 1, dashArray: '4 3', fill: false },
+  counties: { className: 'stroke-slip-200', weight: 0.75, fill: false },
+}
+const OTHER_LAYER: PathOptions = { className: 'stroke-slip-300', weight: 1, fill: false }
+
+/** Every layer the basemap has, bottom first; each gets a pane so land stays under every line. */
+const LAYER_ORDER = [...new Set(basemapIndex.tilesets.flatMap((t) => t.layers.map((l) => l.id)))]
 
 /**
  * A map: tiles from `TILE_URL` when the installation has a tile server, otherwise land, borders,
@@ -115,23 +121,61 @@ function MoveEndReporter({ onMoveEnd }: { onMoveEnd: NonNullable<BasemapProps['o
   return null
 }
 
-const forever = { staleTime: Infinity, gcTime: Infinity, retry: 1 } as const
+/** Cells just out of sight are fetched with the rest, so a small pan does not show bare sea. */
+const VIEW_PADDING = 0.25
+
+interface View {
+  zoom: number
+  bounds: Bounds
+}
+
+function viewOf(map: LeafletMap): View {
+  const b = map.getBounds().pad(VIEW_PADDING)
+  return { zoom: map.getZoom(), bounds: { west: b.getWest(), south: b.getSouth(), east: b.getEast(), north: b.getNorth() } }
+}
+
+const cellId = ({ tileset, key }: WantedCell) => `${tileset.id}/${key}`
 
 function OfflineBasemap({ onReady }: { onReady: (ready: boolean) => void }) {
   const map = useMap()
-  const [zoom, setZoom] = useState(() => map.getZoom())
-  useMapEvents({ zoomend: () => setZoom(map.getZoom()) })
+  const [view, setView] = useState<View | null>(null)
+  // The first view is taken a frame after the map is made: a page that moves the map as it opens
+  // (the search results) then fetches the cells of where it went, not of where it started.
+  useEffect(() => {
+    const frame = requestAnimationFrame(() => setView(viewOf(map)))
+    return () => cancelAnimationFrame(frame)
+  }, [map])
+  useMapEvents({ moveend: () => setView(viewOf(map)) })
 
-  const world = useQuery({ queryKey: ['basemap', 'world'], queryFn: loadWorldLayers, ...forever })
-  const us = useQuery({ queryKey: ['basemap', 'us-states'], queryFn: loadUsLayers, ...forever })
-  const counties = useQuery({
-    queryKey: ['basemap', 'us-counties'],
-    queryFn: loadCountyLayers,
-    enabled: zoom >= COUNTY_MIN_ZOOM,
-    ...forever,
+  const wanted = view ? cellsFor(view.zoom, view.bounds) : []
+  const cells = useQueries({
+    queries: wanted.map((cell) => ({
+      queryKey: ['basemap', cell.tileset.id, cell.key],
+      queryFn: () => loadCell(cell),
+      staleTime: Infinity,
+      gcTime: 10 * 60_000,
+      retry: 1,
+    })),
   })
+  const loaded = wanted.flatMap((cell, i) => (cells[i].data ? [{ id: cellId(cell), shapes: cells[i].data }] : []))
+  const drawn = view !== null && cells.every((c) => !c.isPending)
 
-  const drawn = Boolean(world.data && us.data)
+  // Until the cells of a new view are in, the last view drawn whole stays under them (its cells
+  // are still in the query cache), so zooming across a level of detail does not flash bare sea.
+  const queryClient = useQueryClient()
+  const [settled, setSettled] = useState<View | null>(null)
+  useEffect(() => {
+    if (drawn) setSettled(view)
+  }, [drawn, view])
+  const held =
+    drawn || !settled
+      ? []
+      : cellsFor(settled.zoom, settled.bounds).flatMap((cell) => {
+          const shapes = queryClient.getQueryData<CellShapes>(['basemap', cell.tileset.id, cell.key])
+          return shapes && !loaded.some((c) => c.id === cellId(cell)) ? [{ id: cellId(cell), shapes }] : []
+        })
+  const shown = [...held, ...loaded]
+
   useEffect(() => {
     onReady(drawn)
   }, [drawn, onReady])
@@ -139,17 +183,23 @@ function OfflineBasemap({ onReady }: { onReady: (ready: boolean) => void }) {
   return (
     <>
       {/* Below markers and overlays, where tiles would sit. */}
-      <Pane name="basemap" style={{ zIndex: 200 }}>
-        {world.data && (
-          <>
-            <GeoJSON data={world.data.land} style={landStyle} interactive={false} attribution={OFFLINE_ATTRIBUTION} />
-            <GeoJSON data={world.data.borders} style={borderStyle} interactive={false} />
-          </>
-        )}
-        {us.data && <GeoJSON data={us.data.states} style={stateStyle} interactive={false} />}
-        {counties.data && zoom >= COUNTY_MIN_ZOOM && <GeoJSON data={counties.data.counties} style={countyStyle} interactive={false} />}
-      </Pane>
-      {(world.isError || us.isError) && (
+      {LAYER_ORDER.map((layer, i) => (
+        <Pane key={layer} name={`basemap-${layer}`} style={{ zIndex: 200 + i }}>
+          {shown.map(
+            (cell) =>
+              cell.shapes[layer] && (
+                <GeoJSON
+                  key={cell.id}
+                  data={cell.shapes[layer]}
+                  style={LAYER_STYLES[layer] ?? OTHER_LAYER}
+                  interactive={false}
+                  attribution={OFFLINE_ATTRIBUTION}
+                />
+              ),
+          )}
+        </Pane>
+      ))}
+      {cells.some((c) => c.isError) && (
         <p
           role="status"
           className="absolute inset-x-3 bottom-3 z-[1000] rounded-control border border-ember-300 bg-ember-100 px-3 py-2 text-sm text-ember-700"

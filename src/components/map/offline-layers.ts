@@ -1,62 +1,42 @@
-import type { Feature, FeatureCollection, MultiLineString } from 'geojson'
-import { feature, mesh } from 'topojson-client'
-import type { GeometryCollection, GeometryObject, Topology } from 'topojson-specification'
-import countiesUrl from 'us-atlas/counties-10m.json?url'
-import statesUrl from 'us-atlas/states-10m.json?url'
-import countriesUrl from 'world-atlas/countries-50m.json?url'
+import type { GeoJsonObject } from 'geojson'
+import { feature } from 'topojson-client'
+import type { GeometryObject, Topology } from 'topojson-specification'
+import index from 'virtual:conewright-basemap'
+import { cellsCovering, cellUrl, presenceTest, type Bounds, type BasemapTileset } from './basemap-grid'
 
-// The offline basemap's shapes: TopoJSON files shipped by world-atlas (Natural Earth, 1:50m) and
-// us-atlas (U.S. Census Bureau cartographic boundaries, 1:10m), served as static files by our own
-// server and fetched only when a map is shown, so they stay out of the JavaScript bundle.
+// The offline basemap's files: cells of TopoJSON written by the build (build/basemap) under our own
+// origin, cached for good (their folder is named by their content) and sent compressed. A map asks
+// only for the cells of the tilesets drawn at its zoom that touch what it shows.
 
-export interface WorldLayers {
-  land: Feature | FeatureCollection
-  borders: MultiLineString
+export const basemapIndex = index
+
+/** One cell's shapes as GeoJSON, by layer id. */
+export type CellShapes = Record<string, GeoJsonObject>
+
+export interface WantedCell {
+  tileset: BasemapTileset
+  key: string
 }
 
-export interface UsLayers {
-  states: MultiLineString
+const presence = new Map(
+  index.tilesets.map((t) => [t.id, t.present === null || t.cellDegrees === null ? () => true : presenceTest(t.present, t.cellDegrees)]),
+)
+
+/** The cells a map at this zoom showing these bounds draws: open sea has no file and is not asked for. */
+export function cellsFor(zoom: number, bounds: Bounds): WantedCell[] {
+  return index.tilesets
+    .filter((t) => zoom >= t.minZoom && zoom <= t.maxZoom)
+    .flatMap((tileset) =>
+      cellsCovering(bounds, tileset)
+        .filter((key) => presence.get(tileset.id)!(key))
+        .map((key) => ({ tileset, key })),
+    )
 }
 
-export interface CountyLayers {
-  counties: MultiLineString
-}
-
-async function fetchTopology<T extends Record<string, GeometryObject>>(url: string): Promise<Topology<T>> {
+export async function loadCell({ tileset, key }: WantedCell): Promise<CellShapes> {
+  const url = cellUrl(index, tileset, key)
   const res = await fetch(url, { credentials: 'same-origin' })
   if (!res.ok) throw new Error(`The map outline at ${url} answered ${res.status}.`)
-  return (await res.json()) as Topology<T>
+  const topology = (await res.json()) as Topology<Record<string, GeometryObject>>
+  return Object.fromEntries(Object.entries(topology.objects).map(([layer, object]) => [layer, feature(topology, object) as GeoJsonObject]))
 }
-
-/** Each file is fetched and converted once per page load, whatever number of maps are shown. */
-function once<T>(load: () => Promise<T>): () => Promise<T> {
-  let pending: Promise<T> | null = null
-  return () => {
-    pending ??= load().catch((error: unknown) => {
-      pending = null
-      throw error
-    })
-    return pending
-  }
-}
-
-export const loadWorldLayers = once(async (): Promise<WorldLayers> => {
-  const world = await fetchTopology<{ land: GeometryCollection; countries: GeometryCollection }>(countriesUrl)
-  return {
-    land: feature(world, world.objects.land),
-    // Arcs shared by two countries are borders; the coast is the land's own outline.
-    borders: mesh(world, world.objects.countries, (a, b) => a !== b),
-  }
-})
-
-export const loadUsLayers = once(async (): Promise<UsLayers> => {
-  const us = await fetchTopology<{ states: GeometryCollection }>(statesUrl)
-  return { states: mesh(us, us.objects.states, (a, b) => a !== b) }
-})
-
-export const loadCountyLayers = once(async (): Promise<CountyLayers> => {
-  const us = await fetchTopology<{ counties: GeometryCollection }>(countiesUrl)
-  // County FIPS codes start with the state's two digits; lines between states are drawn already.
-  const stateOf = (county: GeometryObject) => String(county.id).slice(0, 2)
-  return { counties: mesh(us, us.objects.counties, (a, b) => a !== b && stateOf(a) === stateOf(b)) }
-})

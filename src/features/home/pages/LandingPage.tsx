@@ -2,6 +2,7 @@ import { Navigate } from 'react-router-dom'
 import { ButtonLink } from '../../../components/ui/Button'
 import { Card } from '../../../components/ui/Card'
 import { Spinner } from '../../../components/ui/Spinner'
+import { drawnAhead } from '../../../lib/prerendered'
 import { useMe } from '../../auth/api/auth'
 import { homePath } from '../../auth/homePath'
 
@@ -13,8 +14,9 @@ const STEPS = [
 
 export function LandingPage() {
   const me = useMe()
-  if (me.isPending) return <Spinner />
   if (me.data) return <Navigate to={homePath(me.data)} replace />
+  // A visitor's landing page comes drawn in the HTML; it stays while the check runs.
+  if (me.isPending && !drawnAhead()) return <Spinner />
   return (
     <div className="space-y-10">
       <section className="grid items-center gap-8 md:grid-cols-2">

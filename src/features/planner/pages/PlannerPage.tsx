@@ -1,10 +1,11 @@
-import { useState } from 'react'
+import { lazy, Suspense, useState } from 'react'
 import { useForm } from 'react-hook-form'
 import { checkWare, type WareCheck } from '../../../../shared/firing/check'
 import { quoteRequest, type Quote } from '../../../../shared/firing/quote'
 import { SafetyNote } from '../../../components/SafetyNote'
 import { Alert } from '../../../components/ui/Alert'
 import { Card, PageHeader } from '../../../components/ui/Card'
+import { Spinner } from '../../../components/ui/Spinner'
 import { CheckCard, VerdictBar } from '../../../components/ware/CheckCard'
 import { ConeSuggestions } from '../../../components/ware/ConeField'
 import { PieceRows } from '../../../components/ware/PieceRows'
@@ -13,7 +14,6 @@ import { scaleOf, type TemperatureScale, type UnitSystem } from '../../../lib/un
 import { useMe } from '../../auth/api/auth'
 import { useServerWareCheck, type WareCheckRequest } from '../api/wareChecks'
 import { ChoiceSwitch } from '../components/ChoiceSwitch'
-import { FiringCurveChart } from '../components/FiringCurveChart'
 import { FiringFields } from '../components/FiringFields'
 import { FitSummary } from '../components/FitSummary'
 import { KilnFields } from '../components/KilnFields'
@@ -50,6 +50,9 @@ function runCheck(input: CheckInput, priceList: WareCheckRequest['priceList'] | 
     return error instanceof Error ? error.message : String(error)
   }
 }
+
+// The chart library is the planner's heaviest part and is only drawn once a check has a schedule.
+const FiringCurveChart = lazy(() => import('../components/FiringCurveChart').then((m) => ({ default: m.FiringCurveChart })))
 
 export function PlannerPage() {
   const me = useMe()
@@ -116,7 +119,9 @@ export function PlannerPage() {
               <h2 className="mb-3 text-lg font-semibold text-slip-900">Fit and timing</h2>
               <FitSummary check={result.check} kiln={parsed.input!.kiln} units={units} scale={scale} />
               <div className="mt-5">
-                <FiringCurveChart schedule={result.check.schedule} scale={scale} onScaleChange={setChosenScale} />
+                <Suspense fallback={<Spinner label="Drawing the firing curve…" />}>
+                  <FiringCurveChart schedule={result.check.schedule} scale={scale} onScaleChange={setChosenScale} />
+                </Suspense>
               </div>
             </Card>
           )}

@@ -1,10 +1,11 @@
 import L, { type Map as LeafletMap } from 'leaflet'
-import { useEffect, useRef, useState } from 'react'
+import { useCallback, useEffect, useRef, useState } from 'react'
 import { Circle } from 'react-leaflet'
-import type { SearchHit, SearchResponse } from '../../../../shared/schemas/search'
+import type { SearchResponse } from '../../../../shared/schemas/search'
 import { Basemap, type LatLngPair } from '../../../components/map/Basemap'
 import { ClusteredMarkers, StudioMarker } from '../../../components/map/markers'
 import { Button } from '../../../components/ui/Button'
+import type { AreaSearch, MapFit, MapStudio } from '../mapStudios'
 import { whereKey } from '../searchState'
 
 /** Where the map opens before the first answer: the lower 48 states. */
@@ -13,36 +14,6 @@ const FIT_PADDING: [number, number] = [36, 36]
 /** Close enough to see the studios apart, far enough to see what is around them. */
 const FIT_MAX_ZOOM = 12
 const MAX_RADIUS_KM = 2000
-
-export interface MapStudio {
-  id: string
-  name: string
-  position: LatLngPair
-}
-
-/** One pin per studio: a studio's firings all stand at the same place. */
-export function studiosOf(hits: readonly SearchHit[]): MapStudio[] {
-  const seen = new Map<string, MapStudio>()
-  for (const hit of hits) {
-    if (!seen.has(hit.studio.id))
-      seen.set(hit.studio.id, { id: hit.studio.id, name: hit.studio.name, position: [hit.studio.lat, hit.studio.lng] })
-  }
-  return [...seen.values()]
-}
-
-/** The view a set of results is shown in: the searched place and the studios found around it. */
-export interface MapFit {
-  /** Changes when the map should go somewhere else (a new place or distance), not for a new cone: `whereKey`. */
-  key: string
-  origin: SearchResponse['origin']
-  radiusKm: number | null
-  studios: MapStudio[]
-}
-
-export interface AreaSearch {
-  near: string
-  radiusKm: string
-}
 
 const areaKey = (area: AreaSearch) => whereKey({ near: area.near, radiusKm: area.radiusKm })
 
@@ -74,6 +45,12 @@ export function ResultsMap({
   className = '',
 }: ResultsMapProps) {
   const mapRef = useRef<LeafletMap | null>(null)
+  // The map exists only after its first render; a fit that is already there then waits for it.
+  const [map, setMap] = useState<LeafletMap | null>(null)
+  const attachMap = useCallback((created: LeafletMap | null) => {
+    mapRef.current = created
+    setMap(created)
+  }, [])
   const moving = useRef(false)
   const fittedKey = useRef<string | null>(null)
   const keepViewFor = useRef<string | null>(null)
@@ -91,7 +68,7 @@ export function ResultsMap({
   }
 
   useEffect(() => {
-    if (!fit || fit.key === fittedKey.current) return
+    if (!map || !fit || fit.key === fittedKey.current) return
     fittedKey.current = fit.key
     setMovedByHand(false)
     // The potter asked for the area they were looking at: it stays in view as they left it.
@@ -109,7 +86,7 @@ export function ResultsMap({
       if (points.length === 1 && !(fit.origin && fit.studios.length === 0 && fit.radiusKm)) map.setView(points[0], 11, { animate: false })
       else map.fitBounds(bounds, { padding: FIT_PADDING, maxZoom: FIT_MAX_ZOOM, animate: false })
     })
-  }, [fit])
+  }, [fit, map])
 
   useEffect(() => {
     const studio = studios.find((s) => s.id === selectedStudioId)
@@ -134,7 +111,7 @@ export function ResultsMap({
   return (
     <div className={`relative ${className}`}>
       <Basemap
-        ref={mapRef}
+        ref={attachMap}
         center={START.center}
         zoom={START.zoom}
         label="Map of the firings found"

@@ -1,17 +1,17 @@
-import { useCallback, useMemo, useRef, useState } from 'react'
+import { lazy, Suspense, useCallback, useEffect, useMemo, useRef, useState } from 'react'
 import { useSearchParams } from 'react-router-dom'
 import type { SearchHit } from '../../../../shared/schemas/search'
 import { Alert } from '../../../components/ui/Alert'
 import { Button } from '../../../components/ui/Button'
-import { PageHeader } from '../../../components/ui/Card'
+import { MapPlaceholder } from '../../../components/map/MapPlaceholder'
 import { ApiError, type FieldErrors } from '../../../lib/api'
 import { useMe } from '../../auth/api/auth'
 import { useFiringSearch } from '../api/search'
 import { NoResults } from '../components/NoResults'
 import { Pagination } from '../components/Pagination'
 import { ResultList, ResultSkeletons } from '../components/ResultList'
-import { ResultsMap, studiosOf, type AreaSearch, type MapFit } from '../components/ResultsMap'
 import { SearchFilters } from '../components/SearchFilters'
+import { studiosOf, type AreaSearch, type MapFit } from '../mapStudios'
 import {
   DEFAULT_RADIUS_KM,
   hasOrigin,
@@ -24,6 +24,11 @@ import {
 } from '../searchState'
 import type { UnitSystem } from '../units'
 import { readerZone } from '../words'
+
+// The map (Leaflet and the basemap) arrives after the filters and the list, which people read first.
+const loadResultsMap = () => import('../components/ResultsMap')
+const ResultsMap = lazy(() => loadResultsMap().then((m) => ({ default: m.ResultsMap })))
+const MAP_CLASS = 'h-72 sm:h-96 lg:sticky lg:top-4 lg:order-2 lg:h-[calc(100vh-2rem)] lg:max-h-[44rem]'
 
 /** Messages the filters show beside themselves; anything else is said above the results. */
 const FILTER_FIELDS = new Set([
@@ -93,14 +98,16 @@ export function FindFiringPage() {
   }
 
   const busy = search.isFetching && (search.isPlaceholderData || search.isPending)
+  // The map opens where the first answer is, so it never fetches the basemap of a view it leaves at
+  // once; its code is fetched meanwhile.
+  const mapWaits = problems === null && search.isPending
+  useEffect(() => {
+    void loadResultsMap()
+  }, [])
   const error = problems ? null : search.error
 
   return (
     <>
-      <PageHeader
-        title="Find a firing"
-        lead="Open firings that can take your ware: the right cone and atmosphere, a drop-off date that suits, room for your piece."
-      />
       <SearchFilters
         state={state}
         units={units}
@@ -119,16 +126,22 @@ export function FindFiringPage() {
       )}
 
       <div className="mt-4 grid gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,1fr)] lg:items-start">
-        <ResultsMap
-          className="h-72 sm:h-96 lg:sticky lg:top-4 lg:order-2 lg:h-[calc(100vh-2rem)] lg:max-h-[44rem]"
-          studios={studios}
-          selectedStudioId={selected?.studioId ?? null}
-          onSelectStudio={selectStudio}
-          fit={fit}
-          origin={response?.origin ?? null}
-          radiusKm={response?.origin ? radiusKm : null}
-          onSearchArea={onSearchArea}
-        />
+        <Suspense fallback={<MapPlaceholder className={`rounded-card border border-slip-200 ${MAP_CLASS}`} />}>
+          {mapWaits ? (
+            <MapPlaceholder className={`rounded-card border border-slip-200 ${MAP_CLASS}`} />
+          ) : (
+            <ResultsMap
+              className={MAP_CLASS}
+              studios={studios}
+              selectedStudioId={selected?.studioId ?? null}
+              onSelectStudio={selectStudio}
+              fit={fit}
+              origin={response?.origin ?? null}
+              radiusKm={response?.origin ? radiusKm : null}
+              onSearchArea={onSearchArea}
+            />
+          )}
+        </Suspense>
 
         <section aria-labelledby="results-heading" className="min-w-0 space-y-3 lg:order-1" aria-busy={busy}>
           <div className="flex flex-wrap items-baseline justify-between gap-2">

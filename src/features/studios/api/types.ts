@@ -20,24 +20,8 @@ export function isMemberView(studio: Studio): studio is MemberStudio {
   return 'myRole' in studio && (studio as MemberStudio).myRole !== null
 }
 
-export interface CrewMember {
-  id: string
-  userId: string
-  displayName: string
-  email: string
-  role: StudioRole
-  since: string
-}
-
-export interface CrewInvite {
-  id: string
-  email: string
-  expiresAt: string
-}
-
-export interface InviteDetails {
-  studioId: string
-  studioName: string
-  email: string
-  expiresAt: string
-}
+export type {
+  CrewMemberJson as CrewMember,
+  CrewInviteJson as CrewInvite,
+  InviteDetailsJson as InviteDetails,
+} from '../../../../shared/api/studios'

@@ -1,9 +1,8 @@
-import { useState } from 'react'
+import { lazy, Suspense, useState } from 'react'
 import { useParams } from 'react-router-dom'
 import { formatDateTime, formatMoney } from '../../../../shared/dates'
 import { takesRequests } from '../../../../shared/workflow/firing-status'
-import { Basemap } from '../../../components/map/Basemap'
-import { StudioMarker } from '../../../components/map/markers'
+import { MapPlaceholder } from '../../../components/map/MapPlaceholder'
 import { Alert } from '../../../components/ui/Alert'
 import { Badge } from '../../../components/ui/Badge'
 import { ButtonLink } from '../../../components/ui/Button'
@@ -22,6 +21,9 @@ import { RatingSummary, StudioRatings } from '../components/StudioRatings'
 import type { UnitSystem } from '../../../lib/units'
 import { kilnLimitsInWords, policiesInWords } from '../../../lib/firingWords'
 import { zoneAbbreviation } from '../zonedTime'
+
+// Leaflet and the basemap come after the studio's own details.
+const PlaceMap = lazy(() => import('../../../components/map/PlaceMap').then((m) => ({ default: m.PlaceMap })))
 
 /** /studios/:id: what a potter needs to choose this studio: kilns, coming firings, policies, prices, place. */
 export function PublicStudioPage() {
@@ -105,14 +107,15 @@ function StudioProfile({ studio }: { studio: Studio }) {
         </section>
 
         <aside className="space-y-4">
-          <Basemap
-            center={[studio.lat, studio.lng]}
-            zoom={12}
-            className="h-64 rounded-card border border-slip-200"
-            label={`Where ${studio.name} is`}
-          >
-            <StudioMarker position={[studio.lat, studio.lng]} title={studio.name} label={studio.name} selected />
-          </Basemap>
+          <Suspense fallback={<MapPlaceholder className="h-64 rounded-card border border-slip-200" label={`Where ${studio.name} is`} />}>
+            <PlaceMap
+              position={[studio.lat, studio.lng]}
+              title={studio.name}
+              zoom={12}
+              className="h-64 rounded-card border border-slip-200"
+              label={`Where ${studio.name} is`}
+            />
+          </Suspense>
           <Card as="div">
             <h2 className="font-semibold">Drop-off</h2>
             <p className="mt-1 text-sm text-slip-700">{studio.dropOffHours || 'Hours are given when your request is accepted.'}</p>

@@ -1,10 +1,10 @@
 import { zodResolver } from '@hookform/resolvers/zod'
-import { useMemo, useState } from 'react'
+import { lazy, Suspense, useMemo, useState } from 'react'
 import { useForm, useWatch, type FieldNamesMarkedBoolean } from 'react-hook-form'
 import { useParams } from 'react-router-dom'
 import type { z } from 'zod'
 import { CLAY_BODIES, studioPatchSchema, type StudioPatchBody } from '../../../../shared/schemas/studios'
-import { PinPicker } from '../../../components/map/PinPicker'
+import { MapPlaceholder } from '../../../components/map/MapPlaceholder'
 import { Alert } from '../../../components/ui/Alert'
 import { Button, ButtonLink } from '../../../components/ui/Button'
 import { Card, PageHeader } from '../../../components/ui/Card'
@@ -58,6 +58,9 @@ function changedFields(values: StudioOutput, dirty: Partial<FieldNamesMarkedBool
   if (dirty.lat || dirty.lng) Object.assign(body, { lat: values.lat, lng: values.lng })
   return body as StudioPatchBody
 }
+
+// The pin map (Leaflet) comes after the form, which is what most edits are about.
+const PinPicker = lazy(() => import('../../../components/map/PinPicker').then((m) => ({ default: m.PinPicker })))
 
 export function StudioEditorPage() {
   const { id = '' } = useParams()
@@ -188,13 +191,15 @@ function StudioEditor({ studio }: { studio: MemberStudio }) {
             Now placed in {[studio.city, studio.region, studio.country].filter(Boolean).join(', ')}.
           </p>
           <div className="mt-4">
-            <PinPicker
-              value={{ lat: lat ?? studio.lat, lng: lng ?? studio.lng }}
-              onChange={(p) => {
-                setValue('lat', p.lat, { shouldDirty: true })
-                setValue('lng', p.lng, { shouldDirty: true })
-              }}
-            />
+            <Suspense fallback={<MapPlaceholder className="h-72 rounded-card border border-slip-200" label="Studio location" />}>
+              <PinPicker
+                value={{ lat: lat ?? studio.lat, lng: lng ?? studio.lng }}
+                onChange={(p) => {
+                  setValue('lat', p.lat, { shouldDirty: true })
+                  setValue('lng', p.lng, { shouldDirty: true })
+                }}
+              />
+            </Suspense>
             {errors.lat && (
               <p className="mt-1 text-xs font-medium text-danger-700" role="alert">
                 {errors.lat.message}
