@@ -57,7 +57,7 @@ describe('capacity is never oversold', () => {
     // Asked again once the race is over, a refused one is still refused: the load is full.
     const retry = await owner.session.post(`/api/requests/${requests[replies.findIndex((r) => r.status === 409)].id}/accept`)
     expect(retry.status).toBe(409)
-  }, 120_000)
+  }, 300_000)
 })
 
 describe('the deposit', () => {

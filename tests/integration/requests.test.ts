@@ -27,7 +27,7 @@ beforeAll(async () => {
   await app.ctx.db.getRepository(StudioMember).save({ studioId: ids.studioId, userId: crew.id, role: 'crew' })
   const other = await publishedStudio((await createPerson(app, 'host', 'Far Host')).session, 'Elsewhere Studio')
   await app.ctx.db.getRepository(StudioMember).save({ studioId: other.studioId, userId: otherCrew.id, role: 'crew' })
-}, 60_000)
+}, 180_000)
 
 afterAll(async () => {
   await app?.close()
