@@ -98,6 +98,25 @@ export default tseslint.config(
     files: ['src/app/**/*.{ts,tsx}'],
     rules: restrict([{ regex: '^(\\.\\./)+(server|search)/', message: 'The client talks to the server over HTTP only.' }]),
   },
+  // Text reaches the API through shared/schemas/text.ts only, which refuses NUL and broken surrogates.
+  // payments.ts and payouts.ts read events already signed by Stripe (their own shape checks), not text from people.
+  {
+    files: ['shared/**/*.ts', 'server/**/*.ts'],
+    ignores: ['server/services/payments.ts', 'server/services/payouts.ts'],
+    rules: {
+      'no-restricted-syntax': [
+        'error',
+        {
+          selector: "CallExpression[callee.object.name='z'][callee.property.name='string']",
+          message: 'Use text() from shared/schemas/text.ts: it refuses NUL and unpaired surrogates.',
+        },
+        {
+          selector: "CallExpression[callee.object.object.name='z'][callee.object.property.name='coerce'][callee.property.name='string']",
+          message: 'Use text() from shared/schemas/text.ts: it refuses NUL and unpaired surrogates.',
+        },
+      ],
+    },
+  },
   {
     files: ['tests/**/*.ts', 'bench/**/*.ts', 'scripts/**/*.mjs'],
     rules: { '@typescript-eslint/no-explicit-any': 'off' },

@@ -318,7 +318,11 @@ async function main() {
     const pages: PageSpec[] = [
       { name: 'floor', path: '/floor.html', ready: ['h1'] },
       { name: 'landing', path: '/', ready: ['h1'] },
-      { name: 'search', path: '/find?place=Portland%2C%20OR', ready: ['[data-testid="result-total"]', '[data-basemap-ready="true"]'] },
+      {
+        name: 'search',
+        path: '/find?place=Portland%2C%20OR&view=map',
+        ready: ['[data-testid="result-total"]', '[data-basemap-ready="true"]'],
+      },
       { name: 'studio', path: `/studios/${studioId}`, ready: ['h1', '[data-basemap-ready="true"]'] },
       { name: 'request', path: `/requests/${requestId}`, ready: ['h1'], signedIn: true },
     ]

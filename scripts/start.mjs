@@ -146,7 +146,12 @@ async function main() {
       'the local stand-ins',
       process.execPath,
       [...tsx, 'standins/main.ts'],
-      { APP_WEBHOOK_URL: `http://127.0.0.1:${apiPort}/api/webhooks/stripe` },
+      {
+        APP_WEBHOOK_URL: `http://127.0.0.1:${apiPort}/api/webhooks/stripe`,
+        APP_CONNECT_WEBHOOK_URL: `http://127.0.0.1:${apiPort}/api/webhooks/stripe-connect`,
+        // The stand-in keeps its test-mode account between runs, as the database keeps the app's side.
+        STRIPE_STATE_FILE: env.STRIPE_STATE_FILE ?? path.join(repoRoot, 'var', 'stripe-standin.json'),
+      },
       { captureStandIns: true },
     )
     Object.assign(standInEnv, await standIns)

@@ -47,3 +47,19 @@ export function ensureFiringsIndex(config: EngineConfig): Promise<void> {
   }
   return pending
 }
+
+/** Forgets that the index was set up, so the next write creates it and applies its settings again. */
+export function forgetFiringsIndex(config: EngineConfig) {
+  ensured.delete(config.meiliHost)
+}
+
+/** When the engine's index was created, or null when the engine has no such index. Throws when unreachable. */
+export async function firingsIndexCreatedAt(config: EngineConfig): Promise<string | null> {
+  try {
+    const info = await searchClient(config).index(FIRINGS_INDEX).getRawInfo()
+    return String(info.createdAt)
+  } catch (error) {
+    if ((error as { cause?: { code?: string } }).cause?.code === 'index_not_found') return null
+    throw error
+  }
+}

@@ -5,7 +5,7 @@ import { shelfFootprint, usableHeightMm, type Atmosphere, type FiringKind, type 
 import type { LoadRoom } from '../shared/firing/load'
 import { coneIndex } from '../shared/firing/cones'
 import { EXAMPLE_MUG } from '../shared/firing/examples'
-import { quoteRequest, type PriceList } from '../shared/firing/quote'
+import { quoteRequest, type PriceList, type QuoteKiln } from '../shared/firing/quote'
 
 export interface FiringDocument {
   id: string
@@ -43,10 +43,15 @@ export interface FiringDocument {
   priceExampleCents: number | null
   priceExampleLabel: string | null
   currency: string
+  /** The studio's ranking score from its published answers (shared/reviews fireAgainScore). */
   ratingScore: number | null
-  ratingMean: number | null
-  ratingCount: number
+  /** Of the potters whose answers are published, how many would fire there again. */
+  reviewFireAgain: number
+  reviewCount: number
   notes: string
+  /** The kiln's price list and what of the kiln a quote reads, so a search can price the potter's own piece. */
+  priceList?: PriceList | null
+  quoteKiln?: QuoteKiln
   _geo: { lat: number; lng: number }
 }
 
@@ -70,10 +75,10 @@ export interface FiringFacts {
   /** What the firing's load plan can still take. */
   room: LoadRoom
   priceList: PriceList | null
-  rating: { score: number; mean: number; count: number } | null
+  reviews: { score: number; fireAgain: number; count: number } | null
 }
 
-export function firingDocument({ studio, kiln, firing, room, priceList, rating }: FiringFacts): FiringDocument {
+export function firingDocument({ studio, kiln, firing, room, priceList, reviews }: FiringFacts): FiringDocument {
   const spec = kiln.spec
   const shelf = shelfFootprint(spec)
   const example = priceList
@@ -118,10 +123,12 @@ export function firingDocument({ studio, kiln, firing, room, priceList, rating }
     priceExampleCents: example?.totalCents ?? null,
     priceExampleLabel: example ? EXAMPLE_MUG.label! : null,
     currency: priceList?.currency ?? studio.currency,
-    ratingScore: rating?.score ?? null,
-    ratingMean: rating?.mean ?? null,
-    ratingCount: rating?.count ?? 0,
+    ratingScore: reviews?.score ?? null,
+    reviewFireAgain: reviews?.fireAgain ?? 0,
+    reviewCount: reviews?.count ?? 0,
     notes: firing.notes,
+    priceList,
+    quoteKiln: { interior: spec.interior, controlledCooling: spec.controlledCooling, preheatHold: spec.preheatHold },
     _geo: { lat: studio.lat, lng: studio.lng },
   }
 }

@@ -1,16 +1,17 @@
 import connectPgSimple from 'connect-pg-simple'
-import { csrfSync } from 'csrf-sync'
 import express, { type Express } from 'express'
 import session from 'express-session'
 import helmet from 'helmet'
 import { existsSync } from 'node:fs'
 import path from 'node:path'
 import type { PassportStatic } from 'passport'
+import { csrfTokens } from './auth/csrf'
 import { createPassport } from './auth/passport'
-import type { AppContext } from './context'
+import { outageLog, type AppContext } from './context'
 import { compressApi, revalidateApiReads } from './http/api-responses'
 import { clientFiles } from './http/client-files'
 import { errorHandler, notFoundApi } from './http/errors'
+import { monitorSearchEngine } from './services/search'
 import { poolOf } from './jobs/worker'
 import { adminRouter } from './routes/admin'
 import { authRouter } from './routes/auth'
@@ -22,11 +23,12 @@ import { metaRouter } from './routes/meta'
 import { photosRouter } from './routes/photos'
 import { firingLogsRouter } from './routes/firing-logs'
 import { noticesRouter } from './routes/notices'
+import { payoutsRouter } from './routes/payouts'
 import { pickupRouter } from './routes/pickup'
 import { piecesRouter } from './routes/pieces'
 import { loadPlansRouter } from './routes/load-plans'
 import { placesRouter } from './routes/places'
-import { ratingsRouter } from './routes/ratings'
+import { reviewsRouter } from './routes/reviews'
 import { requestsRouter } from './routes/requests'
 import { searchRouter } from './routes/search'
 import { studiosRouter } from './routes/studios'
@@ -37,7 +39,7 @@ const SESSION_COOKIE = 'cw.sid'
 
 export interface App {
   app: Express
-  /** Stops timers the app owns (the session pruner); the data source is the caller's. */
+  /** Stops timers the app owns (the session pruner, the search monitor); the data source is the caller's. */
   close(): void
 }
 
@@ -77,7 +79,9 @@ export function createApp(ctx: AppContext): App {
   app.use('/api', express.json({ limit: '1mb' }))
 
   const PgStore = connectPgSimple(session)
-  const store = new PgStore({ pool: poolOf(ctx), tableName: 'session', createTableIfMissing: false })
+  // Expired rows are deleted when the app starts and about every ten minutes after.
+  const store = new PgStore({ pool: poolOf(ctx), tableName: 'session', createTableIfMissing: false, pruneSessionInterval: 600 })
+  if (ctx.db.isInitialized) store.pruneSessions()
   app.use(
     '/api',
     session({
@@ -85,6 +89,7 @@ export function createApp(ctx: AppContext): App {
       secret: config.sessionSecret,
       store,
       resave: false,
+      // A row is written only once there is something to keep (a signed-in user); visitors get none.
       saveUninitialized: false,
       rolling: true,
       cookie: {
@@ -100,24 +105,15 @@ export function createApp(ctx: AppContext): App {
   const passport = createPassport(ctx) as unknown as PassportStatic
   app.use('/api', passport.initialize(), passport.session())
 
-  const { csrfSynchronisedProtection, generateToken } = csrfSync({
-    getTokenFromRequest: (req) => req.headers['x-csrf-token'] as string | undefined,
-  })
-  const csrfToken: express.RequestHandler = (req, res) => {
-    res.json({ token: generateToken(req) })
-  }
-  // csrf-sync alone lets a request with no session and no token through (undefined equals undefined),
-  // which would allow login CSRF; every change must carry a token.
-  app.use('/api', (req, res, next) => {
-    if (['GET', 'HEAD', 'OPTIONS'].includes(req.method)) return next()
-    if (!req.get('x-csrf-token')) return next(Object.assign(new Error('missing csrf token'), { code: 'EBADCSRFTOKEN' }))
-    csrfSynchronisedProtection(req, res, next)
-  })
+  // Every change must carry a token; fetching one stores nothing (see auth/csrf.ts).
+  const csrf = csrfTokens(config)
+  app.use('/api', csrf.protect)
 
-  app.use('/api/auth', authRouter(ctx, passport, csrfToken))
+  app.use('/api/auth', authRouter(ctx, passport, csrf.issue))
   app.use('/api', wareChecksRouter(ctx))
 
   app.use('/api', studiosRouter(ctx))
+  app.use('/api', payoutsRouter(ctx))
   app.use('/api', kilnsRouter(ctx))
   app.use('/api', firingsRouter(ctx))
   app.use('/api', invitesRouter(ctx))
@@ -129,7 +125,7 @@ export function createApp(ctx: AppContext): App {
   app.use('/api', firingLogsRouter(ctx))
   app.use('/api', noticesRouter(ctx))
   app.use('/api', photosRouter(ctx))
-  app.use('/api', ratingsRouter(ctx))
+  app.use('/api', reviewsRouter(ctx))
   app.use('/api', adminRouter(ctx))
 
   app.use('/api', notFoundApi)
@@ -138,7 +134,17 @@ export function createApp(ctx: AppContext): App {
     app.use(clientFiles(config.clientDir, { sessionCookie: SESSION_COOKIE }))
   }
 
-  app.use(errorHandler(ctx.log.error))
+  // One log line per database outage; the first connection that succeeds afterwards closes it.
+  const database = outageLog(ctx.log, 'the database')
+  poolOf(ctx)?.on('connect', () => database.recovered())
+  app.use(errorHandler(ctx.log.error, { databaseDown: (error) => database.failed(error) }))
 
-  return { app, close: () => store.close() }
+  const stopMonitor = monitorSearchEngine(ctx, config.searchProbeMs)
+  return {
+    app,
+    close: () => {
+      stopMonitor()
+      void store.close()
+    },
+  }
 }

@@ -2,9 +2,10 @@
 // its environment; `npm start` sets that environment for the local stand-ins.
 import type { Server } from 'node:http'
 import { createApp } from './app'
-import { loadConfig } from './config'
+import { isLocalDevelopment, loadConfig, secretProblems } from './config'
 import { consoleLogger, type AppContext } from './context'
 import { createDataSource } from './db/data-source'
+import { seedDemoPayouts } from './db/demo-payouts'
 import { seedDemo } from './db/seed'
 import { migrateQueue, startWorker } from './jobs/worker'
 import { warmGazetteer } from './services/gazetteer'
@@ -13,6 +14,13 @@ import { engineRebuildStarted } from './services/search'
 
 const log = consoleLogger()
 const config = loadConfig()
+// Secrets with public defaults would let anyone sign a session cookie or a webhook: refuse to serve.
+const problems = secretProblems(config)
+if (problems.length) {
+  for (const problem of problems) log.error(`refusing to start: ${problem}`)
+  process.exit(1)
+}
+if (isLocalDevelopment(config)) log.info('local development: secrets not set are the fixed local ones, fit only for this machine')
 const db = createDataSource(config.databaseUrl)
 await db.initialize()
 const ctx: AppContext = { config, db, log }
@@ -37,6 +45,13 @@ const worker = config.runWorker ? await startWorker(ctx) : null
 const { app, close } = createApp(ctx)
 const server: Server = app.listen(config.port, config.host, () => {
   log.info(`listening on http://${config.host}:${config.port} (public address ${config.publicUrl})`)
+  // The demo's card payments and the community studio's onboarding go through Stripe, whose
+  // webhooks need this server listening.
+  if (process.env.SEED_DEMO === 'true')
+    seedDemoPayouts(ctx).then(
+      () => log.info('demo payouts are in place'),
+      (error) => log.warn('the demo payouts could not be made', error),
+    )
 })
 
 let stopping = false

@@ -29,14 +29,23 @@ if (!process.env.MEILI_HOST) {
 if (!process.env.STRIPE_API_BASE) {
   const secretKey = process.env.STRIPE_SECRET_KEY ?? 'sk_test_conewright_local'
   const webhookSecret = process.env.STRIPE_WEBHOOK_SECRET ?? 'whsec_conewright_local'
+  const connectWebhookSecret = process.env.STRIPE_CONNECT_WEBHOOK_SECRET ?? 'whsec_conewright_local_connect'
   const stripe = await startStripeStandIn({
     port: int(process.env.STRIPE_PORT, 4612),
     secretKey,
     webhookSecret,
-    // The app's webhook endpoint, as a Stripe account's endpoint setting would name it.
+    connectWebhookSecret,
+    // The app's webhook endpoints, as a Stripe account's endpoint settings would name them.
     webhookUrl: process.env.APP_WEBHOOK_URL,
+    connectWebhookUrl: process.env.APP_CONNECT_WEBHOOK_URL,
+    stateFile: process.env.STRIPE_STATE_FILE,
   })
-  Object.assign(env, { STRIPE_API_BASE: stripe.url, STRIPE_SECRET_KEY: secretKey, STRIPE_WEBHOOK_SECRET: webhookSecret })
+  Object.assign(env, {
+    STRIPE_API_BASE: stripe.url,
+    STRIPE_SECRET_KEY: secretKey,
+    STRIPE_WEBHOOK_SECRET: webhookSecret,
+    STRIPE_CONNECT_WEBHOOK_SECRET: connectWebhookSecret,
+  })
   closers.push(() => stripe.close())
 }
 

@@ -1,10 +1,11 @@
 import { rateLimit, type Options, type Store, type ClientRateLimitInfo } from 'express-rate-limit'
 import type { Request } from 'express'
 import type { DataSource } from 'typeorm'
+import { clearCount, countHit } from '../services/counters'
 
 /**
  * A rate-limit store in PostgreSQL, so every server process behind a load balancer counts the same
- * hits. One upsert per request: the window restarts when it has run out.
+ * hits. One upsert per request (services/counters.ts): the window restarts when it has run out.
  */
 export class PostgresRateLimitStore implements Store {
   windowMs = 60_000
@@ -22,16 +23,8 @@ export class PostgresRateLimitStore implements Store {
   }
 
   async increment(key: string): Promise<ClientRateLimitInfo> {
-    const rows: { hits: number; reset_at: Date }[] = await this.db.query(
-      `INSERT INTO rate_limit_counters (key, hits, reset_at)
-       VALUES ($1, 1, now() + make_interval(secs => $2 / 1000.0))
-       ON CONFLICT (key) DO UPDATE SET
-         hits = CASE WHEN rate_limit_counters.reset_at <= now() THEN 1 ELSE rate_limit_counters.hits + 1 END,
-         reset_at = CASE WHEN rate_limit_counters.reset_at <= now() THEN EXCLUDED.reset_at ELSE rate_limit_counters.reset_at END
-       RETURNING hits, reset_at`,
-      [this.prefix + key, this.windowMs],
-    )
-    return { totalHits: rows[0].hits, resetTime: new Date(rows[0].reset_at) }
+    const { hits, resetAt } = await countHit(this.db, this.prefix + key, this.windowMs)
+    return { totalHits: hits, resetTime: resetAt }
   }
 
   async decrement(key: string) {
@@ -39,7 +32,7 @@ export class PostgresRateLimitStore implements Store {
   }
 
   async resetKey(key: string) {
-    await this.db.query(`DELETE FROM rate_limit_counters WHERE key = $1`, [this.prefix + key])
+    await clearCount(this.db, this.prefix + key)
   }
 }
 
@@ -50,12 +43,7 @@ const tooMany = {
 export function makeLimiter(
   db: DataSource,
   name: string,
-  {
-    limit,
-    windowMs,
-    key,
-    onlyFailures = false,
-  }: { limit: number; windowMs: number; key?: (req: Request) => string | null; onlyFailures?: boolean },
+  { limit, windowMs, key }: { limit: number; windowMs: number; key?: (req: Request) => string | null },
 ) {
   return rateLimit({
     windowMs,
@@ -64,14 +52,12 @@ export function makeLimiter(
     legacyHeaders: false,
     store: new PostgresRateLimitStore(db, `${name}:`),
     message: tooMany,
-    // Account lock-out counts failed attempts only, so the owner signing in is never the one locked out.
-    skipSuccessfulRequests: onlyFailures,
     // A per-account limiter counts nothing for a request that names no account.
     ...(key ? { skip: (req: Request) => key(req) === null, keyGenerator: (req: Request) => key(req) ?? '' } : {}),
   })
 }
 
-/** The account a sign-in or reset request is about, normalised as the schema normalises it. */
+/** The account a registration or reset request is about, as the schema (which runs first) normalised it. */
 export function accountKey(req: Request): string | null {
   const email = req.body?.email
   return typeof email === 'string' && email.trim() ? email.trim().toLowerCase() : null

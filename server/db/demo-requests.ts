@@ -1,7 +1,9 @@
 // Demo requests, so the board has life on first start: a firing nearly full whose ware is checked in
 // as tagged pieces and planned on its shelves, requests waiting for a decision, a paid deposit, a
-// draft, and a past firing collected and rated. Money in the demo was taken "at the counter", so
-// seeding never calls Stripe. Each is found again by the key its first timeline entry carries.
+// draft, and past firings picked up (one answered for by both sides). Money in flight was taken "at
+// the counter", so seeding never calls Stripe; the picked-up past firings were paid by card, and that
+// payment is made through Stripe (the local stand-in) after start, by demo-payouts.ts. Each request is
+// found again by the key its first timeline entry carries.
 import type { EntityManager } from 'typeorm'
 import type { Piece } from '../../shared/firing/check'
 import { itemApplies } from '../../shared/schemas/pieces'
@@ -11,11 +13,14 @@ import { Firing } from '../entities/Firing'
 import { FiringRequest } from '../entities/FiringRequest'
 import { Kiln } from '../entities/Kiln'
 import { LedgerEntry } from '../entities/LedgerEntry'
-import { Rating } from '../entities/Rating'
 import { RequestEvent } from '../entities/RequestEvent'
+import { RequestMessage } from '../entities/RequestMessage'
+import { Review } from '../entities/Review'
 import { Studio } from '../entities/Studio'
 import { insertPiece } from '../services/pieces'
+import { StudioMember } from '../entities/StudioMember'
 import { checkAgainstFiring } from '../services/requests'
+import { reviewWindowClosesAt } from '../../shared/reviews'
 
 const stoneware = { body: 'stoneware' as const, minCone: '5', maxCone: '10' }
 const glaze6 = { minCone: '5', maxCone: '7' }
@@ -77,6 +82,10 @@ interface DemoRequest {
   kiln: string
   /** Which firing of that kiln: the nth upcoming one (0 = next), or a past one made for the purpose. */
   firing: number | 'past'
+  /** A past firing's cone and atmosphere (cone 6 oxidation with a slow cool when left out). */
+  pastFiring?: { cone: string; atmosphere: Firing['atmosphere']; slowCool: boolean; notes: string }
+  /** Paid by card (after start, through Stripe) rather than at the counter. */
+  paidOnline?: boolean
   potter: string
   pieces: Piece[]
   notes: string
@@ -84,7 +93,13 @@ interface DemoRequest {
   /** Checked in piece by piece against the studio's checklist (every item passed), each piece tagged. */
   checkedInBy?: string
   acknowledged?: string[]
-  rating?: { stars: number; text: string; care: number; communication: number; results: number }
+  /** Both sides' answers after pickup, published: the potter's about the studio, the studio's about the potter. */
+  reviews?: {
+    potter: Pick<Review, 'loading' | 'resultsAsLogged' | 'turnaround' | 'communication' | 'fireAgain' | 'note'>
+    studio: Pick<Review, 'asDeclared' | 'cleanAndDry' | 'onTime' | 'note'>
+  }
+  /** A word from the studio in the thread after pickup. */
+  thanks?: string
 }
 
 const DEMO_REQUESTS: DemoRequest[] = [
@@ -160,15 +175,36 @@ const DEMO_REQUESTS: DemoRequest[] = [
     pieces: [MUGS],
     notes: 'Matte glazes; slow cool if you can.',
     state: 'collected',
-    rating: {
-      stars: 5,
-      care: 5,
-      communication: 5,
-      results: 4,
-      text: 'Marisol slow-cooled the load as promised; the matte glazes came out buttery.',
+    paidOnline: true,
+    reviews: {
+      potter: {
+        loading: 'yes',
+        resultsAsLogged: 'yes',
+        turnaround: 'partly',
+        communication: 'yes',
+        fireAgain: true,
+        note: 'Marisol slow-cooled the load as promised; the matte glazes came out buttery. Ready a day later than the date given.',
+      },
+      studio: { asDeclared: 'yes', cleanAndDry: 'yes', onTime: 'yes', note: 'Feet wiped clean, all six as declared.' },
     },
+    thanks: 'Thank you, Wren. See you at the next cone 6.',
+  },
+  {
+    key: 'celadon-collected',
+    studio: 'Fernhollow Gas Works',
+    kiln: 'The Car',
+    firing: 'past',
+    pastFiring: { cone: '10', atmosphere: 'reduction', slowCool: false, notes: 'Heavy reduction from cone 6; cooled over 36 hours.' },
+    potter: 'theo.marsh@demo.conewright.test',
+    pieces: [CELADON_BOWLS],
+    notes: 'Celadon bowls, each on its own cookie.',
+    state: 'collected',
+    paidOnline: true,
   },
 ]
+
+/** The demo requests paid by card, by key: demo-payouts.ts makes their payments through Stripe. */
+export const DEMO_PAID_ONLINE = DEMO_REQUESTS.filter((d) => d.paidOnline).map((d) => d.key)
 
 /** The path a demo request walks to reach its state. */
 const PATH: Record<string, RequestState[]> = {
@@ -193,16 +229,16 @@ export async function seedDemoRequests(manager: EntityManager, userIdOf: (email:
         manager.getRepository(Firing).create({
           kilnId: kiln.id,
           kind: 'glaze',
-          cone: '6',
-          atmosphere: 'oxidation',
-          slowCool: true,
+          cone: demo.pastFiring?.cone ?? '6',
+          atmosphere: demo.pastFiring?.atmosphere ?? 'oxidation',
+          slowCool: demo.pastFiring?.slowCool ?? true,
           dropOffBy: new Date(fired.getTime() - 2 * 86400_000),
           firingDate: fired,
           readyBy: new Date(fired.getTime() + 3 * 86400_000),
           layersOnSale: null,
           status: 'unloaded',
           schedule: null,
-          notes: 'Slow cool through 1900 °F.',
+          notes: demo.pastFiring?.notes ?? 'Slow cool through 1900 °F.',
           seriesId: null,
           cancelledReason: null,
         }),
@@ -255,7 +291,7 @@ export async function seedDemoRequests(manager: EntityManager, userIdOf: (email:
     }
     if (demo.checkedInBy) await checkInDemoWare(manager, request, studio, await userIdOf(demo.checkedInBy))
     const currency = quote?.currency ?? 'USD'
-    if (path.includes('deposit_paid') && quote && quote.depositCents > 0) {
+    if (!demo.paidOnline && path.includes('deposit_paid') && quote && quote.depositCents > 0) {
       await manager.getRepository(LedgerEntry).save({
         requestId: request.id,
         direction: 'in',
@@ -268,7 +304,7 @@ export async function seedDemoRequests(manager: EntityManager, userIdOf: (email:
         note: 'Deposit paid at the counter',
       })
     }
-    if (demo.state === 'collected' && quote) {
+    if (!demo.paidOnline && demo.state === 'collected' && quote) {
       const rest = quote.totalCents - quote.depositCents
       if (rest > 0)
         await manager.getRepository(LedgerEntry).save({
@@ -283,23 +319,22 @@ export async function seedDemoRequests(manager: EntityManager, userIdOf: (email:
           note: 'Balance paid at the counter',
         })
     }
-    if (demo.rating) {
-      await manager.getRepository(Rating).save({
-        requestId: request.id,
-        direction: 'potter-rates-studio',
-        studioId: studio.id,
-        potterId,
-        authorId: potterId,
-        stars: demo.rating.stars,
-        care: demo.rating.care,
-        communication: demo.rating.communication,
-        results: demo.rating.results,
-        asDeclared: null,
-        onTime: null,
-        text: demo.rating.text,
-        studioReply: 'Thank you, Wren. See you at the next cone 6.',
-        studioReplyAt: new Date(),
-      })
+    const studioOwnerId = (await manager.getRepository(StudioMember).findOneByOrFail({ studioId: studio.id, role: 'owner' })).userId
+    if (demo.reviews) {
+      const at = new Date()
+      const closesAt = reviewWindowClosesAt(at)
+      const none = { loading: null, resultsAsLogged: null, turnaround: null, communication: null, fireAgain: null }
+      const noneOfStudio = { asDeclared: null, cleanAndDry: null, onTime: null }
+      const common = { requestId: request.id, studioId: studio.id, potterId, closesAt, publishedAt: at }
+      await manager.getRepository(Review).insert([
+        { ...common, side: 'potter', authorId: potterId, ...noneOfStudio, ...demo.reviews.potter },
+        { ...common, side: 'studio', authorId: studioOwnerId, ...none, ...demo.reviews.studio },
+      ])
+    }
+    if (demo.thanks) {
+      await manager
+        .getRepository(RequestMessage)
+        .insert({ requestId: request.id, authorId: studioOwnerId, side: 'studio', body: demo.thanks, notifiedAt: new Date() })
     }
   }
 }

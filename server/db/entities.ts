@@ -14,14 +14,19 @@ import { Payment } from '../entities/Payment'
 import { Photo } from '../entities/Photo'
 import { KilnPriceList } from '../entities/KilnPriceList'
 import { OutboundMail } from '../entities/OutboundMail'
-import { Rating } from '../entities/Rating'
+import { PayoutAccount } from '../entities/PayoutAccount'
+import { Review } from '../entities/Review'
 import { RequestEvent } from '../entities/RequestEvent'
 import { RequestMessage } from '../entities/RequestMessage'
+import { RequestPayout } from '../entities/RequestPayout'
 import { RequestResult } from '../entities/RequestResult'
 import { SearchDocument } from '../entities/SearchDocument'
 import { StripeEvent } from '../entities/StripeEvent'
 import { Studio } from '../entities/Studio'
 import { StudioMember } from '../entities/StudioMember'
+import { StudioPayout } from '../entities/StudioPayout'
+import { StudioTransfer } from '../entities/StudioTransfer'
+import { TransferReversal } from '../entities/TransferReversal'
 import { User } from '../entities/User'
 import { WarePiece } from '../entities/WarePiece'
 
@@ -36,7 +41,7 @@ export const entities = [
   Firing,
   FiringRequest,
   RequestEvent,
-  Rating,
+  Review,
   SearchDocument,
   LedgerEntry,
   Payment,
@@ -51,4 +56,9 @@ export const entities = [
   CounterRefund,
   WarePiece,
   LoadPlanRecord,
+  PayoutAccount,
+  RequestPayout,
+  StudioTransfer,
+  TransferReversal,
+  StudioPayout,
 ]

@@ -12,6 +12,9 @@ import { RequestLifecycle1796166638665 } from './migrations/1796166638665-Reques
 import { FiringSciencePass1796167522134 } from './migrations/1796167522134-FiringSciencePass'
 import { FiringKindsAndHalfCones1796167600000 } from './migrations/1796167600000-FiringKindsAndHalfCones'
 import { PieceSupport1796167700000 } from './migrations/1796167700000-PieceSupport'
+import { Hardening1796172202396 } from './migrations/1796172202396-Hardening'
+import { ReviewsAfterPickup1796174002687 } from './migrations/1796174002687-ReviewsAfterPickup'
+import { StudioPayouts1796174302372 } from './migrations/1796174302372-StudioPayouts'
 import { LoadPiecesAndPlans1796175115835 } from './migrations/1796175115835-LoadPiecesAndPlans'
 
 export const migrations: (new () => unknown)[] = [
@@ -27,5 +30,8 @@ export const migrations: (new () => unknown)[] = [
   FiringSciencePass1796167522134,
   FiringKindsAndHalfCones1796167600000,
   PieceSupport1796167700000,
+  Hardening1796172202396,
+  ReviewsAfterPickup1796174002687,
+  StudioPayouts1796174302372,
   LoadPiecesAndPlans1796175115835,
 ]

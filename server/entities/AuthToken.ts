@@ -1,11 +1,11 @@
 import { Check, Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn } from 'typeorm'
 import type { User } from './User'
 
-export type TokenPurpose = 'verify-email' | 'password-reset' | 'crew-invite'
+export type TokenPurpose = 'verify-email' | 'password-reset' | 'crew-invite' | 'sign-in-link'
 
 /** A single-use link token. Only its SHA-256 is stored, so a leaked table opens no accounts. */
 @Entity({ name: 'auth_tokens' })
-@Check('auth_tokens_purpose_check', `"purpose" IN ('verify-email', 'password-reset', 'crew-invite')`)
+@Check('auth_tokens_purpose_check', `"purpose" IN ('verify-email', 'password-reset', 'crew-invite', 'sign-in-link')`)
 export class AuthToken {
   @PrimaryGeneratedColumn('uuid')
   id: string

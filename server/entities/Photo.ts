@@ -55,6 +55,10 @@ export class Photo {
   @Column({ name: 'public_opt_in', type: 'boolean', default: false })
   publicOptIn: boolean
 
+  /** Taken in, but still being re-encoded by the queue (large images); not served until it is done. */
+  @Column({ type: 'boolean', default: false })
+  processing: boolean
+
   @CreateDateColumn({ name: 'created_at', type: 'timestamptz' })
   createdAt: Date
 }

@@ -6,8 +6,11 @@ import { sendQueuedMail } from '../services/mail'
 import { MESSAGE_DIGEST_TASK, sendMessageDigest } from '../services/messages'
 import { EXPIRE_CHECKOUTS_TASK, makeRefund, OPEN_CHECKOUT_TASK, openCheckout, REFUND_TASK } from '../services/payments'
 import { DEPOSIT_EXPIRY_TASK, expireDepositHold, sweepStaleRequests } from '../services/requests'
+import { PUBLISH_REVIEWS_TASK, publishDueReviews } from '../services/reviews'
 import { expireOpenCheckouts } from '../services/payments'
-import { engineIsBack, engineRebuilt } from '../services/search'
+import { engineRebuilt } from '../services/search'
+import { PAYOUT_SWEEP_TASK, PAYOUT_TASK, payStudio, sweepPayouts } from '../services/payouts'
+import { PROCESS_PHOTO_TASK, processPhoto } from '../services/photos'
 
 /** The scheduled sweep of requests made stale by dates alone (see sweepStaleRequests). */
 export const REQUEST_SWEEP_TASK = 'request-sweep'
@@ -20,7 +23,6 @@ export function taskList(ctx: AppContext): TaskList {
     },
     [SYNC_STUDIO_TASK]: async (payload) => {
       await syncStudio(ctx, (payload as { studioId: string }).studioId)
-      engineIsBack()
     },
     [REFUND_TASK]: async (payload) => {
       await makeRefund(ctx, payload as { requestId: string; amountCents: number; reason: string; key: string })
@@ -39,6 +41,13 @@ export function taskList(ctx: AppContext): TaskList {
     [EXPIRE_CHECKOUTS_TASK]: async (payload) => {
       await expireOpenCheckouts(ctx, (payload as { requestId: string }).requestId)
     },
+    [PAYOUT_TASK]: async (payload) => {
+      await payStudio(ctx, (payload as { requestId: string }).requestId)
+    },
+    [PAYOUT_SWEEP_TASK]: async () => {
+      const queued = await sweepPayouts(ctx)
+      if (queued) ctx.log.info(`payout sweep: ${queued} requests queued for a payout run`)
+    },
     [REQUEST_SWEEP_TASK]: async () => {
       const lapsed = await sweepStaleRequests(ctx)
       if (lapsed) ctx.log.info(`request sweep: ${lapsed} stale requests lapsed`)
@@ -46,6 +55,12 @@ export function taskList(ctx: AppContext): TaskList {
     [MESSAGE_DIGEST_TASK]: async (payload) => {
       const { requestId, to } = payload as { requestId: string; to: 'potter' | 'studio' }
       await sendMessageDigest(ctx, requestId, to)
+    },
+    [PROCESS_PHOTO_TASK]: async (payload) => {
+      await processPhoto(ctx, (payload as { photoId: string }).photoId)
+    },
+    [PUBLISH_REVIEWS_TASK]: async (payload) => {
+      await publishDueReviews(ctx, (payload as { requestId: string }).requestId)
     },
     [REINDEX_TASK]: async () => {
       const { documents } = await reindexAll(ctx)

@@ -2,6 +2,7 @@ import { Logger as WorkerLogger, run, runMigrations, type Runner, type TaskList 
 import type { Pool } from 'pg'
 import type { PostgresDriver } from 'typeorm/driver/postgres/PostgresDriver.js'
 import type { AppContext } from '../context'
+import { PAYOUT_SWEEP_TASK } from '../services/payouts'
 import { REQUEST_SWEEP_TASK, taskList } from './tasks'
 
 export function poolOf(ctx: AppContext): Pool {
@@ -28,8 +29,16 @@ export async function startWorker(ctx: AppContext, tasks: TaskList = taskList(ct
     pollInterval: 1000,
     logger: quietLogger(ctx),
     taskList: tasks,
-    // What dates alone make stale is swept every ten minutes (graphile-worker's crontab: one run per
-    // slot across all workers, and a missed slot after downtime is caught up once).
-    ...(tasks[REQUEST_SWEEP_TASK] ? { crontab: `*/10 * * * * ${REQUEST_SWEEP_TASK} ?fill=1h` } : {}),
+    // What dates alone make stale is swept every ten minutes, and studios' payouts past their hold
+    // every fifteen (graphile-worker's crontab: one run per slot across all workers, and a missed slot
+    // after downtime is caught up once).
+    ...(tasks[REQUEST_SWEEP_TASK]
+      ? {
+          crontab: [
+            `*/10 * * * * ${REQUEST_SWEEP_TASK} ?fill=1h`,
+            ...(tasks[PAYOUT_SWEEP_TASK] ? [`*/15 * * * * ${PAYOUT_SWEEP_TASK} ?fill=1h`] : []),
+          ].join('\n'),
+        }
+      : {}),
   })
 }

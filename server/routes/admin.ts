@@ -1,38 +1,37 @@
 import { Router } from 'express'
-import { z } from 'zod'
 import { requireRole } from '../auth/guards'
 import type { AppContext } from '../context'
 import { requireUuidParams, validateBody, validateQuery } from '../http/validate'
+import {
+  deskAccountsQuerySchema,
+  deskStudiosQuerySchema,
+  suspendSchema,
+  type DeskAccountsQuery,
+  type DeskStudiosQuery,
+} from '../../shared/schemas/admin'
 import { adminRefundSchema } from '../../shared/schemas/requests'
 import { deskDisputes, deskStudios, deskUsers, setSuspended } from '../services/admin'
 import { adminRefund } from '../services/requests'
+import { disputeSettleSchema } from '../../shared/schemas/payouts'
+import { settleDispute } from '../services/payouts'
 
-const usersQuery = z.object({ q: z.string().trim().max(120).optional() })
-
-/** The marketplace desk: studios to verify, and accounts to suspend or restore. Admins only. */
+/** The marketplace desk: studios to verify, accounts to suspend or restore, disputes to settle. Admins only. */
 export function adminRouter(ctx: AppContext) {
   const router = Router()
   const admin = requireRole('admin')
 
-  router.get('/admin/studios', admin, async (_req, res) => {
-    res.json({ studios: await deskStudios(ctx.db.manager) })
+  router.get('/admin/studios', admin, validateQuery(deskStudiosQuerySchema), async (_req, res) => {
+    res.json(await deskStudios(ctx.db.manager, res.locals.query as DeskStudiosQuery))
   })
 
-  router.get('/admin/users', admin, validateQuery(usersQuery), async (_req, res) => {
-    const { q } = res.locals.query as z.infer<typeof usersQuery>
-    res.json({ users: await deskUsers(ctx.db.manager, q) })
+  router.get('/admin/users', admin, validateQuery(deskAccountsQuerySchema), async (req, res) => {
+    res.json(await deskUsers(ctx.db.manager, req.user!, res.locals.query as DeskAccountsQuery))
   })
 
-  router.post(
-    '/admin/users/:id/suspend',
-    admin,
-    requireUuidParams('id'),
-    validateBody(z.object({ suspended: z.boolean() })),
-    async (req, res) => {
-      await setSuspended(ctx, req.user!.id, String(req.params.id), req.body.suspended)
-      res.json({ id: String(req.params.id), suspended: req.body.suspended })
-    },
-  )
+  router.post('/admin/users/:id/suspend', admin, requireUuidParams('id'), validateBody(suspendSchema), async (req, res) => {
+    await setSuspended(ctx, req.user!.id, String(req.params.id), req.body.suspended)
+    res.json({ id: String(req.params.id), suspended: req.body.suspended })
+  })
 
   router.get('/admin/disputes', admin, async (req, res) => {
     res.json({ requests: await deskDisputes(ctx.db.manager, req.user!) })
@@ -41,6 +40,12 @@ export function adminRouter(ctx: AppContext) {
   router.post('/admin/requests/:id/refund', admin, requireUuidParams('id'), validateBody(adminRefundSchema), async (req, res) => {
     await adminRefund(ctx, req.user!, String(req.params.id), req.body.amountCents, req.body.reason)
     res.status(202).json({ queued: true })
+  })
+
+  // Settling a dispute releases what the studio keeps (after any refund above) and tells both sides.
+  router.post('/admin/requests/:id/settle', admin, requireUuidParams('id'), validateBody(disputeSettleSchema), async (req, res) => {
+    await settleDispute(ctx, req.user!, String(req.params.id), req.body.note)
+    res.json({ settled: true })
   })
 
   return router

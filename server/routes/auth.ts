@@ -1,8 +1,11 @@
 import { Router, type RequestHandler } from 'express'
 import type { PassportStatic } from 'passport'
 import {
+  type LoginBody,
   type RegisterBody,
   loginSchema,
+  signInLinkConfirmSchema,
+  signInLinkRequestSchema,
   passwordResetConfirmSchema,
   passwordResetRequestSchema,
   preferencesSchema,
@@ -22,8 +25,11 @@ import {
   requestPasswordReset,
   resendVerification,
   publicUserWithStudios,
+  requestSignInLink,
+  spendSignInLink,
   verifyEmail,
 } from '../services/users'
+import { signInGuard } from '../auth/sign-in-guard'
 
 const WINDOW = 15 * 60_000
 
@@ -31,12 +37,7 @@ export function authRouter(ctx: AppContext, passport: PassportStatic, csrfToken:
   const router = Router()
   const { authPerIpPer15Min, authPerAccountPer15Min } = ctx.config.rateLimits
   const perIp = makeLimiter(ctx.db, 'auth-ip', { limit: authPerIpPer15Min, windowMs: WINDOW })
-  const perAccount = makeLimiter(ctx.db, 'auth-account', {
-    limit: authPerAccountPer15Min,
-    windowMs: WINDOW,
-    key: accountKey,
-    onlyFailures: true,
-  })
+  const guard = signInGuard(ctx)
   const resetPerAccount = makeLimiter(ctx.db, 'reset-account', { limit: 5, windowMs: WINDOW, key: accountKey })
   const registerPerAccount = makeLimiter(ctx.db, 'register-account', { limit: authPerAccountPer15Min, windowMs: WINDOW, key: accountKey })
 
@@ -45,7 +46,7 @@ export function authRouter(ctx: AppContext, passport: PassportStatic, csrfToken:
 
   router.get('/csrf', csrfToken)
 
-  router.post('/register', perIp, registerPerAccount, validateBody(registerSchema), async (req, res) => {
+  router.post('/register', perIp, validateBody(registerSchema), registerPerAccount, async (req, res) => {
     const { inviteToken, ...body } = req.body as RegisterBody
     // Registering through a crew invitation: the account joins the studio, and the mailed link has
     // already proven the address.
@@ -64,19 +65,44 @@ export function authRouter(ctx: AppContext, passport: PassportStatic, csrfToken:
     res.status(201).json(await publicUserWithStudios(ctx, user))
   })
 
-  router.post('/login', perIp, perAccount, validateBody(loginSchema), (req, res, next) => {
+  router.post('/login', perIp, validateBody(loginSchema), async (req, res, next) => {
+    const { email } = req.body as LoginBody
+    const address = req.ip ?? 'unknown'
+    await guard.before(email, address)
     passport.authenticate('local', { session: false }, (error: unknown, user: Express.User | false) => {
       if (error) return next(error)
-      if (!user) return next(new HttpError(401, 'bad-credentials', 'That e-mail and password do not match an account.'))
+      if (!user) {
+        return guard
+          .failed(email, address)
+          .then(() => next(new HttpError(401, 'bad-credentials', 'That e-mail and password do not match an account.')), next)
+      }
       if (user.suspendedAt) return next(forbidden('This account is suspended. Write to the Conewright team.', 'suspended'))
-      signIn(req, user)
+      guard
+        .succeeded(email, address)
+        .then(() => signIn(req, user))
         .then(() => publicUserWithStudios(ctx, user))
         .then((json) => res.json(json), next)
     })(req, res, next)
   })
 
+  // The way in while password sign-in is paused: a one-time link to the account's own address.
+  router.post('/sign-in-link', perIp, validateBody(signInLinkRequestSchema), async (req, res) => {
+    await requestSignInLink(ctx, req.body.email, `ip:${req.ip}`)
+    res.status(202).json({ ok: true })
+  })
+
+  router.post('/sign-in-link/confirm', perIp, validateBody(signInLinkConfirmSchema), async (req, res) => {
+    const user = await spendSignInLink(ctx, req.body.token)
+    await guard.succeeded(user.email, req.ip ?? 'unknown')
+    await signIn(req, user)
+    res.json(await publicUserWithStudios(ctx, user))
+  })
+
+  // The stored session is deleted outright (passport's logout would save it, emptied, for 30 days);
+  // a visitor with no session has nothing to end.
   router.post('/logout', (req, res, next) => {
-    req.logout((error) => (error ? next(error) : res.status(204).end()))
+    if (!req.user) return res.status(204).end()
+    req.session.destroy((error) => (error ? next(error) : res.clearCookie('cw.sid', { path: '/' }).status(204).end()))
   })
 
   router.get('/me', requireAuth, async (req, res) => {
@@ -87,8 +113,8 @@ export function authRouter(ctx: AppContext, passport: PassportStatic, csrfToken:
     res.json(await publicUserWithStudios(ctx, await updatePreferences(ctx, req.user!, req.body)))
   })
 
-  router.post('/password-reset/request', perIp, resetPerAccount, validateBody(passwordResetRequestSchema), async (req, res) => {
-    await requestPasswordReset(ctx, req.body.email)
+  router.post('/password-reset/request', perIp, validateBody(passwordResetRequestSchema), resetPerAccount, async (req, res) => {
+    await requestPasswordReset(ctx, req.body.email, `ip:${req.ip}`)
     res.status(202).json({ ok: true })
   })
 

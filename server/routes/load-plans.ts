@@ -1,6 +1,7 @@
 import { Router } from 'express'
 import { z } from 'zod'
 import { loadPlanSchema } from '../../shared/schemas/pieces'
+import { text } from '../../shared/schemas/text'
 import { requireStudioMember, studioOfFiring } from '../auth/studio-access'
 import type { AppContext } from '../context'
 import { validateBody, validateQuery } from '../http/validate'
@@ -8,7 +9,7 @@ import { firingLoadPlan, saveLoadPlan } from '../services/load-plan'
 import { labelsHtml } from '../services/labels'
 
 const labelsQuery = z.object({
-  tag: z.string().trim().min(8).max(12).optional(),
+  tag: text().trim().min(8).max(12).optional(),
   request: z.uuid({ error: 'Name the request by its id.' }).optional(),
 })
 

@@ -1,11 +1,11 @@
-import { Router, type ErrorRequestHandler, type Request, type Response } from 'express'
+import { Router, type Request, type RequestHandler, type Response } from 'express'
 import multer from 'multer'
 import { z } from 'zod'
 import { photoPatchSchema } from '../../shared/schemas/pickup'
 import { requireAuth } from '../auth/guards'
 import type { AppContext } from '../context'
-import { badRequest, HttpError } from '../http/errors'
-import { requireUuidParams, validateBody } from '../http/validate'
+import { HttpError } from '../http/errors'
+import { describeValidation, requireUuidParams, validateBody } from '../http/validate'
 import { addPhotos, PHOTO_LIMITS, readPhoto, setPhotoPublic } from '../services/photos'
 
 const kindSchema = z.object({
@@ -19,7 +19,8 @@ const upload = multer({
   limits: { fileSize: PHOTO_LIMITS.maxBytes, files: PHOTO_LIMITS.maxFiles, fields: 10, parts: PHOTO_LIMITS.maxFiles + 10 },
 })
 
-const uploadErrors: ErrorRequestHandler = (error, _req, _res, next) => {
+/** Multer's refusals and busboy's parse failures (truncated, malformed or boundary-less bodies) as 4xx. */
+function uploadError(error: unknown): HttpError {
   if (error instanceof multer.MulterError) {
     const messages: Record<string, [number, string]> = {
       LIMIT_FILE_SIZE: [413, `Each photo must be under ${PHOTO_LIMITS.maxBytes / 1024 / 1024} MB.`],
@@ -27,28 +28,27 @@ const uploadErrors: ErrorRequestHandler = (error, _req, _res, next) => {
       LIMIT_UNEXPECTED_FILE: [400, 'Send the photos in the field named “photos”.'],
     }
     const [status, message] = messages[error.code] ?? [400, 'The upload could not be read.']
-    return next(new HttpError(status, `upload-${error.code.toLowerCase().replace(/_/g, '-')}`, message, { photos: message }))
+    return new HttpError(status, `upload-${error.code.toLowerCase().replace(/_/g, '-')}`, message, { photos: message })
   }
-  next(error)
+  const message = 'The upload could not be read: it was cut short or is not a well-formed form. Send the photos again.'
+  return new HttpError(400, 'upload-malformed', message, { photos: message })
 }
+
+/** Receives the photos; anything multer or its parser refuses becomes a 4xx in the one error shape. */
+const receivePhotos: RequestHandler = describeValidation(
+  (req, res, next) =>
+    upload.array('photos', PHOTO_LIMITS.maxFiles)(req, res, (error?: unknown) => next(error ? uploadError(error) : undefined)),
+  { where: 'multipart', schema: kindSchema, fileField: 'photos' },
+)
 
 export function photosRouter(ctx: AppContext) {
   const router = Router()
   const id = requireUuidParams('id')
 
-  router.post(
-    '/requests/:id/photos',
-    requireAuth,
-    id,
-    upload.array('photos', PHOTO_LIMITS.maxFiles),
-    uploadErrors,
-    async (req: Request, res: Response) => {
-      const parsed = kindSchema.safeParse(req.body)
-      if (!parsed.success) throw badRequest('Say what the photos show.', { kind: parsed.error.issues[0].message })
-      const files = (req.files as Express.Multer.File[] | undefined) ?? []
-      res.status(201).json({ photos: await addPhotos(ctx, req.user!, String(req.params.id), parsed.data.kind, files) })
-    },
-  )
+  router.post('/requests/:id/photos', requireAuth, id, receivePhotos, validateBody(kindSchema), async (req: Request, res: Response) => {
+    const files = (req.files as Express.Multer.File[] | undefined) ?? []
+    res.status(201).json({ photos: await addPhotos(ctx, req.user!, String(req.params.id), req.body.kind, files) })
+  })
 
   for (const [path, size] of [
     ['/photos/:id', 'full'],

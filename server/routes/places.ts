@@ -1,9 +1,9 @@
 import { Router } from 'express'
-import { placesQuerySchema, type PlacesQuery } from '../../shared/schemas/places'
+import { placesQuerySchema, townsQuerySchema, type PlacesQuery, type TownsQuery } from '../../shared/schemas/places'
 import { openRouteLimiter } from '../auth/rate-limit'
 import type { AppContext } from '../context'
 import { validateQuery } from '../http/validate'
-import { lookupPlace, searchPlaces, type Place } from '../services/gazetteer'
+import { lookupPlace, searchPlaces, townsToName, type Place } from '../services/gazetteer'
 
 export function placesRouter(ctx: AppContext) {
   const router = Router()
@@ -18,6 +18,12 @@ export function placesRouter(ctx: AppContext) {
       if (place && !places.has(place.label)) places.set(place.label, place)
     }
     res.json({ places: [...places.values()].slice(0, limit) })
+  })
+
+  // Town names for the offline map: the towns in view, biggest first; the map keeps those that fit.
+  router.get('/places/towns', perIp, validateQuery(townsQuerySchema), (_req, res) => {
+    const { zoom, ...bounds } = res.locals.query as TownsQuery
+    res.json({ towns: townsToName(bounds, zoom) })
   })
 
   return router

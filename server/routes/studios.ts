@@ -6,7 +6,7 @@ import { requireRole } from '../auth/guards'
 import { unauthorized } from '../http/errors'
 import { allowStudioReader, requireStudioMember, studioFromParam } from '../auth/studio-access'
 import type { AppContext } from '../context'
-import { validateBody, validateQuery } from '../http/validate'
+import { requireUuidParams, validateBody, validateQuery } from '../http/validate'
 import { studioCalendar } from '../services/calendar'
 import { inviteCrew, listCrew, removeCrewMember, revokeInvite } from '../services/crew'
 import { firingsJson, listStudioFirings } from '../services/firings'
@@ -68,9 +68,15 @@ export function studiosRouter(ctx: AppContext) {
     res.status(204).end()
   })
 
-  router.post('/studios/:id/verify', requireRole('admin'), validateBody(z.object({ verified: z.boolean() })), async (req, res) => {
-    res.json(studioJson(await setVerified(ctx, String(req.params.id), req.body.verified), 'owner'))
-  })
+  router.post(
+    '/studios/:id/verify',
+    requireRole('admin'),
+    requireUuidParams('id'),
+    validateBody(z.object({ verified: z.boolean() })),
+    async (req, res) => {
+      res.json(studioJson(await setVerified(ctx, String(req.params.id), req.body.verified), 'owner'))
+    },
+  )
 
   // Kilns with their price lists and example prices: what a potter compares.
   router.get('/studios/:id/kilns', reader, async (_req, res) => {
@@ -113,12 +119,12 @@ export function studiosRouter(ctx: AppContext) {
     res.status(202).json(await inviteCrew(ctx, res.locals.studioId, req.user!, req.body.email))
   })
 
-  router.delete('/studios/:id/invites/:inviteId', owner, async (req, res) => {
+  router.delete('/studios/:id/invites/:inviteId', owner, requireUuidParams('inviteId'), async (req, res) => {
     await revokeInvite(ctx, res.locals.studioId, String(req.params.inviteId))
     res.status(204).end()
   })
 
-  router.delete('/studios/:id/crew/:memberId', owner, async (req, res) => {
+  router.delete('/studios/:id/crew/:memberId', owner, requireUuidParams('memberId'), async (req, res) => {
     await removeCrewMember(ctx, res.locals.studioId, String(req.params.memberId))
     res.status(204).end()
   })

@@ -5,6 +5,7 @@ import type { AppContext } from '../context'
 import { Kiln } from '../entities/Kiln'
 import type { Studio } from '../entities/Studio'
 import { firingsJson, listStudioFirings } from './firings'
+import { FIRING_STATUS_LABELS } from '../../shared/workflow/firing-status'
 
 /**
  * The studio's upcoming firings as an iCalendar feed potters can subscribe to: each firing, and the
@@ -32,7 +33,7 @@ export async function studioCalendar(ctx: AppContext, studio: Studio): Promise<s
       start: new Date(firing.firingDate),
       end: new Date(firing.readyBy),
       summary: title,
-      description: `${firing.status === 'open' ? `${shelvesWords(firing.space.shelvesLeft)} of space left.` : `Status: ${firing.status}.`} Drop off by ${new Date(firing.dropOffBy).toISOString()}.`,
+      description: `${firing.status === 'open' ? `${shelvesWords(firing.space.shelvesLeft)} of space left.` : `${FIRING_STATUS_LABELS[firing.status]}.`} Drop off by ${new Date(firing.dropOffBy).toISOString()}.`,
       location: [studio.city, studio.region].filter(Boolean).join(', '),
       url,
       timezone: studio.timezone,

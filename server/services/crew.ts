@@ -7,6 +7,7 @@ import type { User } from '../entities/User'
 import { badRequest, conflict, forbidden, notFound } from '../http/errors'
 import { crewInviteMail } from '../mail/templates/firings'
 import { queueMail } from './mail'
+import { takeMailAllowance } from './mail-limits'
 import { consumeToken, findLiveToken, issueToken } from './tokens'
 
 interface InviteData {
@@ -23,6 +24,7 @@ export async function inviteCrew(ctx: AppContext, studioId: string, inviter: Use
       [studioId, email],
     )
     if (already.length) throw conflict(`${email} is already on this studio’s crew.`, 'already-member')
+    await takeMailAllowance(manager, 'crew-invite', inviter.id, email)
     // A new invitation replaces an open one to the same address.
     await manager.query(
       `UPDATE auth_tokens SET used_at = now() WHERE purpose = 'crew-invite' AND used_at IS NULL AND data->>'studioId' = $1 AND data->>'email' = $2`,

@@ -59,10 +59,12 @@ function effectsInWords(to: FiringStatus, requests: FiringRequest[]): string[] {
   const words: string[] = []
   const waiting = count(WAITING)
   if ((to === 'full' || to === 'closed' || to === 'loading') && waiting > 0)
-    words.push(`${plural(waiting, 'request still waiting lapses', 'requests still waiting lapse')}, and their potters are told.`)
+    words.push(`${plural(waiting, 'ask still waiting lapses', 'asks still waiting lapse')}, and their potters are told.`)
   const absent = count(['deposit_paid'])
   if (to === 'loading' && absent > 0)
-    words.push(`${plural(absent, 'booked potter has', 'booked potters have')} not brought ware: their places lapse under your terms.`)
+    words.push(
+      `${plural(absent, 'potter with space held has', 'potters with space held have')} not brought ware: their places lapse under your terms.`,
+    )
   return words
 }
 
@@ -278,7 +280,7 @@ export async function cancelFiring(
     if (!firing) throw notFound('That firing')
     if (firing.status === 'cancelled') throw conflict('This firing is already cancelled.', 'firing-cancelled')
     if (!canMoveFiring(firing.status, 'cancelled')) {
-      throw conflict('Ware is already in the kiln; this firing can no longer be cancelled.', 'bad-status-change', {
+      throw conflict('Ware is already in the kiln; this firing can no longer be called off.', 'bad-status-change', {
         allowed: nextFiringStatuses(firing.status),
       })
     }
@@ -299,12 +301,12 @@ export async function cancelFiring(
       await requestActionIn(ctx, manager, null, request.id, 'firing-moved', async (step) => {
         const { rc } = step
         if (rc.request.state === 'draft') {
-          await step.move('cancelled', `Firing cancelled: ${reason}`, { by: 'studio' })
+          await step.move('cancelled', `Firing called off: ${reason}`, { by: 'studio' })
           return
         }
         // Everything paid goes back in full: the studio called the firing off.
         const { net } = await moneyOf(manager, rc.request.id)
-        await step.move('cancelled', `Firing cancelled: ${reason}`, { by: 'studio', refundCents: net })
+        await step.move('cancelled', `Firing called off: ${reason}`, { by: 'studio', refundCents: net })
         await enqueueRefund(manager, rc.request.id, net, 'The firing was cancelled by the studio')
         await recordCounterRefundDue(step, net)
         await enqueueExpireCheckouts(manager, rc.request.id)

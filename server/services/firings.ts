@@ -193,7 +193,7 @@ export async function listKilnFirings(manager: EntityManager, kilnId: string, { 
   return qb.getMany()
 }
 
-/** A studio's firings between two instants (all kilns), for the calendar and the host home. */
+/** A studio's firings between two instants (all kilns), for the calendar and the kiln room. */
 export async function listStudioFirings(
   manager: EntityManager,
   studioId: string,

@@ -1,6 +1,6 @@
 import tzLookup from '@photostructure/tz-lookup'
 import { createRequire } from 'node:module'
-import type { Place } from '../../shared/schemas/places'
+import type { Place, TownLabel } from '../../shared/schemas/places'
 
 export type { Place } from '../../shared/schemas/places'
 
@@ -470,6 +470,36 @@ function townsWithPrefix(idx: Index, words: string[], region: (r: string) => boo
     }
   }
   return out
+}
+
+let townsBySize: Town[] | null = null
+
+/**
+ * Towns whose centre lies in the bounds, biggest first (by how many postal codes they have, the
+ * gazetteer's measure of size), leaving out those with fewer than `minPostalCodes`.
+ */
+export function townsWithin(
+  bounds: { west: number; south: number; east: number; north: number },
+  minPostalCodes: number,
+  limit: number,
+): TownLabel[] {
+  townsBySize ??= [...gazetteer().towns.values()].flat().sort(byPostalCount)
+  const out: TownLabel[] = []
+  for (const town of townsBySize) {
+    if (town.postalCount < minPostalCodes || out.length >= limit) break
+    if (town.lat < bounds.south || town.lat > bounds.north || town.lng < bounds.west || town.lng > bounds.east) continue
+    out.push({ name: town.name, region: town.region, lat: town.lat, lng: town.lng, postalCount: town.postalCount })
+  }
+  return out
+}
+
+/** Enough to fill a large screen once the map drops the names that would overlap. */
+const TOWNS_PER_VIEW = 120
+
+/** The towns a map at this zoom may name: zoomed out only towns of several postal codes, at city zoom every town. */
+export function townsToName(bounds: { west: number; south: number; east: number; north: number }, zoom: number): TownLabel[] {
+  const minPostalCodes = zoom < 7 ? 20 : zoom < 9 ? 4 : zoom < 11 ? 2 : 1
+  return townsWithin(bounds, minPostalCodes, TOWNS_PER_VIEW)
 }
 
 /** Places for an autocomplete: ZIP, FSA or town-name prefixes, largest towns first, no repeats. */

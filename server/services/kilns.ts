@@ -80,8 +80,11 @@ export function kilnColumns(body: KilnBody): Partial<Kiln> {
   }
 }
 
-export async function getKiln(manager: EntityManager, id: string): Promise<Kiln> {
-  const kiln = await manager.getRepository(Kiln).findOne({ where: { id } })
+/** The kiln, or a 404. `lock` holds its row for the caller's transaction, so edits do not interleave. */
+export async function getKiln(manager: EntityManager, id: string, lock = false): Promise<Kiln> {
+  const kiln = await manager
+    .getRepository(Kiln)
+    .findOne({ where: { id }, ...(lock ? { lock: { mode: 'pessimistic_write' as const } } : {}) })
   if (!kiln) throw notFound('That kiln')
   return kiln
 }
@@ -99,7 +102,8 @@ export async function createKiln(ctx: AppContext, studioId: string, body: KilnBo
 /** Merges a partial change with the stored kiln and checks the whole kiln again, so ranges stay whole. */
 export async function updateKiln(ctx: AppContext, id: string, patch: Record<string, unknown>): Promise<Kiln> {
   return ctx.db.transaction(async (manager) => {
-    const kiln = await getKiln(manager, id)
+    // Locked, as for price lists: a round kiln made square by one edit and resized by another must stay whole.
+    const kiln = await getKiln(manager, id, true)
     const current = kilnJson(kiln)
     const merged = {
       name: current.name,
@@ -142,7 +146,7 @@ export async function removeKiln(ctx: AppContext, id: string): Promise<'deleted'
        FROM firings WHERE kiln_id = $1`,
       [id],
     )
-    if (upcoming > 0) throw conflict('This kiln has firings coming up. Cancel them first.', 'has-upcoming-firings')
+    if (upcoming > 0) throw conflict('This kiln has firings coming up. Call them off first.', 'has-upcoming-firings')
     await enqueueStudioSync(manager, kiln.studioId)
     if (total === 0) {
       await manager.delete(Kiln, { id })
@@ -204,7 +208,9 @@ export function priceListColumns(p: PriceList): Omit<KilnPriceList, 'kilnId' | '
 
 export async function putPriceList(ctx: AppContext, kilnId: string, body: PriceListBody): Promise<PriceList> {
   return ctx.db.transaction(async (manager) => {
-    const kiln = await getKiln(manager, kilnId)
+    // Two edits at once must not interleave: save() writes only the columns it sees changed, so a
+    // deposit switched from percent to fixed by one and back by the other could leave both set.
+    const kiln = await getKiln(manager, kilnId, true)
     await manager.getRepository(KilnPriceList).save(manager.getRepository(KilnPriceList).create({ kilnId, ...priceListColumns(body) }))
     await enqueueStudioSync(manager, kiln.studioId)
     return (await getPriceList(manager, kilnId))!

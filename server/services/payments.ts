@@ -13,6 +13,7 @@ import { minimumOnlineCharge, payableOnline } from '../../shared/payments'
 import type { User } from '../entities/User'
 import { badRequest, conflict } from '../http/errors'
 import { isUuid } from '../http/validate'
+import { REQUEST_STATE_LABELS } from '../../shared/workflow/request-states'
 import { enqueueJob, type JobOptions } from '../jobs/queue'
 import { paymentReceivedMail } from '../mail/templates/pickup'
 import { refundedMail } from '../mail/templates/requests'
@@ -20,6 +21,7 @@ import { tell } from './notices'
 import { factsOf, loadRequest } from './request-context'
 import { inTransaction, requestAction, requestActionIn, type ActionStep } from './request-door'
 import { stripeFor } from './stripe'
+import { enqueuePayoutIfEarned, handleTransferEvent, moneyQueueOf, transferGroupOf } from './payouts'
 import { enqueueStudioSync } from './search-sync'
 
 export const REFUND_TASK = 'refund-payment'
@@ -98,7 +100,8 @@ export async function openCheckout(
       client_reference_id: requestId,
       customer_email: rc.potter.email,
       metadata: { requestId, purpose },
-      payment_intent_data: { metadata: { requestId, purpose } },
+      // The request's transfer group ties its charges to the transfers that pay the studio its share.
+      payment_intent_data: { metadata: { requestId, purpose }, transfer_group: transferGroupOf(requestId) },
       expires_at: Math.floor(Date.now() / 1000) + CHECKOUT_LIFETIME_S,
     },
     { idempotencyKey: `${purpose}:${requestId}:${attempt}:${amountCents}` },
@@ -160,7 +163,13 @@ export async function enqueueRefund(
   options: Pick<JobOptions, 'runAt' | 'jobKey'> = {},
 ) {
   if (amountCents <= 0) return
-  await enqueueJob(manager, REFUND_TASK, { requestId, amountCents, reason, key: `${requestId}:${Date.now()}` }, options)
+  // In the request's money queue: a refund runs before any payout run queued after it.
+  await enqueueJob(
+    manager,
+    REFUND_TASK,
+    { requestId, amountCents, reason, key: `${requestId}:${Date.now()}` },
+    { ...options, queueName: moneyQueueOf(requestId) },
+  )
 }
 
 export const EXPIRE_CHECKOUTS_TASK = 'expire-checkouts'
@@ -212,6 +221,8 @@ async function bookRefund(ctx: AppContext, requestId: string, refund: Stripe.Ref
       ],
     )
     if (!inserted.length) return
+    // A refund after the studio was paid takes back the studio's part of it.
+    await enqueuePayoutIfEarned(manager, requestId)
     const rc = await loadRequest(manager, requestId)
     await tell(manager, rc.potter, 'refunded', refundedMail(factsOf(rc, ctx.config.publicUrl), refund.amount), {
       path: `/requests/${requestId}`,
@@ -224,11 +235,20 @@ async function bookRefund(ctx: AppContext, requestId: string, refund: Stripe.Ref
 /** Verifies a webhook's signature on the raw body; a bad one is a 400. */
 export function verifyWebhook(ctx: AppContext, rawBody: Buffer, signature: string | undefined): Stripe.Event {
   if (!signature) throw badRequest('Missing Stripe-Signature header.', undefined, 'bad-signature')
+  const stripe = stripeFor(ctx.config)
+  let event: Stripe.Event
   try {
-    return stripeFor(ctx.config).webhooks.constructEvent(rawBody, signature, ctx.config.stripeWebhookSecret)
+    event = stripe.webhooks.constructEvent(rawBody, signature, ctx.config.stripeWebhookSecret)
   } catch {
     throw badRequest('The webhook signature does not match.', undefined, 'bad-signature')
   }
+  // The SDK refuses a timestamp older than its tolerance but not one from the future; an event signed
+  // "an hour from now" is as suspect as one an hour old. Every t= is checked, whichever the SDK used.
+  const stamps = [...signature.matchAll(/(?:^|,)\s*t=([^,]*)/g)].map((m) => Number(m[1]))
+  const now = Date.now() / 1000
+  if (!stamps.length || stamps.some((t) => !(Math.abs(now - t) <= stripe.webhooks.DEFAULT_TOLERANCE)))
+    throw badRequest('The webhook timestamp is outside the tolerance.', undefined, 'bad-signature')
+  return event
 }
 
 /** The least a signed event must carry before anything in it is trusted. */
@@ -356,7 +376,14 @@ export async function handleStripeEvent(ctx: AppContext, raw: unknown): Promise<
             stripeSessionId: null,
             note: 'Refunded in Stripe',
           })
+          await enqueuePayoutIfEarned(manager, payment.requestId)
         }
+        break
+      }
+      case 'transfer.created':
+      case 'transfer.updated':
+      case 'transfer.reversed': {
+        await handleTransferEvent(manager, event)
         break
       }
       default:
@@ -376,7 +403,9 @@ async function settlePayment(step: ActionStep, payment: Payment) {
   const { net } = await moneyOf(manager, rc.request.id)
   if (payment.purpose === 'deposit') {
     if (rc.request.state !== 'accepted') {
-      await step.note(`A deposit of ${payment.amountCents} cents arrived after the request was ${rc.request.state}; it is refunded`)
+      await step.note(
+        `A deposit of ${payment.amountCents} cents arrived after this stood at “${REQUEST_STATE_LABELS[rc.request.state]}”; it is refunded`,
+      )
       await enqueueRefund(manager, rc.request.id, payment.amountCents, `Deposit arrived after the request was ${rc.request.state}`)
       return
     }

@@ -178,7 +178,7 @@ export async function checkIn(ctx: AppContext, actor: User, id: string, body: Ch
       Object.assign(rc.request, change)
       await manager.update(FiringRequest, id, change)
     }
-    await step.move('received', body.conditionNotes ? `Checked in. Condition: ${body.conditionNotes}` : 'Checked in', {
+    await step.move('received', body.conditionNotes ? `Taken in. Condition: ${body.conditionNotes}` : 'Taken in', {
       received: received.map((r) => r.received),
       priceBeforeCents: before,
       priceAfterCents: after,
@@ -261,7 +261,7 @@ export async function postResults(ctx: AppContext, actor: User, id: string, body
     const { manager, rc } = step
     const bad = body.outcomes?.find((o) => o.pieceIndex >= rc.request.pieces.length)
     if (bad)
-      throw new HttpError(400, 'invalid-input', 'A result names a piece the request does not have.', {
+      throw new HttpError(400, 'invalid-input', 'A result names a piece the potter did not send.', {
         outcomes: `No piece ${bad.pieceIndex + 1}.`,
       })
     const records = await manager.getRepository(WarePiece).find({ where: { requestId: id, status: 'in-load' } })
@@ -374,7 +374,7 @@ export async function markCounterRefundPaid(ctx: AppContext, actor: User, id: st
 export async function markCollected(ctx: AppContext, actor: User, id: string) {
   return requestAction(ctx, actor, id, 'collected', async (step) => {
     const { manager, rc } = step
-    await step.move('collected', 'Collected by the potter')
+    await step.move('collected', 'Picked up by the potter')
     const quote = rc.request.standingQuote ?? rc.request.quote
     const { paidIn, refunded } = await moneyOf(manager, id)
     await step.tellPotter('pickup', pickupMail(factsOf(rc, ctx.config.publicUrl), quote?.lines ?? [], paidIn, refunded))

@@ -1,5 +1,6 @@
 import type { EntityManager } from 'typeorm'
-import { canMoveRequest, nextRequestStates, type RequestState } from '../../shared/workflow/request-states'
+import { reviewWindowClosesAt } from '../../shared/reviews'
+import { canMoveRequest, nextRequestStates, REQUEST_STATE_LABELS, type RequestState } from '../../shared/workflow/request-states'
 import { Firing } from '../entities/Firing'
 import { FiringRequest } from '../entities/FiringRequest'
 import { Kiln } from '../entities/Kiln'
@@ -24,11 +25,11 @@ export interface RequestContext {
 export type Viewer = { side: 'potter' } | { side: 'studio'; role: 'owner' | 'crew' } | { side: 'admin' }
 
 export async function loadRequest(manager: EntityManager, id: string, { lock = false } = {}): Promise<RequestContext> {
-  if (!isUuid(id)) throw notFound('That request')
+  if (!isUuid(id)) throw notFound('That ask')
   const request = await manager
     .getRepository(FiringRequest)
     .findOne({ where: { id }, ...(lock ? { lock: { mode: 'pessimistic_write' as const } } : {}) })
-  if (!request) throw notFound('That request')
+  if (!request) throw notFound('That ask')
   const firing = await manager.getRepository(Firing).findOneByOrFail({ id: request.firingId })
   const kiln = await manager.getRepository(Kiln).findOneByOrFail({ id: firing.kilnId })
   const studio = await manager.getRepository(Studio).findOneByOrFail({ id: kiln.studioId })
@@ -46,13 +47,13 @@ export async function viewerOf(manager: EntityManager, rc: RequestContext, user:
   const member = await manager.getRepository(StudioMember).findOne({ where: { studioId: rc.studio.id, userId: user.id } })
   // A draft is the potter's own until it is sent.
   if (member && rc.request.state !== 'draft') return { side: 'studio', role: member.role }
-  throw notFound('That request')
+  throw notFound('That ask')
 }
 
-const inWords = (state: RequestState) => state.replace('_', ' ')
+const inWords = (state: RequestState) => `“${REQUEST_STATE_LABELS[state]}”`
 
 /** The state machine's refusal: a 409 naming the request's state and the states allowed from it. */
-export function stateConflict(request: FiringRequest, message = `This request is ${inWords(request.state)}; that cannot be done now.`) {
+export function stateConflict(request: FiringRequest, message = `This stands at ${inWords(request.state)}; that cannot be done now.`) {
   return conflict(message, 'bad-state-change', { state: request.state, allowed: nextRequestStates(request.state) })
 }
 
@@ -66,7 +67,7 @@ export async function moveRequest(
   data: Record<string, unknown> = {},
 ) {
   if (!canMoveRequest(request.state, to))
-    throw stateConflict(request, `A request that is ${inWords(request.state)} cannot become ${inWords(to)}.`)
+    throw stateConflict(request, `What stands at ${inWords(request.state)} cannot move to ${inWords(to)}.`)
   await manager.getRepository(RequestEvent).save({ requestId: request.id, actorId, fromState: request.state, toState: to, reason, data })
   request.state = to
   await manager.update(FiringRequest, request.id, { state: to })
@@ -96,4 +97,18 @@ export function factsOf(rc: RequestContext, publicUrl: string): RequestFacts {
     totalCents: (rc.request.standingQuote ?? rc.request.quote)?.totalCents ?? 0,
     depositCents: rc.request.depositAskedCents ?? rc.request.quote?.depositCents ?? 0,
   }
+}
+
+/** When the answers after pickup opened: the ware collected, or a dispute raised before that. Null before either. */
+export async function reviewOpenedAt(manager: EntityManager, requestId: string): Promise<Date | null> {
+  const [row]: { opened: Date | null }[] = await manager.query(
+    `SELECT min(at) AS opened FROM request_events WHERE request_id = $1 AND to_state IN ('collected', 'disputed')`,
+    [requestId],
+  )
+  return row?.opened ? new Date(row.opened) : null
+}
+
+/** Whether answers may still be given at `now`; before pickup the state decides, so the window counts as open. */
+export function reviewWindowOpen(openedAt: Date | null, now = new Date()): boolean {
+  return openedAt === null || now.getTime() < reviewWindowClosesAt(openedAt).getTime()
 }

@@ -16,16 +16,26 @@ import { nextRequestStates, type RequestState } from '../../shared/workflow/requ
 import type { AppContext } from '../context'
 import { Firing } from '../entities/Firing'
 import { FiringRequest } from '../entities/FiringRequest'
-import { Rating } from '../entities/Rating'
 import { RequestEvent } from '../entities/RequestEvent'
 import { RequestResult } from '../entities/RequestResult'
+import { Review } from '../entities/Review'
 import type { User } from '../entities/User'
 import { HttpError, notFound } from '../http/errors'
 import { isUuid } from '../http/validate'
 import type { MailContent } from '../mail/render'
 import { tell } from './notices'
 import { moneyOf } from './payments'
-import { loadRequest, moveRequest, studioPeople, viewerOf, type RequestContext, type Viewer } from './request-context'
+import { earnPayout } from './payouts'
+import {
+  loadRequest,
+  moveRequest,
+  reviewOpenedAt,
+  reviewWindowOpen,
+  studioPeople,
+  viewerOf,
+  type RequestContext,
+  type Viewer,
+} from './request-context'
 
 const RETRYABLE = new Set(['40P01', '40001'])
 const ATTEMPTS = 5
@@ -63,8 +73,7 @@ export async function lockFirings(manager: EntityManager, ids: string[]): Promis
 export async function requestFacts(manager: EntityManager, rc: RequestContext): Promise<RequestFacts> {
   const requestId = rc.request.id
   const { net, counterRefundDue } = await moneyOf(manager, requestId)
-  const ratings = await manager.getRepository(Rating).find({ where: { requestId } })
-  const potterRating = ratings.find((r) => r.direction === 'potter-rates-studio')
+  const reviews = await manager.getRepository(Review).find({ where: { requestId }, select: { side: true } })
   const total = rc.request.standingQuote?.totalCents ?? rc.request.quote?.totalCents ?? 0
   return {
     state: rc.request.state,
@@ -74,8 +83,8 @@ export async function requestFacts(manager: EntityManager, rc: RequestContext): 
     pricePending: rc.request.pendingQuote !== null,
     proposedMove: rc.request.proposedFiringId !== null,
     resultsPosted: await manager.getRepository(RequestResult).exists({ where: { requestId } }),
-    ratedBy: { potter: Boolean(potterRating), studio: ratings.some((r) => r.direction === 'studio-rates-potter') },
-    replied: Boolean(potterRating?.studioReply),
+    ratedBy: { potter: reviews.some((r) => r.side === 'potter'), studio: reviews.some((r) => r.side === 'studio') },
+    reviewWindowOpen: reviewWindowOpen(await reviewOpenedAt(manager, requestId)),
     counterRefundDueCents: counterRefundDue,
   }
 }
@@ -141,7 +150,7 @@ export async function requestAction<T>(
   apply: (step: ActionStep) => Promise<T>,
   options: ActionOptions = {},
 ): Promise<T> {
-  if (!isUuid(requestId)) throw notFound('That request')
+  if (!isUuid(requestId)) throw notFound('That ask')
   return inTransaction(ctx, (manager) => requestActionIn(ctx, manager, actor, requestId, action, apply, options))
 }
 
@@ -163,7 +172,7 @@ export async function requestActionIn<T>(
 ): Promise<T> {
   {
     const unlocked = await manager.getRepository(FiringRequest).findOne({ where: { id: requestId } })
-    if (!unlocked) throw notFound('That request')
+    if (!unlocked) throw notFound('That ask')
     await lockFirings(manager, [unlocked.firingId, ...(options.alsoLock?.(unlocked) ?? [])])
     const rc = await loadRequest(manager, requestId, { lock: true })
     if (rc.request.firingId !== unlocked.firingId) throw new RetryAction()
@@ -209,6 +218,10 @@ export async function requestActionIn<T>(
       },
       hold,
     }
-    return apply(step)
+    const before = rc.request.state
+    const result = await apply(step)
+    // Reaching collection, or ending with money the studio keeps, earns the studio its share.
+    if (rc.request.state !== before) await earnPayout(step)
+    return result
   }
 }

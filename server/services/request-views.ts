@@ -17,10 +17,10 @@ import { requestPieces } from './pieces'
 import { moneyOf, openPaymentsOf } from './payments'
 import { requestPhotos } from './photos'
 import { pickupJson } from './pickup'
-import { ratingsOfRequest } from './ratings'
-import { loadRequest, viewerOf, type RequestContext, type Viewer } from './request-context'
+import { loadRequest, reviewWindowOpen, viewerOf, type RequestContext, type Viewer } from './request-context'
 import { requestFacts } from './request-door'
 import { potterRecord } from './requests'
+import { reviewsOfRequest } from './reviews'
 
 function priceJson(rc: RequestContext, facts: RequestFacts, money: Awaited<ReturnType<typeof moneyOf>>): PriceJson {
   const standing = rc.request.standingQuote ?? rc.request.quote
@@ -122,7 +122,7 @@ export async function requestJson(manager: EntityManager, rc: RequestContext, vi
     pieceRecords: await requestPieces(manager, rc.request.id, rc.request.pieces),
     shelvesNeeded: shelvesNeeded(rc.kiln, rc.firing, rc.request.pieces),
     photos: await requestPhotos(manager, rc.request.id),
-    ratings: await ratingsOfRequest(manager, rc.request.id),
+    reviews: await reviewsOfRequest(manager, rc.request.id, viewer.side),
     payments: payments.map((p) => ({
       purpose: p.purpose,
       status: p.status,
@@ -155,7 +155,7 @@ interface RowFacts {
   results: boolean
   potter_rated: boolean
   studio_rated: boolean
-  replied: boolean
+  review_opened: Date | null
 }
 
 /** List rows: enough to show state, price and next step, with the reader's actions from the policy. */
@@ -167,9 +167,9 @@ export async function requestRows(manager: EntityManager, requests: FiringReques
             coalesce((SELECT sum(CASE WHEN l.direction = 'in' THEN l.amount_cents ELSE -l.amount_cents END) FROM ledger_entries l WHERE l.request_id = r.id), 0)::int AS net,
             coalesce((SELECT sum(c.amount_cents) FROM counter_refunds c WHERE c.request_id = r.id AND c.paid_at IS NULL), 0)::int AS counter_due,
             EXISTS (SELECT 1 FROM request_results x WHERE x.request_id = r.id) AS results,
-            EXISTS (SELECT 1 FROM ratings g WHERE g.request_id = r.id AND g.direction = 'potter-rates-studio') AS potter_rated,
-            EXISTS (SELECT 1 FROM ratings g WHERE g.request_id = r.id AND g.direction = 'studio-rates-potter') AS studio_rated,
-            EXISTS (SELECT 1 FROM ratings g WHERE g.request_id = r.id AND g.direction = 'potter-rates-studio' AND g.studio_reply IS NOT NULL) AS replied
+            EXISTS (SELECT 1 FROM reviews g WHERE g.request_id = r.id AND g.side = 'potter') AS potter_rated,
+            EXISTS (SELECT 1 FROM reviews g WHERE g.request_id = r.id AND g.side = 'studio') AS studio_rated,
+            (SELECT min(e.at) FROM request_events e WHERE e.request_id = r.id AND e.to_state IN ('collected', 'disputed')) AS review_opened
      FROM firing_requests r JOIN firings f ON f.id = r.firing_id JOIN kilns k ON k.id = f.kiln_id JOIN studios s ON s.id = k.studio_id JOIN users u ON u.id = r.potter_id
      WHERE r.id = ANY($1::uuid[])`,
     [requests.map((r) => r.id)],
@@ -193,7 +193,7 @@ export async function requestRows(manager: EntityManager, requests: FiringReques
       proposedMove: r.proposedFiringId !== null,
       resultsPosted: row.results,
       ratedBy: { potter: row.potter_rated, studio: row.studio_rated },
-      replied: row.replied,
+      reviewWindowOpen: reviewWindowOpen(row.review_opened ? new Date(row.review_opened) : null),
       counterRefundDueCents: row.counter_due,
     }
     const side = row.potter_id === reader.id ? 'potter' : 'studio'

@@ -36,6 +36,7 @@ import { fitsInLoad } from './load-plan'
 import { enqueueExpireCheckouts, enqueueOpenCheckout, enqueueRefund, moneyOf } from './payments'
 import { factsOf } from './request-context'
 import { heldJobKey, requestAction, type ActionStep } from './request-door'
+import { potterReviewRecord } from './reviews'
 import { enqueueStudioSync } from './search-sync'
 
 export const DEPOSIT_EXPIRY_TASK = 'deposit-expiry'
@@ -155,7 +156,7 @@ export async function sendRequest(ctx: AppContext, potter: User, id: string, bod
       })
     }
     if (body.policiesVersion !== rc.studio.policiesVersion) {
-      throw conflict('The studio changed its policies since you read them. Read them again before sending.', 'policies-changed', {
+      throw conflict('The studio changed its terms since you read them. Read them again before sending.', 'policies-changed', {
         policiesVersion: rc.studio.policiesVersion,
       })
     }
@@ -269,7 +270,7 @@ export async function proposeMove(ctx: AppContext, actor: User, id: string, firi
         throw new HttpError(422, 'ware-blocked', 'This ware cannot go in that firing.', undefined, { findings: check.findings })
       }
       await manager.update(FiringRequest, id, { proposedFiringId: target.id })
-      await step.note('Another firing proposed', { proposedFiringId: target.id })
+      await step.note('Another firing suggested', { proposedFiringId: target.id })
       await step.tellPotter('move-proposed', moveProposedMail(factsOf(rc, ctx.config.publicUrl), target))
     },
     { alsoLock: () => [firingId] },
@@ -288,7 +289,7 @@ export async function answerMove(ctx: AppContext, potter: User, id: string, acce
       const to = rc.request.proposedFiringId!
       if (!accept) {
         await manager.update(FiringRequest, id, { proposedFiringId: null })
-        await step.note('Move refused', { proposedFiringId: to })
+        await step.note('The potter kept the first firing', { proposedFiringId: to })
         return
       }
       const target = await manager.getRepository(Firing).findOneByOrFail({ id: to })
@@ -304,7 +305,7 @@ export async function answerMove(ctx: AppContext, potter: User, id: string, acce
         verdict: check.verdict,
         findings: check.findings,
       })
-      await step.note('Move accepted', { from: rc.firing.id, to })
+      await step.note('Moved to the suggested firing', { from: rc.firing.id, to })
       Object.assign(rc.request, { firingId: to, quote, standingQuote: quote, volumeL })
       rc.firing = target
       await holdSpace(step, 'Moved to the proposed firing')
@@ -380,9 +381,9 @@ export async function lapse(step: ActionStep, cause: LapseCause, { tellStudio = 
 }
 
 const LAPSE_REASON: Record<LapseCause, string> = {
-  'firing-closed': 'The firing stopped taking ware before the request was settled',
-  'firing-loading': 'Loading started before the request was settled',
-  'deposit-late': 'The deposit was not paid in time; the space was released',
+  'firing-closed': 'The firing stopped taking ware before the ask was settled',
+  'firing-loading': 'Loading started before the ask was settled',
+  'deposit-late': 'The deposit was not paid in time; the space went back to the studio',
   'drop-off-passed': 'The drop-off deadline passed with no answer',
 }
 
@@ -427,7 +428,7 @@ export async function sweepStaleRequests(ctx: AppContext, now = new Date()): Pro
   return lapsed
 }
 
-/** A potter's record, as studios see it when deciding on a new request. */
+/** A potter's record, as studios see it when deciding on a new ask: the studios' answers only once published. */
 export async function potterRecord(manager: EntityManager, potterId: string) {
   const rows: { state: RequestState; by: string | null; count: number }[] = await manager.query(
     `SELECT r.state, e.data->>'by' AS by, count(*)::int AS count
@@ -437,10 +438,6 @@ export async function potterRecord(manager: EntityManager, potterId: string) {
     [potterId],
   )
   const count = (pred: (r: (typeof rows)[number]) => boolean) => rows.filter(pred).reduce((n, r) => n + r.count, 0)
-  const [rating] = await manager.query(
-    `SELECT avg(stars)::float8 AS mean, count(*)::int AS count FROM ratings WHERE potter_id = $1 AND direction = 'studio-rates-potter'`,
-    [potterId],
-  )
   return {
     requests: count(() => true),
     collected: count((r) => r.state === 'collected'),
@@ -450,7 +447,7 @@ export async function potterRecord(manager: EntityManager, potterId: string) {
         (r.state === 'lapsed' && r.by === 'deposit-late') ||
         (r.state === 'cancelled' && (r.by === 'deposit-hold' || r.by === 'refused-at-door' || r.by === 'no-show')),
     ),
-    rating: rating.count ? { mean: Math.round(rating.mean * 10) / 10, count: rating.count } : null,
+    reviews: await potterReviewRecord(manager, potterId),
   }
 }
 

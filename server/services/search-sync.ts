@@ -12,7 +12,8 @@ import { Studio } from '../entities/Studio'
 import { enqueueJob } from '../jobs/queue'
 import { getPriceList, kilnSpec } from './kilns'
 import { loadsOf } from './load-plan'
-import { studioRatings } from './studio-ratings'
+import { engineFailed, engineIsUp } from './search'
+import { studioReviewSummaries } from './reviews'
 
 export const SYNC_STUDIO_TASK = 'search-sync-studio'
 export const REINDEX_TASK = 'search-reindex'
@@ -40,7 +41,7 @@ export async function studioDocuments(manager: EntityManager, studioId: string, 
     .andWhere('f.drop_off_by > :now', { now })
     .getMany()
   const loads = await loadsOf(manager, firings)
-  const rating = (await studioRatings(manager, [studioId])).get(studioId) ?? null
+  const reviews = (await studioReviewSummaries(manager, [studioId])).get(studioId) ?? null
   const priceLists = new Map(await Promise.all(kilns.map(async (k) => [k.id, await getPriceList(manager, k.id)] as const)))
   const byId = new Map(kilns.map((k) => [k.id, k]))
   const place = {
@@ -61,7 +62,7 @@ export async function studioDocuments(manager: EntityManager, studioId: string, 
       firing,
       room: loads.get(firing.id)!.room,
       priceList: priceLists.get(kiln.id) ?? null,
-      rating,
+      reviews,
     })
   })
 }
@@ -108,11 +109,32 @@ async function writeTable(ctx: AppContext, studioId: string, docs: FiringDocumen
   })
 }
 
-/** Rebuilds one studio's documents in both places. Throws (for the queue to retry) if the engine fails. */
+/**
+ * Rebuilds one studio's documents in both places. While the engine is out (or fails this write) the
+ * PostgreSQL copy is still written, and the engine's part waits in the queue for the search monitor
+ * to run it when the engine is back, instead of failing and logging on every retry.
+ */
 export async function syncStudio(ctx: AppContext, studioId: string) {
   const docs = await studioDocuments(ctx.db.manager, studioId)
   await writeTable(ctx, studioId, docs)
-  await writeStudioDocuments(ctx.config, studioId, docs)
+  if (!engineIsUp()) return waitForEngine(ctx, studioId)
+  try {
+    await writeStudioDocuments(ctx.config, studioId, docs)
+  } catch (error) {
+    engineFailed(ctx, error)
+    await waitForEngine(ctx, studioId)
+  }
+}
+
+/** The studio's sync, parked: the monitor runs it as soon as the engine is back (within the hour regardless). */
+async function waitForEngine(ctx: AppContext, studioId: string) {
+  await enqueueJob(
+    ctx.db.manager,
+    SYNC_STUDIO_TASK,
+    { studioId },
+    // A newer change's sync already waiting keeps its own (sooner) time.
+    { jobKey: `search-sync:${studioId}`, maxAttempts: 30, runAt: new Date(Date.now() + 3600_000), jobKeyMode: 'preserve_run_at' },
+  )
 }
 
 /** Rebuilds the whole index from PostgreSQL: `npm run search:reindex`, and on every server start. */

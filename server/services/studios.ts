@@ -80,18 +80,21 @@ export async function createStudio(ctx: AppContext, owner: User, body: StudioCre
   })
 }
 
-export async function getStudio(manager: EntityManager, id: string): Promise<Studio> {
-  const studio = await manager.getRepository(Studio).findOne({ where: { id } })
+/** The studio, or a 404. `lock` holds its row for the caller's transaction, so edits do not interleave. */
+export async function getStudio(manager: EntityManager, id: string, lock = false): Promise<Studio> {
+  const studio = await manager
+    .getRepository(Studio)
+    .findOne({ where: { id }, ...(lock ? { lock: { mode: 'pessimistic_write' as const } } : {}) })
   if (!studio) throw notFound('That studio')
   return studio
 }
 
 export async function updateStudio(ctx: AppContext, id: string, patch: StudioPatchBody): Promise<Studio> {
   return ctx.db.transaction(async (manager) => {
-    const studio = await getStudio(manager, id)
+    const studio = await getStudio(manager, id, true)
     const { address, postalCode, lat, lng, policies, ...plain } = patch
     Object.assign(studio, plain)
-    // A new address moves the pin unless the host also placed the pin by hand.
+    // A new address moves the pin unless the owner also placed the pin by hand.
     if ((address !== undefined && address !== null) || postalCode !== undefined) {
       const place = address ? placeFor(address, 'address') : placeFor(postalCode!, 'postalCode')
       if (address !== undefined) studio.addressLine = address

@@ -8,6 +8,8 @@ export const TOKEN_LIFETIME_MS: Record<TokenPurpose, number> = {
   'verify-email': 48 * 3600_000,
   'password-reset': 3600_000,
   'crew-invite': 7 * 24 * 3600_000,
+  // Lets the owner in while password sign-in is throttled: short-lived, like a reset link.
+  'sign-in-link': 15 * 60_000,
 }
 
 /** Issues a random single-use token; only its hash is stored. Returns the token for the link. */

@@ -4,8 +4,9 @@ import { hashPassword, passwordProblem, verifyPassword } from '../auth/password'
 import type { AppContext } from '../context'
 import { User } from '../entities/User'
 import { badRequest, conflict, HttpError } from '../http/errors'
-import { passwordResetMail, verifyEmailMail } from '../mail/templates/account'
+import { passwordResetMail, signInLinkMail, verifyEmailMail } from '../mail/templates/account'
 import { queueMail } from './mail'
+import { takeMailAllowance } from './mail-limits'
 import { consumeToken, issueToken, revokeTokens } from './tokens'
 
 export function toPublicUser(user: User): PublicUser {
@@ -92,9 +93,13 @@ export async function verifyEmail(ctx: AppContext, token: string) {
   })
 }
 
-/** Queues a reset link when the address has an account; says nothing either way. */
-export async function requestPasswordReset(ctx: AppContext, email: string) {
+/**
+ * Queues a reset link when the address has an account; says nothing either way. `sender` is where
+ * the request came from: the allowance is counted for every address, known or not, so it tells nothing.
+ */
+export async function requestPasswordReset(ctx: AppContext, email: string, sender: string) {
   await ctx.db.transaction(async (manager) => {
+    await takeMailAllowance(manager, 'password-reset', sender, email)
     const user = await manager.getRepository(User).findOne({ where: { email } })
     if (!user || user.suspendedAt) return
     await revokeTokens(manager, 'password-reset', user.id)
@@ -121,6 +126,7 @@ export async function confirmPasswordReset(ctx: AppContext, token: string, passw
 export async function resendVerification(ctx: AppContext, user: User) {
   if (user.emailVerifiedAt) throw new HttpError(409, 'already-verified', 'This address is already confirmed.')
   await ctx.db.transaction(async (manager) => {
+    await takeMailAllowance(manager, 'verify-email', user.id, user.email)
     await revokeTokens(manager, 'verify-email', user.id)
     await sendVerificationMail(ctx, manager, user)
   })
@@ -131,4 +137,28 @@ export async function updatePreferences(ctx: AppContext, user: User, patch: { un
   Object.assign(user, patch)
   await ctx.db.getRepository(User).update(user.id, patch)
   return user
+}
+
+/** Mails a one-time sign-in link when the address has an account; says nothing either way. */
+export async function requestSignInLink(ctx: AppContext, email: string, sender: string) {
+  await ctx.db.transaction(async (manager) => {
+    await takeMailAllowance(manager, 'sign-in-link', sender, email)
+    const user = await manager.getRepository(User).findOne({ where: { email } })
+    if (!user || user.suspendedAt) return
+    await revokeTokens(manager, 'sign-in-link', user.id)
+    const token = await issueToken(manager, 'sign-in-link', user.id)
+    const url = `${ctx.config.publicUrl}/sign-in?link=${token}`
+    await queueMail(manager, user.email, 'sign-in-link', signInLinkMail(user.displayName, url))
+  })
+}
+
+/** The account a sign-in link opens, spending the link; a 400 when it is unknown, spent or expired. */
+export async function spendSignInLink(ctx: AppContext, token: string): Promise<User> {
+  return ctx.db.transaction(async (manager) => {
+    const used = await consumeToken(manager, 'sign-in-link', token)
+    const user = used?.userId ? await manager.getRepository(User).findOne({ where: { id: used.userId } }) : null
+    if (!user || user.suspendedAt)
+      throw badRequest('This sign-in link is not valid any more. Ask for a new one.', { token: 'Expired or already used.' }, 'bad-token')
+    return user
+  })
 }

@@ -12,6 +12,8 @@ export interface PhotoJson {
   public: boolean
   /** The one piece it shows, when it shows one. */
   pieceId: string | null
+  /** Large uploads are prepared after the upload; the image is served once this is false. */
+  processing: boolean
   url: string
   thumbUrl: string
   at: string

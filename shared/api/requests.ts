@@ -4,6 +4,7 @@ import type { Finding, Piece, Verdict } from '../firing/check'
 import type { Quote } from '../firing/quote'
 import type { PieceOutcome } from '../schemas/pickup'
 import type { PieceJson } from './load'
+import type { Answer, AnswerTally, PotterQuestion } from '../reviews'
 import type { StudioPolicies } from '../schemas/studios'
 import type { RequestAction } from '../workflow/policy'
 import type { RequestState } from '../workflow/request-states'
@@ -40,31 +41,41 @@ export interface ResultsJson {
   at: string
 }
 
-export interface RatingJson {
-  stars: number
-  care: number | null
-  communication: number | null
-  results: number | null
-  asDeclared: number | null
-  onTime: number | null
-  text: string
-  reply: string | null
+/** One side's answers after pickup: the potter's fill the studio questions, the studio's the potter questions. */
+export interface ReviewJson {
+  loading: Answer | null
+  resultsAsLogged: Answer | null
+  turnaround: Answer | null
+  communication: Answer | null
+  fireAgain: boolean | null
+  asDeclared: Answer | null
+  cleanAndDry: Answer | null
+  onTime: Answer | null
+  note: string
   at: string
-  editableUntil: string
+  /** Null while hidden from the other side: until both have answered or the window closes. */
+  publishedAt: string | null
 }
 
-export interface RequestRatingsJson {
-  /** The potter's rating of the studio. */
-  ofStudio: RatingJson | null
-  /** The studio's rating of the potter. */
-  ofPotter: RatingJson | null
+export interface RequestReviewsJson {
+  /** The potter's answers about the studio: the potter's own always, the studio's view once published. */
+  ofStudio: ReviewJson | null
+  /** The studio's answers about the potter, likewise. */
+  ofPotter: ReviewJson | null
+  /** Whether each side has answered, told even while the answers are hidden. */
+  answered: { potter: boolean; studio: boolean }
+  /** When the window closes and whatever was answered is published; null before pickup. */
+  closesAt: string | null
 }
+
+/** What studios said of the potter after pickup, published answers only: the tally of each question. */
+export type PotterReviewsJson = { count: number } & Record<PotterQuestion, AnswerTally>
 
 export interface PotterRecordJson {
   requests: number
   collected: number
   noShows: number
-  rating: { mean: number; count: number } | null
+  reviews: PotterReviewsJson | null
 }
 
 export interface TimelineEntryJson {
@@ -180,7 +191,7 @@ export interface RequestView {
   /** The log of the firing the ware is in, once the studio has written one. */
   firingLog: FiringLogJson | null
   photos: PhotoJson[]
-  ratings: RequestRatingsJson
+  reviews: RequestReviewsJson
 }
 
 /** What the check-in answers besides the request: the server's check of the ware as it came in. */

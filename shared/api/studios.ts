@@ -5,8 +5,10 @@ import type { LoadRoom } from '../firing/load'
 import type { PriceList, Quote } from '../firing/quote'
 import type { Segment } from '../firing/schedule'
 import type { ChecklistItem } from '../schemas/pieces'
+import type { AnswerTally, StudioQuestion } from '../reviews'
 import type { StudioPolicies } from '../schemas/studios'
 import type { FiringStatus } from '../workflow/firing-status'
+import type { ReviewJson } from './requests'
 
 export type StudioRole = 'owner' | 'crew'
 
@@ -87,6 +89,20 @@ export interface FiringJson {
   cancelledReason: string | null
   /** The last stage move while it can still be undone: back to `from`, until `until`. */
   undo: { from: FiringStatus; until: string } | null
+}
+
+/** A studio's published answers from potters, as its public page shows them. */
+export interface StudioReviewsJson {
+  summary: {
+    count: number
+    /** How many of them would fire there again. */
+    fireAgain: number
+    /** The ranking score (shared/reviews fireAgainScore); null with no published answers. */
+    score: number | null
+    questions: Record<StudioQuestion, AnswerTally>
+  }
+  /** Newest first, with the potter's first name. */
+  reviews: (ReviewJson & { author: string })[]
 }
 
 /** A member of a studio's crew, as its owner sees them (server/services/crew.ts). */

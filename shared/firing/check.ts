@@ -395,7 +395,7 @@ export function checkWare(kiln: Kiln, firing: Firing, pieces: readonly Piece[]):
     findings.push({
       code: 'raku-kiln',
       severity: 'block',
-      message: `Raku ware is pulled from the kiln at full heat; this is a ${kiln.kind} kiln. Book a raku kiln for it.`,
+      message: `Raku ware is pulled from the kiln at full heat; this is a ${kiln.kind} kiln. Look for a raku firing instead.`,
       detail:
         'Opening an electric or shut kiln at glaze heat exposes live elements and cracks its lining; raku kilns are built to be opened hot.',
     })
@@ -644,7 +644,7 @@ export function checkWare(kiln: Kiln, firing: Firing, pieces: readonly Piece[]):
             code: 'foreign-material',
             severity: 'block',
             pieceIndex: index,
-            message: `${name} has ${materialWord(material)} in it, and this load is shared. Set it in a catch tray or a saggar, or book the kiln to yourself.`,
+            message: `${name} has ${materialWord(material)} in it, and this load is shared. Set it in a catch tray or a saggar, or ask for a kiln load of your own.`,
             detail:
               material === 'glass'
                 ? 'Glass melts and runs far below glaze heat and can run off the piece onto the shelf.'
@@ -794,8 +794,8 @@ export function checkWare(kiln: Kiln, firing: Firing, pieces: readonly Piece[]):
       severity: 'block',
       message:
         room && tallest > room.tallestMm
-          ? `The tallest piece stands ${mm(tallest)}; this firing’s load has room for pieces up to ${mm(room.tallestMm)}. Bring shorter pieces or book another firing.`
-          : `These pieces take about ${shelvesWords(need)}; this firing has ${shelvesWords(shelvesLeft ?? 0)} left for pieces this tall. Bring fewer pieces or book another firing.`,
+          ? `The tallest piece stands ${mm(tallest)}; this firing’s load has room for pieces up to ${mm(room.tallestMm)}. Bring shorter pieces or ask for space in another firing.`
+          : `These pieces take about ${shelvesWords(need)}; this firing has ${shelvesWords(shelvesLeft ?? 0)} left for pieces this tall. Bring fewer pieces or ask for space in another firing.`,
       detail:
         'Space is planned shelf by shelf: every piece’s footprint with the studio’s gap between glazed pieces, every layer as tall as its tallest piece.',
     })

@@ -146,7 +146,7 @@ function baseLines(priceList: PriceList, pieces: readonly Piece[], kiln: QuoteKi
 }
 
 /**
- * Quote for a request: base lines by the host's model, then surcharges as a percent of the base,
+ * Quote for a request: base lines by the studio's pricing model, then surcharges as a percent of the base,
  * then the deposit (a percent of the total, or a fixed sum never above the total). The kiln, when
  * given, sizes shelf shares and drops surcharges for things the kiln will not do.
  */

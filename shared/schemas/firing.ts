@@ -2,6 +2,7 @@
 // and the route validate with the same ones; what passes is safe to hand to shared/firing/check.ts.
 
 import { z } from 'zod'
+import { text } from './text'
 import { CLAY_BODIES, COLOURANTS, FIRING_KINDS, GLAZE_SUPPORTS, MATERIALS, PIECE_FORMS, PIECE_STATES } from '../firing/check'
 import { compareCones, isCone, parseCone } from '../firing/cones'
 import { COOLING_PROFILES } from '../firing/schedule'
@@ -11,15 +12,17 @@ function conesInOrder(minCone: unknown, maxCone: unknown): boolean {
   return !isCone(minCone) || !isCone(maxCone) || compareCones(minCone, maxCone) <= 0
 }
 
-/** A cone as people write it ("6", "06", "^6", "cone 04"), read into its canonical form. */
-export const coneSchema = z.string({ error: 'Enter a cone number, like 6 or 04.' }).transform((value, ctx) => {
-  const parsed = parseCone(value)
-  if (!parsed.ok) {
-    ctx.addIssue({ code: 'custom', message: parsed.reason })
-    return z.NEVER
-  }
-  return parsed.cone
-})
+/** A cone as people write it ("6", "06", "^6", "cone 04"), read into its canonical form. The examples help generated test input. */
+export const coneSchema = text({ error: 'Enter a cone number, like 6 or 04.' })
+  .transform((value, ctx) => {
+    const parsed = parseCone(value)
+    if (!parsed.ok) {
+      ctx.addIssue({ code: 'custom', message: parsed.reason })
+      return z.NEVER
+    }
+    return parsed.cone
+  })
+  .meta({ examples: ['6', '04', '10', '022', '5'] })
 
 export const atmosphereSchema = z.enum(['oxidation', 'reduction', 'neutral'], {
   error: 'Choose oxidation, reduction or neutral.',
@@ -142,12 +145,12 @@ export const MAX_PIECES = 200
 export const pieceSchema = z
   .object(
     {
-      label: z.string().trim().max(80, { error: 'Keep the label under 80 characters.' }).optional(),
+      label: text().trim().max(80, { error: 'Keep the label under 80 characters.' }).optional(),
       quantity: z
         .number({ error: 'Enter how many of this piece.' })
         .int({ error: 'Enter a whole number of pieces.' })
         .min(1, { error: 'Bring at least one piece.' })
-        .max(MAX_PIECE_QUANTITY, { error: `At most ${MAX_PIECE_QUANTITY} of one piece per request.` }),
+        .max(MAX_PIECE_QUANTITY, { error: `At most ${MAX_PIECE_QUANTITY} of one piece per ask.` }),
       heightMm: millimetres('height', MAX_PIECE_MM),
       widthMm: millimetres('width', MAX_PIECE_MM),
       depthMm: millimetres('depth', MAX_PIECE_MM),
@@ -179,7 +182,7 @@ export const pieceSchema = z
 export const piecesSchema = z
   .array(pieceSchema, { error: 'List the pieces.' })
   .min(1, { error: 'Add at least one piece.' })
-  .max(MAX_PIECES, { error: `At most ${MAX_PIECES} different pieces per request.` })
+  .max(MAX_PIECES, { error: `At most ${MAX_PIECES} different pieces per ask.` })
 
 export const firingSpecSchema = z.object(
   {
@@ -218,8 +221,7 @@ function percent(what: string, max: number) {
 export const priceListSchema = z
   .object(
     {
-      currency: z
-        .string({ error: 'Enter the currency, like USD.' })
+      currency: text({ error: 'Enter the currency, like USD.' })
         .trim()
         .toUpperCase()
         .regex(/^[A-Z]{3}$/, { error: 'Enter the currency as a three-letter code, like USD or EUR.' }),
@@ -285,7 +287,7 @@ export const wareCheckInlineSchema = z.strictObject(
 
 export const wareCheckByFiringSchema = z.strictObject(
   {
-    firingId: z.string({ error: 'Give the firing’s id.' }).trim().min(1, { error: 'Give the firing’s id.' }).max(100),
+    firingId: text({ error: 'Give the firing’s id.' }).trim().min(1, { error: 'Give the firing’s id.' }).max(100),
     pieces: piecesSchema,
   },
   { error: (issue) => (issue.code === 'unrecognized_keys' ? `Unexpected field: ${issue.keys.join(', ')}. ${BODY_SHAPE}` : BODY_SHAPE) },
@@ -299,15 +301,19 @@ export type WareCheckBody = WareCheckInlineBody | WareCheckByFiringBody
  * `{kiln, firing, pieces, priceList?}` or `{firingId, pieces}`. The shape is chosen by the presence of
  * firingId so that errors name the fields of the shape meant, not a bare "invalid input".
  */
-export const wareCheckBodySchema = z.unknown().transform((body, ctx): WareCheckBody => {
-  const byFiring = typeof body === 'object' && body !== null && 'firingId' in body
-  const parsed = byFiring ? wareCheckByFiringSchema.safeParse(body) : wareCheckInlineSchema.safeParse(body)
-  if (parsed.success) return parsed.data
-  for (const issue of parsed.error.issues) {
-    ctx.addIssue({ code: 'custom', message: issue.message, path: [...issue.path] as (string | number)[] })
-  }
-  return z.NEVER
-})
+export const wareCheckBodySchema = z
+  .unknown()
+  .transform((body, ctx): WareCheckBody => {
+    const byFiring = typeof body === 'object' && body !== null && 'firingId' in body
+    const parsed = byFiring ? wareCheckByFiringSchema.safeParse(body) : wareCheckInlineSchema.safeParse(body)
+    if (parsed.success) return parsed.data
+    for (const issue of parsed.error.issues) {
+      ctx.addIssue({ code: 'custom', message: issue.message, path: [...issue.path] as (string | number)[] })
+    }
+    return z.NEVER
+  })
+  // Says which shapes the body takes, for tools that generate input from schemas (the fuzz suite).
+  .meta({ oneOf: [wareCheckInlineSchema, wareCheckByFiringSchema] })
 
 export type KilnInput = z.input<typeof kilnSchema>
 export type PieceInput = z.input<typeof pieceSchema>

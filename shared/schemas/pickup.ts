@@ -1,6 +1,8 @@
-// Bodies of the drop-off-to-pickup routes: check-in, the firing log, results, balance, ratings.
+// Bodies of the drop-off-to-pickup routes: check-in, the firing log, results, balance, the answers after pickup.
 import { z } from 'zod'
 import { CONE_BENDS } from '../firing/witness'
+import { text } from './text'
+import { ANSWERS } from '../reviews'
 import { coneSchema } from './firing'
 
 const mm = (what: string) =>
@@ -21,8 +23,8 @@ export const checkInSchema = z
         }),
       )
       .max(200),
-    conditionNotes: z.string().trim().max(4000).optional(),
-    refuse: z.object({ reason: z.string().trim().min(3, 'Say why the ware is refused.').max(1000) }).optional(),
+    conditionNotes: text().trim().max(4000).optional(),
+    refuse: z.object({ reason: text().trim().min(3, 'Say why the ware is refused.').max(1000) }).optional(),
   })
   .refine((b) => b.refuse || b.pieces.some((p) => p.received > 0), {
     message: 'Record the pieces received, or refuse the ware with a reason.',
@@ -55,13 +57,13 @@ export const firingLogSchema = z.object({
       z.object({
         cone: coneSchema,
         bend: z.enum(CONE_BENDS, { error: 'Say how far the cone bent.' }),
-        position: z.string().trim().max(80).optional(),
+        position: text().trim().max(80).optional(),
       }),
     )
     .max(60)
     .default([]),
   readings: z.array(readingSchema).max(MAX_READINGS, `At most ${MAX_READINGS} readings; keep one a minute or fewer.`).default([]),
-  notes: z.string().trim().max(4000).optional(),
+  notes: text().trim().max(4000).optional(),
 })
 export type FiringLogBody = z.infer<typeof firingLogSchema>
 
@@ -83,7 +85,7 @@ export const PIECE_OUTCOMES = [
 export type PieceOutcome = (typeof PIECE_OUTCOMES)[number]
 
 const outcome = z.enum(PIECE_OUTCOMES, { error: 'Say how the piece came out.' })
-const outcomeNotes = z.string().trim().max(1000).optional()
+const outcomeNotes = text().trim().max(1000).optional()
 
 /**
  * The results for a request: per piece by its tag, or one outcome for every piece of a declared line
@@ -96,38 +98,37 @@ export const resultsSchema = z
       .max(200)
       .optional(),
     pieces: z
-      .array(z.object({ tag: z.string().trim().min(8).max(12), outcome, notes: outcomeNotes }))
+      .array(z.object({ tag: text().trim().min(8).max(12), outcome, notes: outcomeNotes }))
       .max(5000)
       .optional(),
-    notes: z.string().trim().max(4000).optional(),
+    notes: text().trim().max(4000).optional(),
   })
   .refine((b) => (b.outcomes?.length ?? 0) + (b.pieces?.length ?? 0) > 0, {
     message: 'Give each piece how it came out.',
     path: ['pieces'],
   })
 
-const stars = (what: string) =>
-  z
-    .number({ error: `Give ${what} 1 to 5 stars.` })
-    .int()
-    .min(1, '1 to 5 stars.')
-    .max(5, '1 to 5 stars.')
+const answer = z.enum(ANSWERS, { error: 'Choose yes, partly or no.' })
 
-export const ratingSchema = z.object({
-  stars: stars('the exchange'),
-  care: stars('care of the ware').optional(),
-  communication: stars('communication').optional(),
-  results: stars('the results').optional(),
-  asDeclared: stars('ware as declared').optional(),
-  onTime: stars('being on time').optional(),
-  text: z.string().trim().max(2000, 'Keep it under 2000 characters.').default(''),
+/**
+ * One side's answers after pickup. Every question is optional here because the server decides the side
+ * from who is asking; `unanswered` (shared/reviews) then names the questions that side left open.
+ */
+export const reviewSchema = z.object({
+  loading: answer.optional(),
+  resultsAsLogged: answer.optional(),
+  turnaround: answer.optional(),
+  communication: answer.optional(),
+  fireAgain: z.boolean({ error: 'Say whether you would fire here again.' }).optional(),
+  asDeclared: answer.optional(),
+  cleanAndDry: answer.optional(),
+  onTime: answer.optional(),
+  note: text().trim().max(2000, 'Keep it under 2000 characters.').default(''),
 })
-
-export const ratingReplySchema = z.object({ text: z.string().trim().min(2, 'Write a reply.').max(2000) })
 
 export const counterPaymentSchema = z.object({
   amountCents: z.number().int('Whole cents.').positive('Enter what was paid.').max(100_000_000).optional(),
-  note: z.string().trim().max(300).optional(),
+  note: text().trim().max(300).optional(),
 })
 
 export const photoPatchSchema = z.object({ public: z.boolean() })

@@ -4,20 +4,18 @@ import { z } from 'zod'
 import type { Piece } from '../firing/check'
 import { POST_HEIGHTS_MM } from '../firing/load'
 import { PIECE_OUTCOMES } from './pickup'
+import { text } from './text'
 
 /** Which pieces a checklist item asks about: every one, or only those the request declares so. */
 export const CHECK_APPLIES_TO = ['all', 'greenware', 'glazed', 'closed-form', 'runny-glaze'] as const
 export type CheckAppliesTo = (typeof CHECK_APPLIES_TO)[number]
 
 export const checklistItemSchema = z.object({
-  id: z
-    .string({ error: 'Give the item a short id.' })
-    .regex(/^[a-z0-9][a-z0-9-]{1,39}$/, 'Ids are 2–40 lower-case letters, digits and dashes.'),
-  label: z
-    .string({ error: 'Say what the crew checks.' })
-    .trim()
-    .min(3, 'Say what the crew checks.')
-    .max(120, 'Keep it under 120 characters.'),
+  id: text({ error: 'Give the item a short id.' }).regex(
+    /^[a-z0-9][a-z0-9-]{1,39}$/,
+    'Ids are 2–40 lower-case letters, digits and dashes.',
+  ),
+  label: text({ error: 'Say what the crew checks.' }).trim().min(3, 'Say what the crew checks.').max(120, 'Keep it under 120 characters.'),
   appliesTo: z.enum(CHECK_APPLIES_TO, { error: 'Choose which pieces it applies to.' }).default('all'),
 })
 export type ChecklistItem = z.output<typeof checklistItemSchema>
@@ -62,12 +60,12 @@ const mm = (what: string) =>
     .max(3000)
 
 const photoIds = z.array(z.uuid({ error: 'Photos are named by their ids.' })).max(8, 'At most 8 photos.')
-const reason = z.string({ error: 'Say why.' }).trim().min(3, 'Say why the piece is held back.').max(1000)
+const reason = text({ error: 'Say why.' }).trim().min(3, 'Say why the piece is held back.').max(1000)
 
 /** One piece as the crew takes it in at drop-off: every item ticked or failed, its size if it differs, its weight. */
 export const pieceTagSchema = z.object({
   pieceIndex: z.number({ error: 'Say which of the declared pieces this is.' }).int().min(0).max(199),
-  checks: z.record(z.string().max(40), z.boolean(), { error: 'Tick or fail each item.' }).default({}),
+  checks: z.record(text().max(40), z.boolean(), { error: 'Tick or fail each item.' }).default({}),
   measured: z.object({ heightMm: mm('height'), widthMm: mm('width'), depthMm: mm('depth') }).optional(),
   weightG: z.number({ error: 'Enter the weight in grams.' }).positive('The weight must be more than 0 g.').max(500_000).optional(),
   /** Why it is held back, when an item failed; the failed items are named when this is left out. */
@@ -80,7 +78,7 @@ export const pieceHoldSchema = z.object({ reason, photoIds: photoIds.optional() 
 
 export const pieceResultSchema = z.object({
   outcome: z.enum(PIECE_OUTCOMES, { error: 'Say how the piece came out.' }),
-  notes: z.string().trim().max(1000).optional(),
+  notes: text().trim().max(1000).optional(),
   photoIds: photoIds.optional(),
 })
 export type PieceResultBody = z.output<typeof pieceResultSchema>
@@ -89,7 +87,7 @@ export type PieceResultBody = z.output<typeof pieceResultSchema>
 export const LOAD_KEY = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}:\d{1,3}:\d{1,3}$/
 
 export const placementSchema = z.object({
-  key: z.string().regex(LOAD_KEY, 'Not a piece of this load.'),
+  key: text().regex(LOAD_KEY, 'Not a piece of this load.'),
   layer: z.number().int().min(0).max(60),
   shelf: z.number().int().min(0).max(60),
   x: z.number().min(-5000).max(5000),

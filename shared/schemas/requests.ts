@@ -1,7 +1,8 @@
 import { z } from 'zod'
+import { text } from './text'
 import { piecesSchema } from './firing'
 
-const notes = z.string().trim().max(2000, 'Keep the notes under 2000 characters.')
+const notes = text().trim().max(2000, 'Keep the notes under 2000 characters.')
 
 export const requestCreateSchema = z.object({ pieces: piecesSchema, notes: notes.optional() })
 export type RequestCreateBody = z.infer<typeof requestCreateSchema>
@@ -9,28 +10,28 @@ export type RequestCreateBody = z.infer<typeof requestCreateSchema>
 export const requestPatchSchema = z.object({ pieces: piecesSchema.optional(), notes: notes.optional() })
 
 export const requestSendSchema = z.object({
-  acknowledged: z.array(z.string().max(60)).max(50).default([]),
-  agreePolicies: z.literal(true, { error: 'Agree to the studio’s policies to send the request.' }),
-  policiesVersion: z.number({ error: 'Say which version of the policies you agreed to.' }).int().min(1),
+  acknowledged: z.array(text().max(60)).max(50).default([]),
+  agreePolicies: z.literal(true, { error: 'Agree to the studio’s terms to send your ask.' }),
+  policiesVersion: z.number({ error: 'Say which version of the terms you agreed to.' }).int().min(1),
 })
 
 export const requestDeclineSchema = z.object({
-  reason: z.string({ error: 'Tell the potter why.' }).trim().min(3, 'Tell the potter why, in a few words.').max(500),
+  reason: text({ error: 'Tell the potter why.' }).trim().min(3, 'Tell the potter why, in a few words.').max(500),
 })
 
 export const requestMoveSchema = z.object({ firingId: z.uuid({ error: 'Choose a firing.' }) })
 
-export const requestWithdrawSchema = z.object({ reason: z.string().trim().max(500).optional() })
+export const requestWithdrawSchema = z.object({ reason: text().trim().max(500).optional() })
 
 export const messageSchema = z.object({
-  body: z.string({ error: 'Write a message.' }).trim().min(1, 'Write a message.').max(4000, 'Keep a message under 4000 characters.'),
+  body: text({ error: 'Write a message.' }).trim().min(1, 'Write a message.').max(4000, 'Keep a message under 4000 characters.'),
 })
 
 export const disputeSchema = z.object({
-  reason: z.string({ error: 'Say what went wrong.' }).trim().min(5, 'Say what went wrong, in a sentence.').max(2000),
+  reason: text({ error: 'Say what went wrong.' }).trim().min(5, 'Say what went wrong, in a sentence.').max(2000),
 })
 
 export const adminRefundSchema = z.object({
   amountCents: z.number({ error: 'Enter the refund in cents.' }).int('Whole cents.').positive('Enter more than 0.'),
-  reason: z.string().trim().min(3, 'Say why.').max(500),
+  reason: text().trim().min(3, 'Say why.').max(500),
 })

@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { text } from './text'
 import { FIRING_KINDS } from '../firing/check'
 import { coneIndex, parseCone } from '../firing/cones'
 
@@ -14,23 +15,24 @@ const conePart = (value: string) => {
 }
 
 /** "6", "^6", "cone 04", or a range "04..6". */
-export const coneFilterSchema = z.string().transform((value, ctx) => {
-  const [a, b] = value.split('..')
-  const low = conePart(a)
-  const high = b === undefined ? low : conePart(b)
-  if (low === null || high === null) {
-    ctx.addIssue({ code: 'custom', message: 'Enter a cone like 6 or 04, or a range like 04..6.' })
-    return z.NEVER
-  }
-  if (low > high) {
-    ctx.addIssue({ code: 'custom', message: 'Put the cooler cone first, like 04..6.' })
-    return z.NEVER
-  }
-  return { minRank: low, maxRank: high }
-})
+export const coneFilterSchema = text()
+  .transform((value, ctx) => {
+    const [a, b] = value.split('..')
+    const low = conePart(a)
+    const high = b === undefined ? low : conePart(b)
+    if (low === null || high === null) {
+      ctx.addIssue({ code: 'custom', message: 'Enter a cone like 6 or 04, or a range like 04..6.' })
+      return z.NEVER
+    }
+    if (low > high) {
+      ctx.addIssue({ code: 'custom', message: 'Put the cooler cone first, like 04..6.' })
+      return z.NEVER
+    }
+    return { minRank: low, maxRank: high }
+  })
+  .meta({ examples: ['6', '04..6', '^10'] })
 
-const day = z
-  .string()
+const day = text()
   .refine((s) => !Number.isNaN(Date.parse(s)), 'Enter a date like 2027-03-05.')
   .transform((s) => new Date(/^\d{4}-\d{2}-\d{2}$/.test(s) ? `${s}T00:00:00Z` : s))
 
@@ -41,13 +43,17 @@ export const SEARCH_SORTS = ['distance', 'price', 'soonest', 'rating'] as const
 
 export const searchQuerySchema = z
   .object({
-    near: z
-      .string()
+    near: text()
       .regex(/^\s*-?\d+(\.\d+)?\s*,\s*-?\d+(\.\d+)?\s*$/, 'Give near as latitude,longitude, like 45.52,-122.68.')
       .transform((s) => s.split(',').map(Number) as [number, number])
       .refine(([lat, lng]) => Math.abs(lat) <= 90 && Math.abs(lng) <= 180, 'That point is not on the map.')
       .optional(),
-    place: z.string().trim().min(2, 'Enter a town or a postal code.').max(120).optional(),
+    place: text()
+      .trim()
+      .min(2, 'Enter a town or a postal code.')
+      .max(120)
+      .meta({ examples: ['Portland, OR', '97214', 'V6B'] })
+      .optional(),
     radiusKm: number('distance', 1, 2000).optional(),
     cone: coneFilterSchema.optional(),
     atmosphere: z.enum(['oxidation', 'reduction', 'neutral'], { error: 'Choose oxidation, reduction or neutral.' }).optional(),
@@ -57,7 +63,7 @@ export const searchQuerySchema = z
     fitsHeightMm: number('height', 1, 3000).optional(),
     fitsWidthMm: number('width', 1, 3000).optional(),
     fitsDepthMm: number('depth', 1, 3000).optional(),
-    q: z.string().trim().max(100, 'Keep the words under 100 characters.').optional(),
+    q: text().trim().max(100, 'Keep the words under 100 characters.').optional(),
     sort: z.enum(SEARCH_SORTS, { error: 'Sort by distance, price, soonest or rating.' }).optional(),
     page: z.coerce.number().int('Pages are whole numbers.').min(1, 'Pages start at 1.').max(250).default(1),
     perPage: z.coerce.number().int().min(1).max(50, 'At most 50 per page.').default(20),
@@ -98,7 +104,8 @@ export interface SearchHit {
   space: { shelvesLeft: number; shelvesTotal: number; tallestMm: number }
   distanceKm: number | null
   priceExample: { label: string; totalCents: number; currency: string } | null
-  rating: { mean: number; count: number } | null
+  /** Published answers from potters: how many, and how many would fire there again. */
+  reviews: { fireAgain: number; count: number } | null
 }
 
 export interface SearchResponse {

@@ -1,5 +1,6 @@
 // Bodies of the studio, kiln, price list and firing routes. The editors use the same schemas.
 import { z } from 'zod'
+import { text } from './text'
 import { coneSchema, atmosphereSchema, coolingProfileSchema, firingKindSchema, kilnSchema, priceListSchema } from './firing'
 import { FIRING_STATUSES } from '../workflow/firing-status'
 import { SEGMENT_ZONES } from '../firing/schedule'
@@ -16,9 +17,8 @@ export function isTimeZone(zone: string): boolean {
   }
 }
 
-const text = (max: number, what: string) =>
-  z
-    .string({ error: `Enter the ${what}.` })
+const longText = (max: number, what: string) =>
+  text({ error: `Enter the ${what}.` })
     .trim()
     .max(max, `Keep the ${what} under ${max} characters.`)
 
@@ -28,7 +28,7 @@ export const studioPoliciesSchema = z.object({
     .min(1, 'Accept at least one clay body.')
     .max(4)
     .refine((bodies) => new Set(bodies).size === bodies.length, 'List each clay body once.'),
-  wareRequirements: text(2000, 'ware requirements'),
+  wareRequirements: longText(2000, 'ware requirements'),
   cancellation: z.object({
     fullRefundDaysBefore: z
       .number({ error: 'Enter a number of days.' })
@@ -53,13 +53,20 @@ export const DEFAULT_POLICIES: StudioPolicies = {
   depositHoldHours: 48,
 }
 
-const name = z
-  .string({ error: 'Enter the studio’s name.' })
+const name = text({ error: 'Enter the studio’s name.' })
   .trim()
   .min(2, 'Enter the studio’s name.')
   .max(120, 'Keep the name under 120 characters.')
-const postalCode = z.string().trim().min(3, 'Enter a postal or ZIP code.').max(12, 'That postal code is too long.')
-const address = z.string().trim().min(5, 'Enter the street address with its town or ZIP code.').max(300, 'That address is too long.')
+const postalCode = text()
+  .trim()
+  .min(3, 'Enter a postal or ZIP code.')
+  .max(12, 'That postal code is too long.')
+  .meta({ examples: ['97214', '98101', 'V6B'] })
+const address = text()
+  .trim()
+  .min(5, 'Enter the street address with its town or ZIP code.')
+  .max(300, 'That address is too long.')
+  .meta({ examples: ['1200 SE Morrison St, Portland, OR 97214'] })
 
 export const studioCreateSchema = z
   .object({ name, postalCode: postalCode.optional(), address: address.optional() })
@@ -69,18 +76,19 @@ export type StudioCreateBody = z.infer<typeof studioCreateSchema>
 export const studioPatchSchema = z
   .object({
     name,
-    description: text(4000, 'description'),
+    description: longText(4000, 'description'),
     address: address.nullable(),
     postalCode,
     lat: z.number().min(-90).max(90),
     lng: z.number().min(-180).max(180),
-    timezone: z.string().refine(isTimeZone, 'Choose a time zone from the list.'),
-    currency: z
-      .string()
+    timezone: text()
+      .refine(isTimeZone, 'Choose a time zone from the list.')
+      .meta({ examples: ['America/Los_Angeles', 'America/Vancouver'] }),
+    currency: text()
       .trim()
       .toUpperCase()
       .regex(/^[A-Z]{3}$/, 'Use a three-letter currency code, like USD.'),
-    dropOffHours: text(300, 'drop-off hours'),
+    dropOffHours: longText(300, 'drop-off hours'),
     policies: studioPoliciesSchema,
     published: z.boolean(),
   })
@@ -92,13 +100,13 @@ export const studioPatchSchema = z
 export type StudioPatchBody = z.infer<typeof studioPatchSchema>
 
 const kilnExtras = z.object({
-  name: z.string({ error: 'Name the kiln.' }).trim().min(1, 'Name the kiln.').max(80, 'Keep the name under 80 characters.'),
+  name: text({ error: 'Name the kiln.' }).trim().min(1, 'Name the kiln.').max(80, 'Keep the name under 80 characters.'),
   shelfCount: z.number({ error: 'Enter how many shelves.' }).int('Enter a whole number of shelves.').min(0).max(60),
   shelfWidthMm: z.number().positive('The shelf size must be more than 0.').max(5000).nullable().optional(),
   shelfDepthMm: z.number().positive('The shelf size must be more than 0.').max(5000).nullable().optional(),
   /** Half shelves, posts, gaps and clearances for the load planner; null for the usual ones. */
   furniture: kilnFurnitureSchema.nullable().optional(),
-  notes: text(2000, 'notes').optional(),
+  notes: longText(2000, 'notes').optional(),
 })
 
 /** A kiln record: its limits (the Kiln of shared/firing/check.ts) and what a studio adds. */
@@ -106,7 +114,7 @@ export const kilnBodySchema = z.intersection(kilnExtras, kilnSchema)
 export type KilnBody = z.infer<typeof kilnBodySchema>
 
 /** Any subset; the server merges it with the stored kiln and checks the whole again. */
-export const kilnPatchSchema = z.record(z.string(), z.unknown())
+export const kilnPatchSchema = z.record(text(), z.unknown())
 
 export const priceListBodySchema = priceListSchema
 export type PriceListBody = z.infer<typeof priceListBodySchema>
@@ -138,7 +146,7 @@ const firingFields = {
     .max(60, 'At most 60 layers.')
     .nullable()
     .optional(),
-  notes: text(2000, 'notes').optional(),
+  notes: longText(2000, 'notes').optional(),
   schedule: z.array(segmentSchema).max(60).nullable().optional(),
 }
 
@@ -178,19 +186,17 @@ export const firingMoveSchema = z.object({
 export type FiringMoveBody = z.infer<typeof firingMoveSchema>
 
 export const firingCancelSchema = z.object({
-  reason: z
-    .string({ error: 'Say why the firing is cancelled; potters holding space will read it.' })
+  reason: text({ error: 'Say why the firing is cancelled; potters holding space will read it.' })
     .trim()
     .min(3, 'Say why the firing is cancelled.')
     .max(500),
 })
 
 export const crewInviteSchema = z.object({
-  email: z
-    .string()
+  email: text()
     .trim()
     .toLowerCase()
     .pipe(z.email({ error: 'Enter a valid e-mail address.' })),
 })
 
-export const inviteAcceptSchema = z.object({ token: z.string().min(10).max(200) })
+export const inviteAcceptSchema = z.object({ token: text().min(10).max(200) })

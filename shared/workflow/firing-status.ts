@@ -43,5 +43,5 @@ export const FIRING_STATUS_LABELS: Record<FiringStatus, string> = {
   firing: 'Firing',
   cooling: 'Cooling',
   unloaded: 'Unloaded',
-  cancelled: 'Cancelled',
+  cancelled: 'Called off',
 }

@@ -1,8 +1,9 @@
 // Who may do what to a request, and when: one table (state × side → actions) plus the predicates that
-// refine it (money owed, a price waiting, a rating given). The server's one door refuses what this
+// refine it (money owed, a price waiting, answers given after pickup). The server's one door refuses what this
 // refuses, the request view lists what this allows, and the client's buttons show exactly that list.
 import { takesRequests, type FiringStatus } from './firing-status'
-import { holdsSpace, type RequestState } from './request-states'
+import { REVIEW_WINDOW_DAYS } from '../reviews'
+import { holdsSpace, REQUEST_STATE_LABELS, type RequestState } from './request-states'
 
 export const REQUEST_ACTIONS = [
   'edit',
@@ -25,15 +26,26 @@ export const REQUEST_ACTIONS = [
   'pay-balance',
   'collected',
   'rate',
-  'reply',
   'dispute',
   'message',
   'hand-back',
 ] as const
 export type RequestAction = (typeof REQUEST_ACTIONS)[number]
 
-/** Actions Conewright itself takes: a paid deposit arriving, a hold or a firing running out, a firing moving. */
-export const SYSTEM_ACTIONS = ['deposit-paid', 'balance-paid', 'lapse', 'firing-moved', 'desk-refund'] as const
+/**
+ * Actions Conewright itself takes: a paid deposit arriving, a hold or a firing running out, a firing
+ * moving, the answers after pickup published when their window closes; and the desk's own (behind the
+ * admin guard): a refund, settling a dispute.
+ */
+export const SYSTEM_ACTIONS = [
+  'deposit-paid',
+  'balance-paid',
+  'lapse',
+  'firing-moved',
+  'desk-refund',
+  'desk-settle',
+  'publish-reviews',
+] as const
 export type SystemAction = (typeof SYSTEM_ACTIONS)[number]
 
 export type Side = 'potter' | 'studio' | 'admin'
@@ -57,8 +69,8 @@ const TABLE: Table = {
     studio: ['results', 'counter-payment', 'collected', 'dispute', 'message'],
     admin: [],
   },
-  collected: { potter: ['rate', 'dispute', 'message'], studio: ['rate', 'reply', 'dispute', 'message'], admin: [] },
-  disputed: { potter: ['rate', 'message'], studio: ['rate', 'reply', 'message', 'hand-back'], admin: [] },
+  collected: { potter: ['rate', 'dispute', 'message'], studio: ['rate', 'dispute', 'message'], admin: [] },
+  disputed: { potter: ['rate', 'message'], studio: ['rate', 'message', 'hand-back'], admin: [] },
   declined: ended,
   withdrawn: ended,
   cancelled: ended,
@@ -76,9 +88,10 @@ export interface RequestFacts {
   pricePending: boolean
   proposedMove: boolean
   resultsPosted: boolean
+  /** Which sides have given their answers after pickup (answers are final). */
   ratedBy: { potter: boolean; studio: boolean }
-  /** Whether the studio already answered the potter's rating in public. */
-  replied: boolean
+  /** Whether the window for answering after pickup is still open (see shared/reviews). */
+  reviewWindowOpen: boolean
   /** Money taken at the counter that the studio owes back and has not yet marked handed back. */
   counterRefundDueCents: number
 }
@@ -90,10 +103,10 @@ export function owesMoney(facts: RequestFacts): boolean {
   return false
 }
 
-/** Whether this side may still rate the other on this request. */
+/** Whether this side may still give its answers after pickup: once, and only while the window is open. */
 export function canBeRated(facts: RequestFacts, side: Side): boolean {
   if (side === 'admin') return false
-  return (facts.state === 'collected' || facts.state === 'disputed') && !facts.ratedBy[side]
+  return (facts.state === 'collected' || facts.state === 'disputed') && !facts.ratedBy[side] && facts.reviewWindowOpen
 }
 
 /** The firing can still take ware in, by the studio's hands (before loading). */
@@ -114,7 +127,6 @@ const REFINE: Partial<Record<RequestAction, (facts: RequestFacts, side: Side) =>
   'pay-balance': (f) => f.balanceOwedCents > 0,
   collected: (f) => f.balanceOwedCents === 0,
   rate: (f, side) => canBeRated(f, side),
-  reply: (f) => f.ratedBy.potter && !f.replied,
   'hand-back': (f) => f.counterRefundDueCents > 0,
 }
 
@@ -130,44 +142,42 @@ export function sideMayEver(action: RequestAction, side: Side): boolean {
 
 export type Refusal = { status: 403 | 409; code: string; message: string }
 
+// The actions in the words of the refusals people read: ask, take on, turn down, call off.
 const ACTION_WORDS: Record<RequestAction, string> = {
   edit: 'change the ware',
-  send: 'send the request',
-  withdraw: 'withdraw the request',
+  send: 'send the ask',
+  withdraw: 'withdraw the ask',
   'pay-deposit': 'pay the deposit',
-  'answer-move': 'answer a proposed move',
-  accept: 'take this request on',
-  decline: 'decline the request',
-  move: 'propose another firing',
-  cancel: 'call the request off',
+  'answer-move': 'answer a suggested firing',
+  accept: 'take this ware on',
+  decline: 'turn the ask down',
+  move: 'suggest another firing',
+  cancel: 'call it off',
   'counter-payment': 'take a payment at the counter',
-  'check-in': 'check the ware in',
+  'check-in': 'take the ware in',
   'tag-piece': 'tag a piece at drop-off',
   'hold-piece': 'hold a piece back or take it in again',
   'confirm-price': 'confirm the new price',
   'decline-price': 'turn down the new price',
   results: 'post results',
-  ready: 'mark the ware ready',
+  ready: 'mark the ware ready for pickup',
   'pay-balance': 'pay the balance',
-  collected: 'mark the ware collected',
-  rate: 'rate this exchange',
-  reply: 'reply to the rating',
+  collected: 'mark the ware picked up',
+  rate: 'answer the questions after pickup',
   dispute: 'raise a dispute',
   message: 'write in the thread',
   'hand-back': 'mark money handed back at the counter',
 }
 
-const STATE_WORDS = (state: RequestState) => state.replace('_', ' ')
-
 /** Why a refining predicate said no, for the actions whose "not now" has a better word than the state. */
 const NOT_NOW: Partial<Record<RequestAction, (facts: RequestFacts) => Omit<Refusal, 'status'>>> = {
   accept: () => ({ code: 'firing-not-open', message: 'This firing is not taking ware any more.' }),
   move: () => ({ code: 'firing-not-open', message: 'This firing is not taking ware any more.' }),
-  'answer-move': () => ({ code: 'no-move', message: 'No move is waiting for an answer.' }),
-  'pay-deposit': () => ({ code: 'nothing-owed', message: 'No deposit is owed for this request.' }),
+  'answer-move': () => ({ code: 'no-move', message: 'No other firing is waiting for your answer.' }),
+  'pay-deposit': () => ({ code: 'nothing-owed', message: 'No deposit is owed here.' }),
   'pay-balance': () => ({ code: 'nothing-owed', message: 'Nothing is owed.' }),
   'counter-payment': () => ({ code: 'nothing-owed', message: 'Nothing is owed at this point.' }),
-  'check-in': () => ({ code: 'firing-loaded', message: 'The firing is already loaded; ware can no longer be checked in.' }),
+  'check-in': () => ({ code: 'firing-loaded', message: 'The firing is already loaded; ware can no longer be taken in.' }),
   'tag-piece': () => ({ code: 'firing-loaded', message: 'The firing is already loaded; pieces can no longer be tagged in.' }),
   'hold-piece': () => ({ code: 'firing-loaded', message: 'The firing is already loaded; a piece can no longer be held back.' }),
   'confirm-price': () => ({ code: 'nothing-to-confirm', message: 'No changed price waits for your answer.' }),
@@ -177,8 +187,10 @@ const NOT_NOW: Partial<Record<RequestAction, (facts: RequestFacts) => Omit<Refus
     code: 'balance-owed',
     message: `${(f.balanceOwedCents / 100).toFixed(2)} is still owed. Take it at the counter or let the potter pay online first.`,
   }),
-  rate: () => ({ code: 'already-rated', message: 'You have already rated this exchange.' }),
-  reply: () => ({ code: 'no-reply-now', message: 'There is no rating to answer, or it is answered already.' }),
+  rate: (f) =>
+    f.reviewWindowOpen
+      ? { code: 'already-answered', message: 'You have given your answers; they cannot be changed.' }
+      : { code: 'review-window-closed', message: `Answers close ${REVIEW_WINDOW_DAYS} days after pickup; this window has closed.` },
   'hand-back': () => ({ code: 'nothing-owed', message: 'No money from the counter is owed back.' }),
 }
 
@@ -194,7 +206,7 @@ export function refusalOf(action: RequestAction, facts: RequestFacts, side: Side
     return {
       status: 409,
       code: 'deposit-unpaid',
-      message: 'The deposit is not paid yet. Record it at the counter first, or ask the potter to pay it on the request.',
+      message: 'The deposit is not paid yet. Record it at the counter first, or ask the potter to pay it online.',
     }
   }
   // Allowed in this state, but a predicate says not now.
@@ -202,7 +214,7 @@ export function refusalOf(action: RequestAction, facts: RequestFacts, side: Side
   return {
     status: 409,
     code: 'bad-state-change',
-    message: `This request is ${STATE_WORDS(facts.state)}; you cannot ${ACTION_WORDS[action]} now.`,
+    message: `You cannot ${ACTION_WORDS[action]} while this stands at “${REQUEST_STATE_LABELS[facts.state]}”.`,
   }
 }
 

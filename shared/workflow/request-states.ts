@@ -56,18 +56,23 @@ export function isFinal(state: RequestState): boolean {
   return NEXT[state].length === 0
 }
 
+/**
+ * The states as people read them, in the words of contract firing: a potter asks, the studio takes the
+ * ware on (or turns it down), the deposit holds the space, the ware is dropped off, fired, ready for
+ * pickup and picked up. The stored values stay as they are.
+ */
 export const REQUEST_STATE_LABELS: Record<RequestState, string> = {
   draft: 'Draft',
-  sent: 'Sent',
-  accepted: 'Accepted',
-  declined: 'Declined',
+  sent: 'Asked',
+  accepted: 'Taken on',
+  declined: 'Turned down',
   withdrawn: 'Withdrawn',
-  deposit_paid: 'Deposit paid',
+  deposit_paid: 'Space held',
   received: 'Received',
   fired: 'Fired',
-  ready: 'Ready',
-  collected: 'Collected',
-  cancelled: 'Cancelled',
+  ready: 'Ready for pickup',
+  collected: 'Picked up',
+  cancelled: 'Called off',
   lapsed: 'Lapsed',
-  disputed: 'Disputed',
+  disputed: 'In dispute',
 }

@@ -20,6 +20,7 @@ export const pages = {
   studioEditor: () => import('../features/studios/pages/StudioEditorPage'),
   calendar: () => import('../features/studios/pages/CalendarPage'),
   crew: () => import('../features/studios/pages/CrewPage'),
+  money: () => import('../features/studios/pages/MoneyPage'),
   firingLog: () => import('../features/studios/pages/FiringLogPage'),
   kilnEditor: () => import('../features/studios/pages/KilnEditorPage'),
   kiln: () => import('../features/studios/pages/KilnPage'),

@@ -78,6 +78,7 @@ export const routes: RouteObject[] = [
               { path: 'studios/:id/edit', ...page('studioEditor', (m) => m.StudioEditorPage, studioSide) },
               { path: 'studios/:id/calendar', ...page('calendar', (m) => m.CalendarPage, studioSide) },
               { path: 'studios/:id/crew', ...page('crew', (m) => m.CrewPage, studioSide) },
+              { path: 'studios/:id/money', ...page('money', (m) => m.MoneyPage, studioSide) },
               { path: 'studios/:id/kilns/new', ...page('kilnEditor', (m) => m.NewKilnPage, studioSide) },
               { path: 'studios/:id/requests', ...page('inbox', (m) => m.StudioInboxPage, studioSide) },
               { path: 'firings/:firingId/request', ...page('composeRequest', (m) => m.ComposeRequestPage, ['potter']) },

@@ -1,4 +1,4 @@
-// Kilns, firings and policies in plain words, as potters and studios read them.
+// Kilns, firings and the studio's terms in plain words, as potters and studios read them.
 import type { Atmosphere, CoolingProfile, FiringKind, Kiln, KilnInterior, KilnKind } from '../../shared/firing/check'
 import { formatCone } from '../../shared/firing/cones'
 import type { StudioPolicies } from '../../shared/schemas/studios'
@@ -80,18 +80,19 @@ export function firingInWords(firing: {
   return `${firingKindLabel(firing.kind)}, ${formatCone(firing.cone)} ${firing.atmosphere}${firing.slowCool ? ', slow cooled' : ''}${cooling}`
 }
 
+/** The studio's terms in a potter's words: what clay it takes, what comes back on withdrawing, how long the space is held. */
 export function policiesInWords(policies: StudioPolicies): string[] {
   const { fullRefundDaysBefore: days, laterRefundPercent: percent } = policies.cancellation
-  const later = percent >= 100 ? 'and in full after that too' : percent <= 0 ? 'and nothing after that' : `and ${percent} % back after that`
-  const refund =
+  const later = percent >= 100 ? 'all of it still does' : percent <= 0 ? 'none of it does' : `${percent} % of it does`
+  const withdrawing =
     days === 0
       ? percent >= 100
-        ? 'Cancel any time before the firing for a full refund.'
-        : `Cancel before the firing for ${percent} % back.`
-      : `Cancel up to ${days} ${days === 1 ? 'day' : 'days'} before the firing for a full refund, ${later}.`
+        ? 'Withdraw any time before the firing and everything you paid comes back.'
+        : `Withdraw before the firing and ${percent} % of what you paid comes back.`
+      : `Withdraw ${days} ${days === 1 ? 'day' : 'days'} or more before the firing and everything you paid comes back; later, ${later}.`
   return [
-    `Accepts ${listInWords(policies.clayBodies)} clay bodies.`,
-    refund,
-    `Once a request is accepted, its space is held ${policies.depositHoldHours} hours for the deposit.`,
+    `Takes ${listInWords(policies.clayBodies)} clay bodies.`,
+    withdrawing,
+    `Once the studio takes your ware on, the space is held ${policies.depositHoldHours} hours for the deposit.`,
   ]
 }

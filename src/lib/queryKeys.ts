@@ -35,6 +35,14 @@ export const keys = {
     detail: (id: string) => ['kilns', id] as const,
     priceList: (id: string) => ['kilns', id, 'price-list'] as const,
   },
+  desk: {
+    all: ['desk'] as const,
+    studios: () => ['desk', 'studios'] as const,
+    studioPage: (query: object) => ['desk', 'studios', query] as const,
+    accounts: () => ['desk', 'accounts'] as const,
+    accountPage: (query: object) => ['desk', 'accounts', query] as const,
+    disputes: () => ['desk', 'disputes'] as const,
+  },
   studios: {
     all: ['studios'] as const,
     mine: () => ['studios', 'mine'] as const,
@@ -44,7 +52,9 @@ export const keys = {
     firings: (id: string) => ['studios', 'detail', id, 'firings'] as const,
     firingsIn: (id: string, window: FiringWindow) => ['studios', 'detail', id, 'firings', window] as const,
     crew: (id: string) => ['studios', 'detail', id, 'crew'] as const,
-    ratings: (id: string) => ['studios', 'detail', id, 'ratings'] as const,
+    /** The owner's money page: payout account, balance, transfers, earnings. */
+    payouts: (id: string) => ['studios', 'detail', id, 'payouts'] as const,
+    reviews: (id: string) => ['studios', 'detail', id, 'reviews'] as const,
     photos: (id: string) => ['studios', 'detail', id, 'photos'] as const,
     waiting: (id: string) => ['studios', 'detail', id, 'waiting-requests'] as const,
     invite: (token: string) => ['studios', 'invite', token] as const,

@@ -28,12 +28,14 @@ export interface Measure {
   fromShown(shown: number): number
   /** Decimals kept when the value is written into a field. */
   decimals: number
+  /** Typed and shown as a ruler reads (3/8, 1 1/2), to the nearest 1/16. */
+  fractions?: boolean
 }
 
 const same = (value: number) => value
 const CUBIC_INCHES_PER_CUBIC_FOOT = 12 * 12 * 12
 
-export const INCHES: Measure = { suffix: 'in', toShown: mmToIn, fromShown: inToMm, decimals: 2 }
+export const INCHES: Measure = { suffix: 'in', toShown: mmToIn, fromShown: inToMm, decimals: 2, fractions: true }
 // A tenth of a millimetre keeps an inch figure typed elsewhere (4 in = 101.6 mm) as it was.
 export const MILLIMETRES: Measure = { suffix: 'mm', toShown: same, fromShown: same, decimals: 1 }
 export const FAHRENHEIT: Measure = { suffix: '°F', toShown: cToF, fromShown: fToC, decimals: 0 }
@@ -84,23 +86,75 @@ export function moneyMeasure(currency: string, decimals = 2): Measure {
   return measure
 }
 
-/** A number as it goes into a field: rounded to the measure's decimals, no trailing zeros. */
+/** A ruler's finest common mark. */
+export const INCH_STEP = 16
+
+const greatestDivisor = (a: number, b: number): number => (b === 0 ? a : greatestDivisor(b, a % b))
+
+/** Inches as a ruler reads them, to the nearest 1/16: 0.375 → "3/8", 1.5 → "1 1/2", 4 → "4". */
+export function inchesText(inches: number): string {
+  const sixteenths = Math.round(Math.abs(inches) * INCH_STEP)
+  const whole = Math.floor(sixteenths / INCH_STEP)
+  const part = sixteenths % INCH_STEP
+  const sign = inches < 0 && sixteenths > 0 ? '-' : ''
+  if (part === 0) return `${sign}${whole}`
+  const divisor = greatestDivisor(part, INCH_STEP)
+  const fraction = `${part / divisor}/${INCH_STEP / divisor}`
+  return `${sign}${whole > 0 ? `${whole} ` : ''}${fraction}`
+}
+
+/** A number as it goes into a field: rounded to the measure's decimals (or 1/16 in), no trailing zeros. */
 export function shownText(stored: number | null | undefined, measure: Measure): string {
   if (stored === undefined || stored === null || !Number.isFinite(stored)) return ''
+  if (measure.fractions) return inchesText(measure.toShown(stored))
   return String(Number(measure.toShown(stored).toFixed(measure.decimals)))
 }
 
-/** What a field's text means: undefined when empty, NaN when it is not a number (the schema says so). */
-export function parseShown(text: string): number | undefined {
+// The vulgar-fraction characters a phone keyboard or a pasted spec may carry (Unicode's Number Forms).
+const UNICODE_FRACTIONS: Record<string, string> = {
+  '½': '1/2',
+  '⅓': '1/3',
+  '⅔': '2/3',
+  '¼': '1/4',
+  '¾': '3/4',
+  '⅕': '1/5',
+  '⅖': '2/5',
+  '⅗': '3/5',
+  '⅘': '4/5',
+  '⅙': '1/6',
+  '⅚': '5/6',
+  '⅛': '1/8',
+  '⅜': '3/8',
+  '⅝': '5/8',
+  '⅞': '7/8',
+}
+const DECIMAL = /^[-+]?(\d+\.?\d*|\.\d+)$/
+// "3/8", "1 1/2", "1-1/2" (the hyphen a machinist writes), "1½" once the glyph is spelled out.
+const MIXED = /^([-+]?)(?:(\d+)(?:\s+|-))?(\d+)\/(\d+)$/
+
+/**
+ * What a field's text means: undefined when empty, NaN when it is not a number (the schema says so).
+ * With `fractions`, a ruler's reading is a number too: 3/8, 1 1/2, 1-1/2, 1½.
+ */
+export function parseShown(text: string, { fractions = false }: { fractions?: boolean } = {}): number | undefined {
   const trimmed = text.trim().replace(',', '.')
   if (trimmed === '') return undefined
-  return /^[-+]?(\d+\.?\d*|\.\d+)$/.test(trimmed) ? Number(trimmed) : Number.NaN
+  if (DECIMAL.test(trimmed)) return Number(trimmed)
+  if (!fractions) return Number.NaN
+  const spelled = trimmed.replace(/\s*([½⅓⅔¼¾⅕⅖⅗⅘⅙⅚⅛⅜⅝⅞])/g, (_, glyph: string) => ` ${UNICODE_FRACTIONS[glyph]}`).trim()
+  const mixed = MIXED.exec(spelled.replace(/\s*\/\s*/g, '/'))
+  if (!mixed) return Number.NaN
+  const [, sign, whole, numerator, denominator] = mixed
+  if (Number(denominator) === 0) return Number.NaN
+  const value = Number(whole ?? 0) + Number(numerator) / Number(denominator)
+  return sign === '-' ? -value : value
 }
 
 const trimmed = (value: number, decimals: number) => String(Number(value.toFixed(decimals)))
 
+/** Millimetres for metric readers; inches to the nearest 1/16 for imperial ones. */
 export function formatLength(mm: number, units: UnitSystem): string {
-  return units === 'metric' ? `${Math.round(mm)} mm` : `${trimmed(mmToIn(mm), 1)} in`
+  return units === 'metric' ? `${Math.round(mm)} mm` : `${inchesText(mmToIn(mm))} in`
 }
 
 export function formatTemperature(celsius: number, scale: TemperatureScale): string {
@@ -111,20 +165,15 @@ export function formatRate(celsiusPerHour: number, scale: TemperatureScale): str
   return scale === 'C' ? `${Math.round(celsiusPerHour)} °C/h` : `${Math.round(rateCToF(celsiusPerHour))} °F/h`
 }
 
-/** Litres for metric readers, cubic feet for imperial ones. */
+/**
+ * Every volume on every page in one unit per system: litres for metric readers, cubic feet for imperial
+ * ones (the unit kilns are sold and spoken of in, common practice), with more decimals for the small
+ * amounts one potter's ware takes.
+ */
 export function formatVolume(litres: number, units: UnitSystem): string {
   if (units === 'metric') return `${trimmed(litres, 1)} L`
-  return `${trimmed(litresToCubicInches(litres) / CUBIC_INCHES_PER_CUBIC_FOOT, 2)} cu ft`
-}
-
-export function formatLitres(litres: number): string {
-  return `${trimmed(litres, 1)} L`
-}
-
-/** Litres always (the unit space is sold in), with cubic feet beside them for imperial readers. */
-export function formatSpace(litres: number, units: UnitSystem): string {
-  if (units === 'metric') return formatLitres(litres)
-  return `${formatLitres(litres)} (${trimmed(CUBIC_FEET.toShown(litres), 2)} cu ft)`
+  const cubicFeet = litresToCubicInches(litres) / CUBIC_INCHES_PER_CUBIC_FOOT
+  return `${trimmed(cubicFeet, cubicFeet >= 10 ? 0 : cubicFeet >= 1 ? 1 : 2)} cu ft`
 }
 
 /** Space in a load, in shelves of the kiln (a half shelf is half a shelf), the way crew count it. */
@@ -152,6 +201,7 @@ export function localiseMessage(message: string, units: UnitSystem): string {
     .replace(/ in °C per hour/g, ' in °F per hour')
     .replace(/(-?\d[\d ]*(?:\.\d+)?) °C/g, (_, n: string) => `${Math.round(cToF(Number(n.replace(/ /g, ''))))} °F`)
     .replace(/ in °C/g, ' in °F')
-    .replace(/(-?\d[\d ]*(?:\.\d+)?) mm\b/g, (_, n: string) => `${trimmed(mmToIn(Number(n.replace(/ /g, ''))), 2)} in`)
+    .replace(/(-?\d[\d ]*(?:\.\d+)?) mm\b/g, (_, n: string) => `${inchesText(mmToIn(Number(n.replace(/ /g, ''))))} in`)
+    .replace(/ in millimetres\./g, ' in inches, like 4.5 or 3/8.')
     .replace(/ in millimetres/g, ' in inches')
 }

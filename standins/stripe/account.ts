@@ -3,9 +3,11 @@
 // is what a test stand-in wants. The rules here are Stripe's, so the app meets the same refusals locally.
 // The `param` of a `resource_missing` error is the path parameter's name in Stripe's OpenAPI spec
 // (`/v1/checkout/sessions/{session}`, `/v1/payment_intents/{intent}`, `/v1/refunds/{refund}`).
-import { invalidRequest, resourceMissing } from './errors'
+import type { BalanceBook } from './balances'
+import { invalidRequest, resourceMissing, StripeApiError } from './errors'
 import { MAXIMUM_CHARGE, formatAmount, minimumCharge } from './currency'
-import type { CheckedCard } from './test-cards'
+import { CUSTOMER_ACTION, type EventLog, type RequestContext } from './events'
+import { testPaymentMethod, type CheckedCard } from './test-cards'
 import {
   newId,
   type ChargeObject,
@@ -14,16 +16,9 @@ import {
   type PaymentIntentObject,
   type RefundObject,
   type SessionObject,
-  type WebhookEventType,
 } from './objects'
 
-/** Which API request caused a change, as an event's `request` field reports it (null for the customer's own actions). */
-export interface RequestContext {
-  requestId: string | null
-  idempotencyKey: string | null
-}
-
-const CUSTOMER_ACTION: RequestContext = { requestId: null, idempotencyKey: null }
+export type { RequestContext } from './events'
 
 export interface LineItemInput {
   name: string
@@ -42,8 +37,24 @@ export interface CheckoutSessionInput {
   clientReferenceId: string | null
   customerEmail: string | null
   submitType: SessionObject['submit_type']
-  paymentIntentData: { metadata: Record<string, string>; description: string | null; receiptEmail: string | null }
+  paymentIntentData: {
+    metadata: Record<string, string>
+    description: string | null
+    receiptEmail: string | null
+    transferGroup: string | null
+  }
   expiresAt: number | null
+}
+
+/** A PaymentIntent made and confirmed through the API with one of Stripe's test PaymentMethods (`pm_card_visa`). */
+export interface PaymentIntentInput {
+  amount: number
+  currency: string
+  paymentMethod: string
+  metadata: Record<string, string>
+  description: string | null
+  receiptEmail: string | null
+  transferGroup: string | null
 }
 
 export interface RefundInput {
@@ -155,34 +166,50 @@ function chargeForAttempt(
     receipt_url: null,
     refunded: false,
     status: outcome.result === 'succeeded' ? 'succeeded' : 'failed',
+    transfer_group: intent.transfer_group,
   }
 }
 
+/** What the stand-in keeps of the platform's payments, as plain data for its state file. */
+export interface PlatformSnapshot {
+  sessions: [string, SessionRecord][]
+  paymentIntents: [string, PaymentIntentObject][]
+  charges: [string, ChargeObject][]
+  refunds: [string, RefundObject][]
+}
+
 export class TestModeAccount {
-  private readonly sessions = new Map<string, SessionRecord>()
-  private readonly paymentIntents = new Map<string, PaymentIntentObject>()
-  private readonly charges = new Map<string, ChargeObject>()
-  private readonly refunds = new Map<string, RefundObject>()
-  private readonly events = new Map<string, EventObject>()
+  private sessions = new Map<string, SessionRecord>()
+  private paymentIntents = new Map<string, PaymentIntentObject>()
+  private charges = new Map<string, ChargeObject>()
+  private refunds = new Map<string, RefundObject>()
 
   private readonly now: () => number
   private readonly checkoutPageUrl: (sessionId: string) => string
-  private readonly eventApiVersion: () => string | null
-  private readonly endpointCount: () => number
-  private readonly raise: (event: EventObject) => void
+  private readonly events: EventLog
+  private readonly book: BalanceBook
 
-  constructor(options: {
-    now: () => number
-    checkoutPageUrl: (sessionId: string) => string
-    eventApiVersion: () => string | null
-    endpointCount: () => number
-    raise: (event: EventObject) => void
-  }) {
+  constructor(options: { now: () => number; checkoutPageUrl: (sessionId: string) => string; events: EventLog; book: BalanceBook }) {
     this.now = options.now
     this.checkoutPageUrl = options.checkoutPageUrl
-    this.eventApiVersion = options.eventApiVersion
-    this.endpointCount = options.endpointCount
-    this.raise = options.raise
+    this.events = options.events
+    this.book = options.book
+  }
+
+  snapshot(): PlatformSnapshot {
+    return {
+      sessions: [...this.sessions],
+      paymentIntents: [...this.paymentIntents],
+      charges: [...this.charges],
+      refunds: [...this.refunds],
+    }
+  }
+
+  restore(state: PlatformSnapshot): void {
+    this.sessions = new Map(state.sessions)
+    this.paymentIntents = new Map(state.paymentIntents)
+    this.charges = new Map(state.charges)
+    this.refunds = new Map(state.refunds)
   }
 
   private seconds(): number {
@@ -347,7 +374,7 @@ export class TestModeAccount {
       intent.canceled_at = this.seconds()
       intent.cancellation_reason = 'abandoned'
     }
-    this.emit('checkout.session.expired', session, context)
+    this.events.emit('checkout.session.expired', session, context)
   }
 
   // Stripe expires an open session once `expires_at` has passed; the stand-in checks on every read and on a timer.
@@ -383,14 +410,11 @@ export class TestModeAccount {
         message: outcome.message,
         type: 'card_error',
       }
-      this.emit('payment_intent.payment_failed', intent, CUSTOMER_ACTION)
+      this.events.emit('payment_intent.payment_failed', intent, CUSTOMER_ACTION)
       return { result: 'declined', session, paymentIntent: intent, message: outcome.message, declineCode: outcome.declineCode }
     }
 
-    intent.status = 'succeeded'
-    intent.amount_received = intent.amount
-    intent.payment_method = paymentMethod
-    intent.last_payment_error = null
+    this.succeed(intent, charge, paymentMethod)
     session.status = 'complete'
     session.payment_status = 'paid'
     session.url = null
@@ -404,9 +428,77 @@ export class TestModeAccount {
       tax_exempt: 'none',
       tax_ids: [],
     }
-    this.emit('payment_intent.succeeded', intent, CUSTOMER_ACTION)
-    this.emit('checkout.session.completed', session, CUSTOMER_ACTION)
+    this.events.emit('payment_intent.succeeded', intent, CUSTOMER_ACTION)
+    this.events.emit('checkout.session.completed', session, CUSTOMER_ACTION)
     return { result: 'succeeded', session, paymentIntent: intent }
+  }
+
+  private succeed(intent: PaymentIntentObject, charge: ChargeObject, paymentMethod: string): void {
+    intent.status = 'succeeded'
+    intent.amount_received = intent.amount
+    intent.payment_method = paymentMethod
+    intent.last_payment_error = null
+    this.book.add(null, {
+      id: charge.balance_transaction as string,
+      amount: charge.amount,
+      currency: charge.currency,
+      type: 'charge',
+      source: charge.id,
+      description: charge.description,
+      reportingCategory: 'charge',
+    })
+  }
+
+  /**
+   * `POST /v1/payment_intents` with `confirm=true` and a test PaymentMethod: the server-side payment
+   * Stripe's test mode allows without a payment page. A declined test method answers 402, as Stripe does.
+   */
+  createPaymentIntent(input: PaymentIntentInput, context: RequestContext): PaymentIntentObject {
+    if (input.amount < minimumCharge(input.currency)) {
+      throw invalidRequest(`Amount must be at least ${formatAmount(minimumCharge(input.currency), input.currency)} ${input.currency}`, {
+        code: 'amount_too_small',
+        param: 'amount',
+      })
+    }
+    const card = testPaymentMethod(input.paymentMethod)
+    if (!card) throw resourceMissing('payment_method', input.paymentMethod, 'payment_method')
+    const intent = this.newIntent({
+      amount: input.amount,
+      currency: input.currency,
+      description: input.description,
+      metadata: input.metadata,
+      receiptEmail: input.receiptEmail,
+      transferGroup: input.transferGroup,
+    })
+    const charge = chargeForAttempt(
+      intent,
+      card,
+      { email: input.receiptEmail ?? '', name: '', postalCode: '' },
+      input.paymentMethod,
+      this.seconds(),
+    )
+    this.charges.set(charge.id, charge)
+    intent.latest_charge = charge.id
+    if (card.outcome.result === 'declined') {
+      intent.status = 'requires_payment_method'
+      intent.last_payment_error = {
+        charge: charge.id,
+        code: card.outcome.code as NonNullable<PaymentIntentObject['last_payment_error']>['code'],
+        decline_code: card.outcome.declineCode,
+        message: card.outcome.message,
+        type: 'card_error',
+      }
+      this.events.emit('payment_intent.payment_failed', intent, context)
+      throw new StripeApiError(402, {
+        type: 'card_error',
+        code: card.outcome.code,
+        decline_code: card.outcome.declineCode,
+        message: card.outcome.message,
+      })
+    }
+    this.succeed(intent, charge, input.paymentMethod)
+    this.events.emit('payment_intent.succeeded', intent, context)
+    return intent
   }
 
   // A session keeps one PaymentIntent across attempts, so a retry after a decline reuses it.
@@ -414,11 +506,24 @@ export class TestModeAccount {
     const { session } = record
     const existing = session.payment_intent ? this.paymentIntents.get(session.payment_intent as string) : undefined
     if (existing) return existing
+    const intent = this.newIntent({
+      amount: session.amount_total ?? 0,
+      currency: session.currency ?? 'usd',
+      description: record.paymentIntentData.description,
+      metadata: record.paymentIntentData.metadata,
+      receiptEmail: record.paymentIntentData.receiptEmail ?? (customer.email || null),
+      transferGroup: record.paymentIntentData.transferGroup,
+    })
+    session.payment_intent = intent.id
+    return intent
+  }
+
+  private newIntent(input: Omit<PaymentIntentInput, 'paymentMethod'>): PaymentIntentObject {
     const id = newId.paymentIntent()
     const intent: PaymentIntentObject = {
       id,
       object: 'payment_intent',
-      amount: session.amount_total ?? 0,
+      amount: input.amount,
       amount_capturable: 0,
       amount_received: 0,
       application: null,
@@ -430,19 +535,19 @@ export class TestModeAccount {
       client_secret: `${id}_secret_${newId.secret()}`,
       confirmation_method: 'automatic',
       created: this.seconds(),
-      currency: session.currency ?? 'usd',
+      currency: input.currency,
       customer: null,
-      description: record.paymentIntentData.description,
+      description: input.description,
       last_payment_error: null,
       latest_charge: null,
       livemode: false,
-      metadata: { ...record.paymentIntentData.metadata },
+      metadata: { ...input.metadata },
       next_action: null,
       on_behalf_of: null,
       payment_method: null,
       payment_method_types: ['card'],
       processing: null,
-      receipt_email: record.paymentIntentData.receiptEmail ?? (customer.email || null),
+      receipt_email: input.receiptEmail,
       review: null,
       setup_future_usage: null,
       shipping: null,
@@ -450,10 +555,9 @@ export class TestModeAccount {
       statement_descriptor: null,
       statement_descriptor_suffix: null,
       status: 'requires_payment_method',
-      transfer_group: null,
+      transfer_group: input.transferGroup,
     }
     this.paymentIntents.set(id, intent)
-    session.payment_intent = id
     return intent
   }
 
@@ -479,10 +583,6 @@ export class TestModeAccount {
     const event = this.events.get(id)
     if (!event) throw resourceMissing('event', id, 'id')
     return event
-  }
-
-  allEvents(): EventObject[] {
-    return [...this.events.values()]
   }
 
   createRefund(input: RefundInput, context: RequestContext): RefundObject {
@@ -517,9 +617,17 @@ export class TestModeAccount {
       transfer_reversal: null,
     }
     this.refunds.set(refund.id, refund)
+    this.book.add(null, {
+      id: refund.balance_transaction as string,
+      amount: -amount,
+      currency: refund.currency,
+      type: 'refund',
+      source: refund.id,
+      reportingCategory: 'refund',
+    })
     charge.amount_refunded += amount
     charge.refunded = charge.amount_refunded === charge.amount
-    this.emit('charge.refunded', charge, context)
+    this.events.emit('charge.refunded', charge, context)
     return refund
   }
 
@@ -553,27 +661,5 @@ export class TestModeAccount {
       charge = named
     }
     return charge as ChargeObject
-  }
-
-  markDelivered(eventId: string): void {
-    const event = this.events.get(eventId)
-    if (event && event.pending_webhooks > 0) event.pending_webhooks -= 1
-  }
-
-  // The event carries a snapshot of the object as it was when the change happened, as Stripe's do.
-  private emit(type: WebhookEventType, object: SessionObject | PaymentIntentObject | ChargeObject, context: RequestContext): void {
-    const event: EventObject = {
-      id: newId.event(),
-      object: 'event',
-      api_version: this.eventApiVersion(),
-      created: this.seconds(),
-      data: { object: structuredClone(object) },
-      livemode: false,
-      pending_webhooks: this.endpointCount(),
-      request: { id: context.requestId, idempotency_key: context.idempotencyKey },
-      type,
-    }
-    this.events.set(event.id, event)
-    this.raise(structuredClone(event))
   }
 }

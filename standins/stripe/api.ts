@@ -10,7 +10,11 @@ import { newId } from './objects'
 export interface ApiCall {
   params: FormParams
   pathId: string
+  /** Every path parameter by name (`/transfers/:id/reversals/:reversal`). */
+  path: Record<string, string>
   context: RequestContext
+  /** The connected account named in the `Stripe-Account` header: the call acts as that account. */
+  stripeAccount: string | null
 }
 
 export type ApiHandler = (call: ApiCall) => object
@@ -30,7 +34,7 @@ export interface LoggedApiRequest {
   requestId: string
 }
 
-interface StoredResponse {
+export interface StoredResponse {
   method: string
   path: string
   fingerprint: string
@@ -120,9 +124,13 @@ export function createApiRouter(options: {
   onApiVersion: (version: string) => void
   log: LoggedApiRequest[]
   register: (routes: ApiRoutes) => void
+  /** Kept by the caller so it can be saved with the rest of the stand-in's state. */
+  stored?: Map<string, StoredResponse>
+  /** Called after every request that may have changed something. */
+  onChange?: () => void
 }): Router {
   const router = express.Router()
-  const stored = new Map<string, StoredResponse>()
+  const stored = options.stored ?? new Map<string, StoredResponse>()
   router.use(express.text({ type: () => true, limit: '1mb' }))
 
   const authError = (key: string | null): StripeErrorBody | null => {
@@ -164,7 +172,9 @@ export function createApiRouter(options: {
       return
     }
 
-    const storeKey = idempotencyKey === null ? null : `${apiKey} ${idempotencyKey}`
+    const stripeAccount = req.get('stripe-account') ?? null
+    // Keys are scoped to the account a request acts as, as Stripe scopes them.
+    const storeKey = idempotencyKey === null ? null : `${apiKey} ${stripeAccount ?? ''} ${idempotencyKey}`
     if (idempotencyKey !== null && storeKey !== null) {
       const earlier = stored.get(storeKey)
       if (earlier && options.now() - earlier.storedAt > IDEMPOTENCY_RETENTION_MS) stored.delete(storeKey)
@@ -188,7 +198,9 @@ export function createApiRouter(options: {
       const result = handler({
         params: new FormParams(params),
         pathId: String(req.params.id ?? ''),
+        path: Object.fromEntries(Object.entries(req.params).map(([name, value]) => [name, String(value)])),
         context: { requestId, idempotencyKey },
+        stripeAccount,
       })
       body = JSON.stringify(result, null, 2)
     } catch (error) {
@@ -209,6 +221,7 @@ export function createApiRouter(options: {
       stored.set(storeKey, { method, path, fingerprint: fingerprint(params), status, body, requestId, storedAt: options.now() })
     }
     respond(status, body)
+    if (method === 'POST') options.onChange?.()
   }
 
   options.register({

@@ -62,6 +62,7 @@ function readSessionParams(params: FormParams): CheckoutSessionInput {
       metadata: intentData?.metadata() ?? {},
       description: intentData?.string('description', { maxLength: 1000 }) ?? null,
       receiptEmail: intentData?.email('receipt_email') ?? null,
+      transferGroup: intentData?.string('transfer_group', { maxLength: 5000 }) ?? null,
     },
     expiresAt: params.integer('expires_at') ?? null,
   }

@@ -11,6 +11,7 @@ import { formatAmount } from './currency'
 import { StripeApiError } from './errors'
 import type { LineItemObject, SessionObject } from './objects'
 import { checkCardEntry, type CardEntry } from './test-cards'
+import { escapeHtml, testPage } from './test-page'
 
 export const CHECKOUT_PAGE_PATH = '/checkout'
 
@@ -25,51 +26,8 @@ interface FormState {
 
 const EMPTY_FORM: FormState = { email: '', cardNumber: '', expiry: '', cvc: '', cardholderName: '', postalCode: '' }
 
-function escapeHtml(text: string): string {
-  return text.replaceAll('&', '&amp;').replaceAll('<', '&lt;').replaceAll('>', '&gt;').replaceAll('"', '&quot;').replaceAll("'", '&#39;')
-}
-
-const STYLE = `
-  :root { --ink: #1f2428; --muted: #5b6470; --line: #d5d9de; --accent: #2f5d8a; --warn-bg: #fff4d6;
-    --warn-line: #e0b84c; --error-bg: #fdecec; --error-line: #c94a4a; --radius: 6px; }
-  * { box-sizing: border-box; }
-  body { margin: 0; font: 16px/1.45 system-ui, sans-serif; color: var(--ink); background: #f4f5f7; }
-  .test-banner { background: var(--warn-bg); border-bottom: 2px solid var(--warn-line); padding: .6rem 1rem;
-    text-align: center; font-weight: 600; }
-  main { max-width: 28rem; margin: 1.5rem auto; padding: 0 1rem; }
-  .panel { background: #fff; border: 1px solid var(--line); border-radius: var(--radius); padding: 1.25rem; }
-  h1 { font-size: 1.25rem; margin: 0 0 .75rem; }
-  .lines { list-style: none; margin: 0 0 .5rem; padding: 0; }
-  .lines li { display: flex; justify-content: space-between; gap: 1rem; padding: .25rem 0; }
-  .total { display: flex; justify-content: space-between; font-weight: 700; border-top: 1px solid var(--line);
-    padding-top: .5rem; margin-bottom: 1rem; }
-  label { display: block; font-size: .9rem; color: var(--muted); margin: .75rem 0 .25rem; }
-  input { width: 100%; padding: .55rem .6rem; border: 1px solid var(--line); border-radius: var(--radius); font: inherit; }
-  .row { display: flex; gap: .75rem; } .row > div { flex: 1; }
-  button { width: 100%; margin-top: 1.25rem; padding: .7rem; border: 0; border-radius: var(--radius);
-    background: var(--accent); color: #fff; font: inherit; font-weight: 600; cursor: pointer; }
-  .error { background: var(--error-bg); border: 1px solid var(--error-line); border-radius: var(--radius);
-    padding: .6rem .75rem; margin-bottom: 1rem; }
-  .cancel { display: inline-block; margin-top: 1rem; color: var(--accent); }
-  details { margin-top: 1rem; font-size: .9rem; color: var(--muted); }
-  code { font-size: .9em; }
-`
-
 function page(title: string, body: string): string {
-  return `<!doctype html>
-<html lang="en">
-<head>
-<meta charset="utf-8">
-<meta name="viewport" content="width=device-width, initial-scale=1">
-<meta name="robots" content="noindex">
-<title>${escapeHtml(title)} · Local test payment page</title>
-<style>${STYLE}</style>
-</head>
-<body>
-<div class="test-banner" role="note">Local test payment page (Stripe stand-in). No card is charged and no money moves.</div>
-<main>${body}</main>
-</body>
-</html>`
+  return testPage(title, 'Local test payment page (Stripe stand-in). No card is charged and no money moves.', body)
 }
 
 function submitLabel(session: SessionObject): string {
@@ -151,7 +109,7 @@ function readForm(body: unknown): FormState {
 
 const EMAIL_PATTERN = /^[^\s@]+@[^\s@]+\.[^\s@]+$/
 
-export function createHostedCheckoutRouter(account: TestModeAccount, now: () => number): Router {
+export function createHostedCheckoutRouter(account: TestModeAccount, now: () => number, onChange: () => void = () => {}): Router {
   const router = express.Router()
   router.use(express.urlencoded({ extended: false, limit: '16kb' }))
 
@@ -222,6 +180,7 @@ export function createHostedCheckoutRouter(account: TestModeAccount, now: () => 
     }
     const customer: CustomerEntry = { email, name: form.cardholderName, postalCode: form.postalCode }
     const attempt = account.payCheckoutSession(session.id, checked.card, customer)
+    onChange()
     if (attempt.result === 'declined') {
       refuse(402, `${attempt.message} Try another card.`)
       return

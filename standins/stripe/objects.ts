@@ -125,6 +125,7 @@ export type ChargeObject = Pick<
   | 'receipt_url'
   | 'refunded'
   | 'status'
+  | 'transfer_group'
 > & { payment_method_details: { type: 'card'; card: CardDetails } }
 
 export type RefundObject = Pick<
@@ -171,17 +172,140 @@ export type LineItemObject = Pick<
   > & { unit_amount_decimal: string } // a decimal string on the wire; the SDK types it as its Decimal class
 }
 
-// The five event types the app's webhook endpoint is subscribed to; the stand-in sends no others.
+export type AccountObject = Pick<
+  Stripe.Account,
+  | 'id'
+  | 'object'
+  | 'business_profile'
+  | 'business_type'
+  | 'capabilities'
+  | 'charges_enabled'
+  | 'country'
+  | 'created'
+  | 'default_currency'
+  | 'details_submitted'
+  | 'email'
+  | 'metadata'
+  | 'payouts_enabled'
+  | 'requirements'
+  | 'tos_acceptance'
+  | 'type'
+> & { external_accounts: { object: 'list'; data: BankAccountObject[]; has_more: false; url: string } }
+
+export type BankAccountObject = Pick<
+  Stripe.BankAccount,
+  | 'id'
+  | 'object'
+  | 'account_holder_name'
+  | 'account_holder_type'
+  | 'bank_name'
+  | 'country'
+  | 'currency'
+  | 'last4'
+  | 'routing_number'
+  | 'status'
+> & { account: string; default_for_currency: boolean }
+
+export type AccountLinkObject = Pick<Stripe.AccountLink, 'object' | 'created' | 'expires_at' | 'url'>
+
+export type TransferReversalObject = Pick<
+  Stripe.TransferReversal,
+  | 'id'
+  | 'object'
+  | 'amount'
+  | 'balance_transaction'
+  | 'created'
+  | 'currency'
+  | 'destination_payment_refund'
+  | 'metadata'
+  | 'source_refund'
+  | 'transfer'
+>
+
+export type TransferObject = Pick<
+  Stripe.Transfer,
+  | 'id'
+  | 'object'
+  | 'amount'
+  | 'amount_reversed'
+  | 'balance_transaction'
+  | 'created'
+  | 'currency'
+  | 'description'
+  | 'destination'
+  | 'destination_payment'
+  | 'livemode'
+  | 'metadata'
+  | 'reversed'
+  | 'source_transaction'
+  | 'source_type'
+  | 'transfer_group'
+> & { reversals: { object: 'list'; data: TransferReversalObject[]; has_more: false; total_count: number; url: string } }
+
+export type BalanceTransactionObject = Pick<
+  Stripe.BalanceTransaction,
+  | 'id'
+  | 'object'
+  | 'amount'
+  | 'available_on'
+  | 'created'
+  | 'currency'
+  | 'description'
+  | 'exchange_rate'
+  | 'fee'
+  | 'fee_details'
+  | 'net'
+  | 'reporting_category'
+  | 'source'
+  | 'status'
+  | 'type'
+>
+
+export type PayoutObject = Pick<
+  Stripe.Payout,
+  | 'id'
+  | 'object'
+  | 'amount'
+  | 'arrival_date'
+  | 'automatic'
+  | 'balance_transaction'
+  | 'created'
+  | 'currency'
+  | 'description'
+  | 'destination'
+  | 'failure_balance_transaction'
+  | 'failure_code'
+  | 'failure_message'
+  | 'livemode'
+  | 'metadata'
+  | 'method'
+  | 'source_type'
+  | 'statement_descriptor'
+  | 'status'
+  | 'type'
+>
+
+// The event types the app's endpoints are subscribed to; the stand-in sends no others. Events about a
+// connected account (its updates, its payouts) carry `account` and go to the Connect endpoint.
 export type WebhookEventType =
   | 'checkout.session.completed'
   | 'checkout.session.expired'
   | 'payment_intent.succeeded'
   | 'payment_intent.payment_failed'
   | 'charge.refunded'
+  | 'account.updated'
+  | 'transfer.created'
+  | 'transfer.reversed'
+  | 'payout.created'
+  | 'payout.paid'
+  | 'payout.failed'
+
+export type EventDataObject = SessionObject | PaymentIntentObject | ChargeObject | AccountObject | TransferObject | PayoutObject
 
 export type EventObject = Pick<Stripe.Event, 'id' | 'object' | 'api_version' | 'created' | 'livemode' | 'pending_webhooks' | 'request'> & {
   type: WebhookEventType
-  data: { object: SessionObject | PaymentIntentObject | ChargeObject }
+  account?: string
+  data: { object: EventDataObject; previous_attributes?: Record<string, unknown> }
 }
 
 const BASE62 = '0123456789ABCDEFGHIJKLMNOPQRSTUVWXYZabcdefghijklmnopqrstuvwxyz'
@@ -206,5 +330,12 @@ export const newId = {
   price: () => `price_${base62(24)}`,
   product: () => `prod_${base62(14)}`,
   request: () => `req_${base62(14)}`,
+  account: () => `acct_1${base62(15)}`,
+  accountLink: () => base62(32),
+  bankAccount: () => `ba_${base62(24)}`,
+  transfer: () => `tr_${base62(24)}`,
+  transferReversal: () => `trr_${base62(24)}`,
+  destinationPayment: () => `py_${base62(24)}`,
+  payout: () => `po_${base62(24)}`,
   secret: () => base62(24),
 }

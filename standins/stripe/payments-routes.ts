@@ -2,11 +2,42 @@
 // payment, and refunds against a succeeded payment.
 import type { TestModeAccount } from './account'
 import type { ApiRoutes } from './api'
+import { isKnownCurrency } from './currency'
+import { invalidRequest } from './errors'
 import { expandObject } from './expand'
 
 const REFUND_REASONS = ['duplicate', 'fraudulent', 'requested_by_customer'] as const
 
 export function registerPaymentRoutes(routes: ApiRoutes, account: TestModeAccount): void {
+  // Server-side payments with a test PaymentMethod; the stand-in confirms at once, so `confirm=true` is required.
+  routes.post('/payment_intents', ({ params, context }) => {
+    const amount = params.integer('amount', { required: true, min: 1 }) as number
+    const currency = (params.string('currency', { required: true }) as string).toLowerCase()
+    if (!isKnownCurrency(currency)) throw invalidRequest(`Invalid currency: ${currency}.`, { param: 'currency' })
+    const paymentMethod = params.string('payment_method', { required: true }) as string
+    if (params.oneOf('confirm', ['true', 'false'] as const) !== 'true') {
+      throw invalidRequest('The local Stripe stand-in makes PaymentIntents with `confirm=true` only.', { param: 'confirm' })
+    }
+    params.stringList('allowed_payment_method_types')?.forEach((type, index) => {
+      if (type !== 'card')
+        throw invalidRequest(`The local Stripe stand-in takes cards only; \`${type}\` is not available.`, {
+          param: `allowed_payment_method_types[${index}]`,
+        })
+    })
+    const input = {
+      amount,
+      currency,
+      paymentMethod,
+      metadata: params.metadata() ?? {},
+      description: params.string('description', { maxLength: 1000 }) ?? null,
+      receiptEmail: params.email('receipt_email') ?? null,
+      transferGroup: params.string('transfer_group', { maxLength: 5000 }) ?? null,
+    }
+    const expand = params.stringList('expand')
+    params.finish()
+    return expandObject(account, account.createPaymentIntent(input, context), expand)
+  })
+
   routes.get('/payment_intents/:id', ({ params, pathId }) => {
     const expand = params.stringList('expand')
     params.finish()

@@ -135,3 +135,28 @@ export function checkCardEntry(entry: CardEntry, today: Date): CardCheck {
     },
   }
 }
+
+// Stripe's test PaymentMethods for server-side payments (docs.stripe.com/testing, from memory): each
+// stands for one of the test cards above.
+const TEST_PAYMENT_METHODS: Record<string, string> = {
+  pm_card_visa: '4242424242424242',
+  pm_card_mastercard: '5555555555554444',
+  pm_card_chargeDeclined: '4000000000000002',
+  pm_card_chargeDeclinedInsufficientFunds: '4000000000009995',
+}
+
+/** The card a test PaymentMethod id stands for, or null for an id that is not one of them. */
+export function testPaymentMethod(id: string): CheckedCard | null {
+  const number = TEST_PAYMENT_METHODS[id]
+  if (!number) return null
+  const card = TEST_CARDS[number]
+  return {
+    number,
+    brand: cardBrand(number),
+    funding: card.funding,
+    last4: number.slice(-4),
+    expMonth: 12,
+    expYear: 2034,
+    outcome: card.outcome,
+  }
+}

@@ -39,6 +39,9 @@ export function signatureHeader(payload: string, secret: string, timestamp: numb
 export class WebhookDispatcher {
   private url: string | undefined
   private readonly secret: string
+  // Events about connected accounts go to the platform's Connect endpoint, which has its own secret.
+  private connectUrl: string | undefined
+  private readonly connectSecret: string
   private readonly policy: WebhookRetryPolicy
   private readonly onSettled: (eventId: string, delivered: boolean) => void
   private readonly log: WebhookDelivery[] = []
@@ -50,21 +53,29 @@ export class WebhookDispatcher {
   constructor(options: {
     url: string | undefined
     secret: string
+    connectUrl?: string
+    connectSecret?: string
     policy: WebhookRetryPolicy
     onSettled: (eventId: string, delivered: boolean) => void
   }) {
     this.url = options.url
     this.secret = options.secret
+    this.connectUrl = options.connectUrl
+    this.connectSecret = options.connectSecret ?? options.secret
     this.policy = options.policy
     this.onSettled = options.onSettled
   }
 
-  get endpointCount(): number {
-    return this.url ? 1 : 0
+  endpointCount(connect: boolean): number {
+    return (connect ? this.connectUrl : this.url) ? 1 : 0
   }
 
   setUrl(url: string): void {
     this.url = url
+  }
+
+  setConnectUrl(url: string): void {
+    this.connectUrl = url
   }
 
   deliveries(): WebhookDelivery[] {
@@ -73,12 +84,14 @@ export class WebhookDispatcher {
 
   // Events raised while no endpoint is set are kept (GET /v1/events/:id) but not sent, as with Stripe.
   deliver(event: EventObject): void {
-    if (!this.url || this.closed) return
-    const delivery: WebhookDelivery = { eventId: event.id, type: event.type, url: this.url, status: 'pending', attempts: [] }
+    const url = event.account ? this.connectUrl : this.url
+    if (!url || this.closed) return
+    const delivery: WebhookDelivery = { eventId: event.id, type: event.type, url, status: 'pending', attempts: [] }
     this.log.push(delivery)
     // Stripe sends the event pretty-printed; an app that re-serialises the parsed body fails the signature.
     const payload = JSON.stringify(event, null, 2)
-    const run = this.attemptUntilSettled(delivery, payload).finally(() => this.running.delete(run))
+    const secret = event.account ? this.connectSecret : this.secret
+    const run = this.attemptUntilSettled(delivery, payload, secret).finally(() => this.running.delete(run))
     this.running.add(run)
   }
 
@@ -98,10 +111,10 @@ export class WebhookDispatcher {
     await this.idle()
   }
 
-  private async attemptUntilSettled(delivery: WebhookDelivery, payload: string): Promise<void> {
+  private async attemptUntilSettled(delivery: WebhookDelivery, payload: string, secret: string): Promise<void> {
     for (let attempt = 1; attempt <= this.policy.maxAttempts; attempt++) {
       if (this.closed) break
-      if (await this.attempt(delivery, payload)) {
+      if (await this.attempt(delivery, payload, secret)) {
         delivery.status = 'delivered'
         this.onSettled(delivery.eventId, true)
         return
@@ -112,12 +125,12 @@ export class WebhookDispatcher {
     this.onSettled(delivery.eventId, false)
   }
 
-  private async attempt(delivery: WebhookDelivery, payload: string): Promise<boolean> {
+  private async attempt(delivery: WebhookDelivery, payload: string, secret: string): Promise<boolean> {
     const controller = new AbortController()
     this.controllers.add(controller)
     const timeout = setTimeout(() => controller.abort(), this.policy.timeoutMs)
     // Signed afresh per attempt with the wall clock, which is what the receiver's tolerance check uses.
-    const header = signatureHeader(payload, this.secret, Math.floor(Date.now() / 1000))
+    const header = signatureHeader(payload, secret, Math.floor(Date.now() / 1000))
     try {
       const response = await fetch(delivery.url, {
         method: 'POST',

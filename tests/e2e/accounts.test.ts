@@ -60,7 +60,7 @@ describe('accounts in the browser', () => {
     expect(errors).toEqual([])
   })
 
-  it('a host lands on the host home', async () => {
+  it('a studio owner lands in the kiln room', async () => {
     const { page, errors } = await newPage()
     const email = `ivo.${Date.now()}@example.test`
     await registerThroughForm(page, { email, name: 'Ivo Brandt', role: 'host' })

@@ -31,7 +31,7 @@ beforeAll(async () => {
   const anyone = new HttpSession(app.url)
   await waitUntil(async () => (await anyone.get('/api/search?perPage=5')).body.total >= 1, { what: 'the index to hold the firing' })
   browser = await launchBrowser()
-}, 120_000)
+})
 
 afterAll(async () => {
   await browser?.close()
@@ -172,7 +172,7 @@ describe('in Chromium', () => {
     await context.close()
   })
 
-  it('the search page fetches only the basemap cells around the place searched, compressed', async () => {
+  it('the search page’s map view fetches only the basemap cells around the place searched, compressed', async () => {
     const { page, errors, context } = await openPage(browser, app.url, { viewport: { width: 412, height: 823 } })
     const cells: { path: string; encoding?: string; cache?: string }[] = []
     page.on('response', (response) => {
@@ -180,7 +180,7 @@ describe('in Chromium', () => {
       if (url.pathname.includes('/basemap-'))
         cells.push({ path: url.pathname, encoding: response.headers()['content-encoding'], cache: response.headers()['cache-control'] })
     })
-    await page.goto('/find?place=Portland%2C%20OR')
+    await page.goto('/find?place=Portland%2C%20OR&view=map')
     await page.getByTestId('result-total').waitFor()
     await page.locator('[data-testid="basemap"][data-basemap-ready="true"]').waitFor()
     // Portland lies in the 4° cell from 124° W to 120° W, 42° N to 46° N: column 14, row 33 (see the

@@ -1,10 +1,11 @@
 // In a real browser against the real server, the Stripe stand-in and the mail catcher, from drop-off
-// to ratings: the host checks a paid request's ware in with a photo; the potter sees it received and
-// gets the drop-off mail; the host moves the firing through loading, firing, cooling and unloaded
-// from its log page and fills the log (peak, witness cones); results go up with a photo and the
-// potter sees them; the ready mail arrives; the potter pays the balance on the hosted page; the host
-// marks the ware collected and the pickup mail arrives; both rate, and the studio's public page
-// shows the new rating with the studio's reply.
+// to the answers after pickup: the studio owner takes a paid ask's ware in with a photo; the potter
+// sees it received and gets the drop-off mail; the owner moves the firing through loading, firing,
+// cooling and unloaded from its log page and fills the log (peak, witness cones); results go up with
+// a photo and the potter sees them; the ready mail arrives; the potter pays the balance on the
+// payment page; the owner marks the ware picked up and the pickup mail arrives; each side answers its
+// questions without seeing the other's until both have, and the studio's public page shows the
+// potter's answers.
 import type { Browser, BrowserContext, Locator, Page } from 'playwright-core'
 import sharp from 'sharp'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
@@ -136,17 +137,20 @@ async function payOnHostedPage(page: Page, cardNumber: string) {
   await page.locator('button[type="submit"]').click()
 }
 
-async function giveStars(form: Locator, aspect: string, stars: number) {
-  const group = form.getByRole('group', { name: aspect })
-  // The stars are radio buttons: focus one and the arrow keys move along them, as a keyboard user would.
-  await group.getByLabel('1 star', { exact: true }).focus()
-  await group.getByLabel('1 star', { exact: true }).press('Space')
-  for (let n = 1; n < stars; n++) await group.getByLabel(`${n} ${n === 1 ? 'star' : 'stars'}`, { exact: true }).press('ArrowRight')
-  await expect.poll(() => group.getByLabel(`${stars} ${stars === 1 ? 'star' : 'stars'}`, { exact: true }).isChecked()).toBe(true)
+/** Answers one question as a keyboard user would: the choices are radio buttons, and the arrow keys move along them. */
+async function answer(form: Locator, question: string, choice: string, choices = ['Yes', 'Partly', 'No']) {
+  const group = form.getByRole('group', { name: question })
+  await group.getByLabel(choices[0], { exact: true }).focus()
+  await group.getByLabel(choices[0], { exact: true }).press('Space')
+  for (let n = 0; n < choices.indexOf(choice); n++) await group.getByLabel(choices[n], { exact: true }).press('ArrowRight')
+  await expect.poll(() => group.getByLabel(choice, { exact: true }).isChecked()).toBe(true)
 }
 
-describe('from drop-off to ratings in the browser', () => {
-  it('the host checks the ware in with a photo; the potter sees it received and gets the drop-off mail', async () => {
+/** What a page says, for the words no page may use. */
+const pageWords = async (page: Page) => (await page.locator('body').innerText()).replace(/\s+/g, ' ')
+
+describe('from drop-off to the answers after pickup in the browser', () => {
+  it('the studio owner takes the ware in with a photo; the potter sees it received and gets the drop-off mail', async () => {
     await hostPage.goto(`/requests/${requestId}`)
     await expect.poll(() => stateOf(hostPage)).toBe('deposit_paid')
     const form = hostPage.getByTestId('check-in-form')
@@ -170,7 +174,7 @@ describe('from drop-off to ratings in the browser', () => {
     await expect.poll(() => fake.getAttribute('data-status'), { timeout: 60_000 }).toBe('failed')
     await fake.getByRole('button', { name: 'Remove notes.jpg' }).click()
     expect(await form.getByTestId('upload-item').count()).toBe(1)
-    await form.getByRole('button', { name: 'Check the ware in' }).click()
+    await form.getByRole('button', { name: 'Take the ware in' }).click()
 
     await expect.poll(() => stateOf(hostPage)).toBe('received')
     const record = hostPage.getByTestId('drop-off-record')
@@ -195,7 +199,7 @@ describe('from drop-off to ratings in the browser', () => {
     expect(potterErrors).toEqual([])
   })
 
-  it('the host moves the firing through loading, firing, cooling and unloaded from its log page and fills the log', async () => {
+  it('the studio owner moves the firing through loading, firing, cooling and unloaded from its log page and fills the log', async () => {
     await hostPage.goto(`/studios/${studioId}/calendar?view=list`)
     await hostPage.getByRole('button', { name: 'Manage' }).first().click()
     await hostPage.getByRole('dialog').getByRole('link', { name: 'Firing log' }).click()
@@ -292,7 +296,7 @@ describe('from drop-off to ratings in the browser', () => {
     expect(hostErrors).toEqual([])
   })
 
-  it('the host posts results with a photo and marks the ware ready; the potter sees the results, the photo and the log', async () => {
+  it('the studio owner posts results with a photo and marks the ware ready; the potter sees the results, the photo and the log', async () => {
     await hostPage.goto(`/requests/${requestId}`)
     await expect.poll(() => stateOf(hostPage)).toBe('fired')
     const form = hostPage.getByTestId('results-form')
@@ -351,75 +355,92 @@ describe('from drop-off to ratings in the browser', () => {
     expect(potterErrors).toEqual([])
   })
 
-  it('the host marks the ware collected and the pickup mail with the receipt arrives', async () => {
+  it('the studio owner marks the ware picked up and the pickup mail with the receipt arrives', async () => {
     await hostPage.goto(`/requests/${requestId}`)
     await expect.poll(() => stateOf(hostPage)).toBe('ready')
     expect(await hostPage.getByTestId('owed-now').textContent()).toBe('Everything is paid.')
-    await hostPage.getByRole('button', { name: 'Collected…', exact: true }).click()
-    await hostPage.getByRole('dialog').getByRole('button', { name: 'Yes, collected' }).click()
+    await hostPage.getByRole('button', { name: 'Picked up…', exact: true }).click()
+    await hostPage.getByRole('dialog').getByRole('button', { name: 'Yes, picked up' }).click()
     await expect.poll(() => stateOf(hostPage)).toBe('collected')
-    const mail = await waitForMail(app.mail!.webUrl, { to: potter.email, subject: `Collected: your receipt from ${STUDIO_NAME}` })
+    const mail = await waitForMail(app.mail!.webUrl, { to: potter.email, subject: `Picked up: your receipt from ${STUDIO_NAME}` })
     expect(mail.text).toContain(dollars(quote.totalCents))
     expect(hostErrors).toEqual([])
   })
 
-  it('both sides rate; the studio replies, and its public page shows the new rating', async () => {
+  it('each side answers without seeing the other’s answers until both have; the public page shows the potter’s', async () => {
+    const potterNote = 'Lovely even heat, and the chip was noted at the door.'
     await potterPage.goto(`/requests/${requestId}`)
     await expect.poll(() => stateOf(potterPage)).toBe('collected')
-    const potterForm = potterPage.getByTestId('rating-form')
-    await giveStars(potterForm, 'Care of the ware', 5)
-    await giveStars(potterForm, 'Communication', 4)
-    await giveStars(potterForm, 'Results', 5)
-    await giveStars(potterForm, 'Overall', 5)
-    await potterForm.getByLabel('In your words').fill('Lovely even heat, and the chip was noted at the door.')
-    await potterForm.getByRole('button', { name: 'Send the rating' }).click()
-    await expect.poll(() => potterPage.getByTestId('my-rating').getAttribute('data-given')).toBe('true')
-    await potterPage.getByRole('button', { name: 'Change the rating' }).waitFor()
+    const potterForm = potterPage.getByTestId('review-form')
+    await answer(potterForm, 'Would you fire here again?', 'Yes', ['Yes', 'No'])
+    await answer(potterForm, 'Was your ware handled and loaded with care?', 'Yes')
+    await answer(potterForm, 'Did the ware come out as the firing log says it was fired?', 'Yes')
+    await answer(potterForm, 'Was it ready by the date the studio gave?', 'Partly')
+    await answer(potterForm, 'Did the studio keep you told along the way?', 'Yes')
+    await potterForm.getByLabel('Anything to add (optional)').fill(potterNote)
+    await potterForm.getByRole('button', { name: 'Send my answers' }).click()
+    await expect.poll(() => potterPage.getByTestId('my-review').getAttribute('data-given')).toBe('true')
+    expect(await potterPage.getByTestId('my-review-status').textContent()).toContain(`Kept from ${STUDIO_NAME} until they answer too`)
+    // Final once sent: no form, no button to change it.
+    expect(await potterPage.getByTestId('review-form').count()).toBe(0)
 
+    // The studio knows an answer was given, not what it says, until it answers too.
     await hostPage.goto(`/requests/${requestId}`)
-    const hostForm = hostPage.getByTestId('rating-form')
-    await giveStars(hostForm, 'Ware as declared', 5)
-    await giveStars(hostForm, 'On time', 4)
-    await giveStars(hostForm, 'Overall', 4)
-    await hostForm.getByLabel('In your words').fill('Ware as described, dropped off in good time.')
-    await hostForm.getByRole('button', { name: 'Send the rating' }).click()
-    await expect.poll(() => hostPage.getByTestId('my-rating').getAttribute('data-given')).toBe('true')
-    expect(await hostPage.getByTestId('their-rating').textContent()).toContain('Lovely even heat')
-    await hostPage.getByLabel('Your reply, shown in public').fill('Thank you, Tova. Come back for the next glaze firing.')
-    await hostPage.getByRole('button', { name: 'Post the reply' }).click()
-    await hostPage.getByTestId('studio-reply').getByText('Thank you, Tova.', { exact: false }).waitFor()
+    await hostPage.getByTestId('their-review-hidden').waitFor()
+    expect(await pageWords(hostPage)).not.toContain('chip was noted')
+    const hostForm = hostPage.getByTestId('review-form')
+    await answer(hostForm, 'Was the ware as declared: count, sizes, clay and glaze?', 'Yes')
+    await answer(hostForm, 'Were the feet clean of glaze and the greenware dry?', 'Partly')
+    await answer(hostForm, 'Were drop-off and pickup on time?', 'Yes')
+    await hostForm.getByLabel('Anything to add (optional)').fill('Ware as described, dropped off in good time.')
+    await hostForm.getByRole('button', { name: 'Send my answers' }).click()
+    await expect.poll(() => hostPage.getByTestId('my-review').getAttribute('data-given')).toBe('true')
+    await hostPage.getByTestId('their-review').getByText('chip was noted', { exact: false }).waitFor()
 
-    const ratings = (await potter.session.get(`/api/requests/${requestId}`)).body.ratings
-    expect(ratings.ofStudio).toMatchObject({ stars: 5, care: 5, communication: 4, results: 5 })
-    expect(ratings.ofPotter).toMatchObject({ stars: 4, asDeclared: 5, onTime: 4 })
+    await potterPage.reload()
+    await potterPage.getByTestId('their-review').getByText('Ware as described', { exact: false }).waitFor()
+    const reviews = (await potter.session.get(`/api/requests/${requestId}`)).body.reviews
+    expect(reviews.ofStudio).toMatchObject({
+      loading: 'yes',
+      resultsAsLogged: 'yes',
+      turnaround: 'partly',
+      communication: 'yes',
+      fireAgain: true,
+    })
+    expect(reviews.ofPotter).toMatchObject({ asDeclared: 'yes', cleanAndDry: 'partly', onTime: 'yes' })
+    for (const page of [potterPage, hostPage]) expect(await pageWords(page)).not.toMatch(/\bhosts?\b|★/i)
 
     // A visitor, not signed in, on a phone-sized screen.
     const { page, errors } = await newPage({ width: 390, height: 844 })
     await page.goto(`/studios/${studioId}`)
-    const summary = page.getByTestId('rating-summary')
+    const summary = page.getByTestId('review-summary')
     await expect.poll(() => summary.getAttribute('data-count')).toBe('1')
-    expect(await summary.getAttribute('data-mean')).toBe('5')
-    const section = page.getByTestId('studio-ratings')
-    expect(await section.getByTestId('rating-text').first().textContent()).toBe('Lovely even heat, and the chip was noted at the door.')
-    expect(await section.textContent()).toContain('Tova')
-    expect(await section.textContent()).toContain('Thank you, Tova. Come back for the next glaze firing.')
+    expect(await summary.getAttribute('data-fire-again')).toBe('1')
+    expect((await summary.textContent())?.replace(/\s+/g, ' ')).toBe('1 of 1 potter would fire here again')
+    const section = page.getByTestId('studio-reviews')
+    expect(await section.getByTestId('review-note').first().textContent()).toBe(potterNote)
+    expect(await section.getByTestId('studio-review').first().textContent()).toContain('Tova')
+    expect(await section.getByTestId('review-tallies').textContent()).toContain('1 partly')
+    // The studio's answers about the potter are not the public's, and nobody replies in public.
+    expect(await section.textContent()).not.toContain('Ware as described')
+    expect(await pageWords(page)).not.toMatch(/\bhosts?\b|★|reply/i)
     expect(errors).toEqual([])
     expect(potterErrors).toEqual([])
     expect(hostErrors).toEqual([])
   })
 })
 
-describe('what check-in can change', () => {
-  it('measured ware re-prices the request: the host sees the check and the new price, the potter confirms it', async () => {
+describe('what taking the ware in can change', () => {
+  it('measured ware re-prices the ask: the studio owner sees the check and the new price, the potter confirms it', async () => {
     const sent = await paidRequest(await laterFiring())
     await hostPage.goto(`/requests/${sent.id}`)
     const form = hostPage.getByTestId('check-in-form')
     const piece = form.getByTestId('check-in-piece')
-    await piece.getByLabel('Measured size differs from the request').check()
+    await piece.getByLabel('Measured size differs from what was declared').check()
     await piece.getByLabel('Measured height (mm)').fill('140')
     await piece.getByLabel('Measured width (mm)').fill('100')
     await piece.getByLabel('Measured depth (mm)').fill('120')
-    await form.getByRole('button', { name: 'Check the ware in' }).click()
+    await form.getByRole('button', { name: 'Take the ware in' }).click()
     await expect.poll(() => stateOf(hostPage)).toBe('received')
 
     // The fixture's price list: 4 ¢ per cubic inch of bounding box, at least 300 ¢ a piece
@@ -442,7 +463,7 @@ describe('what check-in can change', () => {
     expect(potterErrors).toEqual([])
   })
 
-  it('the host refuses ware at the door with a reason and a photo; the potter sees why and is refunded under the terms', async () => {
+  it('the studio owner refuses ware at the door with a reason and a photo; the potter sees why and is refunded under the terms', async () => {
     const sent = await paidRequest(await laterFiring())
     const terms = (await potter.session.get(`/api/requests/${sent.id}`)).body.studio.policies.cancellation
     // Two weeks before the firing is inside the studio's full-refund window.
@@ -464,7 +485,7 @@ describe('what check-in can change', () => {
     expect(await record.getAttribute('data-refused')).toBe('true')
     expect(await record.textContent()).toContain('Greenware still damp to the touch')
     await expect.poll(() => imagesLoaded(record.locator('[data-kind="refusal"] img'))).toBe(true)
-    const mail = await waitForMail(app.mail!.webUrl, { to: potter.email, subject: `Ware not accepted at ${STUDIO_NAME}` })
+    const mail = await waitForMail(app.mail!.webUrl, { to: potter.email, subject: `Ware turned away at ${STUDIO_NAME}` })
     expect(mail.text).toContain('Greenware still damp to the touch')
     expect(mail.text).toContain(dollars(sent.quote.depositCents))
     expect(hostErrors).toEqual([])

@@ -73,16 +73,46 @@ describe('the firing planner', () => {
     const piece = page.getByRole('group', { name: 'Piece 1' })
     const height = piece.getByLabel('Height (in)')
     await height.fill('')
-    await piece.getByText('Enter the height in inches.').waitFor()
+    await piece.getByText('Enter the height in inches').waitFor()
     expect(await page.getByTestId('verdict').getAttribute('data-verdict')).toBe('incomplete')
     await height.fill('4.')
-    await piece.getByText('Enter the height in inches.').waitFor({ state: 'detached' })
+    await piece.getByText('Enter the height in inches').waitFor({ state: 'detached' })
     expect(await height.inputValue()).toBe('4.')
     expect(await page.getByTestId('verdict').getAttribute('data-verdict')).toBe('ok')
 
     await page.getByText('mm · °C', { exact: true }).click()
     // 4 in = 101.6 mm exactly (NIST SP 811).
     expect(await piece.getByLabel('Height (mm)').inputValue()).toBe('101.6')
+    expect(errors).toEqual([])
+  })
+})
+
+describe('inches as a potter writes them', () => {
+  it('takes a wall of 3/8 in, 1 1/2 and 1-1/2, shows it back to the sixteenth and refuses what no ruler reads', async () => {
+    const { page, errors } = await newPage()
+    await page.goto('/planner')
+    const piece = page.getByRole('group', { name: 'Piece 1' })
+    const wall = piece.getByLabel('Wall thickness (in)')
+    await wall.fill('3/8')
+    await expect.poll(() => page.getByTestId('verdict').getAttribute('data-verdict')).toBe('ok')
+    expect(await piece.getByText('Enter the wall thickness').count()).toBe(0)
+
+    await page.getByText('mm · °C', { exact: true }).click()
+    // 3/8 in = 9.525 mm (1 in = 25.4 mm exactly, NIST SP 811), written to the tenth.
+    expect(await piece.getByLabel('Wall thickness (mm)').inputValue()).toBe('9.5')
+    await page.getByText('in · °F', { exact: true }).click()
+    // 9.5 mm is 0.374 in, nearest the 3/8 mark.
+    expect(await wall.inputValue()).toBe('3/8')
+
+    const height = piece.getByLabel('Height (in)')
+    for (const typed of ['1 1/2', '1-1/2', '1½']) {
+      await height.fill(typed)
+      await expect.poll(() => page.getByTestId('verdict').getAttribute('data-verdict')).toBe('ok')
+      expect(await piece.getByText('Enter the height').count()).toBe(0)
+    }
+    await height.fill('3/0')
+    await piece.getByText('Enter the height in inches, like 4.5 or 3/8.').waitFor()
+    expect(await page.getByTestId('verdict').getAttribute('data-verdict')).toBe('incomplete')
     expect(errors).toEqual([])
   })
 })

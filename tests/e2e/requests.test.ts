@@ -1,9 +1,9 @@
 // In a real browser against the real server, the Stripe stand-in and the mail catcher: a visitor
 // finds a firing on a studio's page, signs in, describes a mug under a runny glaze (a warning, not a
-// block), acknowledges the warning, agrees to the policies and sends. The host accepts from the
-// kiln room's inbox; the potter pays the deposit on the hosted test page with Stripe's succeeding
-// test card, and both sides see the deposit paid with its ledger line. A second potter's declined
-// card leaves their request accepted and unpaid.
+// block), acknowledges the warning, agrees to the studio's terms and asks. The studio owner takes it
+// on from the kiln room's inbox; the potter pays the deposit on the stand-in's test payment page with
+// Stripe's succeeding test card, and both sides see the space held with its ledger line. A second
+// potter's declined card leaves their ware taken on and unpaid.
 import type { Browser, BrowserContext, Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { CARD_DECLINED, CARD_SUCCEEDS } from '../support/checkout'
@@ -94,11 +94,11 @@ describe('a firing request in the browser', () => {
     const { page, errors } = await newPage()
     await page.goto(`/studios/${studioId}`)
     const row = page.locator(`[data-testid="firing-row"][data-firing-id="${firingId}"]`)
-    await row.getByRole('link', { name: /Request space/ }).click()
+    await row.getByRole('link', { name: /Ask for space/ }).click()
     await page.waitForURL('**/sign-in?next=**')
     await signIn(page, potter.email)
     await page.waitForURL(`**/firings/${firingId}/request`)
-    await page.getByRole('heading', { name: `Request space at ${STUDIO_NAME}` }).waitFor()
+    await page.getByRole('heading', { name: `Ask for space at ${STUDIO_NAME}` }).waitFor()
     expect(await page.getByTestId('firing-summary').textContent()).toContain('cone 6 oxidation')
 
     const fixture = runnyMug()
@@ -130,7 +130,7 @@ describe('a firing request in the browser', () => {
     expect(page.url()).toContain('draft=')
 
     await page.getByRole('button', { name: 'Send…' }).click()
-    const dialog = page.getByRole('dialog', { name: 'Send the request' })
+    const dialog = page.getByRole('dialog', { name: 'Ask the studio' })
     const send = dialog.getByRole('button', { name: `Send to ${STUDIO_NAME}` })
     await dialog.getByTestId('warning-to-acknowledge').first().waitFor()
     expect(await send.isDisabled()).toBe(true)
@@ -139,7 +139,7 @@ describe('a firing request in the browser', () => {
     expect(await warnings.first().getAttribute('data-code')).toBe('runny-glaze-tray')
     for (let index = 0; index < (await warnings.count()); index++) await warnings.nth(index).getByRole('checkbox').check()
     expect(await send.isDisabled()).toBe(true)
-    await dialog.getByLabel(`I agree to ${STUDIO_NAME}’s policies`).check()
+    await dialog.getByLabel(`I agree to ${STUDIO_NAME}’s terms`).check()
     await send.click()
 
     await page.waitForURL(/\/requests\/[0-9a-f-]{36}$/)
@@ -152,7 +152,7 @@ describe('a firing request in the browser', () => {
     expect(view.body.acknowledgedWarnings).toEqual(['runny-glaze-tray'])
     expect(view.body.quote.totalCents).toBe(TOTAL_CENTS)
     expect(view.body.quote.depositCents).toBe(DEPOSIT_CENTS)
-    await waitForMail(app.mail!.webUrl, { to: host.email, subject: 'New request' })
+    await waitForMail(app.mail!.webUrl, { to: host.email, subject: 'asks for space' })
 
     await page.goto('/my-ware')
     const mine = page.locator(`[data-testid="my-request"][data-request-id="${requestId}"]`)
@@ -160,14 +160,14 @@ describe('a firing request in the browser', () => {
     expect(errors).toEqual([])
   })
 
-  it('the host sees the request waiting in the kiln room and accepts it from the firing’s inbox', async () => {
+  it('the studio owner sees the ask waiting in the kiln room and takes it on from the firing’s inbox', async () => {
     const { page, errors } = await newPage()
     hostPage = page
     await page.goto('/sign-in')
     await signIn(page, host.email)
     await page.waitForURL('**/kiln-room')
     const waiting = page.getByTestId('waiting-requests')
-    expect(await waiting.textContent()).toBe('1 request waiting')
+    expect(await waiting.textContent()).toBe('1 ask waiting')
     await waiting.click()
     await page.waitForURL(`**/firings/${firingId}/requests`)
 
@@ -180,11 +180,11 @@ describe('a firing request in the browser', () => {
     expect(await effects.textContent()).toContain(`deposit of ${dollars(DEPOSIT_CENTS)}`)
     await page.getByRole('dialog').getByRole('button', { name: 'Take it on', exact: true }).click()
     await expect.poll(() => row.getAttribute('data-state')).toBe('accepted')
-    await waitForMail(app.mail!.webUrl, { to: potter.email, subject: 'Accepted' })
+    await waitForMail(app.mail!.webUrl, { to: potter.email, subject: 'Taken on' })
     expect(errors).toEqual([])
   })
 
-  it('the potter pays the deposit with 4242 on the hosted page; both sides see it paid with the ledger line', async () => {
+  it('the potter pays the deposit with 4242 on the payment page; both sides see the space held with the ledger line', async () => {
     const { page, errors } = await newPage()
     await page.goto(`/requests/${requestId}`)
     await page.waitForURL('**/sign-in?next=**')
@@ -197,7 +197,7 @@ describe('a firing request in the browser', () => {
 
     await page.waitForURL((url) => url.pathname === `/requests/${requestId}` && url.searchParams.get('paid') === 'deposit')
     await expect.poll(() => stateOf(page), { timeout: 60_000 }).toBe('deposit_paid')
-    expect(await page.getByTestId('request-state').first().textContent()).toBe('Deposit paid')
+    expect(await page.getByTestId('request-state').first().textContent()).toBe('Space held')
     const line = page.getByTestId('ledger-line')
     expect(await line.count()).toBe(1)
     expect(await line.first().getAttribute('data-kind')).toBe('deposit')
@@ -205,7 +205,7 @@ describe('a firing request in the browser', () => {
 
     await hostPage.goto(`/requests/${requestId}`)
     await expect.poll(() => stateOf(hostPage)).toBe('deposit_paid')
-    expect(await hostPage.getByTestId('request-state').first().textContent()).toBe('Deposit paid')
+    expect(await hostPage.getByTestId('request-state').first().textContent()).toBe('Space held')
     expect(await hostPage.getByTestId('ledger-line').first().textContent()).toContain(dollars(DEPOSIT_CENTS))
 
     await waitForMail(app.mail!.webUrl, { to: potter.email, subject: 'Receipt:' })
@@ -213,7 +213,7 @@ describe('a firing request in the browser', () => {
     expect(errors).toEqual([])
   })
 
-  it('a second potter’s declined card shows a clear error on the hosted page and leaves the request accepted and unpaid', async () => {
+  it('a second potter’s declined card shows a clear error on the payment page and leaves their ware taken on and unpaid', async () => {
     const sent = await draftAndSend(secondPotter.session, firingId, [mug()])
     const accepted = await host.session.post(`/api/requests/${sent.id}/accept`)
     expect(accepted.status).toBe(200)
@@ -238,7 +238,7 @@ describe('a firing request in the browser', () => {
     await page.waitForURL((url) => url.pathname === `/requests/${sent.id}` && url.searchParams.get('unpaid') === 'deposit')
     await page.getByText('The payment was not completed').waitFor()
     expect(await stateOf(page)).toBe('accepted')
-    expect(await page.getByTestId('request-state').first().textContent()).toBe('Accepted')
+    expect(await page.getByTestId('request-state').first().textContent()).toBe('Taken on')
     expect(await page.getByTestId('ledger-empty').count()).toBe(1)
     // The decline reaches the app by webhook; the page shows the card's message once it has.
     await expect

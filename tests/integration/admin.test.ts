@@ -19,7 +19,7 @@ beforeAll(async () => {
   const ids = await publishedStudio(host.session, 'Needs A Look')
   studioId = ids.studioId
   firingId = ids.firingId
-}, 60_000)
+})
 afterAll(async () => {
   await app?.close()
 })
@@ -61,6 +61,78 @@ describe('the front desk', () => {
   })
 })
 
+describe('the desk pages, searches and filters its long lists on the server', () => {
+  const paging: { studioId: string; owner: Person }[] = []
+  let draftId: string
+
+  beforeAll(async () => {
+    for (let n = 1; n <= 6; n++) {
+      const owner = await createPerson(app, 'host', `Paging Owner ${n}`)
+      paging.push({ studioId: (await publishedStudio(owner.session, `Paging Studio ${n}`)).studioId, owner })
+    }
+    const drafter = await createPerson(app, 'host', 'Drafting Dora')
+    draftId = (await drafter.session.post('/api/studios', { name: 'Paging Draft', postalCode: '97214' })).body.id
+  }, 120_000)
+
+  it('pages studios by name in either order, counting every match', async () => {
+    const first = (await admin.session.get('/api/admin/studios?q=Paging%20Studio&sort=name&perPage=5&page=1')).body
+    const second = (await admin.session.get('/api/admin/studios?q=Paging%20Studio&sort=name&perPage=5&page=2')).body
+    expect(first).toMatchObject({ total: 6, page: 1, perPage: 5 })
+    expect(first.studios.map((s: { name: string }) => s.name)).toEqual([1, 2, 3, 4, 5].map((n) => `Paging Studio ${n}`))
+    expect(second.studios.map((s: { name: string }) => s.name)).toEqual(['Paging Studio 6'])
+    const reversed = (await admin.session.get('/api/admin/studios?q=Paging%20Studio&sort=-name&perPage=5')).body.studios
+    expect(reversed[0].name).toBe('Paging Studio 6')
+  })
+
+  it("finds a studio by its owner's name, and keeps drafts apart", async () => {
+    const byOwner = (await admin.session.get(`/api/admin/studios?q=${encodeURIComponent('Paging Owner 3')}`)).body
+    expect(byOwner.studios.map((s: { id: string }) => s.id)).toEqual([paging[2].studioId])
+    const drafts = (await admin.session.get('/api/admin/studios?q=Paging&state=draft')).body.studios
+    expect(drafts.map((s: { id: string }) => s.id)).toEqual([draftId])
+    const waiting = (await admin.session.get('/api/admin/studios?q=Paging&state=waiting&perPage=100')).body.studios
+    expect(waiting.map((s: { id: string }) => s.id).sort()).toEqual(paging.map((p) => p.studioId).sort())
+  })
+
+  it('matches the pattern characters people type as themselves', async () => {
+    // "%" and "_" would match anything in ILIKE; no studio or owner here has either in its name.
+    expect((await admin.session.get('/api/admin/studios?q=%25')).body.total).toBe(0)
+    expect((await admin.session.get('/api/admin/users?q=_')).body.total).toBe(0)
+  })
+
+  it('refuses options it does not know with a 400 naming the field', async () => {
+    for (const [query, field] of [
+      ['perPage=1000', 'perPage'],
+      ['page=0', 'page'],
+      ['sort=name%3Bdrop', 'sort'],
+      ['state=everything', 'state'],
+    ]) {
+      const reply = await admin.session.get(`/api/admin/studios?${query}`)
+      expect(reply.status, query).toBe(400)
+      expect(reply.body.error.code).toBe('invalid-query')
+      expect(Object.keys(reply.body.error.fields)).toContain(field)
+    }
+    const role = await admin.session.get('/api/admin/users?role=wizard')
+    expect(role.status).toBe(400)
+    expect(Object.keys(role.body.error.fields)).toContain('role')
+  })
+
+  it("marks the reader's own account, and filters accounts by kind and state", async () => {
+    const admins = (await admin.session.get('/api/admin/users?role=admin')).body
+    expect(admins.users.map((u: { id: string; self: boolean }) => [u.id, u.self])).toEqual([[admin.id, true]])
+    const hosts = (await admin.session.get('/api/admin/users?role=host&q=Paging%20Owner&perPage=5')).body
+    expect(hosts.total).toBe(6)
+    expect(hosts.users).toHaveLength(5)
+    expect(hosts.users.every((u: { self: boolean; role: string }) => !u.self && u.role === 'host')).toBe(true)
+    const target = paging[0].owner
+    await admin.session.post(`/api/admin/users/${target.id}/suspend`, { suspended: true })
+    const suspended = (await admin.session.get('/api/admin/users?state=suspended&q=Paging')).body.users
+    expect(suspended.map((u: { id: string }) => u.id)).toEqual([target.id])
+    const active = (await admin.session.get('/api/admin/users?state=active&q=Paging&perPage=100')).body.users
+    expect(active.map((u: { id: string }) => u.id)).not.toContain(target.id)
+    await admin.session.post(`/api/admin/users/${target.id}/suspend`, { suspended: false })
+  })
+})
+
 describe('disputes', () => {
   it('lets either side raise one once the ware is fired, and the desk refund up to what was paid', async () => {
     const potter = await createPerson(app, 'potter', 'Unhappy Una')
@@ -79,7 +151,11 @@ describe('disputes', () => {
     const mails = await app.ctx.db.getRepository(OutboundMail).findBy({ template: 'disputed', toAddress: host.email })
     expect(mails.some((m) => m.bodyText.includes('stuck to the shelf'))).toBe(true)
     const list = (await admin.session.get('/api/admin/disputes')).body.requests
-    expect(list.map((r: { id: string }) => r.id)).toContain(sent.id)
+    expect(list.find((r: { id: string }) => r.id === sent.id).dispute).toMatchObject({
+      reason: 'Two mugs came back stuck to the shelf',
+      raisedBy: 'potter',
+      raisedByName: 'Unhappy Una',
+    })
     const tooMuch = await admin.session.post(`/api/admin/requests/${sent.id}/refund`, { amountCents: 501, reason: 'Goodwill' })
     expect(tooMuch.status).toBe(400)
     expect(

@@ -29,7 +29,7 @@ beforeAll(async () => {
     )
     expect(reply.status).toBe(201)
   }
-}, 60_000)
+})
 
 afterAll(async () => {
   await app?.close()

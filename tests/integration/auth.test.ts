@@ -106,7 +106,10 @@ describe('sign-in and sign-out', () => {
     const first = new HttpSession(app.url)
     await register(first, { email })
     const session = new HttpSession(app.url)
+    // A visitor has no session until there is something to keep; each sign-in starts a new one.
     await session.fetchCsrf()
+    expect(session.cookies.get('cw.sid')).toBeUndefined()
+    expect((await session.signIn(email, STRONG)).status).toBe(200)
     const before = session.cookies.get('cw.sid')
     expect(before).toBeTruthy()
     const reply = await session.signIn(email, STRONG)

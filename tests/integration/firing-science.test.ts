@@ -20,7 +20,7 @@ beforeAll(async () => {
   owner = await createPerson(app, 'host', 'Ines Brandt')
   potter = await createPerson(app, 'potter', 'Tomas Reyes')
   ids = await publishedStudio(owner.session, 'Brandt Clayworks')
-}, 60_000)
+})
 
 afterAll(async () => {
   await app?.close()

@@ -6,6 +6,7 @@ import sharp from 'sharp'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { Photo } from '../../server/entities/Photo'
 import { StudioMember } from '../../server/entities/StudioMember'
+import { startWorker } from '../../server/jobs/worker'
 import { HttpSession } from '../support/http-client'
 import { createPerson, type Person } from '../support/people'
 import { draftAndSend, mug } from '../support/request-fixtures'
@@ -51,7 +52,7 @@ beforeAll(async () => {
   studioId = ids.studioId
   await app.ctx.db.getRepository(StudioMember).save({ studioId: ids.studioId, userId: crew.id, role: 'crew' })
   requestId = (await draftAndSend(potter.session, ids.firingId, [mug()])).id
-}, 60_000)
+})
 
 afterAll(async () => {
   await app?.close()
@@ -172,5 +173,71 @@ describe('who sees a photo', () => {
     expect(
       (await new HttpSession(app.url).get(`/api/studios/${studioId}/photos`)).body.photos.map((p: { id: string }) => p.id),
     ).not.toContain(photo.id)
+  })
+})
+
+describe('how much work an upload may cause', () => {
+  /** A real image of this many pixels that compresses to almost nothing (one colour). */
+  const flat = (width: number, height: number) =>
+    sharp({ create: { width, height, channels: 3, background: { r: 90, g: 60, b: 40 } }, limitInputPixels: false })
+      .png({ compressionLevel: 9 })
+      .toBuffer()
+  const storedFiles = async () => {
+    const names = []
+    for (const dir of ['photos', 'photos-incoming'])
+      names.push(...(await readdir(path.join(app.ctx.config.storageDir, dir)).catch(() => [] as string[])))
+    return names.sort()
+  }
+
+  it('leaves nothing behind when one file of a batch is refused', async () => {
+    const before = await storedFiles()
+    const rows = await app.ctx.db.getRepository(Photo).countBy({ requestId })
+    const good = await jpegWithGps(64, 64)
+    const reply = await upload(crew.session, [
+      { name: 'a.jpg', bytes: good },
+      { name: 'b.jpg', bytes: good },
+      { name: 'not-a-photo.jpg', bytes: new TextEncoder().encode('just text') },
+    ])
+    expect(reply.status).toBe(400)
+    expect(await storedFiles()).toEqual(before)
+    expect(await app.ctx.db.getRepository(Photo).countBy({ requestId })).toBe(rows)
+  })
+
+  it('refuses a batch whose images are too large together, before decoding any of them', async () => {
+    // Three 6 000 × 6 000 images: 108 megapixels, over the 100 allowed in one request.
+    const big = await flat(6000, 6000)
+    const reply = await upload(
+      crew.session,
+      [1, 2, 3].map((i) => ({ name: `big${i}.png`, bytes: big, type: 'image/png' })),
+    )
+    expect(reply.status).toBe(413)
+    expect(reply.body.error.code).toBe('upload-too-many-pixels')
+  })
+
+  it('re-encodes a heavy batch off the request path: listed as being prepared, then served', async () => {
+    const worker = await startWorker(app.ctx)
+    try {
+      const big = await flat(5000, 4000)
+      const reply = await upload(crew.session, [{ name: 'wide.png', bytes: big, type: 'image/png' }])
+      expect(reply.status).toBe(201)
+      const photo = reply.body.photos[0]
+      expect(photo.processing).toBe(true)
+      await expect.poll(async () => (await crew.session.get(photo.thumbUrl)).status, { timeout: 30_000 }).toBe(200)
+      const stored = await app.ctx.db.getRepository(Photo).findOneByOrFail({ id: photo.id })
+      expect(stored.processing).toBe(false)
+      expect(Math.max(stored.width, stored.height)).toBe(2400)
+      expect(await readdir(path.join(app.ctx.config.storageDir, 'photos-incoming'))).toEqual([])
+    } finally {
+      await worker.stop()
+    }
+  })
+
+  it('limits the pixels one person may send in a minute', async () => {
+    const big = await flat(6000, 5000)
+    const statuses: number[] = []
+    // 30 megapixels a request against 200 a minute: the seventh request is over.
+    for (let i = 0; i < 7; i++) statuses.push((await upload(owner.session, [{ name: `p${i}.png`, bytes: big, type: 'image/png' }])).status)
+    expect(statuses.slice(0, 6)).toEqual([201, 201, 201, 201, 201, 201])
+    expect(statuses[6]).toBe(429)
   })
 })

@@ -1,9 +1,8 @@
 // From drop-off to pickup through the API: check-in (and refusal at the door), the firing moving
-// its requests along, the log, results, ready, the balance, collection, and the ratings.
+// its requests along, the log, results, ready, the balance, pickup, and the answers after it.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { FiringRequest } from '../../server/entities/FiringRequest'
 import { OutboundMail } from '../../server/entities/OutboundMail'
-import { Rating } from '../../server/entities/Rating'
 import { CARD_SUCCEEDS, submitCard } from '../support/checkout'
 import { HttpSession } from '../support/http-client'
 import { createPerson, type Person } from '../support/people'
@@ -21,7 +20,7 @@ beforeAll(async () => {
   owner = await createPerson(app, 'host', 'Ravi Host')
   potter = await createPerson(app, 'potter', 'Sol Potter')
   ids = await publishedStudio(owner.session, 'Pickup Studio')
-}, 60_000)
+})
 
 afterAll(async () => {
   await app?.close()
@@ -44,8 +43,8 @@ async function move(firingId: string, ...statuses: string[]) {
   }
 }
 
-describe('the whole way, from drop-off to ratings', () => {
-  it('checks in, fires, posts results, takes the balance, hands back and lets both sides rate', async () => {
+describe('the whole way, from drop-off to the answers after pickup', () => {
+  it('checks in, fires, posts results, takes the balance, hands back and lets both sides answer', async () => {
     const firingId = await newFiring()
     const sent = await paid(firingId)
 
@@ -130,31 +129,21 @@ describe('the whole way, from drop-off to ratings', () => {
     expect(pickup).toHaveLength(1)
     expect(pickup[0].subject).toMatch(/receipt/)
 
-    // Both sides rate; the studio's page shows it.
-    expect(
-      (
-        await potter.session.post(`/api/requests/${sent.id}/rating`, {
-          stars: 5,
-          care: 5,
-          communication: 4,
-          results: 5,
-          text: 'Lovely even heat.',
-        })
-      ).status,
-    ).toBe(200)
-    expect(
-      (
-        await owner.session.post(`/api/requests/${sent.id}/rating`, {
-          stars: 4,
-          asDeclared: 4,
-          onTime: 5,
-          text: 'On time, ware as described.',
-        })
-      ).status,
-    ).toBe(200)
-    const page = await new HttpSession(app.url).get(`/api/studios/${ids.studioId}/ratings`)
-    expect(page.body.summary).toMatchObject({ mean: 5, count: 1 })
-    expect(page.body.ratings[0]).toMatchObject({ stars: 5, text: 'Lovely even heat.', author: 'Sol' })
+    // Both sides answer; the studio's page shows the potter's answers.
+    const potterAnswers = {
+      loading: 'yes',
+      resultsAsLogged: 'yes',
+      turnaround: 'partly',
+      communication: 'yes',
+      fireAgain: true,
+      note: 'Lovely even heat.',
+    }
+    expect((await potter.session.post(`/api/requests/${sent.id}/review`, potterAnswers)).status).toBe(200)
+    const studioAnswers = { asDeclared: 'yes', cleanAndDry: 'yes', onTime: 'partly', note: 'On time, ware as described.' }
+    expect((await owner.session.post(`/api/requests/${sent.id}/review`, studioAnswers)).status).toBe(200)
+    const page = await new HttpSession(app.url).get(`/api/studios/${ids.studioId}/reviews`)
+    expect(page.body.summary).toMatchObject({ count: 1, fireAgain: 1, questions: { turnaround: { yes: 0, partly: 1, no: 0 } } })
+    expect(page.body.reviews[0]).toMatchObject({ loading: 'yes', fireAgain: true, note: 'Lovely even heat.', author: 'Sol' })
   }, 90_000)
 })
 
@@ -217,55 +206,5 @@ describe('drop-off', () => {
     const firingId = await newFiring()
     const sent = await paid(firingId)
     expect((await potter.session.post(`/api/requests/${sent.id}/check-in`, { pieces: [{ pieceIndex: 0, received: 4 }] })).status).toBe(403)
-  })
-})
-
-describe('ratings', () => {
-  async function collected() {
-    const firingId = await newFiring()
-    const sent = await paid(firingId)
-    await owner.session.post(`/api/requests/${sent.id}/check-in`, { pieces: [{ pieceIndex: 0, received: 4 }] })
-    await move(firingId, 'loading', 'firing', 'cooling', 'unloaded')
-    await owner.session.post(`/api/requests/${sent.id}/results`, { outcomes: [{ pieceIndex: 0, outcome: 'fine' }] })
-    await owner.session.post(`/api/requests/${sent.id}/ready`)
-    await owner.session.post(`/api/requests/${sent.id}/balance/counter`, { note: 'Cash at pickup' })
-    expect((await owner.session.post(`/api/requests/${sent.id}/collected`)).status).toBe(200)
-    return sent
-  }
-
-  it('opens only after collection', async () => {
-    const firingId = await newFiring()
-    const sent = await paid(firingId)
-    const early = await potter.session.post(`/api/requests/${sent.id}/rating`, { stars: 5 })
-    expect(early.status).toBe(409)
-    expect(early.body.error.code).toBe('not-collected')
-  })
-
-  it('keeps one rating per side, editable for 14 days, and one public reply', async () => {
-    const sent = await collected()
-    await potter.session.post(`/api/requests/${sent.id}/rating`, { stars: 2, text: 'Slow to answer' })
-    const edited = await potter.session.post(`/api/requests/${sent.id}/rating`, { stars: 4, text: 'They answered in the end' })
-    expect(edited.body.ofStudio).toMatchObject({ stars: 4, text: 'They answered in the end' })
-    expect(await app.ctx.db.getRepository(Rating).countBy({ requestId: sent.id, direction: 'potter-rates-studio' })).toBe(1)
-    // Fifteen days on, the rating is settled.
-    await app.ctx.db.query(`UPDATE ratings SET created_at = now() - interval '15 days' WHERE request_id = $1`, [sent.id])
-    const late = await potter.session.post(`/api/requests/${sent.id}/rating`, { stars: 1 })
-    expect(late.status).toBe(409)
-    expect(late.body.error.code).toBe('edit-window-closed')
-    expect((await owner.session.post(`/api/requests/${sent.id}/rating/reply`, { text: 'Sorry for the wait; new inbox now.' })).status).toBe(
-      200,
-    )
-    expect((await owner.session.post(`/api/requests/${sent.id}/rating/reply`, { text: 'Again' })).body.error.code).toBe('already-replied')
-    expect((await potter.session.post(`/api/requests/${sent.id}/rating/reply`, { text: 'Me too' })).status).toBe(403)
-  })
-
-  it('shows the studio’s mean and count, and ranks by a score a few ratings cannot run away with', async () => {
-    const page = (await new HttpSession(app.url).get(`/api/studios/${ids.studioId}/ratings`)).body
-    expect(page.summary.count).toBeGreaterThanOrEqual(2)
-    // A Bayesian average (prior 3.5 weighted as 5 ratings) lies between the prior and the plain mean.
-    const lo = Math.min(3.5, page.summary.mean)
-    const hi = Math.max(3.5, page.summary.mean)
-    expect(page.summary.score).toBeGreaterThanOrEqual(lo - 0.01)
-    expect(page.summary.score).toBeLessThanOrEqual(hi + 0.01)
   })
 })

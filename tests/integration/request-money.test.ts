@@ -270,7 +270,8 @@ describe('the SDK talks to the stand-in as it would to Stripe', () => {
   it('sends every call to Stripe’s own paths with idempotency keys', async () => {
     const calls = app.stripe!.requests()
     expect(calls.length).toBeGreaterThan(0)
-    for (const call of calls) expect(call.path).toMatch(/^\/v1\/(checkout\/sessions|refunds|payment_intents|charges|events)(\/|$)/)
+    for (const call of calls)
+      expect(call.path).toMatch(/^\/v1\/(checkout\/sessions|refunds|payment_intents|charges|events|transfers|accounts|account_links)(\/|$)/)
     const creates = calls.filter((c) => c.method === 'POST' && (c.path === '/v1/checkout/sessions' || c.path === '/v1/refunds'))
     expect(creates.length).toBeGreaterThan(0)
     expect(creates.every((c) => typeof c.idempotencyKey === 'string' && c.idempotencyKey.length > 0)).toBe(true)

@@ -11,12 +11,28 @@ afterAll(async () => {
 })
 
 describe('cookies behind TLS', () => {
-  it('marks the session cookie Secure when the public address is https', async () => {
+  it('marks the CSRF and session cookies Secure when the public address is https', async () => {
     // The TLS terminator in front says the request came in over https.
-    const res = await fetch(`${tls.url}/api/auth/csrf`, { headers: { 'X-Forwarded-Proto': 'https' } })
-    const cookie = res.headers.getSetCookie().find((c) => c.startsWith('cw.sid='))!
-    expect(cookie).toMatch(/; Secure/i)
-    expect(cookie).toMatch(/HttpOnly/i)
-    expect(cookie).toMatch(/SameSite=Lax/i)
+    const https = { 'X-Forwarded-Proto': 'https' }
+    const csrf = await fetch(`${tls.url}/api/auth/csrf`, { headers: https })
+    const csrfCookie = csrf.headers.getSetCookie().find((c) => c.startsWith('cw.csrf='))!
+    const { token } = await csrf.json()
+    const registered = await fetch(`${tls.url}/api/auth/register`, {
+      method: 'POST',
+      headers: { ...https, 'Content-Type': 'application/json', 'X-CSRF-Token': token, Cookie: csrfCookie.split(';')[0] },
+      body: JSON.stringify({
+        email: 'tls.potter@example.test',
+        password: 'kiln-shelf-wadding-cone',
+        displayName: 'TLS Potter',
+        role: 'potter',
+      }),
+    })
+    expect(registered.status).toBe(201)
+    const sessionCookie = registered.headers.getSetCookie().find((c) => c.startsWith('cw.sid='))!
+    for (const cookie of [csrfCookie, sessionCookie]) {
+      expect(cookie).toMatch(/; Secure/i)
+      expect(cookie).toMatch(/HttpOnly/i)
+      expect(cookie).toMatch(/SameSite=Lax/i)
+    }
   })
 })

@@ -8,7 +8,7 @@ let app: TestApp
 
 beforeAll(async () => {
   app = await startTestApp({ worker: false })
-}, 60_000)
+})
 afterAll(async () => {
   await app?.close()
 })
@@ -17,25 +17,25 @@ const counts = async () =>
   (
     await app.ctx.db.query(
       `SELECT (SELECT count(*) FROM users)::int AS users, (SELECT count(*) FROM studios)::int AS studios, (SELECT count(*) FROM kilns)::int AS kilns,
-            (SELECT count(*) FROM firings)::int AS firings, (SELECT count(*) FROM firing_requests)::int AS requests, (SELECT count(*) FROM ratings)::int AS ratings`,
+            (SELECT count(*) FROM firings)::int AS firings, (SELECT count(*) FROM firing_requests)::int AS requests, (SELECT count(*) FROM reviews WHERE published_at IS NOT NULL)::int AS reviews`,
     )
   )[0]
 
 describe('the demo data', () => {
-  it('seeds forty studios with kilns, firings eight weeks ahead, requests and a rating, and adds nothing the second time', async () => {
+  it('seeds forty studios with kilns, firings eight weeks ahead, requests and both sides’ answers after a pickup, and adds nothing the second time', async () => {
     await seedDemo(app.ctx)
     const first = await counts()
     expect(first.studios).toBe(40)
     expect(first.kilns).toBeGreaterThanOrEqual(40)
     expect(first.requests).toBeGreaterThanOrEqual(5)
-    expect(first.ratings).toBe(1)
+    expect(first.reviews).toBe(2)
     await seedDemo(app.ctx)
     expect(await counts()).toEqual(first)
   }, 120_000)
 
   it('lets the documented demo accounts sign in, each to their own studio', async () => {
-    const host = new HttpSession(app.url)
-    const reply = await host.signIn('marisol.okafor@demo.conewright.test', DEMO_PASSWORD)
+    const owner = new HttpSession(app.url)
+    const reply = await owner.signIn('marisol.okafor@demo.conewright.test', DEMO_PASSWORD)
     expect(reply.status).toBe(200)
     expect(reply.body.studios).toEqual([expect.objectContaining({ name: 'Alder Street Clay Commons', role: 'owner' })])
     const crew = await new HttpSession(app.url).signIn('dev.ramanathan@demo.conewright.test', DEMO_PASSWORD)

@@ -28,7 +28,7 @@ beforeAll(async () => {
   }
   ids = await publishedStudio(people.owner.session)
   await app.ctx.db.getRepository(StudioMember).save({ studioId: ids.studioId, userId: people.crew.id, role: 'crew' })
-}, 60_000)
+})
 
 afterAll(async () => {
   await app?.close()

@@ -18,7 +18,7 @@ beforeAll(async () => {
   owner = await createPerson(app, 'host', 'Rosa Lindqvist')
   potter = await createPerson(app, 'potter', 'Sam Okoro')
   ids = await publishedStudio(owner.session, 'Lindqvist Kilnworks')
-}, 60_000)
+})
 
 afterAll(async () => {
   await app?.close()

@@ -23,11 +23,43 @@ export async function launchBrowser(): Promise<Browser> {
   })
 }
 
+/** Pages open now, with the API calls that failed on each: what a failed test prints (tests/setup/e2e-failures.ts). */
+const watched = new Map<Page, string[]>()
+
 /** Fails the test on any uncaught page error, so a broken page cannot pass by luck. */
 export function watchPageErrors(page: Page): string[] {
   const errors: string[] = []
+  const refused: string[] = []
+  watched.set(page, refused)
+  page.on('close', () => watched.delete(page))
   page.on('pageerror', (error) => errors.push(error.message))
+  page.on('response', (response) => {
+    const url = new URL(response.url())
+    if (response.status() >= 400 && url.pathname.startsWith('/api/')) {
+      refused.push(`${new Date().toISOString()} ${response.request().method()} ${url.pathname} → ${response.status()}`)
+    }
+  })
   return errors
+}
+
+/** Where each open page stands: its address, the alerts it shows and its refused API calls. */
+export async function describeOpenPages(): Promise<string> {
+  const parts: string[] = []
+  for (const [page, refused] of watched) {
+    if (page.isClosed()) continue
+    const alerts = await page
+      .locator('[role="alert"]')
+      .allInnerTexts()
+      .catch(() => [])
+    parts.push(
+      [
+        `page ${page.url()}`,
+        ...alerts.map((text) => `  alert: ${text.trim()}`),
+        ...refused.slice(-10).map((line) => `  api: ${line}`),
+      ].join('\n'),
+    )
+  }
+  return parts.join('\n')
 }
 
 /** A fresh browser context and page on the app, with page errors collected and a 60 s default wait (a ceiling for a busy machine; every wait is on a state). */

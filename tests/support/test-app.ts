@@ -3,11 +3,12 @@ import type { AddressInfo } from 'node:net'
 import os from 'node:os'
 import path from 'node:path'
 import type { Server } from 'node:http'
+import type { Express } from 'express'
 import type { Runner } from 'graphile-worker'
 import { freePort } from '../../scripts/lib/system.mjs'
 import { createApp } from '../../server/app'
-import { loadConfig, type Config } from '../../server/config'
-import { silentLogger, type AppContext } from '../../server/context'
+import { loadConfig, type ConfigOverrides } from '../../server/config'
+import { silentLogger, type AppContext, type Logger } from '../../server/context'
 import { createDataSource } from '../../server/db/data-source'
 import { startWorker } from '../../server/jobs/worker'
 import { startMailCatcher, type MailCatcher } from '../../standins/mail-catcher'
@@ -17,6 +18,8 @@ import { createTestDatabase } from './database'
 
 export interface TestApp {
   url: string
+  /** The Express app itself, for tests that walk its routes. */
+  express: Express
   ctx: AppContext
   mail: MailCatcher | null
   search: RunningSearchEngine | null
@@ -29,7 +32,16 @@ export interface TestApp {
  * and (when asked) a mail catcher. Nothing is mocked.
  */
 export async function startTestApp(
-  options: { mail?: boolean; search?: boolean; stripe?: boolean; worker?: boolean; config?: Partial<Config>; serveClient?: boolean } = {},
+  options: {
+    mail?: boolean
+    search?: boolean
+    stripe?: boolean
+    worker?: boolean
+    config?: ConfigOverrides
+    serveClient?: boolean
+    /** Where the app logs; silent unless TEST_LOG is set. */
+    log?: Logger
+  } = {},
 ): Promise<TestApp> {
   const database = await createTestDatabase()
   const mail = options.mail ? await startMailCatcher({ smtpPort: await freePort(), webPort: await freePort() }) : null
@@ -39,6 +51,7 @@ export async function startTestApp(
         port: 0,
         secretKey: 'sk_test_conewright_tests',
         webhookSecret: 'whsec_conewright_tests',
+        connectWebhookSecret: 'whsec_conewright_tests_connect',
         webhookRetry: { baseDelayMs: 100 },
       })
     : null
@@ -54,6 +67,7 @@ export async function startTestApp(
       meiliApiKey: 'test-search-key',
       stripeSecretKey: 'sk_test_conewright_tests',
       stripeWebhookSecret: 'whsec_conewright_tests',
+      stripeConnectWebhookSecret: 'whsec_conewright_tests_connect',
       // Without the stand-in, Stripe calls go to a port that answers nothing.
       stripeApiBase: stripe?.url ?? 'http://127.0.0.1:9',
       serveClient: options.serveClient ?? false,
@@ -64,7 +78,7 @@ export async function startTestApp(
   )
   const db = createDataSource(database.url, { poolSize: 10, applicationName: 'conewright-test' })
   await db.initialize()
-  const ctx: AppContext = { config, db, log: process.env.TEST_LOG ? { ...console, warn: console.warn } : silentLogger }
+  const ctx: AppContext = { config, db, log: options.log ?? (process.env.TEST_LOG ? { ...console, warn: console.warn } : silentLogger) }
   const worker: Runner | null = options.worker === false ? null : await startWorker(ctx)
   const { app, close } = createApp(ctx)
   const server: Server = await new Promise((resolve) => {
@@ -73,8 +87,10 @@ export async function startTestApp(
   const url = `http://127.0.0.1:${(server.address() as AddressInfo).port}`
   if (!options.config?.publicUrl) config.publicUrl = url
   stripe?.setWebhookUrl(`${url}/api/webhooks/stripe`)
+  stripe?.setConnectWebhookUrl(`${url}/api/webhooks/stripe-connect`)
   const testApp: TestApp = {
     url,
+    express: app,
     ctx,
     mail,
     search,

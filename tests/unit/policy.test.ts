@@ -22,7 +22,7 @@ const facts = (over: Partial<RequestFacts> = {}): RequestFacts => ({
   proposedMove: false,
   resultsPosted: false,
   ratedBy: { potter: false, studio: false },
-  replied: false,
+  reviewWindowOpen: true,
   counterRefundDueCents: 0,
   ...over,
 })
@@ -78,11 +78,37 @@ describe('the policy table', () => {
     expect(allowedActions(facts({ state: 'received' }), 'potter')).not.toContain('decline-price')
   })
 
-  it('asks each side for a rating once, after collection', () => {
+  it('asks each side for its answers once, after pickup, while the window is open', () => {
     expect(canBeRated(facts({ state: 'collected' }), 'potter')).toBe(true)
     expect(canBeRated(facts({ state: 'collected', ratedBy: { potter: true, studio: false } }), 'potter')).toBe(false)
     expect(canBeRated(facts({ state: 'collected', ratedBy: { potter: true, studio: false } }), 'studio')).toBe(true)
     expect(canBeRated(facts({ state: 'ready' }), 'potter')).toBe(false)
+    expect(canBeRated(facts({ state: 'collected', reviewWindowOpen: false }), 'studio')).toBe(false)
+    expect(refusalOf('rate', facts({ state: 'collected', ratedBy: { potter: true, studio: false } }), 'potter')).toMatchObject({
+      status: 409,
+      code: 'already-answered',
+    })
+    expect(refusalOf('rate', facts({ state: 'collected', reviewWindowOpen: false }), 'potter')).toMatchObject({
+      status: 409,
+      code: 'review-window-closed',
+    })
+    expect(refusalOf('rate', facts({ state: 'ready' }), 'potter')).toMatchObject({ status: 409, code: 'bad-state-change' })
+  })
+
+  it('has no public reply: neither side answers the other', () => {
+    expect(REQUEST_ACTIONS as readonly string[]).not.toContain('reply')
+    for (const state of REQUEST_STATES)
+      for (const side of ['potter', 'studio'] as const)
+        expect(allowedActions(facts({ state, ratedBy: { potter: true, studio: true } }), side)).not.toContain('rate')
+  })
+
+  it('refuses in the words people read, not the stored state names', () => {
+    expect(refusalOf('withdraw', facts({ state: 'fired' }), 'potter')?.message).toBe(
+      'You cannot withdraw the ask while this stands at “Fired”.',
+    )
+    expect(refusalOf('accept', facts(), 'potter')?.message).toBe('Only the studio can take this ware on.')
+    for (const state of REQUEST_STATES)
+      expect(refusalOf('send', facts({ state }), 'potter')?.message ?? '').not.toMatch(/deposit_paid|host/)
   })
 
   it('keeps a request that ended open only for the thread, and for handing back counter money', () => {

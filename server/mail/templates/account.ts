@@ -13,6 +13,19 @@ export function verifyEmailMail(name: string, url: string): MailContent {
   }
 }
 
+export function signInLinkMail(name: string, url: string): MailContent {
+  return {
+    subject: 'Your one-time Conewright sign-in link',
+    greeting: `Hello ${name},`,
+    paragraphs: [
+      'Someone has been trying many passwords on this Conewright account, so signing in with a password is paused for a while. This link signs you in without one.',
+      'The link works once and expires in 15 minutes. If the guessing goes on, set a new, longer password once you are in.',
+    ],
+    action: { label: 'Sign me in', url },
+    footnote: 'If you did not ask for this link, ignore this mail; the pause protects your account either way.',
+  }
+}
+
 export function passwordResetMail(name: string, url: string): MailContent {
   return {
     subject: 'Set a new Conewright password',

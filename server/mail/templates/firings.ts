@@ -16,10 +16,10 @@ export const firingTitle = (f: FiringFacts) => `${formatCone(f.cone)} ${f.atmosp
 
 export function firingCancelledMail(name: string, firing: FiringFacts, reason: string, url: string): MailContent {
   return {
-    subject: `Firing cancelled: ${firingTitle(firing)} at ${firing.studioName}`,
+    subject: `Firing called off: ${firingTitle(firing)} at ${firing.studioName}`,
     greeting: `Hello ${name},`,
     paragraphs: [
-      `${firing.studioName} has cancelled the ${firingTitle(firing)} you asked to join. Your request is cancelled with it.`,
+      `${firing.studioName} has called off the ${firingTitle(firing)} you asked to join. Your place in it goes with it.`,
       `Their reason: “${reason}”`,
       'Any deposit you paid is refunded in full. You can look for another firing with space on Conewright.',
     ],
@@ -27,7 +27,7 @@ export function firingCancelledMail(name: string, firing: FiringFacts, reason: s
       ['Kiln', firing.kilnName],
       ['Was to fire', formatDateTime(firing.firingDate, firing.timezone)],
     ],
-    action: { label: 'See the request', url },
+    action: { label: 'See it on Conewright', url },
   }
 }
 

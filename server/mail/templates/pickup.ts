@@ -1,5 +1,6 @@
 import { formatDateTime, formatMoney } from '../../../shared/dates'
 import { formatCone } from '../../../shared/firing/cones'
+import { REVIEW_WINDOW_DAYS } from '../../../shared/reviews'
 import type { MailContent } from '../render'
 import type { RequestFacts } from './requests'
 
@@ -19,11 +20,11 @@ export function dropOffMail(r: RequestFacts, c: CheckInFacts): MailContent {
     subject: `Ware received at ${r.studioName}`,
     greeting: `Hello ${r.potterName},`,
     paragraphs: [
-      `${r.studioName} checked your ware in for the ${title(r)} on ${formatDateTime(new Date(), r.timezone)}. This is what they recorded.`,
+      `${r.studioName} took your ware in for the ${title(r)} on ${formatDateTime(new Date(), r.timezone)}. This is what they recorded.`,
       c.conditionNotes ? `Condition at drop-off: ${c.conditionNotes}` : 'No damage was noted at drop-off.',
       ...(changed
         ? [
-            `The measured ware changes the price from ${formatMoney(c.quoteBeforeCents, r.currency)} to ${formatMoney(c.quoteAfterCents, r.currency)}.${c.needsConfirmation ? ' Please confirm the new price on the request before the firing.' : ''}`,
+            `The measured ware changes the price from ${formatMoney(c.quoteBeforeCents, r.currency)} to ${formatMoney(c.quoteAfterCents, r.currency)}.${c.needsConfirmation ? ' Please confirm the new price on Conewright before the firing.' : ''}`,
           ]
         : []),
     ],
@@ -34,22 +35,22 @@ export function dropOffMail(r: RequestFacts, c: CheckInFacts): MailContent {
           `${row.received} of ${row.declared} received${row.held ? `, ${row.held} held back` : ''}${row.measured ? `, measured ${row.measured}` : ''}`,
         ] as [string, string],
     ),
-    action: { label: changed && c.needsConfirmation ? 'Confirm the new price' : 'See the request', url: r.requestUrl },
+    action: { label: changed && c.needsConfirmation ? 'Confirm the new price' : 'See it on Conewright', url: r.requestUrl },
   }
 }
 
 export function refusedMail(r: RequestFacts, reason: string, refundCents: number): MailContent {
   return {
-    subject: `Ware not accepted at ${r.studioName}`,
+    subject: `Ware turned away at ${r.studioName}`,
     greeting: `Hello ${r.potterName},`,
     paragraphs: [
       `${r.studioName} could not take your ware into the ${title(r)}.`,
       `Their reason: “${reason}”`,
       refundCents > 0
-        ? `Under the studio’s cancellation terms ${formatMoney(refundCents, r.currency)} is refunded to you.`
-        : 'Under the studio’s cancellation terms the deposit is not refunded.',
+        ? `Under the studio’s terms ${formatMoney(refundCents, r.currency)} is refunded to you.`
+        : 'Under the studio’s terms the deposit is not refunded.',
     ],
-    action: { label: 'See the request', url: r.requestUrl },
+    action: { label: 'See it on Conewright', url: r.requestUrl },
   }
 }
 
@@ -60,10 +61,10 @@ export function noShowMail(r: RequestFacts, refundCents: number): MailContent {
     paragraphs: [
       `Your ware was not dropped off before ${r.studioName} loaded the kiln, so your place in this firing has lapsed.`,
       refundCents > 0
-        ? `Under the studio’s cancellation terms ${formatMoney(refundCents, r.currency)} is refunded to you.`
-        : 'Under the studio’s cancellation terms the deposit is not refunded.',
+        ? `Under the studio’s terms ${formatMoney(refundCents, r.currency)} is refunded to you.`
+        : 'Under the studio’s terms the deposit is not refunded.',
     ],
-    action: { label: 'See the request', url: r.requestUrl },
+    action: { label: 'See it on Conewright', url: r.requestUrl },
   }
 }
 
@@ -72,9 +73,9 @@ export function readyMail(r: RequestFacts, dropOffHours: string, owedCents: numb
     subject: `Ready for pickup: your ware from the ${title(r)}`,
     greeting: `Hello ${r.potterName},`,
     paragraphs: [
-      `Your ware is out of the kiln and ready to collect at ${r.studioName}. The results and photos are on the request.`,
+      `Your ware is out of the kiln and ready for pickup at ${r.studioName}. The results and photos are on Conewright.`,
       owedCents > 0
-        ? `${formatMoney(owedCents, r.currency)} is still owed: pay it on the request before you come, or at the counter.`
+        ? `${formatMoney(owedCents, r.currency)} is still owed: pay it online before you come, or at the counter.`
         : 'Everything is paid.',
     ],
     details: [
@@ -92,18 +93,18 @@ export function pickupMail(
   refundedCents: number,
 ): MailContent {
   return {
-    subject: `Collected: your receipt from ${r.studioName}`,
+    subject: `Picked up: your receipt from ${r.studioName}`,
     greeting: `Hello ${r.potterName},`,
     paragraphs: [
-      `You collected your ware from the ${title(r)} on ${formatDateTime(new Date(), r.timezone)}. Thank you. This is your receipt.`,
-      'Once you have looked everything over, rate the exchange on the request: it helps other potters and the studio.',
+      `You picked up your ware from the ${title(r)} on ${formatDateTime(new Date(), r.timezone)}. Thank you. This is your receipt.`,
+      `Once you have used the pots a while, answer a few questions about the firing. Neither you nor the studio sees the other’s answers until both have answered, or for ${REVIEW_WINDOW_DAYS} days.`,
     ],
     details: [
       ...receipt.map((line) => [line.label, formatMoney(line.amountCents, r.currency)] as [string, string]),
       ['Paid', formatMoney(paidCents, r.currency)],
       ...(refundedCents ? [['Refunded', formatMoney(refundedCents, r.currency)] as [string, string]] : []),
     ],
-    action: { label: 'Rate the exchange', url: r.requestUrl },
+    action: { label: 'Answer about the firing', url: r.requestUrl },
   }
 }
 
@@ -113,10 +114,10 @@ export function firingProgressMail(r: RequestFacts, stage: 'firing' | 'unloaded'
     greeting: `Hello ${r.potterName},`,
     paragraphs: [
       stage === 'firing'
-        ? `The ${title(r)} has started. The firing log is on your request.`
-        : 'The kiln is open and the studio is looking over the ware. Results and photos follow on your request.',
+        ? `The ${title(r)} has started. The firing log is on Conewright as the studio writes it.`
+        : 'The kiln is open and the studio is looking over the ware. Results and photos follow on Conewright.',
     ],
-    action: { label: 'See the request', url: r.requestUrl },
+    action: { label: 'See it on Conewright', url: r.requestUrl },
   }
 }
 
@@ -127,12 +128,12 @@ export function priceAnsweredMail(r: RequestFacts, answer: 'confirmed' | 'declin
     paragraphs: [
       answer === 'confirmed'
         ? `${r.potterName} agreed to the price from the measured ware, ${formatMoney(r.totalCents, r.currency)}. The ware can go in the kiln.`
-        : `${r.potterName} turned down the price from the measured ware. The request is withdrawn: keep the ware aside for them to collect, and leave it out of the load.`,
+        : `${r.potterName} turned down the price from the measured ware, so their ask is withdrawn: keep the ware aside for them to pick up, and leave it out of the load.`,
       ...(answer === 'declined' && refundCents > 0
         ? [`Everything they paid, ${formatMoney(refundCents, r.currency)}, is refunded to them in full.`]
         : []),
     ],
-    action: { label: 'See the request', url: r.requestUrl },
+    action: { label: 'See it on Conewright', url: r.requestUrl },
   }
 }
 
@@ -142,13 +143,13 @@ export function priceDeclinedPotterMail(r: RequestFacts, refundCents: number): M
     subject: `Withdrawn at the new price: the ${title(r)}`,
     greeting: `Hello ${r.potterName},`,
     paragraphs: [
-      'You turned down the price from the measured ware, so your request is withdrawn and your ware will not be fired.',
+      'You turned down the price from the measured ware, so your ask is withdrawn and your ware will not be fired.',
       refundCents > 0
         ? `Everything you paid, ${formatMoney(refundCents, r.currency)}, is being refunded to your card.`
         : 'You had paid nothing, so nothing is owed.',
-      `Collect your ware from ${r.studioName} during their opening hours.`,
+      `Pick your ware up from ${r.studioName} during their opening hours.`,
     ],
-    action: { label: 'See the request', url: r.requestUrl },
+    action: { label: 'See it on Conewright', url: r.requestUrl },
   }
 }
 
@@ -173,7 +174,7 @@ export function paymentReceivedMail(
       payment.owedCents > 0
         ? `${formatMoney(payment.owedCents, r.currency)} is still owed ${payment.what === 'deposit' ? 'toward the deposit' : 'before pickup'}.`
         : payment.what === 'deposit'
-          ? 'The deposit is paid: the space is booked.'
+          ? 'The deposit is paid: the space is held.'
           : 'Nothing more is owed.',
     ],
     details: [
@@ -181,7 +182,38 @@ export function paymentReceivedMail(
       ['Paid so far', formatMoney(payment.paidCents, r.currency)],
       ['Still owed', formatMoney(payment.owedCents, r.currency)],
     ],
-    action: { label: 'See the request', url: r.requestUrl },
+    action: { label: 'See it on Conewright', url: r.requestUrl },
+  }
+}
+
+/** One side has answered about the firing; the other hears that theirs is awaited, not what was said. */
+export function reviewGivenMail(r: RequestFacts, audience: 'potter' | 'studio', closesAt: Date): MailContent {
+  const who = audience === 'potter' ? r.studioName : r.potterName
+  return {
+    subject: `${who} answered about the ${title(r)}`,
+    ...(audience === 'potter' ? { greeting: `Hello ${r.potterName},` } : {}),
+    paragraphs: [
+      `${who} has given their answers after pickup. You see them once you have given yours, or on ${formatDateTime(closesAt, r.timezone)}, when whatever both sides have answered is published.`,
+      'Answers are final once sent, so neither side answers the other.',
+    ],
+    action: { label: 'Give your answers', url: r.requestUrl },
+  }
+}
+
+/** The answers are public: both sides answered, or the window closed. */
+export function reviewsPublishedMail(r: RequestFacts, audience: 'potter' | 'studio', bothAnswered: boolean): MailContent {
+  return {
+    subject: `Answers published: the ${title(r)}`,
+    ...(audience === 'potter' ? { greeting: `Hello ${r.potterName},` } : {}),
+    paragraphs: [
+      bothAnswered
+        ? 'Both sides have answered about this firing, so the answers are now shown to each other.'
+        : 'The window for answers has closed, so the answers given are now shown.',
+      audience === 'potter'
+        ? 'What you said about the studio now counts on its public page and in search.'
+        : 'What you said about the potter now shows on their record to studios.',
+    ],
+    action: { label: 'See the answers', url: r.requestUrl },
   }
 }
 

@@ -1,6 +1,6 @@
 // The firing log as both sides read it: when the kiln was loaded, fired, turned off and opened; its
 // peak; the witness cones and what they say against the peak.
-import { formatDateTime } from '../../../shared/dates'
+import { formatDateTime, zoneName } from '../../../shared/dates'
 import { formatCone } from '../../../shared/firing/cones'
 import type { FiringLogRecord } from '../../../shared/api/firing-log'
 import { BEND_LABELS, type ConeBend, type WitnessCheck } from '../../../shared/firing/witness'
@@ -115,7 +115,7 @@ export function FiringLogView({ log, zone, units }: FiringLogViewProps) {
       )}
       {log.notes && <p className="whitespace-pre-line text-sm text-slip-800">{log.notes}</p>}
       <p className="text-xs text-slip-500">
-        Times are the studio’s: {zone.replace(/_/g, ' ')}. Last written {formatDateTime(log.updatedAt, zone)}.
+        Times are the studio’s ({zoneName(zone)}). Last written {formatDateTime(log.updatedAt, zone)}.
       </p>
     </div>
   )

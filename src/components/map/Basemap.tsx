@@ -6,6 +6,7 @@ import { GeoJSON, MapContainer, Pane, TileLayer, useMap, useMapEvents } from 're
 import { useSiteMeta } from '../../lib/meta'
 import type { Bounds } from './basemap-grid'
 import { basemapIndex, cellsFor, loadCell, type CellShapes, type WantedCell } from './offline-layers'
+import { TownLabels } from './TownLabels'
 
 export type LatLngPair = [lat: number, lng: number]
 
@@ -84,6 +85,7 @@ export function Basemap({ center, zoom, className = 'h-96', label = 'Map', onMov
           <TileLayer url={tileUrl!} attribution={`Map tiles: ${tileHost(tileUrl!)}`} eventHandlers={{ load: () => setReady(true) }} />
         )}
         {source === 'offline' && <OfflineBasemap onReady={setReady} />}
+        {source === 'offline' && <TownLabels />}
         {children}
       </MapContainer>
     </div>

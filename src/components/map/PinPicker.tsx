@@ -35,7 +35,7 @@ function formatPosition({ lat, lng }: LatLng): string {
 }
 
 /**
- * A map with one pin the host drags (or clicks, or nudges with the buttons) to where the studio is.
+ * A map with one pin the studio owner drags (or clicks, or nudges with the buttons) to where the studio is.
  * The map follows `value` when it changes from outside, not while the pin is being moved here.
  */
 export function PinPicker({ value, onChange, zoom = 15, className = 'h-72' }: PinPickerProps) {

@@ -42,10 +42,25 @@ export function PhotoGallery({ photos, kinds = KIND_ORDER, headings = {}, below,
                 <button
                   type="button"
                   onClick={() => setOpen({ kind: g.kind, index })}
-                  className="block aspect-square w-full overflow-hidden rounded-control border border-slip-200 bg-slip-100 hover:border-clay-400"
-                  aria-label={`${g.title}: photo ${index + 1} of ${g.photos.length}, open at full size`}
+                  disabled={photo.processing}
+                  className="focus-ring block aspect-square w-full overflow-hidden rounded-control border border-slip-200 bg-slip-100 hover:border-clay-400"
                 >
-                  <img src={photo.thumbUrl} alt="" loading="lazy" className="size-full object-cover" />
+                  {photo.processing ? (
+                    <span className="flex size-full items-center justify-center text-xs text-slip-500">
+                      Preparing…<span className="sr-only"> {`${g.title}: photo ${index + 1} of ${g.photos.length}`}</span>
+                    </span>
+                  ) : (
+                    <>
+                      {/* The photo's own words name the button; the action is added for a screen reader. */}
+                      <img
+                        src={photo.thumbUrl}
+                        alt={`${g.title}: photo ${index + 1} of ${g.photos.length}`}
+                        loading="lazy"
+                        className="size-full object-cover"
+                      />
+                      <span className="sr-only">, open at full size</span>
+                    </>
+                  )}
                 </button>
                 {below?.(photo)}
               </li>

@@ -27,7 +27,7 @@ interface PhotoUploaderProps {
   /** Where the photos go: a multipart POST, each file in the field `photos`, beside `fields`. */
   uploadUrl: string
   fields: Record<string, string>
-  /** What the photos are of, e.g. "Check-in photos"; names the drop zone and the file picker. */
+  /** What the photos are of, e.g. "Drop-off photos"; names the drop zone and the file picker. */
   label: string
   hint?: ReactNode
   /** Called once per stored file, so the page can show it where it belongs. */
@@ -282,7 +282,7 @@ function UploadRow({ item, onRetry, onRemove }: { item: UploadItem; onRetry: () 
     >
       <div className="size-14 shrink-0 overflow-hidden rounded-control bg-slip-100">
         {thumb ? (
-          <img src={thumb} alt="" className="size-full object-cover" />
+          <img src={thumb} alt={`Preview of ${item.name}`} className="size-full object-cover" />
         ) : (
           <span className="flex size-full items-center justify-center text-xs text-slip-500">—</span>
         )}

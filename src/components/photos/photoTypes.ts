@@ -12,6 +12,8 @@ export interface PhotoRecord {
   public: boolean
   /** The one piece it shows, when it shows one. */
   pieceId: string | null
+  /** Large uploads are prepared after the upload; the image is served once this is false. */
+  processing: boolean
   url: string
   thumbUrl: string
   at: string
@@ -19,7 +21,7 @@ export interface PhotoRecord {
 
 export const PHOTO_KIND_WORDS: Record<PhotoKind, string> = {
   ware: 'From the potter',
-  'check-in': 'At check-in',
+  'check-in': 'At drop-off',
   refusal: 'Refused at the door',
   result: 'Results',
 }

@@ -5,7 +5,7 @@ type Variant = 'primary' | 'secondary' | 'ghost' | 'danger'
 type Size = 'sm' | 'md'
 
 const base =
-  'inline-flex items-center justify-center gap-2 rounded-control font-semibold transition-colors disabled:cursor-not-allowed disabled:opacity-60'
+  'focus-ring inline-flex items-center justify-center gap-2 rounded-control font-semibold transition-colors disabled:cursor-not-allowed disabled:opacity-60'
 const variants: Record<Variant, string> = {
   primary: 'bg-clay-600 text-white hover:bg-clay-700 active:bg-clay-800',
   secondary: 'border border-slip-300 bg-white text-slip-900 hover:bg-slip-100',

@@ -51,7 +51,7 @@ export function Dialog({ open, onClose, title, description, children, footer, si
             <button
               type="button"
               onClick={onClose}
-              className="rounded-control px-2 py-1 text-slip-600 hover:bg-slip-100"
+              className="focus-ring rounded-control px-2 py-1 text-slip-600 hover:bg-slip-100"
               aria-label="Close"
             >
               ✕

@@ -1,7 +1,7 @@
 import { forwardRef, useId, type InputHTMLAttributes, type ReactNode, type SelectHTMLAttributes, type TextareaHTMLAttributes } from 'react'
 
 const control =
-  'block w-full rounded-control border bg-white px-3 py-2 text-sm text-slip-900 placeholder:text-slip-400 focus:border-clay-500 focus:outline-none focus:ring-2 focus:ring-clay-200 disabled:bg-slip-100'
+  'block w-full rounded-control border bg-white px-3 py-2 text-sm text-slip-900 placeholder:text-slip-500 focus-ring focus:border-clay-600 disabled:bg-slip-100'
 const controlClass = (invalid: boolean) => `${control} ${invalid ? 'border-danger-500' : 'border-slip-300'}`
 
 interface FieldProps {
@@ -60,7 +60,7 @@ export const TextArea = forwardRef<HTMLTextAreaElement, TextAreaProps>(function 
 export function Checkbox({ label, ...rest }: InputHTMLAttributes<HTMLInputElement> & { label: ReactNode }) {
   return (
     <label className="flex items-start gap-2 text-sm text-slip-800">
-      <input type="checkbox" className="mt-0.5 size-4 rounded border-slip-300 accent-clay-600" {...rest} />
+      <input type="checkbox" className="focus-ring mt-0.5 size-4 rounded border-slip-300 accent-clay-600" {...rest} />
       <span>{label}</span>
     </label>
   )

@@ -61,7 +61,8 @@ export function MeasureField<T extends FieldValues>({
           {...a11y}
           ref={field.ref}
           name={field.name}
-          inputMode="decimal"
+          // A ruler's reading needs the slash and the space that a phone's decimal pad lacks.
+          inputMode={measure.fractions ? 'text' : 'decimal'}
           autoComplete="off"
           disabled={disabled}
           value={text}
@@ -69,7 +70,7 @@ export function MeasureField<T extends FieldValues>({
           onChange={(event) => {
             const next = event.target.value
             setText(next)
-            const shown = parseShown(next)
+            const shown = parseShown(next, measure)
             const stored = shown === undefined ? empty : Number.isNaN(shown) ? shown : measure.fromShown(shown)
             typed.current = { value: stored, measure }
             field.onChange(stored)

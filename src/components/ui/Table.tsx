@@ -1,11 +1,26 @@
-import type { ReactNode, TdHTMLAttributes, ThHTMLAttributes } from 'react'
+import { useId, type ReactNode, type TdHTMLAttributes, type ThHTMLAttributes } from 'react'
 
-/** A bordered table that scrolls sideways on a narrow screen instead of squeezing its columns. */
+/**
+ * A bordered table that scrolls sideways on a narrow screen instead of squeezing its columns. The
+ * scrolling box takes keyboard focus (named by the caption), so it can be scrolled without a mouse.
+ * It is positioned so that screen-reader-only words in a far column (absolutely placed) scroll inside
+ * it too, rather than pushing the whole page sideways.
+ */
 export function Table({ caption, children, className = '' }: { caption?: ReactNode; children: ReactNode; className?: string }) {
+  const captionId = useId()
   return (
-    <div className={`overflow-x-auto rounded-card border border-slip-200 bg-white ${className}`}>
+    <div
+      role="region"
+      tabIndex={0}
+      aria-labelledby={caption ? captionId : undefined}
+      className={`focus-ring relative overflow-x-auto rounded-card border border-slip-200 bg-white ${className}`}
+    >
       <table className="min-w-full divide-y divide-slip-200 text-left text-sm">
-        {caption && <caption className="sr-only">{caption}</caption>}
+        {caption && (
+          <caption id={captionId} className="sr-only">
+            {caption}
+          </caption>
+        )}
         {children}
       </table>
     </div>
@@ -30,9 +45,13 @@ export function Th({ sort, children, className = '', ...rest }: ThProps) {
       {...rest}
     >
       {sort ? (
-        <button type="button" onClick={sort.onToggle} className="inline-flex items-center gap-1 uppercase hover:text-slip-900">
+        <button
+          type="button"
+          onClick={sort.onToggle}
+          className="focus-ring inline-flex items-center gap-1 rounded uppercase hover:text-slip-900"
+        >
           {children}
-          <span aria-hidden className="text-slip-400">
+          <span aria-hidden className="text-slip-500">
             {sort.direction === 'asc' ? '▲' : sort.direction === 'desc' ? '▼' : '↕'}
           </span>
         </button>

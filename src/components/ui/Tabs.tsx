@@ -57,7 +57,7 @@ export function Tabs<T extends string>({ label, idBase, tabs, value, onChange }:
             tabIndex={selected ? 0 : -1}
             onClick={() => onChange(tab.value)}
             onKeyDown={(event) => onKeyDown(event, index)}
-            className={`rounded-control px-3 py-1.5 text-sm font-medium ${selected ? 'bg-clay-600 text-white' : 'text-slip-700 hover:bg-slip-100'}`}
+            className={`focus-ring rounded-control px-3 py-1.5 text-sm font-medium ${selected ? 'bg-clay-600 text-white' : 'text-slip-700 hover:bg-slip-100'}`}
           >
             {tab.label}
           </button>

@@ -29,7 +29,7 @@ export function QuoteSummary({ quote, deposit }: { quote: Quote; deposit?: { cen
         </tr>
         <tr>
           <th scope="row" className="py-1 pr-3 text-left font-normal text-slip-600">
-            {deposit?.label ?? 'Deposit to book'}
+            {deposit?.label ?? 'Deposit to hold the space'}
           </th>
           <td className="py-1 text-right tabular-nums text-slip-700" data-testid="quote-deposit">
             {money(deposit?.cents ?? quote.depositCents)}

@@ -29,8 +29,8 @@ export function studioPickupStep(state: RequestState, view: Partial<Pick<Request
   switch (state) {
     case 'received':
       return view.price?.pending
-        ? 'Checked in; the potter has to confirm the new price before the firing'
-        : 'Checked in; it goes in the kiln with this firing'
+        ? 'Taken in; the potter has to confirm the new price before the firing'
+        : 'Taken in; it goes in the kiln with this firing'
     case 'fired':
       return view.results
         ? 'Results posted; mark it ready for pickup'
@@ -40,7 +40,7 @@ export function studioPickupStep(state: RequestState, view: Partial<Pick<Request
     case 'ready':
       return owed === undefined ? 'Ready for pickup' : owed > 0 ? 'Ready; the balance is still owed' : 'Ready and paid; hand it over'
     case 'collected':
-      return view.price === undefined ? 'Collected' : null
+      return view.price === undefined ? 'Picked up' : null
     default:
       return null
   }
@@ -51,15 +51,18 @@ export function potterPickupStep(state: RequestState, view: Pick<RequestView, 'p
   if (state === 'received' && view.price.pending) return 'Answer the new price the studio measured: confirm it, or turn it down'
   if (state === 'ready')
     return view.price.balanceOwedCents > 0
-      ? 'Ready to collect: pay the balance online or at the counter'
-      : 'Ready to collect; everything is paid'
+      ? 'Ready for pickup: pay the balance online or at the counter'
+      : 'Ready for pickup; everything is paid'
   return null
 }
 
-/** After collection: the rating each side still owes the other, or that the exchange is closed. */
-export function ratingStep(view: Pick<RequestView, 'actions' | 'viewer'>): string {
-  if (view.actions.includes('rate')) return view.viewer === 'studio' ? 'Collected: rate the potter' : 'Collected: rate the studio'
-  return 'Collected and rated: nothing more to do'
+/** After pickup: the answers this side still owes, or that nothing more is to do. */
+export function reviewStep(view: Pick<RequestView, 'actions' | 'viewer'>): string {
+  if (view.actions.includes('rate'))
+    return view.viewer === 'studio'
+      ? 'Picked up: answer a few questions about the potter'
+      : 'Picked up: answer a few questions about the firing'
+  return 'Picked up: nothing more to do'
 }
 
 /** Whether the check-in changed the price, and which way. */

@@ -1,4 +1,4 @@
-// Requests in the words each side reads: the state's badge, what happens next, the refund a
+// A potter's ask in the words each side reads: the state's badge, what happens next, the refund a
 // withdrawal would give, pieces in the reader's units, Stripe ids short enough to read.
 import { formatDateTime } from '../../../shared/dates'
 import { refundUnderTerms } from '../../../shared/refunds'
@@ -36,7 +36,7 @@ export function potterNextStep(r: NextStepFacts): string {
   const when = (iso: string) => formatDateTime(iso, r.timezone)
   switch (r.state) {
     case 'draft':
-      return 'Finish the pieces and send the request'
+      return 'Finish the pieces and send the ask'
     case 'sent':
       return r.proposedFiringId ? 'Answer the studio’s suggestion' : 'Waiting for the studio'
     case 'accepted':
@@ -48,15 +48,15 @@ export function potterNextStep(r: NextStepFacts): string {
     case 'fired':
       return 'Fired and unloaded; results come next'
     case 'ready':
-      return 'Ready to collect'
+      return 'Ready for pickup'
     case 'collected':
-      return 'Collected'
+      return 'Picked up'
     case 'declined':
-      return 'The studio could not take it'
+      return 'The studio turned it down'
     case 'withdrawn':
-      return 'You withdrew this request'
+      return 'You withdrew this ask'
     case 'cancelled':
-      return 'Cancelled'
+      return 'Called off'
     case 'lapsed':
       return 'Lapsed before it was settled; nothing more is owed'
     case 'disputed':
@@ -64,12 +64,12 @@ export function potterNextStep(r: NextStepFacts): string {
   }
 }
 
-/** What the studio does next with a request, in a line. */
+/** What the studio does next with an ask, in a line. */
 export function studioNextStep(r: NextStepFacts): string {
   const when = (iso: string) => formatDateTime(iso, r.timezone)
   switch (r.state) {
     case 'sent':
-      return r.proposedFiringId ? 'Waiting for the potter to answer your suggestion' : 'Accept, decline or suggest another firing'
+      return r.proposedFiringId ? 'Waiting for the potter to answer your suggestion' : 'Take it on, turn it down or suggest another firing'
     case 'accepted':
       return r.depositDueAt ? `Space held; deposit due by ${when(r.depositDueAt)}` : 'Space held; waiting for the deposit'
     case 'deposit_paid':
@@ -171,17 +171,18 @@ export function rowNextStep(row: RequestRow): string {
   const studio = row.side === 'studio'
   const owed = row.price && row.price.owedCents > 0 ? formatMoney(row.price.owedCents, row.price.currency) : null
   if (row.actions.includes('hand-back')) return 'Money taken at the counter is owed back: hand it back and mark it'
-  if (row.state === 'collected') return row.actions.includes('rate') ? `Collected: rate the ${studio ? 'potter' : 'studio'}` : 'Collected'
+  if (row.state === 'collected')
+    return row.actions.includes('rate') ? `Picked up: answer a few questions about the ${studio ? 'potter' : 'firing'}` : 'Picked up'
   if (row.state === 'received' && row.price?.pricePending)
-    return studio ? 'Checked in; waiting for the potter to answer the new price' : 'Answer the new price the studio measured'
+    return studio ? 'Taken in; waiting for the potter to answer the new price' : 'Answer the new price the studio measured'
   if (row.state === 'ready')
     return owed
       ? studio
         ? `Ready; ${owed} still owed`
-        : `Ready to collect: pay ${owed} online or at the counter`
+        : `Ready for pickup: pay ${owed} online or at the counter`
       : studio
         ? 'Ready and paid; hand it over'
-        : 'Ready to collect; everything is paid'
+        : 'Ready for pickup; everything is paid'
   if (row.state === 'fired' && studio)
     return row.actions.includes('ready') ? 'Results posted; mark it ready for pickup' : 'Out of the kiln: post the results'
   return studio ? studioNextStep(facts) : potterNextStep(facts)

@@ -21,11 +21,19 @@ export const SEARCH_PARAMS = [
   'sort',
   'page',
   'perPage',
+  'view',
 ] as const
 export type SearchParam = (typeof SEARCH_PARAMS)[number]
 export type SearchState = Partial<Record<SearchParam, string>>
 
 export const DEFAULT_PER_PAGE = 20
+
+/** How the page lays the answer out: cards by studio, a grid of weeks, or the map. Not sent to the API. */
+export const SEARCH_VIEWS = ['board', 'weeks', 'map'] as const
+export type SearchView = (typeof SEARCH_VIEWS)[number]
+
+export const viewOf = (state: SearchState): SearchView =>
+  (SEARCH_VIEWS as readonly string[]).includes(state.view ?? '') ? (state.view as SearchView) : 'board'
 export { DEFAULT_RADIUS_KM } from '../../../shared/schemas/search'
 
 const DAY = /^\d{4}-\d{2}-\d{2}$/
@@ -52,6 +60,7 @@ export function normaliseSearch(state: SearchState): SearchState {
     if (value) out[key] = value
   }
   if (out.page === '1') delete out.page
+  if (out.view !== undefined && viewOf(out) === 'board') delete out.view
   if (out.perPage === String(DEFAULT_PER_PAGE)) delete out.perPage
   if (!hasOrigin(out)) {
     delete out.radiusKm
@@ -68,6 +77,13 @@ export function searchString(state: SearchState): string {
   return params.toString()
 }
 
+/** The search itself, whichever way it is laid out: the cache key of its answer. */
+export const answerKey = (state: SearchState) => searchString({ ...state, view: undefined })
+
+export function withView(state: SearchState, view: SearchView): SearchState {
+  return normaliseSearch({ ...state, view })
+}
+
 /** A change of filters starts again at the first page. */
 export function withFilters(state: SearchState, changes: SearchState): SearchState {
   return normaliseSearch({ ...state, ...changes, page: undefined })
@@ -82,7 +98,7 @@ export function withPage(state: SearchState, page: number): SearchState {
  * local midnight, the last to one second before the next.
  */
 export function apiQueryString(state: SearchState): string {
-  const params = new URLSearchParams(searchString(state))
+  const params = new URLSearchParams(searchString({ ...state, view: undefined }))
   const localDay = (key: 'from' | 'to', time: string) => {
     const day = params.get(key)
     if (!day || !DAY.test(day)) return

@@ -1,14 +1,15 @@
 // The search page's edges: piece sizes typed in inches or millimetres, distances in miles or
-// kilometres, space in litres (with cubic inches or feet beside them). Inside, everything is SI.
+// kilometres, space in litres or cubic feet. Inside, everything is SI. Lengths and volumes are written
+// and read as on every other page (src/lib/units.ts).
 
 import type { UnitSystem } from '../../../shared/schemas/auth'
-import { inToMm, litresToCubicInches, mmToIn } from '../../../shared/firing/units'
+import { inToMm } from '../../../shared/firing/units'
+import { INCHES, MILLIMETRES, parseShown, shownText } from '../../lib/units'
 
 export type { UnitSystem }
 
 /** The international mile, 1 609.344 m exactly (NIST SP 811, appendix B). */
 export const KM_PER_MILE = 1.609344
-const CUBIC_INCHES_PER_CUBIC_FOOT = 12 * 12 * 12
 
 const trimmed = (value: number, decimals: number) => String(Number(value.toFixed(decimals)))
 
@@ -16,27 +17,23 @@ export const lengthSuffix = (units: UnitSystem) => (units === 'metric' ? 'mm' : 
 
 /**
  * A typed length as the millimetres the query carries: a tenth of a millimetre is finer than any
- * piece is measured, and keeps 24 in as 609.6 rather than a run of digits. Text that is not a
- * number is passed on as typed, so the shared schema can say what is wrong with it.
+ * piece is measured, and keeps 24 in as 609.6 rather than a run of digits. Inches take a ruler's
+ * fractions (3/8, 1 1/2). Text that is not a number is passed on as typed, so the shared schema can
+ * say what is wrong with it.
  */
 export function typedLengthToMm(text: string, units: UnitSystem): string | undefined {
-  const clean = text.trim().replace(',', '.')
-  if (clean === '') return undefined
-  if (!/^[-+]?(\d+\.?\d*|\.\d+)$/.test(clean)) return text.trim()
-  const mm = units === 'metric' ? Number(clean) : inToMm(Number(clean))
-  return trimmed(mm, 1)
+  const shown = parseShown(text, { fractions: units !== 'metric' })
+  if (shown === undefined) return undefined
+  if (Number.isNaN(shown)) return text.trim()
+  return trimmed(units === 'metric' ? shown : inToMm(shown), 1)
 }
 
-/** Millimetres from the URL as the text of a length field in the chosen units. */
+/** Millimetres from the URL as the text of a length field in the chosen units (inches to 1/16). */
 export function mmToTypedLength(mm: string | undefined, units: UnitSystem): string {
   if (mm === undefined || mm === '') return ''
   const value = Number(mm)
   if (!Number.isFinite(value)) return mm
-  return units === 'metric' ? trimmed(value, 1) : trimmed(mmToIn(value), 2)
-}
-
-export function formatLength(mm: number, units: UnitSystem): string {
-  return units === 'metric' ? `${Math.round(mm)} mm` : `${trimmed(mmToIn(mm), 1)} in`
+  return shownText(value, units === 'metric' ? MILLIMETRES : INCHES)
 }
 
 export function kmToShownDistance(km: number, units: UnitSystem): number {
@@ -58,14 +55,4 @@ export function distanceChoices(units: UnitSystem): { km: string; label: string 
     const km = units === 'metric' ? step : step * KM_PER_MILE
     return { km: trimmed(km, 1), label: `Within ${step} ${units === 'metric' ? 'km' : 'mi'}` }
   })
-}
-
-/** Litres always (space is sold by volume); imperial readers also get cubic inches, or feet once there is a foot of it. */
-export function formatSpace(litres: number, units: UnitSystem): string {
-  const inLitres = `${trimmed(litres, 1)} L`
-  if (units === 'metric') return inLitres
-  const cubicInches = litresToCubicInches(litres)
-  return cubicInches < CUBIC_INCHES_PER_CUBIC_FOOT
-    ? `${inLitres} (${Math.round(cubicInches)} cu in)`
-    : `${inLitres} (${trimmed(cubicInches / CUBIC_INCHES_PER_CUBIC_FOOT, 1)} cu ft)`
 }

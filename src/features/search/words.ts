@@ -1,6 +1,8 @@
 // Firings in a potter's words on the search page, and times in the reader's own zone: a hit carries
 // no studio zone, so each time is shown where the reader is, with the zone named.
 
+import { zoneName } from '../../../shared/dates'
+
 export const ATMOSPHERE_CHOICES = [
   { value: 'oxidation', label: 'Oxidation' },
   { value: 'reduction', label: 'Reduction' },
@@ -19,7 +21,7 @@ export const SORT_CHOICES = [
   { value: 'distance', label: 'Nearest first' },
   { value: 'soonest', label: 'Soonest drop-off' },
   { value: 'price', label: 'Lowest example price' },
-  { value: 'rating', label: 'Best rated' },
+  { value: 'rating', label: 'Most would fire here again' },
 ] as const
 
 const KILN_KINDS: Record<string, string> = { electric: 'Electric', gas: 'Gas', wood: 'Wood', soda: 'Soda', salt: 'Salt', raku: 'Raku' }
@@ -45,11 +47,7 @@ export const formatWhen = (iso: string) => dateTime.format(new Date(iso))
 /** "Sun, May 10": for the firing itself, where the day is what matters. */
 export const formatDay = (iso: string) => dateOnly.format(new Date(iso))
 
-/** The reader's zone, e.g. "America/Los_Angeles (PDT)". */
-export function readerZone(at = new Date()): string {
-  const zone = Intl.DateTimeFormat().resolvedOptions().timeZone
-  const short = new Intl.DateTimeFormat(undefined, { timeZoneName: 'short' })
-    .formatToParts(at)
-    .find((p) => p.type === 'timeZoneName')?.value
-  return short && short !== zone ? `${zone.replace(/_/g, ' ')} (${short})` : zone.replace(/_/g, ' ')
+/** The reader's zone as people say it, e.g. "Pacific Time", never its database id. */
+export function readerZone(): string {
+  return zoneName(Intl.DateTimeFormat().resolvedOptions().timeZone)
 }

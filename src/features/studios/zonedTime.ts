@@ -1,4 +1,4 @@
-// Dates on the studio pages are the studio's local time, whoever looks: a host in Portland posting
+// Dates on the studio pages are the studio's local time, whoever looks: a studio in Portland posting
 // from a laptop set to another zone still means 6 pm in Portland.
 import { TZDate, tz } from '@date-fns/tz'
 import { addDays, endOfMonth, endOfWeek, format, startOfMonth, startOfWeek } from 'date-fns'

@@ -1,42 +1,31 @@
-import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query'
+import { keepPreviousData, useMutation, useQuery, useQueryClient } from '@tanstack/react-query'
+import type { DeskAccountList, DeskDispute, DeskStudioList } from '../../../../shared/api/admin'
+import type { RequestMessageJson, RequestView } from '../../../../shared/api/requests'
+import type { DeskAccountsQuery, DeskStudiosQuery } from '../../../../shared/schemas/admin'
 import { api } from '../../../lib/api'
+import { keys } from '../../../lib/queryKeys'
 
-export const adminKeys = {
-  all: ['admin'] as const,
-  studios: () => ['admin', 'studios'] as const,
-  users: (q: string) => ['admin', 'users', q] as const,
+/** The query string of a desk list: only what is set, so the server's defaults speak for the rest. */
+export function deskSearch(query: Partial<DeskStudiosQuery> | Partial<DeskAccountsQuery>): string {
+  const params = new URLSearchParams()
+  for (const [name, value] of Object.entries(query)) if (value !== undefined && value !== '') params.set(name, String(value))
+  return params.toString()
 }
 
-export interface DeskStudio {
-  id: string
-  name: string
-  city: string
-  region: string
-  published: boolean
-  verified: boolean
-  createdAt: string
-  kilns: number
-  upcomingFirings: number
-  owners: { name: string; email: string }[] | null
-}
-
-export interface DeskUser {
-  id: string
-  email: string
-  displayName: string
-  role: string
-  suspended: boolean
-  createdAt: string
-}
-
-export function useDeskStudios() {
-  return useQuery({ queryKey: adminKeys.studios(), queryFn: () => api<{ studios: DeskStudio[] }>('/api/admin/studios') })
-}
-
-export function useDeskUsers(q: string) {
+export function useDeskStudios(query: DeskStudiosQuery) {
   return useQuery({
-    queryKey: adminKeys.users(q),
-    queryFn: () => api<{ users: DeskUser[] }>(`/api/admin/users?q=${encodeURIComponent(q)}`),
+    queryKey: keys.desk.studioPage(query),
+    queryFn: () => api<DeskStudioList>(`/api/admin/studios?${deskSearch(query)}`),
+    // The table keeps the last page on screen while the next one loads, so it does not jump.
+    placeholderData: keepPreviousData,
+  })
+}
+
+export function useDeskAccounts(query: DeskAccountsQuery) {
+  return useQuery({
+    queryKey: keys.desk.accountPage(query),
+    queryFn: () => api<DeskAccountList>(`/api/admin/users?${deskSearch(query)}`),
+    placeholderData: keepPreviousData,
   })
 }
 
@@ -45,30 +34,40 @@ export function useVerifyStudio() {
   return useMutation({
     mutationFn: ({ id, verified }: { id: string; verified: boolean }) =>
       api(`/api/studios/${id}/verify`, { method: 'POST', body: { verified } }),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: adminKeys.studios() }),
+    onSuccess: (_answer, { id }) =>
+      Promise.all([
+        queryClient.invalidateQueries({ queryKey: keys.desk.studios() }),
+        queryClient.invalidateQueries({ queryKey: keys.studios.detail(id) }),
+      ]),
   })
 }
 
-export function useSuspendUser() {
+export function useSuspendAccount() {
   const queryClient = useQueryClient()
   return useMutation({
     mutationFn: ({ id, suspended }: { id: string; suspended: boolean }) =>
       api(`/api/admin/users/${id}/suspend`, { method: 'POST', body: { suspended } }),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: [...adminKeys.all, 'users'] }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: keys.desk.accounts() }),
   })
 }
 
-export interface DisputedRequest {
-  id: string
-  potterName: string
-  updatedAt: string
-  quote: { totalCents: number; depositCents: number; currency: string } | null
-  firing: { firingDate: string; cone: string; atmosphere: string; kind: string; kilnName: string }
-  studio: { id: string; name: string; timezone: string }
+export function useDisputes() {
+  return useQuery({ queryKey: keys.desk.disputes(), queryFn: () => api<{ requests: DeskDispute[] }>('/api/admin/disputes') })
 }
 
-export function useDisputes() {
-  return useQuery({ queryKey: [...adminKeys.all, 'disputes'], queryFn: () => api<{ requests: DisputedRequest[] }>('/api/admin/disputes') })
+/** The whole record of a disputed request: the desk reads the same view and messages as either side. */
+export function useDisputeRecord(id: string | null) {
+  const view = useQuery({
+    queryKey: keys.requests.detail(id ?? ''),
+    queryFn: () => api<RequestView>(`/api/requests/${id}`),
+    enabled: id !== null,
+  })
+  const messages = useQuery({
+    queryKey: keys.requests.messages(id ?? ''),
+    queryFn: () => api<{ messages: RequestMessageJson[] }>(`/api/requests/${id}/messages`),
+    enabled: id !== null,
+  })
+  return { view, messages }
 }
 
 export function useDeskRefund() {
@@ -76,6 +75,10 @@ export function useDeskRefund() {
   return useMutation({
     mutationFn: ({ id, amountCents, reason }: { id: string; amountCents: number; reason: string }) =>
       api(`/api/admin/requests/${id}/refund`, { method: 'POST', body: { amountCents, reason } }),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: [...adminKeys.all, 'disputes'] }),
+    onSuccess: (_answer, { id }) =>
+      Promise.all([
+        queryClient.invalidateQueries({ queryKey: keys.desk.disputes() }),
+        queryClient.invalidateQueries({ queryKey: keys.requests.detail(id) }),
+      ]),
   })
 }

@@ -48,6 +48,15 @@ export function useSignOut() {
   })
 }
 
+/** Asks for a one-time sign-in link, the way in while password sign-in is paused. */
+export function useRequestSignInLink() {
+  return useMutation({ mutationFn: (body: { email: string }) => api('/api/auth/sign-in-link', { method: 'POST', body }) })
+}
+
+export function useSignInWithLink() {
+  return useSessionChange((token: string) => api<PublicUser>('/api/auth/sign-in-link/confirm', { method: 'POST', body: { token } }))
+}
+
 export function useRequestPasswordReset() {
   return useMutation({ mutationFn: (body: { email: string }) => api('/api/auth/password-reset/request', { method: 'POST', body }) })
 }

@@ -12,8 +12,8 @@ import { AuthCard } from '../components/AuthCard'
 import { homePath } from '../homePath'
 
 const ROLE_CHOICES = [
-  { value: 'potter', title: 'I bring ware', text: 'Find a kiln that can fire your pieces and book space in a firing.' },
-  { value: 'host', title: 'I fire kilns', text: 'List your kilns and firings and take in work from potters nearby.' },
+  { value: 'potter', title: 'I bring ware', text: 'Find a kiln that can fire your pieces and ask for space in a firing.' },
+  { value: 'host', title: 'I fire kilns', text: 'Post your kilns’ limits and your firings, and take on ware from potters nearby.' },
 ] as const
 
 export function RegisterPage() {

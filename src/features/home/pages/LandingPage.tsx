@@ -8,8 +8,8 @@ import { homePath } from '../../auth/homePath'
 
 const STEPS = [
   { title: 'Describe the ware', text: 'Sizes, clay body, glaze, cone. The kiln’s limits are checked before you drive over.' },
-  { title: 'Book shelf space', text: 'Pick a firing with room left, see the price up front, pay a deposit.' },
-  { title: 'Drop off, collect', text: 'Follow the firing from check-in to results photos, then pick up your pots.' },
+  { title: 'Ask for shelf space', text: 'Pick a firing with room left, see the price up front, pay a deposit to hold the space.' },
+  { title: 'Drop off, pick up', text: 'Follow the firing from drop-off to results photos, then pick up your pots.' },
 ]
 
 export function LandingPage() {
@@ -38,7 +38,7 @@ export function LandingPage() {
           <p className="text-sm font-semibold text-clay-800">For kiln owners</p>
           <p className="mt-2 text-slip-700">
             List each kiln’s real limits and your firing calendar. Take in only ware that is bone dry, sized to your shelves and matched to
-            the cone — the check runs before a request ever reaches you.
+            the cone — the check runs before an ask ever reaches you.
           </p>
           <ButtonLink to="/join" variant="secondary" className="mt-4">
             List your kiln room

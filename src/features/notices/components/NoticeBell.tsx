@@ -28,10 +28,9 @@ export function NoticeBell() {
     <div className="relative" ref={panel}>
       <button
         type="button"
-        className="relative rounded-control px-3 py-2 text-sm font-medium text-slip-700 hover:bg-slip-100"
+        className="focus-ring relative rounded-control px-3 py-2 text-sm font-medium text-slip-700 hover:bg-slip-100"
         aria-expanded={open}
         aria-haspopup="true"
-        aria-label={unread ? `Notices, ${unread} unread` : 'Notices'}
         data-testid="notice-bell"
         data-unread={unread}
         onClick={() => setOpen((o) => !o)}
@@ -40,6 +39,7 @@ export function NoticeBell() {
         {unread > 0 && (
           <span className="ml-1.5 inline-flex min-w-5 items-center justify-center rounded-full bg-clay-600 px-1.5 text-xs font-semibold text-white">
             {unread > 99 ? '99+' : unread}
+            <span className="sr-only"> unread</span>
           </span>
         )}
       </button>

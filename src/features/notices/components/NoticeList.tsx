@@ -5,7 +5,7 @@ const when = (iso: string) => new Date(iso).toLocaleString([], { month: 'short',
 
 /** Notices, newest first; an unread one is marked, and opening it marks it read. */
 export function NoticeList({ items, onOpen }: { items: NoticeJson[]; onOpen: (notice: NoticeJson) => void }) {
-  if (!items.length) return <p className="px-1 py-3 text-sm text-slip-600">Nothing new. Changes to your requests and firings show here.</p>
+  if (!items.length) return <p className="px-1 py-3 text-sm text-slip-600">Nothing new. Changes to your ware and firings show here.</p>
   return (
     <ul className="divide-y divide-slip-100" data-testid="notice-list">
       {items.map((notice) => (

@@ -20,13 +20,13 @@ export function ServerCheck({ server, local }: { server: ReturnType<typeof useSe
     const error = query.error
     body = (
       <Alert tone="warning">
-        {error instanceof ApiError ? error.message : 'The server could not be reached.'}{' '}
+        {error instanceof ApiError ? error.message : 'Conewright could not be reached to check it again.'}{' '}
         <Button variant="ghost" size="sm" onClick={() => query.refetch()}>
           Try again
         </Button>
       </Alert>
     )
-  } else if (!query.data) body = <p className="text-sm text-slip-600">Checking on the server…</p>
+  } else if (!query.data) body = <p className="text-sm text-slip-600">Checking it again, as a studio will…</p>
   else {
     const agrees = local !== null && codesOf(local) === codesOf(query.data) && local.verdict === query.data.verdict
     body = (
@@ -36,8 +36,8 @@ export function ServerCheck({ server, local }: { server: ReturnType<typeof useSe
           {behind
             ? 'Checking the latest changes…'
             : agrees
-              ? 'The server agrees with the check above.'
-              : 'The server’s answer differs from the check above; the server’s is the one that counts.'}
+              ? 'The check a studio goes by agrees with the one above.'
+              : 'The check a studio goes by differs from the one above; it is the one that counts.'}
         </p>
         {!behind && !agrees && (
           <ul className="list-disc pl-5 text-xs text-slip-700">
@@ -51,7 +51,7 @@ export function ServerCheck({ server, local }: { server: ReturnType<typeof useSe
   }
   return (
     <div>
-      <h3 className="mb-1 text-sm font-semibold text-slip-800">Checked on the server</h3>
+      <h3 className="mb-1 text-sm font-semibold text-slip-800">The check a studio goes by</h3>
       {body}
     </div>
   )

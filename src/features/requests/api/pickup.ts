@@ -1,32 +1,21 @@
-// From drop-off to pickup: check-in, the changed price, results, ready, the balance, collection,
-// ratings and photos. Every change that answers with the request puts it in the cache; the rest
-// refetch the request they touched.
+// From drop-off to pickup: check-in, the changed price, results, ready, the balance, pickup, the
+// answers after pickup and photos. Every change that answers with the request puts it in the cache;
+// the rest refetch the request they touched.
 import { useMutation, useQueryClient } from '@tanstack/react-query'
 import type { z } from 'zod'
-import type { checkInSchema, ratingSchema, resultsSchema } from '../../../../shared/schemas/pickup'
+import type { checkInSchema, resultsSchema, reviewSchema } from '../../../../shared/schemas/pickup'
 import type { PhotoRecord } from '../../../components/photos/photoTypes'
 import { api } from '../../../lib/api'
 import { requestKeys } from './keys'
 import { useRequestChange, useRequestChanged } from './requests'
-import type { CheckInOutcome, RequestRatings, RequestView } from './types'
+import type { CheckInOutcome, RequestReviews, RequestView } from './types'
 
 export type CheckInBody = z.infer<typeof checkInSchema>
 export type ResultsBody = z.infer<typeof resultsSchema>
-export type RatingBody = z.infer<typeof ratingSchema>
+export type ReviewBody = z.input<typeof reviewSchema>
 
 /** The check-in's answer is kept under this key, so the page can show the findings after the form has gone. */
 export const checkInMutationKey = (id: string) => ['requests', 'detail', id, 'check-in'] as const
-
-/** Changes that answer with something else: the request they touched is fetched again. */
-function useRefetchingChange<TVariables extends { view: Pick<RequestView, 'id' | 'firing'> }, TAnswer>(
-  request: (variables: TVariables) => Promise<TAnswer>,
-) {
-  const changed = useRequestChanged()
-  return useMutation({
-    mutationFn: request,
-    onSuccess: (_answer, { view }) => changed(view),
-  })
-}
 
 export function useCheckIn(id: string) {
   const changed = useRequestChanged()
@@ -79,16 +68,19 @@ export function useMarkCollected() {
   return useRequestChange((id: string) => api<RequestView>(`/api/requests/${id}/collected`, { method: 'POST' }))
 }
 
-export function useRate() {
-  return useRefetchingChange(({ view, body }: { view: RequestView; body: RatingBody }) =>
-    api<RequestRatings>(`/api/requests/${view.id}/rating`, { method: 'POST', body }),
-  )
-}
-
-export function useReplyToRating() {
-  return useRefetchingChange(({ view, text }: { view: RequestView; text: string }) =>
-    api<RequestRatings>(`/api/requests/${view.id}/rating/reply`, { method: 'POST', body: { text } }),
-  )
+/**
+ * Gives this side's answers after pickup. Publishing can follow at once (the other side had answered),
+ * so the studio's public answers are read again too.
+ */
+export function useGiveReview() {
+  const queryClient = useQueryClient()
+  const changed = useRequestChanged()
+  return useMutation({
+    mutationFn: ({ view, body }: { view: RequestView; body: ReviewBody }) =>
+      api<RequestReviews>(`/api/requests/${view.id}/review`, { method: 'POST', body }),
+    onSuccess: (_answer, { view }) =>
+      Promise.all([changed(view), queryClient.invalidateQueries({ queryKey: requestKeys.studios.reviews(view.studio.id) })]),
+  })
 }
 
 /** The potter lets a result photo show on the studio's public page, or takes it back. */
@@ -104,8 +96,18 @@ export function useSetPhotoPublic(requestId: string) {
   })
 }
 
-/** After an upload: the request's photos are read again. */
+/**
+ * After an upload: the request's photos are read again, and again every two seconds while the
+ * server is still preparing large ones (for at most a minute).
+ */
 export function useRefreshPhotos(requestId: string) {
   const queryClient = useQueryClient()
-  return () => queryClient.invalidateQueries({ queryKey: requestKeys.requests.detail(requestId), exact: true })
+  return async () => {
+    for (let round = 0; round < 30; round++) {
+      await queryClient.invalidateQueries({ queryKey: requestKeys.requests.detail(requestId), exact: true })
+      const view = queryClient.getQueryData<{ photos: PhotoRecord[] }>(requestKeys.requests.detail(requestId))
+      if (!view?.photos.some((photo) => photo.processing)) return
+      await new Promise((resolve) => setTimeout(resolve, 2000))
+    }
+  }
 }

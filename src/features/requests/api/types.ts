@@ -13,12 +13,12 @@ export type {
   PieceOutcome,
   PotterRecordJson as PotterRecord,
   PriceJson,
-  RatingJson as RatingRecord,
   RequestMessageJson as RequestMessage,
-  RequestRatingsJson as RequestRatings,
+  RequestReviewsJson as RequestReviews,
   RequestRow,
   RequestView,
   ResultsJson as ResultsRecord,
+  ReviewJson as ReviewRecord,
   TimelineEntryJson as TimelineEntry,
 } from '../../../../shared/api/requests'
 export type { FiringJson as FiringRecord, KilnJson as KilnRecord } from '../../../../shared/api/studios'

@@ -102,10 +102,10 @@ export function CheckInForm({ view, units }: { view: RequestView; units: UnitSys
 
   return (
     <>
-      <form onSubmit={submit} noValidate className="space-y-5" aria-label="Check the ware in" data-testid="check-in-form">
+      <form onSubmit={submit} noValidate className="space-y-5" aria-label="Take the ware in" data-testid="check-in-form">
         <p className="text-sm text-slip-700">
-          Count what came in against what was declared. Measure a piece only if it looks bigger or smaller than the request says: the check
-          and the price are worked out again from what you enter.
+          Count what came in against what was declared. Measure a piece only if it looks bigger or smaller than the potter declared: the
+          check and the price are worked out again from what you enter.
         </p>
         <div className="space-y-3">
           {view.pieces.map((piece, index) => (
@@ -127,18 +127,18 @@ export function CheckInForm({ view, units }: { view: RequestView; units: UnitSys
         <PhotoUploader
           uploadUrl={`/api/requests/${view.id}/photos`}
           fields={{ kind: 'check-in' }}
-          label="Check-in photos"
+          label="Drop-off photos"
           hint="A photo of the ware as it came in, especially of any damage."
           onUploaded={() => void refreshPhotos()}
         />
         {checkIn.isError && (
-          <Alert tone="danger" title="Not checked in">
+          <Alert tone="danger" title="Not taken in">
             {problemOf(checkIn.error)}
           </Alert>
         )}
         <div className="flex flex-wrap items-center gap-2">
           <Button type="submit" busy={checkIn.isPending}>
-            Check the ware in
+            Take the ware in
           </Button>
           <button
             type="button"
@@ -187,7 +187,7 @@ function PieceCheckIn({ index, view, control, register, messages, units }: Piece
           hint={`of ${piece.quantity} declared`}
         />
         <div className="pb-2">
-          <Checkbox label="Measured size differs from the request" {...register(`${at}.differs`)} />
+          <Checkbox label="Measured size differs from what was declared" {...register(`${at}.differs`)} />
         </div>
       </div>
       {short && <p className="mt-2 text-sm text-ember-700">Fewer than declared: the price is worked out for what came in.</p>}
@@ -243,7 +243,7 @@ function RefuseDialog({ view, open, onClose }: { view: RequestView; open: boolea
       open={open}
       onClose={onClose}
       title="Refuse the ware at the door?"
-      description="The request is cancelled and the potter is told why by mail."
+      description="The ware’s place in the firing is called off and the potter is told why by mail."
       footer={
         <>
           <Button variant="ghost" onClick={onClose}>
@@ -263,7 +263,7 @@ function RefuseDialog({ view, open, onClose }: { view: RequestView; open: boolea
       }
     >
       <div className="space-y-4">
-        <Alert tone="warning" title="Under your cancellation terms">
+        <Alert tone="warning" title="Under your terms">
           {paid > 0
             ? `The potter gets ${formatMoney(refund.refundCents, currency)} back of the ${formatMoney(paid, currency)} paid.`
             : 'Nothing has been paid, so nothing is refunded.'}

@@ -25,7 +25,7 @@ export function CounterRefunds({ view }: { view: RequestView }) {
             {refund.paidAt
               ? `${formatMoney(refund.amountCents, refund.currency)} handed back at the counter on ${formatDateTime(refund.paidAt, view.studio.timezone)}`
               : view.viewer === 'potter'
-                ? `${formatMoney(refund.amountCents, refund.currency)} paid at the counter is owed back to you: collect it at the studio.`
+                ? `${formatMoney(refund.amountCents, refund.currency)} paid at the counter is owed back to you: pick it up at the studio.`
                 : `${formatMoney(refund.amountCents, refund.currency)} taken at the counter is owed back to ${view.potter.displayName}.`}
           </span>
           {!refund.paidAt && canHandBack && (

@@ -7,7 +7,7 @@ import { api } from '../../../lib/api'
 import { useRequestChange } from '../api/requests'
 import type { RequestView } from '../api/types'
 
-/** Either side can take a fired request to the Conewright desk when something went wrong. */
+/** Either side can take fired ware to the Conewright desk when something went wrong. */
 export function DisputeAction({ view }: { view: RequestView }) {
   const [open, setOpen] = useState(false)
   const [reason, setReason] = useState('')
@@ -23,7 +23,7 @@ export function DisputeAction({ view }: { view: RequestView }) {
         open={open}
         onClose={() => setOpen(false)}
         title="Raise a dispute"
-        description="The Conewright desk reads the whole record — check-in, firing log, results, messages — and contacts both sides. Try the message thread first; a dispute ends the normal path of this request."
+        description="The Conewright desk reads the whole record — drop-off, firing log, results, messages — and contacts both sides. Try the message thread first; a dispute ends the normal path of this firing for this ware."
         footer={
           <>
             <Button variant="secondary" onClick={() => setOpen(false)}>

@@ -31,7 +31,7 @@ function CheckInFindings({ view }: { view: RequestView }) {
       <FindingsList findings={outcome.findings} pieces={view.pieces} linkToRows={false} />
       {outcome.verdict === 'block' && (
         <p className="text-sm text-danger-700">
-          Something here is not safe to fire. Talk to the potter, or cancel the request with a reason.
+          Something here is not safe to fire. Talk to the potter, or call its place off with a reason.
         </p>
       )}
     </div>
@@ -60,8 +60,8 @@ export function PriceChangeNote({ view, currency }: { view: RequestView; currenc
             : 'The potter has to confirm the higher price before the firing. Until then the first price stands.'
           : change.declined
             ? mine
-              ? 'You turned the new price down: the request is withdrawn and what you paid is refunded.'
-              : 'The potter turned the new price down: the request is withdrawn; keep the ware out of the load.'
+              ? 'You turned the new price down: your ask is withdrawn and what you paid is refunded.'
+              : 'The potter turned the new price down: their ask is withdrawn; keep the ware out of the load.'
             : higher
               ? 'The potter confirmed the new price.'
               : 'The lower price applies at once.'}
@@ -88,7 +88,7 @@ export function DropOffRecord({ view, checkIn, units }: { view: RequestView; che
   }
   return (
     <div className="space-y-4" data-testid="drop-off-record" data-refused="false">
-      <p className="text-sm text-slip-600">Checked in {formatDateTime(checkIn.at, zone)}.</p>
+      <p className="text-sm text-slip-600">Taken in {formatDateTime(checkIn.at, zone)}.</p>
       <Table caption="Pieces received">
         <thead>
           <tr>
@@ -119,7 +119,7 @@ export function DropOffRecord({ view, checkIn, units }: { view: RequestView; che
       </div>
       <PriceChangeNote view={view} currency={currency} />
       {view.viewer !== 'potter' && <CheckInFindings view={view} />}
-      <PhotoGallery photos={view.photos} kinds={['check-in']} empty="No photos were taken at check-in." />
+      <PhotoGallery photos={view.photos} kinds={['check-in']} empty="No photos were taken at drop-off." />
     </div>
   )
 }

@@ -41,7 +41,7 @@ function CounterPaymentDialog({ view, open, onClose }: { view: RequestView; open
       onClose={onClose}
       title="Paid at the counter"
       description={
-        view.state === 'accepted' ? 'The deposit paid in person books the space.' : 'The balance paid in person; it goes in the ledger.'
+        view.state === 'accepted' ? 'The deposit paid in person holds the space.' : 'The balance paid in person; it goes in the ledger.'
       }
       footer={
         <>
@@ -137,7 +137,7 @@ export function HandoverActions({ view }: { view: RequestView }) {
         )}
         {(can('collected') || view.state === 'ready') && (
           <Button variant={can('collected') ? 'primary' : 'secondary'} busy={collected.isPending} onClick={() => setHandingOver(true)}>
-            Collected…
+            Picked up…
           </Button>
         )}
       </div>
@@ -145,12 +145,13 @@ export function HandoverActions({ view }: { view: RequestView }) {
         open={handingOver}
         onClose={() => setHandingOver(false)}
         title={`Hand the ware over to ${view.potter.displayName}?`}
-        confirmLabel="Yes, collected"
+        confirmLabel="Yes, picked up"
         busy={collected.isPending}
         onConfirm={() => collected.mutate(view.id, { onSettled: () => setHandingOver(false) })}
       >
         <p>
-          The request is marked collected and {view.potter.displayName} is mailed the receipt. After this, each side can rate the other.
+          The ware is marked picked up and {view.potter.displayName} is mailed the receipt. After this, each side answers a few questions
+          about the other, kept from each other until both have answered.
         </p>
       </ConfirmDialog>
       {owedOnCollect !== null ? (

@@ -21,7 +21,7 @@ const problemOf = (error: unknown) => (error instanceof ApiError ? error.message
 /** What a card can be charged for: the processor refuses less, and the counter takes it instead. */
 const payableByCard = (view: RequestView, cents: number) => cents >= view.price.minimumOnlineCents
 
-/** Opens the hosted payment page for the deposit or the balance and leaves for it. */
+/** Opens the payment provider's page for the deposit or the balance and leaves for it. */
 function CheckoutButton({ view, purpose, label }: { view: RequestView; purpose: 'deposit' | 'balance'; label: string }) {
   const checkout = useOpenCheckout()
   return (
@@ -103,16 +103,16 @@ function ConfirmPrice({ view }: { view: RequestView }) {
         onConfirm={() => decline.mutate(view.id, { onSuccess: () => setDeclining(false) })}
       >
         <p>
-          Your request is withdrawn and the ware is not fired. Everything you paid,{' '}
+          Your ask is withdrawn and the ware is not fired. Everything you paid,{' '}
           <strong>{formatMoney(view.price.netPaidCents, currency)}</strong>, comes back to you in full.
         </p>
-        <p>Collect your ware from {view.studio.name} in their opening hours.</p>
+        <p>Pick your ware up from {view.studio.name} in their opening hours.</p>
       </ConfirmDialog>
     </div>
   )
 }
 
-/** What the potter can do with their request now (the server lists the actions; it still checks each). */
+/** What the potter can do with their ask now (the server lists the actions; it still checks each). */
 export function PotterActions({ view }: { view: RequestView }) {
   const [sending, setSending] = useState(false)
   const [withdrawing, setWithdrawing] = useState(false)
@@ -151,7 +151,7 @@ export function PotterActions({ view }: { view: RequestView }) {
             </p>
           )}
           <p className="mt-2 text-xs text-slip-600">
-            Moving means the studio has accepted your ware in that firing; you then pay the deposit.
+            Moving means the studio takes your ware on in that firing; you then pay the deposit to hold the space.
           </p>
         </div>
       )}
@@ -161,13 +161,13 @@ export function PotterActions({ view }: { view: RequestView }) {
       {can('pay-balance') && (
         <div className="space-y-1">
           <PayBalanceButton view={view} />
-          <p className="text-xs text-slip-600">Or pay at the studio’s counter when you collect.</p>
+          <p className="text-xs text-slip-600">Or pay at the studio’s counter when you pick up.</p>
         </div>
       )}
 
       {can('rate') && (
-        <a href="#ratings-heading" className="block text-sm font-semibold text-clay-700 hover:underline">
-          {view.ratings.ofStudio ? 'See your rating' : `Rate ${view.studio.name}`} ↓
+        <a href="#reviews-heading" className="block text-sm font-semibold text-clay-700 hover:underline">
+          Answer a few questions about the firing ↓
         </a>
       )}
 
@@ -175,7 +175,7 @@ export function PotterActions({ view }: { view: RequestView }) {
         <div className="space-y-1">
           <PayDepositButton view={view} />
           {view.depositDueAt && (
-            <p className="text-xs text-slip-600">Pay by {formatDateTime(view.depositDueAt, zone)} or the space is released.</p>
+            <p className="text-xs text-slip-600">Pay by {formatDateTime(view.depositDueAt, zone)} or the space goes back to the studio.</p>
           )}
         </div>
       )}
@@ -221,12 +221,12 @@ function WithdrawDialog({ view, open, onClose }: { view: RequestView; open: bool
     <Dialog
       open={open}
       onClose={onClose}
-      title="Withdraw this request?"
-      description="The studio is told, and any space held for you is released."
+      title="Withdraw your ask?"
+      description="The studio is told, and any space held for you goes back to them."
       footer={
         <>
           <Button variant="ghost" onClick={onClose}>
-            Keep the request
+            Keep it
           </Button>
           <Button
             variant="danger"
@@ -246,12 +246,12 @@ function WithdrawDialog({ view, open, onClose }: { view: RequestView; open: bool
           ) : (
             <>
               <p className="font-semibold">
-                You get {money(preview.refundCents)} back of the {money(paidCents)} paid.
+                Under the studio’s terms you get {money(preview.refundCents)} back of the {money(paidCents)} paid.
               </p>
               <p className="mt-1 text-slip-700">
                 {preview.full
-                  ? `Full refunds run until ${formatDate(preview.fullUntil, view.studio.timezone)}, ${terms.fullRefundDaysBefore} ${terms.fullRefundDaysBefore === 1 ? 'day' : 'days'} before the firing.`
-                  : `Full refunds ended ${formatDate(preview.fullUntil, view.studio.timezone)}; after that the studio’s terms give ${terms.laterRefundPercent} % back.`}
+                  ? `All of it comes back until ${formatDate(preview.fullUntil, view.studio.timezone)}, ${terms.fullRefundDaysBefore} ${terms.fullRefundDaysBefore === 1 ? 'day' : 'days'} before the firing.`
+                  : `Since ${formatDate(preview.fullUntil, view.studio.timezone)} the studio’s terms give ${terms.laterRefundPercent} % back.`}
               </p>
             </>
           )}

@@ -125,7 +125,7 @@ export function ResultsForm({ view }: { view: RequestView }) {
         uploadUrl={`/api/requests/${view.id}/photos`}
         fields={{ kind: 'result' }}
         label="Result photos"
-        hint="The potter sees them on the request and may show them on your public page."
+        hint="The potter sees them on their page for this ware and may show them on your public page."
         onUploaded={() => void refreshPhotos()}
       />
       {!parsed.success && <Alert tone="danger">{parsed.error.issues[0]?.message}</Alert>}

@@ -19,14 +19,14 @@ interface SendDialogProps {
   onSent: (view: RequestView) => void
 }
 
-/** Sending a draft: each warning acknowledged on its own, the studio's policies agreed, then the server decides. */
+/** Sending a draft: each warning acknowledged on its own, the studio's terms agreed, then the server decides. */
 export function SendDialog({ requestId, onClose, onSent }: SendDialogProps) {
   return (
     <Dialog
       open={requestId !== null}
       onClose={onClose}
-      title="Send the request"
-      description="The studio sees your pieces, the check and the quote, and answers by mail."
+      title="Ask the studio"
+      description="The studio sees your pieces, the check and the quote, and answers whether it takes them on."
       size="lg"
     >
       {requestId && <SendForm requestId={requestId} onClose={onClose} onSent={onSent} />}
@@ -49,7 +49,7 @@ function SendForm({ requestId, onClose, onSent }: { requestId: string; onClose: 
   const [agreed, setAgreed] = useState(false)
   const [problem, setProblem] = useState<{ title: string; text: string; blocked?: Finding[] } | null>(null)
 
-  if (request.isPending) return <Spinner label="Loading the request…" />
+  if (request.isPending) return <Spinner label="Loading your pieces…" />
   if (request.isError) return <Alert tone="danger">{request.error.message}</Alert>
   const view = request.data
   const findings = serverFindings ?? view.findings
@@ -83,7 +83,7 @@ function SendForm({ requestId, onClose, onSent }: { requestId: string; onClose: 
           } else if (error.code === 'policies-changed') {
             setAgreed(false)
             void queryClient.invalidateQueries({ queryKey: requestKeys.requests.detail(view.id) })
-            setProblem({ title: 'The studio changed its policies', text: 'Read them again above and agree to the new version to send.' })
+            setProblem({ title: 'The studio changed its terms', text: 'Read them again above and agree to the new version to send.' })
           } else setProblem({ title: 'Not sent', text: error.message })
         },
       },
@@ -138,7 +138,7 @@ function SendForm({ requestId, onClose, onSent }: { requestId: string; onClose: 
 
       <section aria-labelledby="send-policies">
         <h3 id="send-policies" className="font-semibold">
-          {view.studio.name}’s policies
+          {view.studio.name}’s terms
         </h3>
         <ul className="mt-2 list-disc space-y-1 pl-5 text-sm text-slip-800" data-testid="send-policies">
           {policiesInWords(policies).map((line) => (
@@ -153,7 +153,7 @@ function SendForm({ requestId, onClose, onSent }: { requestId: string; onClose: 
         )}
         <div className="mt-3">
           <Checkbox
-            label={`I agree to ${view.studio.name}’s policies`}
+            label={`I agree to ${view.studio.name}’s terms`}
             checked={agreed}
             onChange={(event) => setAgreed(event.target.checked)}
           />
@@ -182,10 +182,10 @@ function SendForm({ requestId, onClose, onSent }: { requestId: string; onClose: 
       {(!allAcknowledged || !agreed) && (
         <p className="text-right text-xs text-slip-500">
           {!allAcknowledged && !agreed
-            ? 'Acknowledge each warning and agree to the policies to send.'
+            ? 'Acknowledge each warning and agree to the terms to send.'
             : !allAcknowledged
               ? 'Acknowledge each warning to send.'
-              : 'Agree to the policies to send.'}
+              : 'Agree to the terms to send.'}
         </p>
       )}
     </div>

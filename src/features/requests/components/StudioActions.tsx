@@ -1,5 +1,5 @@
 import { useState } from 'react'
-import { formatDateTime, formatMoney } from '../../../../shared/dates'
+import { formatDateTime, formatMoney, zoneName } from '../../../../shared/dates'
 import { requestDeclineSchema } from '../../../../shared/schemas/requests'
 import { takesRequests } from '../../../../shared/workflow/firing-status'
 import { Alert } from '../../../components/ui/Alert'
@@ -19,7 +19,7 @@ import { HandoverActions } from './HandoverActions'
 const problemOf = (error: unknown) => (error instanceof ApiError ? error.message : 'Something went wrong. Please try again.')
 
 /**
- * Taking a request on holds its space and asks for the deposit: the button says so before it does it.
+ * Taking an ask on holds its space and asks for the deposit: the button says so before it does it.
  * The server refuses when the firing has filled up or stopped taking ware meanwhile.
  */
 export function AcceptButton({ view, size = 'md' }: { view: RequestView; size?: 'sm' | 'md' }) {
@@ -54,10 +54,10 @@ export function AcceptButton({ view, size = 'md' }: { view: RequestView; size?: 
           {deposit > 0 ? (
             <li>
               {view.potter.displayName} is asked for a deposit of <strong>{formatMoney(deposit, view.price.currency)}</strong>, to pay by{' '}
-              {formatDateTime(dueBy, view.studio.timezone)}; unpaid by then, the space is released.
+              {formatDateTime(dueBy, view.studio.timezone)}; unpaid by then, the space comes back to you.
             </li>
           ) : (
-            <li>No deposit is asked: the space is booked at once.</li>
+            <li>No deposit is asked: the space is held at once.</li>
           )}
           <li>The potter gets your street address and a mail.</li>
         </ul>
@@ -70,12 +70,12 @@ interface ReasonDialogProps {
   requestId: string
   open: boolean
   onClose: () => void
-  /** Declining a sent request, or cancelling one the studio already took. */
+  /** Turning an ask down, or calling off ware the studio already took on. */
   mode: 'decline' | 'cancel'
   refundText?: string
 }
 
-/** Decline (or, after accepting, cancel) with a reason the potter reads. */
+/** Turn an ask down (or, once taken on, call it off) with a reason the potter reads. */
 export function ReasonDialog({ requestId, open, onClose, mode, refundText }: ReasonDialogProps) {
   const decline = useDeclineRequest()
   const [reason, setReason] = useState('')
@@ -86,9 +86,9 @@ export function ReasonDialog({ requestId, open, onClose, mode, refundText }: Rea
     <Dialog
       open={open}
       onClose={onClose}
-      title={cancelling ? 'Cancel this request?' : 'Decline this request?'}
+      title={cancelling ? `Call off this ware’s place?` : 'Turn this ask down?'}
       description={
-        cancelling ? 'The space is released and the potter is told why.' : 'The potter is told why and can look for another firing.'
+        cancelling ? 'The space comes back to you and the potter is told why.' : 'The potter is told why and can look for another firing.'
       }
       footer={
         <>
@@ -103,7 +103,7 @@ export function ReasonDialog({ requestId, open, onClose, mode, refundText }: Rea
               if (parsed.success) decline.mutate({ id: requestId, reason: parsed.data.reason }, { onSuccess: onClose })
             }}
           >
-            {cancelling ? 'Cancel the request' : 'Decline'}
+            {cancelling ? 'Call it off' : 'Turn it down'}
           </Button>
         </>
       }
@@ -135,7 +135,7 @@ export function ReasonDialog({ requestId, open, onClose, mode, refundText }: Rea
   )
 }
 
-/** Suggest another of the studio's open firings; the potter accepts or refuses the move. */
+/** Suggest another of the studio's open firings; the potter moves or keeps the first. */
 export function MoveDialog({ view, open, onClose }: { view: RequestView; open: boolean; onClose: () => void }) {
   const firings = useStudioFirings(view.studio.id, { enabled: open })
   const move = useProposeMove()
@@ -150,7 +150,7 @@ export function MoveDialog({ view, open, onClose }: { view: RequestView; open: b
       open={open}
       onClose={onClose}
       title="Suggest another firing"
-      description="The potter chooses whether to move; until then the request stays as it is."
+      description="The potter chooses whether to move; until then the ask stays where it is."
       footer={
         <>
           <Button variant="ghost" onClick={onClose}>
@@ -168,11 +168,11 @@ export function MoveDialog({ view, open, onClose }: { view: RequestView; open: b
         <Alert tone="danger">{problemOf(firings.error)}</Alert>
       ) : choices.length === 0 ? (
         <p className="text-sm text-slip-600">
-          No other firing of this studio is taking ware. Post one in the calendar first, or decline with a reason.
+          No other firing of this studio is taking ware. Post one in the calendar first, or turn the ask down with a reason.
         </p>
       ) : (
         <div className="space-y-3">
-          <Field label="Firing" hint={`Times in ${zone.replace(/_/g, ' ')}. The ware needs ${formatShelves(view.shelvesNeeded)}.`}>
+          <Field label="Firing" hint={`Times in ${zoneName(zone)}. The ware needs ${formatShelves(view.shelvesNeeded)}.`}>
             {(a11y) => (
               <Select {...a11y} value={firingId} onChange={(event) => setFiringId(event.target.value)}>
                 <option value="">Choose a firing</option>
@@ -191,7 +191,7 @@ export function MoveDialog({ view, open, onClose }: { view: RequestView; open: b
   )
 }
 
-/** What the studio can do with a request now (the server lists the actions; it still checks each). */
+/** What the studio can do with an ask now (the server lists the actions; it still checks each). */
 export function StudioActions({ view }: { view: RequestView }) {
   const [dialog, setDialog] = useState<'decline' | 'cancel' | 'move' | null>(null)
   const can = (action: RequestView['actions'][number]) => view.actions.includes(action)
@@ -202,7 +202,7 @@ export function StudioActions({ view }: { view: RequestView }) {
     <div className="space-y-3">
       {can('check-in') && (
         <a href="#check-in-heading" className="block text-sm font-semibold text-clay-700 hover:underline">
-          Check the ware in ↓
+          Take the ware in ↓
         </a>
       )}
       {can('results') && (
@@ -212,8 +212,8 @@ export function StudioActions({ view }: { view: RequestView }) {
       )}
       <HandoverActions view={view} />
       {can('rate') && (
-        <a href="#ratings-heading" className="block text-sm font-semibold text-clay-700 hover:underline">
-          {view.ratings.ofPotter ? 'See your rating' : `Rate ${view.potter.displayName}`} ↓
+        <a href="#reviews-heading" className="block text-sm font-semibold text-clay-700 hover:underline">
+          Answer a few questions about {view.potter.displayName} ↓
         </a>
       )}
       {deciding && (
@@ -221,7 +221,7 @@ export function StudioActions({ view }: { view: RequestView }) {
           {can('accept') && <AcceptButton view={view} />}
           {can('decline') && view.state === 'sent' && (
             <Button variant="secondary" onClick={() => setDialog('decline')}>
-              Decline…
+              Turn it down…
             </Button>
           )}
           {can('move') && (
@@ -231,7 +231,7 @@ export function StudioActions({ view }: { view: RequestView }) {
           )}
           {can('cancel') && (
             <Button variant="ghost" onClick={() => setDialog('cancel')}>
-              Cancel the request…
+              Call it off…
             </Button>
           )}
         </div>

@@ -61,8 +61,8 @@ export function ComposeRequestPage() {
 
   if (draft.data && draft.data.state !== 'draft') {
     return (
-      <EmptyState title="This request has been sent" action={<ButtonLink to={`/requests/${draft.data.id}`}>Open the request</ButtonLink>}>
-        A sent request can no longer be changed. Message the studio from the request if something is different.
+      <EmptyState title="This ask has been sent" action={<ButtonLink to={`/requests/${draft.data.id}`}>Open your ware’s page</ButtonLink>}>
+        A sent ask can no longer be changed. Message the studio from your ware’s page if something is different.
       </EmptyState>
     )
   }
@@ -142,7 +142,7 @@ function ComposeForm({ firing, kiln, priceList, studio, draft, units }: ComposeF
   return (
     <>
       <PageHeader
-        title={`Request space at ${studio.name}`}
+        title={`Ask for space at ${studio.name}`}
         lead="Describe what you will bring. The check, the price and the space it takes update as you type; the studio sees the same."
         actions={draftId && !formState.isDirty ? <Badge tone="neutral">Draft saved</Badge> : undefined}
       />
@@ -181,7 +181,7 @@ function ComposeForm({ firing, kiln, priceList, studio, draft, units }: ComposeF
               </Alert>
             )}
             {serverBlocked && (
-              <Alert tone="danger" title="The server’s check blocks this ware">
+              <Alert tone="danger" title="Conewright’s check blocks this ware">
                 <p>Change what is marked and try again.</p>
                 <div className="mt-2">
                   <FindingsList findings={serverBlocked.findings.filter((f) => f.severity === 'block')} pieces={serverBlocked.pieces} />
@@ -245,7 +245,7 @@ function ComposeForm({ firing, kiln, priceList, studio, draft, units }: ComposeF
   )
 }
 
-/** The saved draft's photos; they stay with the request when it is sent. */
+/** The saved draft's photos; they stay with the ask when it is sent. */
 function DraftPhotos({ draftId }: { draftId: string }) {
   const draft = useRequest(draftId)
   if (draft.isPending) return <Spinner label="Loading your photos…" />

@@ -4,7 +4,7 @@ import { ButtonLink } from '../../../components/ui/Button'
 import { EmptyState, PageHeader } from '../../../components/ui/Card'
 import { Spinner } from '../../../components/ui/Spinner'
 import { firingInWords } from '../../../lib/firingWords'
-import { formatSpace, type UnitSystem } from '../../../lib/units'
+import { formatVolume, type UnitSystem } from '../../../lib/units'
 import { useMe } from '../../auth/api/auth'
 import { useRequests } from '../api/requests'
 import type { RequestRow } from '../api/types'
@@ -17,7 +17,7 @@ function inOrder(requests: RequestRow[]): RequestRow[] {
   return [...requests.filter((r) => r.state === 'draft'), ...requests.filter((r) => r.state !== 'draft')]
 }
 
-/** The potter's home: every request with its state and what happens next. */
+/** The potter's home: every ask with its state and what happens next. */
 export function MyWarePage() {
   const me = useMe()
   const requests = useRequests({ as: 'potter' })
@@ -26,13 +26,13 @@ export function MyWarePage() {
     <>
       <PageHeader
         title="My ware"
-        lead={`Welcome, ${me.data?.displayName ?? ''}. Your firing requests and what happens next with each.`}
+        lead={`Welcome, ${me.data?.displayName ?? ''}. Your ware in studios’ firings and what happens next with each.`}
         actions={requests.data && requests.data.length > 0 ? <ButtonLink to="/find">Find a firing</ButtonLink> : undefined}
       />
       {requests.isPending ? (
-        <Spinner label="Loading your requests…" />
+        <Spinner label="Loading your ware…" />
       ) : requests.isError ? (
-        <RequestProblem error={requests.error} what="your requests" onRetry={() => requests.refetch()} />
+        <RequestProblem error={requests.error} what="your ware" onRetry={() => requests.refetch()} />
       ) : requests.data.length === 0 ? (
         <EmptyState
           title="No ware in a firing yet"
@@ -45,11 +45,11 @@ export function MyWarePage() {
             </div>
           }
         >
-          Find a studio firing at your cone and atmosphere, describe your pieces and request space. Or try the firing planner first to see
+          Find a studio firing at your cone and atmosphere, describe your pieces and ask for space. Or try the firing planner first to see
           what a kiln can take.
         </EmptyState>
       ) : (
-        <ul className="space-y-3" aria-label="Your requests">
+        <ul className="space-y-3" aria-label="Your ware in firings">
           {inOrder(requests.data).map((row) => (
             <RequestCard key={row.id} row={row} units={units} />
           ))}
@@ -89,7 +89,7 @@ function RequestCard({ row, units }: { row: RequestRow; units: UnitSystem }) {
         {next}
       </p>
       <p className="mt-1 text-xs text-slip-500">
-        {row.pieceCount} {row.pieceCount === 1 ? 'piece' : 'pieces'} · {formatSpace(row.volumeL, units)}
+        {row.pieceCount} {row.pieceCount === 1 ? 'piece' : 'pieces'} · {formatVolume(row.volumeL, units)}
         {money && <span data-testid="row-money"> · {money}</span>}
       </p>
     </li>

@@ -10,7 +10,7 @@ import { ButtonLink } from '../../../components/ui/Button'
 import { FindingsList, VerdictLine } from '../../../components/ware/CheckResults'
 import { QuoteSummary } from '../../../components/ware/QuoteSummary'
 import { firingInWords } from '../../../lib/firingWords'
-import { formatSpace, type UnitSystem } from '../../../lib/units'
+import { formatVolume, type UnitSystem } from '../../../lib/units'
 import { useMe } from '../../auth/api/auth'
 import { useRequest, type RequestPolling } from '../api/requests'
 import type { RequestView } from '../api/types'
@@ -21,17 +21,17 @@ import { PiecesTable } from '../components/PiecesTable'
 import { CheckInForm } from '../components/CheckInForm'
 import { DropOffRecord, PriceChangeNote } from '../components/DropOffRecord'
 import { PayBalanceButton, PayDepositButton, PotterActions } from '../components/PotterActions'
-import { RatingsPanel } from '../components/RatingsPanel'
 import { ResultsForm, ResultsView } from '../components/ResultsPanel'
+import { ReviewsPanel } from '../components/ReviewsPanel'
 import { WarePhotos } from '../components/WarePhotos'
-import { potterPickupStep, priceChange, ratingStep, studioPickupStep } from '../pickupWords'
+import { potterPickupStep, priceChange, reviewStep, studioPickupStep } from '../pickupWords'
 import { CounterRefunds } from '../components/CounterRefunds'
 import { PotterRecordLine } from '../components/PotterRecordLine'
 import { RequestProblem } from '../components/RequestProblem'
 import { RequestStateBadge } from '../components/RequestStateBadge'
 import { SpaceGauge } from '../components/SpaceGauge'
 import { StudioActions } from '../components/StudioActions'
-import { Timeline } from '../components/Timeline'
+import { Timeline } from '../../../components/requests/Timeline'
 import { DisputeAction } from '../components/DisputeAction'
 import { potterNextStep, studioNextStep } from '../requestWords'
 
@@ -42,7 +42,7 @@ const OWING_STATES: readonly RequestView['state'][] = ['deposit_paid', 'received
 const CONFIRM_WINDOW_MS = 30_000
 const CONFIRM_POLL_MS = 1_000
 
-/** /requests/:id: the request as the potter, the studio or an admin sees it, with what each may do next. */
+/** /requests/:id: one potter's ware in one firing, as the potter, the studio or an admin sees it, with what each may do next. */
 export function RequestPage() {
   const { id = '' } = useParams()
   const [params] = useSearchParams()
@@ -65,8 +65,8 @@ export function RequestPage() {
     return () => clearTimeout(timer)
   }, [returnedPaid, returnedAt])
 
-  if (request.isPending) return <Spinner label="Loading the request…" />
-  if (request.isError) return <RequestProblem error={request.error} what="this request" onRetry={() => request.refetch()} />
+  if (request.isPending) return <Spinner label="Loading…" />
+  if (request.isError) return <RequestProblem error={request.error} what="this ware’s page" onRetry={() => request.refetch()} />
   return <RequestDetail view={request.data} units={units} paidFor={paidFor} waitedOut={waitedOut} unpaidFor={unpaidFor} />
 }
 
@@ -142,12 +142,12 @@ function BalanceNotices({ view, returnedPaid, returnedUnpaid, waitedOut }: Notic
       {returnedPaid && awaiting && waitedOut && <NotConfirmedYet />}
       {returnedPaid && !awaiting && view.price.balanceOwedCents === 0 && (
         <Alert tone="success" title="Balance paid">
-          Thank you: nothing more is owed. Collect your ware in the studio’s pickup hours.
+          Thank you: nothing more is owed. Pick your ware up in the studio’s pickup hours.
         </Alert>
       )}
       {returnedUnpaid && awaiting && (
         <Alert tone="warning" title="The payment was not completed">
-          <p>Nothing was charged. You can pay online again, or at the counter when you collect.</p>
+          <p>Nothing was charged. You can pay online again, or at the counter when you pick up.</p>
           {view.actions.includes('pay-balance') && (
             <div className="mt-2">
               <PayBalanceButton view={view} label="Try the payment again" />
@@ -207,7 +207,7 @@ function RequestDetail({ view, units, paidFor, unpaidFor, waitedOut }: DetailPro
   }
   const nextStep =
     view.state === 'collected'
-      ? ratingStep(view)
+      ? reviewStep(view)
       : view.viewer === 'studio'
         ? (studioPickupStep(view.state, view) ?? studioNextStep(facts))
         : (potterPickupStep(view.state, view) ?? potterNextStep(facts))
@@ -217,7 +217,12 @@ function RequestDetail({ view, units, paidFor, unpaidFor, waitedOut }: DetailPro
   const price = view.price
   const currency = price.currency
   const showResults = view.results !== null || view.actions.includes('results') || view.photos.some((p) => p.kind === 'result')
-  const showRatings = view.actions.includes('rate') || view.ratings.ofStudio !== null || view.ratings.ofPotter !== null
+  const showReviews =
+    view.actions.includes('rate') ||
+    view.reviews.ofStudio !== null ||
+    view.reviews.ofPotter !== null ||
+    view.reviews.answered.potter ||
+    view.reviews.answered.studio
   const warnings = view.findings.filter((f) => f.severity === 'warn')
   const acknowledged = view.acknowledgedWarnings.map((code) => ({ code, message: warnings.find((f) => f.code === code)?.message ?? code }))
   const decided = !['draft', 'sent'].includes(view.state)
@@ -228,7 +233,7 @@ function RequestDetail({ view, units, paidFor, unpaidFor, waitedOut }: DetailPro
         <p className="text-sm text-slip-600">
           {isStudio ? (
             <Link to={`/studios/${view.studio.id}/requests`} className="font-medium text-clay-700 hover:underline">
-              ← {view.studio.name}’s requests
+              ← Asks to {view.studio.name}
             </Link>
           ) : (
             <Link to="/my-ware" className="font-medium text-clay-700 hover:underline">
@@ -284,19 +289,19 @@ function RequestDetail({ view, units, paidFor, unpaidFor, waitedOut }: DetailPro
             )}
           </Card>
 
-          {showRatings && (
+          {showReviews && (
             <Card>
-              <h2 id="ratings-heading" className="mb-3 scroll-mt-4 text-lg font-semibold">
-                Ratings
+              <h2 id="reviews-heading" className="mb-3 scroll-mt-4 text-lg font-semibold">
+                After pickup
               </h2>
-              <RatingsPanel view={view} />
+              <ReviewsPanel view={view} />
             </Card>
           )}
 
           {view.actions.includes('check-in') && (
             <Card>
               <h2 id="check-in-heading" className="mb-3 scroll-mt-4 text-lg font-semibold">
-                Check the ware in
+                Take the ware in
               </h2>
               <CheckInForm view={view} units={units} />
             </Card>
@@ -350,7 +355,7 @@ function RequestDetail({ view, units, paidFor, unpaidFor, waitedOut }: DetailPro
 
           <section aria-labelledby="pieces-heading" className="space-y-3">
             <h2 id="pieces-heading" className="text-lg font-semibold">
-              Pieces <span className="text-sm font-normal text-slip-600">· {formatSpace(view.volumeL, units)} in all</span>
+              Pieces <span className="text-sm font-normal text-slip-600">· {formatVolume(view.volumeL, units)} in all</span>
             </h2>
             <PiecesTable pieces={view.pieces} units={units} />
             {view.notes && (
@@ -380,7 +385,7 @@ function RequestDetail({ view, units, paidFor, unpaidFor, waitedOut }: DetailPro
           </Card>
 
           <Card>
-            <h2 className="mb-3 text-lg font-semibold">{remeasured ? 'Quote, as measured at check-in' : 'Quote'}</h2>
+            <h2 className="mb-3 text-lg font-semibold">{remeasured ? 'Quote, as measured at drop-off' : 'Quote'}</h2>
             {standing ? (
               <QuoteSummary
                 quote={standing}
@@ -430,7 +435,7 @@ function RequestDetail({ view, units, paidFor, unpaidFor, waitedOut }: DetailPro
             <h2 id="ledger-heading" className="text-lg font-semibold">
               Money in and out
             </h2>
-            <Ledger entries={view.ledger} zone={zone} />
+            <Ledger entries={view.ledger} zone={zone} showReferences={view.viewer !== 'potter'} />
           </section>
 
           <section aria-labelledby="timeline-heading" className="space-y-3">
@@ -469,7 +474,7 @@ function RequestDetail({ view, units, paidFor, unpaidFor, waitedOut }: DetailPro
                 <p className="text-sm text-slip-600">
                   {HOLDING_STATES.includes(view.state)
                     ? 'The studio has not given a street address yet; ask in the messages.'
-                    : 'The studio’s address is shown here once it accepts your request.'}
+                    : 'The studio’s address is shown here once it takes your ware on.'}
                 </p>
               )}
               {view.studio.dropOffHours && <p className="mt-2 text-sm text-slip-700">{view.studio.dropOffHours}</p>}

@@ -18,7 +18,7 @@ import { SpaceGauge } from '../components/SpaceGauge'
 import { AcceptButton, ReasonDialog } from '../components/StudioActions'
 import { rowMoneyLine, rowNextStep, stateLabel } from '../requestWords'
 
-/** /studios/:id/requests: every request to the studio. */
+/** /studios/:id/requests: every potter's ask to the studio. */
 export function StudioInboxPage() {
   const { id = '' } = useParams()
   const studio = useStudio(id)
@@ -35,13 +35,13 @@ export function StudioInboxPage() {
   return (
     <Inbox
       studioId={id}
-      title={`Requests to ${studio.data.name}`}
-      lead="Each request with the check, the space it needs, the quote and the potter’s record."
+      title={`Asks to ${studio.data.name}`}
+      lead="Each potter’s ask with the check, the space it needs, the quote and the potter’s record."
     />
   )
 }
 
-/** /firings/:firingId/requests: the requests for one firing. */
+/** /firings/:firingId/requests: the asks for one firing. */
 export function FiringInboxPage() {
   const { firingId = '' } = useParams()
   const firing = useFiring(firingId)
@@ -61,7 +61,7 @@ export function FiringInboxPage() {
     <Inbox
       studioId={studio.data.id}
       firing={firing.data}
-      title={`Requests for the ${firingInWords(firing.data)}`}
+      title={`Asks for the ${firingInWords(firing.data)}`}
       lead={`${studio.data.name} · ${Date.parse(firing.data.firingDate) > Date.now() ? 'fires' : 'fired'} ${formatDateTime(firing.data.firingDate, studio.data.timezone)}`}
     />
   )
@@ -94,7 +94,7 @@ function Inbox({ studioId, firing, title, lead }: { studioId: string; firing?: F
           <>
             {firing && (
               <ButtonLink to={`/studios/${studioId}/requests`} variant="secondary">
-                All the studio’s requests
+                All the studio’s asks
               </ButtonLink>
             )}
             <ButtonLink to="/kiln-room" variant="ghost">
@@ -103,7 +103,7 @@ function Inbox({ studioId, firing, title, lead }: { studioId: string; firing?: F
           </>
         }
       />
-      <nav aria-label="Show requests by state" className="mb-4 flex flex-wrap gap-2">
+      <nav aria-label="Show asks by state" className="mb-4 flex flex-wrap gap-2">
         {FILTERS.filter((f) => f === 'all' || f === filter || (counts.get(f) ?? 0) > 0).map((f) => (
           <button
             key={f}
@@ -117,19 +117,19 @@ function Inbox({ studioId, firing, title, lead }: { studioId: string; firing?: F
         ))}
       </nav>
       {requests.isPending ? (
-        <Spinner label="Loading requests…" />
+        <Spinner label="Loading asks…" />
       ) : requests.isError ? (
-        <RequestProblem error={requests.error} what="the requests" onRetry={() => requests.refetch()} />
+        <RequestProblem error={requests.error} what="the asks" onRetry={() => requests.refetch()} />
       ) : ordered.length === 0 ? (
-        <EmptyState title={filter === 'all' ? 'No requests yet' : `No requests that are ${stateLabel(filter).toLowerCase()}`}>
+        <EmptyState title={filter === 'all' ? 'No one has asked yet' : `Nothing at “${stateLabel(filter)}”`}>
           {filter === 'all'
-            ? 'Potters find your open firings in search and on your studio page; their requests arrive here and by mail.'
+            ? 'Potters find your open firings in search and on your studio page; their asks arrive here and by mail.'
             : 'Choose another state above.'}
         </EmptyState>
       ) : (
-        <ul className="space-y-3" aria-label="Requests">
+        <ul className="space-y-3" aria-label="Asks">
           {ordered.map((row) => (
-            <InboxRow key={row.id} row={row} spaceLeftL={spaceLeft(row.firing.id)} showFiring={!firing} />
+            <InboxRow key={row.id} row={row} shelvesLeft={spaceLeft(row.firing.id)} showFiring={!firing} />
           ))}
         </ul>
       )}
@@ -137,7 +137,7 @@ function Inbox({ studioId, firing, title, lead }: { studioId: string; firing?: F
   )
 }
 
-function InboxRow({ row, spaceLeftL, showFiring }: { row: RequestRow; spaceLeftL: number | undefined; showFiring: boolean }) {
+function InboxRow({ row, shelvesLeft, showFiring }: { row: RequestRow; shelvesLeft: number | undefined; showFiring: boolean }) {
   const waiting = row.state === 'sent'
   // The list row has no record of the potter; the request itself does, and it is needed to decide.
   const detail = useRequest(waiting ? row.id : undefined)
@@ -191,8 +191,8 @@ function InboxRow({ row, spaceLeftL, showFiring }: { row: RequestRow; spaceLeftL
           </p>
         </div>
         <div>
-          {waiting && spaceLeftL !== undefined && row.shelvesNeeded !== null ? (
-            <SpaceGauge need={row.shelvesNeeded} left={spaceLeftL} />
+          {waiting && shelvesLeft !== undefined && row.shelvesNeeded !== null ? (
+            <SpaceGauge need={row.shelvesNeeded} left={shelvesLeft} />
           ) : null}
         </div>
         <div className="flex flex-wrap items-start gap-2 md:justify-end">
@@ -200,12 +200,12 @@ function InboxRow({ row, spaceLeftL, showFiring }: { row: RequestRow; spaceLeftL
             <>
               {detail.data && <AcceptButton view={detail.data} size="sm" />}
               <Button size="sm" variant="secondary" onClick={() => setDeclining(true)}>
-                Decline…
+                Turn it down…
               </Button>
             </>
           )}
           <ButtonLink size="sm" variant="ghost" to={`/requests/${row.id}`}>
-            Open<span className="sr-only"> {row.potterName}’s request</span>
+            Open<span className="sr-only"> {row.potterName}’s ask</span>
           </ButtonLink>
         </div>
       </div>

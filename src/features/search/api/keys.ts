@@ -4,5 +4,6 @@
 export const searchKeys = {
   all: ['search'] as const,
   results: (query: string) => ['search', 'results', query] as const,
+  board: (query: string) => ['search', 'board', query] as const,
   places: (text: string) => ['search', 'places', text] as const,
 }

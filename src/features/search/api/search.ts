@@ -1,18 +1,18 @@
 import { keepPreviousData, useQuery } from '@tanstack/react-query'
 import type { Place } from '../../../../shared/schemas/places'
-import type { SearchResponse } from '../../../../shared/schemas/search'
+import type { BoardResponse } from '../../../../shared/api/board'
 import { api } from '../../../lib/api'
-import { apiQueryString, searchString, type SearchState } from '../searchState'
+import { answerKey, apiQueryString, type SearchState } from '../searchState'
 import { searchKeys } from './keys'
 
 /**
- * Open firings for a search. While the next answer loads, the last one stays on screen
- * (`isPlaceholderData`), so the list and the map do not blink empty between pages.
+ * The firing board for a search: studios with their firings as chips. The view is not part of the
+ * key, so switching between the board, the weeks and the map asks nothing again.
  */
-export function useFiringSearch(state: SearchState, { enabled = true }: { enabled?: boolean } = {}) {
+export function useFiringBoard(state: SearchState, { enabled = true }: { enabled?: boolean } = {}) {
   return useQuery({
-    queryKey: searchKeys.results(searchString(state)),
-    queryFn: ({ signal }) => api<SearchResponse>(`/api/search?${apiQueryString(state)}`, { signal }),
+    queryKey: searchKeys.board(answerKey(state)),
+    queryFn: ({ signal }) => api<BoardResponse>(`/api/search/board?${apiQueryString(state)}`, { signal }),
     placeholderData: keepPreviousData,
     enabled,
   })

@@ -1,11 +1,11 @@
 import L, { type Map as LeafletMap } from 'leaflet'
 import { useCallback, useEffect, useRef, useState } from 'react'
-import { Circle } from 'react-leaflet'
+import { Circle, Marker } from 'react-leaflet'
 import type { SearchResponse } from '../../../../shared/schemas/search'
 import { Basemap, type LatLngPair } from '../../../components/map/Basemap'
-import { ClusteredMarkers, StudioMarker } from '../../../components/map/markers'
+import { conePinIcon, searchCentreIcon } from '../../../components/map/cone-pin'
 import { Button } from '../../../components/ui/Button'
-import type { AreaSearch, MapFit, MapStudio } from '../mapStudios'
+import { PIN_MARK_LETTERS, PIN_MARK_WORDS, type AreaSearch, type MapFit, type MapStudio, type PinMark } from '../mapStudios'
 import { whereKey } from '../searchState'
 
 /** Where the map opens before the first answer: the lower 48 states. */
@@ -29,10 +29,14 @@ interface ResultsMapProps {
   className?: string
 }
 
+const pinWords = (studio: MapStudio) =>
+  [`${studio.name}: cone ${studio.cones}`, ...studio.marks.map((mark) => PIN_MARK_WORDS[mark])].join(', ')
+
 /**
- * The results on the map. Moves the app makes (going to a new search, bringing a chosen studio into
- * view) are made without animation, so they are over by the time the call returns and are told
- * apart from the potter's own: only those offer "Search this area".
+ * The map panel of the search page: its own toolbar, then the studios found as cone pins around the
+ * place searched and its distance ring. Moves the app makes (going to a new search, bringing a chosen
+ * studio into view) are made without animation, so they are over by the time the call returns and are
+ * told apart from the potter's own: only those let the potter look again where the map now is.
  */
 export function ResultsMap({
   studios,
@@ -108,48 +112,79 @@ export function ResultsMap({
     onSearchArea(area)
   }
 
+  const marks = [...new Set(studios.flatMap((s) => s.marks))] as PinMark[]
   return (
-    <div className={`relative ${className}`}>
-      <Basemap
-        ref={attachMap}
-        center={START.center}
-        zoom={START.zoom}
-        label="Map of the firings found"
-        className="size-full rounded-card border border-slip-200"
-        onMoveEnd={() => {
-          if (!moving.current) setMovedByHand(true)
-        }}
-      >
-        {origin && radiusKm && (
-          <Circle
-            center={[origin.lat, origin.lng]}
-            radius={radiusKm * 1000}
-            interactive={false}
-            // The class is read once, when the path is made; setStyle (pathOptions) never applies it.
-            className="stroke-clay-400 fill-clay-200"
-            pathOptions={{ weight: 1.5, dashArray: '6 4', fillOpacity: 0.15 }}
-          />
-        )}
-        <ClusteredMarkers>
+    <section aria-labelledby="map-panel-heading" className="space-y-2" data-testid="map-panel">
+      <div className="flex flex-wrap items-center justify-between gap-2 rounded-card border border-slip-200 bg-white px-3 py-2">
+        <div className="min-w-0">
+          <h2 id="map-panel-heading" className="text-sm font-semibold text-slip-900">
+            Map of the studios found
+          </h2>
+          <p className="text-xs text-slip-600" data-testid="map-legend">
+            Each tag is a studio and the cone it fires (<span aria-hidden>∆</span>6 is cone 6)
+            {marks.map((mark) => (
+              <span key={mark}>
+                {' '}
+                · <strong className="font-semibold">{PIN_MARK_LETTERS[mark]}</strong> {PIN_MARK_WORDS[mark]}
+              </span>
+            ))}
+            {origin && ' · the ringed dot is where you searched from'}
+          </p>
+        </div>
+        <Button size="sm" variant={movedByHand ? 'primary' : 'secondary'} disabled={!movedByHand} onClick={searchArea}>
+          Look for firings in this part of the map
+        </Button>
+      </div>
+      <div className={`relative ${className}`}>
+        <Basemap
+          ref={attachMap}
+          center={START.center}
+          zoom={START.zoom}
+          label="Map of the studios found"
+          className="size-full rounded-card border border-slip-200"
+          onMoveEnd={() => {
+            if (!moving.current) setMovedByHand(true)
+          }}
+        >
+          {origin && radiusKm && (
+            <Circle
+              center={[origin.lat, origin.lng]}
+              radius={radiusKm * 1000}
+              interactive={false}
+              // The class is read once, when the path is made; setStyle (pathOptions) never applies it.
+              className="stroke-clay-400 fill-clay-200"
+              pathOptions={{ weight: 1.5, dashArray: '6 4', fillOpacity: 0.15 }}
+            />
+          )}
+          {origin && (
+            <Marker
+              position={[origin.lat, origin.lng]}
+              icon={searchCentreIcon()}
+              title={`Searched from ${origin.label}`}
+              alt={`Searched from ${origin.label}`}
+              interactive={false}
+              keyboard={false}
+            />
+          )}
           {studios.map((studio) => (
-            <StudioMarker
+            <Marker
               key={studio.id}
               position={studio.position}
               title={studio.name}
-              label={studio.id === selectedStudioId ? studio.name : undefined}
-              selected={studio.id === selectedStudioId}
-              onSelect={() => onSelectStudio(studio.id)}
+              alt={pinWords(studio)}
+              icon={conePinIcon({
+                cones: studio.cones,
+                marks: studio.marks.map((mark) => PIN_MARK_LETTERS[mark]),
+                selected: studio.id === selectedStudioId,
+                label: studio.id === selectedStudioId ? studio.name : undefined,
+              })}
+              zIndexOffset={studio.id === selectedStudioId ? 1000 : 0}
+              keyboard
+              eventHandlers={{ click: () => onSelectStudio(studio.id) }}
             />
           ))}
-        </ClusteredMarkers>
-      </Basemap>
-      {movedByHand && (
-        <div className="pointer-events-none absolute inset-x-0 top-3 z-[1000] flex justify-center">
-          <Button size="sm" className="pointer-events-auto shadow-card" onClick={searchArea}>
-            Search this area
-          </Button>
-        </div>
-      )}
-    </div>
+        </Basemap>
+      </div>
+    </section>
   )
 }

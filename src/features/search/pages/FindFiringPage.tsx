@@ -1,16 +1,17 @@
 import { lazy, Suspense, useCallback, useEffect, useMemo, useRef, useState } from 'react'
-import { useSearchParams } from 'react-router-dom'
-import type { SearchHit } from '../../../../shared/schemas/search'
+import { Link, useSearchParams } from 'react-router-dom'
 import { Alert } from '../../../components/ui/Alert'
 import { Button } from '../../../components/ui/Button'
 import { MapPlaceholder } from '../../../components/map/MapPlaceholder'
 import { ApiError, type FieldErrors } from '../../../lib/api'
 import { useMe } from '../../auth/api/auth'
-import { useFiringSearch } from '../api/search'
+import { useFiringBoard } from '../api/search'
 import { NoResults } from '../components/NoResults'
 import { Pagination } from '../components/Pagination'
-import { ResultList, ResultSkeletons } from '../components/ResultList'
+import { ResultSkeletons } from '../components/ResultSkeletons'
 import { SearchFilters } from '../components/SearchFilters'
+import { StudioCard } from '../components/StudioCard'
+import { WeekBoard } from '../components/WeekBoard'
 import { studiosOf, type AreaSearch, type MapFit } from '../mapStudios'
 import {
   DEFAULT_RADIUS_KM,
@@ -18,17 +19,20 @@ import {
   readSearchState,
   searchProblems,
   searchString,
+  viewOf,
   whereKey,
   withFilters,
+  withView,
   type SearchState,
+  type SearchView,
 } from '../searchState'
 import type { UnitSystem } from '../units'
 import { readerZone } from '../words'
 
-// The map (Leaflet and the basemap) arrives after the filters and the list, which people read first.
+// The map (Leaflet and the basemap) is fetched only for the map view.
 const loadResultsMap = () => import('../components/ResultsMap')
 const ResultsMap = lazy(() => loadResultsMap().then((m) => ({ default: m.ResultsMap })))
-const MAP_CLASS = 'h-72 sm:h-96 lg:sticky lg:top-4 lg:order-2 lg:h-[calc(100vh-2rem)] lg:max-h-[44rem]'
+const MAP_CLASS = 'h-80 sm:h-[28rem]'
 
 /** Messages the filters show beside themselves; anything else is said above the results. */
 const FILTER_FIELDS = new Set([
@@ -47,7 +51,13 @@ const FILTER_FIELDS = new Set([
   'sort',
 ])
 
-/** /find: open firings on a map and in a list, filtered by what the potter's ware needs. */
+const VIEWS: { view: SearchView; label: string }[] = [
+  { view: 'board', label: 'By studio' },
+  { view: 'weeks', label: 'By week' },
+  { view: 'map', label: 'Map' },
+]
+
+/** /find: the firing board — studios with their upcoming firings — by studio, by week or on a map. */
 export function FindFiringPage() {
   const me = useMe()
   const [chosenUnits, setChosenUnits] = useState<UnitSystem | null>(null)
@@ -55,8 +65,9 @@ export function FindFiringPage() {
 
   const [params, setParams] = useSearchParams()
   const state = useMemo(() => readSearchState(params), [params])
+  const view = viewOf(state)
   const problems = useMemo(() => searchProblems(state), [state])
-  const search = useFiringSearch(state, { enabled: problems === null })
+  const search = useFiringBoard(state, { enabled: problems === null })
 
   const serverFields = search.error instanceof ApiError ? search.error.fields : {}
   const fieldErrors: FieldErrors = problems ?? serverFields
@@ -68,33 +79,23 @@ export function FindFiringPage() {
     [onSearch, state],
   )
 
-  const [selection, setSelection] = useState<{ firingId: string; studioId: string } | null>(null)
-  const cards = useRef(new Map<string, HTMLElement>())
-  const cardRef = useCallback((firingId: string, element: HTMLElement | null) => {
-    if (element) cards.current.set(firingId, element)
-    else cards.current.delete(firingId)
-  }, [])
-
   const response = search.data
   const fresh = response && !search.isPlaceholderData ? response : null
-  const hits = useMemo(() => response?.hits ?? [], [response])
-  const studios = useMemo(() => studiosOf(hits), [hits])
+  const board = useMemo(() => response?.studios ?? [], [response])
+  const pins = useMemo(() => studiosOf(board), [board])
   const radiusKm = hasOrigin(state) ? Number(state.radiusKm ?? DEFAULT_RADIUS_KM) : null
   // The map dedupes by key: it goes somewhere new only when where-to-search changes, not for each filter.
   const fit = useMemo<MapFit | null>(
-    () => (fresh ? { key: whereKey(state), origin: fresh.origin, radiusKm, studios: studiosOf(fresh.hits) } : null),
+    () => (fresh ? { key: whereKey(state), origin: fresh.origin, radiusKm, studios: studiosOf(fresh.studios) } : null),
     [fresh, state, radiusKm],
   )
 
-  const selected = selection && hits.some((h) => h.firingId === selection.firingId) ? selection : null
-  const selectHit = (hit: SearchHit) => setSelection({ firingId: hit.firingId, studioId: hit.studio.id })
-  const selectStudio = (studioId: string) => {
-    const hit = hits.find((h) => h.studio.id === studioId)
-    if (!hit) return
-    selectHit(hit)
-    const card = cards.current.get(hit.firingId)
-    card?.scrollIntoView({ block: 'nearest', behavior: 'smooth' })
-    card?.focus({ preventScroll: true })
+  const [chosenStudioId, setChosenStudioId] = useState<string | null>(null)
+  const chosen = board.find((card) => card.studio.id === chosenStudioId) ?? null
+  const chosenCard = useRef<HTMLDivElement>(null)
+  const showOnMap = (studioId: string) => {
+    setChosenStudioId(studioId)
+    setParams(new URLSearchParams(searchString(withView(state, 'map'))))
   }
 
   const busy = search.isFetching && (search.isPlaceholderData || search.isPending)
@@ -102,8 +103,8 @@ export function FindFiringPage() {
   // once; its code is fetched meanwhile.
   const mapWaits = problems === null && search.isPending
   useEffect(() => {
-    void loadResultsMap()
-  }, [])
+    if (view === 'map') void loadResultsMap()
+  }, [view])
   const error = problems ? null : search.error
 
   return (
@@ -125,82 +126,123 @@ export function FindFiringPage() {
         </Alert>
       )}
 
-      <div className="mt-4 grid gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,1fr)] lg:items-start">
-        <Suspense fallback={<MapPlaceholder className={`rounded-card border border-slip-200 ${MAP_CLASS}`} />}>
-          {mapWaits ? (
-            <MapPlaceholder className={`rounded-card border border-slip-200 ${MAP_CLASS}`} />
-          ) : (
-            <ResultsMap
-              className={MAP_CLASS}
-              studios={studios}
-              selectedStudioId={selected?.studioId ?? null}
-              onSelectStudio={selectStudio}
-              fit={fit}
-              origin={response?.origin ?? null}
-              radiusKm={response?.origin ? radiusKm : null}
-              onSearchArea={onSearchArea}
-            />
-          )}
-        </Suspense>
-
-        <section aria-labelledby="results-heading" className="min-w-0 space-y-3 lg:order-1" aria-busy={busy}>
-          <div className="flex flex-wrap items-baseline justify-between gap-2">
+      <section aria-labelledby="results-heading" className="mt-4 min-w-0 space-y-3" aria-busy={busy}>
+        <div className="flex flex-wrap items-end justify-between gap-x-4 gap-y-2">
+          <div className="min-w-0">
             <h2 id="results-heading" className="text-lg font-semibold text-slip-900">
               {response ? (
-                <span data-testid="result-total">
-                  {response.total} {response.total === 1 ? 'firing' : 'firings'}
+                <span data-testid="result-total" data-studios={response.total} data-firings={response.firingTotal}>
+                  {response.total} {response.total === 1 ? 'studio' : 'studios'} with {response.firingTotal}{' '}
+                  {response.firingTotal === 1 ? 'firing' : 'firings'}
                   {response.origin ? ` near ${response.origin.label}` : ''}
                 </span>
               ) : (
                 'Firings'
               )}
             </h2>
-            <p className="text-xs text-slip-500">Times in your zone: {readerZone()}</p>
+            <p className="text-xs text-slip-600">Times in your zone: {readerZone()}</p>
           </div>
+          <nav aria-label="Ways to see the firings" className="flex rounded-control border border-slip-300 bg-white p-0.5 text-sm">
+            {VIEWS.map((option) => (
+              <Link
+                key={option.view}
+                to={`?${searchString(withView(state, option.view))}`}
+                aria-current={view === option.view ? 'page' : undefined}
+                className="rounded-control px-3 py-1 font-medium text-slip-700 hover:bg-slip-100 aria-[current=page]:bg-clay-600 aria-[current=page]:text-white"
+              >
+                {option.label}
+              </Link>
+            ))}
+          </nav>
+        </div>
 
-          <div aria-live="polite" className="sr-only">
-            {busy ? 'Updating the results…' : response && !search.isPlaceholderData ? `${response.total} firings found.` : ''}
-          </div>
+        <div aria-live="polite" className="sr-only">
+          {busy
+            ? 'Updating the results…'
+            : response && !search.isPlaceholderData
+              ? `${response.total} studios with ${response.firingTotal} firings found.`
+              : ''}
+        </div>
 
-          {problems && (
-            <Alert tone="danger" title="Check the highlighted filter">
-              {otherProblems.length > 0 ? otherProblems.map(([, message]) => message).join(' ') : 'Fix it and the search runs again.'}
-            </Alert>
-          )}
-          {error && (
-            <Alert tone="danger" title="We could not search">
-              <span data-testid="search-error">{error.message}</span>
-              {otherProblems.length > 0 && ` ${otherProblems.map(([, message]) => message).join(' ')}`}
-              {!(error instanceof ApiError && error.status === 400) && (
-                <Button variant="ghost" size="sm" className="ml-2" onClick={() => search.refetch()}>
-                  Try again
-                </Button>
-              )}
-            </Alert>
-          )}
+        {problems && (
+          <Alert tone="danger" title="Check the highlighted filter">
+            {otherProblems.length > 0 ? otherProblems.map(([, message]) => message).join(' ') : 'Fix it and the search runs again.'}
+          </Alert>
+        )}
+        {error && (
+          <Alert tone="danger" title="We could not search">
+            <span data-testid="search-error">{error.message}</span>
+            {otherProblems.length > 0 && ` ${otherProblems.map(([, message]) => message).join(' ')}`}
+            {!(error instanceof ApiError && error.status === 400) && (
+              <Button variant="ghost" size="sm" className="ml-2" onClick={() => search.refetch()}>
+                Try again
+              </Button>
+            )}
+          </Alert>
+        )}
 
-          {response === undefined ? (
-            search.isPending && !problems && <ResultSkeletons />
-          ) : response.hits.length === 0 ? (
-            search.isPlaceholderData ? (
-              <ResultSkeletons />
+        {view === 'map' && (
+          <Suspense fallback={<MapPlaceholder className={`rounded-card border border-slip-200 ${MAP_CLASS}`} />}>
+            {mapWaits ? (
+              <MapPlaceholder className={`rounded-card border border-slip-200 ${MAP_CLASS}`} />
             ) : (
-              <NoResults state={state} units={units} />
-            )
-          ) : (
-            <div className={`space-y-4 transition-opacity ${search.isPlaceholderData ? 'opacity-60' : ''}`}>
-              <ResultList
-                hits={response.hits}
-                units={units}
-                selectedFiringId={selected?.firingId ?? null}
-                onSelect={selectHit}
-                cardRef={cardRef}
+              <ResultsMap
+                className={MAP_CLASS}
+                studios={pins}
+                selectedStudioId={chosen?.studio.id ?? null}
+                onSelectStudio={(studioId) => {
+                  setChosenStudioId(studioId)
+                  chosenCard.current?.scrollIntoView({ block: 'nearest', behavior: 'smooth' })
+                }}
+                fit={fit}
+                origin={response?.origin ?? null}
+                radiusKm={response?.origin ? radiusKm : null}
+                onSearchArea={onSearchArea}
               />
-              <Pagination state={state} total={response.total} page={response.page} perPage={response.perPage} onSearch={onSearch} />
-            </div>
-          )}
-        </section>
-      </div>
+            )}
+          </Suspense>
+        )}
+
+        {response === undefined ? (
+          search.isPending && !problems && <ResultSkeletons />
+        ) : board.length === 0 ? (
+          search.isPlaceholderData ? (
+            <ResultSkeletons />
+          ) : (
+            <NoResults state={state} units={units} />
+          )
+        ) : (
+          <div className={`space-y-4 transition-opacity ${search.isPlaceholderData ? 'opacity-60' : ''}`}>
+            {view === 'board' && (
+              <ol className="space-y-3" aria-label="Studios found">
+                {board.map((card) => (
+                  <li key={card.studio.id} className="min-w-0">
+                    <StudioCard
+                      card={card}
+                      units={units}
+                      ownPiece={response.piece !== null}
+                      onShowOnMap={() => showOnMap(card.studio.id)}
+                    />
+                  </li>
+                ))}
+              </ol>
+            )}
+            {view === 'weeks' && <WeekBoard studios={board} units={units} />}
+            {view === 'map' && (
+              <div ref={chosenCard}>
+                {chosen ? (
+                  <StudioCard card={chosen} units={units} ownPiece={response.piece !== null} selected />
+                ) : (
+                  <p className="rounded-card border border-dashed border-slip-300 p-4 text-sm text-slip-600" data-testid="map-pick-hint">
+                    Pick a studio’s tag on the map to see its firings here.
+                  </p>
+                )}
+              </div>
+            )}
+            <Pagination state={state} total={response.total} page={response.page} perPage={response.perPage} onSearch={onSearch} />
+          </div>
+        )}
+      </section>
     </>
   )
 }

@@ -64,7 +64,7 @@ export interface PriceListAnswer {
   examplePrices: ExamplePrice[]
 }
 
-/** The kiln's price list, or null when the host has not set one yet. */
+/** The kiln's price list, or null when the studio has not set one yet. */
 export function usePriceList(kilnId: string | undefined) {
   return useQuery({
     queryKey: studioKeys.kilns.priceList(kilnId ?? ''),

@@ -76,7 +76,7 @@ function FiringDetails({ firing, zone, onCancel }: { firing: FiringRecord; zone:
         )}
         {firing.cancelledReason && (
           <>
-            <dt className="font-medium text-slip-600">Cancelled because</dt>
+            <dt className="font-medium text-slip-600">Called off because</dt>
             <dd>{firing.cancelledReason}</dd>
           </>
         )}
@@ -86,7 +86,7 @@ function FiringDetails({ firing, zone, onCancel }: { firing: FiringRecord; zone:
           <p className="flex-1 text-sm text-slip-700">
             {wareIsLoaded(firing.status)
               ? 'Times, peak and witness cones for every potter in this firing.'
-              : 'The log of the firing and the requests in it, from check-in to results.'}
+              : 'The log of the firing and the ware in it, from drop-off to results.'}
           </p>
           <ButtonLink to={`/firings/${firing.id}/log`} variant="secondary" size="sm">
             Firing log
@@ -103,7 +103,7 @@ function FiringDetails({ firing, zone, onCancel }: { firing: FiringRecord; zone:
                 onClick={onCancel}
                 className="rounded-control px-3 py-1.5 text-sm font-semibold text-danger-700 hover:bg-danger-50"
               >
-                Cancel this firing…
+                Call this firing off…
               </button>
             )}
           </FiringStatusButtons>
@@ -129,10 +129,10 @@ function CancelFiring({ firing, onDone }: { firing: FiringRecord; onDone: () => 
     const told = cancel.data.cancelledRequests
     return (
       <div className="space-y-3">
-        <Alert tone="success" title="Firing cancelled">
+        <Alert tone="success" title="Firing called off">
           {told === 0
-            ? 'No requests were holding space in it.'
-            : `${told} ${told === 1 ? 'request was' : 'requests were'} cancelled; the potters are told by mail.`}
+            ? 'No one was holding space in it.'
+            : `${told} ${told === 1 ? 'potter’s place was' : 'potters’ places were'} called off; the potters are told by mail.`}
         </Alert>
         <Button variant="secondary" onClick={onDone}>
           Back to the firing
@@ -152,12 +152,12 @@ function CancelFiring({ firing, onDone }: { firing: FiringRecord; onDone: () => 
     <form onSubmit={onSubmit} noValidate className="space-y-4">
       <Alert tone="warning" title="Potters holding space are told by mail">
         {firing.space.shelvesTaken > 0
-          ? `Requests hold ${formatShelves(firing.space.shelvesTaken)} in this firing. Each potter gets a mail with your reason, and paid deposits are refunded.`
-          : 'No space is held yet, but anyone with a request in this firing gets a mail with your reason.'}
+          ? `Potters hold ${formatShelves(firing.space.shelvesTaken)} in this firing. Each gets a mail with your reason, and paid deposits are refunded.`
+          : 'No space is held yet, but anyone who asked for space in this firing gets a mail with your reason.'}
       </Alert>
       {formError && <Alert tone="danger">{formError}</Alert>}
       <Field
-        label="Why is it cancelled?"
+        label="Why is it called off?"
         hint="Potters read this, e.g. “An element failed; the next firing is on the 14th.”"
         error={formState.errors.reason?.message}
       >
@@ -168,7 +168,7 @@ function CancelFiring({ firing, onDone }: { firing: FiringRecord; onDone: () => 
           Keep the firing
         </Button>
         <Button type="submit" variant="danger" busy={formState.isSubmitting}>
-          Cancel the firing
+          Call the firing off
         </Button>
       </div>
     </form>

@@ -3,7 +3,7 @@ import { useMemo, useState } from 'react'
 import { useForm, useWatch } from 'react-hook-form'
 import type { z } from 'zod'
 import { CONES, coneIndex } from '../../../../shared/firing/cones'
-import { formatDate } from '../../../../shared/dates'
+import { formatDate, zoneName } from '../../../../shared/dates'
 import { firingCreateSchema } from '../../../../shared/schemas/studios'
 import { Alert } from '../../../components/ui/Alert'
 import { Button } from '../../../components/ui/Button'
@@ -166,9 +166,9 @@ export function FiringForm({ studioId, zone, kilns, onCreated, onCancel }: Firin
       <div className="grid gap-4 sm:grid-cols-3">
         <ZonedDateTimeField control={control} name="dropOffBy" label="Drop-off closes" zone={zone} />
         <ZonedDateTimeField control={control} name="firingDate" label="Firing starts" zone={zone} />
-        <ZonedDateTimeField control={control} name="readyBy" label="Ready to collect" zone={zone} />
+        <ZonedDateTimeField control={control} name="readyBy" label="Ready for pickup" zone={zone} />
       </div>
-      <p className="-mt-2 text-xs text-slip-500">Times are the studio’s ({zone}), whatever zone your device is set to.</p>
+      <p className="-mt-2 text-xs text-slip-500">Times are the studio’s ({zoneName(zone)}), whatever zone your device is set to.</p>
       <Field
         label="Layers on sale"
         hint="Leave empty to offer every layer the kiln’s shelves make; the load plan works out the space from its shelves and posts."

@@ -1,3 +1,4 @@
+import { zoneName } from '../../../../shared/dates'
 import { useState } from 'react'
 import { useFieldArray, useForm, useWatch, type Control, type Path } from 'react-hook-form'
 import { parseCone, type Cone } from '../../../../shared/firing/cones'
@@ -147,7 +148,7 @@ export function FiringLogForm({ firingId, log, zone, units, plan, firingCone }: 
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-6" aria-label="Firing log" data-testid="firing-log-form">
       <ConeSuggestions />
-      <FormSection title="Times" lead={`In the studio’s time (${zone.replace(/_/g, ' ')}). “Now” fills in this moment.`}>
+      <FormSection title="Times" lead={`In the studio’s time (${zoneName(zone)}). “Now” fills in this moment.`}>
         <div className="grid gap-4 sm:grid-cols-2">
           {TIMES.map((time) => (
             <div key={time.name} className="space-y-1">

@@ -31,10 +31,13 @@ export function FiringMonth({ grid, firings, zone, kilnName, onOpen, today }: Fi
       onClick={() => onOpen(firing)}
       data-testid="calendar-firing"
       className={`block w-full rounded-control border px-1.5 py-1 text-left text-xs hover:border-clay-400 ${firing.status === 'cancelled' ? 'border-slip-200 bg-slip-100 text-slip-500 line-through' : 'border-clay-200 bg-clay-50 text-clay-900'}`}
-      aria-label={`${kilnName(firing.kilnId)}, cone ${firing.cone} ${firing.kind}, ${formatDateTime(firing.firingDate, zone)}`}
     >
-      <span className="font-semibold">{time(firing.firingDate, zone)}</span> ^{firing.cone} {firing.kind}
+      {/* The name read aloud is the text seen, with the cone and the full date spelled out for a screen reader. */}
+      <span className="font-semibold">{time(firing.firingDate, zone)}</span> <span aria-hidden>^</span>
+      <span className="sr-only">cone </span>
+      {firing.cone} {firing.kind}
       <span className="block truncate text-slip-600">{kilnName(firing.kilnId)}</span>
+      <span className="sr-only">, {formatDateTime(firing.firingDate, zone)}</span>
     </button>
   )
   const daysWithFirings = grid.weeks.flat().filter((d) => d.inMonth && byDay.has(d.key))
@@ -63,7 +66,7 @@ export function FiringMonth({ grid, firings, zone, kilnName, onOpen, today }: Fi
                 {week.map((day) => (
                   <td
                     key={day.key}
-                    className={`h-28 border border-slip-100 p-1 align-top ${day.inMonth ? '' : 'bg-slip-50 text-slip-400'}`}
+                    className={`h-28 border border-slip-100 p-1 align-top ${day.inMonth ? '' : 'bg-slip-50 text-slip-500'}`}
                   >
                     <span
                       className={`mb-1 inline-flex size-6 items-center justify-center rounded-full text-xs font-semibold ${day.key === today ? 'bg-clay-600 text-white' : ''}`}

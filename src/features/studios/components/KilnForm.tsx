@@ -59,7 +59,7 @@ export function KilnForm({ defaultValues, initialUnits, submitLabel, onSubmit, r
 
   const chooseShape = (next: 'round' | 'box') => {
     const heightMm = getValues('interior.heightMm')
-    // The other shape's sizes are dropped; the sizes of the new one start empty for the host to fill.
+    // The other shape's sizes are dropped; the sizes of the new one start empty for the owner to fill.
     const interior = next === 'round' ? { shape: 'round', heightMm } : { shape: 'box', heightMm }
     setValue('interior', interior as KilnInput['interior'], { shouldDirty: true })
   }

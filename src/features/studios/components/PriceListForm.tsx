@@ -107,7 +107,7 @@ export function PriceListForm({ kiln, priceList, currency, units, readOnly, onSa
   })
 
   return (
-    <form onSubmit={submit} noValidate aria-label="Price list" className="grid gap-6 lg:grid-cols-[1fr_20rem]">
+    <form onSubmit={submit} noValidate aria-label="Price list" className="grid grid-cols-1 gap-6 lg:grid-cols-[minmax(0,1fr)_20rem]">
       <fieldset disabled={readOnly} className="space-y-4" data-testid="price-list-fields" data-read-only={readOnly ? 'true' : 'false'}>
         {readOnly && (
           <Alert tone="info" title="Prices are the owner’s to set">
@@ -201,7 +201,7 @@ export function PriceListForm({ kiln, priceList, currency, units, readOnly, onSa
           </div>
         </fieldset>
         <fieldset>
-          <legend className="mb-2 text-sm font-medium text-slip-800">Deposit when a request is accepted</legend>
+          <legend className="mb-2 text-sm font-medium text-slip-800">Deposit when you take ware on</legend>
           <div className="grid gap-4 sm:grid-cols-2">
             <Field label="Deposit is">
               {(a11y) => (

@@ -10,6 +10,7 @@ export function StudioNav({ studioId, role }: { studioId: string; role: StudioRo
       ? [
           { to: `/studios/${studioId}/edit`, label: 'Studio settings', end: true },
           { to: `/studios/${studioId}/crew`, label: 'Crew', end: true },
+          { to: `/studios/${studioId}/money`, label: 'Money', end: true },
         ]
       : []),
     { to: `/studios/${studioId}`, label: 'Public page', end: true },

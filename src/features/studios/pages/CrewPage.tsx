@@ -68,10 +68,10 @@ function Crew({ studio }: { studio: MemberStudio }) {
     <>
       <PageHeader
         title="Crew"
-        lead={`${studio.name}. Crew post firings and move them along; prices, kilns’ limits, policies and members stay with you.`}
+        lead={`${studio.name}. Crew post firings and move them along; prices, kilns’ limits, your terms and members stay with you.`}
       />
       <StudioNav studioId={studio.id} role="owner" />
-      <div className="grid gap-6 lg:grid-cols-[1fr_22rem]">
+      <div className="grid grid-cols-1 gap-6 lg:grid-cols-[minmax(0,1fr)_22rem]">
         <div className="space-y-6">
           {crew.isPending ? (
             <Spinner label="Loading the crew…" />

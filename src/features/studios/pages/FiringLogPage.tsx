@@ -32,7 +32,7 @@ export function FiringLogPage() {
   if (!isMemberView(studio.data)) {
     return (
       <Alert tone="warning" title="The firing log is kept by the studio’s own people">
-        Potters see the log on their request once the studio has written it.
+        Potters see the log on their ware’s page once the studio has written it.
       </Alert>
     )
   }
@@ -67,12 +67,14 @@ function FiringWorkbench({ firing, studio }: { firing: FiringRecord; studio: Mem
               Status <FiringStatusBadge status={firing.status} />
             </h2>
             {firing.status === 'cancelled' ? (
-              <p className="text-sm text-slip-600">Cancelled{firing.cancelledReason ? `: ${firing.cancelledReason}` : '.'}</p>
+              <p className="text-sm text-slip-600">Called off{firing.cancelledReason ? `: ${firing.cancelledReason}` : '.'}</p>
             ) : (
               <div className="space-y-2">
                 {/* Also when nothing comes next: the last move may still be undone. */}
                 {(firing.nextStatuses.some((s) => s !== 'cancelled') || firing.undo) && <FiringStatusButtons firing={firing} />}
-                {firing.status === 'unloaded' && <p className="text-sm text-slip-600">Unloaded: post the results on each request below.</p>}
+                {firing.status === 'unloaded' && (
+                  <p className="text-sm text-slip-600">Unloaded: post the results for each potter’s ware below.</p>
+                )}
               </div>
             )}
             <div className="mt-4">
@@ -100,7 +102,7 @@ function FiringWorkbench({ firing, studio }: { firing: FiringRecord; studio: Mem
 
         <aside className="min-w-0 space-y-6 lg:col-start-2 lg:row-start-2">
           <Card>
-            <h2 className="mb-3 text-lg font-semibold">Requests in this firing</h2>
+            <h2 className="mb-3 text-lg font-semibold">Ware in this firing</h2>
             <FiringRequests firingId={firing.id} />
           </Card>
         </aside>
@@ -125,7 +127,7 @@ function FiringRequests({ firingId }: { firingId: string }) {
   if (requests.isPending) return <Spinner label="Loading the requests…" />
   if (requests.isError) return <ApiProblem error={requests.error} what="the requests" onRetry={() => requests.refetch()} />
   const shown = requests.data.filter((r) => IN_THE_KILN.has(r.state) || r.state === 'accepted')
-  if (shown.length === 0) return <EmptyState title="No ware booked in this firing" />
+  if (shown.length === 0) return <EmptyState title="No ware in this firing" />
   return (
     <ul className="divide-y divide-slip-100" data-testid="firing-requests">
       {shown.map((request) => (
@@ -138,7 +140,7 @@ function FiringRequests({ firingId }: { firingId: string }) {
 function FiringRequestRow({ request }: { request: FiringRequestLine }) {
   const todo =
     request.state === 'deposit_paid'
-      ? 'Check in'
+      ? 'Take the ware in'
       : request.state === 'fired'
         ? 'Post results'
         : request.state === 'accepted'

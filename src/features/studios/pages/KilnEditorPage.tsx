@@ -48,7 +48,7 @@ export function NewKilnPage() {
   if (!isMemberView(found) || found.myRole !== 'owner') {
     return (
       <Alert tone="warning" title="Only the studio’s owner adds kilns">
-        Crew can post firings in the kilns the owner has listed.
+        Crew can post firings in the kilns the owner has added.
       </Alert>
     )
   }

@@ -9,7 +9,7 @@ import { ApiProblem } from '../components/ApiProblem'
 import { KilnGate, KilnTitle } from '../components/KilnGate'
 import { PriceListForm } from '../components/PriceListForm'
 import { StudioNav } from '../components/StudioNav'
-import { formatRate, formatSpace, formatTemperature, scaleOf, type UnitSystem } from '../../../lib/units'
+import { formatRate, formatVolume, formatTemperature, scaleOf, type UnitSystem } from '../../../lib/units'
 import { kilnLimitsInWords } from '../../../lib/firingWords'
 
 /** /kilns/:id: the kiln in plain words and its price list (the owner edits it, crew read it). */
@@ -42,7 +42,7 @@ function KilnOverview({ kiln, studio }: { kiln: KilnRecord; studio: MemberStudio
         </p>
         <p className="mt-1 text-sm text-slip-600">
           Tops out at {formatTemperature(kiln.maxTempC, scaleOf(units))}, climbs at most {formatRate(kiln.maxRampCPerHour, scaleOf(units))};
-          holds about {formatSpace(kiln.volumeL, units)}.{kiln.preheatHold ? ' Can candle.' : ''}
+          holds about {formatVolume(kiln.volumeL, units)}.{kiln.preheatHold ? ' Can candle.' : ''}
           {kiln.controlledCooling ? ' Can slow cool.' : ''}
         </p>
       </Card>

@@ -1,3 +1,4 @@
+import { zoneName } from '../../../../shared/dates'
 import { useState } from 'react'
 import { Link } from 'react-router-dom'
 import { Alert } from '../../../components/ui/Alert'
@@ -22,14 +23,15 @@ import { useSelectedFiring } from '../hooks/useSelectedFiring'
 /** How many upcoming firings each studio shows here; the calendar has the rest. */
 const UPCOMING_SHOWN = 8
 
-/** The host's and crew's home: each studio's coming firings, how full they are, and what to do next. */
+/** The studio owner's and crew's home: each studio's coming firings, how full they are, and what to do next. */
 export function KilnRoomPage() {
   const me = useMe()
   const studios = useMyStudios()
   const [adding, setAdding] = useState(false)
   const [justCreated, setJustCreated] = useState<string | null>(null)
   const user = me.data
-  const isHost = user?.role === 'host' || user?.role === 'admin'
+  // The stored role value for a studio owner is 'host'.
+  const isStudioOwner = user?.role === 'host' || user?.role === 'admin'
 
   return (
     <>
@@ -37,7 +39,7 @@ export function KilnRoomPage() {
         title="Kiln room"
         lead={`Welcome, ${user?.displayName ?? ''}. Your studios’ coming firings and how full they are.`}
         actions={
-          isHost && studios.data && studios.data.length > 0 && !adding ? (
+          isStudioOwner && studios.data && studios.data.length > 0 && !adding ? (
             <Button variant="secondary" onClick={() => setAdding(true)}>
               Add another studio
             </Button>
@@ -56,7 +58,7 @@ export function KilnRoomPage() {
             </Alert>
           )}
           {(studios.data.length === 0 || adding) &&
-            (isHost ? (
+            (isStudioOwner ? (
               <Card className="max-w-xl">
                 <h2 className="text-lg font-semibold">Set up your studio</h2>
                 <p className="mt-1 text-sm text-slip-600">
@@ -106,7 +108,7 @@ function StudioPanel({ studio }: { studio: MemberStudio }) {
         className="text-sm font-semibold text-clay-700 hover:underline"
         data-testid="waiting-requests"
       >
-        {count} {count === 1 ? 'request' : 'requests'} waiting
+        {count} {count === 1 ? 'ask' : 'asks'} waiting
       </Link>
     ) : null
   }
@@ -123,7 +125,7 @@ function StudioPanel({ studio }: { studio: MemberStudio }) {
             {studio.verified && <Badge tone="clay">Verified</Badge>}
             <Badge>{isOwner ? 'Owner' : 'Crew'}</Badge>
             <span>
-              {[studio.city, studio.region].filter(Boolean).join(', ')} · times in {studio.timezone}
+              {[studio.city, studio.region].filter(Boolean).join(', ')} · times in {zoneName(studio.timezone)}
             </span>
           </div>
         </div>
@@ -132,7 +134,7 @@ function StudioPanel({ studio }: { studio: MemberStudio }) {
             Post a firing
           </Button>
           <ButtonLink to={`/studios/${studio.id}/requests`} variant="secondary">
-            Requests{waiting.data && waiting.data.total > 0 ? ` (${waiting.data.total} waiting)` : ''}
+            Asks{waiting.data && waiting.data.total > 0 ? ` (${waiting.data.total} waiting)` : ''}
           </ButtonLink>
           <ButtonLink to={`/studios/${studio.id}/calendar`} variant="secondary">
             Open calendar
@@ -172,7 +174,7 @@ function StudioPanel({ studio }: { studio: MemberStudio }) {
         </Alert>
       )}
 
-      <div className="grid gap-4 lg:grid-cols-[1fr_18rem]">
+      <div className="grid grid-cols-1 gap-4 lg:grid-cols-[minmax(0,1fr)_18rem]">
         <div className="space-y-2">
           <h3 className="text-sm font-semibold uppercase tracking-wide text-slip-600">Coming firings</h3>
           {firings.isPending ? (
@@ -192,7 +194,7 @@ function StudioPanel({ studio }: { studio: MemberStudio }) {
             >
               {liveKilns.length === 0
                 ? 'Add a kiln first; firings are posted per kiln.'
-                : 'Post one, or a repeating series, for potters to book space in.'}
+                : 'Post one, or a repeating series, for potters to ask for space in.'}
             </EmptyState>
           ) : (
             <>
@@ -243,7 +245,13 @@ function StudioPanel({ studio }: { studio: MemberStudio }) {
         </Card>
       </div>
 
-      <Dialog open={posting} onClose={() => setPosting(false)} title="Post a firing" description={`Times in ${studio.timezone}.`} size="lg">
+      <Dialog
+        open={posting}
+        onClose={() => setPosting(false)}
+        title="Post a firing"
+        description={`Times in ${zoneName(studio.timezone)}.`}
+        size="lg"
+      >
         <FiringForm
           studioId={studio.id}
           zone={studio.timezone}

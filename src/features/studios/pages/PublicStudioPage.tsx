@@ -17,7 +17,7 @@ import { isMemberView, type FiringRecord, type KilnWithPrices, type Studio } fro
 import { ApiProblem } from '../components/ApiProblem'
 import { FiringRows } from '../components/FiringRows'
 import { StudioNav } from '../components/StudioNav'
-import { RatingSummary, StudioRatings } from '../components/StudioRatings'
+import { FireAgainSummary, StudioReviews } from '../components/StudioReviews'
 import type { UnitSystem } from '../../../lib/units'
 import { kilnLimitsInWords, policiesInWords } from '../../../lib/firingWords'
 import { zoneAbbreviation } from '../zonedTime'
@@ -25,7 +25,7 @@ import { zoneAbbreviation } from '../zonedTime'
 // Leaflet and the basemap come after the studio's own details.
 const PlaceMap = lazy(() => import('../../../components/map/PlaceMap').then((m) => ({ default: m.PlaceMap })))
 
-/** /studios/:id: what a potter needs to choose this studio: kilns, coming firings, policies, prices, place. */
+/** /studios/:id: what a potter needs to choose this studio: kilns, coming firings, terms, prices, place. */
 export function PublicStudioPage() {
   const { id = '' } = useParams()
   const studio = useStudio(id)
@@ -53,9 +53,9 @@ function StudioProfile({ studio }: { studio: Studio }) {
       <ButtonLink
         to={`/firings/${firing.id}/request`}
         size="sm"
-        aria-label={`Request space in the firing on ${formatDateTime(firing.firingDate, zone)}`}
+        aria-label={`Ask for space in the firing on ${formatDateTime(firing.firingDate, zone)}`}
       >
-        Request space
+        Ask for space
       </ButtonLink>
     ) : null
 
@@ -80,12 +80,12 @@ function StudioProfile({ studio }: { studio: Studio }) {
         </div>
         <p className="mt-1 text-slip-600">{place || studio.country}</p>
         <div className="mt-2">
-          <RatingSummary studioId={studio.id} />
+          <FireAgainSummary studioId={studio.id} />
         </div>
         {studio.description && <p className="mt-4 max-w-3xl whitespace-pre-line text-slip-800">{studio.description}</p>}
       </header>
 
-      <div className="grid gap-8 lg:grid-cols-[1fr_22rem]">
+      <div className="grid grid-cols-1 gap-8 lg:grid-cols-[minmax(0,1fr)_22rem]">
         <section aria-labelledby="firings-heading" className="space-y-3">
           <div className="flex flex-wrap items-baseline justify-between gap-2">
             <h2 id="firings-heading" className="text-xl font-bold tracking-tight">
@@ -118,8 +118,8 @@ function StudioProfile({ studio }: { studio: Studio }) {
           </Suspense>
           <Card as="div">
             <h2 className="font-semibold">Drop-off</h2>
-            <p className="mt-1 text-sm text-slip-700">{studio.dropOffHours || 'Hours are given when your request is accepted.'}</p>
-            <p className="mt-2 text-xs text-slip-500">The street address is shared once a request is accepted.</p>
+            <p className="mt-1 text-sm text-slip-700">{studio.dropOffHours || 'Hours are given once the studio takes your ware on.'}</p>
+            <p className="mt-2 text-xs text-slip-500">The street address is shared once the studio takes your ware on.</p>
           </Card>
           <Card as="div">
             <h2 className="font-semibold">Firing calendar</h2>
@@ -150,7 +150,7 @@ function StudioProfile({ studio }: { studio: Studio }) {
         ) : kilns.isError ? (
           <ApiProblem error={kilns.error} what="the kilns" />
         ) : kilns.data.length === 0 ? (
-          <EmptyState title="No kilns listed yet" />
+          <EmptyState title="No kilns added yet" />
         ) : (
           <>
             <ul className="grid gap-3 md:grid-cols-2">
@@ -171,11 +171,11 @@ function StudioProfile({ studio }: { studio: Studio }) {
         )}
       </section>
 
-      <StudioRatings studioId={studio.id} zone={zone} />
+      <StudioReviews studioId={studio.id} zone={zone} />
 
       <section aria-labelledby="policies-heading" className="space-y-3">
         <h2 id="policies-heading" className="text-xl font-bold tracking-tight">
-          Policies
+          The studio’s terms
         </h2>
         <Card>
           <ul className="list-disc space-y-1 pl-5 text-sm text-slip-800" data-testid="policies">
@@ -198,7 +198,7 @@ function StudioProfile({ studio }: { studio: Studio }) {
 /** The same reference pieces priced in every kiln, so studios and pricing models compare at a glance. */
 function ExamplePrices({ kilns }: { kilns: KilnWithPrices[] }) {
   const priced = kilns.filter((k) => k.examplePrices.length > 0)
-  if (priced.length === 0) return <p className="text-sm text-slip-600">Prices are given on request.</p>
+  if (priced.length === 0) return <p className="text-sm text-slip-600">No price list yet: ask the studio.</p>
   const pieces = priced[0].examplePrices.map((e) => e.label)
   return (
     <div className="space-y-2">

@@ -1,3 +1,4 @@
+import { zoneCity, zoneName } from '../../../../shared/dates'
 import { zodResolver } from '@hookform/resolvers/zod'
 import { lazy, Suspense, useMemo, useState } from 'react'
 import { useForm, useWatch, type FieldNamesMarkedBoolean } from 'react-hook-form'
@@ -74,7 +75,7 @@ export function StudioEditorPage() {
         <PageHeader title={found.name} />
         {isMemberView(found) && <StudioNav studioId={found.id} role={found.myRole} />}
         <Alert tone="warning" title="Only the studio’s owner changes its settings">
-          Crew run the firing calendar; the owner sets the studio’s address, policies and prices.
+          Crew run the firing calendar; the owner sets the studio’s address, terms and prices.
         </Alert>
       </>
     )
@@ -149,7 +150,7 @@ function StudioEditor({ studio }: { studio: MemberStudio }) {
                   <Select {...a11y} {...register('timezone')}>
                     {zones.map((zone) => (
                       <option key={zone} value={zone}>
-                        {zone.replace(/_/g, ' ')}
+                        {zoneName(zone)} ({zoneCity(zone)})
                       </option>
                     ))}
                   </Select>
@@ -173,7 +174,7 @@ function StudioEditor({ studio }: { studio: MemberStudio }) {
         <Card>
           <h2 className="mb-1 font-semibold">Where it is</h2>
           <p className="mb-4 text-sm text-slip-600">
-            Potters see the town and the pin; the street address is shown only once their request is accepted.
+            Potters see the town and the pin; the street address is shown only once you take their ware on.
           </p>
           <div className="grid gap-4 sm:grid-cols-[1fr_10rem]">
             <Field
@@ -209,10 +210,10 @@ function StudioEditor({ studio }: { studio: MemberStudio }) {
         </Card>
 
         <Card>
-          <h2 className="mb-4 font-semibold">Policies</h2>
+          <h2 className="mb-4 font-semibold">Your terms</h2>
           <div className="space-y-5">
             <fieldset>
-              <legend className="mb-2 text-sm font-medium text-slip-800">Clay bodies you accept</legend>
+              <legend className="mb-2 text-sm font-medium text-slip-800">Clay bodies you take</legend>
               <div className="flex flex-wrap gap-4">
                 {CLAY_BODIES.map((body) => (
                   <Checkbox key={body} label={CLAY_BODY_LABELS[body]} value={body} {...register('policies.clayBodies')} />
@@ -232,10 +233,10 @@ function StudioEditor({ studio }: { studio: MemberStudio }) {
               {(a11y) => <TextArea {...a11y} rows={3} {...register('policies.wareRequirements')} />}
             </Field>
             <fieldset>
-              <legend className="mb-2 text-sm font-medium text-slip-800">Cancellation by the potter</legend>
+              <legend className="mb-2 text-sm font-medium text-slip-800">When a potter withdraws</legend>
               <div className="grid gap-4 sm:grid-cols-3">
                 <Field
-                  label="Full refund until (days before the firing)"
+                  label="Everything paid comes back until (days before the firing)"
                   error={errors.policies?.cancellation?.fullRefundDaysBefore?.message}
                 >
                   {(a11y) => (
@@ -249,7 +250,7 @@ function StudioEditor({ studio }: { studio: MemberStudio }) {
                     />
                   )}
                 </Field>
-                <Field label="Refund after that (%)" error={errors.policies?.cancellation?.laterRefundPercent?.message}>
+                <Field label="Share that comes back after that (%)" error={errors.policies?.cancellation?.laterRefundPercent?.message}>
                   {(a11y) => (
                     <TextInput
                       {...a11y}
@@ -263,7 +264,7 @@ function StudioEditor({ studio }: { studio: MemberStudio }) {
                 </Field>
                 <Field
                   label="Deposit hold (hours)"
-                  hint="How long an accepted request waits for its deposit."
+                  hint="How long ware you take on waits for its deposit before the space comes back to you."
                   error={errors.policies?.depositHoldHours?.message}
                 >
                   {(a11y) => (
@@ -283,7 +284,7 @@ function StudioEditor({ studio }: { studio: MemberStudio }) {
         </Card>
 
         <Card>
-          <h2 className="mb-3 font-semibold">Listing</h2>
+          <h2 className="mb-3 font-semibold">On Conewright</h2>
           <Checkbox label="Published: potters can find this studio, its kilns and firings" {...register('published')} />
           <p className="mt-2 text-xs text-slip-500">A draft is seen only by you and your crew.</p>
         </Card>
