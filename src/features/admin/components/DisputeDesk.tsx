@@ -75,8 +75,9 @@ function ResultsEvidence({ view }: { view: RequestView }) {
     <div className="space-y-1 text-sm text-slip-800">
       <ul className="list-disc pl-5">
         {results.outcomes.map((outcome) => (
-          <li key={outcome.pieceIndex}>
-            {pieceName(view, outcome.pieceIndex)}: <strong className="font-semibold">{OUTCOME_WORDS[outcome.outcome]}</strong>
+          <li key={outcome.pieceId}>
+            {pieceName(view, outcome.pieceIndex)} ({outcome.tag}):{' '}
+            <strong className="font-semibold">{OUTCOME_WORDS[outcome.outcome]}</strong>
             {outcome.notes && ` — ${outcome.notes}`}
           </li>
         ))}
