@@ -99,6 +99,20 @@ describe('bad input gets 400 with field messages', () => {
   })
 })
 
+describe('pricing by the layer', () => {
+  it('keeps a per-layer price list and gives it back as written', async () => {
+    const before = await owner.session.get(`/api/kilns/${ids.kilnId}/price-list`)
+    const layer = { currency: 'USD', model: 'layer', layerCents: 4000, deposit: { percent: 20 } }
+    const put = await owner.session.put(`/api/kilns/${ids.kilnId}/price-list`, layer)
+    expect(put.status).toBe(200)
+    const read = await owner.session.get(`/api/kilns/${ids.kilnId}/price-list`)
+    expect(read.body.priceList).toMatchObject({ model: 'layer', layerCents: 4000 })
+    // The later tests quote against the kiln's first price list.
+    if (before.status === 200)
+      expect((await owner.session.put(`/api/kilns/${ids.kilnId}/price-list`, before.body.priceList)).status).toBe(200)
+  })
+})
+
 describe('the database refuses what must never hold', () => {
   it.each([
     ['a reversed cone range', `UPDATE kilns SET min_cone = '10', max_cone = '04' WHERE id = $1`],

@@ -9,12 +9,31 @@ import { newTag } from '../../../shared/firing/tags'
  *
  * - ware already checked in becomes piece records, one per piece received, each with a fresh tag;
  * - the per-line outcomes of posted results move onto those pieces, and the line list is dropped;
- * - search documents are derived, so they are emptied here and rebuilt on the next start.
+ * - search documents are derived, so they are emptied here and rebuilt on the next start;
+ * - price lists may price by the layer (layer_cents); going down, a layer price becomes a shelf price.
  */
 export class LoadPiecesAndPlans1796175115835 implements MigrationInterface {
   name = 'LoadPiecesAndPlans1796175115835'
 
   public async up(queryRunner: QueryRunner): Promise<void> {
+    await queryRunner.query(`
+            ALTER TABLE "kiln_price_lists"
+            ADD "layer_cents" integer
+        `)
+    await queryRunner.query(`
+            ALTER TABLE "kiln_price_lists"
+            ADD CONSTRAINT "kiln_price_lists_layer_cents_check" CHECK (
+                    "layer_cents" IS NULL
+                    OR "layer_cents" >= 0
+                )
+        `)
+    await queryRunner.query(`
+            ALTER TABLE "kiln_price_lists" DROP CONSTRAINT "kiln_price_lists_model_check"
+        `)
+    await queryRunner.query(`
+            ALTER TABLE "kiln_price_lists"
+            ADD CONSTRAINT "kiln_price_lists_model_check" CHECK ("model" IN ('volume', 'shelf', 'layer', 'kiln'))
+        `)
     await queryRunner.query(`
             CREATE TABLE "firing_load_plans" (
                 "firing_id" uuid NOT NULL,
@@ -205,6 +224,23 @@ export class LoadPiecesAndPlans1796175115835 implements MigrationInterface {
   }
 
   public async down(queryRunner: QueryRunner): Promise<void> {
+    await queryRunner.query(`
+            UPDATE "kiln_price_lists" SET "model" = 'shelf', "shelf_cents" = coalesce("shelf_cents", "layer_cents")
+            WHERE "model" = 'layer'
+        `)
+    await queryRunner.query(`
+            ALTER TABLE "kiln_price_lists" DROP CONSTRAINT "kiln_price_lists_model_check"
+        `)
+    await queryRunner.query(`
+            ALTER TABLE "kiln_price_lists"
+            ADD CONSTRAINT "kiln_price_lists_model_check" CHECK ("model" IN ('volume', 'shelf', 'kiln'))
+        `)
+    await queryRunner.query(`
+            ALTER TABLE "kiln_price_lists" DROP CONSTRAINT "kiln_price_lists_layer_cents_check"
+        `)
+    await queryRunner.query(`
+            ALTER TABLE "kiln_price_lists" DROP COLUMN "layer_cents"
+        `)
     await queryRunner.query(`
             ALTER TABLE "request_results"
             ADD "outcomes" jsonb NOT NULL DEFAULT '[]'
