@@ -59,7 +59,11 @@ export function createApp(ctx: AppContext): App {
           // Leaflet positions its panes with inline styles.
           'style-src': ["'self'", "'unsafe-inline'"],
           'script-src': ["'self'"],
-          'connect-src': ["'self'"],
+          // PMTiles is read with ranged fetches, so a basemap file on another host is a connection.
+          'connect-src': [
+            "'self'",
+            ...(config.basemapPmtilesUrl && /^https?:/i.test(config.basemapPmtilesUrl) ? [new URL(config.basemapPmtilesUrl).origin] : []),
+          ],
           'form-action': ["'self'"],
           'upgrade-insecure-requests': config.secureCookies ? [] : null,
         },

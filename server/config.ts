@@ -29,6 +29,8 @@ export interface Config {
   meiliHost: string
   meiliApiKey: string
   tileUrl: string | null
+  /** One self-hosted PMTiles vector basemap: a path on this server or an absolute https URL. */
+  basemapPmtilesUrl: string | null
   storageDir: string
   clientDir: string
   serveClient: boolean
@@ -58,6 +60,16 @@ export const LOCAL_SECRETS = {
   stripeWebhookSecret: 'whsec_conewright_local',
   stripeConnectWebhookSecret: 'whsec_conewright_local_connect',
 } as const
+
+/** A path on this server (`/basemap/region.pmtiles`) or an absolute http(s) URL; anything else stops the start. */
+function pmtilesUrl(value: string | undefined): string | null {
+  if (!value) return null
+  if (/^\/(?!\/)/.test(value)) return value
+  if (/^https?:\/\/[^/]/i.test(value) && URL.canParse(value)) return value
+  throw new Error(
+    `BASEMAP_PMTILES_URL must be a path on this server (/basemap/region.pmtiles) or an http(s) URL, not ${JSON.stringify(value)}`,
+  )
+}
 
 function int(value: string | undefined, fallback: number): number {
   const n = value === undefined || value === '' ? NaN : Number(value)
@@ -102,6 +114,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env, overrides: Conf
     meiliHost: env.MEILI_HOST ?? 'http://127.0.0.1:4617',
     meiliApiKey: env.MEILI_API_KEY ?? 'conewright-local-search-key',
     tileUrl: env.TILE_URL ?? null,
+    basemapPmtilesUrl: pmtilesUrl(env.BASEMAP_PMTILES_URL),
     storageDir: env.STORAGE_DIR ?? path.join(repoRoot, 'var', 'storage'),
     clientDir: env.CLIENT_DIR ?? path.join(repoRoot, 'dist', 'client'),
     serveClient: env.SERVE_CLIENT !== 'false',

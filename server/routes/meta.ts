@@ -6,7 +6,8 @@ export function metaRouter(ctx: AppContext) {
 
   // Open: what the client needs to know about this installation.
   router.get('/meta', (_req, res) => {
-    res.json({ mailInboxUrl: ctx.config.mailInboxUrl, tileUrl: ctx.config.tileUrl })
+    const { mailInboxUrl, tileUrl, basemapPmtilesUrl } = ctx.config
+    res.json({ mailInboxUrl, tileUrl, basemapPmtilesUrl })
   })
 
   return router

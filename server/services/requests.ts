@@ -242,6 +242,7 @@ export async function declineRequest(ctx: AppContext, actor: User, id: string, r
       const { net } = await moneyOf(manager, id)
       await step.move('cancelled', reason, { by: 'studio', refundCents: net })
       await enqueueRefund(manager, id, net, `Cancelled by the studio: ${reason}`)
+      await recordCounterRefundDue(step, net)
       await enqueueExpireCheckouts(manager, id)
       await step.tellPotter('request-cancelled', studioCancelledMail(facts, reason, net))
       await enqueueStudioSync(manager, rc.studio.id)

@@ -5,6 +5,8 @@ import { api } from './api'
 export interface SiteMeta {
   mailInboxUrl: string | null
   tileUrl: string | null
+  /** A PMTiles vector basemap (a path here or an absolute URL); drawn before `tileUrl`. */
+  basemapPmtilesUrl: string | null
 }
 
 export function useSiteMeta() {

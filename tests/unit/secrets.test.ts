@@ -11,6 +11,7 @@ const live = {
   SESSION_SECRET: 'q'.repeat(48),
   STRIPE_SECRET_KEY: 'sk_live_abc123',
   STRIPE_WEBHOOK_SECRET: 'whsec_from_the_dashboard',
+  STRIPE_CONNECT_WEBHOOK_SECRET: 'whsec_connect_from_the_dashboard',
 }
 const problemsOf = (env: NodeJS.ProcessEnv) => secretProblems(loadConfig(env), env)
 
@@ -29,10 +30,12 @@ describe('secretProblems', () => {
       const problems = problemsOf({ ...DB, ...outside })
       expect(problems.join(' ')).toMatch(/SESSION_SECRET/)
       expect(problems.join(' ')).toMatch(/STRIPE_WEBHOOK_SECRET/)
+      expect(problems.join(' ')).toMatch(/STRIPE_CONNECT_WEBHOOK_SECRET/)
       expect(problems.join(' ')).toMatch(/STRIPE_SECRET_KEY/)
     }
     expect(problemsOf({ ...live, SESSION_SECRET: LOCAL_SECRETS.sessionSecret }).join(' ')).toMatch(/SESSION_SECRET is not set/)
     expect(problemsOf({ ...live, STRIPE_WEBHOOK_SECRET: '' }).join(' ')).toMatch(/STRIPE_WEBHOOK_SECRET is not set/)
+    expect(problemsOf({ ...live, STRIPE_CONNECT_WEBHOOK_SECRET: '' }).join(' ')).toMatch(/STRIPE_CONNECT_WEBHOOK_SECRET is not set/)
     expect(problemsOf({ ...live, SESSION_SECRET: 'short' }).join(' ')).toMatch(/too short/)
   })
 

@@ -1,6 +1,6 @@
 import 'leaflet/dist/leaflet.css'
 import { useQueries, useQueryClient } from '@tanstack/react-query'
-import type { Map as LeafletMap, PathOptions } from 'leaflet'
+import type { GridLayer, Map as LeafletMap, PathOptions } from 'leaflet'
 import { useEffect, useRef, useState, type ReactNode, type Ref } from 'react'
 import { GeoJSON, MapContainer, Pane, TileLayer, useMap, useMapEvents } from 'react-leaflet'
 import { useSiteMeta } from '../../lib/meta'
@@ -47,17 +47,26 @@ const OTHER_LAYER: PathOptions = { className: 'stroke-slip-300', weight: 1, fill
 /** Every layer the basemap has, bottom first; each gets a pane so land stays under every line. */
 const LAYER_ORDER = [...new Set(basemapIndex.tilesets.flatMap((t) => t.layers.map((l) => l.id)))]
 
+/** Which basemap an installation draws: its PMTiles file, then its tile server, then our own cells. */
+export type BasemapSource = 'pending' | 'pmtiles' | 'tiles' | 'offline'
+
+export function basemapSource(meta: { tileUrl: string | null; basemapPmtilesUrl: string | null } | undefined): BasemapSource {
+  if (!meta) return 'pending'
+  return meta.basemapPmtilesUrl ? 'pmtiles' : meta.tileUrl ? 'tiles' : 'offline'
+}
+
 /**
- * A map: tiles from `TILE_URL` when the installation has a tile server, otherwise land, borders,
- * US states and (zoomed in) counties drawn from TopoJSON shipped with the app. Nothing is fetched
- * from outside our own origin. The wrapper carries `data-testid="basemap"` and, once the basemap
- * is drawn, `data-basemap-ready="true"`.
+ * A map: the vector basemap in the PMTiles file of `BASEMAP_PMTILES_URL` when the installation has
+ * one, else tiles from `TILE_URL` when it has a tile server, otherwise land, borders, US states and
+ * (zoomed in) counties drawn from TopoJSON shipped with the app. Nothing is fetched from anywhere the
+ * installation did not name. The wrapper carries `data-testid="basemap"`, `data-basemap-source` and,
+ * once the basemap is drawn, `data-basemap-ready="true"`.
  */
 export function Basemap({ center, zoom, className = 'h-96', label = 'Map', onMoveEnd, children, ref }: BasemapProps) {
   const meta = useSiteMeta()
   const [ready, setReady] = useState(false)
-  const tileUrl = meta.isPending ? undefined : (meta.data?.tileUrl ?? null)
-  const source = tileUrl === undefined ? 'pending' : tileUrl ? 'tiles' : 'offline'
+  const source = basemapSource(meta.isPending ? undefined : { tileUrl: null, basemapPmtilesUrl: null, ...meta.data })
+  const tileUrl = meta.data?.tileUrl ?? null
 
   return (
     <div
@@ -73,7 +82,7 @@ export function Basemap({ center, zoom, className = 'h-96', label = 'Map', onMov
         center={center}
         zoom={zoom}
         minZoom={2}
-        maxZoom={tileUrl ? 18 : 16}
+        maxZoom={source === 'offline' ? 16 : 18}
         className="size-full"
         // leaflet.css paints the container grey, unlayered; an inline style beats it.
         style={{ background: 'var(--color-water-100)' }}
@@ -84,6 +93,7 @@ export function Basemap({ center, zoom, className = 'h-96', label = 'Map', onMov
         {source === 'tiles' && (
           <TileLayer url={tileUrl!} attribution={`Map tiles: ${tileHost(tileUrl!)}`} eventHandlers={{ load: () => setReady(true) }} />
         )}
+        {source === 'pmtiles' && <PmtilesBasemap url={meta.data!.basemapPmtilesUrl!} onReady={setReady} />}
         {source === 'offline' && <OfflineBasemap onReady={setReady} />}
         {source === 'offline' && <TownLabels />}
         {children}
@@ -94,6 +104,41 @@ export function Basemap({ center, zoom, className = 'h-96', label = 'Map', onMov
 
 function tileHost(url: string): string {
   return url.replace(/^[a-z]+:\/\//i, '').split('/')[0]
+}
+
+/** The vector basemap's code is fetched only by installations that have a PMTiles file. */
+function PmtilesBasemap({ url, onReady }: { url: string; onReady: (ready: boolean) => void }) {
+  const map = useMap()
+  const [failed, setFailed] = useState(false)
+  useEffect(() => {
+    let layer: GridLayer | undefined
+    let gone = false
+    import('./pmtiles-layer')
+      .then(({ pmtilesLayer }) => pmtilesLayer(url))
+      .then((made) => {
+        if (gone) return
+        layer = made.layer
+        layer.on('load', () => onReady(true))
+        layer.setZIndex(1).addTo(map)
+      })
+      .catch(() => !gone && setFailed(true))
+    return () => {
+      gone = true
+      layer?.remove()
+    }
+  }, [map, url, onReady])
+  return failed ? <MapProblem>The map could not be loaded. Pins still show where studios are.</MapProblem> : null
+}
+
+function MapProblem({ children }: { children: ReactNode }) {
+  return (
+    <p
+      role="status"
+      className="absolute inset-x-3 bottom-3 z-[1000] rounded-control border border-ember-300 bg-ember-100 px-3 py-2 text-sm text-ember-700"
+    >
+      {children}
+    </p>
+  )
 }
 
 /** MapContainer reads center and zoom once; later changes of the props move the map. */
@@ -201,14 +246,7 @@ function OfflineBasemap({ onReady }: { onReady: (ready: boolean) => void }) {
           )}
         </Pane>
       ))}
-      {cells.some((c) => c.isError) && (
-        <p
-          role="status"
-          className="absolute inset-x-3 bottom-3 z-[1000] rounded-control border border-ember-300 bg-ember-100 px-3 py-2 text-sm text-ember-700"
-        >
-          The map outline could not be loaded. Pins still show where studios are.
-        </p>
-      )}
+      {cells.some((c) => c.isError) && <MapProblem>The map outline could not be loaded. Pins still show where studios are.</MapProblem>}
     </>
   )
 }

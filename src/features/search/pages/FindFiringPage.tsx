@@ -73,7 +73,12 @@ export function FindFiringPage() {
   const fieldErrors: FieldErrors = problems ?? serverFields
   const otherProblems = Object.entries(fieldErrors).filter(([field]) => !FILTER_FIELDS.has(field))
 
-  const onSearch = useCallback((next: SearchState) => setParams(new URLSearchParams(searchString(withFilters(next, {})))), [setParams])
+  // flushSync: the page shows the new search in the same task that puts it in the URL, so a second
+  // change made at once (a quick hand, a test) builds on this one rather than on the search before it.
+  const onSearch = useCallback(
+    (next: SearchState) => setParams(new URLSearchParams(searchString(withFilters(next, {}))), { flushSync: true }),
+    [setParams],
+  )
   const onSearchArea = useCallback(
     ({ near, radiusKm }: AreaSearch) => onSearch({ ...state, place: undefined, near, radiusKm }),
     [onSearch, state],
@@ -95,7 +100,7 @@ export function FindFiringPage() {
   const chosenCard = useRef<HTMLDivElement>(null)
   const showOnMap = (studioId: string) => {
     setChosenStudioId(studioId)
-    setParams(new URLSearchParams(searchString(withView(state, 'map'))))
+    setParams(new URLSearchParams(searchString(withView(state, 'map'))), { flushSync: true })
   }
 
   const busy = search.isFetching && (search.isPlaceholderData || search.isPending)

@@ -55,7 +55,7 @@ function Calendar({ studio }: { studio: MemberStudio }) {
         next.set(key, value)
         return next
       },
-      { replace: true },
+      { replace: true, flushSync: true },
     )
 
   const grid = useMemo(() => monthGrid(month, zone), [month, zone])
