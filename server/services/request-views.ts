@@ -84,6 +84,7 @@ export async function requestJson(manager: EntityManager, rc: RequestContext, vi
       region: rc.studio.region,
       timezone: rc.studio.timezone,
       dropOffHours: rc.studio.dropOffHours,
+      dropOffChecklist: rc.studio.dropOffChecklist,
       policies: rc.studio.policies,
       policiesVersion: rc.studio.policiesVersion,
       address: showAddress ? rc.studio.addressLine : null,

@@ -4,6 +4,7 @@ import type { Finding, Piece, Verdict } from '../firing/check'
 import type { Quote } from '../firing/quote'
 import type { PieceOutcome } from '../schemas/pickup'
 import type { PieceJson } from './load'
+import type { ChecklistItem } from '../schemas/pieces'
 import type { Answer, AnswerTally, PotterQuestion } from '../reviews'
 import type { StudioPolicies } from '../schemas/studios'
 import type { RequestAction } from '../workflow/policy'
@@ -173,6 +174,8 @@ export interface RequestView {
     region: string
     timezone: string
     dropOffHours: string
+    /** What crew check on each piece at drop-off (the studio's own list). */
+    dropOffChecklist: ChecklistItem[]
     policies: StudioPolicies
     policiesVersion: number
     address: string | null

@@ -493,6 +493,25 @@ function roomForAnother(shelf: ShelfState, piece: LoadPiece, gap: number): boole
   return scanPlace(shelf.geometry, { ...shelf, rowFrom: new Map(shelf.rowFrom) }, piece, gap) !== null
 }
 
+/**
+ * A free spot for one more piece on one shelf, around the pieces standing there as they lie (crew
+ * moving a piece to another shelf by its buttons): the exact search, turned if need be; null when it
+ * does not go. The server checks the move again with the whole plan.
+ */
+export function spotOnShelf(
+  kiln: LoadKiln,
+  gapMm: number,
+  shelfIndex: number,
+  standing: Pick<PlacedPiece, 'key' | 'x' | 'y' | 'heightMm' | 'round' | 'widthMm' | 'depthMm' | 'weightKg'>[],
+  piece: LoadPiece,
+): { x: number; y: number; rotation: Rotation } | null {
+  const geometry = kiln.shelves.find((g) => g.index === shelfIndex)
+  if (!geometry || !fitsShelf(geometry, piece)) return null
+  const shelf = newShelf(geometry, gapMm, false)
+  for (const p of standing) commit(shelf, p, { x: p.x, y: p.y, rotation: 0 })
+  return placeOn(shelf, piece, gapMm)
+}
+
 // ————— The plan —————
 
 export type UnplacedReason = 'too-tall' | 'too-wide' | 'too-heavy' | 'no-room'

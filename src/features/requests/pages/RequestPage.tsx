@@ -31,6 +31,8 @@ import { RequestProblem } from '../components/RequestProblem'
 import { RequestStateBadge } from '../components/RequestStateBadge'
 import { SpaceGauge } from '../components/SpaceGauge'
 import { StudioActions } from '../components/StudioActions'
+import { TaggedPieces } from '../components/TaggedPieces'
+import { TagPieces } from '../components/TagPieces'
 import { Timeline } from '../../../components/requests/Timeline'
 import { DisputeAction } from '../components/DisputeAction'
 import { potterNextStep, studioNextStep } from '../requestWords'
@@ -295,6 +297,24 @@ function RequestDetail({ view, units, paidFor, unpaidFor, waitedOut }: DetailPro
                 After pickup
               </h2>
               <ReviewsPanel view={view} />
+            </Card>
+          )}
+
+          {view.actions.includes('tag-piece') && (
+            <Card>
+              <h2 id="tag-pieces-heading" className="mb-3 scroll-mt-4 text-lg font-semibold">
+                Check in piece by piece
+              </h2>
+              <TagPieces view={view} />
+            </Card>
+          )}
+
+          {view.pieceRecords.length > 0 && (
+            <Card>
+              <h2 id="tagged-heading" className="mb-3 text-lg font-semibold">
+                {isStudio ? 'Tagged pieces' : 'Your pieces, by their tags'}
+              </h2>
+              <TaggedPieces view={view} />
             </Card>
           )}
 

@@ -93,9 +93,23 @@ function Inbox({ studioId, firing, title, lead }: { studioId: string; firing?: F
         actions={
           <>
             {firing && (
-              <ButtonLink to={`/studios/${studioId}/requests`} variant="secondary">
-                All the studio’s asks
-              </ButtonLink>
+              <>
+                <ButtonLink to={`/firings/${firing.id}/load`}>The load</ButtonLink>
+                <a
+                  href={`/api/firings/${firing.id}/labels.html`}
+                  target="_blank"
+                  rel="noreferrer"
+                  className="focus-ring inline-flex items-center rounded-control border border-slip-300 bg-white px-4 py-2.5 text-sm font-semibold hover:bg-slip-100"
+                >
+                  Print labels
+                </a>
+                <ButtonLink to={`/firings/${firing.id}/unload`} variant="secondary">
+                  Unloading
+                </ButtonLink>
+                <ButtonLink to={`/studios/${studioId}/requests`} variant="secondary">
+                  All the studio’s asks
+                </ButtonLink>
+              </>
             )}
             <ButtonLink to="/kiln-room" variant="ghost">
               Kiln room

@@ -88,6 +88,9 @@ function FiringDetails({ firing, zone, onCancel }: { firing: FiringRecord; zone:
               ? 'Times, peak and witness cones for every potter in this firing.'
               : 'The log of the firing and the ware in it, from drop-off to results.'}
           </p>
+          <ButtonLink to={`/firings/${firing.id}/load`} variant="secondary" size="sm">
+            The load
+          </ButtonLink>
           <ButtonLink to={`/firings/${firing.id}/log`} variant="secondary" size="sm">
             Firing log
           </ButtonLink>
