@@ -6,6 +6,7 @@ import {
   piecesOfLine,
   planLoad,
   shelfShare,
+  spotOnShelf,
   type LoadKiln,
 } from '../../../shared/firing/load'
 import { MM_PER_INCH } from '../../../shared/firing/units'
@@ -146,5 +147,35 @@ describe('tag codes', () => {
     const tag = newTag(() => Uint8Array.from([1, 2, 3, 4, 5, 6, 7, 8, 9, 10, 11, 12, 13, 14, 15, 16]))
     expect(readTag(` ${tag.toLowerCase().replace('-', ' ')} `)).toEqual({ ok: true, tag })
     expect(readTag(tag.replace(/0/g, 'O'))).toEqual({ ok: true, tag })
+  })
+})
+
+describe('a crew move to another shelf', () => {
+  it('finds the spot beside one 10½ in plate on a 555 mm shelf, and none beside two (the issue’s example)', () => {
+    const kiln = oneRoundShelf(555)
+    const [first, second, third] = piecesOfLine('p:0', {
+      quantity: 3,
+      heightMm: 30,
+      widthMm: 10.5 * MM_PER_INCH,
+      depthMm: 10.5 * MM_PER_INCH,
+      round: true,
+    })
+    const spot = spotOnShelf(kiln, 13, 0, [], first)!
+    const standing = [{ ...first, ...spot }]
+    const next = spotOnShelf(kiln, 13, 0, standing, second)
+    expect(next).not.toBeNull()
+    // Where it says the piece goes, the planner lets it stand: ½ in apart (common practice) and on the shelf.
+    const plan = planLoad({
+      kiln,
+      gapMm: 13,
+      pieces: [first, second],
+      pins: [
+        { key: first.key, layer: 0, shelf: 0, ...spot },
+        { key: second.key, layer: 0, shelf: 0, ...next! },
+      ],
+      maxLayers: 1,
+    })
+    expect(plan.problems).toEqual([])
+    expect(spotOnShelf(kiln, 13, 0, [...standing, { ...second, ...next! }], third)).toBeNull()
   })
 })
