@@ -104,22 +104,22 @@ function PieceDetail({ piece, unloading }: { piece: PieceView; unloading: string
                     : 'Not placed yet.'}
               </dd>
             </div>
-            {isStudio && (
-              <div className="flex flex-wrap gap-3 pt-2">
-                <a
-                  href={`/api/firings/${piece.firing.id}/labels.html?tag=${piece.tag}`}
-                  target="_blank"
-                  rel="noreferrer"
-                  className="font-medium text-clay-700 hover:underline"
-                >
-                  Print this label
-                </a>
-                <Link to={`/firings/${piece.firing.id}/load`} className="font-medium text-clay-700 hover:underline">
-                  The load
-                </Link>
-              </div>
-            )}
           </dl>
+          {isStudio && (
+            <div className="flex flex-wrap gap-3 pt-3">
+              <a
+                href={`/api/firings/${piece.firing.id}/labels.html?tag=${piece.tag}`}
+                target="_blank"
+                rel="noreferrer"
+                className="font-medium text-clay-700 hover:underline"
+              >
+                Print this label
+              </a>
+              <Link to={`/firings/${piece.firing.id}/load`} className="font-medium text-clay-700 hover:underline">
+                The load
+              </Link>
+            </div>
+          )}
         </Card>
 
         <Card>
