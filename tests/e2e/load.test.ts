@@ -95,6 +95,11 @@ describe('the load, from drop-off to unloading', () => {
 
     for (let i = 0; i < 15; i++) {
       // The mugs come first; once all twelve are tagged the plates are the only piece left to pick.
+      if (i === 0) {
+        // The first mug came in taller than declared: measured in the owner's inches.
+        await form.getByLabel('Its size differs from what was declared').check()
+        await form.getByLabel(/^Height/).fill('4.5')
+      }
       await form.getByRole('button', { name: 'Everything passes' }).click()
       await form.getByRole('button', { name: 'Tag this piece' }).click()
       await expect.poll(() => crew.getByTestId('tagged-piece').count()).toBe(i + 1)
@@ -104,6 +109,9 @@ describe('the load, from drop-off to unloading', () => {
       tags.push(shown)
     }
     await crew.getByTestId('all-tagged').waitFor()
+    // 4.5 in = 114.3 mm (1 in = 25.4 mm, NIST SP 811); the rest keep the declared 100 mm.
+    expect((await owner.session.get(`/api/pieces/${tags[0]}`)).body.heightMm).toBeCloseTo(4.5 * 25.4, 6)
+    expect((await owner.session.get(`/api/pieces/${tags[1]}`)).body.heightMm).toBe(100)
     const listed = await crew.getByTestId('tagged-piece').evaluateAll((rows) => rows.map((r) => r.getAttribute('data-tag')))
     expect(listed.sort()).toEqual([...tags].sort())
     expect(await crew.getByTestId('tagged-pieces').textContent()).toContain('Dinner plate 3 of 3')

@@ -1,22 +1,31 @@
 import { useState, type FormEvent } from 'react'
+import { useForm } from 'react-hook-form'
 import { itemApplies, type ChecklistItem } from '../../../../shared/schemas/pieces'
 import { PhotoUploader } from '../../../components/photos/PhotoUploader'
 import { Alert } from '../../../components/ui/Alert'
 import { Button } from '../../../components/ui/Button'
-import { Field, TextInput } from '../../../components/ui/Field'
+import { Checkbox, Field, TextInput } from '../../../components/ui/Field'
+import { MeasureField } from '../../../components/ui/MeasureField'
 import { pieceName } from '../../../components/ware/CheckResults'
 import { ApiError } from '../../../lib/api'
+import { lengthMeasure, localiseMessage, type UnitSystem } from '../../../lib/units'
 import { useRefreshPhotos, useTagPiece } from '../api/pickup'
 import type { RequestView } from '../api/types'
 
 type Answers = Record<string, boolean | undefined>
+
+interface Measured {
+  heightMm: number | undefined
+  widthMm: number | undefined
+  depthMm: number | undefined
+}
 
 /**
  * Check-in piece by piece, made for a phone at the door: crew pick which declared piece is in their
  * hand, answer the studio's drop-off checklist for it, and it gets its tag at once. A failed item holds
  * that piece back (with the reason and a photo, and the potter told), never the rest of the ware.
  */
-export function TagPieces({ view }: { view: RequestView }) {
+export function TagPieces({ view, units }: { view: RequestView; units: UnitSystem }) {
   const tag = useTagPiece(view)
   const refreshPhotos = useRefreshPhotos(view.id)
   const tagged = (index: number) => view.pieceRecords.filter((p) => p.pieceIndex === index).length
@@ -29,7 +38,10 @@ export function TagPieces({ view }: { view: RequestView }) {
   const [unanswered, setUnanswered] = useState(false)
   const [last, setLast] = useState<{ tag: string; name: string; held: boolean } | null>(null)
   // The uploader is drawn afresh for each piece, so one piece's photos never show under the next.
-  const [round, setRound] = useState(0)
+  const [uploads, setUploads] = useState(0)
+  // Measured only when the piece in hand is bigger or smaller than declared; the load plans what is entered.
+  const [differs, setDiffers] = useState(false)
+  const size = useForm<Measured>({ defaultValues: { heightMm: undefined, widthMm: undefined, depthMm: undefined } })
 
   const items: ChecklistItem[] = current ? view.studio.dropOffChecklist.filter((item) => itemApplies(item, current.line)) : []
   const failed = items.filter((item) => answers[item.id] === false)
@@ -44,9 +56,20 @@ export function TagPieces({ view }: { view: RequestView }) {
       return
     }
     setUnanswered(false)
+    const measured = size.getValues()
+    const isRound = current.line.round === true
     tag.mutate(
       {
         pieceIndex: current.index,
+        ...(differs
+          ? {
+              measured: {
+                heightMm: measured.heightMm as number,
+                widthMm: measured.widthMm as number,
+                depthMm: (isRound ? measured.widthMm : measured.depthMm) as number,
+              },
+            }
+          : {}),
         checks: Object.fromEntries(items.map((item) => [item.id, answers[item.id] === true])),
         ...(failed.length && reason.trim().length >= 3 ? { holdReason: reason.trim() } : {}),
         ...(photoIds.length ? { photoIds } : {}),
@@ -57,7 +80,8 @@ export function TagPieces({ view }: { view: RequestView }) {
           setAnswers({})
           setReason('')
           setPhotoIds([])
-          setRound((r) => r + 1)
+          setDiffers(false)
+          setUploads((n) => n + 1)
           if (photoIds.length) void refreshPhotos()
         },
       },
@@ -161,6 +185,32 @@ export function TagPieces({ view }: { view: RequestView }) {
             <p className="text-sm text-slip-600">No item of the studio’s checklist applies to this piece.</p>
           )}
 
+          <div className="space-y-3">
+            <Checkbox
+              label="Its size differs from what was declared"
+              checked={differs}
+              onChange={(e) => {
+                setDiffers(e.target.checked)
+                size.reset({ heightMm: current.line.heightMm, widthMm: current.line.widthMm, depthMm: current.line.depthMm })
+              }}
+            />
+            {differs && (
+              <div className="grid grid-cols-3 gap-2">
+                <MeasureField control={size.control} name="heightMm" label="Height" measure={lengthMeasure(units)} units={units} />
+                <MeasureField
+                  control={size.control}
+                  name="widthMm"
+                  label={current.line.round ? 'Diameter' : 'Width'}
+                  measure={lengthMeasure(units)}
+                  units={units}
+                />
+                {!current.line.round && (
+                  <MeasureField control={size.control} name="depthMm" label="Depth" measure={lengthMeasure(units)} units={units} />
+                )}
+              </div>
+            )}
+          </div>
+
           {failed.length > 0 && (
             <div className="space-y-3 rounded-control border border-ember-300 bg-ember-100 p-3">
               <p className="text-sm font-medium text-ember-700">
@@ -170,7 +220,7 @@ export function TagPieces({ view }: { view: RequestView }) {
                 {(props) => <TextInput {...props} value={reason} onChange={(e) => setReason(e.target.value)} maxLength={1000} />}
               </Field>
               <PhotoUploader
-                key={round}
+                key={uploads}
                 uploadUrl={`/api/requests/${view.id}/photos`}
                 fields={{ kind: 'check-in' }}
                 label="Photo of the problem"
@@ -182,6 +232,13 @@ export function TagPieces({ view }: { view: RequestView }) {
           {tag.isError && (
             <Alert tone="danger" title="Not tagged">
               {tag.error instanceof ApiError ? tag.error.message : 'Something went wrong. Please try again.'}
+              {tag.error instanceof ApiError && Object.keys(tag.error.fields).length > 0 && (
+                <ul className="mt-1 list-disc pl-5">
+                  {Object.values(tag.error.fields).map((message) => (
+                    <li key={message}>{localiseMessage(message, units)}</li>
+                  ))}
+                </ul>
+              )}
             </Alert>
           )}
           <Button type="submit" className="min-h-12 w-full text-base" busy={tag.isPending}>

@@ -305,7 +305,7 @@ function RequestDetail({ view, units, paidFor, unpaidFor, waitedOut }: DetailPro
               <h2 id="tag-pieces-heading" className="mb-3 scroll-mt-4 text-lg font-semibold">
                 Check in piece by piece
               </h2>
-              <TagPieces view={view} />
+              <TagPieces view={view} units={units} />
             </Card>
           )}
 
