@@ -92,6 +92,7 @@ describe('the load, from drop-off to unloading', () => {
     const form = crew.getByRole('form', { name: 'Check in a piece' })
     await form.waitFor()
     expect(await sidewaysOverflow(crew)).toBe(0)
+    expect(await seriousViolations(crew)).toEqual([])
 
     for (let i = 0; i < 15; i++) {
       // The mugs come first; once all twelve are tagged the plates are the only piece left to pick.
