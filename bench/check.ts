@@ -26,7 +26,6 @@ const firing: Firing = {
   kind: 'glaze',
   cone: '6',
   atmosphere: 'oxidation',
-  remainingCapacityL: 120,
   slowCool: false,
   cooling: 'glaze-development',
   sharedLoad: true,

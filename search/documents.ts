@@ -1,7 +1,8 @@
 // The mapping from a firing, its kiln and its studio to a search document: one per open upcoming
 // firing of a published studio, carrying what a potter filters and sorts on. Pure: the server reads the
 // rows and hands them here.
-import { shelfFootprint, usableHeightMm, type Atmosphere, type Kiln as KilnSpec } from '../shared/firing/check'
+import { shelfFootprint, usableHeightMm, type Atmosphere, type FiringKind, type Kiln as KilnSpec } from '../shared/firing/check'
+import type { LoadRoom } from '../shared/firing/load'
 import { coneIndex } from '../shared/firing/cones'
 import { EXAMPLE_MUG } from '../shared/firing/examples'
 import { quoteRequest, type PriceList, type QuoteKiln } from '../shared/firing/quote'
@@ -29,8 +30,11 @@ export interface FiringDocument {
   firingDate: string
   firingDateTs: number
   readyBy: string
-  capacityL: number
-  spaceLeftL: number
+  /** Shelves the load plan has left for short ware, and all it has (shared/firing/load.ts loadRoom). */
+  spaceLeftShelves: number
+  shelvesTotal: number
+  /** The tallest piece the load plan can still take: what "fits my piece" asks of the height. */
+  roomTallestMm: number
   usableHeightMm: number
   shelfShape: 'round' | 'box'
   shelfDiameterMm: number | null
@@ -66,19 +70,24 @@ export interface FiringFacts {
     dropOffBy: Date
     firingDate: Date
     readyBy: Date
-    capacityL: number
     notes: string
   }
-  spaceLeftL: number
+  /** What the firing's load plan can still take. */
+  room: LoadRoom
   priceList: PriceList | null
   reviews: { score: number; fireAgain: number; count: number } | null
 }
 
-export function firingDocument({ studio, kiln, firing, spaceLeftL, priceList, reviews }: FiringFacts): FiringDocument {
+export function firingDocument({ studio, kiln, firing, room, priceList, reviews }: FiringFacts): FiringDocument {
   const spec = kiln.spec
   const shelf = shelfFootprint(spec)
   const example = priceList
-    ? quoteRequest(priceList, { atmosphere: firing.atmosphere, slowCool: firing.slowCool }, [EXAMPLE_MUG], spec)
+    ? quoteRequest(
+        priceList,
+        { atmosphere: firing.atmosphere, slowCool: firing.slowCool, kind: firing.kind as FiringKind },
+        [EXAMPLE_MUG],
+        spec,
+      )
     : null
   return {
     id: firing.id,
@@ -103,8 +112,9 @@ export function firingDocument({ studio, kiln, firing, spaceLeftL, priceList, re
     firingDate: firing.firingDate.toISOString(),
     firingDateTs: seconds(firing.firingDate),
     readyBy: firing.readyBy.toISOString(),
-    capacityL: firing.capacityL,
-    spaceLeftL: Math.round(Math.max(0, spaceLeftL) * 10) / 10,
+    spaceLeftShelves: room.shelvesLeft,
+    shelvesTotal: room.shelvesTotal,
+    roomTallestMm: room.tallestMm,
     usableHeightMm: usableHeightMm(spec),
     shelfShape: shelf.shape,
     shelfDiameterMm: shelf.shape === 'round' ? shelf.diameterMm : null,

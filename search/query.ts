@@ -45,7 +45,8 @@ export function engineFilter(s: FiringSearch): string[] {
   if (s.cone) filter.push(`coneRank ${s.cone.minRank} TO ${s.cone.maxRank}`)
   if (s.atmosphere) filter.push(`atmosphere = "${s.atmosphere}"`)
   if (s.kind) filter.push(`kind = "${s.kind}"`)
-  if (s.fits.heightMm !== null) filter.push(`usableHeightMm >= ${num(s.fits.heightMm)}`)
+  // The load plan's room, not the empty kiln's: a full load takes nothing however tall the kiln.
+  if (s.fits.heightMm !== null) filter.push(`roomTallestMm >= ${num(s.fits.heightMm)}`)
   if (s.fits.widthMm !== null) {
     const f = footprintCondition(s.fits.widthMm, s.fits.depthMm)
     const box = f.box.map(([w, d]) => `(shelfWidthMm >= ${num(w)} AND shelfDepthMm >= ${num(d)})`).join(' OR ')
@@ -120,7 +121,7 @@ export function sqlQuery(s: FiringSearch): SqlQuery {
   if (s.cone) where.push(`cone_rank BETWEEN ${p(s.cone.minRank)} AND ${p(s.cone.maxRank)}`)
   if (s.atmosphere) where.push(`atmosphere = ${p(s.atmosphere)}`)
   if (s.kind) where.push(`kind = ${p(s.kind)}`)
-  if (s.fits.heightMm !== null) where.push(`usable_height_mm >= ${p(s.fits.heightMm)}`)
+  if (s.fits.heightMm !== null) where.push(`room_tallest_mm >= ${p(s.fits.heightMm)}`)
   if (s.fits.widthMm !== null) {
     const f = footprintCondition(s.fits.widthMm, s.fits.depthMm)
     const box = f.box.map(([w, d]) => `(shelf_width_mm >= ${p(w)} AND shelf_depth_mm >= ${p(d)})`).join(' OR ')

@@ -17,7 +17,8 @@ export const FIRINGS_INDEX_SETTINGS: Settings = {
     'kilnKind',
     'dropOffByTs',
     'firingDateTs',
-    'spaceLeftL',
+    'spaceLeftShelves',
+    'roomTallestMm',
     'usableHeightMm',
     'shelfShape',
     'shelfDiameterMm',
@@ -25,7 +26,7 @@ export const FIRINGS_INDEX_SETTINGS: Settings = {
     'shelfDepthMm',
     'verified',
   ],
-  sortableAttributes: ['_geo', 'dropOffByTs', 'firingDateTs', 'priceExampleCents', 'ratingScore', 'spaceLeftL'],
+  sortableAttributes: ['_geo', 'dropOffByTs', 'firingDateTs', 'priceExampleCents', 'ratingScore', 'spaceLeftShelves'],
   // Meilisearch's default order, with the requested sort ahead of the finer text rules: a potter who
   // asks for "nearest" or "soonest" means it, once the words match.
   rankingRules: ['words', 'sort', 'typo', 'proximity', 'attribute', 'exactness'],

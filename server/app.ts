@@ -25,6 +25,8 @@ import { firingLogsRouter } from './routes/firing-logs'
 import { noticesRouter } from './routes/notices'
 import { payoutsRouter } from './routes/payouts'
 import { pickupRouter } from './routes/pickup'
+import { piecesRouter } from './routes/pieces'
+import { loadPlansRouter } from './routes/load-plans'
 import { placesRouter } from './routes/places'
 import { reviewsRouter } from './routes/reviews'
 import { requestsRouter } from './routes/requests'
@@ -122,6 +124,8 @@ export function createApp(ctx: AppContext): App {
   app.use('/api', placesRouter(ctx))
   app.use('/api', requestsRouter(ctx))
   app.use('/api', pickupRouter(ctx))
+  app.use('/api', piecesRouter(ctx))
+  app.use('/api', loadPlansRouter(ctx))
   app.use('/api', firingLogsRouter(ctx))
   app.use('/api', noticesRouter(ctx))
   app.use('/api', photosRouter(ctx))

@@ -129,15 +129,16 @@ await withDatabase(async (db) => {
         drop_off_by: new Date(dropOff).toISOString(),
         firing_date: new Date(dropOff + 2 * 86400_000).toISOString(),
         ready_by: new Date(dropOff + 4 * 86400_000).toISOString(),
-        capacity_l: 20 + Math.floor(random() * 200),
+        // Some firings offer part of the kiln; the rest offer every layer (null).
+        layers_on_sale: random() < 0.5 ? 1 + Math.floor(random() * 4) : null,
       })
     }
     // Oxidation everywhere; the gas kilns also fire cone 10 in reduction.
     await db.query(
-      `INSERT INTO firings (kiln_id, kind, cone, atmosphere, drop_off_by, firing_date, ready_by, capacity_l)
+      `INSERT INTO firings (kiln_id, kind, cone, atmosphere, drop_off_by, firing_date, ready_by, layers_on_sale)
        SELECT f.kiln_id::uuid, f.kind, f.cone, CASE WHEN k.kind = 'gas' AND f.cone = '10' THEN 'reduction' ELSE 'oxidation' END,
-              f.drop_off_by::timestamptz, f.firing_date::timestamptz, f.ready_by::timestamptz, f.capacity_l::float8
-       FROM jsonb_to_recordset($1::jsonb) AS f(kiln_id text, kind text, cone text, drop_off_by text, firing_date text, ready_by text, capacity_l float8)
+              f.drop_off_by::timestamptz, f.firing_date::timestamptz, f.ready_by::timestamptz, f.layers_on_sale
+       FROM jsonb_to_recordset($1::jsonb) AS f(kiln_id text, kind text, cone text, drop_off_by text, firing_date text, ready_by text, layers_on_sale integer)
        JOIN kilns k ON k.id = f.kiln_id::uuid`,
       [JSON.stringify(rows)],
     )

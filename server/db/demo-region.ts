@@ -186,7 +186,6 @@ export function regionalDemoStudios(): DemoStudio[] {
               everyWeeks: 1 + (i % 3),
               dropOffDaysBefore: 2,
               readyDaysAfter: 3,
-              capacityL: gasKiln ? 200 : small ? 35 : 110,
             },
             ...(i % 4 === 2
               ? [
@@ -199,7 +198,6 @@ export function regionalDemoStudios(): DemoStudio[] {
                     everyWeeks: 2,
                     dropOffDaysBefore: 1,
                     readyDaysAfter: 2,
-                    capacityL: 60,
                   },
                 ]
               : []),

@@ -1,11 +1,14 @@
-// Demo requests, so the board has life on first start: a firing nearly full, requests waiting for a
-// decision, a paid deposit, a draft, and past firings picked up (one answered for by both sides). Money
-// in flight was taken "at the counter", so seeding never calls Stripe; the picked-up past firings were
-// paid by card, and that payment is made through Stripe (the local stand-in) after start, by
-// demo-payouts.ts. Each request is found again by the key its first timeline entry carries.
+// Demo requests, so the board has life on first start: a firing nearly full whose ware is checked in
+// as tagged pieces and planned on its shelves, requests waiting for a decision, a paid deposit, a
+// draft, and past firings picked up (one answered for by both sides). Money in flight was taken "at
+// the counter", so seeding never calls Stripe; the picked-up past firings were paid by card, and that
+// payment is made through Stripe (the local stand-in) after start, by demo-payouts.ts. Each request is
+// found again by the key its first timeline entry carries.
 import type { EntityManager } from 'typeorm'
 import type { Piece } from '../../shared/firing/check'
+import { itemApplies } from '../../shared/schemas/pieces'
 import type { RequestState } from '../../shared/workflow/request-states'
+import { CheckIn } from '../entities/CheckIn'
 import { Firing } from '../entities/Firing'
 import { FiringRequest } from '../entities/FiringRequest'
 import { Kiln } from '../entities/Kiln'
@@ -14,6 +17,7 @@ import { RequestEvent } from '../entities/RequestEvent'
 import { RequestMessage } from '../entities/RequestMessage'
 import { Review } from '../entities/Review'
 import { Studio } from '../entities/Studio'
+import { insertPiece } from '../services/pieces'
 import { StudioMember } from '../entities/StudioMember'
 import { checkAgainstFiring } from '../services/requests'
 import { reviewWindowClosesAt } from '../../shared/reviews'
@@ -35,7 +39,7 @@ const MUGS: Piece = {
 }
 const VASES: Piece = {
   label: 'Tall vases',
-  quantity: 5,
+  quantity: 4,
   heightMm: 400,
   widthMm: 250,
   depthMm: 250,
@@ -86,6 +90,8 @@ interface DemoRequest {
   pieces: Piece[]
   notes: string
   state: RequestState
+  /** Checked in piece by piece against the studio's checklist (every item passed), each piece tagged. */
+  checkedInBy?: string
   acknowledged?: string[]
   /** Both sides' answers after pickup, published: the potter's about the studio, the studio's about the potter. */
   reviews?: {
@@ -105,7 +111,8 @@ const DEMO_REQUESTS: DemoRequest[] = [
     potter: 'theo.marsh@demo.conewright.test',
     pieces: [VASES],
     notes: 'Tall forms: please keep them off the top shelf.',
-    state: 'deposit_paid',
+    state: 'received',
+    checkedInBy: 'dev.ramanathan@demo.conewright.test',
   },
   {
     key: 'mugs-paid',
@@ -115,6 +122,17 @@ const DEMO_REQUESTS: DemoRequest[] = [
     potter: 'wren.alvarado@demo.conewright.test',
     pieces: [MUGS],
     notes: 'Could these go in the slow-cool part of the load?',
+    state: 'received',
+    checkedInBy: 'dev.ramanathan@demo.conewright.test',
+  },
+  {
+    key: 'bowls-paid',
+    studio: 'Alder Street Clay Commons',
+    kiln: 'Big Ten',
+    firing: 1,
+    potter: 'wren.alvarado@demo.conewright.test',
+    pieces: [{ ...MUGS, label: 'Soup bowls', quantity: 4, heightMm: 80, widthMm: 150, depthMm: 150, round: true }],
+    notes: '',
     state: 'deposit_paid',
   },
   {
@@ -193,6 +211,7 @@ const PATH: Record<string, RequestState[]> = {
   draft: ['draft'],
   sent: ['draft', 'sent'],
   deposit_paid: ['draft', 'sent', 'accepted', 'deposit_paid'],
+  received: ['draft', 'sent', 'accepted', 'deposit_paid', 'received'],
   collected: ['draft', 'sent', 'accepted', 'deposit_paid', 'received', 'fired', 'ready', 'collected'],
 }
 
@@ -216,7 +235,7 @@ export async function seedDemoRequests(manager: EntityManager, userIdOf: (email:
           dropOffBy: new Date(fired.getTime() - 2 * 86400_000),
           firingDate: fired,
           readyBy: new Date(fired.getTime() + 3 * 86400_000),
-          capacityL: 140,
+          layersOnSale: null,
           status: 'unloaded',
           schedule: null,
           notes: demo.pastFiring?.notes ?? 'Slow cool through 1900 °F.',
@@ -270,6 +289,7 @@ export async function seedDemoRequests(manager: EntityManager, userIdOf: (email:
         data: i ? {} : { demoKey: demo.key },
       })
     }
+    if (demo.checkedInBy) await checkInDemoWare(manager, request, studio, await userIdOf(demo.checkedInBy))
     const currency = quote?.currency ?? 'USD'
     if (!demo.paidOnline && path.includes('deposit_paid') && quote && quote.depositCents > 0) {
       await manager.getRepository(LedgerEntry).save({
@@ -317,4 +337,45 @@ export async function seedDemoRequests(manager: EntityManager, userIdOf: (email:
         .insert({ requestId: request.id, authorId: studioOwnerId, side: 'studio', body: demo.thanks, notifiedAt: new Date() })
     }
   }
+}
+
+/** The ware as it came in: every piece tagged against the studio's checklist, every item passed. */
+async function checkInDemoWare(manager: EntityManager, request: FiringRequest, studio: Studio, crewId: string) {
+  for (const [pieceIndex, line] of request.pieces.entries()) {
+    const checks = studio.dropOffChecklist
+      .filter((item) => itemApplies(item, line))
+      .map((item) => ({ id: item.id, label: item.label, passed: true }))
+    for (let copy = 1; copy <= line.quantity; copy++) {
+      await insertPiece(manager, {
+        requestId: request.id,
+        pieceIndex,
+        copy,
+        heightMm: line.heightMm,
+        widthMm: line.widthMm,
+        depthMm: line.round === true ? line.widthMm : line.depthMm,
+        round: line.round === true,
+        weightG: line.weightG ?? null,
+        checks,
+        status: 'in-load',
+        holdReason: null,
+        heldAt: null,
+        outcome: null,
+        outcomeNotes: '',
+        outcomeAt: null,
+        outcomeBy: null,
+        checkedInBy: crewId,
+      })
+    }
+  }
+  await manager.getRepository(CheckIn).save({
+    requestId: request.id,
+    receivedPieces: request.pieces.map((line, pieceIndex) => ({ pieceIndex, declared: line.quantity, received: line.quantity })),
+    conditionNotes: '',
+    refused: false,
+    refusedReason: null,
+    quoteBefore: request.standingQuote,
+    quoteAfter: request.standingQuote,
+    priceConfirmedAt: new Date(),
+    checkedInBy: crewId,
+  })
 }

@@ -28,7 +28,8 @@ interface FiringRule {
   dropOffDaysBefore: number
   /** Ware is ready this many days after. */
   readyDaysAfter: number
-  capacityL: number
+  /** Layers on sale; every layer when not said. */
+  layersOnSale?: number
   slowCool?: boolean
   notes?: string
 }
@@ -102,7 +103,6 @@ export const DEMO_STUDIOS: DemoStudio[] = [
             everyWeeks: 1,
             dropOffDaysBefore: 2,
             readyDaysAfter: 3,
-            capacityL: 140,
             notes: 'Slow cool through 1900 °F when asked.',
           },
         ],
@@ -135,7 +135,6 @@ export const DEMO_STUDIOS: DemoStudio[] = [
             everyWeeks: 2,
             dropOffDaysBefore: 1,
             readyDaysAfter: 2,
-            capacityL: 45,
           },
         ],
       },
@@ -169,7 +168,7 @@ export const DEMO_STUDIOS: DemoStudio[] = [
           maxRampCPerHour: 200,
           preheatHold: true,
           controlledCooling: true,
-          shelfCount: 8,
+          shelfCount: 12,
           shelfWidthMm: inch(24),
           shelfDepthMm: inch(12),
           notes: 'Natural-gas car kiln with four venturi burners; body reduction at cone 010, heavy reduction from cone 6.',
@@ -193,7 +192,6 @@ export const DEMO_STUDIOS: DemoStudio[] = [
             everyWeeks: 2,
             dropOffDaysBefore: 2,
             readyDaysAfter: 3,
-            capacityL: 320,
             notes: 'Reduction from cone 010; cooled in about 36 hours.',
           },
         ],
@@ -228,7 +226,7 @@ export const DEMO_STUDIOS: DemoStudio[] = [
           maxRampCPerHour: 90,
           preheatHold: true,
           controlledCooling: false,
-          shelfCount: 30,
+          shelfCount: 96,
           shelfWidthMm: inch(24),
           shelfDepthMm: inch(12),
           notes: 'Five-day firings. Side-stoking from day three.',
@@ -244,7 +242,6 @@ export const DEMO_STUDIOS: DemoStudio[] = [
             everyWeeks: 6,
             dropOffDaysBefore: 5,
             readyDaysAfter: 10,
-            capacityL: 900,
             notes: 'Loading takes two days; ware placed by the crew.',
           },
         ],
@@ -284,7 +281,6 @@ export const DEMO_STUDIOS: DemoStudio[] = [
             everyWeeks: 4,
             dropOffDaysBefore: 3,
             readyDaysAfter: 4,
-            capacityL: 220,
           },
         ],
       },
@@ -342,7 +338,6 @@ export const DEMO_STUDIOS: DemoStudio[] = [
             everyWeeks: 1,
             dropOffDaysBefore: 1,
             readyDaysAfter: 2,
-            capacityL: 240,
           },
         ],
       },
@@ -436,7 +431,7 @@ export async function seedDemoStudios(
               atmosphere: rule.atmosphere,
               slowCool: rule.slowCool ?? false,
               ...when,
-              capacityL: rule.capacityL,
+              layersOnSale: rule.layersOnSale ?? null,
               status: 'open',
               schedule: null,
               notes: rule.notes ?? '',

@@ -7,6 +7,7 @@ import { FiringEvent } from '../entities/FiringEvent'
 import { FiringLog } from '../entities/FiringLog'
 import { FiringRequest } from '../entities/FiringRequest'
 import { Kiln } from '../entities/Kiln'
+import { LoadPlanRecord } from '../entities/LoadPlanRecord'
 import { LedgerEntry } from '../entities/LedgerEntry'
 import { Notice } from '../entities/Notice'
 import { Payment } from '../entities/Payment'
@@ -27,6 +28,7 @@ import { StudioPayout } from '../entities/StudioPayout'
 import { StudioTransfer } from '../entities/StudioTransfer'
 import { TransferReversal } from '../entities/TransferReversal'
 import { User } from '../entities/User'
+import { WarePiece } from '../entities/WarePiece'
 
 export const entities = [
   User,
@@ -52,6 +54,8 @@ export const entities = [
   Notice,
   FiringEvent,
   CounterRefund,
+  WarePiece,
+  LoadPlanRecord,
   PayoutAccount,
   RequestPayout,
   StudioTransfer,

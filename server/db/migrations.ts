@@ -15,6 +15,7 @@ import { PieceSupport1796167700000 } from './migrations/1796167700000-PieceSuppo
 import { Hardening1796172202396 } from './migrations/1796172202396-Hardening'
 import { ReviewsAfterPickup1796174002687 } from './migrations/1796174002687-ReviewsAfterPickup'
 import { StudioPayouts1796174302372 } from './migrations/1796174302372-StudioPayouts'
+import { LoadPiecesAndPlans1796175115835 } from './migrations/1796175115835-LoadPiecesAndPlans'
 
 export const migrations: (new () => unknown)[] = [
   Foundation1796149373286,
@@ -32,4 +33,5 @@ export const migrations: (new () => unknown)[] = [
   Hardening1796172202396,
   ReviewsAfterPickup1796174002687,
   StudioPayouts1796174302372,
+  LoadPiecesAndPlans1796175115835,
 ]

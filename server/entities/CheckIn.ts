@@ -6,6 +6,8 @@ export interface ReceivedPiece {
   pieceIndex: number
   declared: number
   received: number
+  /** Of those received, how many were held back at drop-off. */
+  held?: number
   /** Measured size where it differs from the declaration (mm). */
   measured?: { heightMm: number; widthMm: number; depthMm: number }
 }

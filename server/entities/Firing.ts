@@ -11,7 +11,7 @@ import type { Kiln } from './Kiln'
 @Check('firings_cone_check', `cone_rank("cone") IS NOT NULL`)
 @Check('firings_status_check', `"status" IN (${FIRING_STATUSES.map((s) => `'${s}'`).join(', ')})`)
 @Check('firings_dates_check', `"drop_off_by" <= "firing_date" AND "firing_date" <= "ready_by"`)
-@Check('firings_capacity_check', `"capacity_l" >= 0`)
+@Check('firings_layers_on_sale_check', `"layers_on_sale" IS NULL OR "layers_on_sale" >= 1`)
 @Index('firings_kiln_date_idx', ['kilnId', 'firingDate'])
 @Index('firings_upcoming_idx', ['firingDate'], { where: `"status" NOT IN ('cancelled', 'unloaded')` })
 export class Firing {
@@ -50,9 +50,9 @@ export class Firing {
   @Column({ name: 'ready_by', type: 'timestamptz' })
   readyBy: Date
 
-  /** Space on sale, in bounding-box litres. What is left is computed from the requests holding space. */
-  @Column({ name: 'capacity_l', type: 'double precision' })
-  capacityL: number
+  /** Layers of the kiln on sale in this firing; every layer its shelves make when null. The load plan decides what fits. */
+  @Column({ name: 'layers_on_sale', type: 'integer', nullable: true })
+  layersOnSale: number | null
 
   @Column({ type: 'text', default: 'open' })
   status: FiringStatus

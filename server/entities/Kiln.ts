@@ -11,6 +11,7 @@ import {
   UpdateDateColumn,
 } from 'typeorm'
 import type { Atmosphere, Cone, KilnKind } from '../../shared/firing/check'
+import type { KilnFurniture } from '../../shared/firing/load'
 import type { KilnPriceList } from './KilnPriceList'
 import type { Studio } from './Studio'
 
@@ -100,6 +101,10 @@ export class Kiln {
   /** What one shelf may carry, kg. */
   @Column({ name: 'shelf_load_kg', type: 'double precision', nullable: true })
   shelfLoadKg: number | null
+
+  /** Half shelves, post sizes, gaps and clearances the load planner uses (shared/firing/load.ts); null for the defaults. */
+  @Column({ type: 'jsonb', nullable: true })
+  furniture: KilnFurniture | null
 
   @Column({ type: 'text', default: '' })
   notes: string

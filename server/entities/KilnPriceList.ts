@@ -4,11 +4,12 @@ import type { Kiln } from './Kiln'
 
 /** The price list of one kiln: the `PriceList` of shared/firing/quote.ts, one column per field. */
 @Entity({ name: 'kiln_price_lists' })
-@Check('kiln_price_lists_model_check', `"model" IN ('volume', 'shelf', 'kiln')`)
+@Check('kiln_price_lists_model_check', `"model" IN ('volume', 'shelf', 'layer', 'kiln')`)
 @Check(
   'kiln_price_lists_amounts_check',
   `coalesce("cents_per_cubic_inch", 0) >= 0 AND coalesce("cents_per_litre", 0) >= 0 AND coalesce("shelf_cents", 0) >= 0 AND coalesce("kiln_cents", 0) >= 0 AND coalesce("minimum_per_piece_cents", 0) >= 0 AND coalesce("deposit_fixed_cents", 0) >= 0 AND coalesce("deposit_percent", 0) BETWEEN 0 AND 100 AND ("shelf_step" IS NULL OR "shelf_step" > 0 AND "shelf_step" <= 1)`,
 )
+@Check('kiln_price_lists_layer_cents_check', `"layer_cents" IS NULL OR "layer_cents" >= 0`)
 @Check('kiln_price_lists_deposit_check', `("deposit_percent" IS NULL) <> ("deposit_fixed_cents" IS NULL)`)
 export class KilnPriceList {
   @PrimaryColumn({ name: 'kiln_id', type: 'uuid' })
@@ -35,6 +36,9 @@ export class KilnPriceList {
 
   @Column({ name: 'shelf_step', type: 'double precision', nullable: true })
   shelfStep: number | null
+
+  @Column({ name: 'layer_cents', type: 'integer', nullable: true })
+  layerCents: number | null
 
   @Column({ name: 'kiln_cents', type: 'integer', nullable: true })
   kilnCents: number | null

@@ -1,5 +1,6 @@
 import { Check, Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn } from 'typeorm'
 import type { FiringRequest } from './FiringRequest'
+import type { WarePiece } from './WarePiece'
 
 export type PhotoKind = 'ware' | 'check-in' | 'result' | 'refusal'
 
@@ -9,6 +10,7 @@ export type PhotoKind = 'ware' | 'check-in' | 'result' | 'refusal'
  */
 @Entity({ name: 'photos' })
 @Index('photos_request_idx', ['requestId', 'kind'])
+@Index('photos_piece_idx', ['pieceId'])
 @Check('photos_kind_check', `"kind" IN ('ware', 'check-in', 'result', 'refusal')`)
 export class Photo {
   @PrimaryGeneratedColumn('uuid')
@@ -23,6 +25,14 @@ export class Photo {
 
   @Column({ type: 'text' })
   kind: PhotoKind
+
+  /** The one piece the photo shows (a held-back piece, a piece's result), when it shows one. */
+  @Column({ name: 'piece_id', type: 'uuid', nullable: true })
+  pieceId: string | null
+
+  @ManyToOne('WarePiece', { onDelete: 'SET NULL' })
+  @JoinColumn({ name: 'piece_id' })
+  piece: WarePiece | null
 
   @Column({ name: 'storage_key', type: 'text' })
   storageKey: string

@@ -1,9 +1,7 @@
 import { Column, CreateDateColumn, Entity, JoinColumn, OneToOne, PrimaryColumn, UpdateDateColumn } from 'typeorm'
 import type { FiringRequest } from './FiringRequest'
 
-export type PieceOutcome = 'fine' | 'cracked' | 'blown-out' | 'glaze-ran' | 'stuck-to-shelf' | 'other'
-
-/** What came out of the kiln for one request: an outcome per piece, with notes. */
+/** The results of one request, posted once every piece in the load has its outcome (on the piece): notes for the potter. */
 @Entity({ name: 'request_results' })
 export class RequestResult {
   @PrimaryColumn({ name: 'request_id', type: 'uuid' })
@@ -12,9 +10,6 @@ export class RequestResult {
   @OneToOne('FiringRequest', { onDelete: 'CASCADE' })
   @JoinColumn({ name: 'request_id' })
   request: FiringRequest
-
-  @Column({ type: 'jsonb' })
-  outcomes: { pieceIndex: number; outcome: PieceOutcome; notes: string }[]
 
   @Column({ type: 'text', default: '' })
   notes: string

@@ -46,8 +46,13 @@ export class SearchDocument {
   @Column({ name: 'firing_date_ts', type: 'bigint', transformer: { to: (v: number) => v, from: (v: string) => Number(v) } })
   firingDateTs: number
 
-  @Column({ name: 'space_left_l', type: 'double precision' })
-  spaceLeftL: number
+  /** Shelves the load plan has left for short ware (shared/firing/load.ts loadRoom). */
+  @Column({ name: 'space_left_shelves', type: 'double precision' })
+  spaceLeftShelves: number
+
+  /** The tallest piece the load plan can still take. */
+  @Column({ name: 'room_tallest_mm', type: 'double precision' })
+  roomTallestMm: number
 
   @Column({ name: 'usable_height_mm', type: 'double precision' })
   usableHeightMm: number

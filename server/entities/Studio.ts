@@ -1,4 +1,5 @@
 import { Check, Column, CreateDateColumn, Entity, OneToMany, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm'
+import { DEFAULT_CHECKLIST, type ChecklistItem } from '../../shared/schemas/pieces'
 import type { StudioPolicies } from '../../shared/schemas/studios'
 import type { Kiln } from './Kiln'
 import type { StudioMember } from './StudioMember'
@@ -54,6 +55,10 @@ export class Studio {
   /** Bumped on every change of the policies; a request records the version its potter agreed to. */
   @Column({ name: 'policies_version', type: 'integer', default: 1 })
   policiesVersion: number
+
+  /** What the crew checks on every piece at drop-off (shared/schemas/pieces.ts). */
+  @Column({ name: 'drop_off_checklist', type: 'jsonb', default: () => `'${JSON.stringify(DEFAULT_CHECKLIST).replace(/'/g, "''")}'::jsonb` })
+  dropOffChecklist: ChecklistItem[]
 
   @Column({ type: 'boolean', default: false })
   published: boolean

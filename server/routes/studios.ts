@@ -1,5 +1,6 @@
 import { Router } from 'express'
 import { z } from 'zod'
+import { checklistSchema } from '../../shared/schemas/pieces'
 import { crewInviteSchema, kilnBodySchema, studioCreateSchema, studioPatchSchema } from '../../shared/schemas/studios'
 import { requireRole } from '../auth/guards'
 import { unauthorized } from '../http/errors'
@@ -17,6 +18,7 @@ import {
   listMyStudios,
   listPublishedStudios,
   setVerified,
+  setDropOffChecklist,
   studioJson,
   updateStudio,
 } from '../services/studios'
@@ -54,6 +56,11 @@ export function studiosRouter(ctx: AppContext) {
 
   router.patch('/studios/:id', owner, validateBody(studioPatchSchema), async (req, res) => {
     res.json(studioJson(await updateStudio(ctx, res.locals.studioId, req.body), 'owner'))
+  })
+
+  // The owner sets what the crew checks on every piece at drop-off.
+  router.put('/studios/:id/checklist', owner, validateBody(checklistSchema), async (req, res) => {
+    res.json(studioJson(await setDropOffChecklist(ctx, res.locals.studioId, req.body.items), 'owner'))
   })
 
   router.delete('/studios/:id', owner, async (_req, res) => {

@@ -1,3 +1,4 @@
+import { shelvesWords } from '../../shared/firing/check'
 import ical, { ICalCalendarMethod } from 'ical-generator'
 import { formatCone } from '../../shared/firing/cones'
 import type { AppContext } from '../context'
@@ -32,7 +33,7 @@ export async function studioCalendar(ctx: AppContext, studio: Studio): Promise<s
       start: new Date(firing.firingDate),
       end: new Date(firing.readyBy),
       summary: title,
-      description: `${firing.status === 'open' ? `${firing.spaceLeftL} litres of space left.` : `${FIRING_STATUS_LABELS[firing.status]}.`} Drop off by ${new Date(firing.dropOffBy).toISOString()}.`,
+      description: `${firing.status === 'open' ? `${shelvesWords(firing.space.shelvesLeft)} of space left.` : `${FIRING_STATUS_LABELS[firing.status]}.`} Drop off by ${new Date(firing.dropOffBy).toISOString()}.`,
       location: [studio.city, studio.region].filter(Boolean).join(', '),
       url,
       timezone: studio.timezone,

@@ -24,6 +24,7 @@ import type { User } from '../entities/User'
 import { conflict, HttpError, notFound } from '../http/errors'
 import { firingCancelledMail } from '../mail/templates/firings'
 import { firingProgressMail, noShowMail } from '../mail/templates/pickup'
+import { recordLoaded } from './load-plan'
 import { withdrawNotices } from './notices'
 import { enqueueExpireCheckouts, enqueueRefund, moneyOf } from './payments'
 import { factsOf } from './request-context'
@@ -149,6 +150,8 @@ export async function moveFiring(
       const after = (await manager.getRepository(FiringRequest).findOneByOrFail({ id: request.id })).state
       if (after !== before) moved.push({ requestId: request.id, from: before, to: after })
     }
+    // What goes into the kiln is the plan as it stands now: kept, so nothing moves afterwards.
+    if (to === 'loading') await recordLoaded(manager, firing, now)
     event.effects = { requests: moved, jobKeys: hold.jobKeys, mailIds: hold.mailIds, counterRefundIds: hold.counterRefundIds }
     await manager.getRepository(FiringEvent).save(event)
     await enqueueStudioSync(manager, studio.id)

@@ -2,7 +2,8 @@ import { TZDate } from '@date-fns/tz'
 import type { EntityManager } from 'typeorm'
 import { addWeeks } from 'date-fns'
 import { randomUUID } from 'node:crypto'
-import { kilnVolumeL, type Firing as FiringSpec, type Kiln as KilnSpec } from '../../shared/firing/check'
+import type { Firing as FiringSpec, Kiln as KilnSpec } from '../../shared/firing/check'
+import { loadKiln, type LoadRoom } from '../../shared/firing/load'
 import { compareCones, coneTemperatureC, formatCone } from '../../shared/firing/cones'
 import type { PriceList } from '../../shared/firing/quote'
 import { plannedFinalRateCPerHour } from '../../shared/firing/schedule'
@@ -10,7 +11,6 @@ import type { FiringJson } from '../../shared/api/studios'
 import type { FiringCreateBody, FiringPatchBody } from '../../shared/schemas/studios'
 import { nextFiringStatuses, type FiringStatus } from '../../shared/workflow/firing-status'
 import { UNDO_WINDOW_MS } from '../../shared/workflow/undo'
-import { HOLDING_STATES } from '../../shared/workflow/request-states'
 import { enqueueStudioSync } from './search-sync'
 import type { AppContext } from '../context'
 import { Firing } from '../entities/Firing'
@@ -19,21 +19,9 @@ import { Studio } from '../entities/Studio'
 import { badRequest, conflict, type FieldErrors, HttpError, notFound } from '../http/errors'
 import { isUuid } from '../http/validate'
 import { getKiln, getPriceList, kilnSpec } from './kilns'
+import { firingLoad, loadsOf } from './load-plan'
 
-/** Litres held per firing by the requests in holding states; computed, never stored. */
-export async function heldLitres(manager: EntityManager, firingIds: string[]): Promise<Map<string, number>> {
-  const held = new Map<string, number>(firingIds.map((id) => [id, 0]))
-  if (!firingIds.length) return held
-  const rows: { firing_id: string; held: number }[] = await manager.query(
-    `SELECT firing_id, coalesce(sum(volume_l), 0)::float8 AS held FROM firing_requests
-     WHERE firing_id = ANY($1::uuid[]) AND state = ANY($2::text[]) GROUP BY firing_id`,
-    [firingIds, HOLDING_STATES],
-  )
-  for (const row of rows) held.set(row.firing_id, row.held)
-  return held
-}
-
-export function firingJson(firing: Firing, studioId: string, heldL: number, undo: FiringJson['undo'] = null): FiringJson {
+export function firingJson(firing: Firing, studioId: string, space: LoadRoom, undo: FiringJson['undo'] = null): FiringJson {
   return {
     id: firing.id,
     kilnId: firing.kilnId,
@@ -46,9 +34,8 @@ export function firingJson(firing: Firing, studioId: string, heldL: number, undo
     dropOffBy: firing.dropOffBy.toISOString(),
     firingDate: firing.firingDate.toISOString(),
     readyBy: firing.readyBy.toISOString(),
-    capacityL: firing.capacityL,
-    heldL: round1(heldL),
-    spaceLeftL: round1(Math.max(0, firing.capacityL - heldL)),
+    layersOnSale: firing.layersOnSale,
+    space,
     status: firing.status,
     nextStatuses: nextFiringStatuses(firing.status),
     schedule: firing.schedule,
@@ -77,26 +64,21 @@ async function undoableMoves(manager: EntityManager, firingIds: string[], now = 
   return moves
 }
 
-const round1 = (n: number) => Math.round(n * 10) / 10
-
-/** Firings as JSON with their held space, for one query's worth of firings. */
+/** Firings as JSON with the space their loads have left, for one query's worth of firings. */
 export async function firingsJson(manager: EntityManager, firings: Firing[], studioId: string): Promise<FiringJson[]> {
-  const held = await heldLitres(
-    manager,
-    firings.map((f) => f.id),
-  )
+  const loads = await loadsOf(manager, firings)
   const undo = await undoableMoves(
     manager,
     firings.map((f) => f.id),
   )
   return firings.map((f) => {
     const move = undo.get(f.id)
-    return firingJson(f, studioId, held.get(f.id) ?? 0, move && f.status !== 'cancelled' ? move : null)
+    return firingJson(f, studioId, loads.get(f.id)!.room, move && f.status !== 'cancelled' ? move : null)
   })
 }
 
 /** Why a firing cannot be run in this kiln, per field; empty when it can. */
-export function firingProblems(kiln: KilnSpec, firing: { cone?: string; atmosphere?: string; capacityL?: number }): FieldErrors {
+export function firingProblems(kiln: KilnSpec, firing: { cone?: string; atmosphere?: string; layersOnSale?: number | null }): FieldErrors {
   const problems: FieldErrors = {}
   if (firing.cone !== undefined) {
     if (compareCones(firing.cone, kiln.minCone) < 0 || compareCones(firing.cone, kiln.maxCone) > 0) {
@@ -108,9 +90,10 @@ export function firingProblems(kiln: KilnSpec, firing: { cone?: string; atmosphe
   if (firing.atmosphere !== undefined && !kiln.atmospheres.includes(firing.atmosphere as KilnSpec['atmospheres'][number])) {
     problems.atmosphere = `This kiln fires ${kiln.atmospheres.join(' or ')}.`
   }
-  if (firing.capacityL !== undefined) {
-    const volume = kilnVolumeL(kiln)
-    if (firing.capacityL > volume) problems.capacityL = `The kiln holds about ${Math.floor(volume)} litres; offer at most that.`
+  if (firing.layersOnSale !== undefined && firing.layersOnSale !== null) {
+    const layers = loadKiln(kiln).layers
+    if (firing.layersOnSale > layers)
+      problems.layersOnSale = `The kiln’s shelves make ${layers} ${layers === 1 ? 'layer' : 'layers'}; offer at most that.`
   }
   return problems
 }
@@ -146,7 +129,7 @@ export async function createFirings(ctx: AppContext, kilnId: string, body: Firin
         dropOffBy: shift(body.dropOffBy, i),
         firingDate: shift(body.firingDate, i),
         readyBy: shift(body.readyBy, i),
-        capacityL: body.capacityL,
+        layersOnSale: body.layersOnSale ?? null,
         status: 'open',
         schedule: body.schedule ?? null,
         notes: body.notes ?? '',
@@ -179,12 +162,20 @@ export async function updateFiring(ctx: AppContext, id: string, patch: FiringPat
         throw badRequest('Some fields need fixing.', { dropOffBy: 'Drop-off must close before the firing starts.' })
       if (next.firingDate > next.readyBy)
         throw badRequest('Some fields need fixing.', { readyBy: 'Ware can be ready only after the firing.' })
-      if (fields.capacityL !== undefined) {
-        const held = (await heldLitres(manager, [id])).get(id) ?? 0
-        if (fields.capacityL < held) {
-          throw new HttpError(409, 'capacity-below-held', `Potters already hold ${round1(held)} litres; offer at least that.`, {
-            capacityL: `At least ${round1(held)} litres are held.`,
-          })
+      if (fields.layersOnSale !== undefined) {
+        // Fewer layers may not leave out ware the load already holds.
+        const now = await firingLoad(manager, firing)
+        const after = await firingLoad(manager, { ...firing, layersOnSale: fields.layersOnSale })
+        if (after.plan.unplaced.length > now.plan.unplaced.length) {
+          const need = now.plan.layers.length
+          throw new HttpError(
+            409,
+            'layers-below-held',
+            `The ware taken on already fills ${need} ${need === 1 ? 'layer' : 'layers'}; offer at least that.`,
+            {
+              layersOnSale: `The load already takes ${need} ${need === 1 ? 'layer' : 'layers'}.`,
+            },
+          )
         }
       }
       Object.assign(firing, { ...fields, ...next })
@@ -231,7 +222,7 @@ export async function loadFiringForCheck(
   const kiln = await ctx.db.getRepository(Kiln).findOneByOrFail({ id: firing.kilnId })
   const studio = await ctx.db.getRepository(Studio).findOneByOrFail({ id: kiln.studioId })
   if (!studio.published) return null
-  const held = (await heldLitres(ctx.db.manager, [firing.id])).get(firing.id) ?? 0
+  const { room } = await firingLoad(ctx.db.manager, firing)
   return {
     kiln: kilnSpec(kiln),
     firing: {
@@ -240,7 +231,7 @@ export async function loadFiringForCheck(
       atmosphere: firing.atmosphere,
       slowCool: firing.slowCool,
       cooling: firing.cooling,
-      remainingCapacityL: Math.max(0, firing.capacityL - held),
+      load: { room },
     },
     priceList: await getPriceList(ctx.db.manager, kiln.id),
   }

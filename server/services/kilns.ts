@@ -27,6 +27,12 @@ export function kilnSpec(kiln: Kiln): KilnSpec {
     preheatHold: kiln.preheatHold,
     controlledCooling: kiln.controlledCooling,
     ...(kiln.shelfLoadKg !== null ? { shelfLoadKg: kiln.shelfLoadKg } : {}),
+    shelves: {
+      count: kiln.shelfCount,
+      ...(kiln.shelfWidthMm !== null ? { widthMm: kiln.shelfWidthMm } : {}),
+      ...(kiln.shelfDepthMm !== null ? { depthMm: kiln.shelfDepthMm } : {}),
+      ...(kiln.furniture ? { furniture: kiln.furniture } : {}),
+    },
   }
 }
 
@@ -69,6 +75,7 @@ export function kilnColumns(body: KilnBody): Partial<Kiln> {
     shelfCount: body.shelfCount,
     shelfWidthMm: body.shelfWidthMm ?? null,
     shelfDepthMm: body.shelfDepthMm ?? null,
+    furniture: body.furniture ?? null,
     notes: body.notes ?? '',
   }
 }
@@ -114,6 +121,7 @@ export async function updateKiln(ctx: AppContext, id: string, patch: Record<stri
       shelfCount: current.shelfCount,
       shelfWidthMm: current.shelfWidthMm,
       shelfDepthMm: current.shelfDepthMm,
+      furniture: kiln.furniture,
       notes: current.notes,
       ...patch,
     }
@@ -166,6 +174,7 @@ export function priceListSpec(row: KilnPriceList): PriceList {
     ...(row.centsPerCubicInch !== null ? { centsPerCubicInch: row.centsPerCubicInch } : {}),
     ...(row.centsPerLitre !== null ? { centsPerLitre: row.centsPerLitre } : {}),
     ...(row.shelfCents !== null ? { shelfCents: row.shelfCents } : {}),
+    ...(row.layerCents !== null ? { layerCents: row.layerCents } : {}),
     ...(row.shelfStep !== null ? { shelfStep: row.shelfStep } : {}),
     ...(row.kilnCents !== null ? { kilnCents: row.kilnCents } : {}),
     ...(row.minimumPerPieceCents !== null ? { minimumPerPieceCents: row.minimumPerPieceCents } : {}),
@@ -187,6 +196,7 @@ export function priceListColumns(p: PriceList): Omit<KilnPriceList, 'kilnId' | '
     centsPerCubicInch: p.centsPerCubicInch ?? null,
     centsPerLitre: p.centsPerLitre ?? null,
     shelfCents: p.shelfCents ?? null,
+    layerCents: p.layerCents ?? null,
     shelfStep: p.shelfStep ?? null,
     kilnCents: p.kilnCents ?? null,
     minimumPerPieceCents: p.minimumPerPieceCents ?? null,

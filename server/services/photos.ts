@@ -199,7 +199,7 @@ export async function addPhotos(ctx: AppContext, user: User, requestId: string, 
     const saved = await ctx.db.transaction(async (manager) => {
       const photos = await manager
         .getRepository(Photo)
-        .save(rows.map((r) => ({ ...r, requestId, kind, uploadedBy: user.id, publicOptIn: false })))
+        .save(rows.map((r) => ({ ...r, requestId, kind, pieceId: null, uploadedBy: user.id, publicOptIn: false })))
       for (const photo of photos.filter((p) => p.processing))
         await enqueueJob(manager, PROCESS_PHOTO_TASK, { photoId: photo.id }, { queueName: 'photos', maxAttempts: 5 })
       return photos
@@ -242,6 +242,7 @@ export function photoJson(photo: Photo) {
     width: photo.width,
     height: photo.height,
     public: photo.publicOptIn,
+    pieceId: photo.pieceId,
     /** Still being prepared by the queue; the image is served once this is false. */
     processing: photo.processing,
     url: `/api/photos/${photo.id}`,

@@ -2,15 +2,19 @@
 // and the potter's answer, results, ready, the balance, collection. Every action goes through the
 // one door (request-door.ts).
 import type { EntityManager } from 'typeorm'
+import type { Piece } from '../../shared/firing/check'
+import { readTag } from '../../shared/firing/tags'
 import { mmToIn } from '../../shared/firing/units'
+import type { PieceOutcome } from '../../shared/schemas/pickup'
 import { refundUnderTerms } from '../../shared/refunds'
 import type { AppContext } from '../context'
 import { CheckIn, type ReceivedPiece } from '../entities/CheckIn'
 import { FiringRequest } from '../entities/FiringRequest'
 import { LedgerEntry } from '../entities/LedgerEntry'
-import { RequestResult, type PieceOutcome } from '../entities/RequestResult'
+import { RequestResult } from '../entities/RequestResult'
+import { WarePiece } from '../entities/WarePiece'
 import type { User } from '../entities/User'
-import { HttpError } from '../http/errors'
+import { conflict, HttpError } from '../http/errors'
 import {
   dropOffMail,
   paymentReceivedMail,
@@ -24,11 +28,41 @@ import { firingLogJson } from './firing-log'
 import { enqueueExpireCheckouts, enqueueRefund, moneyOf } from './payments'
 import { factsOf, type RequestContext } from './request-context'
 import { requestAction } from './request-door'
+import { insertPiece } from './pieces'
 import { checkAgainstFiring, recordCounterRefundDue } from './requests'
 import { enqueueStudioSync } from './search-sync'
 
 const describeSize = (m: { heightMm: number; widthMm: number; depthMm: number }) =>
   `${mmToIn(m.heightMm).toFixed(1)} × ${mmToIn(m.widthMm).toFixed(1)} × ${mmToIn(m.depthMm).toFixed(1)} in`
+
+export interface ResultsBody {
+  outcomes?: { pieceIndex: number; outcome: PieceOutcome; notes?: string }[]
+  pieces?: { tag: string; outcome: PieceOutcome; notes?: string }[]
+  notes?: string
+}
+
+/** The ware that goes into the load, as declared lines: one line per declared line and measured size. */
+export function loadedLines(
+  declared: Piece[],
+  records: Pick<WarePiece, 'pieceIndex' | 'status' | 'heightMm' | 'widthMm' | 'depthMm'>[],
+): Piece[] {
+  const lines = new Map<string, Piece>()
+  for (const record of records) {
+    if (record.status !== 'in-load') continue
+    const key = `${record.pieceIndex}|${record.heightMm}|${record.widthMm}|${record.depthMm}`
+    const line = lines.get(key)
+    if (line) line.quantity++
+    else
+      lines.set(key, {
+        ...declared[record.pieceIndex],
+        quantity: 1,
+        heightMm: record.heightMm,
+        widthMm: record.widthMm,
+        depthMm: record.depthMm,
+      })
+  }
+  return [...lines.values()]
+}
 
 export interface CheckInBody {
   pieces: { pieceIndex: number; received: number; measured?: { heightMm: number; widthMm: number; depthMm: number } }[]
@@ -69,18 +103,60 @@ export async function checkIn(ctx: AppContext, actor: User, id: string, body: Ch
     }
 
     const declared = rc.request.pieces
+    const pieces = manager.getRepository(WarePiece)
+    const tagged = await pieces.find({ where: { requestId: id } })
+    const fields: Record<string, string> = {}
+    declared.forEach((_, i) => {
+      const count = tagged.filter((r) => r.pieceIndex === i).length
+      const entry = body.pieces.find((p) => p.pieceIndex === i)
+      if ((entry?.received ?? 0) < count) fields[`pieces.${i}.received`] = `${count} of these are tagged already; count at least those.`
+    })
+    if (Object.keys(fields).length) throw new HttpError(400, 'invalid-input', 'Count every piece already tagged.', fields)
+    // Pieces counted in without being tagged one by one get their records and tags now.
+    for (const [i, line] of declared.entries()) {
+      const entry = body.pieces.find((p) => p.pieceIndex === i)
+      const size = entry?.measured ?? line
+      const copies = new Set(tagged.filter((r) => r.pieceIndex === i).map((r) => r.copy))
+      let copy = 1
+      for (let n = copies.size; n < (entry?.received ?? 0); n++) {
+        while (copies.has(copy)) copy++
+        copies.add(copy)
+        await insertPiece(manager, {
+          requestId: id,
+          pieceIndex: i,
+          copy,
+          heightMm: size.heightMm,
+          widthMm: size.widthMm,
+          depthMm: line.round === true ? size.widthMm : size.depthMm,
+          round: line.round === true,
+          weightG: line.weightG ?? null,
+          checks: [],
+          status: 'in-load',
+          holdReason: null,
+          heldAt: null,
+          outcome: null,
+          outcomeNotes: '',
+          outcomeAt: null,
+          outcomeBy: null,
+          checkedInBy: actor.id,
+        })
+      }
+    }
+    const records = await pieces.find({ where: { requestId: id }, order: { pieceIndex: 'ASC', copy: 'ASC' } })
     const received: ReceivedPiece[] = declared.map((piece, i) => {
       const entry = body.pieces.find((p) => p.pieceIndex === i)
+      const held = records.filter((r) => r.pieceIndex === i && r.status === 'held').length
       return {
         pieceIndex: i,
         declared: piece.quantity,
         received: entry?.received ?? 0,
+        ...(held ? { held } : {}),
         ...(entry?.measured ? { measured: entry.measured } : {}),
       }
     })
-    const actual = declared
-      .map((piece, i) => ({ ...piece, quantity: received[i].received, ...(received[i].measured ?? {}) }))
-      .filter((piece) => piece.quantity > 0)
+    const actual = loadedLines(declared, records)
+    if (!actual.length)
+      throw conflict('Every piece received is held back: refuse the ware at the door instead, or take some of it in.', 'all-held')
     const { check, quote } = await checkAgainstFiring(manager, rc.firing, actual, { own: rc.request })
     const before = asked?.totalCents ?? 0
     const after = quote?.totalCents ?? before
@@ -114,6 +190,7 @@ export async function checkIn(ctx: AppContext, actor: User, id: string, body: Ch
           label: declared[i].label || `Piece ${i + 1}`,
           declared: r.declared,
           received: r.received,
+          held: r.held,
           ...(r.measured ? { measured: describeSize(r.measured) } : {}),
         })),
         conditionNotes: body.conditionNotes ?? '',
@@ -174,25 +251,41 @@ export async function declinePrice(ctx: AppContext, potter: User, id: string) {
   })
 }
 
-export async function postResults(
-  ctx: AppContext,
-  actor: User,
-  id: string,
-  body: { outcomes: { pieceIndex: number; outcome: PieceOutcome; notes?: string }[]; notes?: string },
-) {
+/**
+ * The results of a request: each piece by its tag, or one outcome for every piece of a declared line.
+ * Every piece in the load must end up with its outcome; then the results stand and the studio can
+ * mark the ware ready.
+ */
+export async function postResults(ctx: AppContext, actor: User, id: string, body: ResultsBody) {
   return requestAction(ctx, actor, id, 'results', async (step) => {
     const { manager, rc } = step
-    const bad = body.outcomes.find((o) => o.pieceIndex >= rc.request.pieces.length)
+    const bad = body.outcomes?.find((o) => o.pieceIndex >= rc.request.pieces.length)
     if (bad)
       throw new HttpError(400, 'invalid-input', 'A result names a piece the potter did not send.', {
         outcomes: `No piece ${bad.pieceIndex + 1}.`,
       })
-    await manager.getRepository(RequestResult).save({
-      requestId: id,
-      outcomes: body.outcomes.map((o) => ({ ...o, notes: o.notes ?? '' })),
-      notes: body.notes ?? '',
-      postedBy: actor.id,
-    })
+    const records = await manager.getRepository(WarePiece).find({ where: { requestId: id, status: 'in-load' } })
+    if (!records.length) throw conflict('No piece of this request went into the load.', 'no-pieces')
+    const now = new Date()
+    const set = (record: WarePiece, outcome: PieceOutcome, notes?: string) =>
+      Object.assign(record, { outcome, outcomeNotes: notes ?? '', outcomeAt: now, outcomeBy: actor.id })
+    for (const o of body.outcomes ?? [])
+      for (const record of records.filter((r) => r.pieceIndex === o.pieceIndex)) set(record, o.outcome, o.notes)
+    const fields: Record<string, string> = {}
+    for (const [i, p] of (body.pieces ?? []).entries()) {
+      const reading = readTag(p.tag)
+      const record = reading.ok ? records.find((r) => r.tag === reading.tag) : undefined
+      if (!record) fields[`pieces.${i}.tag`] = reading.ok ? 'Not a piece of this request in the load.' : reading.reason
+      else set(record, p.outcome, p.notes)
+    }
+    if (Object.keys(fields).length) throw new HttpError(400, 'invalid-input', 'Some results name no piece of this request.', fields)
+    const missing = records.filter((r) => r.outcome === null).length
+    if (missing)
+      throw new HttpError(400, 'invalid-input', 'Give every piece in the load how it came out.', {
+        pieces: `${missing} ${missing === 1 ? 'piece has' : 'pieces have'} no outcome yet.`,
+      })
+    await manager.getRepository(WarePiece).save(records)
+    await manager.getRepository(RequestResult).save({ requestId: id, notes: body.notes ?? '', postedBy: actor.id })
     await step.note('Results posted')
   })
 }
@@ -292,6 +385,13 @@ export async function markCollected(ctx: AppContext, actor: User, id: string) {
 export async function pickupJson(manager: EntityManager, rc: RequestContext) {
   const checkInRow = await manager.getRepository(CheckIn).findOne({ where: { requestId: rc.request.id } })
   const result = await manager.getRepository(RequestResult).findOne({ where: { requestId: rc.request.id } })
+  const fired = result
+    ? await manager
+        .getRepository(WarePiece)
+        .find({ where: { requestId: rc.request.id, status: 'in-load' }, order: { pieceIndex: 'ASC', copy: 'ASC' } })
+    : []
+  const counts: Partial<Record<PieceOutcome, number>> = {}
+  for (const piece of fired) if (piece.outcome) counts[piece.outcome] = (counts[piece.outcome] ?? 0) + 1
   return {
     checkIn: checkInRow
       ? {
@@ -305,7 +405,23 @@ export async function pickupJson(manager: EntityManager, rc: RequestContext) {
           at: checkInRow.at.toISOString(),
         }
       : null,
-    results: result ? { outcomes: result.outcomes, notes: result.notes, at: result.updatedAt.toISOString() } : null,
+    results: result
+      ? {
+          outcomes: fired
+            .filter((p) => p.outcome !== null)
+            .map((p) => ({
+              pieceId: p.id,
+              tag: p.tag,
+              pieceIndex: p.pieceIndex,
+              copy: p.copy,
+              outcome: p.outcome!,
+              notes: p.outcomeNotes,
+            })),
+          counts,
+          notes: result.notes,
+          at: result.updatedAt.toISOString(),
+        }
+      : null,
     firingLog: await firingLogJson(manager, rc.firing.id),
   }
 }

@@ -12,6 +12,8 @@ import { StudioMember } from '../entities/StudioMember'
 import { User } from '../entities/User'
 import { firingsJson } from './firings'
 import { kilnJson } from './kilns'
+import { shelvesNeeded, shelvesNeededOf } from './load-plan'
+import { requestPieces } from './pieces'
 import { moneyOf, openPaymentsOf } from './payments'
 import { requestPhotos } from './photos'
 import { pickupJson } from './pickup'
@@ -82,6 +84,7 @@ export async function requestJson(manager: EntityManager, rc: RequestContext, vi
       region: rc.studio.region,
       timezone: rc.studio.timezone,
       dropOffHours: rc.studio.dropOffHours,
+      dropOffChecklist: rc.studio.dropOffChecklist,
       policies: rc.studio.policies,
       policiesVersion: rc.studio.policiesVersion,
       address: showAddress ? rc.studio.addressLine : null,
@@ -117,6 +120,8 @@ export async function requestJson(manager: EntityManager, rc: RequestContext, vi
       paidAt: r.paidAt?.toISOString() ?? null,
     })),
     ...(await pickupJson(manager, rc)),
+    pieceRecords: await requestPieces(manager, rc.request.id, rc.request.pieces),
+    shelvesNeeded: shelvesNeeded(rc.kiln, rc.firing, rc.request.pieces),
     photos: await requestPhotos(manager, rc.request.id),
     reviews: await reviewsOfRequest(manager, rc.request.id, viewer.side),
     payments: payments.map((p) => ({
@@ -171,6 +176,11 @@ export async function requestRows(manager: EntityManager, requests: FiringReques
     [requests.map((r) => r.id)],
   )
   const byId = new Map(rows.map((r) => [r.id, r]))
+  // What a waiting request would take, for the studio deciding on it.
+  const needed = await shelvesNeededOf(
+    manager,
+    requests.filter((r) => r.state === 'sent'),
+  )
   return requests.map((r) => {
     const row = byId.get(r.id)!
     const standing = r.standingQuote ?? r.quote
@@ -198,6 +208,7 @@ export async function requestRows(manager: EntityManager, requests: FiringReques
       findings: r.findings.length,
       volumeL: Math.round(r.volumeL * 100) / 100,
       pieceCount: r.pieces.reduce((n, p) => n + p.quantity, 0),
+      shelvesNeeded: needed.get(r.id) ?? null,
       price: standing
         ? {
             totalCents: standing.totalCents,

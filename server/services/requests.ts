@@ -2,7 +2,9 @@
 // the deposit hold, moves, withdrawals, lapses and their refunds. Every action after the draft is
 // made goes through the one door (request-door.ts): lock, authorize, apply, record, tell.
 import type { EntityManager } from 'typeorm'
-import { checkWare, requestVolumeL, type Piece, type WareCheck } from '../../shared/firing/check'
+import { randomUUID } from 'node:crypto'
+import { checkWare, requestVolumeL, shelvesWords, type Piece, type WareCheck } from '../../shared/firing/check'
+import { shelvesLeftFor } from '../../shared/firing/load'
 import { quoteRequest } from '../../shared/firing/quote'
 import { depositToAsk } from '../../shared/payments'
 import { refundUnderTerms } from '../../shared/refunds'
@@ -29,8 +31,8 @@ import {
   withdrawnMail,
   type LapseCause,
 } from '../mail/templates/requests'
-import { heldLitres } from './firings'
 import { getPriceList, kilnSpec } from './kilns'
+import { fitsInLoad } from './load-plan'
 import { enqueueExpireCheckouts, enqueueOpenCheckout, enqueueRefund, moneyOf } from './payments'
 import { factsOf } from './request-context'
 import { heldJobKey, requestAction, type ActionStep } from './request-door'
@@ -40,27 +42,33 @@ import { enqueueStudioSync } from './search-sync'
 export const DEPOSIT_EXPIRY_TASK = 'deposit-expiry'
 
 /**
- * The server's ware check of pieces against a firing as it stands now (space left included). `own` is
- * a request already in the firing whose held space is counted as free for its own re-check.
+ * The server's ware check of pieces against a firing as it stands now: the pieces are planned into its
+ * load, so the check says whether they go in. `own` is a request already in the firing, left out of
+ * the load for its own re-check (its pieces as measured are the ones planned).
  */
-export async function checkAgainstFiring(manager: EntityManager, firing: Firing, pieces: Piece[], { own }: { own?: FiringRequest } = {}) {
+export async function checkAgainstFiring(
+  manager: EntityManager,
+  firing: Firing,
+  pieces: Piece[],
+  { own, potter }: { own?: FiringRequest; potter?: Pick<User, 'id' | 'displayName'> } = {},
+) {
   const kiln = await manager.getRepository(Kiln).findOneByOrFail({ id: firing.kilnId })
   const spec = kilnSpec(kiln)
-  let held = (await heldLitres(manager, [firing.id])).get(firing.id) ?? 0
-  if (own && own.firingId === firing.id && holdsSpace(own.state)) held -= own.volumeL
+  const mine = own && own.firingId === firing.id && holdsSpace(own.state) ? own.id : undefined
+  const requestId = own?.id ?? randomUUID()
+  const { fits, room } = await fitsInLoad(
+    manager,
+    firing,
+    { requestId, potterId: own?.potterId ?? potter?.id ?? requestId, potterName: potter?.displayName ?? '', pieces },
+    { exclude: mine },
+  )
   const check: WareCheck = checkWare(
     spec,
-    {
-      kind: firing.kind,
-      cone: firing.cone,
-      atmosphere: firing.atmosphere,
-      slowCool: firing.slowCool,
-      remainingCapacityL: Math.max(0, firing.capacityL - held),
-    },
+    { kind: firing.kind, cone: firing.cone, atmosphere: firing.atmosphere, slowCool: firing.slowCool, load: { room, fits } },
     pieces,
   )
   const priceList = await getPriceList(manager, kiln.id)
-  const quote = priceList ? quoteRequest(priceList, { atmosphere: firing.atmosphere, slowCool: firing.slowCool }, pieces, spec) : null
+  const quote = priceList ? quoteRequest(priceList, firing, pieces, spec) : null
   return { check, quote, volumeL: requestVolumeL(pieces) }
 }
 
@@ -178,13 +186,20 @@ export async function acceptRequest(ctx: AppContext, actor: User, id: string) {
 
 async function holdSpace(step: ActionStep, reason: string) {
   const { manager, rc, ctx } = step
-  const held = (await heldLitres(manager, [rc.firing.id])).get(rc.firing.id) ?? 0
-  const left = rc.firing.capacityL - held
-  if (rc.request.volumeL > left + 1e-9) {
+  // Planned into the load under the firing's lock (the door took it): the ware goes in, or the request waits.
+  const { fits, room, unplaced } = await fitsInLoad(manager, rc.firing, {
+    requestId: rc.request.id,
+    potterId: rc.potter.id,
+    potterName: rc.potter.displayName,
+    pieces: rc.request.pieces,
+  })
+  if (!fits) {
+    const tallest = rc.request.pieces.reduce((h, p) => Math.max(h, p.heightMm), 0)
+    const left = shelvesLeftFor(room, tallest)
     throw conflict(
-      `Not enough space left: the ware needs ${rc.request.volumeL.toFixed(1)} L and ${Math.max(0, left).toFixed(1)} L are free.`,
+      `Not enough space left: ${unplaced.length || 'some'} of the pieces find no place in the load, which has ${shelvesWords(left)} left for pieces this tall.`,
       'no-space',
-      { spaceLeftL: Math.max(0, left) },
+      { shelvesLeft: left, tallestMm: room.tallestMm, unplaced: unplaced.length },
     )
   }
   const quote = rc.request.standingQuote ?? rc.request.quote

@@ -10,8 +10,8 @@ import { Kiln } from '../entities/Kiln'
 import { SearchDocument } from '../entities/SearchDocument'
 import { Studio } from '../entities/Studio'
 import { enqueueJob } from '../jobs/queue'
-import { heldLitres } from './firings'
 import { getPriceList, kilnSpec } from './kilns'
+import { loadsOf } from './load-plan'
 import { engineFailed, engineIsUp } from './search'
 import { studioReviewSummaries } from './reviews'
 
@@ -40,10 +40,7 @@ export async function studioDocuments(manager: EntityManager, studioId: string, 
     .andWhere(`f.status = 'open'`)
     .andWhere('f.drop_off_by > :now', { now })
     .getMany()
-  const held = await heldLitres(
-    manager,
-    firings.map((f) => f.id),
-  )
+  const loads = await loadsOf(manager, firings)
   const reviews = (await studioReviewSummaries(manager, [studioId])).get(studioId) ?? null
   const priceLists = new Map(await Promise.all(kilns.map(async (k) => [k.id, await getPriceList(manager, k.id)] as const)))
   const byId = new Map(kilns.map((k) => [k.id, k]))
@@ -63,7 +60,7 @@ export async function studioDocuments(manager: EntityManager, studioId: string, 
       studio: place,
       kiln: { id: kiln.id, name: kiln.name, kind: kiln.kind, spec: kilnSpec(kiln) },
       firing,
-      spaceLeftL: firing.capacityL - (held.get(firing.id) ?? 0),
+      room: loads.get(firing.id)!.room,
       priceList: priceLists.get(kiln.id) ?? null,
       reviews,
     })
@@ -89,7 +86,8 @@ function rowOf(doc: FiringDocument): Omit<SearchDocument, 'updatedAt'> {
     kilnKind: doc.kilnKind,
     dropOffByTs: doc.dropOffByTs,
     firingDateTs: doc.firingDateTs,
-    spaceLeftL: doc.spaceLeftL,
+    spaceLeftShelves: doc.spaceLeftShelves,
+    roomTallestMm: doc.roomTallestMm,
     usableHeightMm: doc.usableHeightMm,
     shelfShape: doc.shelfShape,
     shelfDiameterMm: doc.shelfDiameterMm,

@@ -142,8 +142,7 @@ export function toHit(doc: FiringDocument, origin: { lat: number; lng: number } 
     dropOffBy: doc.dropOffBy,
     firingDate: doc.firingDate,
     readyBy: doc.readyBy,
-    spaceLeftL: doc.spaceLeftL,
-    capacityL: doc.capacityL,
+    space: { shelvesLeft: doc.spaceLeftShelves, shelvesTotal: doc.shelvesTotal, tallestMm: doc.roomTallestMm },
     distanceKm: origin ? Math.round(distanceKm(origin, doc._geo) * 10) / 10 : null,
     priceExample:
       doc.priceExampleCents !== null ? { label: doc.priceExampleLabel!, totalCents: doc.priceExampleCents, currency: doc.currency } : null,

@@ -1,5 +1,6 @@
 import type { EntityManager } from 'typeorm'
 import type { PublicStudioJson, StudioJson } from '../../shared/api/studios'
+import type { ChecklistItem } from '../../shared/schemas/pieces'
 import { DEFAULT_POLICIES, type StudioCreateBody, type StudioPatchBody } from '../../shared/schemas/studios'
 import type { AppContext } from '../context'
 import { Studio } from '../entities/Studio'
@@ -27,6 +28,7 @@ export function publicStudioJson(studio: Studio): PublicStudioJson {
     dropOffHours: studio.dropOffHours,
     policies: studio.policies,
     policiesVersion: studio.policiesVersion,
+    dropOffChecklist: studio.dropOffChecklist,
     published: studio.published,
     verified: studio.verifiedAt !== null,
   }
@@ -151,5 +153,17 @@ export async function setVerified(ctx: AppContext, id: string, verified: boolean
     const saved = await manager.getRepository(Studio).save(studio)
     await enqueueStudioSync(manager, id)
     return saved
+  })
+}
+
+/**
+ * The studio's drop-off checklist, replaced whole. Pieces already tagged keep the items as they were
+ * answered; the next piece is checked against the new list.
+ */
+export async function setDropOffChecklist(ctx: AppContext, id: string, items: ChecklistItem[]): Promise<Studio> {
+  return ctx.db.transaction(async (manager) => {
+    const studio = await getStudio(manager, id)
+    studio.dropOffChecklist = items
+    return manager.getRepository(Studio).save(studio)
   })
 }

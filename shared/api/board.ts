@@ -14,8 +14,8 @@ export interface BoardFiring {
   dropOffBy: string
   firingDate: string
   readyBy: string
-  spaceLeftL: number
-  capacityL: number
+  /** The load plan's room: shelves free for short ware, all its shelves, and the tallest piece it takes. */
+  space: SearchHit['space']
   /** The shared quote for the potter's own piece, when they gave its size and the kiln has a price list. */
   piecePrice: { totalCents: number; currency: string } | null
 }

@@ -10,6 +10,8 @@ export interface PhotoJson {
   height: number
   /** Shown on the studio's public page (result photos only, when the potter opts in). */
   public: boolean
+  /** The one piece it shows, when it shows one. */
+  pieceId: string | null
   /** Large uploads are prepared after the upload; the image is served once this is false. */
   processing: boolean
   url: string

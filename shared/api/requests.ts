@@ -2,6 +2,9 @@
 // routes and the client.
 import type { Finding, Piece, Verdict } from '../firing/check'
 import type { Quote } from '../firing/quote'
+import type { PieceOutcome } from '../schemas/pickup'
+import type { PieceJson } from './load'
+import type { ChecklistItem } from '../schemas/pieces'
 import type { Answer, AnswerTally, PotterQuestion } from '../reviews'
 import type { StudioPolicies } from '../schemas/studios'
 import type { RequestAction } from '../workflow/policy'
@@ -20,7 +23,7 @@ export interface MeasuredSize {
 export interface CheckInJson {
   refused: boolean
   refusedReason: string | null
-  receivedPieces: { pieceIndex: number; declared: number; received: number; measured?: MeasuredSize }[]
+  receivedPieces: { pieceIndex: number; declared: number; received: number; held?: number; measured?: MeasuredSize }[]
   conditionNotes: string
   quoteBefore: Quote | null
   quoteAfter: Quote | null
@@ -29,10 +32,12 @@ export interface CheckInJson {
   at: string
 }
 
-export type PieceOutcome = 'fine' | 'cracked' | 'blown-out' | 'glaze-ran' | 'stuck-to-shelf' | 'other'
+export type { PieceOutcome }
 
+/** The request's results, once every piece in the load has its outcome: each piece, and the counts. */
 export interface ResultsJson {
-  outcomes: { pieceIndex: number; outcome: PieceOutcome; notes: string }[]
+  outcomes: { pieceId: string; tag: string; pieceIndex: number; copy: number; outcome: PieceOutcome; notes: string }[]
+  counts: Partial<Record<PieceOutcome, number>>
   notes: string
   at: string
 }
@@ -169,6 +174,8 @@ export interface RequestView {
     region: string
     timezone: string
     dropOffHours: string
+    /** What crew check on each piece at drop-off (the studio's own list). */
+    dropOffChecklist: ChecklistItem[]
     policies: StudioPolicies
     policiesVersion: number
     address: string | null
@@ -179,6 +186,10 @@ export interface RequestView {
   counterRefunds: CounterRefundJson[]
   payments: PaymentJson[]
   checkIn: CheckInJson | null
+  /** Every piece received, tagged, in line and copy order. */
+  pieceRecords: PieceJson[]
+  /** The shelves the ware takes, planned alone on the kiln's shelves. */
+  shelvesNeeded: number
   results: ResultsJson | null
   /** The log of the firing the ware is in, once the studio has written one. */
   firingLog: FiringLogJson | null
@@ -209,6 +220,8 @@ export interface RequestRow {
   findings: number
   volumeL: number
   pieceCount: number
+  /** For a request waiting for an answer: the shelves its ware takes. */
+  shelvesNeeded: number | null
   price: {
     totalCents: number
     depositCents: number

@@ -1,8 +1,10 @@
 // The shapes the studio, kiln and firing routes answer with: written by the server, read by the
 // client, declared once.
 import type { Atmosphere, CoolingProfile, FiringKind, Kiln } from '../firing/check'
+import type { LoadRoom } from '../firing/load'
 import type { PriceList, Quote } from '../firing/quote'
 import type { Segment } from '../firing/schedule'
+import type { ChecklistItem } from '../schemas/pieces'
 import type { AnswerTally, StudioQuestion } from '../reviews'
 import type { StudioPolicies } from '../schemas/studios'
 import type { FiringStatus } from '../workflow/firing-status'
@@ -26,6 +28,8 @@ export interface PublicStudioJson {
   dropOffHours: string
   policies: StudioPolicies
   policiesVersion: number
+  /** What the crew checks on every piece at drop-off. */
+  dropOffChecklist: ChecklistItem[]
   published: boolean
   verified: boolean
 }
@@ -73,9 +77,10 @@ export interface FiringJson {
   dropOffBy: string
   firingDate: string
   readyBy: string
-  capacityL: number
-  heldL: number
-  spaceLeftL: number
+  /** Layers on sale; null when every layer the kiln's shelves make is. */
+  layersOnSale: number | null
+  /** What the load plan can still take, by height band, in shelves. */
+  space: LoadRoom
   status: FiringStatus
   nextStatuses: readonly FiringStatus[]
   schedule: Segment[] | null

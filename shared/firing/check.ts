@@ -15,8 +15,21 @@ import {
   type FiringSchedule,
 } from './schedule'
 import { cToF, mmToIn } from './units'
+import { pieceDepthMm, shelfAreaMm2, shelfFootprint, usableHeightMm } from './kiln-geometry'
+import { gapFor, loadKiln, piecesOfLine, shelfShare, shelvesLeftFor, type KilnShelves, type LoadRoom } from './load'
 
 export type { Cone } from './cones'
+export {
+  HEADROOM_MM,
+  kilnVolumeL,
+  pieceDepthMm,
+  SHELF_CLEARANCE_MM,
+  SHELF_THICKNESS_MM,
+  shelfAcross,
+  shelfAreaMm2,
+  shelfFootprint,
+  usableHeightMm,
+} from './kiln-geometry'
 export type { CoolingProfile } from './schedule'
 
 export type Atmosphere = 'oxidation' | 'reduction' | 'neutral'
@@ -59,14 +72,19 @@ export interface Kiln {
   controlledCooling: boolean
   /** What one shelf may carry, kg. */
   shelfLoadKg?: number
+  /** The shelves and posts the studio loads it with (shared/firing/load.ts); cut to the chamber when not said. */
+  shelves?: KilnShelves
 }
 
 export interface Firing {
   kind: FiringKind
   cone: Cone
   atmosphere: Atmosphere
-  /** Bounding-box litres still free in this firing. */
-  remainingCapacityL?: number
+  /**
+   * The room the firing's load plan has left (shared/firing/load.ts loadRoom), and, when the caller
+   * planned these very pieces into the load, whether they all went in.
+   */
+  load?: { room: LoadRoom; fits?: boolean }
   /** Slow through the quartz and cristobalite inversions. */
   slowCool?: boolean
   /** How a glaze firing cools from its peak; natural when not said. */
@@ -173,9 +191,11 @@ export interface Fit {
   shelf: ShelfFootprint
   pieces: PieceFit[]
   requestVolumeL: number
-  /** null when the firing does not say how much room is left. */
-  remainingCapacityL: number | null
-  fitsCapacity: boolean
+  /** The shelves the pieces take, planned alone on this kiln's shelves (a half shelf is half a shelf). */
+  shelvesNeeded: number
+  /** Shelves the load has left for pieces as tall as the tallest here; null when the firing says nothing of its load. */
+  shelvesLeft: number | null
+  fitsLoad: boolean
 }
 
 export interface WareCheck {
@@ -183,55 +203,6 @@ export interface WareCheck {
   findings: Finding[]
   schedule: FiringSchedule
   fit: Fit
-}
-
-/** A kiln shelf, 5/8 in (16 mm) cordierite, the common thickness. */
-export const SHELF_THICKNESS_MM = 16
-/**
- * Room besides the bottom shelf: the posts under it and clearance under the lid and elements. With
- * the shelf that is about 65 mm of the chamber's height (from memory).
- */
-export const HEADROOM_MM = 49
-/** Shelves are about 50 mm smaller than the chamber so they clear the walls and let heat move (from memory). */
-export const SHELF_CLEARANCE_MM = 50
-
-/** The tallest piece the kiln takes: as stated, or the interior height less one shelf and headroom. */
-export function usableHeightMm(kiln: Pick<Kiln, 'interior' | 'usableHeightMm'>): number {
-  if (kiln.usableHeightMm !== undefined) return kiln.usableHeightMm
-  return Math.max(0, kiln.interior.heightMm - SHELF_THICKNESS_MM - HEADROOM_MM)
-}
-
-// A test kiln a few inches across has shelves cut to fit it: the clearance never takes more than a quarter.
-function shelfAcross(chamberMm: number): number {
-  return chamberMm - Math.min(SHELF_CLEARANCE_MM, chamberMm / 4)
-}
-
-export function shelfFootprint(kiln: Pick<Kiln, 'interior'>): ShelfFootprint {
-  const interior = kiln.interior
-  if (interior.shape === 'round') return { shape: 'round', diameterMm: shelfAcross(interior.diameterMm) }
-  return { shape: 'box', widthMm: shelfAcross(interior.widthMm), depthMm: shelfAcross(interior.depthMm) }
-}
-
-/** Shelf area in mm², for shelf-share pricing. */
-export function shelfAreaMm2(kiln: Pick<Kiln, 'interior'>): number {
-  const shelf = shelfFootprint(kiln)
-  if (shelf.shape === 'round') return (Math.PI * shelf.diameterMm * shelf.diameterMm) / 4
-  return shelf.widthMm * shelf.depthMm
-}
-
-/** Chamber volume in litres (interior, before shelves). */
-export function kilnVolumeL(kiln: Pick<Kiln, 'interior'>): number {
-  const interior = kiln.interior
-  const mm3 =
-    interior.shape === 'round'
-      ? (Math.PI * interior.diameterMm * interior.diameterMm * interior.heightMm) / 4
-      : interior.widthMm * interior.depthMm * interior.heightMm
-  return mm3 / 1_000_000
-}
-
-/** A round piece's depth is its diameter; otherwise width and depth as given. */
-export function pieceDepthMm(piece: Pick<Piece, 'widthMm' | 'depthMm' | 'round'>): number {
-  return piece.round === true ? piece.widthMm : piece.depthMm
 }
 
 /**
@@ -292,8 +263,14 @@ function degrees(celsius: number): string {
   return `${Math.round(celsius)} °C (${Math.round(cToF(celsius))} °F)`
 }
 
-function litres(value: number): string {
-  return `${value.toFixed(1)} L`
+/** A shelf share in words: "¾ of a shelf", "2¼ shelves". */
+export function shelvesWords(shelves: number): string {
+  const quarters = Math.round(shelves * 4)
+  const whole = Math.floor(quarters / 4)
+  const part = ['', '¼', '½', '¾'][quarters % 4]
+  if (quarters === 0) return shelves > 0 ? 'a sliver of a shelf' : 'no shelf space'
+  if (whole === 0) return `${part} of a shelf`
+  return `${whole}${part} ${whole === 1 && !part ? 'shelf' : 'shelves'}`
 }
 
 function pieceName(piece: Piece, index: number): string {
@@ -800,14 +777,27 @@ export function checkWare(kiln: Kiln, firing: Firing, pieces: readonly Piece[]):
     }
   }
 
-  const remaining = firing.remainingCapacityL
-  const fitsCapacity = remaining === undefined || volumeL <= remaining
-  if (!fitsCapacity) {
+  const load = loadKiln(kiln)
+  const need = shelfShare(
+    load,
+    gapFor(load, kind),
+    pieces.flatMap((piece, index) => piecesOfLine(`w:${index}`, piece)),
+  ).shelves
+  const room = firing.load?.room
+  const tallest = pieces.reduce((h, piece) => Math.max(h, piece.heightMm), 0)
+  const shelvesLeft = room ? shelvesLeftFor(room, tallest) : null
+  const fitsLoad =
+    firing.load === undefined || (firing.load.fits ?? (shelvesLeft !== null && need <= shelvesLeft + 1e-9 && tallest <= room!.tallestMm))
+  if (!fitsLoad) {
     findings.push({
       code: 'over-capacity',
       severity: 'block',
-      message: `These pieces take about ${litres(volumeL)} of kiln space; this firing has ${litres(remaining as number)} left. Bring fewer pieces or ask for space in another firing.`,
-      detail: 'Space is counted as each piece’s bounding box (height × width × depth).',
+      message:
+        room && tallest > room.tallestMm
+          ? `The tallest piece stands ${mm(tallest)}; this firing’s load has room for pieces up to ${mm(room.tallestMm)}. Bring shorter pieces or ask for space in another firing.`
+          : `These pieces take about ${shelvesWords(need)}; this firing has ${shelvesWords(shelvesLeft ?? 0)} left for pieces this tall. Bring fewer pieces or ask for space in another firing.`,
+      detail:
+        'Space is planned shelf by shelf: every piece’s footprint with the studio’s gap between glazed pieces, every layer as tall as its tallest piece.',
     })
   }
 
@@ -845,8 +835,9 @@ export function checkWare(kiln: Kiln, firing: Firing, pieces: readonly Piece[]):
       shelf,
       pieces: fits,
       requestVolumeL: volumeL,
-      remainingCapacityL: remaining ?? null,
-      fitsCapacity,
+      shelvesNeeded: need,
+      shelvesLeft,
+      fitsLoad,
     },
   }
 }

@@ -1,11 +1,12 @@
 // Prices a firing request from a studio's price list. Money is integer cents throughout; fractional
 // amounts appear only inside a line's arithmetic and are rounded half-up once, at the line.
 
-import { shelfAreaMm2, pieceDepthMm, type Firing, type Kiln, type Piece } from './check'
+import { pieceDepthMm, type Firing, type FiringKind, type Kiln, type Piece } from './check'
+import { gapFor, loadKiln, piecesOfLine, shelfShare } from './load'
 import { THICK_WALL_MM, wareAsksForSlowCooling } from './schedule'
 import { MM3_PER_LITRE, MM_PER_INCH } from './units'
 
-export type PricingModel = 'volume' | 'shelf' | 'kiln'
+export type PricingModel = 'volume' | 'shelf' | 'layer' | 'kiln'
 
 export interface PriceList {
   /** ISO 4217 code, e.g. "USD". */
@@ -18,6 +19,8 @@ export interface PriceList {
   shelfStep?: number
   /** Shelf area for shelf pricing when no kiln is given to quoteRequest. */
   shelfAreaMm2?: number
+  /** The price of a whole layer (every shelf at one level); sold in shelfStep shares. */
+  layerCents?: number
   kilnCents?: number
   minimumPerPieceCents?: number
   /** Percent of the base price. */
@@ -37,8 +40,12 @@ export interface Quote {
   depositCents: number
 }
 
-/** The parts of a kiln a quote can use: shelf size for shelf pricing, and what it can do for surcharges. */
-export type QuoteKiln = Pick<Kiln, 'interior' | 'controlledCooling' | 'preheatHold'>
+/** The parts of a kiln a quote can use: its shelves for shelf and layer pricing, and what it can do for surcharges. */
+export type QuoteKiln = Pick<Kiln, 'interior' | 'controlledCooling' | 'preheatHold'> &
+  Partial<Pick<Kiln, 'usableHeightMm' | 'shelfLoadKg' | 'shelves'>>
+
+/** The firing facts a quote reads: the kind sets the gap between pieces when shelves are planned. */
+export type QuoteFiring = Pick<Firing, 'atmosphere' | 'slowCool'> & { kind?: FiringKind }
 
 export const DEFAULT_SHELF_STEP = 0.25
 
@@ -65,7 +72,25 @@ function percentLabel(percent: number): string {
   return `${Number(percent.toFixed(2))} %`
 }
 
-function baseLines(priceList: PriceList, pieces: readonly Piece[], kiln: QuoteKiln | undefined): QuoteLine[] {
+/**
+ * The shelves (or layers) the pieces take, planned alone on the kiln's own shelves (shared/firing/load.ts):
+ * a shelf with no room for another of the smallest piece counts whole, the others by their pieces'
+ * footprint area. Pieces the kiln cannot take at all are counted by footprint area, as before a plan.
+ */
+function plannedShare(kiln: QuoteKiln, firing: QuoteFiring, pieces: readonly Piece[], unit: 'shelves' | 'layers'): number {
+  const load = loadKiln(kiln)
+  const loadPieces = pieces.flatMap((piece, index) => piecesOfLine(`q:${index}`, piece))
+  const share = shelfShare(load, gapFor(load, firing.kind ?? 'glaze'), loadPieces)
+  let planned = unit === 'shelves' ? share.shelves : share.layers
+  if (share.unplacedAreaMm2 > 0) {
+    const shelf = load.shelves[0]
+    const perUnit = unit === 'shelves' ? shelf.areaMm2 / shelf.units : load.shelves.reduce((sum, g) => sum + g.areaMm2, 0)
+    planned += share.unplacedAreaMm2 / perUnit
+  }
+  return planned
+}
+
+function baseLines(priceList: PriceList, pieces: readonly Piece[], kiln: QuoteKiln | undefined, firing: QuoteFiring): QuoteLine[] {
   const minimum = priceList.minimumPerPieceCents ?? 0
   let quantity = 0
   for (const piece of pieces) quantity += piece.quantity
@@ -88,19 +113,29 @@ function baseLines(priceList: PriceList, pieces: readonly Piece[], kiln: QuoteKi
   }
 
   let line: QuoteLine
+  const step = priceList.shelfStep ?? DEFAULT_SHELF_STEP
+  // Rounded up to the step; the tolerance keeps an exact half shelf from becoming three quarters.
+  const toStep = (share: number) => Math.ceil(share / step - 1e-9) * step
   if (priceList.model === 'shelf') {
     if (priceList.shelfCents === undefined) throw new RangeError('A shelf price list needs shelfCents.')
-    const areaMm2 = kiln !== undefined ? shelfAreaMm2(kiln) : priceList.shelfAreaMm2
-    if (areaMm2 === undefined || !(areaMm2 > 0)) {
-      throw new RangeError('Shelf pricing needs the shelf size: pass the kiln or set shelfAreaMm2.')
+    let share: number
+    if (kiln !== undefined) share = plannedShare(kiln, firing, pieces, 'shelves')
+    else {
+      const areaMm2 = priceList.shelfAreaMm2
+      if (areaMm2 === undefined || !(areaMm2 > 0)) {
+        throw new RangeError('Shelf pricing needs the shelf size: pass the kiln or set shelfAreaMm2.')
+      }
+      let footprintMm2 = 0
+      for (const piece of pieces) footprintMm2 += piece.widthMm * pieceDepthMm(piece) * piece.quantity
+      share = footprintMm2 / areaMm2
     }
-    const step = priceList.shelfStep ?? DEFAULT_SHELF_STEP
-    let footprintMm2 = 0
-    for (const piece of pieces) footprintMm2 += piece.widthMm * pieceDepthMm(piece) * piece.quantity
-    // Rounded up to the step; the tolerance keeps an exact half shelf from becoming three quarters.
-    const steps = Math.ceil(footprintMm2 / areaMm2 / step - 1e-9)
-    const shelves = steps * step
+    const shelves = toStep(share)
     line = { label: `Shelf space: ${formatShelves(shelves)}`, amountCents: roundHalfUpCents(shelves * priceList.shelfCents) }
+  } else if (priceList.model === 'layer') {
+    if (priceList.layerCents === undefined) throw new RangeError('A layer price list needs layerCents.')
+    if (kiln === undefined) throw new RangeError('Layer pricing needs the kiln, to plan its shelves.')
+    const layers = toStep(plannedShare(kiln, firing, pieces, 'layers'))
+    line = { label: `Kiln layers: ${Number(layers.toFixed(3))} layer`, amountCents: roundHalfUpCents(layers * priceList.layerCents) }
   } else {
     if (priceList.kilnCents === undefined) throw new RangeError('A whole-kiln price list needs kilnCents.')
     line = { label: 'Whole kiln', amountCents: roundHalfUpCents(priceList.kilnCents) }
@@ -115,13 +150,8 @@ function baseLines(priceList: PriceList, pieces: readonly Piece[], kiln: QuoteKi
  * then the deposit (a percent of the total, or a fixed sum never above the total). The kiln, when
  * given, sizes shelf shares and drops surcharges for things the kiln will not do.
  */
-export function quoteRequest(
-  priceList: PriceList,
-  firing: Pick<Firing, 'atmosphere' | 'slowCool'>,
-  pieces: readonly Piece[],
-  kiln?: QuoteKiln,
-): Quote {
-  const lines = baseLines(priceList, pieces, kiln)
+export function quoteRequest(priceList: PriceList, firing: QuoteFiring, pieces: readonly Piece[], kiln?: QuoteKiln): Quote {
+  const lines = baseLines(priceList, pieces, kiln, firing)
   let baseCents = 0
   for (const line of lines) baseCents += line.amountCents
 

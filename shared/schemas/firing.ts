@@ -191,11 +191,6 @@ export const firingSpecSchema = z.object(
     atmosphere: atmosphereSchema,
     cooling: coolingProfileSchema.optional(),
     sharedLoad: z.boolean().optional(),
-    remainingCapacityL: z
-      .number({ error: 'Enter the free space in litres.' })
-      .min(0, { error: 'Free space cannot be below 0 litres.' })
-      .max(100_000, { error: 'Free space can be at most 100 000 litres.' })
-      .optional(),
     slowCool: z.boolean().optional(),
   },
   { error: 'Describe the firing: its kind, cone and atmosphere.' },
@@ -230,7 +225,7 @@ export const priceListSchema = z
         .trim()
         .toUpperCase()
         .regex(/^[A-Z]{3}$/, { error: 'Enter the currency as a three-letter code, like USD or EUR.' }),
-      model: z.enum(['volume', 'shelf', 'kiln'], { error: 'Choose pricing by volume, by shelf or by whole kiln.' }),
+      model: z.enum(['volume', 'shelf', 'layer', 'kiln'], { error: 'Choose pricing by volume, by shelf, by layer or by whole kiln.' }),
       centsPerCubicInch: rateCents('price per cubic inch').optional(),
       centsPerLitre: rateCents('price per litre').optional(),
       shelfCents: cents('shelf price').optional(),
@@ -240,6 +235,7 @@ export const priceListSchema = z
         .max(1, { error: 'The shelf step can be at most one whole shelf.' })
         .optional(),
       shelfAreaMm2: z.number().positive({ error: 'The shelf area must be more than 0.' }).optional(),
+      layerCents: cents('layer price').optional(),
       kilnCents: cents('whole-kiln price').optional(),
       minimumPerPieceCents: cents('minimum per piece').optional(),
       surcharges: z
@@ -270,6 +266,8 @@ export const priceListSchema = z
       }
     } else if (priceList.model === 'shelf' && priceList.shelfCents === undefined) {
       ctx.addIssue({ code: 'custom', path: ['shelfCents'], message: 'For shelf pricing give the price of a whole shelf.' })
+    } else if (priceList.model === 'layer' && priceList.layerCents === undefined) {
+      ctx.addIssue({ code: 'custom', path: ['layerCents'], message: 'For layer pricing give the price of a whole layer.' })
     } else if (priceList.model === 'kiln' && priceList.kilnCents === undefined) {
       ctx.addIssue({ code: 'custom', path: ['kilnCents'], message: 'For whole-kiln pricing give the price of the kiln.' })
     }

@@ -67,15 +67,46 @@ export const firingLogSchema = z.object({
 })
 export type FiringLogBody = z.infer<typeof firingLogSchema>
 
-export const PIECE_OUTCOMES = ['fine', 'cracked', 'blown-out', 'glaze-ran', 'stuck-to-shelf', 'other'] as const
+/** How a piece came out of the kiln. */
+export const PIECE_OUTCOMES = [
+  'fine',
+  'cracked',
+  'dunted',
+  'blown-out',
+  'bloated',
+  'glaze-ran',
+  'stuck-to-shelf',
+  'crawled',
+  'pinholed',
+  'underfired',
+  'crazed',
+  'other',
+] as const
+export type PieceOutcome = (typeof PIECE_OUTCOMES)[number]
 
-export const resultsSchema = z.object({
-  outcomes: z
-    .array(z.object({ pieceIndex: z.number().int().min(0), outcome: z.enum(PIECE_OUTCOMES), notes: text().trim().max(1000).optional() }))
-    .min(1)
-    .max(200),
-  notes: text().trim().max(4000).optional(),
-})
+const outcome = z.enum(PIECE_OUTCOMES, { error: 'Say how the piece came out.' })
+const outcomeNotes = text().trim().max(1000).optional()
+
+/**
+ * The results for a request: per piece by its tag, or one outcome for every piece of a declared line
+ * (a line of mugs that all came out fine). Every piece in the load ends up with an outcome.
+ */
+export const resultsSchema = z
+  .object({
+    outcomes: z
+      .array(z.object({ pieceIndex: z.number().int().min(0), outcome, notes: outcomeNotes }))
+      .max(200)
+      .optional(),
+    pieces: z
+      .array(z.object({ tag: text().trim().min(8).max(12), outcome, notes: outcomeNotes }))
+      .max(5000)
+      .optional(),
+    notes: text().trim().max(4000).optional(),
+  })
+  .refine((b) => (b.outcomes?.length ?? 0) + (b.pieces?.length ?? 0) > 0, {
+    message: 'Give each piece how it came out.',
+    path: ['pieces'],
+  })
 
 const answer = z.enum(ANSWERS, { error: 'Choose yes, partly or no.' })
 

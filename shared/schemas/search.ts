@@ -100,8 +100,8 @@ export interface SearchHit {
   dropOffBy: string
   firingDate: string
   readyBy: string
-  spaceLeftL: number
-  capacityL: number
+  /** The load plan's room: shelves free for short ware, all its shelves, and the tallest piece it takes. */
+  space: { shelvesLeft: number; shelvesTotal: number; tallestMm: number }
   distanceKm: number | null
   priceExample: { label: string; totalCents: number; currency: string } | null
   /** Published answers from potters: how many, and how many would fire there again. */

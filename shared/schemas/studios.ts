@@ -4,6 +4,7 @@ import { text } from './text'
 import { coneSchema, atmosphereSchema, coolingProfileSchema, firingKindSchema, kilnSchema, priceListSchema } from './firing'
 import { FIRING_STATUSES } from '../workflow/firing-status'
 import { SEGMENT_ZONES } from '../firing/schedule'
+import { kilnFurnitureSchema } from './pieces'
 
 export const CLAY_BODIES = ['earthenware', 'stoneware', 'porcelain', 'other'] as const
 
@@ -103,6 +104,8 @@ const kilnExtras = z.object({
   shelfCount: z.number({ error: 'Enter how many shelves.' }).int('Enter a whole number of shelves.').min(0).max(60),
   shelfWidthMm: z.number().positive('The shelf size must be more than 0.').max(5000).nullable().optional(),
   shelfDepthMm: z.number().positive('The shelf size must be more than 0.').max(5000).nullable().optional(),
+  /** Half shelves, posts, gaps and clearances for the load planner; null for the usual ones. */
+  furniture: kilnFurnitureSchema.nullable().optional(),
   notes: longText(2000, 'notes').optional(),
 })
 
@@ -135,7 +138,14 @@ const firingFields = {
   dropOffBy: instant('drop-off deadline'),
   firingDate: instant('firing date'),
   readyBy: instant('ready-by date'),
-  capacityL: z.number({ error: 'Enter the space on sale, in litres.' }).positive('The space on sale must be more than 0.').max(100_000),
+  /** Layers of the kiln on sale in this firing; every layer when left empty. */
+  layersOnSale: z
+    .number({ error: 'Enter how many layers are on sale.' })
+    .int('Enter whole layers.')
+    .min(1, 'Put at least one layer on sale.')
+    .max(60, 'At most 60 layers.')
+    .nullable()
+    .optional(),
   notes: longText(2000, 'notes').optional(),
   schedule: z.array(segmentSchema).max(60).nullable().optional(),
 }

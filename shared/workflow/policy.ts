@@ -17,6 +17,8 @@ export const REQUEST_ACTIONS = [
   'cancel',
   'counter-payment',
   'check-in',
+  'tag-piece',
+  'hold-piece',
   'confirm-price',
   'decline-price',
   'results',
@@ -59,8 +61,8 @@ const TABLE: Table = {
   draft: { potter: ['edit', 'send', 'message'], studio: [], admin: [] },
   sent: { potter: ['withdraw', 'answer-move', 'message'], studio: ['accept', 'decline', 'move', 'message'], admin: [] },
   accepted: { potter: ['withdraw', 'pay-deposit', 'message'], studio: ['cancel', 'counter-payment', 'message'], admin: [] },
-  deposit_paid: { potter: ['withdraw', 'message'], studio: ['cancel', 'check-in', 'message'], admin: [] },
-  received: { potter: ['confirm-price', 'decline-price', 'message'], studio: ['message'], admin: [] },
+  deposit_paid: { potter: ['withdraw', 'message'], studio: ['cancel', 'tag-piece', 'hold-piece', 'check-in', 'message'], admin: [] },
+  received: { potter: ['confirm-price', 'decline-price', 'message'], studio: ['hold-piece', 'message'], admin: [] },
   fired: { potter: ['dispute', 'message'], studio: ['results', 'ready', 'dispute', 'message'], admin: [] },
   ready: {
     potter: ['pay-balance', 'dispute', 'message'],
@@ -117,6 +119,8 @@ const REFINE: Partial<Record<RequestAction, (facts: RequestFacts, side: Side) =>
   'pay-deposit': (f) => f.depositOwedCents > 0,
   'counter-payment': (f) => owesMoney(f),
   'check-in': (f) => beforeLoading(f.firingStatus),
+  'tag-piece': (f) => beforeLoading(f.firingStatus),
+  'hold-piece': (f) => beforeLoading(f.firingStatus),
   'confirm-price': (f) => f.pricePending,
   'decline-price': (f) => f.pricePending,
   ready: (f) => f.resultsPosted,
@@ -151,6 +155,8 @@ const ACTION_WORDS: Record<RequestAction, string> = {
   cancel: 'call it off',
   'counter-payment': 'take a payment at the counter',
   'check-in': 'take the ware in',
+  'tag-piece': 'tag a piece at drop-off',
+  'hold-piece': 'hold a piece back or take it in again',
   'confirm-price': 'confirm the new price',
   'decline-price': 'turn down the new price',
   results: 'post results',
@@ -172,6 +178,8 @@ const NOT_NOW: Partial<Record<RequestAction, (facts: RequestFacts) => Omit<Refus
   'pay-balance': () => ({ code: 'nothing-owed', message: 'Nothing is owed.' }),
   'counter-payment': () => ({ code: 'nothing-owed', message: 'Nothing is owed at this point.' }),
   'check-in': () => ({ code: 'firing-loaded', message: 'The firing is already loaded; ware can no longer be taken in.' }),
+  'tag-piece': () => ({ code: 'firing-loaded', message: 'The firing is already loaded; pieces can no longer be tagged in.' }),
+  'hold-piece': () => ({ code: 'firing-loaded', message: 'The firing is already loaded; a piece can no longer be held back.' }),
   'confirm-price': () => ({ code: 'nothing-to-confirm', message: 'No changed price waits for your answer.' }),
   'decline-price': () => ({ code: 'nothing-to-confirm', message: 'No changed price waits for your answer.' }),
   ready: () => ({ code: 'results-missing', message: 'Post the results first: the potter hears about them with the ready mail.' }),
@@ -194,7 +202,7 @@ export function refusalOf(action: RequestAction, facts: RequestFacts, side: Side
     const code = side === 'potter' ? 'not-the-studio' : side === 'studio' ? 'not-the-potter' : 'not-your-side'
     return { status: 403, code, message: `Only ${who} can ${ACTION_WORDS[action]}.` }
   }
-  if (action === 'check-in' && facts.state === 'accepted') {
+  if ((action === 'check-in' || action === 'tag-piece') && facts.state === 'accepted') {
     return {
       status: 409,
       code: 'deposit-unpaid',

@@ -27,6 +27,9 @@ export const pages = {
   joinStudio: () => import('../features/studios/pages/JoinStudioPage'),
   frontDesk: () => import('../features/admin/pages/FrontDeskPage'),
   notices: () => import('../features/notices/pages/NoticesPage'),
+  piece: () => import('../features/load/pages/PiecePage'),
+  load: () => import('../features/load/pages/LoadPage'),
+  unload: () => import('../features/load/pages/UnloadPage'),
 }
 
 export type PageName = keyof typeof pages | 'landing' | 'notFound'
@@ -45,6 +48,8 @@ export const nextLikely: Partial<Record<PageName, (keyof typeof pages)[]>> = {
   myWare: ['request', 'find'],
   request: ['myWare'],
   kilnRoom: ['inbox', 'calendar'],
-  inbox: ['request'],
+  inbox: ['request', 'load'],
+  load: ['unload', 'piece'],
+  unload: ['piece'],
   calendar: ['firingLog'],
 }

@@ -30,6 +30,13 @@ export const keys = {
     all: ['firings'] as const,
     detail: (id: string) => ['firings', id] as const,
     log: (id: string) => ['firings', id, 'log'] as const,
+    /** The firing's load plan: layers, shelves and the pieces on them. */
+    load: (id: string) => ['firings', id, 'load'] as const,
+  },
+  /** A piece opened by its tag (the tag as printed, K4XR-7M2H). */
+  pieces: {
+    all: ['pieces'] as const,
+    detail: (tag: string) => ['pieces', tag] as const,
   },
   kilns: {
     detail: (id: string) => ['kilns', id] as const,

@@ -176,6 +176,12 @@ export function formatVolume(litres: number, units: UnitSystem): string {
   return `${trimmed(cubicFeet, cubicFeet >= 10 ? 0 : cubicFeet >= 1 ? 1 : 2)} cu ft`
 }
 
+/** Space in a load, in shelves of the kiln (a half shelf is half a shelf), the way crew count it. */
+export function formatShelves(shelves: number): string {
+  const n = trimmed(shelves, 1)
+  return `${n} ${n === '1' ? 'shelf' : 'shelves'}`
+}
+
 export function formatDuration(minutes: number): string {
   const whole = Math.round(minutes)
   const hours = Math.floor(whole / 60)

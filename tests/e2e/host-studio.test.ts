@@ -44,9 +44,8 @@ function studioLocal(days: number, hour: string): string {
 
 // Exact definitions (NIST SP 811): 1 in = 25.4 mm, 1 ft = 12 in; t/°C = (t/°F − 32) / 1.8.
 const MM_PER_INCH = 25.4
-const LITRES_PER_CUBIC_FOOT = (12 * MM_PER_INCH) ** 3 / 1e6
-const CAPACITY_CUBIC_FEET = 3
-const CAPACITY_L = CAPACITY_CUBIC_FEET * LITRES_PER_CUBIC_FOOT
+/** Two layers of the round kiln on sale: one round shelf each, so two shelves of space. */
+const LAYERS_ON_SALE = 2
 
 let studioId = ''
 let kilnId = ''
@@ -124,15 +123,12 @@ describe('a studio owner sets up a studio and crew in the browser', () => {
     await firingForm.getByLabel(/^Drop-off closes/).fill(studioLocal(5, '12:00'))
     await firingForm.getByLabel(/^Firing starts/).fill(studioLocal(7, '18:00'))
     await firingForm.getByLabel(/^Ready for pickup/).fill(studioLocal(10, '12:00'))
-    await firingForm.getByLabel('Space on sale (cu ft)').fill(String(CAPACITY_CUBIC_FEET))
+    await firingForm.getByLabel('Layers on sale').fill(String(LAYERS_ON_SALE))
     await firingForm.getByRole('button', { name: 'Post the firing' }).click()
     await firingForm.waitFor({ state: 'detached' })
     const hostRow = page.getByTestId('firing-row')
     await hostRow.waitFor()
-    // An imperial reader reads space in cubic feet only; the API keeps it in litres.
-    expect(await hostRow.getByTestId('space-left').textContent()).toContain(`${CAPACITY_CUBIC_FEET} cu ft left`)
-    const posted = (await (await page.request.get(`/api/studios/${studioId}/firings`)).json()) as { firings: { capacityL: number }[] }
-    expect(posted.firings[0].capacityL).toBeCloseTo(CAPACITY_L, 1)
+    expect(await hostRow.getByTestId('space-left').textContent()).toContain(`${LAYERS_ON_SALE} shelves left`)
 
     await page.getByRole('link', { name: 'Edit studio' }).click()
     await page.waitForURL(`**/studios/${studioId}/edit`)
@@ -147,7 +143,7 @@ describe('a studio owner sets up a studio and crew in the browser', () => {
     const row = visitor.page.getByTestId('firing-row')
     await row.waitFor()
     expect(await row.count()).toBe(1)
-    expect(await row.getByTestId('space-left').textContent()).toContain(`${CAPACITY_CUBIC_FEET} cu ft left`)
+    expect(await row.getByTestId('space-left').textContent()).toContain(`${LAYERS_ON_SALE} shelves left`)
     // 6 pm typed as Portland time reads 6 pm Portland time, though both browsers sit in Tokyo.
     expect(await row.textContent()).toMatch(/6:00\sPM P[DS]T/)
     expect(await row.textContent()).toContain('Glaze, cone 6 oxidation')

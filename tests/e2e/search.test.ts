@@ -51,7 +51,6 @@ async function studioWithKiln(
   for (const { dropInDays, ...firing } of firings) {
     const reply = await host.session.post(`/api/kilns/${created.body.id}/firings`, {
       kind: 'glaze',
-      capacityL: 60,
       ...firing,
       dropOffBy: days(dropInDays).toISOString(),
       firingDate: days(dropInDays + 2).toISOString(),

@@ -421,7 +421,7 @@ describe('lock order', () => {
   it('races an accept against the firing’s cancellation 50 times: no 5xx, every request consistent, never oversold', async () => {
     const actor = await app.ctx.db.getRepository(User).findOneByOrFail({ id: owner.id })
     for (let i = 0; i < 50; i++) {
-      const firing = await freshFiring({ capacityL: 3 })
+      const firing = await freshFiring({ layersOnSale: 1 })
       const requests = [
         await draftAndSend(potter.session, firing.id, [mug({ quantity: 1 })]),
         await draftAndSend(otherPotter.session, firing.id, [mug({ quantity: 1 })]),

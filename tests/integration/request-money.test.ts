@@ -36,20 +36,28 @@ const paidRequest = (firingId = ids.firingId) => sendAndPayDeposit(app, owner.se
 
 describe('capacity is never oversold', () => {
   it('with 50 accepts racing for the last space, exactly the space there is gets accepted', async () => {
-    // 50 requests of one mug each (100 × 90 × 115 mm = 1.035 L) into a firing offering 10 L: nine fit.
-    const firing = (await owner.session.post(`/api/kilns/${ids.kilnId}/firings`, firingBody({ capacityL: 10 }))).body.firings[0]
+    // 50 requests of one mug each (100 × 90 × 115 mm) into a firing offering one layer (one 660 mm round
+    // shelf): fewer than 50 fit, and every one taken on must have its place in the load plan.
+    const firing = (await owner.session.post(`/api/kilns/${ids.kilnId}/firings`, firingBody({ layersOnSale: 1 }))).body.firings[0]
     const requests = []
     for (let i = 0; i < 50; i++) requests.push(await draftAndSend(potter.session, firing.id, [mug({ quantity: 1 })]))
     const replies = await Promise.all(requests.map((r) => owner.session.post(`/api/requests/${r.id}/accept`)))
     const accepted = replies.filter((r) => r.status === 200)
     const refused = replies.filter((r) => r.status === 409)
-    expect(accepted).toHaveLength(Math.floor(10 / requests[0].volumeL))
+    expect(accepted.length).toBeGreaterThan(0)
     expect(refused).toHaveLength(50 - accepted.length)
+    expect(refused.length).toBeGreaterThan(0)
     expect(refused.every((r) => r.body.error.code === 'no-space')).toBe(true)
-    const after = (await new HttpSession(app.url).get(`/api/firings/${firing.id}`)).body
-    expect(after.heldL).toBeLessThanOrEqual(10)
-    expect(after.spaceLeftL).toBeLessThan(requests[0].volumeL)
-  }, 120_000)
+    const plan = (await owner.session.get(`/api/firings/${firing.id}/load-plan`)).body
+    const placed = plan.layers.flatMap((l: { shelves: { pieces: unknown[] }[] }) => l.shelves.flatMap((s) => s.pieces))
+    expect(placed).toHaveLength(accepted.length)
+    expect(plan.layers).toHaveLength(1)
+    expect(plan.unplaced).toEqual([])
+    expect(plan.problems).toEqual([])
+    // Asked again once the race is over, a refused one is still refused: the load is full.
+    const retry = await owner.session.post(`/api/requests/${requests[replies.findIndex((r) => r.status === 409)].id}/accept`)
+    expect(retry.status).toBe(409)
+  }, 300_000)
 })
 
 describe('the deposit', () => {
@@ -162,17 +170,17 @@ describe('webhooks', () => {
 
 describe('the deposit hold', () => {
   it('releases the space of an unpaid accepted request when it runs out, and tells both sides', async () => {
-    const firing = (await owner.session.post(`/api/kilns/${ids.kilnId}/firings`, firingBody({ capacityL: 20 }))).body.firings[0]
+    const firing = (await owner.session.post(`/api/kilns/${ids.kilnId}/firings`, firingBody())).body.firings[0]
     const sent = await draftAndSend(potter.session, firing.id, [mug()])
     await owner.session.post(`/api/requests/${sent.id}/accept`)
-    expect((await new HttpSession(app.url).get(`/api/firings/${firing.id}`)).body.heldL).toBeGreaterThan(0)
+    expect((await new HttpSession(app.url).get(`/api/firings/${firing.id}`)).body.space.shelvesTaken).toBeGreaterThan(0)
     // Not yet due: nothing happens.
     expect(await expireDepositHold(app.ctx, sent.id)).toBe(false)
     // The queued job, brought forward to now, releases it.
     await app.ctx.db.query(`UPDATE firing_requests SET deposit_due_at = now() - interval '1 second' WHERE id = $1`, [sent.id])
     await app.ctx.db.query(`UPDATE graphile_worker._private_jobs SET run_at = now() WHERE key = $1`, [`deposit-expiry:${sent.id}`])
     await expect.poll(() => state(sent.id), { timeout: 60_000 }).toBe('lapsed')
-    expect((await new HttpSession(app.url).get(`/api/firings/${firing.id}`)).body.heldL).toBe(0)
+    expect((await new HttpSession(app.url).get(`/api/firings/${firing.id}`)).body.space.shelvesTaken).toBe(0)
     const mails = (await app.ctx.db.getRepository(OutboundMail).findBy({ template: 'lapsed' })).filter((m) => m.bodyText.includes(sent.id))
     expect(mails.map((m) => m.toAddress).sort()).toEqual([owner.email, potter.email].sort())
     const view = (await potter.session.get(`/api/requests/${sent.id}`)).body

@@ -45,7 +45,6 @@ async function studioWithKiln(
     const reply = await owner.session.post(`/api/kilns/${created.body.id}/firings`, {
       kind: 'glaze',
       atmosphere: 'oxidation',
-      capacityL: 50,
       ...firing,
       dropInDays: undefined,
       dropOffBy: days(drop).toISOString(),
@@ -324,7 +323,6 @@ describe('with the engine down', () => {
         kind: 'glaze',
         cone: '5',
         atmosphere: 'oxidation',
-        capacityL: 30,
         dropOffBy: days(9).toISOString(),
         firingDate: days(10).toISOString(),
         readyBy: days(12).toISOString(),

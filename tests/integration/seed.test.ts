@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { seedDemo, DEMO_PASSWORD } from '../../server/db/seed'
+import { firingLoadPlan } from '../../server/services/load-plan'
 import { HttpSession } from '../support/http-client'
 import { startTestApp, type TestApp } from '../support/test-app'
 
@@ -44,11 +45,15 @@ describe('the demo data', () => {
     })
   })
 
-  it('has a firing nearly full', async () => {
-    const rows = await app.ctx.db.query(
-      `SELECT f.capacity_l, sum(r.volume_l) AS held FROM firings f JOIN firing_requests r ON r.firing_id = f.id
-       WHERE r.state IN ('accepted', 'deposit_paid') GROUP BY f.id, f.capacity_l`,
+  it('has a glaze firing whose ware is checked in as tagged pieces, every one planned on the shelves', async () => {
+    const rows: { firing_id: string; tags: string[] }[] = await app.ctx.db.query(
+      `SELECT r.firing_id, array_agg(p.tag) AS tags FROM pieces p JOIN firing_requests r ON r.id = p.request_id
+       JOIN firings f ON f.id = r.firing_id WHERE f.kind = 'glaze' AND p.status = 'in-load' GROUP BY r.firing_id`,
     )
-    expect(rows.some((r: { capacity_l: number; held: number }) => r.held / r.capacity_l > 0.8)).toBe(true)
+    expect(rows.length).toBeGreaterThan(0)
+    const plan = await firingLoadPlan(app.ctx, rows[0].firing_id)
+    const placed = plan.layers.flatMap((l) => l.shelves.flatMap((s) => s.pieces.map((p) => p.tag)))
+    expect(placed).toEqual(expect.arrayContaining(rows[0].tags))
+    expect(plan.unplaced).toEqual([])
   })
 })

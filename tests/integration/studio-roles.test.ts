@@ -119,10 +119,10 @@ const ROUTES: WriteRoute[] = [
     expect: { owner: 201, crew: 201, ...refused, admin: 201 },
   },
   {
-    name: 'change a firing’s space',
+    name: 'change a firing’s layers on sale',
     method: 'PATCH',
     path: async () => `/api/firings/${await freshFiring()}`,
-    body: { capacityL: 30 },
+    body: { layersOnSale: 2 },
     expect: { owner: 200, crew: 200, ...refused, admin: 200 },
   },
   {

@@ -80,8 +80,8 @@ describe('bad input gets 400 with field messages', () => {
     ['an unknown cone', firingBody({ cone: '15' }), 'cone'],
     ['a cone the kiln cannot reach', firingBody({ cone: '12' }), 'cone'],
     ['an atmosphere the kiln lacks', firingBody({ atmosphere: 'reduction' }), 'atmosphere'],
-    ['negative capacity', firingBody({ capacityL: -3 }), 'capacityL'],
-    ['more space than the kiln holds', firingBody({ capacityL: 5000 }), 'capacityL'],
+    ['no layers on sale', firingBody({ layersOnSale: 0 }), 'layersOnSale'],
+    ['more layers than the kiln’s shelves make', firingBody({ layersOnSale: 40 }), 'layersOnSale'],
   ])('a firing with %s', async (_what, body, field) => {
     const reply = await owner.session.post(`/api/kilns/${ids.kilnId}/firings`, body)
     expect(reply.status).toBe(400)
@@ -99,6 +99,20 @@ describe('bad input gets 400 with field messages', () => {
   })
 })
 
+describe('pricing by the layer', () => {
+  it('keeps a per-layer price list and gives it back as written', async () => {
+    const before = await owner.session.get(`/api/kilns/${ids.kilnId}/price-list`)
+    const layer = { currency: 'USD', model: 'layer', layerCents: 4000, deposit: { percent: 20 } }
+    const put = await owner.session.put(`/api/kilns/${ids.kilnId}/price-list`, layer)
+    expect(put.status).toBe(200)
+    const read = await owner.session.get(`/api/kilns/${ids.kilnId}/price-list`)
+    expect(read.body.priceList).toMatchObject({ model: 'layer', layerCents: 4000 })
+    // The later tests quote against the kiln's first price list.
+    if (before.status === 200)
+      expect((await owner.session.put(`/api/kilns/${ids.kilnId}/price-list`, before.body.priceList)).status).toBe(200)
+  })
+})
+
 describe('the database refuses what must never hold', () => {
   it.each([
     ['a reversed cone range', `UPDATE kilns SET min_cone = '10', max_cone = '04' WHERE id = $1`],
@@ -109,7 +123,7 @@ describe('the database refuses what must never hold', () => {
   })
 
   it.each([
-    ['negative capacity', `UPDATE firings SET capacity_l = -1 WHERE id = $1`],
+    ['no layers on sale', `UPDATE firings SET layers_on_sale = 0 WHERE id = $1`],
     ['drop-off after the firing', `UPDATE firings SET drop_off_by = firing_date + interval '1 day' WHERE id = $1`],
   ])('on firings: %s', async (_what, sql) => {
     await expect(app.ctx.db.query(sql, [ids.firingId])).rejects.toThrow(/violates check constraint/)
@@ -117,13 +131,16 @@ describe('the database refuses what must never hold', () => {
 })
 
 describe('space left in a firing', () => {
-  async function addRequest(firingId: string, state: FiringRequest['state'], volumeL: number) {
-    await app.ctx.db.getRepository(FiringRequest).save({
+  // A 500 mm platter on the test kiln's 660 mm round shelves: no second one fits beside it, so each
+  // takes a layer of its own.
+  const platter = { label: 'Platter', quantity: 1, heightMm: 60, widthMm: 500, depthMm: 500, round: true }
+  async function addRequest(firingId: string, state: FiringRequest['state']) {
+    return app.ctx.db.getRepository(FiringRequest).save({
       firingId,
       potterId: potter.id,
       state,
-      pieces: [],
-      volumeL,
+      pieces: [platter],
+      volumeL: 12,
       verdict: 'ok',
       findings: [],
       acknowledgedWarnings: [],
@@ -131,25 +148,30 @@ describe('space left in a firing', () => {
     })
   }
 
-  it('is the capacity less what accepted-and-later requests hold; sent, declined and withdrawn hold nothing', async () => {
-    const firing = (await owner.session.post(`/api/kilns/${ids.kilnId}/firings`, firingBody({ capacityL: 100 }))).body.firings[0]
-    await addRequest(firing.id, 'accepted', 30)
-    await addRequest(firing.id, 'deposit_paid', 20.5)
-    await addRequest(firing.id, 'received', 4)
-    await addRequest(firing.id, 'sent', 40)
-    await addRequest(firing.id, 'declined', 10)
-    await addRequest(firing.id, 'withdrawn', 7)
-    const reply = await new HttpSession(app.url).get(`/api/firings/${firing.id}`)
-    expect(reply.body).toMatchObject({ capacityL: 100, heldL: 54.5, spaceLeftL: 45.5 })
+  it('is what the load plan still takes: ware taken on has its place; sent, declined and withdrawn hold none', async () => {
+    const firing = (await owner.session.post(`/api/kilns/${ids.kilnId}/firings`, firingBody())).body.firings[0]
+    const before = (await new HttpSession(app.url).get(`/api/firings/${firing.id}`)).body.space
+    const held = [await addRequest(firing.id, 'accepted'), await addRequest(firing.id, 'deposit_paid')]
+    for (const state of ['sent', 'declined', 'withdrawn'] as const) await addRequest(firing.id, state)
+    const after = (await new HttpSession(app.url).get(`/api/firings/${firing.id}`)).body.space
+    expect(before).toMatchObject({ shelvesTaken: 0, layersUsed: 0 })
+    expect(after.layersUsed).toBe(2)
+    expect(after.shelvesTaken).toBeGreaterThan(0)
+    expect(after.shelvesTotal).toBe(before.shelvesTotal)
+    const plan = (await owner.session.get(`/api/firings/${firing.id}/load-plan`)).body
+    const placed = plan.layers.flatMap((l: { shelves: { pieces: { requestId: string }[] }[] }) => l.shelves.flatMap((s) => s.pieces))
+    expect(placed.map((p: { requestId: string }) => p.requestId).sort()).toEqual(held.map((r) => r.id).sort())
+    expect(plan.unplaced).toEqual([])
   })
 
-  it('cannot be offered below what is already held', async () => {
-    const firing = (await owner.session.post(`/api/kilns/${ids.kilnId}/firings`, firingBody({ capacityL: 60 }))).body.firings[0]
-    await addRequest(firing.id, 'accepted', 25)
-    const reply = await owner.session.patch(`/api/firings/${firing.id}`, { capacityL: 20 })
+  it('cannot be offered in fewer layers than the ware taken on already fills', async () => {
+    const firing = (await owner.session.post(`/api/kilns/${ids.kilnId}/firings`, firingBody())).body.firings[0]
+    await addRequest(firing.id, 'accepted')
+    await addRequest(firing.id, 'accepted')
+    const reply = await owner.session.patch(`/api/firings/${firing.id}`, { layersOnSale: 1 })
     expect(reply.status).toBe(409)
-    expect(reply.body.error.code).toBe('capacity-below-held')
-    expect((await owner.session.patch(`/api/firings/${firing.id}`, { capacityL: 25 })).status).toBe(200)
+    expect(reply.body.error.code).toBe('layers-below-held')
+    expect((await owner.session.patch(`/api/firings/${firing.id}`, { layersOnSale: 2 })).status).toBe(200)
   })
 })
 

@@ -35,7 +35,6 @@ export function firingBody(overrides: Record<string, unknown> = {}) {
     dropOffBy: days(5),
     firingDate: days(7),
     readyBy: days(10),
-    capacityL: 100,
     ...overrides,
   }
 }

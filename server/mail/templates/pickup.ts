@@ -7,7 +7,7 @@ import type { RequestFacts } from './requests'
 const title = (r: RequestFacts) => `${formatCone(r.cone)} ${r.atmosphere} ${r.kind} firing at ${r.studioName}`
 
 export interface CheckInFacts {
-  rows: { label: string; declared: number; received: number; measured?: string }[]
+  rows: { label: string; declared: number; received: number; held?: number; measured?: string }[]
   conditionNotes: string
   quoteBeforeCents: number
   quoteAfterCents: number
@@ -30,7 +30,10 @@ export function dropOffMail(r: RequestFacts, c: CheckInFacts): MailContent {
     ],
     details: c.rows.map(
       (row) =>
-        [row.label, `${row.received} of ${row.declared} received${row.measured ? `, measured ${row.measured}` : ''}`] as [string, string],
+        [
+          row.label,
+          `${row.received} of ${row.declared} received${row.held ? `, ${row.held} held back` : ''}${row.measured ? `, measured ${row.measured}` : ''}`,
+        ] as [string, string],
     ),
     action: { label: changed && c.needsConfirmation ? 'Confirm the new price' : 'See it on Conewright', url: r.requestUrl },
   }
@@ -211,5 +214,39 @@ export function reviewsPublishedMail(r: RequestFacts, audience: 'potter' | 'stud
         : 'What you said about the potter now shows on their record to studios.',
     ],
     action: { label: 'See the answers', url: r.requestUrl },
+  }
+}
+
+/** One piece of a request, as a mail names it. */
+export interface PieceFacts {
+  tag: string
+  label: string
+  copy: number
+  of: number
+}
+
+const pieceName = (p: PieceFacts) => `${p.label} ${p.copy} of ${p.of} (tag ${p.tag})`
+
+/** A piece held back at drop-off or before loading: the reason, and that the rest of the ware goes on. */
+export function pieceHeldMail(r: RequestFacts, piece: PieceFacts, reason: string): MailContent {
+  return {
+    subject: `One piece held back at ${r.studioName}: ${piece.tag}`,
+    greeting: `Hello ${r.potterName},`,
+    paragraphs: [
+      `${r.studioName} is holding ${pieceName(piece)} back from the ${title(r)}.`,
+      `Their reason: “${reason}”`,
+      'The rest of your ware goes on as planned. The held piece waits for you at the studio; its photo is on the request.',
+    ],
+    action: { label: 'See the piece', url: `${r.requestUrl}#pieces` },
+  }
+}
+
+/** A held piece taken into the load after all. */
+export function pieceReleasedMail(r: RequestFacts, piece: PieceFacts): MailContent {
+  return {
+    subject: `Back in the load: ${piece.tag}`,
+    greeting: `Hello ${r.potterName},`,
+    paragraphs: [`${r.studioName} took ${pieceName(piece)} back into the ${title(r)} after all.`],
+    action: { label: 'See the request', url: r.requestUrl },
   }
 }

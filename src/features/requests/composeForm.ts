@@ -60,7 +60,7 @@ export function checkAgainst(firing: FiringRecord, kiln: KilnRecord, priceList: 
         cone: firing.cone,
         atmosphere: firing.atmosphere,
         slowCool: firing.slowCool,
-        remainingCapacityL: firing.spaceLeftL,
+        load: { room: firing.space },
       },
       pieces,
     )

@@ -1,18 +1,9 @@
 // From drop-off to pickup in the words each side reads: how a piece came out, what the studio does
 // next once the ware is in its hands, and the price that stands after check-in.
 import type { RequestState } from '../../../shared/workflow/request-states'
-import type { PieceOutcome, RequestView } from './api/types'
+import type { RequestView } from './api/types'
 
-export const OUTCOMES: readonly { value: PieceOutcome; label: string }[] = [
-  { value: 'fine', label: 'Fine' },
-  { value: 'cracked', label: 'Cracked' },
-  { value: 'blown-out', label: 'Blown out' },
-  { value: 'glaze-ran', label: 'Glaze ran' },
-  { value: 'stuck-to-shelf', label: 'Stuck to the shelf' },
-  { value: 'other', label: 'Other' },
-]
-
-export const outcomeLabel = (outcome: PieceOutcome) => OUTCOMES.find((o) => o.value === outcome)?.label ?? outcome
+export { OUTCOMES, outcomeLabel } from '../../lib/pieceWords'
 
 /**
  * The studio's next step once the ware is in its hands; null where the general words fit. A list row

@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest'
+import type { LoadRoom } from '../../../shared/firing/load'
 import {
   checkWare,
   pieceFitsFootprint,
@@ -151,24 +152,51 @@ describe('over-capacity', () => {
     expect(pieceVolumeL(mug({ round: false, heightMm: fourInches, widthMm: fourInches, depthMm: fourInches }))).toBeCloseTo(1.048772096, 9)
   })
 
-  it('blocks a request bigger than the room left in the firing', () => {
-    expectOne(electricKiln(), glazeFiring({ remainingCapacityL: 4.9 }), [{ ...cube, quantity: 5 }], 'over-capacity', 'block')
+  // The load's room as the planner reports it: 0.5 shelf free for pieces up to 8 in, room up to 10 in tall.
+  const room = (shelves: number, tallestMm = 254): LoadRoom => ({
+    shelvesTotal: 6,
+    shelvesTaken: 6 - shelves,
+    shelvesLeft: shelves,
+    tallestMm,
+    layersUsed: 5,
+    layersOnSale: 6,
+    bands: [102, 203, 305, 457].map((upToMm) => ({ upToMm, shelves: upToMm <= tallestMm ? shelves : 0 })),
   })
 
-  it('passes a request that fills the room exactly, or a firing that does not say', () => {
-    expectNone(electricKiln(), glazeFiring({ remainingCapacityL: 5 }), [{ ...cube, quantity: 5 }], 'over-capacity')
+  it('blocks a request that takes more shelves than the load has left for pieces that tall', () => {
+    // Planned alone, 20 cubes fill more than half of the fixture kiln's 530 mm round shelf.
+    const cubes = [{ ...cube, quantity: 20 }]
+    expect(checkWare(electricKiln(), glazeFiring(), cubes).fit.shelvesNeeded).toBeGreaterThan(0.5)
+    const finding = expectOne(electricKiln(), glazeFiring({ load: { room: room(0.5) } }), cubes, 'over-capacity', 'block')
+    expect(finding.message).toMatch(/left for pieces this tall/)
+  })
+
+  it('blocks a piece taller than the load has room for, however few', () => {
+    const finding = expectOne(
+      electricKiln(),
+      glazeFiring({ load: { room: room(3, 150) } }),
+      [{ ...cube, heightMm: 200 }],
+      'over-capacity',
+      'block',
+    )
+    expect(finding.message).toMatch(/room for pieces up to 150 mm/)
+  })
+
+  it('takes the caller’s own planning when it says the pieces went in, and says nothing for a firing with no load', () => {
+    expectNone(electricKiln(), glazeFiring({ load: { room: room(0), fits: true } }), [{ ...cube, quantity: 5 }], 'over-capacity')
+    expectOne(electricKiln(), glazeFiring({ load: { room: room(6), fits: false } }), [cube], 'over-capacity', 'block')
     expectNone(electricKiln(), glazeFiring(), [{ ...cube, quantity: 500 }], 'over-capacity')
   })
 
   it('reports the fit per piece and for the request', () => {
     const kiln = electricKiln({ usableHeightMm: 300 })
-    const { fit } = checkWare(kiln, glazeFiring({ remainingCapacityL: 5 }), [cube, mug({ heightMm: 400 })])
+    const { fit } = checkWare(kiln, glazeFiring({ load: { room: room(2) } }), [cube, mug({ heightMm: 400 })])
     expect(fit.pieces.map((piece) => [piece.fitsHeight, piece.fitsFootprint])).toEqual([
       [true, true],
       [false, true],
     ])
-    expect(fit.remainingCapacityL).toBe(5)
-    expect(fit.fitsCapacity).toBe(true)
+    expect(fit.shelvesLeft).toBe(0)
+    expect(fit.fitsLoad).toBe(false)
     expect(fit.requestVolumeL).toBeCloseTo(1 + (400 * 90 * 90) / 1e6, 9)
   })
 })

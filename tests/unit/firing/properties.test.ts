@@ -64,7 +64,6 @@ const firingRaw = fc.record(
     kind: fc.constantFrom('bisque', 'glaze', 'single'),
     cone: coneText,
     atmosphere: fc.constantFrom('oxidation', 'reduction', 'neutral'),
-    remainingCapacityL: number(0, 1000),
     slowCool: fc.boolean(),
   },
   { requiredKeys: ['kind', 'cone', 'atmosphere'] },
@@ -142,6 +141,8 @@ function findingKey(finding: Finding): string {
 }
 
 describe('checkWare on anything the schema accepts', () => {
+  // A ceiling for a busy machine: every check plans its pieces on the shelves, and the schema allows
+  // six lines of 500 tiny pieces.
   it('never throws, and returns a verdict, a schedule and a fit for every piece', () => {
     let accepted = 0
     fc.assert(
@@ -160,7 +161,7 @@ describe('checkWare on anything the schema accepts', () => {
     )
     // The property must have been exercised, not filtered away.
     expect(accepted).toBeGreaterThan(40)
-  })
+  }, 180_000)
 
   it('quotes in whole cents: lines add up to the total, and the deposit is within it', () => {
     let quoted = 0

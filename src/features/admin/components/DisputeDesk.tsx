@@ -1,7 +1,7 @@
 import { useState, type ReactNode } from 'react'
 import { Link } from 'react-router-dom'
 import type { DeskDispute } from '../../../../shared/api/admin'
-import type { PieceOutcome, RequestMessageJson, RequestView } from '../../../../shared/api/requests'
+import type { RequestMessageJson, RequestView } from '../../../../shared/api/requests'
 import { formatDateTime, formatMoney } from '../../../../shared/dates'
 import { FiringLogView } from '../../../components/firing/FiringLog'
 import { PhotoGallery } from '../../../components/photos/PhotoGallery'
@@ -12,21 +12,13 @@ import { Card, EmptyState } from '../../../components/ui/Card'
 import { Field, TextInput } from '../../../components/ui/Field'
 import { Spinner } from '../../../components/ui/Spinner'
 import type { UnitSystem } from '../../../lib/units'
+import { outcomeLabel } from '../../../lib/pieceWords'
 import { useDeskRefund, useDisputeRecord, useDisputes } from '../api/admin'
 
 const RAISED_BY_WORDS: Record<NonNullable<DeskDispute['dispute']>['raisedBy'], string> = {
   potter: 'the potter',
   studio: 'the studio',
   desk: 'the desk',
-}
-
-const OUTCOME_WORDS: Record<PieceOutcome, string> = {
-  fine: 'Fine',
-  cracked: 'Cracked',
-  'blown-out': 'Blown out',
-  'glaze-ran': 'Glaze ran',
-  'stuck-to-shelf': 'Stuck to the shelf',
-  other: 'Other',
 }
 
 const pieceName = (view: RequestView, index: number) => view.pieces[index]?.label || `Piece ${index + 1}`
@@ -69,8 +61,9 @@ function ResultsEvidence({ view }: { view: RequestView }) {
     <div className="space-y-1 text-sm text-slip-800">
       <ul className="list-disc pl-5">
         {results.outcomes.map((outcome) => (
-          <li key={outcome.pieceIndex}>
-            {pieceName(view, outcome.pieceIndex)}: <strong className="font-semibold">{OUTCOME_WORDS[outcome.outcome]}</strong>
+          <li key={outcome.pieceId}>
+            {pieceName(view, outcome.pieceIndex)} ({outcome.tag}):{' '}
+            <strong className="font-semibold">{outcomeLabel(outcome.outcome)}</strong>
             {outcome.notes && ` — ${outcome.notes}`}
           </li>
         ))}

@@ -4,6 +4,8 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query'
 import type { z } from 'zod'
 import type { checkInSchema, resultsSchema, reviewSchema } from '../../../../shared/schemas/pickup'
+import type { PieceTagged } from '../../../../shared/api/load'
+import type { PieceTagBody } from '../../../../shared/schemas/pieces'
 import type { PhotoRecord } from '../../../components/photos/photoTypes'
 import { api } from '../../../lib/api'
 import { requestKeys } from './keys'
@@ -110,4 +112,17 @@ export function useRefreshPhotos(requestId: string) {
       await new Promise((resolve) => setTimeout(resolve, 2000))
     }
   }
+}
+
+/**
+ * One piece tagged at drop-off against the studio's checklist: the request (its pieces, a held piece's
+ * note) and the firing's load are read again.
+ */
+export function useTagPiece(view: Pick<RequestView, 'id' | 'firing'>) {
+  const queryClient = useQueryClient()
+  const changed = useRequestChanged()
+  return useMutation({
+    mutationFn: (body: PieceTagBody) => api<PieceTagged>(`/api/requests/${view.id}/pieces`, { method: 'POST', body }),
+    onSuccess: () => Promise.all([changed(view), queryClient.invalidateQueries({ queryKey: requestKeys.firings.load(view.firing.id) })]),
+  })
 }

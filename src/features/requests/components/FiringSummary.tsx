@@ -1,7 +1,7 @@
 import { Link } from 'react-router-dom'
 import { formatDateTime } from '../../../../shared/dates'
 import { firingInWords, kilnLimitsInWords } from '../../../lib/firingWords'
-import { formatVolume, type UnitSystem } from '../../../lib/units'
+import { formatShelves, type UnitSystem } from '../../../lib/units'
 import type { FiringRecord, KilnRecord } from '../api/types'
 
 interface FiringSummaryProps {
@@ -42,7 +42,7 @@ export function FiringSummary({ firing, kiln, studio, units, showSpace = true }:
         <>
           <dt className="text-slip-500">Space left</dt>
           <dd className="text-slip-800">
-            {formatVolume(firing.spaceLeftL, units)} <span className="text-slip-500">of {formatVolume(firing.capacityL, units)}</span>
+            {formatShelves(firing.space.shelvesLeft)} <span className="text-slip-500">of {formatShelves(firing.space.shelvesTotal)}</span>
           </dd>
         </>
       )}

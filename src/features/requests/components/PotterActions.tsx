@@ -7,7 +7,7 @@ import { Dialog } from '../../../components/ui/Dialog'
 import { Field, TextArea } from '../../../components/ui/Field'
 import { ApiError } from '../../../lib/api'
 import { firingInWords } from '../../../lib/firingWords'
-import { formatVolume, type UnitSystem } from '../../../lib/units'
+import { formatShelves } from '../../../lib/units'
 import { QuoteSummary } from '../../../components/ware/QuoteSummary'
 import { ConfirmDialog } from '../../../components/ui/ConfirmDialog'
 import { useConfirmPrice, useDeclinePrice } from '../api/pickup'
@@ -113,7 +113,7 @@ function ConfirmPrice({ view }: { view: RequestView }) {
 }
 
 /** What the potter can do with their ask now (the server lists the actions; it still checks each). */
-export function PotterActions({ view, units }: { view: RequestView; units: UnitSystem }) {
+export function PotterActions({ view }: { view: RequestView }) {
   const [sending, setSending] = useState(false)
   const [withdrawing, setWithdrawing] = useState(false)
   const answer = useAnswerMove()
@@ -129,7 +129,7 @@ export function PotterActions({ view, units }: { view: RequestView; units: UnitS
           <p className="text-sm text-slip-700">
             Drop off by {formatDateTime(view.proposedFiring.dropOffBy, zone)}; fired {formatDateTime(view.proposedFiring.firingDate, zone)}.
           </p>
-          <p className="text-xs text-slip-600">{formatVolume(view.proposedFiring.spaceLeftL, units)} left in it.</p>
+          <p className="text-xs text-slip-600">{formatShelves(view.proposedFiring.space.shelvesLeft)} left in it.</p>
           <div className="mt-3 flex flex-wrap gap-2">
             <Button
               busy={answer.isPending && answer.variables?.accept === true}

@@ -18,9 +18,15 @@ import { OUTCOMES, outcomeLabel } from '../pickupWords'
 const OUTCOME_TONES: Record<PieceOutcome, BadgeTone> = {
   fine: 'celadon',
   cracked: 'danger',
+  dunted: 'danger',
   'blown-out': 'danger',
+  bloated: 'ember',
   'glaze-ran': 'ember',
   'stuck-to-shelf': 'danger',
+  crawled: 'ember',
+  pinholed: 'ember',
+  underfired: 'ember',
+  crazed: 'ember',
   other: 'neutral',
 }
 
@@ -170,14 +176,16 @@ export function ResultsView({ view, results }: { view: RequestView; results: Res
             <thead>
               <tr>
                 <Th>Piece</Th>
+                <Th>Tag</Th>
                 <Th>Outcome</Th>
                 <Th>Notes</Th>
               </tr>
             </thead>
             <tbody className="divide-y divide-slip-100">
               {results.outcomes.map((o) => (
-                <tr key={o.pieceIndex} data-testid="result-outcome" data-outcome={o.outcome}>
+                <tr key={o.pieceId} data-testid="result-outcome" data-outcome={o.outcome} data-tag={o.tag}>
                   <Td className="font-medium">{pieceName(view.pieces, o.pieceIndex)}</Td>
+                  <Td className="font-mono">{o.tag}</Td>
                   <Td>
                     <Badge tone={OUTCOME_TONES[o.outcome]}>{outcomeLabel(o.outcome)}</Badge>
                   </Td>
@@ -186,6 +194,11 @@ export function ResultsView({ view, results }: { view: RequestView; results: Res
               ))}
             </tbody>
           </Table>
+          <p className="text-sm text-slip-700" data-testid="result-counts">
+            {OUTCOMES.filter((o) => results.counts[o.value])
+              .map((o) => `${results.counts[o.value]} ${o.label.toLowerCase()}`)
+              .join(' · ')}
+          </p>
           {results.notes && <p className="whitespace-pre-line text-sm text-slip-800">{results.notes}</p>}
           <p className="text-xs text-slip-500">Posted {formatDateTime(results.at, view.studio.timezone)}.</p>
         </>

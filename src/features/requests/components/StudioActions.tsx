@@ -10,7 +10,7 @@ import { Field, Select, TextArea } from '../../../components/ui/Field'
 import { Spinner } from '../../../components/ui/Spinner'
 import { ApiError } from '../../../lib/api'
 import { firingInWords } from '../../../lib/firingWords'
-import { formatVolume, type UnitSystem } from '../../../lib/units'
+import { formatShelves } from '../../../lib/units'
 import { useStudioFirings } from '../api/firings'
 import { useAcceptRequest, useDeclineRequest, useProposeMove } from '../api/requests'
 import type { RequestView } from '../api/types'
@@ -22,7 +22,7 @@ const problemOf = (error: unknown) => (error instanceof ApiError ? error.message
  * Taking an ask on holds its space and asks for the deposit: the button says so before it does it.
  * The server refuses when the firing has filled up or stopped taking ware meanwhile.
  */
-export function AcceptButton({ view, size = 'md', units }: { view: RequestView; size?: 'sm' | 'md'; units: UnitSystem }) {
+export function AcceptButton({ view, size = 'md' }: { view: RequestView; size?: 'sm' | 'md' }) {
   const accept = useAcceptRequest()
   const [asking, setAsking] = useState(false)
   const deposit = view.price.depositCents
@@ -49,7 +49,7 @@ export function AcceptButton({ view, size = 'md', units }: { view: RequestView; 
       >
         <ul className="list-disc space-y-1 pl-5" data-testid="accept-effects">
           <li>
-            {formatVolume(view.volumeL, units)} of the firing is held for it ({formatVolume(view.firing.spaceLeftL, units)} is free now).
+            {formatShelves(view.shelvesNeeded)} of the load is held for it ({formatShelves(view.firing.space.shelvesLeft)} free now).
           </li>
           {deposit > 0 ? (
             <li>
@@ -136,7 +136,7 @@ export function ReasonDialog({ requestId, open, onClose, mode, refundText }: Rea
 }
 
 /** Suggest another of the studio's open firings; the potter moves or keeps the first. */
-export function MoveDialog({ view, open, onClose, units }: { view: RequestView; open: boolean; onClose: () => void; units: UnitSystem }) {
+export function MoveDialog({ view, open, onClose }: { view: RequestView; open: boolean; onClose: () => void }) {
   const firings = useStudioFirings(view.studio.id, { enabled: open })
   const move = useProposeMove()
   const [firingId, setFiringId] = useState('')
@@ -172,13 +172,13 @@ export function MoveDialog({ view, open, onClose, units }: { view: RequestView; 
         </p>
       ) : (
         <div className="space-y-3">
-          <Field label="Firing" hint={`Times in ${zoneName(zone)}. The ware needs ${formatVolume(view.volumeL, units)}.`}>
+          <Field label="Firing" hint={`Times in ${zoneName(zone)}. The ware needs ${formatShelves(view.shelvesNeeded)}.`}>
             {(a11y) => (
               <Select {...a11y} value={firingId} onChange={(event) => setFiringId(event.target.value)}>
                 <option value="">Choose a firing</option>
                 {choices.map((f) => (
-                  <option key={f.id} value={f.id} disabled={f.spaceLeftL < view.volumeL}>
-                    {formatDateTime(f.firingDate, zone)} · {firingInWords(f)} · {formatVolume(f.spaceLeftL, units)} left
+                  <option key={f.id} value={f.id} disabled={f.space.shelvesLeft < view.shelvesNeeded}>
+                    {formatDateTime(f.firingDate, zone)} · {firingInWords(f)} · {formatShelves(f.space.shelvesLeft)} left
                   </option>
                 ))}
               </Select>
@@ -192,7 +192,7 @@ export function MoveDialog({ view, open, onClose, units }: { view: RequestView; 
 }
 
 /** What the studio can do with an ask now (the server lists the actions; it still checks each). */
-export function StudioActions({ view, units }: { view: RequestView; units: UnitSystem }) {
+export function StudioActions({ view }: { view: RequestView }) {
   const [dialog, setDialog] = useState<'decline' | 'cancel' | 'move' | null>(null)
   const can = (action: RequestView['actions'][number]) => view.actions.includes(action)
   const paid = view.price.netPaidCents
@@ -218,7 +218,7 @@ export function StudioActions({ view, units }: { view: RequestView; units: UnitS
       )}
       {deciding && (
         <div className="flex flex-wrap items-start gap-2">
-          {can('accept') && <AcceptButton view={view} units={units} />}
+          {can('accept') && <AcceptButton view={view} />}
           {can('decline') && view.state === 'sent' && (
             <Button variant="secondary" onClick={() => setDialog('decline')}>
               Turn it down…
@@ -237,7 +237,9 @@ export function StudioActions({ view, units }: { view: RequestView; units: UnitS
         </div>
       )}
       {can('accept') && (
-        <p className="text-xs text-slip-600">Taking it on holds {formatVolume(view.volumeL, units)} and asks the potter for the deposit.</p>
+        <p className="text-xs text-slip-600">
+          Taking it on holds {formatShelves(view.shelvesNeeded)} of the load and asks the potter for the deposit.
+        </p>
       )}
       <ReasonDialog requestId={view.id} open={dialog === 'decline'} onClose={() => setDialog(null)} mode="decline" />
       <ReasonDialog
@@ -249,7 +251,7 @@ export function StudioActions({ view, units }: { view: RequestView; units: UnitS
           paid > 0 ? `${formatMoney(paid, currency)} goes back to their card.` : 'Nothing has been paid yet, so nothing is refunded.'
         }
       />
-      <MoveDialog view={view} open={dialog === 'move'} onClose={() => setDialog(null)} units={units} />
+      <MoveDialog view={view} open={dialog === 'move'} onClose={() => setDialog(null)} />
     </div>
   )
 }

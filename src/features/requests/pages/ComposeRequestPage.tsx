@@ -217,7 +217,7 @@ function ComposeForm({ firing, kiln, priceList, studio, draft, units }: ComposeF
             problem={typeof outcome === 'string' ? outcome : null}
             pieces={parsed.pieces ?? []}
           >
-            {result && <SpaceGauge needL={result.check.fit.requestVolumeL} leftL={firing.spaceLeftL} units={units} />}
+            {result && <SpaceGauge need={result.check.fit.shelvesNeeded} left={result.check.fit.shelvesLeft ?? firing.space.shelvesLeft} />}
           </CheckCard>
           <Card>
             <h2 className="mb-3 text-lg font-semibold text-slip-900">Quote</h2>

@@ -31,6 +31,8 @@ import { RequestProblem } from '../components/RequestProblem'
 import { RequestStateBadge } from '../components/RequestStateBadge'
 import { SpaceGauge } from '../components/SpaceGauge'
 import { StudioActions } from '../components/StudioActions'
+import { TaggedPieces } from '../components/TaggedPieces'
+import { TagPieces } from '../components/TagPieces'
 import { Timeline } from '../../../components/requests/Timeline'
 import { DisputeAction } from '../components/DisputeAction'
 import { potterNextStep, studioNextStep } from '../requestWords'
@@ -259,10 +261,10 @@ function RequestDetail({ view, units, paidFor, unpaidFor, waitedOut }: DetailPro
         <div className="min-w-0 lg:col-start-2 lg:row-start-1">
           <Card>
             <h2 className="mb-3 text-lg font-semibold">Next</h2>
-            {view.viewer === 'studio' ? <StudioActions view={view} units={units} /> : <PotterActions view={view} units={units} />}
+            {view.viewer === 'studio' ? <StudioActions view={view} /> : <PotterActions view={view} />}
             {view.viewer === 'admin' && (
               <div className="mt-4 border-t border-slip-200 pt-4">
-                <StudioActions view={view} units={units} />
+                <StudioActions view={view} />
               </div>
             )}
             {view.actions.includes('dispute') && (
@@ -279,7 +281,7 @@ function RequestDetail({ view, units, paidFor, unpaidFor, waitedOut }: DetailPro
             <FiringSummary firing={view.firing} kiln={view.kiln} studio={view.studio} units={units} showSpace={!decided} />
             {!decided && view.state !== 'draft' && (
               <div className="mt-4">
-                <SpaceGauge needL={view.volumeL} leftL={view.firing.spaceLeftL} units={units} />
+                <SpaceGauge need={view.shelvesNeeded} left={view.firing.space.shelvesLeft} />
               </div>
             )}
             {view.proposedFiring && view.viewer === 'studio' && (
@@ -295,6 +297,24 @@ function RequestDetail({ view, units, paidFor, unpaidFor, waitedOut }: DetailPro
                 After pickup
               </h2>
               <ReviewsPanel view={view} />
+            </Card>
+          )}
+
+          {view.actions.includes('tag-piece') && (
+            <Card>
+              <h2 id="tag-pieces-heading" className="mb-3 scroll-mt-4 text-lg font-semibold">
+                Check in piece by piece
+              </h2>
+              <TagPieces view={view} units={units} />
+            </Card>
+          )}
+
+          {view.pieceRecords.length > 0 && (
+            <Card>
+              <h2 id="tagged-heading" className="mb-3 text-lg font-semibold">
+                {isStudio ? 'Tagged pieces' : 'Your pieces, by their tags'}
+              </h2>
+              <TaggedPieces view={view} />
             </Card>
           )}
 

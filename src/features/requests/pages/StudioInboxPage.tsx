@@ -8,8 +8,6 @@ import { EmptyState, PageHeader } from '../../../components/ui/Card'
 import { Spinner } from '../../../components/ui/Spinner'
 import { VERDICT_WORDS } from '../../../components/ware/CheckResults'
 import { firingInWords } from '../../../lib/firingWords'
-import { type UnitSystem } from '../../../lib/units'
-import { useMe } from '../../auth/api/auth'
 import { useFiring, useStudio, useStudioFirings } from '../api/firings'
 import { useRequest, useRequests } from '../api/requests'
 import type { FiringRecord, RequestRow } from '../api/types'
@@ -72,15 +70,13 @@ export function FiringInboxPage() {
 const FILTERS: readonly (RequestState | 'all')[] = ['all', ...REQUEST_STATES.filter((s) => s !== 'draft')]
 
 function Inbox({ studioId, firing, title, lead }: { studioId: string; firing?: FiringRecord; title: string; lead: string }) {
-  const me = useMe()
-  const units: UnitSystem = me.data?.unitSystem ?? 'imperial'
   const [params, setParams] = useSearchParams()
   const filter = (FILTERS as readonly string[]).includes(params.get('state') ?? '') ? (params.get('state') as RequestState) : 'all'
   const requests = useRequests({ as: 'studio', studioId, firingId: firing?.id })
   // Space left per firing, for the studio-wide list (a firing's own inbox has it already).
   const firings = useStudioFirings(studioId, { enabled: !firing })
   const spaceLeft = (firingId: string) =>
-    firing?.id === firingId ? firing.spaceLeftL : firings.data?.find((f) => f.id === firingId)?.spaceLeftL
+    firing?.id === firingId ? firing.space.shelvesLeft : firings.data?.find((f) => f.id === firingId)?.space.shelvesLeft
 
   const all = requests.data ?? []
   const counts = new Map<string, number>([['all', all.length]])
@@ -97,9 +93,23 @@ function Inbox({ studioId, firing, title, lead }: { studioId: string; firing?: F
         actions={
           <>
             {firing && (
-              <ButtonLink to={`/studios/${studioId}/requests`} variant="secondary">
-                All the studio’s asks
-              </ButtonLink>
+              <>
+                <ButtonLink to={`/firings/${firing.id}/load`}>The load</ButtonLink>
+                <a
+                  href={`/api/firings/${firing.id}/labels.html`}
+                  target="_blank"
+                  rel="noreferrer"
+                  className="focus-ring inline-flex items-center rounded-control border border-slip-300 bg-white px-4 py-2.5 text-sm font-semibold hover:bg-slip-100"
+                >
+                  Print labels
+                </a>
+                <ButtonLink to={`/firings/${firing.id}/unload`} variant="secondary">
+                  Unloading
+                </ButtonLink>
+                <ButtonLink to={`/studios/${studioId}/requests`} variant="secondary">
+                  All the studio’s asks
+                </ButtonLink>
+              </>
             )}
             <ButtonLink to="/kiln-room" variant="ghost">
               Kiln room
@@ -133,7 +143,7 @@ function Inbox({ studioId, firing, title, lead }: { studioId: string; firing?: F
       ) : (
         <ul className="space-y-3" aria-label="Asks">
           {ordered.map((row) => (
-            <InboxRow key={row.id} row={row} units={units} spaceLeftL={spaceLeft(row.firing.id)} showFiring={!firing} />
+            <InboxRow key={row.id} row={row} shelvesLeft={spaceLeft(row.firing.id)} showFiring={!firing} />
           ))}
         </ul>
       )}
@@ -141,17 +151,7 @@ function Inbox({ studioId, firing, title, lead }: { studioId: string; firing?: F
   )
 }
 
-function InboxRow({
-  row,
-  units,
-  spaceLeftL,
-  showFiring,
-}: {
-  row: RequestRow
-  units: UnitSystem
-  spaceLeftL: number | undefined
-  showFiring: boolean
-}) {
+function InboxRow({ row, shelvesLeft, showFiring }: { row: RequestRow; shelvesLeft: number | undefined; showFiring: boolean }) {
   const waiting = row.state === 'sent'
   // The list row has no record of the potter; the request itself does, and it is needed to decide.
   const detail = useRequest(waiting ? row.id : undefined)
@@ -204,11 +204,15 @@ function InboxRow({
             {row.price && <span data-testid="row-money">· {rowMoneyLine(row)}</span>}
           </p>
         </div>
-        <div>{waiting && spaceLeftL !== undefined ? <SpaceGauge needL={row.volumeL} leftL={spaceLeftL} units={units} /> : null}</div>
+        <div>
+          {waiting && shelvesLeft !== undefined && row.shelvesNeeded !== null ? (
+            <SpaceGauge need={row.shelvesNeeded} left={shelvesLeft} />
+          ) : null}
+        </div>
         <div className="flex flex-wrap items-start gap-2 md:justify-end">
           {canDecide && (
             <>
-              {detail.data && <AcceptButton view={detail.data} size="sm" units={units} />}
+              {detail.data && <AcceptButton view={detail.data} size="sm" />}
               <Button size="sm" variant="secondary" onClick={() => setDeclining(true)}>
                 Turn it down…
               </Button>

@@ -1,7 +1,7 @@
 import { Link } from 'react-router-dom'
 import type { BoardFiring } from '../../../../shared/api/board'
 import { formatMoney } from '../../../../shared/dates'
-import { formatVolume, type UnitSystem } from '../../../lib/units'
+import { formatShelves } from '../../../lib/units'
 import { atmosphereLabel, firingKindLabel } from '../words'
 
 const chipDay = new Intl.DateTimeFormat(undefined, { weekday: 'short', month: 'short', day: 'numeric' })
@@ -9,7 +9,6 @@ const chipDay = new Intl.DateTimeFormat(undefined, { weekday: 'short', month: 's
 interface FiringChipProps {
   firing: BoardFiring
   studioName: string
-  units: UnitSystem
   /** In the week view the week already says when; the chip names the day only. */
   compact?: boolean
 }
@@ -18,8 +17,8 @@ interface FiringChipProps {
  * One upcoming firing on a studio's card: its day, cone, atmosphere and kind, the space left and, when
  * the potter gave their piece, its price. The chip is the way to ask for space in that firing.
  */
-export function FiringChip({ firing, studioName, units, compact = false }: FiringChipProps) {
-  const full = firing.spaceLeftL <= 0
+export function FiringChip({ firing, studioName, compact = false }: FiringChipProps) {
+  const full = firing.space.shelvesLeft <= 0
   const price = firing.piecePrice ? formatMoney(firing.piecePrice.totalCents, firing.piecePrice.currency) : null
   return (
     <Link
@@ -43,7 +42,7 @@ export function FiringChip({ firing, studioName, units, compact = false }: Firin
         {firingKindLabel(firing.kind).toLowerCase()}
       </span>
       <span className="block text-slip-600">
-        {full ? 'full' : `${formatVolume(firing.spaceLeftL, units)} left`}
+        {full ? 'full' : `${formatShelves(firing.space.shelvesLeft)} left`}
         {price && <span className="font-semibold text-slip-900"> · {price}</span>}
       </span>
     </Link>

@@ -83,7 +83,7 @@ export function StudioCard({ card, units, ownPiece, selected = false, onShowOnMa
       <ol className="mt-3 flex flex-wrap gap-2" aria-label={`Firings at ${studio.name}`}>
         {card.firings.map((firing) => (
           <li key={firing.firingId} className="min-w-0">
-            <FiringChip firing={firing} studioName={studio.name} units={units} />
+            <FiringChip firing={firing} studioName={studio.name} />
           </li>
         ))}
       </ol>

@@ -53,7 +53,7 @@ export function WeekBoard({ studios, units }: WeekBoardProps) {
                   <ul className="space-y-1.5">
                     {firings.map((firing) => (
                       <li key={firing.firingId}>
-                        <FiringChip firing={firing} studioName={card.studio.name} units={units} compact />
+                        <FiringChip firing={firing} studioName={card.studio.name} compact />
                       </li>
                     ))}
                   </ul>

@@ -1,22 +1,24 @@
 import { Gauge } from '../../../components/ui/Gauge'
 import type { FiringRecord } from '../api/types'
-import { formatVolume, type UnitSystem } from '../../../lib/units'
+import { formatShelves } from '../../../lib/units'
 
-/** Space held against space on sale, with the space left in words beside it. */
-export function FillGauge({ firing, units }: { firing: Pick<FiringRecord, 'heldL' | 'capacityL' | 'spaceLeftL'>; units: UnitSystem }) {
+/** Shelves the load plan has taken against the shelves on sale, with the shelves left in words beside it. */
+export function FillGauge({ firing }: { firing: Pick<FiringRecord, 'space'> }) {
+  const { shelvesTaken, shelvesTotal, shelvesLeft, tallestMm } = firing.space
   return (
     <div className="min-w-40 space-y-1">
       <Gauge
-        value={firing.heldL}
-        max={firing.capacityL}
-        label="Space held"
-        valueText={`${formatVolume(firing.heldL, units)} of ${formatVolume(firing.capacityL, units)} held`}
+        value={shelvesTaken}
+        max={Math.max(shelvesTotal, 0.001)}
+        label="Shelves taken"
+        valueText={`${formatShelves(shelvesTaken)} of ${formatShelves(shelvesTotal)} taken`}
       />
       <p className="text-xs text-slip-600">
         <span data-testid="space-left" className="font-semibold text-slip-800">
-          {formatVolume(firing.spaceLeftL, units)} left
+          {formatShelves(shelvesLeft)} left
         </span>{' '}
-        of {formatVolume(firing.capacityL, units)}
+        of {formatShelves(shelvesTotal)}
+        {tallestMm > 0 && `, up to ${Math.round(tallestMm)} mm tall`}
       </p>
     </div>
   )

@@ -12,7 +12,7 @@ import { Field, TextArea } from '../../../components/ui/Field'
 import { applyServerErrors } from '../../../lib/forms'
 import { useCancelFiring } from '../api/firings'
 import type { FiringRecord } from '../api/types'
-import type { UnitSystem } from '../../../lib/units'
+import { formatShelves } from '../../../lib/units'
 import { firingInWords } from '../../../lib/firingWords'
 import { FillGauge } from './FillGauge'
 import { FiringStatusBadge } from './FiringStatusBadge'
@@ -22,12 +22,11 @@ interface FiringDialogProps {
   firing: FiringRecord | null
   kilnName: string
   zone: string
-  units: UnitSystem
   onClose: () => void
 }
 
 /** One firing: its dates in the studio's zone, space held, the status moves allowed now, and cancel. */
-export function FiringDialog({ firing, kilnName, zone, units, onClose }: FiringDialogProps) {
+export function FiringDialog({ firing, kilnName, zone, onClose }: FiringDialogProps) {
   const [cancelling, setCancelling] = useState(false)
   return (
     <Dialog
@@ -43,13 +42,13 @@ export function FiringDialog({ firing, kilnName, zone, units, onClose }: FiringD
         (cancelling ? (
           <CancelFiring firing={firing} onDone={() => setCancelling(false)} />
         ) : (
-          <FiringDetails firing={firing} zone={zone} units={units} onCancel={() => setCancelling(true)} />
+          <FiringDetails firing={firing} zone={zone} onCancel={() => setCancelling(true)} />
         ))}
     </Dialog>
   )
 }
 
-function FiringDetails({ firing, zone, units, onCancel }: { firing: FiringRecord; zone: string; units: UnitSystem; onCancel: () => void }) {
+function FiringDetails({ firing, zone, onCancel }: { firing: FiringRecord; zone: string; onCancel: () => void }) {
   const movable = firing.nextStatuses.some((s) => s !== 'cancelled')
   const canCancel = firing.nextStatuses.includes('cancelled')
   return (
@@ -67,7 +66,7 @@ function FiringDetails({ firing, zone, units, onCancel }: { firing: FiringRecord
         <dd>{formatDateTime(firing.readyBy, zone)}</dd>
         <dt className="font-medium text-slip-600">Space</dt>
         <dd>
-          <FillGauge firing={firing} units={units} />
+          <FillGauge firing={firing} />
         </dd>
         {firing.notes && (
           <>
@@ -89,6 +88,9 @@ function FiringDetails({ firing, zone, units, onCancel }: { firing: FiringRecord
               ? 'Times, peak and witness cones for every potter in this firing.'
               : 'The log of the firing and the ware in it, from drop-off to results.'}
           </p>
+          <ButtonLink to={`/firings/${firing.id}/load`} variant="secondary" size="sm">
+            The load
+          </ButtonLink>
           <ButtonLink to={`/firings/${firing.id}/log`} variant="secondary" size="sm">
             Firing log
           </ButtonLink>
@@ -152,8 +154,8 @@ function CancelFiring({ firing, onDone }: { firing: FiringRecord; onDone: () => 
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-4">
       <Alert tone="warning" title="Potters holding space are told by mail">
-        {firing.heldL > 0
-          ? `Potters hold ${firing.heldL} L in this firing. Each gets a mail with your reason, and paid deposits are refunded.`
+        {firing.space.shelvesTaken > 0
+          ? `Potters hold ${formatShelves(firing.space.shelvesTaken)} in this firing. Each gets a mail with your reason, and paid deposits are refunded.`
           : 'No space is held yet, but anyone who asked for space in this firing gets a mail with your reason.'}
       </Alert>
       {formError && <Alert tone="danger">{formError}</Alert>}

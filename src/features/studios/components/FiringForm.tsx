@@ -11,10 +11,8 @@ import { Checkbox, Field, Select, TextArea, TextInput } from '../../../component
 import { applyServerErrors } from '../../../lib/forms'
 import { useCreateFirings } from '../api/firings'
 import type { FiringRecord, KilnRecord } from '../api/types'
-import { capacityMeasure, formatVolume, type UnitSystem } from '../../../lib/units'
 import { weekdayIn } from '../zonedTime'
 import { ATMOSPHERES, COOLING_CHOICES, FIRING_KINDS } from '../../../lib/firingWords'
-import { MeasureField } from '../../../components/ui/MeasureField'
 import { ZonedDateTimeField } from './ZonedDateTimeField'
 
 type FiringInput = z.input<typeof firingCreateSchema>
@@ -37,13 +35,12 @@ interface FiringFormProps {
   studioId: string
   zone: string
   kilns: KilnRecord[]
-  units: UnitSystem
   onCreated: (firings: FiringRecord[]) => void
   onCancel?: () => void
 }
 
 /** Posts a firing, or a series of them on the same weekday and time in the studio's zone. */
-export function FiringForm({ studioId, zone, kilns, units, onCreated, onCancel }: FiringFormProps) {
+export function FiringForm({ studioId, zone, kilns, onCreated, onCancel }: FiringFormProps) {
   const create = useCreateFirings(studioId)
   const [kilnId, setKilnId] = useState(kilns[0]?.id ?? '')
   const [repeating, setRepeating] = useState(false)
@@ -62,7 +59,7 @@ export function FiringForm({ studioId, zone, kilns, units, onCreated, onCancel }
       dropOffBy: '',
       firingDate: '',
       readyBy: '',
-      capacityL: undefined,
+      layersOnSale: null,
       notes: '',
     },
   })
@@ -172,14 +169,19 @@ export function FiringForm({ studioId, zone, kilns, units, onCreated, onCancel }
         <ZonedDateTimeField control={control} name="readyBy" label="Ready for pickup" zone={zone} />
       </div>
       <p className="-mt-2 text-xs text-slip-500">Times are the studio’s ({zoneName(zone)}), whatever zone your device is set to.</p>
-      <MeasureField
-        control={control}
-        name="capacityL"
-        label="Space on sale"
-        measure={capacityMeasure(units)}
-        units={units}
-        hint={`The kiln holds about ${formatVolume(kiln.volumeL, units)} in all; offer what is left after shelves, posts and your own ware.`}
-      />
+      <Field
+        label="Layers on sale"
+        hint="Leave empty to offer every layer the kiln’s shelves make; the load plan works out the space from its shelves and posts."
+        error={errors.layersOnSale?.message}
+      >
+        {(a11y) => (
+          <TextInput
+            {...a11y}
+            inputMode="numeric"
+            {...register('layersOnSale', { setValueAs: (v: unknown) => (v === '' || v === null || v === undefined ? null : Number(v)) })}
+          />
+        )}
+      </Field>
       <Field label="Notes for potters" error={errors.notes?.message}>
         {(a11y) => <TextArea {...a11y} rows={2} {...register('notes')} />}
       </Field>

@@ -2,7 +2,6 @@ import type { ReactNode } from 'react'
 import { formatDateTime } from '../../../../shared/dates'
 import { Button } from '../../../components/ui/Button'
 import type { FiringRecord } from '../api/types'
-import type { UnitSystem } from '../../../lib/units'
 import { firingInWords } from '../../../lib/firingWords'
 import { FillGauge } from './FillGauge'
 import { FiringStatusBadge } from './FiringStatusBadge'
@@ -11,7 +10,6 @@ interface FiringRowsProps {
   firings: FiringRecord[]
   kilnName: (kilnId: string) => string
   zone: string
-  units: UnitSystem
   /** Given on the studio's own pages: each row gets a button that opens the firing. */
   onOpen?: (firing: FiringRecord) => void
   /** More for a row's end: a link to request space, a count of requests waiting. */
@@ -19,7 +17,7 @@ interface FiringRowsProps {
 }
 
 /** Upcoming firings as a list that reads well on a phone: when, what, how full, and its status. */
-export function FiringRows({ firings, kilnName, zone, units, onOpen, extra }: FiringRowsProps) {
+export function FiringRows({ firings, kilnName, zone, onOpen, extra }: FiringRowsProps) {
   return (
     <ul className="divide-y divide-slip-200 rounded-card border border-slip-200 bg-white">
       {firings.map((firing) => (
@@ -36,7 +34,7 @@ export function FiringRows({ firings, kilnName, zone, units, onOpen, extra }: Fi
             </p>
             <p className="text-xs text-slip-500">Drop-off by {formatDateTime(firing.dropOffBy, zone)}</p>
           </div>
-          <FillGauge firing={firing} units={units} />
+          <FillGauge firing={firing} />
           <div className="flex flex-wrap items-center gap-2 sm:justify-end">
             <FiringStatusBadge status={firing.status} />
             {extra?.(firing)}

@@ -16,7 +16,6 @@ import { Button } from '../../../components/ui/Button'
 import { Field, Select } from '../../../components/ui/Field'
 import { Table, Td, Th } from '../../../components/ui/Table'
 import type { FiringRecord, KilnRecord } from '../api/types'
-import type { UnitSystem } from '../../../lib/units'
 import { firingInWords } from '../../../lib/firingWords'
 import { FillGauge } from './FillGauge'
 import { FiringStatusBadge } from './FiringStatusBadge'
@@ -35,12 +34,11 @@ interface FiringTableProps {
   firings: FiringRecord[]
   kilns: KilnRecord[]
   zone: string
-  units: UnitSystem
   onOpen: (firing: FiringRecord) => void
 }
 
 /** Firings as a table: sorted by date (either way) or space left, filtered by kiln and status. */
-export function FiringTable({ firings, kilns, zone, units, onOpen }: FiringTableProps) {
+export function FiringTable({ firings, kilns, zone, onOpen }: FiringTableProps) {
   const columns = useMemo(() => {
     const kilnName = (id: string) => kilns.find((k) => k.id === id)?.name ?? 'Kiln'
     return helper.columns([
@@ -62,10 +60,11 @@ export function FiringTable({ firings, kilns, zone, units, onOpen }: FiringTable
         cell: ({ row }) => kilnName(row.original.kilnId),
       }),
       helper.display({ id: 'firing', header: 'Firing', cell: ({ row }) => firingInWords(row.original) }),
-      helper.accessor('spaceLeftL', {
+      helper.accessor((firing) => firing.space.shelvesLeft, {
+        id: 'space',
         header: 'Space',
         sortFn: 'basic',
-        cell: ({ row }) => <FillGauge firing={row.original} units={units} />,
+        cell: ({ row }) => <FillGauge firing={row.original} />,
       }),
       helper.accessor('status', {
         header: 'Status',
@@ -83,7 +82,7 @@ export function FiringTable({ firings, kilns, zone, units, onOpen }: FiringTable
         ),
       }),
     ])
-  }, [kilns, zone, units, onOpen])
+  }, [kilns, zone, onOpen])
 
   const table = useTable({
     features,

@@ -7,7 +7,6 @@ import { EmptyState, PageHeader } from '../../../components/ui/Card'
 import { Dialog } from '../../../components/ui/Dialog'
 import { Spinner } from '../../../components/ui/Spinner'
 import { TabPanel, Tabs } from '../../../components/ui/Tabs'
-import { useMe } from '../../auth/api/auth'
 import { useStudioFirings } from '../api/firings'
 import { useStudioKilns } from '../api/kilns'
 import { useStudio } from '../api/studios'
@@ -19,7 +18,6 @@ import { FiringMonth } from '../components/FiringMonth'
 import { FiringTable } from '../components/FiringTable'
 import { StudioNav } from '../components/StudioNav'
 import { useSelectedFiring } from '../hooks/useSelectedFiring'
-import type { UnitSystem } from '../../../lib/units'
 import { dayKey, monthGrid, monthOf, shiftMonth } from '../zonedTime'
 
 type View = 'month' | 'list'
@@ -41,8 +39,6 @@ export function CalendarPage() {
 }
 
 function Calendar({ studio }: { studio: MemberStudio }) {
-  const me = useMe()
-  const units: UnitSystem = me.data?.unitSystem ?? 'imperial'
   const zone = studio.timezone
   const [params, setParams] = useSearchParams()
   const view: View = params.get('view') === 'list' ? 'list' : 'month'
@@ -142,7 +138,7 @@ function Calendar({ studio }: { studio: MemberStudio }) {
         ) : view === 'month' ? (
           <FiringMonth grid={grid} firings={firings.data} zone={zone} kilnName={kilnName} onOpen={onOpen} today={dayKey(now, zone)} />
         ) : (
-          <FiringTable firings={firings.data} kilns={kilns.data} zone={zone} units={units} onOpen={onOpen} />
+          <FiringTable firings={firings.data} kilns={kilns.data} zone={zone} onOpen={onOpen} />
         )}
       </TabPanel>
 
@@ -151,7 +147,6 @@ function Calendar({ studio }: { studio: MemberStudio }) {
           studioId={studio.id}
           zone={zone}
           kilns={liveKilns}
-          units={units}
           onCancel={() => setPosting(false)}
           onCreated={(created) => {
             setPosting(false)
@@ -164,7 +159,6 @@ function Calendar({ studio }: { studio: MemberStudio }) {
         firing={dialog.selected}
         kilnName={dialog.selected ? kilnName(dialog.selected.kilnId) : ''}
         zone={zone}
-        units={units}
         onClose={dialog.close}
       />
     </>

@@ -78,7 +78,7 @@ function FiringWorkbench({ firing, studio }: { firing: FiringRecord; studio: Mem
               </div>
             )}
             <div className="mt-4">
-              <FillGauge firing={firing} units={units} />
+              <FillGauge firing={firing} />
             </div>
           </Card>
         </div>

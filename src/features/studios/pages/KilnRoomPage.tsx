@@ -19,7 +19,6 @@ import { FiringForm } from '../components/FiringForm'
 import { FiringRows } from '../components/FiringRows'
 import { StudioCreateForm } from '../components/StudioCreateForm'
 import { useSelectedFiring } from '../hooks/useSelectedFiring'
-import type { UnitSystem } from '../../../lib/units'
 
 /** How many upcoming firings each studio shows here; the calendar has the rest. */
 const UPCOMING_SHOWN = 8
@@ -31,7 +30,6 @@ export function KilnRoomPage() {
   const [adding, setAdding] = useState(false)
   const [justCreated, setJustCreated] = useState<string | null>(null)
   const user = me.data
-  const units: UnitSystem = user?.unitSystem ?? 'imperial'
   // The stored role value for a studio owner is 'host'.
   const isStudioOwner = user?.role === 'host' || user?.role === 'admin'
 
@@ -82,7 +80,7 @@ export function KilnRoomPage() {
               </EmptyState>
             ))}
           {studios.data.map((studio) => (
-            <StudioPanel key={studio.id} studio={studio} units={units} />
+            <StudioPanel key={studio.id} studio={studio} />
           ))}
         </div>
       )}
@@ -90,7 +88,7 @@ export function KilnRoomPage() {
   )
 }
 
-function StudioPanel({ studio, units }: { studio: MemberStudio; units: UnitSystem }) {
+function StudioPanel({ studio }: { studio: MemberStudio }) {
   const [from] = useState(() => new Date().toISOString())
   const kilns = useStudioKilns(studio.id)
   const firings = useStudioFirings(studio.id, { from })
@@ -200,14 +198,7 @@ function StudioPanel({ studio, units }: { studio: MemberStudio; units: UnitSyste
             </EmptyState>
           ) : (
             <>
-              <FiringRows
-                firings={upcoming}
-                kilnName={kilnName}
-                zone={studio.timezone}
-                units={units}
-                onOpen={dialog.open}
-                extra={waitingLink}
-              />
+              <FiringRows firings={upcoming} kilnName={kilnName} zone={studio.timezone} onOpen={dialog.open} extra={waitingLink} />
               {firings.data.length > UPCOMING_SHOWN && (
                 <Link to={`/studios/${studio.id}/calendar`} className="text-sm font-medium text-clay-700 hover:underline">
                   {firings.data.length - UPCOMING_SHOWN} more in the calendar
@@ -265,7 +256,6 @@ function StudioPanel({ studio, units }: { studio: MemberStudio; units: UnitSyste
           studioId={studio.id}
           zone={studio.timezone}
           kilns={liveKilns}
-          units={units}
           onCreated={() => setPosting(false)}
           onCancel={() => setPosting(false)}
         />
@@ -274,7 +264,6 @@ function StudioPanel({ studio, units }: { studio: MemberStudio; units: UnitSyste
         firing={dialog.selected}
         kilnName={dialog.selected ? kilnName(dialog.selected.kilnId) : ''}
         zone={studio.timezone}
-        units={units}
         onClose={dialog.close}
       />
     </section>

@@ -102,7 +102,7 @@ function StudioProfile({ studio }: { studio: Studio }) {
           ) : firings.data.length === 0 ? (
             <EmptyState title="No firings posted yet">Subscribe to the calendar to hear when the next one is posted.</EmptyState>
           ) : (
-            <FiringRows firings={firings.data} kilnName={kilnName} zone={zone} units={units} extra={requestLink} />
+            <FiringRows firings={firings.data} kilnName={kilnName} zone={zone} extra={requestLink} />
           )}
         </section>
 
