@@ -27,6 +27,10 @@ export const pages = {
   joinStudio: () => import('../features/studios/pages/JoinStudioPage'),
   frontDesk: () => import('../features/admin/pages/FrontDeskPage'),
   notices: () => import('../features/notices/pages/NoticesPage'),
+  incident: () => import('../features/incidents/pages/IncidentPage'),
+  reportIncident: () => import('../features/incidents/pages/ReportIncidentPage'),
+  incidentHistory: () => import('../features/incidents/pages/IncidentHistoryPage'),
+  deskClaims: () => import('../features/incidents/pages/DeskClaimsPage'),
 }
 
 export type PageName = keyof typeof pages | 'landing' | 'notFound'
