@@ -13,17 +13,18 @@ import {
   type ClaimAction,
 } from '../../shared/claims'
 import { formatMoney } from '../../shared/dates'
+import { earnsPayout } from '../../shared/payouts'
 import type { ClaimBody, ClaimDecisionBody } from '../../shared/schemas/incidents'
 import type { AppContext } from '../context'
 import { Claim } from '../entities/Claim'
-import type { Payment } from '../entities/Payment'
+import { LedgerEntry } from '../entities/LedgerEntry'
 import type { User } from '../entities/User'
 import { badRequest, conflict, forbidden, notFound } from '../http/errors'
 import { isUuid } from '../http/validate'
 import { claimContestedMail, claimDecidedMail, claimPaidMail, claimRaisedMail, type ClaimFacts } from '../mail/templates/incidents'
 import { loadIncident } from './incident-access'
 import { openCheckout } from './payments'
-import { enqueuePayoutIfEarned } from './payouts'
+import { earnPayout } from './payouts'
 import { factsOf } from './request-context'
 import { requestAction, type ActionStep } from './request-door'
 
@@ -203,22 +204,36 @@ export async function decideClaim(ctx: AppContext, admin: User, claimId: string,
 }
 
 /**
- * The webhook's half of a paid claim, inside the door: the claim is paid, both sides told, and, when
- * the ask's share is already earned, a payout run sends the studio its part of it.
+ * A paid claim, inside the ask's door (the webhook's checkout session, or the demo's card payment):
+ * booked on the ask's ledger as a claim, the claim marked paid, both sides told, and, when the ask's
+ * share is already earned, the studio's part of it earned with it (the payout rules, hold and all).
  */
-export async function settleClaimPayment(step: ActionStep, payment: Payment) {
+export async function bookClaimPaid(step: ActionStep, claimId: string, stripe: { sessionId: string | null; paymentIntentId: string | null }) {
   const { manager, ctx } = step
-  const claim = await manager.getRepository(Claim).findOneOrFail({ where: { id: payment.claimId! }, lock: { mode: 'pessimistic_write' } })
+  const claim = await manager.getRepository(Claim).findOneOrFail({ where: { id: claimId }, lock: { mode: 'pessimistic_write' } })
   if (claim.status === 'paid') return
+  await manager.getRepository(LedgerEntry).save({
+    requestId: claim.requestId,
+    direction: 'in',
+    kind: 'claim',
+    amountCents: claim.amountCents,
+    currency: claim.currency,
+    stripeSessionId: stripe.sessionId,
+    stripePaymentIntentId: stripe.paymentIntentId,
+    stripeRefundId: null,
+    note: `Damage claim: ${DAMAGE_CHARGE_LABELS[claim.chargeKind]}`,
+  })
   await manager.update(Claim, claim.id, { status: 'paid', paidAt: new Date() })
   await step.note(`Damage claim paid through Stripe: ${formatMoney(claim.amountCents, claim.currency)}`, {
     claimId: claim.id,
-    sessionId: payment.stripeSessionId,
+    sessionId: stripe.sessionId,
   })
   const mail = claimPaidMail(factsOf(step.rc, ctx.config.publicUrl), claimFacts(claim), incidentUrl(ctx, claim))
   await step.tellStudio('claim-paid', mail)
   await step.tellPotter('claim-paid', mail)
-  await enqueuePayoutIfEarned(manager, claim.requestId)
+  // An ask already earned (collected, or ended with money the studio keeps) earns the claim's share
+  // with it; one still in hand carries the claim's money to its collection.
+  if (earnsPayout(step.rc.request.state)) await earnPayout(step)
 }
 
 /** Contested claims for the front desk, with both sides' words and the incident they rest on. */

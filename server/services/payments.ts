@@ -23,7 +23,7 @@ import { inTransaction, requestAction, requestActionIn, type ActionStep } from '
 import { stripeFor } from './stripe'
 import { enqueuePayoutIfEarned, handleTransferEvent, moneyQueueOf, transferGroupOf } from './payouts'
 import { enqueueStudioSync } from './search-sync'
-import { settleClaimPayment } from './claims'
+import { bookClaimPaid } from './claims'
 
 export const REFUND_TASK = 'refund-payment'
 export const OPEN_CHECKOUT_TASK = 'open-checkout'
@@ -324,6 +324,13 @@ export async function handleStripeEvent(ctx: AppContext, raw: unknown): Promise<
         const paymentIntentId = typeof session.payment_intent === 'string' ? session.payment_intent : (session.payment_intent?.id ?? null)
         await manager.update(Payment, payment.id, { status: 'paid', stripePaymentIntentId: paymentIntentId })
         Object.assign(payment, { status: 'paid', stripePaymentIntentId: paymentIntentId })
+        if (payment.purpose === 'claim') {
+          // A claim books its own ledger entry with the claim it pays.
+          await requestActionIn(ctx, manager, null, payment.requestId, 'claim', (step) =>
+            bookClaimPaid(step, payment.claimId!, { sessionId: session.id, paymentIntentId }),
+          )
+          break
+        }
         await manager.getRepository(LedgerEntry).save({
           requestId: payment.requestId,
           direction: 'in',
@@ -335,10 +342,6 @@ export async function handleStripeEvent(ctx: AppContext, raw: unknown): Promise<
           stripeRefundId: null,
           note: '',
         })
-        if (payment.purpose === 'claim') {
-          await requestActionIn(ctx, manager, null, payment.requestId, 'claim', (step) => settleClaimPayment(step, payment))
-          break
-        }
         await requestActionIn(
           ctx,
           manager,
