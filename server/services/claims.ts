@@ -208,7 +208,11 @@ export async function decideClaim(ctx: AppContext, admin: User, claimId: string,
  * booked on the ask's ledger as a claim, the claim marked paid, both sides told, and, when the ask's
  * share is already earned, the studio's part of it earned with it (the payout rules, hold and all).
  */
-export async function bookClaimPaid(step: ActionStep, claimId: string, stripe: { sessionId: string | null; paymentIntentId: string | null }) {
+export async function bookClaimPaid(
+  step: ActionStep,
+  claimId: string,
+  stripe: { sessionId: string | null; paymentIntentId: string | null },
+) {
   const { manager, ctx } = step
   const claim = await manager.getRepository(Claim).findOneOrFail({ where: { id: claimId }, lock: { mode: 'pessimistic_write' } })
   if (claim.status === 'paid') return
