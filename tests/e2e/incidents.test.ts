@@ -213,4 +213,21 @@ describe('incidents and who pays', () => {
     await studio.reload()
     await expect.poll(() => studio.getByTestId('claim').textContent()).toContain('the studio’s cool, not the clay')
   })
+
+  it('the report form and the studio’s incident history pass axe and fit a phone', async () => {
+    const studio = await signedInPage(owner)
+    await studio.goto(`/firings/${firingId}/incidents/new`)
+    await studio.getByLabel('What happened').selectOption('crack')
+    const form = await readable(studio)
+    expect(form.problems).toEqual([])
+    expect(form.overflow).toBeLessThanOrEqual(1)
+    const [{ studio_id }] = await app.ctx.db.query(`SELECT k.studio_id FROM firings f JOIN kilns k ON k.id = f.kiln_id WHERE f.id = $1`, [
+      firingId,
+    ])
+    await studio.goto(`/studios/${studio_id}/incidents`)
+    await expect.poll(() => studio.getByRole('table').count()).toBe(1)
+    const history = await readable(studio)
+    expect(history.problems).toEqual([])
+    expect(history.overflow).toBeLessThanOrEqual(1)
+  })
 })
