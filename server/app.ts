@@ -21,6 +21,7 @@ import { invitesRouter } from './routes/invites'
 import { kilnsRouter } from './routes/kilns'
 import { metaRouter } from './routes/meta'
 import { photosRouter } from './routes/photos'
+import { incidentsRouter } from './routes/incidents'
 import { firingLogsRouter } from './routes/firing-logs'
 import { noticesRouter } from './routes/notices'
 import { payoutsRouter } from './routes/payouts'
@@ -129,6 +130,7 @@ export function createApp(ctx: AppContext): App {
   app.use('/api', firingLogsRouter(ctx))
   app.use('/api', noticesRouter(ctx))
   app.use('/api', photosRouter(ctx))
+  app.use('/api', incidentsRouter(ctx))
   app.use('/api', reviewsRouter(ctx))
   app.use('/api', adminRouter(ctx))
 

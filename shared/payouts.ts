@@ -45,6 +45,8 @@ export const MONEY_KINDS = {
   'counter-refund-due': { channel: 'counter', role: 'refunded' },
   transfer: { channel: 'online', role: 'transferred' },
   'transfer-reversal': { channel: 'online', role: 'reversed' },
+  /** A damage claim the potter paid online: the studio's share of it follows the same rules. */
+  claim: { channel: 'online', role: 'paid' },
 } as const satisfies Record<string, { channel: 'online' | 'counter'; role: 'paid' | 'refunded' | 'transferred' | 'reversed' }>
 
 export type MoneyKind = keyof typeof MONEY_KINDS

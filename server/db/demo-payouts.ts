@@ -17,6 +17,10 @@ import { loadRequest } from '../services/request-context'
 import { earnPayout, refreshAccount, startOnboarding, transferGroupOf } from '../services/payouts'
 import { stripeFor } from '../services/stripe'
 import { DEMO_PAID_ONLINE } from './demo-requests'
+import { demoClaimsToPay } from './demo-incidents'
+import type { Claim } from '../entities/Claim'
+import { bookClaimPaid } from '../services/claims'
+import { requestAction } from '../services/request-door'
 
 /** The demo studio that has finished onboarding, and who did it. */
 const ONBOARDED = { studio: 'Alder Street Clay Commons', owner: 'marisol.okafor@demo.conewright.test' }
@@ -120,4 +124,26 @@ export async function seedDemoPayouts(ctx: AppContext) {
     const id = await demoRequestId(ctx.db.manager, key)
     if (id) await payDemoRequest(ctx, id)
   }
+  for (const claim of await demoClaimsToPay(ctx)) await payDemoClaim(ctx, claim)
+}
+
+/** Pays the demo's damage claim by card, and books it as the webhook would. */
+async function payDemoClaim(ctx: AppContext, claim: Claim) {
+  const rc = await loadRequest(ctx.db.manager, claim.requestId)
+  const intent = await stripeFor(ctx.config).paymentIntents.create(
+    {
+      amount: claim.amountCents,
+      currency: claim.currency.toLowerCase(),
+      payment_method: 'pm_card_visa',
+      allowed_payment_method_types: ['card'],
+      confirm: true,
+      receipt_email: rc.potter.email,
+      transfer_group: transferGroupOf(claim.requestId),
+      metadata: { requestId: claim.requestId, purpose: 'claim', claimId: claim.id },
+    },
+    { idempotencyKey: `demo:claim:${claim.id}` },
+  )
+  await requestAction(ctx, null, claim.requestId, 'claim', (step) =>
+    bookClaimPaid(step, claim.id, { sessionId: null, paymentIntentId: intent.id }),
+  )
 }

@@ -190,6 +190,21 @@ const DEMO_REQUESTS: DemoRequest[] = [
     thanks: 'Thank you, Wren. See you at the next cone 6.',
   },
   {
+    // Its firing has the demo's incident (server/db/demo-incidents.ts): a jar burst early in the climb.
+    key: 'past-blowout',
+    studio: 'Alder Street Clay Commons',
+    kiln: 'Big Ten',
+    firing: 'past',
+    pastFiring: { cone: '6', atmosphere: 'oxidation', slowCool: true, notes: 'Full load; the controller ran its fast program by mistake.' },
+    potter: 'theo.marsh@demo.conewright.test',
+    pieces: [
+      { ...MUGS, label: 'Thick-walled jars', quantity: 2, heightMm: 160, widthMm: 120, depthMm: 120, round: true, wallThicknessMm: 14 },
+    ],
+    notes: 'Made last week; they felt dry to me.',
+    state: 'collected',
+    checkedInBy: 'marisol.okafor@demo.conewright.test',
+  },
+  {
     key: 'celadon-collected',
     studio: 'Fernhollow Gas Works',
     kiln: 'The Car',

@@ -1,11 +1,14 @@
 // Every entity, listed once for the data source (esbuild-based runners cannot glob decorated classes).
 import { AuthToken } from '../entities/AuthToken'
 import { CheckIn } from '../entities/CheckIn'
+import { Claim } from '../entities/Claim'
 import { CounterRefund } from '../entities/CounterRefund'
 import { Firing } from '../entities/Firing'
 import { FiringEvent } from '../entities/FiringEvent'
 import { FiringLog } from '../entities/FiringLog'
 import { FiringRequest } from '../entities/FiringRequest'
+import { Incident } from '../entities/Incident'
+import { IncidentPiece } from '../entities/IncidentPiece'
 import { Kiln } from '../entities/Kiln'
 import { LoadPlanRecord } from '../entities/LoadPlanRecord'
 import { LedgerEntry } from '../entities/LedgerEntry'
@@ -31,6 +34,9 @@ import { User } from '../entities/User'
 import { WarePiece } from '../entities/WarePiece'
 
 export const entities = [
+  Incident,
+  IncidentPiece,
+  Claim,
   User,
   Studio,
   StudioMember,

@@ -16,6 +16,7 @@ import { Hardening1796172202396 } from './migrations/1796172202396-Hardening'
 import { ReviewsAfterPickup1796174002687 } from './migrations/1796174002687-ReviewsAfterPickup'
 import { StudioPayouts1796174302372 } from './migrations/1796174302372-StudioPayouts'
 import { LoadPiecesAndPlans1796175115835 } from './migrations/1796175115835-LoadPiecesAndPlans'
+import { IncidentsAndClaims1796189313576 } from './migrations/1796189313576-IncidentsAndClaims'
 
 export const migrations: (new () => unknown)[] = [
   Foundation1796149373286,
@@ -34,4 +35,5 @@ export const migrations: (new () => unknown)[] = [
   ReviewsAfterPickup1796174002687,
   StudioPayouts1796174302372,
   LoadPiecesAndPlans1796175115835,
+  IncidentsAndClaims1796189313576,
 ]

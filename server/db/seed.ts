@@ -3,6 +3,7 @@ import type { UserRole } from '../../shared/schemas/auth'
 import { hashPassword } from '../auth/password'
 import type { AppContext } from '../context'
 import { User } from '../entities/User'
+import { seedDemoIncident } from './demo-incidents'
 import { regionalDemoStudios } from './demo-region'
 import { seedDemoRequests } from './demo-requests'
 import { DEMO_STUDIOS, seedDemoStudios } from './demo-studios'
@@ -39,4 +40,6 @@ export async function seedDemo(ctx: AppContext) {
     await seedDemoStudios(manager, [...DEMO_STUDIOS, ...regionalDemoStudios()], (person) => ensureDemoUser(manager, person, passwordHash))
     await seedDemoRequests(manager, async (email) => (await manager.getRepository(User).findOneByOrFail({ email })).id)
   })
+  // After the requests are in: the incident is reported through the app's own services, photo and all.
+  await seedDemoIncident(ctx)
 }

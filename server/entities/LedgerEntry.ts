@@ -1,7 +1,8 @@
 import { Check, Column, CreateDateColumn, Entity, Index, PrimaryGeneratedColumn } from 'typeorm'
 
 /** `counter-refund`: money handed back at the counter (what Stripe could not return). */
-export type LedgerKind = 'deposit' | 'balance' | 'refund' | 'counter' | 'counter-refund'
+/** `claim`: a damage claim paid online; it is not toward the firing's price. */
+export type LedgerKind = 'deposit' | 'balance' | 'refund' | 'counter' | 'counter-refund' | 'claim'
 
 /**
  * One movement of money for a request: what came in (deposit, balance, paid at the counter) and what
@@ -10,7 +11,7 @@ export type LedgerKind = 'deposit' | 'balance' | 'refund' | 'counter' | 'counter
 @Entity({ name: 'ledger_entries' })
 @Index('ledger_entries_request_idx', ['requestId', 'at'])
 @Check('ledger_entries_direction_check', `"direction" IN ('in', 'out')`)
-@Check('ledger_entries_kind_check', `"kind" IN ('deposit', 'balance', 'refund', 'counter', 'counter-refund')`)
+@Check('ledger_entries_kind_check', `"kind" IN ('deposit', 'balance', 'refund', 'counter', 'counter-refund', 'claim')`)
 @Check('ledger_entries_amount_check', `"amount_cents" > 0`)
 export class LedgerEntry {
   @PrimaryGeneratedColumn('uuid')

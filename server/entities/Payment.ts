@@ -1,9 +1,10 @@
 import { Check, Column, CreateDateColumn, Entity, Index, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm'
 
-/** A Stripe Checkout Session opened for a request's deposit or balance. */
+/** A Stripe Checkout Session opened for a request's deposit or balance, or a damage claim on it. */
 @Entity({ name: 'payments' })
 @Index('payments_request_idx', ['requestId', 'purpose'])
-@Check('payments_purpose_check', `"purpose" IN ('deposit', 'balance')`)
+@Check('payments_purpose_check', `"purpose" IN ('deposit', 'balance', 'claim')`)
+@Check('payments_claim_check', `("purpose" = 'claim') = ("claim_id" IS NOT NULL)`)
 @Check('payments_status_check', `"status" IN ('open', 'paid', 'expired', 'failed')`)
 export class Payment {
   @PrimaryGeneratedColumn('uuid')
@@ -13,7 +14,11 @@ export class Payment {
   requestId: string
 
   @Column({ type: 'text' })
-  purpose: 'deposit' | 'balance'
+  purpose: 'deposit' | 'balance' | 'claim'
+
+  /** The damage claim a claim payment pays. */
+  @Column({ name: 'claim_id', type: 'uuid', nullable: true })
+  claimId: string | null
 
   @Index('payments_session_key', { unique: true })
   @Column({ name: 'stripe_session_id', type: 'text' })

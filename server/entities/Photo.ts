@@ -1,8 +1,9 @@
 import { Check, Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn } from 'typeorm'
 import type { FiringRequest } from './FiringRequest'
+import type { Incident } from './Incident'
 import type { WarePiece } from './WarePiece'
 
-export type PhotoKind = 'ware' | 'check-in' | 'result' | 'refusal'
+export type PhotoKind = 'ware' | 'check-in' | 'result' | 'refusal' | 'incident'
 
 /**
  * A photo of a request's ware, stored re-encoded and without metadata under a random name. The
@@ -11,7 +12,9 @@ export type PhotoKind = 'ware' | 'check-in' | 'result' | 'refusal'
 @Entity({ name: 'photos' })
 @Index('photos_request_idx', ['requestId', 'kind'])
 @Index('photos_piece_idx', ['pieceId'])
-@Check('photos_kind_check', `"kind" IN ('ware', 'check-in', 'result', 'refusal')`)
+@Index('photos_incident_idx', ['incidentId'])
+@Check('photos_kind_check', `"kind" IN ('ware', 'check-in', 'result', 'refusal', 'incident')`)
+@Check('photos_incident_check', `("kind" = 'incident') = ("incident_id" IS NOT NULL)`)
 export class Photo {
   @PrimaryGeneratedColumn('uuid')
   id: string
@@ -33,6 +36,14 @@ export class Photo {
   @ManyToOne('WarePiece', { onDelete: 'SET NULL' })
   @JoinColumn({ name: 'piece_id' })
   piece: WarePiece | null
+
+  /** The incident an incident photo shows; its request is the ask whose ware failed. */
+  @Column({ name: 'incident_id', type: 'uuid', nullable: true })
+  incidentId: string | null
+
+  @ManyToOne('Incident', { onDelete: 'CASCADE' })
+  @JoinColumn({ name: 'incident_id' })
+  incident: Incident | null
 
   @Column({ name: 'storage_key', type: 'text' })
   storageKey: string

@@ -1,6 +1,6 @@
 import { Router, type Request, type RequestHandler, type Response } from 'express'
 import multer from 'multer'
-import { z } from 'zod'
+import { z, type ZodType } from 'zod'
 import { photoPatchSchema } from '../../shared/schemas/pickup'
 import { requireAuth } from '../auth/guards'
 import type { AppContext } from '../context'
@@ -35,20 +35,29 @@ function uploadError(error: unknown): HttpError {
 }
 
 /** Receives the photos; anything multer or its parser refuses becomes a 4xx in the one error shape. */
-const receivePhotos: RequestHandler = describeValidation(
-  (req, res, next) =>
-    upload.array('photos', PHOTO_LIMITS.maxFiles)(req, res, (error?: unknown) => next(error ? uploadError(error) : undefined)),
-  { where: 'multipart', schema: kindSchema, fileField: 'photos' },
-)
+export function receivePhotos(schema: ZodType): RequestHandler {
+  return describeValidation(
+    (req, res, next) =>
+      upload.array('photos', PHOTO_LIMITS.maxFiles)(req, res, (error?: unknown) => next(error ? uploadError(error) : undefined)),
+    { where: 'multipart', schema, fileField: 'photos' },
+  )
+}
 
 export function photosRouter(ctx: AppContext) {
   const router = Router()
   const id = requireUuidParams('id')
 
-  router.post('/requests/:id/photos', requireAuth, id, receivePhotos, validateBody(kindSchema), async (req: Request, res: Response) => {
-    const files = (req.files as Express.Multer.File[] | undefined) ?? []
-    res.status(201).json({ photos: await addPhotos(ctx, req.user!, String(req.params.id), req.body.kind, files) })
-  })
+  router.post(
+    '/requests/:id/photos',
+    requireAuth,
+    id,
+    receivePhotos(kindSchema),
+    validateBody(kindSchema),
+    async (req: Request, res: Response) => {
+      const files = (req.files as Express.Multer.File[] | undefined) ?? []
+      res.status(201).json({ photos: await addPhotos(ctx, req.user!, String(req.params.id), req.body.kind, files) })
+    },
+  )
 
   for (const [path, size] of [
     ['/photos/:id', 'full'],

@@ -3,7 +3,7 @@
 import { randomUUID } from 'node:crypto'
 import type Stripe from 'stripe'
 import { z } from 'zod'
-import { In, type EntityManager } from 'typeorm'
+import { In, IsNull, type EntityManager } from 'typeorm'
 import type { AppContext } from '../context'
 import { CounterRefund } from '../entities/CounterRefund'
 import { LedgerEntry } from '../entities/LedgerEntry'
@@ -23,6 +23,7 @@ import { inTransaction, requestAction, requestActionIn, type ActionStep } from '
 import { stripeFor } from './stripe'
 import { enqueuePayoutIfEarned, handleTransferEvent, moneyQueueOf, transferGroupOf } from './payouts'
 import { enqueueStudioSync } from './search-sync'
+import { bookClaimPaid } from './claims'
 
 export const REFUND_TASK = 'refund-payment'
 export const OPEN_CHECKOUT_TASK = 'open-checkout'
@@ -40,7 +41,8 @@ const sum = (entries: { amountCents: number }[]) => entries.reduce((n, e) => n +
 export async function moneyOf(manager: EntityManager, requestId: string) {
   const entries = await manager.getRepository(LedgerEntry).find({ where: { requestId }, order: { at: 'ASC' } })
   const counterRefunds = await manager.getRepository(CounterRefund).find({ where: { requestId }, order: { createdAt: 'ASC' } })
-  const paidIn = sum(entries.filter((e) => e.direction === 'in'))
+  // A damage claim paid is not toward the firing's price: it stays out of what is owed and refundable.
+  const paidIn = sum(entries.filter((e) => e.direction === 'in' && e.kind !== 'claim'))
   const refunded = sum(entries.filter((e) => e.direction === 'out'))
   const counterRefundDue = sum(counterRefunds.filter((r) => !r.paidAt))
   const onlineIn = sum(entries.filter((e) => e.kind === 'deposit' || e.kind === 'balance'))
@@ -64,12 +66,17 @@ export async function moneyOf(manager: EntityManager, requestId: string) {
 export async function openCheckout(
   ctx: AppContext,
   requestId: string,
-  purpose: 'deposit' | 'balance',
+  purpose: 'deposit' | 'balance' | 'claim',
   amountCents: number,
+  claim?: { claimId: string; label: string; returnPath: string },
 ): Promise<Payment> {
   const rc = await loadRequest(ctx.db.manager, requestId)
   const payments = ctx.db.getRepository(Payment)
-  const open = await payments.findOne({ where: { requestId, purpose, status: 'open' }, order: { createdAt: 'DESC' } })
+  const claimId = claim?.claimId ?? null
+  const open = await payments.findOne({
+    where: { requestId, purpose, status: 'open', claimId: claimId ?? IsNull() },
+    order: { createdAt: 'DESC' },
+  })
   if (open && open.expiresAt.getTime() > Date.now() + 5 * 60_000 && open.amountCents === amountCents) return open
   if (amountCents <= 0) throw conflict('Nothing is owed.', 'nothing-owed')
   const currency = ((rc.request.standingQuote ?? rc.request.quote)?.currency ?? rc.studio.currency).toLowerCase()
@@ -80,8 +87,10 @@ export async function openCheckout(
       { minimumCents: minimumOnlineCharge(currency) },
     )
   }
-  const attempt = await payments.count({ where: { requestId, purpose } })
-  const base = `${ctx.config.publicUrl}/requests/${requestId}`
+  const attempt = await payments.count({ where: { requestId, purpose, claimId: claimId ?? IsNull() } })
+  const base = `${ctx.config.publicUrl}${claim?.returnPath ?? `/requests/${requestId}`}`
+  const what = claim?.label ?? (purpose === 'deposit' ? 'Deposit' : 'Balance')
+  const metadata = { requestId, purpose, ...(claimId ? { claimId } : {}) }
   const session = await stripeFor(ctx.config).checkout.sessions.create(
     {
       mode: 'payment',
@@ -91,7 +100,7 @@ export async function openCheckout(
           price_data: {
             currency,
             unit_amount: amountCents,
-            product_data: { name: `${purpose === 'deposit' ? 'Deposit' : 'Balance'}: ${rc.kiln.name} firing at ${rc.studio.name}` },
+            product_data: { name: `${what}: ${rc.kiln.name} firing at ${rc.studio.name}` },
           },
         },
       ],
@@ -99,12 +108,12 @@ export async function openCheckout(
       cancel_url: `${base}?unpaid=${purpose}`,
       client_reference_id: requestId,
       customer_email: rc.potter.email,
-      metadata: { requestId, purpose },
+      metadata,
       // The request's transfer group ties its charges to the transfers that pay the studio its share.
-      payment_intent_data: { metadata: { requestId, purpose }, transfer_group: transferGroupOf(requestId) },
+      payment_intent_data: { metadata, transfer_group: transferGroupOf(requestId) },
       expires_at: Math.floor(Date.now() / 1000) + CHECKOUT_LIFETIME_S,
     },
-    { idempotencyKey: `${purpose}:${requestId}:${attempt}:${amountCents}` },
+    { idempotencyKey: `${purpose}:${claimId ?? requestId}:${attempt}:${amountCents}` },
   )
   if (open && open.stripeSessionId !== session.id) await payments.update(open.id, { status: 'expired' })
   // The job and the route may open the same attempt at once: Stripe answers both with one session
@@ -115,6 +124,7 @@ export async function openCheckout(
     .values({
       requestId,
       purpose,
+      claimId,
       stripeSessionId: session.id,
       checkoutUrl: session.url!,
       amountCents,
@@ -188,7 +198,7 @@ export async function makeRefund(ctx: AppContext, payload: { requestId: string; 
   const stripe = stripeFor(ctx.config)
   const paid = await ctx.db
     .getRepository(Payment)
-    .find({ where: { requestId: payload.requestId, status: 'paid' }, order: { createdAt: 'DESC' } })
+    .find({ where: { requestId: payload.requestId, status: 'paid', purpose: In(['deposit', 'balance']) }, order: { createdAt: 'DESC' } })
   const booked = await ctx.db.getRepository(LedgerEntry).find({ where: { requestId: payload.requestId, kind: 'refund' } })
   let left = payload.amountCents
   for (const payment of paid) {
@@ -314,6 +324,13 @@ export async function handleStripeEvent(ctx: AppContext, raw: unknown): Promise<
         const paymentIntentId = typeof session.payment_intent === 'string' ? session.payment_intent : (session.payment_intent?.id ?? null)
         await manager.update(Payment, payment.id, { status: 'paid', stripePaymentIntentId: paymentIntentId })
         Object.assign(payment, { status: 'paid', stripePaymentIntentId: paymentIntentId })
+        if (payment.purpose === 'claim') {
+          // A claim books its own ledger entry with the claim it pays.
+          await requestActionIn(ctx, manager, null, payment.requestId, 'claim', (step) =>
+            bookClaimPaid(step, payment.claimId!, { sessionId: session.id, paymentIntentId }),
+          )
+          break
+        }
         await manager.getRepository(LedgerEntry).save({
           requestId: payment.requestId,
           direction: 'in',

@@ -282,7 +282,7 @@ async function syncTransfers(ctx: AppContext, requestId: string, studioId: strin
 async function chargesOf(ctx: AppContext, requestId: string): Promise<{ id: string; currency: string; left: number }[]> {
   const stripe = stripeFor(ctx.config)
   const intents: { pi: string }[] = await ctx.db.query(
-    `SELECT stripe_payment_intent_id AS pi FROM ledger_entries WHERE request_id = $1 AND kind IN ('deposit', 'balance')
+    `SELECT stripe_payment_intent_id AS pi FROM ledger_entries WHERE request_id = $1 AND kind IN ('deposit', 'balance', 'claim')
      AND stripe_payment_intent_id IS NOT NULL GROUP BY 1 ORDER BY min(at)`,
     [requestId],
   )

@@ -7,7 +7,7 @@ import { randomBytes } from 'node:crypto'
 import { mkdir, readFile, rm, writeFile } from 'node:fs/promises'
 import path from 'node:path'
 import sharp, { type Metadata, type Sharp } from 'sharp'
-import type { EntityManager } from 'typeorm'
+import { IsNull, type EntityManager } from 'typeorm'
 import type { AppContext } from '../context'
 import { Photo, type PhotoKind } from '../entities/Photo'
 import type { User } from '../entities/User'
@@ -15,6 +15,7 @@ import { badRequest, forbidden, HttpError, notFound } from '../http/errors'
 import { isUuid } from '../http/validate'
 import { enqueueJob } from '../jobs/queue'
 import { countHit, secondsUntil } from './counters'
+import { incidentViewerOf, loadIncident } from './incident-access'
 import { loadRequest, viewerOf } from './request-context'
 
 export const PHOTO_LIMITS = {
@@ -55,7 +56,7 @@ function incomingDir(ctx: AppContext) {
 
 /** Who may add which kind of photo: the potter shows their ware; the studio records the rest. */
 function mayUpload(side: 'potter' | 'studio' | 'admin', kind: PhotoKind) {
-  if (side === 'admin') return true
+  if (side === 'admin' || kind === 'incident') return true
   return side === 'potter' ? kind === 'ware' : kind !== 'ware'
 }
 
@@ -131,7 +132,16 @@ async function removeAll(files: string[]) {
   await Promise.all(files.map((file) => rm(file, { force: true })))
 }
 
-export async function addPhotos(ctx: AppContext, user: User, requestId: string, kind: PhotoKind, files: UploadedFile[]) {
+/** Stores photos on a request; an incident's photos (kind 'incident') name the incident too. */
+export async function addPhotos(
+  ctx: AppContext,
+  user: User,
+  requestId: string,
+  kind: PhotoKind,
+  files: UploadedFile[],
+  incidentId: string | null = null,
+) {
+  if ((kind === 'incident') !== (incidentId !== null)) throw badRequest('Incident photos are added on the incident.', { kind: 'Not here.' })
   if (!files.length) throw badRequest('Choose at least one photo.', { photos: 'No file was sent.' }, 'no-files')
   const rc = await loadRequest(ctx.db.manager, requestId)
   const viewer = await viewerOf(ctx.db.manager, rc, user)
@@ -199,7 +209,7 @@ export async function addPhotos(ctx: AppContext, user: User, requestId: string, 
     const saved = await ctx.db.transaction(async (manager) => {
       const photos = await manager
         .getRepository(Photo)
-        .save(rows.map((r) => ({ ...r, requestId, kind, pieceId: null, uploadedBy: user.id, publicOptIn: false })))
+        .save(rows.map((r) => ({ ...r, requestId, kind, pieceId: null, incidentId, uploadedBy: user.id, publicOptIn: false })))
       for (const photo of photos.filter((p) => p.processing))
         await enqueueJob(manager, PROCESS_PHOTO_TASK, { photoId: photo.id }, { queueName: 'photos', maxAttempts: 5 })
       return photos
@@ -251,8 +261,11 @@ export function photoJson(photo: Photo) {
   }
 }
 
+/** The ask's own photos; an incident's photos are shown with the incident. */
 export async function requestPhotos(manager: EntityManager, requestId: string) {
-  return (await manager.getRepository(Photo).find({ where: { requestId }, order: { createdAt: 'ASC' } })).map(photoJson)
+  return (await manager.getRepository(Photo).find({ where: { requestId, incidentId: IsNull() }, order: { createdAt: 'ASC' } })).map(
+    photoJson,
+  )
 }
 
 /** The bytes of a photo for someone allowed to see it; a 404 for anyone else, as if it were not there. */
@@ -263,8 +276,13 @@ export async function readPhoto(ctx: AppContext, user: User | undefined, photoId
   const publicResult = photo.kind === 'result' && photo.publicOptIn
   if (!publicResult) {
     if (!user) throw notFound('That photo')
-    const rc = await loadRequest(ctx.db.manager, photo.requestId)
-    await viewerOf(ctx.db.manager, rc, user)
+    if (photo.incidentId) {
+      // A potter whose piece was hurt sees the incident's photos without seeing the other potter's ask.
+      await incidentViewerOf(ctx.db.manager, await loadIncident(ctx.db.manager, photo.incidentId), user)
+    } else {
+      const rc = await loadRequest(ctx.db.manager, photo.requestId)
+      await viewerOf(ctx.db.manager, rc, user)
+    }
   }
   if (photo.processing)
     throw new HttpError(409, 'photo-processing', 'That photo is still being prepared. Try again in a moment.', undefined, {

@@ -51,7 +51,10 @@ export async function requestJson(manager: EntityManager, rc: RequestContext, vi
   )
   const money = await moneyOf(manager, rc.request.id)
   const facts = await requestFacts(manager, rc)
-  const payments = await openPaymentsOf(manager, rc.request.id)
+  // A damage claim's checkout lives on the claim, not among the ask's own payments.
+  const payments = (await openPaymentsOf(manager, rc.request.id)).filter(
+    (p): p is typeof p & { purpose: 'deposit' | 'balance' } => p.purpose !== 'claim',
+  )
   const proposed = rc.request.proposedFiringId ? await manager.getRepository(Firing).findOneBy({ id: rc.request.proposedFiringId }) : null
   const [firing, proposedFiring] = await firingsJson(manager, proposed ? [rc.firing, proposed] : [rc.firing], rc.studio.id)
   // The street address goes to a potter only once the studio has agreed to take the ware.

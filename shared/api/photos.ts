@@ -1,7 +1,7 @@
 // A stored photo as the API describes it (server/services/photos.ts photoJson): re-encoded, without
 // metadata, served only to those who may see its request.
 
-export type PhotoKind = 'ware' | 'check-in' | 'result' | 'refusal'
+export type PhotoKind = 'ware' | 'check-in' | 'result' | 'refusal' | 'incident'
 
 export interface PhotoJson {
   id: string

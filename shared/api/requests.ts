@@ -90,7 +90,7 @@ export interface TimelineEntryJson {
 export interface LedgerEntryJson {
   at: string
   direction: 'in' | 'out'
-  kind: 'deposit' | 'balance' | 'refund' | 'counter' | 'counter-refund'
+  kind: 'deposit' | 'balance' | 'refund' | 'counter' | 'counter-refund' | 'claim'
   amountCents: number
   currency: string
   stripeSessionId: string | null

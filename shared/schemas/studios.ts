@@ -5,6 +5,7 @@ import { coneSchema, atmosphereSchema, coolingProfileSchema, firingKindSchema, k
 import { FIRING_STATUSES } from '../workflow/firing-status'
 import { SEGMENT_ZONES } from '../firing/schedule'
 import { kilnFurnitureSchema } from './pieces'
+import { DAMAGE_CHARGE_KINDS, type DamageChargeKind } from '../claims'
 
 export const CLAY_BODIES = ['earthenware', 'stoneware', 'porcelain', 'other'] as const
 
@@ -43,6 +44,17 @@ export const studioPoliciesSchema = z.object({
     .int('Enter whole hours.')
     .min(1, 'At least 1 hour.')
     .max(336, 'At most 14 days.'),
+  /** The most the studio charges when a potter's ware damages the kiln, shelves or other ware (shared/claims.ts). */
+  damageCharges: z
+    .object(
+      Object.fromEntries(
+        DAMAGE_CHARGE_KINDS.map((kind) => [
+          kind,
+          z.number({ error: 'Enter an amount.' }).int('Enter whole cents.').min(0, 'At least 0.').max(1_000_000, 'At most 10,000.'),
+        ]),
+      ) as Record<DamageChargeKind, z.ZodNumber>,
+    )
+    .optional(),
 })
 export type StudioPolicies = z.infer<typeof studioPoliciesSchema>
 

@@ -45,6 +45,10 @@ export const SYSTEM_ACTIONS = [
   'desk-refund',
   'desk-settle',
   'publish-reviews',
+  // Incidents and damage claims: who may report, claim, pay, contest or decide is checked by the
+  // incident's and the claim's own rules (server/services/incidents.ts, shared/claims.ts), in any state.
+  'incident',
+  'claim',
 ] as const
 export type SystemAction = (typeof SYSTEM_ACTIONS)[number]
 

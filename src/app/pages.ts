@@ -30,6 +30,10 @@ export const pages = {
   piece: () => import('../features/load/pages/PiecePage'),
   load: () => import('../features/load/pages/LoadPage'),
   unload: () => import('../features/load/pages/UnloadPage'),
+  incident: () => import('../features/incidents/pages/IncidentPage'),
+  reportIncident: () => import('../features/incidents/pages/ReportIncidentPage'),
+  incidentHistory: () => import('../features/incidents/pages/IncidentHistoryPage'),
+  deskClaims: () => import('../features/incidents/pages/DeskClaimsPage'),
 }
 
 export type PageName = keyof typeof pages | 'landing' | 'notFound'

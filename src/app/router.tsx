@@ -92,6 +92,13 @@ export const routes: RouteObject[] = [
               { path: 'kilns/:id/edit', ...page('kilnEditor', (m) => m.KilnEditorPage, studioSide) },
               { path: 'join-studio', ...page('joinStudio', (m) => m.JoinStudioPage) },
               { path: 'front-desk', ...page('frontDesk', (m) => m.FrontDeskPage, ['admin']) },
+              { path: 'front-desk/claims', ...page('deskClaims', (m) => m.DeskClaimsPage, ['admin']) },
+              { path: 'incidents/:id', ...page('incident', (m) => m.IncidentPage, ['potter', 'host', 'crew', 'admin']) },
+              {
+                path: 'firings/:firingId/incidents/new',
+                ...page('reportIncident', (m) => m.ReportIncidentPage, ['potter', 'host', 'crew']),
+              },
+              { path: 'studios/:id/incidents', ...page('incidentHistory', (m) => m.IncidentHistoryPage, studioSide) },
               { path: 'notices', ...page('notices', (m) => m.NoticesPage, ['potter', 'host', 'crew', 'admin']) },
               { path: '*', element: <NotFoundPage />, handle: { page: 'notFound' } satisfies PageHandle },
             ],

@@ -38,6 +38,14 @@ export const keys = {
     all: ['pieces'] as const,
     detail: (tag: string) => ['pieces', tag] as const,
   },
+  incidents: {
+    all: ['incidents'] as const,
+    detail: (id: string) => ['incidents', 'detail', id] as const,
+    ofFiring: (firingId: string) => ['incidents', 'firing', firingId] as const,
+    ofStudio: (studioId: string) => ['incidents', 'studio', studioId] as const,
+    potterRecord: (requestId: string) => ['incidents', 'potter-record', requestId] as const,
+    desk: () => ['incidents', 'desk'] as const,
+  },
   kilns: {
     detail: (id: string) => ['kilns', id] as const,
     priceList: (id: string) => ['kilns', id, 'price-list'] as const,

@@ -38,17 +38,36 @@ async function moneyOf(email: string, studio: string) {
 }
 
 describe('the demo’s money', () => {
-  it('has the community studio onboarded and its collected past firing transferred, less the fee', async () => {
+  it('has the community studio onboarded and its collected past firings transferred, less the fee', async () => {
     const money = await moneyOf('marisol.okafor@demo.conewright.test', 'Alder Street Clay Commons')
     expect(money.account.state).toBe('ready')
-    const past = money.firings.find((f: { state: string; grossCents: number }) => f.state === 'collected' && f.grossCents > 0)
-    const fee = marketplaceFee(past.grossCents, FEE)
-    expect(past).toMatchObject({ stage: 'earned', feeCents: fee, transferredCents: past.grossCents - fee, pendingCents: 0 })
-    // One transfer from each of its two charges (deposit and balance): source_transaction ties a
-    // transfer to a single charge.
-    expect(money.transfers).toHaveLength(2)
-    expect(money.transfers.reduce((n: number, t: { amountCents: number }) => n + t.amountCents, 0)).toBe(past.grossCents - fee)
+    type Earning = { state: string; grossCents: number; atCounterCents: number; potterName: string }
+    // Wren's mugs, paid by card; Theo's jars, paid at the counter, with the incident's cleaning fee paid by card.
+    const byCard = money.firings.find((f: Earning) => f.state === 'collected' && f.potterName === 'Wren Alvarado')
+    const fee = marketplaceFee(byCard.grossCents, FEE)
+    expect(byCard).toMatchObject({ stage: 'earned', feeCents: fee, transferredCents: byCard.grossCents - fee, pendingCents: 0 })
+    const jars = money.firings.find((f: Earning) => f.state === 'collected' && f.potterName === 'Theo Marsh')
+    const claimFee = marketplaceFee(4500, FEE)
+    expect(jars).toMatchObject({ stage: 'earned', feeCents: claimFee, transferredCents: 4500 - claimFee, pendingCents: 0 })
+    // One transfer from each charge (the mugs' deposit and balance, the jars' claim): source_transaction
+    // ties a transfer to a single charge.
+    expect(money.transfers).toHaveLength(3)
+    expect(money.transfers.reduce((n: number, t: { amountCents: number }) => n + t.amountCents, 0)).toBe(
+      byCard.grossCents - fee + 4500 - claimFee,
+    )
     expect(money.months.length).toBeGreaterThan(0)
+  })
+
+  it('shows the community studio’s people its incident: a blowout read as water smoking, with a photo and the cleaning fee paid', async () => {
+    const crew = await signedIn('marisol.okafor@demo.conewright.test')
+    const [{ id }] = await app.ctx.db.query(`SELECT id FROM studios WHERE name = 'Alder Street Clay Commons'`)
+    const history = (await crew.get(`/api/studios/${id}/incidents`)).body
+    expect(history.rows).toEqual([expect.objectContaining({ kilnName: 'Big Ten', phase: 'water-smoking', count: 1 })])
+    const incident = (await crew.get(`/api/incidents/${history.incidents[0].id}`)).body
+    expect(incident).toMatchObject({ kind: 'blowout', logged: true, potterName: 'Theo Marsh' })
+    expect(incident.diagnosis.phase).toBe('water-smoking')
+    expect(incident.photos).toHaveLength(1)
+    expect(incident.claims).toEqual([expect.objectContaining({ chargeKind: 'kiln-cleaning', amountCents: 4500, status: 'paid' })])
   })
 
   it('shows the gas works, not onboarded, what it is owed for its collected firing', async () => {

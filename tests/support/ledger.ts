@@ -29,7 +29,7 @@ export async function checkLedgers(app: TestApp): Promise<LedgerReport> {
 
     // What Stripe charged and refunded for this request's payments.
     const intents: { pi: string }[] = await manager.query(
-      `SELECT DISTINCT stripe_payment_intent_id AS pi FROM ledger_entries WHERE request_id = $1 AND kind IN ('deposit', 'balance')`,
+      `SELECT DISTINCT stripe_payment_intent_id AS pi FROM ledger_entries WHERE request_id = $1 AND kind IN ('deposit', 'balance', 'claim')`,
       [id],
     )
     let charged = 0
@@ -42,7 +42,7 @@ export async function checkLedgers(app: TestApp): Promise<LedgerReport> {
       refunded += charge.amount_refunded
     }
     const online = await manager.query(
-      `SELECT coalesce(sum(amount_cents) FILTER (WHERE kind IN ('deposit', 'balance')), 0)::int AS paid,
+      `SELECT coalesce(sum(amount_cents) FILTER (WHERE kind IN ('deposit', 'balance', 'claim')), 0)::int AS paid,
               coalesce(sum(amount_cents) FILTER (WHERE kind = 'refund'), 0)::int AS refunded FROM ledger_entries WHERE request_id = $1`,
       [id],
     )

@@ -1,7 +1,7 @@
 // A stored photo as the API describes it (server/services/photos.ts photoJson): re-encoded, without
 // metadata, served only to those who may see its request.
 
-export type PhotoKind = 'ware' | 'check-in' | 'result' | 'refusal'
+export type PhotoKind = 'ware' | 'check-in' | 'result' | 'refusal' | 'incident'
 
 export interface PhotoRecord {
   id: string
@@ -24,4 +24,5 @@ export const PHOTO_KIND_WORDS: Record<PhotoKind, string> = {
   'check-in': 'At drop-off',
   refusal: 'Refused at the door',
   result: 'Results',
+  incident: 'What went wrong',
 }

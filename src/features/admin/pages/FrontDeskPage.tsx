@@ -1,4 +1,5 @@
 import { useState } from 'react'
+import { Link } from 'react-router-dom'
 import { PageHeader } from '../../../components/ui/Card'
 import { TabPanel, Tabs } from '../../../components/ui/Tabs'
 import type { UnitSystem } from '../../../lib/units'
@@ -28,7 +29,15 @@ export function FrontDeskPage() {
   const units: UnitSystem = me.data?.unitSystem ?? 'imperial'
   return (
     <>
-      <PageHeader title="Front desk" lead="Verify studios, settle disputes and keep the marketplace honest." />
+      <PageHeader
+        title="Front desk"
+        lead="Verify studios, settle disputes and keep the marketplace honest."
+        actions={
+          <Link to="/front-desk/claims" className="font-medium text-clay-700 hover:underline">
+            Contested damage claims
+          </Link>
+        }
+      />
       <div className="space-y-5">
         <Tabs label="The desk" idBase="desk" tabs={TABS} value={tab} onChange={setTab} />
         <TabPanel idBase="desk" value={tab} className="space-y-4">

@@ -9,6 +9,7 @@ const KIND_WORDS: Record<LedgerEntry['kind'], string> = {
   counter: 'Paid at the studio',
   refund: 'Refunded',
   'counter-refund': 'Handed back at the studio',
+  claim: 'Damage claim paid',
 }
 
 const whatOf = (entry: LedgerEntry) => KIND_WORDS[entry.kind] ?? (entry.direction === 'in' ? 'Received' : 'Paid out')

@@ -1,4 +1,5 @@
 import { useEffect, useState } from 'react'
+import { PotterIncidentRecordCard, RequestIncidents } from '../components/RequestIncidents'
 import { Link, useParams, useSearchParams } from 'react-router-dom'
 import { formatMoney } from '../../../../shared/dates'
 import { HOLDING_STATES } from '../../../../shared/workflow/request-states'
@@ -290,6 +291,9 @@ function RequestDetail({ view, units, paidFor, unpaidFor, waitedOut }: DetailPro
               </p>
             )}
           </Card>
+
+          <PotterIncidentRecordCard view={view} />
+          <RequestIncidents view={view} />
 
           {showReviews && (
             <Card>

@@ -6,6 +6,7 @@ export function StudioNav({ studioId, role }: { studioId: string; role: StudioRo
   const links = [
     { to: '/kiln-room', label: 'Kiln room', end: true },
     { to: `/studios/${studioId}/calendar`, label: 'Calendar', end: true },
+    { to: `/studios/${studioId}/incidents`, label: 'Incidents', end: true },
     ...(role === 'owner'
       ? [
           { to: `/studios/${studioId}/edit`, label: 'Studio settings', end: true },

@@ -56,6 +56,11 @@ function FiringWorkbench({ firing, studio }: { firing: FiringRecord; studio: Mem
       <PageHeader
         title="Firing log"
         lead={`${firingInWords(firing)}${kiln.data ? ` · ${kiln.data.name}` : ''} · fires ${formatDateTime(firing.firingDate, zone)}`}
+        actions={
+          <Link to={`/firings/${firing.id}/incidents/new`} className="font-medium text-clay-700 hover:underline">
+            Report what went wrong
+          </Link>
+        }
       />
       <StudioNav studioId={studio.id} role={studio.myRole} />
 

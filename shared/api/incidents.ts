@@ -1,0 +1,104 @@
+// Incidents and damage claims as the routes answer with them (server/services/incidents.ts and
+// claims.ts) and the client reads them: declared once.
+import type { ClaimAction, ClaimStatus, DamageChargeKind, DamageCharges } from '../claims'
+import type { CrackEdge, Diagnosis, IncidentKind, IncidentPhase } from '../firing/incidents'
+import type { FiringKind } from '../firing/check'
+import type { PhotoJson } from './photos'
+
+export interface IncidentPieceJson {
+  tag: string
+  label: string
+  requestId: string
+  potterName: string
+  /** The piece that failed, or another potter's piece it hurt. */
+  role: 'failed' | 'hurt'
+}
+
+export interface ClaimJson {
+  id: string
+  incidentId: string
+  requestId: string
+  chargeKind: DamageChargeKind
+  chargeLabel: string
+  amountCents: number
+  currency: string
+  note: string
+  status: ClaimStatus
+  statusLabel: string
+  /** The potter's reason, once contested. */
+  contestReason: string | null
+  /** The desk's word, once decided. */
+  deskNote: string | null
+  potterName: string
+  studioName: string
+  /** What the viewer may do with it now. */
+  actions: ClaimAction[]
+  at: string
+  paidAt: string | null
+}
+
+export interface IncidentSummaryJson {
+  id: string
+  firingId: string
+  kind: IncidentKind
+  kindLabel: string
+  reportedBy: 'potter' | 'studio'
+  reporterName: string
+  at: string
+  pieceTags: string[]
+}
+
+export interface IncidentJson extends IncidentSummaryJson {
+  studioId: string
+  studioName: string
+  kilnName: string
+  firingDate: string
+  firingKind: FiringKind
+  cone: string
+  /** The ask whose ware failed. */
+  requestId: string
+  potterName: string
+  crackEdge: CrackEdge | null
+  shards: boolean
+  neighboursHit: boolean
+  shelfDamage: boolean
+  elementDamage: boolean
+  whereInKiln: string
+  note: string
+  pieces: IncidentPieceJson[]
+  photos: PhotoJson[]
+  /** Whether the firing's log had a curve to read. */
+  logged: boolean
+  diagnosis: Diagnosis
+  claims: ClaimJson[]
+  /** The viewer's standing: the studio may raise a claim; either side may add photos. */
+  viewerSide: 'potter' | 'studio' | 'admin' | 'neighbour'
+  canClaim: boolean
+  damageCharges: DamageCharges
+}
+
+/** One row of a studio's incident history: counted by kiln, firing kind and phase. */
+export interface IncidentHistoryRow {
+  kilnId: string
+  kilnName: string
+  firingKind: FiringKind
+  cone: string
+  atmosphere: string
+  phase: IncidentPhase | null
+  phaseLabel: string
+  count: number
+  last: string
+}
+
+export interface StudioIncidentHistory {
+  rows: IncidentHistoryRow[]
+  incidents: (IncidentSummaryJson & { kilnName: string; firingDate: string; phase: IncidentPhase | null })[]
+}
+
+/** A potter's record as a deciding studio sees it: incidents their ware caused, anywhere. */
+export interface PotterIncidentRecord {
+  count: number
+  claimsPaid: number
+  claimsWaived: number
+  incidents: { kind: IncidentKind; kindLabel: string; at: string; studioName: string }[]
+}
