@@ -85,6 +85,9 @@ export async function seedDemoIncident(ctx: AppContext) {
     pieceTags: [jar.tag],
     hurtTags: [],
   })
+  // Reported the morning the kiln was opened, not on the day the demo was seeded.
+  const openedAt = Date.parse(readings[readings.length - 1].at)
+  await manager.query(`UPDATE incidents SET created_at = $2 WHERE id = $1`, [incident.id, new Date(openedAt + 3600_000)])
   await addIncidentPhotos(ctx, reporter, incident.id, [{ originalname: 'middle-shelf.jpg', buffer: await shelfPhoto(), size: 0 }])
   await raiseClaim(ctx, reporter, incident.id, {
     chargeKind: 'kiln-cleaning',

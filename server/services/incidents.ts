@@ -295,6 +295,7 @@ export async function incidentJson(ctx: AppContext, user: Pick<User, 'id' | 'rol
     ),
     studioId: studio.id,
     studioName: studio.name,
+    timezone: studio.timezone,
     kilnName: kiln.name,
     firingDate: firing.firingDate.toISOString(),
     firingKind: firing.kind,
@@ -392,7 +393,9 @@ export async function studioIncidentHistory(ctx: AppContext, studioId: string): 
   const firings = incidents.length ? await manager.getRepository(Firing).find({ where: { id: In(incidents.map((i) => i.firingId)) } }) : []
   const kilns = rows.length ? await manager.getRepository(Kiln).find({ where: { studioId } }) : []
   const summaries = await summariesOf(manager, incidents)
+  const studio = await manager.getRepository(Studio).findOneByOrFail({ id: studioId })
   return {
+    timezone: studio.timezone,
     rows: rows.map((r) => ({
       kilnId: r.kiln_id,
       kilnName: r.kiln_name,

@@ -51,6 +51,8 @@ export interface IncidentSummaryJson {
 export interface IncidentJson extends IncidentSummaryJson {
   studioId: string
   studioName: string
+  /** The studio's time zone (IANA), in which its dates are shown. */
+  timezone: string
   kilnName: string
   firingDate: string
   firingKind: FiringKind
@@ -91,6 +93,8 @@ export interface IncidentHistoryRow {
 }
 
 export interface StudioIncidentHistory {
+  /** The studio's time zone (IANA), in which its dates are shown. */
+  timezone: string
   rows: IncidentHistoryRow[]
   incidents: (IncidentSummaryJson & { kilnName: string; firingDate: string; phase: IncidentPhase | null })[]
 }

@@ -13,7 +13,7 @@ export function IncidentHistoryPage() {
   const history = useStudioIncidents(id)
   if (history.isPending) return <Spinner label="Loading the incidents" />
   if (history.isError) return <Alert tone="danger">{history.error.message}</Alert>
-  const { rows, incidents } = history.data
+  const { rows, incidents, timezone } = history.data
   return (
     <>
       <PageHeader
@@ -45,7 +45,7 @@ export function IncidentHistoryPage() {
                     </Td>
                     <Td>{row.phaseLabel}</Td>
                     <Td>{row.count}</Td>
-                    <Td>{formatDate(row.last, 'UTC')}</Td>
+                    <Td>{formatDate(row.last, timezone)}</Td>
                   </tr>
                 ))}
               </tbody>
@@ -59,7 +59,7 @@ export function IncidentHistoryPage() {
                   <Link to={`/incidents/${incident.id}`} className="font-medium text-clay-700 hover:underline">
                     {incident.kindLabel}
                   </Link>{' '}
-                  in {incident.kilnName}, firing of {formatDate(incident.firingDate, 'UTC')}
+                  in {incident.kilnName}, firing of {formatDate(incident.firingDate, timezone)}
                   {incident.pieceTags.length > 0 && <span className="font-mono"> ({incident.pieceTags.join(', ')})</span>}
                 </li>
               ))}

@@ -34,7 +34,7 @@ function Facts({ incident }: { incident: IncidentJson }) {
   const rows: [string, string][] = [
     [
       'Reported by',
-      `${incident.reporterName} (${incident.reportedBy === 'studio' ? 'studio' : 'potter'}), ${formatDateTime(incident.at, 'UTC')}`,
+      `${incident.reporterName} (${incident.reportedBy === 'studio' ? 'studio' : 'potter'}), ${formatDateTime(incident.at, incident.timezone)}`,
     ],
     ['Ware of', incident.potterName],
     ...(incident.kind === 'crack' && incident.crackEdge ? [['Edge of the crack', EDGE_WORDS[incident.crackEdge]] as [string, string]] : []),
@@ -268,7 +268,7 @@ export function IncidentPage() {
     <>
       <PageHeader
         title={`What went wrong: ${data.kindLabel}`}
-        lead={`${data.kilnName}, ${formatCone(data.cone)} ${data.firingKind} firing of ${formatDate(data.firingDate, 'UTC')} at ${data.studioName}`}
+        lead={`${data.kilnName}, ${formatCone(data.cone)} ${data.firingKind} firing of ${formatDate(data.firingDate, data.timezone)} at ${data.studioName}`}
         actions={
           data.viewerSide === 'potter' || data.viewerSide === 'studio' ? (
             <Link to={`/requests/${data.requestId}`} className="font-medium text-clay-700 hover:underline">
