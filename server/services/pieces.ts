@@ -104,7 +104,7 @@ async function attachPhotos(
   if (!photoIds?.length) return
   const photos = await manager.getRepository(Photo).findBy({ id: In(photoIds), requestId, kind: In(kinds) })
   if (photos.length !== new Set(photoIds).size)
-    throw badRequest('A photo named is not one of this request’s studio photos.', { photoIds: 'Upload the photo to this request first.' })
+    throw badRequest('A photo named is not one of the studio’s photos of this ask.', { photoIds: 'Upload the photo to this ask first.' })
   if (photos.some((p) => p.pieceId !== null && p.pieceId !== pieceId))
     throw badRequest('A photo named already shows another piece.', { photoIds: 'That photo shows another piece.' })
   await manager.getRepository(Photo).update({ id: In(photoIds) }, { pieceId })
@@ -141,7 +141,7 @@ export async function tagPiece(ctx: AppContext, actor: User, requestId: string, 
     while (taken.has(copy)) copy++
     if (copy > line.quantity)
       throw conflict(
-        `All ${line.quantity} of “${lineLabel(line, body.pieceIndex)}” declared are tagged. A piece not on the request needs the potter to add it first.`,
+        `All ${line.quantity} of “${lineLabel(line, body.pieceIndex)}” declared are tagged. A piece not on the ask needs the potter to add it first.`,
         'all-tagged',
       )
     const items = rc.studio.dropOffChecklist.filter((item) => itemApplies(item, line))

@@ -67,10 +67,10 @@ export function disputeSettledMail(r: RequestFacts, note: string): MailContent {
   return {
     subject: `Dispute settled: ${r.potterName}’s ware at ${r.studioName}`,
     paragraphs: [
-      'The Conewright desk has settled the dispute about this request.',
+      'The Conewright desk has settled the dispute about this ask.',
       ...(note ? [`The desk’s note: “${note}”`] : []),
       'Any refund the desk made has gone back to the potter; what the studio keeps is released to it.',
     ],
-    action: { label: 'See the request', url: r.requestUrl },
+    action: { label: 'See the ask', url: r.requestUrl },
   }
 }

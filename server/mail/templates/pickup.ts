@@ -235,7 +235,7 @@ export function pieceHeldMail(r: RequestFacts, piece: PieceFacts, reason: string
     paragraphs: [
       `${r.studioName} is holding ${pieceName(piece)} back from the ${title(r)}.`,
       `Their reason: “${reason}”`,
-      'The rest of your ware goes on as planned. The held piece waits for you at the studio; its photo is on the request.',
+      'The rest of your ware goes on as planned. The held piece waits for you at the studio; its photo is on the ask.',
     ],
     action: { label: 'See the piece', url: `${r.requestUrl}#pieces` },
   }
@@ -247,6 +247,6 @@ export function pieceReleasedMail(r: RequestFacts, piece: PieceFacts): MailConte
     subject: `Back in the load: ${piece.tag}`,
     greeting: `Hello ${r.potterName},`,
     paragraphs: [`${r.studioName} took ${pieceName(piece)} back into the ${title(r)} after all.`],
-    action: { label: 'See the request', url: r.requestUrl },
+    action: { label: 'See the ask', url: r.requestUrl },
   }
 }
