@@ -18,6 +18,7 @@ import type { ClaimBody, ClaimDecisionBody } from '../../shared/schemas/incident
 import type { AppContext } from '../context'
 import { Claim } from '../entities/Claim'
 import { LedgerEntry } from '../entities/LedgerEntry'
+import { Payment } from '../entities/Payment'
 import type { User } from '../entities/User'
 import { badRequest, conflict, forbidden, notFound } from '../http/errors'
 import { isUuid } from '../http/validate'
@@ -152,7 +153,10 @@ async function claimStep<T>(
 /** The potter agrees to pay: the checkout page for the claim, on the ask so its money joins the ask's ledger. */
 export async function acceptClaim(ctx: AppContext, user: User, claimId: string) {
   const claim = await claimStep(ctx, user, claimId, 'pay', async (step, claim) => {
-    await step.note(`The potter agreed to pay the damage claim (${formatMoney(claim.amountCents, claim.currency)})`, { claimId })
+    // Coming back to pay after leaving the checkout page is the same agreement: noted once.
+    const agreedBefore = await step.manager.getRepository(Payment).exists({ where: { claimId } })
+    if (!agreedBefore)
+      await step.note(`The potter agreed to pay the damage claim (${formatMoney(claim.amountCents, claim.currency)})`, { claimId })
     return claim
   })
   // Stripe is asked outside the transaction: no lock is held across a network call.

@@ -197,8 +197,14 @@ describe('a damage claim', () => {
   it('is paid by the potter alone, through a checkout page, into the ask’s ledger', async () => {
     expect((await owner.session.post(`/api/claims/${claimId}/accept`)).status).toBe(403)
     expect((await stranger.session.post(`/api/claims/${claimId}/accept`)).status).toBe(404)
+    // Leaving the checkout page and pressing Pay again opens another page but notes the agreement once.
+    expect((await potter.session.post(`/api/claims/${claimId}/accept`)).status).toBe(200)
     const accepted = await potter.session.post(`/api/claims/${claimId}/accept`)
     expect(accepted.status, JSON.stringify(accepted.body)).toBe(200)
+    const agreed = (await potter.session.get(`/api/requests/${requestId}`)).body.timeline.filter((t: { reason: string }) =>
+      t.reason.startsWith('The potter agreed to pay the damage claim'),
+    )
+    expect(agreed).toHaveLength(1)
     const paid = await submitCard(accepted.body.checkoutUrl, { cardNumber: CARD_SUCCEEDS })
     expect(paid.status).toBe(303)
     await waitUntil(async () => (await potter.session.get(`/api/incidents/${incidentId}`)).body.claims[0].status === 'paid', {
