@@ -201,7 +201,8 @@ function InboxRow({ row, shelvesLeft, showFiring }: { row: RequestRow; shelvesLe
               {row.findings === 0 ? 'no findings' : `${row.findings} ${row.findings === 1 ? 'finding' : 'findings'}`} · {row.pieceCount}{' '}
               {row.pieceCount === 1 ? 'piece' : 'pieces'}
             </span>
-            {row.price && <span data-testid="row-money">· {rowMoneyLine(row)}</span>}
+            {/* Its own item (no leading dot): on a phone it wraps to a line of its own. */}
+            {row.price && <span data-testid="row-money">{rowMoneyLine(row)}</span>}
           </p>
         </div>
         <div>
