@@ -130,15 +130,19 @@ describe('POST /api/ware-checks, quotes', () => {
     })
   })
 
-  it('sizes shelf shares from the kiln: a quarter of a box shelf rounds up to the next quarter', async () => {
-    // Box kiln 525 × 525 mm inside → 500 × 500 mm shelf (25 mm clearance, check.ts); one 300 × 300 mm
-    // piece covers 0.36 of it, which is sold as a half shelf: 0.5 × 2000 ¢ = 1000 ¢.
+  it('sizes shelf shares from the planned load: a shelf with no room left is sold whole, a part shelf by the quarter', async () => {
+    // Box kiln 525 × 525 mm inside → 475 × 475 mm shelf (about 50 mm smaller than the chamber, common
+    // practice). One 300 × 300 mm platter leaves no room for a second: the whole shelf, 2000 ¢. A 200 × 200 mm
+    // dish leaves room for more; its footprint is 40000 / 225625 = 0.18 of the shelf, sold as a quarter: 500 ¢.
     const boxKiln = { ...electricKiln, interior: { shape: 'box', widthMm: 525, depthMm: 525, heightMm: 686 } }
     const platter = { ...mug, label: 'Platter', heightMm: 50, widthMm: 300, depthMm: 300, round: false }
+    const dish = { ...platter, label: 'Dish', widthMm: 200, depthMm: 200 }
     const priceList = { currency: 'EUR', model: 'shelf', shelfCents: 2000, shelfStep: 0.25, deposit: { fixedCents: 300 } }
     const reply = await check({ kiln: boxKiln, firing: glazeFiring, pieces: [platter], priceList })
     expect(reply.status).toBe(200)
-    expect(reply.body.quote.totalCents).toBe(1000)
+    expect(reply.body.quote.totalCents).toBe(2000)
+    const small = await check({ kiln: boxKiln, firing: glazeFiring, pieces: [dish], priceList })
+    expect(small.body.quote.totalCents).toBe(500)
     expect(reply.body.quote.depositCents).toBe(300)
   })
 })

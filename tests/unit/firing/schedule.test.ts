@@ -104,9 +104,15 @@ describe('planSchedule, for any kiln and load', () => {
       fc.property(requestArbitrary, (request) => {
         const schedule = planSchedule(request)
         const fastest = Math.max(...heating(schedule).map((segment) => segment.rateCPerHour))
+        const halfKiln = request.kiln.maxRampCPerHour / 2
         const atInversion = crossing(heating(schedule), 573)
         expect(atInversion.length).toBeGreaterThan(0)
-        for (const segment of atInversion) expect(segment.rateCPerHour).toBeLessThan(fastest)
+        for (const segment of atInversion) {
+          // At most half the kiln's fastest ramp, and slower than the rest of the climb, unless thick ware
+          // already holds the whole climb at or below that (a 13 mm greenware pot in a raku kiln, say).
+          expect(segment.rateCPerHour).toBeLessThanOrEqual(halfKiln)
+          if (fastest > halfKiln) expect(segment.rateCPerHour).toBeLessThan(fastest)
+        }
       }),
     )
   })
