@@ -40,8 +40,13 @@ export function useRequest(id: string | undefined, polling?: RequestPolling) {
  */
 export function useRequestChanged() {
   const queryClient = useQueryClient()
-  return (view: Pick<RequestView, 'id' | 'firing'>, full?: RequestView) => {
-    if (full) queryClient.setQueryData(requestKeys.requests.detail(view.id), full)
+  return async (view: Pick<RequestView, 'id' | 'firing'>, full?: RequestView) => {
+    if (full) {
+      // A read of the request begun before the change would land after it and put the old view back
+      // (buttons of the state before, on a busy phone): it is cancelled before the new view goes in.
+      await queryClient.cancelQueries({ queryKey: requestKeys.requests.detail(view.id), exact: true })
+      queryClient.setQueryData(requestKeys.requests.detail(view.id), full)
+    }
     return Promise.all([
       full ? null : queryClient.invalidateQueries({ queryKey: requestKeys.requests.detail(view.id), exact: true }),
       queryClient.invalidateQueries({ queryKey: requestKeys.requests.lists() }),
