@@ -97,8 +97,11 @@ describe('accounts in the browser', () => {
 
     const askedAt = new Date()
     await page.getByRole('link', { name: 'Forgot your password?' }).click()
+    // The sign-in page's own E-mail field stays until the reset page's code has loaded: wait for that page.
+    const mailMe = page.getByRole('button', { name: 'Mail me a link' })
+    await mailMe.waitFor()
     await page.getByLabel('E-mail').fill(email)
-    await page.getByRole('button', { name: 'Mail me a link' }).click()
+    await mailMe.click()
     await page.getByText('Check your mail').waitFor()
 
     const mail = await waitForMail(app.mail!.webUrl, { to: email, subject: 'new Conewright password', after: askedAt })
