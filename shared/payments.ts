@@ -22,3 +22,19 @@ export function depositToAsk(depositCents: number, totalCents: number, currency:
   if (depositCents <= 0) return 0
   return Math.min(totalCents, Math.max(depositCents, minimumOnlineCharge(currency)))
 }
+
+const CARD_BRANDS: Record<string, string> = {
+  visa: 'Visa',
+  mastercard: 'Mastercard',
+  amex: 'American Express',
+  discover: 'Discover',
+  diners: 'Diners Club',
+  jcb: 'JCB',
+  unionpay: 'UnionPay',
+}
+
+/** A card as people name it on a receipt: "Visa ending 4242". */
+export function cardLabel(brand: string | null, last4: string | null): string {
+  const name = (brand && CARD_BRANDS[brand]) ?? 'Card'
+  return last4 ? `${name} ending ${last4}` : name
+}

@@ -2,6 +2,7 @@
 import { AuthToken } from '../entities/AuthToken'
 import { CheckIn } from '../entities/CheckIn'
 import { Claim } from '../entities/Claim'
+import { KeptCard } from '../entities/KeptCard'
 import { CounterRefund } from '../entities/CounterRefund'
 import { Firing } from '../entities/Firing'
 import { FiringEvent } from '../entities/FiringEvent'
@@ -37,6 +38,7 @@ export const entities = [
   Incident,
   IncidentPiece,
   Claim,
+  KeptCard,
   User,
   Studio,
   StudioMember,

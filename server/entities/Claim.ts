@@ -59,6 +59,10 @@ export class Claim {
   @Column({ name: 'desk_note', type: 'text', nullable: true })
   deskNote: string | null
 
+  /** Declined tries on the kept card: each new try is a new payment to Stripe, a retry of one is the same. */
+  @Column({ name: 'card_tries', type: 'integer', default: 0 })
+  cardTries: number
+
   @Column({ name: 'paid_at', type: 'timestamptz', nullable: true })
   paidAt: Date | null
 

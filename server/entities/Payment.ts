@@ -5,6 +5,7 @@ import { Check, Column, CreateDateColumn, Entity, Index, PrimaryGeneratedColumn,
 @Index('payments_request_idx', ['requestId', 'purpose'])
 @Check('payments_purpose_check', `"purpose" IN ('deposit', 'balance', 'claim')`)
 @Check('payments_claim_check', `("purpose" = 'claim') = ("claim_id" IS NOT NULL)`)
+@Check('payments_keeps_card_check', `NOT "keeps_card" OR "purpose" = 'deposit'`)
 @Check('payments_status_check', `"status" IN ('open', 'paid', 'expired', 'failed')`)
 export class Payment {
   @PrimaryGeneratedColumn('uuid')
@@ -38,6 +39,10 @@ export class Payment {
 
   @Column({ name: 'stripe_payment_intent_id', type: 'text', nullable: true })
   stripePaymentIntentId: string | null
+
+  /** The potter asked to keep the card this page takes (a deposit only): it is saved for off-session use. */
+  @Column({ name: 'keeps_card', type: 'boolean', default: false })
+  keepsCard: boolean
 
   /** Why the last attempt on the hosted page failed, as Stripe said it. */
   @Column({ name: 'failure_message', type: 'text', nullable: true })

@@ -11,6 +11,7 @@ import { expireOpenCheckouts } from '../services/payments'
 import { engineRebuilt } from '../services/search'
 import { PAYOUT_SWEEP_TASK, PAYOUT_TASK, payStudio, sweepPayouts } from '../services/payouts'
 import { PROCESS_PHOTO_TASK, processPhoto } from '../services/photos'
+import { KEEP_CARD_TASK, keepCard } from '../services/kept-cards'
 
 /** The scheduled sweep of requests made stale by dates alone (see sweepStaleRequests). */
 export const REQUEST_SWEEP_TASK = 'request-sweep'
@@ -26,6 +27,9 @@ export function taskList(ctx: AppContext): TaskList {
     },
     [REFUND_TASK]: async (payload) => {
       await makeRefund(ctx, payload as { requestId: string; amountCents: number; reason: string; key: string })
+    },
+    [KEEP_CARD_TASK]: async (payload) => {
+      await keepCard(ctx, payload as { requestId: string; paymentIntentId: string })
     },
     [OPEN_CHECKOUT_TASK]: async (payload) => {
       const { requestId, purpose, amountCents } = payload as { requestId: string; purpose: 'deposit' | 'balance'; amountCents: number }

@@ -1,6 +1,12 @@
 import { Router, type Request, type Response } from 'express'
 import { z } from 'zod'
-import { claimBodySchema, claimContestSchema, claimDecisionSchema, incidentBodySchema } from '../../shared/schemas/incidents'
+import {
+  claimBodySchema,
+  claimContestSchema,
+  claimDecisionSchema,
+  claimPaySchema,
+  incidentBodySchema,
+} from '../../shared/schemas/incidents'
 import { requireAuth, requireRole } from '../auth/guards'
 import { requireStudioMember, studioFromParam } from '../auth/studio-access'
 import type { AppContext } from '../context'
@@ -51,8 +57,8 @@ export function incidentsRouter(ctx: AppContext) {
     res.status(201).json(await raiseClaim(ctx, req.user!, String(req.params.id), req.body))
   })
 
-  router.post('/claims/:id/accept', requireAuth, id, validateBody(noFields), async (req, res) => {
-    res.json(await acceptClaim(ctx, req.user!, String(req.params.id)))
+  router.post('/claims/:id/accept', requireAuth, id, validateBody(claimPaySchema), async (req, res) => {
+    res.json(await acceptClaim(ctx, req.user!, String(req.params.id), req.body))
   })
 
   router.post('/claims/:id/contest', requireAuth, id, validateBody(claimContestSchema), async (req, res) => {

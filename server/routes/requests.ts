@@ -8,6 +8,7 @@ import {
   requestPatchSchema,
   requestSendSchema,
   requestWithdrawSchema,
+  depositSchema,
   disputeSchema,
 } from '../../shared/schemas/requests'
 import { REQUEST_STATES } from '../../shared/workflow/request-states'
@@ -16,6 +17,7 @@ import type { AppContext } from '../context'
 import { conflict } from '../http/errors'
 import { requireUuidParams, validateBody, validateQuery } from '../http/validate'
 import { listMessages, postMessage } from '../services/messages'
+import { forgetKeptCard } from '../services/kept-cards'
 import { checkoutFor } from '../services/payments'
 import { listRequests, showRequest, type RequestListQuery } from '../services/request-views'
 import {
@@ -100,9 +102,14 @@ export function requestsRouter(ctx: AppContext) {
     res.json(await show(String(req.params.id), req.user!))
   })
 
-  router.post('/requests/:id/deposit', requireAuth, id, async (req, res) => {
-    const payment = await checkoutFor(ctx, req.user!, String(req.params.id), 'deposit')
+  router.post('/requests/:id/deposit', requireAuth, id, validateBody(depositSchema), async (req, res) => {
+    const payment = await checkoutFor(ctx, req.user!, String(req.params.id), 'deposit', { keepCard: req.body.keepCard })
     res.json({ checkoutUrl: payment.checkoutUrl, amountCents: payment.amountCents, expiresAt: payment.expiresAt.toISOString() })
+  })
+
+  router.delete('/requests/:id/kept-card', requireAuth, id, async (req, res) => {
+    await forgetKeptCard(ctx, req.user!, String(req.params.id))
+    res.json(await show(String(req.params.id), req.user!))
   })
 
   router.get('/requests/:id/messages', requireAuth, id, async (req, res) => {

@@ -1,9 +1,11 @@
 // Damage claims: the studio's owner raises one on the potter whose ware caused an incident, within the
-// studio's terms (shared/claims.ts); the potter pays it through a checkout page on the ask (so it joins
-// the ask's ledger and the studio's payout) or contests it; the front desk upholds or waives a contested
-// one. Every step goes through the ask's one door: a timeline entry and the other side told.
+// studio's terms (shared/claims.ts); the potter pays it through a checkout page on the ask, or with the
+// card they kept at the deposit (charged off-session, once they accept), so it joins the ask's ledger
+// and the studio's payout; or contests it; the front desk upholds or waives a contested one. Every step
+// goes through the ask's one door: a timeline entry and the other side told.
 import type { EntityManager } from 'typeorm'
-import type { ClaimJson } from '../../shared/api/incidents'
+import Stripe from 'stripe'
+import type { ClaimJson, ClaimPayAnswer } from '../../shared/api/incidents'
 import {
   claimActions,
   claimAmountProblem,
@@ -14,7 +16,8 @@ import {
 } from '../../shared/claims'
 import { formatMoney } from '../../shared/dates'
 import { earnsPayout } from '../../shared/payouts'
-import type { ClaimBody, ClaimDecisionBody } from '../../shared/schemas/incidents'
+import type { ClaimBody, ClaimDecisionBody, ClaimPayBody } from '../../shared/schemas/incidents'
+import { cardLabel } from '../../shared/payments'
 import type { AppContext } from '../context'
 import { Claim } from '../entities/Claim'
 import { LedgerEntry } from '../entities/LedgerEntry'
@@ -24,7 +27,10 @@ import { badRequest, conflict, forbidden, notFound } from '../http/errors'
 import { isUuid } from '../http/validate'
 import { claimContestedMail, claimDecidedMail, claimPaidMail, claimRaisedMail, type ClaimFacts } from '../mail/templates/incidents'
 import { loadIncident } from './incident-access'
+import { keptCardOf, keptCardRefusal } from './kept-cards'
 import { openCheckout } from './payments'
+import { transferGroupOf } from './payouts'
+import { stripeFor } from './stripe'
 import { earnPayout } from './payouts'
 import { factsOf } from './request-context'
 import { requestAction, type ActionStep } from './request-door'
@@ -38,7 +44,13 @@ const claimFacts = (claim: Claim): ClaimFacts => ({
 
 const incidentUrl = (ctx: AppContext, claim: Pick<Claim, 'incidentId'>) => `${ctx.config.publicUrl}/incidents/${claim.incidentId}`
 
-export function claimJson(claim: Claim, names: { potter: string; studio: string }, side: 'potter' | 'studio' | 'admin'): ClaimJson {
+export function claimJson(
+  claim: Claim,
+  names: { potter: string; studio: string },
+  side: 'potter' | 'studio' | 'admin',
+  keptCard: string | null = null,
+): ClaimJson {
+  const actions = claimActions(claim.status, side)
   return {
     id: claim.id,
     incidentId: claim.incidentId,
@@ -54,7 +66,8 @@ export function claimJson(claim: Claim, names: { potter: string; studio: string 
     deskNote: claim.deskNote,
     potterName: names.potter,
     studioName: names.studio,
-    actions: claimActions(claim.status, side),
+    actions,
+    keptCard: side === 'potter' && actions.includes('pay') ? keptCard : null,
     at: claim.createdAt.toISOString(),
     paidAt: claim.paidAt?.toISOString() ?? null,
   }
@@ -73,7 +86,8 @@ export async function claimsOfIncident(manager: EntityManager, incidentId: strin
   const claims = await manager.getRepository(Claim).find({ where: { incidentId }, order: { createdAt: 'ASC' } })
   if (!claims.length) return []
   const names = await namesOfClaimRequest(manager, claims[0].requestId)
-  return claims.map((c) => claimJson(c, names, side))
+  const kept = side === 'potter' ? await keptCardOf(manager, claims[0].requestId) : null
+  return claims.map((c) => claimJson(c, names, side, kept && cardLabel(kept.brand, kept.last4)))
 }
 
 /** The studio's owner raises a claim on the potter whose ware failed, within the studio's terms. */
@@ -150,22 +164,74 @@ async function claimStep<T>(
   })
 }
 
-/** The potter agrees to pay: the checkout page for the claim, on the ask so its money joins the ask's ledger. */
-export async function acceptClaim(ctx: AppContext, user: User, claimId: string) {
-  const claim = await claimStep(ctx, user, claimId, 'pay', async (step, claim) => {
-    // Coming back to pay after leaving the checkout page is the same agreement: noted once.
-    const agreedBefore = await step.manager.getRepository(Payment).exists({ where: { claimId } })
+/**
+ * The potter agrees to pay: on the checkout page for the claim, or at once with the card kept at the
+ * deposit. Either way the money is on the ask, so it joins the ask's ledger and the studio's payout.
+ */
+export async function acceptClaim(ctx: AppContext, user: User, claimId: string, body: ClaimPayBody): Promise<ClaimPayAnswer> {
+  const { claim, card } = await claimStep(ctx, user, claimId, 'pay', async (step, claim) => {
+    const card = body.with === 'kept-card' ? await keptCardOf(step.manager, claim.requestId) : null
+    if (body.with === 'kept-card' && !card) throw conflict('No card is kept for this ask; pay on a checkout page.', 'no-kept-card')
+    // Coming back to pay after leaving the checkout page, or after a declined card, is the same agreement: noted once.
+    const agreedBefore = claim.cardTries > 0 || (await step.manager.getRepository(Payment).exists({ where: { claimId } }))
     if (!agreedBefore)
       await step.note(`The potter agreed to pay the damage claim (${formatMoney(claim.amountCents, claim.currency)})`, { claimId })
-    return claim
+    return { claim, card }
   })
+  if (card) return { claim: await payWithKeptCard(ctx, claim, card) }
   // Stripe is asked outside the transaction: no lock is held across a network call.
   const payment = await openCheckout(ctx, claim.requestId, 'claim', claim.amountCents, {
-    claimId: claim.id,
-    label: `Damage claim: ${DAMAGE_CHARGE_LABELS[claim.chargeKind]}`,
-    returnPath: `/incidents/${claim.incidentId}`,
+    claim: {
+      claimId: claim.id,
+      label: `Damage claim: ${DAMAGE_CHARGE_LABELS[claim.chargeKind]}`,
+      returnPath: `/incidents/${claim.incidentId}`,
+    },
   })
   return { checkoutUrl: payment.checkoutUrl }
+}
+
+/**
+ * Charges the kept card off-session. The key counts declined tries, so a retry of one try (a double
+ * click, a lost answer) is the same payment at Stripe, and a try after a decline is a new one.
+ */
+async function payWithKeptCard(
+  ctx: AppContext,
+  claim: Claim,
+  card: { stripeCustomerId: string; stripePaymentMethodId: string | null; brand: string | null; last4: string | null },
+): Promise<ClaimJson> {
+  // `paidWith` tells the webhook this payment has no checkout page to book it (see payments.ts).
+  const metadata = { requestId: claim.requestId, purpose: 'claim', claimId: claim.id, paidWith: 'kept-card' }
+  let intent: Stripe.PaymentIntent
+  try {
+    intent = await stripeFor(ctx.config).paymentIntents.create(
+      {
+        amount: claim.amountCents,
+        currency: claim.currency.toLowerCase(),
+        customer: card.stripeCustomerId,
+        payment_method: card.stripePaymentMethodId!,
+        off_session: true,
+        confirm: true,
+        description: `Damage claim: ${DAMAGE_CHARGE_LABELS[claim.chargeKind]}`,
+        metadata,
+        transfer_group: transferGroupOf(claim.requestId),
+      },
+      { idempotencyKey: `claim-card:${claim.id}:${claim.cardTries}` },
+    )
+  } catch (error) {
+    if (!(error instanceof Stripe.errors.StripeCardError)) throw error
+    await requestAction(ctx, null, claim.requestId, 'claim', async (step) => {
+      await step.manager.increment(Claim, { id: claim.id, cardTries: claim.cardTries }, 'cardTries', 1)
+      await step.note(`The kept card (${cardLabel(card.brand, card.last4)}) was declined for the damage claim: ${error.message}`, {
+        claimId: claim.id,
+      })
+    })
+    throw keptCardRefusal(error)
+  }
+  await requestAction(ctx, null, claim.requestId, 'claim', (step) =>
+    bookClaimPaid(step, claim.id, { sessionId: null, paymentIntentId: intent.id, card: cardLabel(card.brand, card.last4) }),
+  )
+  const paid = await ctx.db.getRepository(Claim).findOneByOrFail({ id: claim.id })
+  return claimJson(paid, await namesOfClaimRequest(ctx.db.manager, paid.requestId), 'potter')
 }
 
 export async function contestClaim(ctx: AppContext, user: User, claimId: string, reason: string): Promise<ClaimJson> {
@@ -215,7 +281,7 @@ export async function decideClaim(ctx: AppContext, admin: User, claimId: string,
 export async function bookClaimPaid(
   step: ActionStep,
   claimId: string,
-  stripe: { sessionId: string | null; paymentIntentId: string | null },
+  stripe: { sessionId: string | null; paymentIntentId: string | null; card?: string },
 ) {
   const { manager, ctx } = step
   const claim = await manager.getRepository(Claim).findOneOrFail({ where: { id: claimId }, lock: { mode: 'pessimistic_write' } })
@@ -232,10 +298,13 @@ export async function bookClaimPaid(
     note: `Damage claim: ${DAMAGE_CHARGE_LABELS[claim.chargeKind]}`,
   })
   await manager.update(Claim, claim.id, { status: 'paid', paidAt: new Date() })
-  await step.note(`Damage claim paid through Stripe: ${formatMoney(claim.amountCents, claim.currency)}`, {
-    claimId: claim.id,
-    sessionId: stripe.sessionId,
-  })
+  await step.note(
+    `Damage claim paid through Stripe${stripe.card ? ` with the kept card (${stripe.card})` : ''}: ${formatMoney(claim.amountCents, claim.currency)}`,
+    {
+      claimId: claim.id,
+      sessionId: stripe.sessionId,
+    },
+  )
   const mail = claimPaidMail(factsOf(step.rc, ctx.config.publicUrl), claimFacts(claim), incidentUrl(ctx, claim))
   await step.tellStudio('claim-paid', mail)
   await step.tellPotter('claim-paid', mail)

@@ -5,11 +5,13 @@ import type Stripe from 'stripe'
 import { z } from 'zod'
 import { In, IsNull, type EntityManager } from 'typeorm'
 import type { AppContext } from '../context'
+import { Claim } from '../entities/Claim'
 import { CounterRefund } from '../entities/CounterRefund'
+import { KeptCard } from '../entities/KeptCard'
 import { LedgerEntry } from '../entities/LedgerEntry'
 import { Payment } from '../entities/Payment'
 import { formatMoney } from '../../shared/dates'
-import { minimumOnlineCharge, payableOnline } from '../../shared/payments'
+import { cardLabel, minimumOnlineCharge, payableOnline } from '../../shared/payments'
 import type { User } from '../entities/User'
 import { badRequest, conflict } from '../http/errors'
 import { isUuid } from '../http/validate'
@@ -24,6 +26,7 @@ import { stripeFor } from './stripe'
 import { enqueuePayoutIfEarned, handleTransferEvent, moneyQueueOf, transferGroupOf } from './payouts'
 import { enqueueStudioSync } from './search-sync'
 import { bookClaimPaid } from './claims'
+import { afterDepositPaid, agreeToKeepCard, customerFor } from './kept-cards'
 
 export const REFUND_TASK = 'refund-payment'
 export const OPEN_CHECKOUT_TASK = 'open-checkout'
@@ -68,16 +71,23 @@ export async function openCheckout(
   requestId: string,
   purpose: 'deposit' | 'balance' | 'claim',
   amountCents: number,
-  claim?: { claimId: string; label: string; returnPath: string },
+  options: {
+    claim?: { claimId: string; label: string; returnPath: string }
+    /** A deposit page that keeps the card on this Customer, for damage claims the potter accepts. */
+    keepCardFor?: string
+  } = {},
 ): Promise<Payment> {
+  const { claim, keepCardFor } = options
   const rc = await loadRequest(ctx.db.manager, requestId)
   const payments = ctx.db.getRepository(Payment)
   const claimId = claim?.claimId ?? null
+  const keepsCard = purpose === 'deposit' && Boolean(keepCardFor)
   const open = await payments.findOne({
     where: { requestId, purpose, status: 'open', claimId: claimId ?? IsNull() },
     order: { createdAt: 'DESC' },
   })
-  if (open && open.expiresAt.getTime() > Date.now() + 5 * 60_000 && open.amountCents === amountCents) return open
+  if (open && open.expiresAt.getTime() > Date.now() + 5 * 60_000 && open.amountCents === amountCents && open.keepsCard === keepsCard)
+    return open
   if (amountCents <= 0) throw conflict('Nothing is owed.', 'nothing-owed')
   const currency = ((rc.request.standingQuote ?? rc.request.quote)?.currency ?? rc.studio.currency).toLowerCase()
   if (!payableOnline(amountCents, currency)) {
@@ -107,15 +117,25 @@ export async function openCheckout(
       success_url: `${base}?paid=${purpose}&session={CHECKOUT_SESSION_ID}`,
       cancel_url: `${base}?unpaid=${purpose}`,
       client_reference_id: requestId,
-      customer_email: rc.potter.email,
+      ...(keepsCard ? { customer: keepCardFor } : { customer_email: rc.potter.email }),
       metadata,
       // The request's transfer group ties its charges to the transfers that pay the studio its share.
-      payment_intent_data: { metadata, transfer_group: transferGroupOf(requestId) },
+      payment_intent_data: {
+        metadata,
+        transfer_group: transferGroupOf(requestId),
+        ...(keepsCard ? { setup_future_usage: 'off_session' as const } : {}),
+      },
       expires_at: Math.floor(Date.now() / 1000) + CHECKOUT_LIFETIME_S,
     },
-    { idempotencyKey: `${purpose}:${claimId ?? requestId}:${attempt}:${amountCents}` },
+    { idempotencyKey: `${purpose}:${claimId ?? requestId}:${attempt}:${amountCents}${keepsCard ? ':keep' : ''}` },
   )
-  if (open && open.stripeSessionId !== session.id) await payments.update(open.id, { status: 'expired' })
+  // One page to pay on at a time: the one it replaces is closed at Stripe too, so it cannot be paid as well.
+  if (open && open.stripeSessionId !== session.id) {
+    await payments.update(open.id, { status: 'expired' })
+    await stripeFor(ctx.config)
+      .checkout.sessions.expire(open.stripeSessionId)
+      .catch((error: unknown) => ctx.log.warn(`could not close replaced checkout ${open.stripeSessionId}: ${String(error)}`))
+  }
   // The job and the route may open the same attempt at once: Stripe answers both with one session
   // (same idempotency key) and the first to record it wins.
   await payments
@@ -125,6 +145,7 @@ export async function openCheckout(
       requestId,
       purpose,
       claimId,
+      keepsCard,
       stripeSessionId: session.id,
       checkoutUrl: session.url!,
       amountCents,
@@ -143,12 +164,21 @@ export async function openCheckout(
  * The potter's checkout page for what is owed now (the deposit before drop-off, the balance once the
  * ware is ready), after the door has checked that they may pay it.
  */
-export async function checkoutFor(ctx: AppContext, potter: User, requestId: string, purpose: 'deposit' | 'balance') {
+export async function checkoutFor(
+  ctx: AppContext,
+  potter: User,
+  requestId: string,
+  purpose: 'deposit' | 'balance',
+  { keepCard = false }: { keepCard?: boolean } = {},
+) {
   const owed = await requestAction(ctx, potter, requestId, purpose === 'deposit' ? 'pay-deposit' : 'pay-balance', async ({ facts }) =>
     purpose === 'deposit' ? facts.depositOwedCents : facts.balanceOwedCents,
   )
   // Stripe is asked outside the transaction: no lock is held across a network call.
-  return openCheckout(ctx, requestId, purpose, owed)
+  if (purpose !== 'deposit' || !keepCard) return openCheckout(ctx, requestId, purpose, owed)
+  const customerId = await customerFor(ctx, potter)
+  await agreeToKeepCard(ctx.db.manager, requestId, potter.id, customerId)
+  return openCheckout(ctx, requestId, purpose, owed, { keepCardFor: customerId })
 }
 
 /** Queues the deposit's checkout session so it exists by the time the potter opens the request. */
@@ -350,6 +380,7 @@ export async function handleStripeEvent(ctx: AppContext, raw: unknown): Promise<
           payment.purpose === 'deposit' ? 'deposit-paid' : 'balance-paid',
           (step) => settlePayment(step, payment),
         )
+        if (payment.purpose === 'deposit') await afterDepositPaid(manager, payment.requestId, payment.keepsCard, paymentIntentId)
         break
       }
       case 'checkout.session.expired': {
@@ -370,9 +401,29 @@ export async function handleStripeEvent(ctx: AppContext, raw: unknown): Promise<
           )
         break
       }
-      case 'payment_intent.succeeded':
-        // The checkout session's own event books the money; this one only ties the intent to the payment.
+      case 'payment_intent.succeeded': {
+        // A checkout session's own event books its money. A claim paid with the kept card has no session:
+        // the route books it when Stripe answers, and this event books it if that answer was lost.
+        const intent = event.data.object
+        const { requestId, claimId, paidWith } = intent.metadata ?? {}
+        if (paidWith !== 'kept-card' || !requestId || !isUuid(requestId) || !claimId || !isUuid(claimId)) break
+        const claim = await manager.getRepository(Claim).findOne({ where: { id: claimId, requestId } })
+        if (!claim) return flag('No claim of ours has this id.')
+        if (claim.status === 'paid') break
+        if (intent.amount_received !== claim.amountCents || intent.currency.toUpperCase() !== claim.currency)
+          return flag(
+            `Paid ${intent.amount_received} ${intent.currency.toUpperCase()} where ${claim.amountCents} ${claim.currency} was claimed.`,
+          )
+        const kept = await manager.getRepository(KeptCard).findOneBy({ requestId })
+        await requestActionIn(ctx, manager, null, requestId, 'claim', (step) =>
+          bookClaimPaid(step, claimId, {
+            sessionId: null,
+            paymentIntentId: intent.id,
+            card: cardLabel(kept?.brand ?? null, kept?.last4 ?? null),
+          }),
+        )
         break
+      }
       case 'charge.refunded': {
         const charge = event.data.object
         const intentId = typeof charge.payment_intent === 'string' ? charge.payment_intent : charge.payment_intent?.id

@@ -21,6 +21,7 @@ import { loadRequest, reviewWindowOpen, viewerOf, type RequestContext, type View
 import { requestFacts } from './request-door'
 import { potterRecord } from './requests'
 import { reviewsOfRequest } from './reviews'
+import { keptCardView } from './kept-cards'
 
 function priceJson(rc: RequestContext, facts: RequestFacts, money: Awaited<ReturnType<typeof moneyOf>>): PriceJson {
   const standing = rc.request.standingQuote ?? rc.request.quote
@@ -127,6 +128,7 @@ export async function requestJson(manager: EntityManager, rc: RequestContext, vi
     shelvesNeeded: shelvesNeeded(rc.kiln, rc.firing, rc.request.pieces),
     photos: await requestPhotos(manager, rc.request.id),
     reviews: await reviewsOfRequest(manager, rc.request.id, viewer.side),
+    keptCard: viewer.side === 'potter' ? await keptCardView(manager, rc.request.id) : null,
     payments: payments.map((p) => ({
       purpose: p.purpose,
       status: p.status,

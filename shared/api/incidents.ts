@@ -33,9 +33,14 @@ export interface ClaimJson {
   studioName: string
   /** What the viewer may do with it now. */
   actions: ClaimAction[]
+  /** The card the potter kept at the deposit, named, when it can pay this claim now (the potter's view only). */
+  keptCard: string | null
   at: string
   paidAt: string | null
 }
+
+/** The answer to paying a claim: the checkout page to go to, or the claim paid with the kept card. */
+export type ClaimPayAnswer = { checkoutUrl: string; claim?: undefined } | { claim: ClaimJson; checkoutUrl?: undefined }
 
 export interface IncidentSummaryJson {
   id: string

@@ -145,6 +145,12 @@ export interface PriceJson {
   minimumOnlineCents: number
 }
 
+/** A card the potter kept at the deposit to pay damage claims they accept (the potter's view only). */
+export interface KeptCardJson {
+  label: string
+  keptAt: string
+}
+
 export interface RequestView {
   id: string
   state: RequestState
@@ -185,6 +191,8 @@ export interface RequestView {
   ledger: LedgerEntryJson[]
   counterRefunds: CounterRefundJson[]
   payments: PaymentJson[]
+  /** Shown to the potter only; null for everyone else. */
+  keptCard: KeptCardJson | null
   checkIn: CheckInJson | null
   /** Every piece received, tagged, in line and copy order. */
   pieceRecords: PieceJson[]

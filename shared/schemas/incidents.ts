@@ -54,6 +54,12 @@ export const claimContestSchema = z.object({
 })
 export type ClaimContestBody = z.infer<typeof claimContestSchema>
 
+export const claimPaySchema = z.object({
+  /** On a checkout page (the default), or with the card kept at the deposit. */
+  with: z.enum(['checkout', 'kept-card'], { error: 'Pay on a checkout page or with the kept card.' }).default('checkout'),
+})
+export type ClaimPayBody = z.infer<typeof claimPaySchema>
+
 export const claimDecisionSchema = z.object({
   decision: z.enum(['uphold', 'waive'], { error: 'Uphold or waive the claim.' }),
   note: note(2000).default(''),

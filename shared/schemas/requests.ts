@@ -27,6 +27,11 @@ export const messageSchema = z.object({
   body: text({ error: 'Write a message.' }).trim().min(1, 'Write a message.').max(4000, 'Keep a message under 4000 characters.'),
 })
 
+export const depositSchema = z.object({
+  /** Keep the card this deposit is paid with, to pay a damage claim on this ask the potter accepts. */
+  keepCard: z.boolean({ error: 'Say yes or no to keeping the card.' }).default(false),
+})
+
 export const disputeSchema = z.object({
   reason: text({ error: 'Say what went wrong.' }).trim().min(5, 'Say what went wrong, in a sentence.').max(2000),
 })

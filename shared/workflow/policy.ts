@@ -49,6 +49,8 @@ export const SYSTEM_ACTIONS = [
   // incident's and the claim's own rules (server/services/incidents.ts, shared/claims.ts), in any state.
   'incident',
   'claim',
+  // A card kept at the deposit: noted when Stripe has kept it, and forgotten by the potter alone.
+  'kept-card',
 ] as const
 export type SystemAction = (typeof SYSTEM_ACTIONS)[number]
 

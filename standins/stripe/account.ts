@@ -11,9 +11,11 @@ import { testPaymentMethod, type CheckedCard } from './test-cards'
 import {
   newId,
   type ChargeObject,
+  type CustomerObject,
   type EventObject,
   type LineItemObject,
   type PaymentIntentObject,
+  type PaymentMethodObject,
   type RefundObject,
   type SessionObject,
 } from './objects'
@@ -36,25 +38,40 @@ export interface CheckoutSessionInput {
   metadata: Record<string, string>
   clientReferenceId: string | null
   customerEmail: string | null
+  /** A Customer the card is attached to when `setup_future_usage` is set. */
+  customer: string | null
   submitType: SessionObject['submit_type']
   paymentIntentData: {
     metadata: Record<string, string>
     description: string | null
     receiptEmail: string | null
     transferGroup: string | null
+    setupFutureUsage: 'on_session' | 'off_session' | null
   }
   expiresAt: number | null
 }
 
-/** A PaymentIntent made and confirmed through the API with one of Stripe's test PaymentMethods (`pm_card_visa`). */
+/**
+ * A PaymentIntent made and confirmed through the API, with one of Stripe's test PaymentMethods
+ * (`pm_card_visa`) or a card saved to a Customer by an earlier payment (`customer` + `off_session`).
+ */
 export interface PaymentIntentInput {
   amount: number
   currency: string
   paymentMethod: string
+  customer: string | null
+  offSession: boolean
   metadata: Record<string, string>
   description: string | null
   receiptEmail: string | null
   transferGroup: string | null
+}
+
+export interface CustomerInput {
+  email: string | null
+  name: string | null
+  description: string | null
+  metadata: Record<string, string>
 }
 
 export interface RefundInput {
@@ -78,6 +95,12 @@ export type PaymentAttempt =
 // Stripe lets a Checkout Session live between 30 minutes and 24 hours (Checkout docs, `expires_at`).
 const SESSION_MIN_LIFETIME_S = 30 * 60
 const SESSION_MAX_LIFETIME_S = 24 * 60 * 60
+
+/** A PaymentMethod made by a payment, with the card it stands for (its outcomes included). */
+interface PaymentMethodRecord {
+  method: PaymentMethodObject
+  card: CheckedCard
+}
 
 interface SessionRecord {
   session: SessionObject
@@ -176,6 +199,8 @@ export interface PlatformSnapshot {
   paymentIntents: [string, PaymentIntentObject][]
   charges: [string, ChargeObject][]
   refunds: [string, RefundObject][]
+  customers?: [string, CustomerObject][]
+  paymentMethods?: [string, PaymentMethodRecord][]
 }
 
 export class TestModeAccount {
@@ -183,6 +208,8 @@ export class TestModeAccount {
   private paymentIntents = new Map<string, PaymentIntentObject>()
   private charges = new Map<string, ChargeObject>()
   private refunds = new Map<string, RefundObject>()
+  private customers = new Map<string, CustomerObject>()
+  private paymentMethods = new Map<string, PaymentMethodRecord>()
 
   private readonly now: () => number
   private readonly checkoutPageUrl: (sessionId: string) => string
@@ -202,6 +229,8 @@ export class TestModeAccount {
       paymentIntents: [...this.paymentIntents],
       charges: [...this.charges],
       refunds: [...this.refunds],
+      customers: [...this.customers],
+      paymentMethods: [...this.paymentMethods],
     }
   }
 
@@ -210,14 +239,63 @@ export class TestModeAccount {
     this.paymentIntents = new Map(state.paymentIntents)
     this.charges = new Map(state.charges)
     this.refunds = new Map(state.refunds)
+    // State files written before customers were kept have none.
+    this.customers = new Map(state.customers ?? [])
+    this.paymentMethods = new Map(state.paymentMethods ?? [])
   }
 
   private seconds(): number {
     return Math.floor(this.now() / 1000)
   }
 
+  createCustomer(input: CustomerInput): CustomerObject {
+    const customer: CustomerObject = {
+      id: newId.customer(),
+      object: 'customer',
+      created: this.seconds(),
+      description: input.description,
+      email: input.email,
+      livemode: false,
+      metadata: input.metadata,
+      name: input.name,
+    }
+    this.customers.set(customer.id, customer)
+    return customer
+  }
+
+  customer(id: string): CustomerObject {
+    const customer = this.customers.get(id)
+    if (!customer) throw resourceMissing('customer', id, 'customer')
+    return customer
+  }
+
+  paymentMethod(id: string): PaymentMethodObject {
+    const record = this.paymentMethods.get(id)
+    if (!record) throw resourceMissing('payment_method', id, 'payment_method')
+    return record.method
+  }
+
+  detachPaymentMethod(id: string): PaymentMethodObject {
+    const method = this.paymentMethod(id)
+    if (method.customer === null) {
+      // Stripe's refusal to detach a method that is not attached (wording from memory).
+      throw invalidRequest('The payment method you provided is not attached to a customer so detachment is impossible.', {
+        param: 'payment_method',
+      })
+    }
+    method.customer = null
+    return method
+  }
+
   createCheckoutSession(input: CheckoutSessionInput): SessionObject {
     const created = this.seconds()
+    if (input.customer !== null) {
+      // Stripe takes either an existing Customer or an address for a new one, not both (wording from memory).
+      if (input.customerEmail !== null) {
+        throw invalidRequest('You may only specify one of these parameters: customer, customer_email.', { param: 'customer' })
+      }
+      this.customer(input.customer)
+    }
     const currency = input.lineItems[0].currency
     input.lineItems.forEach((item, index) => {
       if (item.currency !== currency) {
@@ -303,7 +381,7 @@ export class TestModeAccount {
       created,
       currency,
       custom_fields: [],
-      customer: null,
+      customer: input.customer,
       customer_creation: 'if_required',
       customer_details: null,
       customer_email: input.customerEmail,
@@ -346,6 +424,13 @@ export class TestModeAccount {
 
   session(id: string): SessionObject {
     return this.sessionRecord(id).session
+  }
+
+  /** What the hosted page needs beyond the session: the Customer's address, and whether the card is kept. */
+  checkoutPresets(sessionId: string): { email: string | null; keepsCard: boolean } {
+    const { session, paymentIntentData } = this.sessionRecord(sessionId)
+    const customer = typeof session.customer === 'string' ? this.customers.get(session.customer) : undefined
+    return { email: session.customer_email ?? customer?.email ?? null, keepsCard: paymentIntentData.setupFutureUsage !== null }
   }
 
   lineItems(sessionId: string): LineItemObject[] {
@@ -393,7 +478,7 @@ export class TestModeAccount {
       throw invalidRequest(`This Checkout Session is no longer open (status \`${session.status}\`).`)
     }
     const intent = this.intentFor(record, customer)
-    const paymentMethod = newId.paymentMethod()
+    const paymentMethod = this.savePaymentMethod(card, customer, null)
     const outcome = card.outcome
     const charge = chargeForAttempt(intent, card, customer, paymentMethod, this.seconds())
     this.charges.set(charge.id, charge)
@@ -415,6 +500,15 @@ export class TestModeAccount {
     }
 
     this.succeed(intent, charge, paymentMethod)
+    // A card paid with `setup_future_usage` is attached to the session's Customer, if it has one
+    // (Checkout attaches it then, and leaves it unattached otherwise).
+    const futureUsage = record.paymentIntentData.setupFutureUsage
+    if (futureUsage && typeof session.customer === 'string') {
+      this.paymentMethod(paymentMethod).customer = session.customer
+      intent.customer = session.customer
+      intent.setup_future_usage = futureUsage
+      charge.customer = session.customer
+    }
     session.status = 'complete'
     session.payment_status = 'paid'
     session.url = null
@@ -460,8 +554,7 @@ export class TestModeAccount {
         param: 'amount',
       })
     }
-    const card = testPaymentMethod(input.paymentMethod)
-    if (!card) throw resourceMissing('payment_method', input.paymentMethod, 'payment_method')
+    const card = this.cardForPayment(input)
     const intent = this.newIntent({
       amount: input.amount,
       currency: input.currency,
@@ -470,35 +563,93 @@ export class TestModeAccount {
       receiptEmail: input.receiptEmail,
       transferGroup: input.transferGroup,
     })
+    intent.customer = input.customer
+    const outcome = input.offSession ? card.offSession : card.outcome
     const charge = chargeForAttempt(
       intent,
-      card,
+      { ...card, outcome },
       { email: input.receiptEmail ?? '', name: '', postalCode: '' },
       input.paymentMethod,
       this.seconds(),
     )
+    charge.customer = input.customer
     this.charges.set(charge.id, charge)
     intent.latest_charge = charge.id
-    if (card.outcome.result === 'declined') {
+    if (outcome.result === 'declined') {
       intent.status = 'requires_payment_method'
       intent.last_payment_error = {
         charge: charge.id,
-        code: card.outcome.code as NonNullable<PaymentIntentObject['last_payment_error']>['code'],
-        decline_code: card.outcome.declineCode,
-        message: card.outcome.message,
+        code: outcome.code as NonNullable<PaymentIntentObject['last_payment_error']>['code'],
+        decline_code: outcome.declineCode,
+        message: outcome.message,
         type: 'card_error',
       }
       this.events.emit('payment_intent.payment_failed', intent, context)
       throw new StripeApiError(402, {
         type: 'card_error',
-        code: card.outcome.code,
-        decline_code: card.outcome.declineCode,
-        message: card.outcome.message,
+        code: outcome.code,
+        decline_code: outcome.declineCode,
+        message: outcome.message,
+        payment_intent: structuredClone(intent),
       })
     }
     this.succeed(intent, charge, input.paymentMethod)
     this.events.emit('payment_intent.succeeded', intent, context)
     return intent
+  }
+
+  /**
+   * The card a server-side payment charges: a test PaymentMethod stands for its card with any Customer;
+   * a saved one must be attached to the Customer named (Stripe's rules; refusals' wording from memory).
+   */
+  private cardForPayment(input: PaymentIntentInput): CheckedCard {
+    if (input.customer !== null) this.customer(input.customer)
+    const test = testPaymentMethod(input.paymentMethod)
+    if (test) return test
+    const saved = this.paymentMethods.get(input.paymentMethod)
+    if (!saved) throw resourceMissing('payment_method', input.paymentMethod, 'payment_method')
+    if (saved.method.customer === null) {
+      throw invalidRequest(
+        'The provided PaymentMethod was previously used with a PaymentIntent without Customer attachment, shared with a connected account without Customer attachment, or was detached from a Customer. It may not be used again. To use a PaymentMethod multiple times, you must attach it to a Customer first.',
+        { param: 'payment_method' },
+      )
+    }
+    if (saved.method.customer !== input.customer) {
+      throw invalidRequest(`The provided PaymentMethod ${input.paymentMethod} does not belong to the Customer given.`, {
+        param: 'payment_method',
+      })
+    }
+    return saved.card
+  }
+
+  // Every card entered on the hosted page becomes a PaymentMethod, attached to no one until a payment sets it up.
+  private savePaymentMethod(card: CheckedCard, customer: CustomerEntry, attachedTo: string | null): string {
+    const method: PaymentMethodObject = {
+      id: newId.paymentMethod(),
+      object: 'payment_method',
+      billing_details: {
+        address: postalAddress(customer),
+        email: customer.email,
+        name: customer.name || null,
+        phone: null,
+        tax_id: null,
+      },
+      card: {
+        brand: card.brand,
+        country: 'US',
+        exp_month: card.expMonth,
+        exp_year: card.expYear,
+        funding: card.funding,
+        last4: card.last4,
+      },
+      created: this.seconds(),
+      customer: attachedTo,
+      livemode: false,
+      metadata: {},
+      type: 'card',
+    }
+    this.paymentMethods.set(method.id, { method, card })
+    return method.id
   }
 
   // A session keeps one PaymentIntent across attempts, so a retry after a decline reuses it.
@@ -518,7 +669,7 @@ export class TestModeAccount {
     return intent
   }
 
-  private newIntent(input: Omit<PaymentIntentInput, 'paymentMethod'>): PaymentIntentObject {
+  private newIntent(input: Omit<PaymentIntentInput, 'paymentMethod' | 'customer' | 'offSession'>): PaymentIntentObject {
     const id = newId.paymentIntent()
     const intent: PaymentIntentObject = {
       id,

@@ -57,12 +57,14 @@ function readSessionParams(params: FormParams): CheckoutSessionInput {
     metadata: params.metadata() ?? {},
     clientReferenceId: params.string('client_reference_id', { maxLength: 200 }) ?? null,
     customerEmail: params.email('customer_email') ?? null,
+    customer: params.string('customer') ?? null,
     submitType: params.oneOf('submit_type', SUBMIT_TYPES) ?? null,
     paymentIntentData: {
       metadata: intentData?.metadata() ?? {},
       description: intentData?.string('description', { maxLength: 1000 }) ?? null,
       receiptEmail: intentData?.email('receipt_email') ?? null,
       transferGroup: intentData?.string('transfer_group', { maxLength: 5000 }) ?? null,
+      setupFutureUsage: intentData?.oneOf('setup_future_usage', ['on_session', 'off_session'] as const) ?? null,
     },
     expiresAt: params.integer('expires_at') ?? null,
   }

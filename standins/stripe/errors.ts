@@ -10,6 +10,8 @@ export interface StripeErrorBody {
   code?: string
   param?: string
   decline_code?: string
+  /** A card error on a PaymentIntent carries the intent as it stands after the attempt. */
+  payment_intent?: unknown
   doc_url?: string
 }
 

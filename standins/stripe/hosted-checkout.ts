@@ -42,7 +42,18 @@ function field(name: keyof FormState, label: string, value: string, attributes: 
 <input id="${name}" name="${name}" value="${escapeHtml(value)}" ${attributes}>`
 }
 
-function renderCheckout(session: SessionObject, lineItems: LineItemObject[], form: FormState, error: string | null): string {
+interface Presets {
+  email: string | null
+  keepsCard: boolean
+}
+
+function renderCheckout(
+  session: SessionObject,
+  lineItems: LineItemObject[],
+  presets: Presets,
+  form: FormState,
+  error: string | null,
+): string {
   const currency = session.currency ?? 'usd'
   const lines = lineItems
     .map(
@@ -51,10 +62,8 @@ function renderCheckout(session: SessionObject, lineItems: LineItemObject[], for
         `<span>${escapeHtml(formatAmount(item.amount_total, currency))}</span></li>`,
     )
     .join('')
-  const email = session.customer_email ?? form.email
-  const emailAttributes = session.customer_email
-    ? 'type="email" autocomplete="email" readonly'
-    : 'type="email" autocomplete="email" required'
+  const email = presets.email ?? form.email
+  const emailAttributes = presets.email ? 'type="email" autocomplete="email" readonly' : 'type="email" autocomplete="email" required'
   const cancel = session.cancel_url ? `<a class="cancel" href="${escapeHtml(session.cancel_url)}">Cancel and go back</a>` : ''
   return page(
     'Pay',
@@ -62,6 +71,7 @@ function renderCheckout(session: SessionObject, lineItems: LineItemObject[], for
 <h1>Checkout</h1>
 <ul class="lines">${lines}</ul>
 <div class="total"><span>Total due</span><span data-testid="total">${escapeHtml(formatAmount(session.amount_total ?? 0, currency))}</span></div>
+${presets.keepsCard ? '<p data-testid="keeps-card">The seller keeps this card for later payments under its terms.</p>' : ''}
 ${error ? `<div class="error" role="alert">${escapeHtml(error)}</div>` : ''}
 <form method="post" novalidate>
 ${field('email', 'Email', email, emailAttributes)}
@@ -78,7 +88,8 @@ ${cancel}
 <details>
 <summary>Test cards</summary>
 <p><code>4242 4242 4242 4242</code> succeeds; <code>4000 0000 0000 0002</code> is declined;
-<code>4000 0000 0000 9995</code> is declined for insufficient funds. Any future expiry, any 3-digit CVC.</p>
+<code>4000 0000 0000 9995</code> is declined for insufficient funds; <code>4000 0027 6000 3184</code> pays here
+but cannot be charged later without the cardholder. Any future expiry, any 3-digit CVC.</p>
 </details>
 </div>`,
   )
@@ -153,7 +164,7 @@ export function createHostedCheckoutRouter(account: TestModeAccount, now: () => 
     res
       .status(200)
       .type('html')
-      .send(renderCheckout(session, account.lineItems(session.id), EMPTY_FORM, null))
+      .send(renderCheckout(session, account.lineItems(session.id), account.checkoutPresets(session.id), EMPTY_FORM, null))
   })
 
   router.post('/:id', (req, res) => {
@@ -161,13 +172,14 @@ export function createHostedCheckoutRouter(account: TestModeAccount, now: () => 
     if (!session) return
     const form = readForm(req.body)
     const lineItems = account.lineItems(session.id)
+    const presets = account.checkoutPresets(session.id)
     const refuse = (status: number, message: string) =>
       res
         .status(status)
         .type('html')
-        .send(renderCheckout(session, lineItems, form, message))
+        .send(renderCheckout(session, lineItems, presets, form, message))
 
-    const email = session.customer_email ?? form.email
+    const email = presets.email ?? form.email
     if (!EMAIL_PATTERN.test(email)) {
       refuse(400, 'Your email address is incomplete.')
       return

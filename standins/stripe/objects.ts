@@ -128,6 +128,13 @@ export type ChargeObject = Pick<
   | 'transfer_group'
 > & { payment_method_details: { type: 'card'; card: CardDetails } }
 
+export type CustomerObject = Pick<Stripe.Customer, 'id' | 'object' | 'created' | 'description' | 'email' | 'livemode' | 'metadata' | 'name'>
+
+export type PaymentMethodObject = Pick<
+  Stripe.PaymentMethod,
+  'id' | 'object' | 'billing_details' | 'created' | 'customer' | 'livemode' | 'metadata' | 'type'
+> & { card: CardDetails }
+
 export type RefundObject = Pick<
   Stripe.Refund,
   | 'id'
@@ -325,6 +332,7 @@ export const newId = {
   refund: () => `re_${base62(24)}`,
   event: () => `evt_${base62(24)}`,
   paymentMethod: () => `pm_${base62(24)}`,
+  customer: () => `cus_${base62(14)}`,
   balanceTransaction: () => `txn_${base62(24)}`,
   lineItem: () => `li_${base62(24)}`,
   price: () => `price_${base62(24)}`,

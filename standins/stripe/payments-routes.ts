@@ -1,5 +1,6 @@
-// /v1/payment_intents, /v1/charges, /v1/refunds and /v1/events: the reads the app makes after a
-// payment, and refunds against a succeeded payment.
+// /v1/customers, /v1/payment_methods, /v1/payment_intents, /v1/charges, /v1/refunds and /v1/events:
+// the Customer a card is kept for, the reads the app makes after a payment, payments with a kept card,
+// and refunds against a succeeded payment.
 import type { TestModeAccount } from './account'
 import type { ApiRoutes } from './api'
 import { isKnownCurrency } from './currency'
@@ -15,6 +16,9 @@ export function registerPaymentRoutes(routes: ApiRoutes, account: TestModeAccoun
     const currency = (params.string('currency', { required: true }) as string).toLowerCase()
     if (!isKnownCurrency(currency)) throw invalidRequest(`Invalid currency: ${currency}.`, { param: 'currency' })
     const paymentMethod = params.string('payment_method', { required: true }) as string
+    const customer = params.string('customer') ?? null
+    // `off_session` is a boolean or, in older API versions, `one_off` / `recurring`; any of them means the cardholder is away.
+    const offSession = (params.oneOf('off_session', ['true', 'false', 'one_off', 'recurring'] as const) ?? 'false') !== 'false'
     if (params.oneOf('confirm', ['true', 'false'] as const) !== 'true') {
       throw invalidRequest('The local Stripe stand-in makes PaymentIntents with `confirm=true` only.', { param: 'confirm' })
     }
@@ -28,6 +32,8 @@ export function registerPaymentRoutes(routes: ApiRoutes, account: TestModeAccoun
       amount,
       currency,
       paymentMethod,
+      customer,
+      offSession,
       metadata: params.metadata() ?? {},
       description: params.string('description', { maxLength: 1000 }) ?? null,
       receiptEmail: params.email('receipt_email') ?? null,
@@ -36,6 +42,32 @@ export function registerPaymentRoutes(routes: ApiRoutes, account: TestModeAccoun
     const expand = params.stringList('expand')
     params.finish()
     return expandObject(account, account.createPaymentIntent(input, context), expand)
+  })
+
+  routes.post('/customers', ({ params }) => {
+    const input = {
+      email: params.email('email') ?? null,
+      name: params.string('name', { maxLength: 256 }) ?? null,
+      description: params.string('description', { maxLength: 350 }) ?? null,
+      metadata: params.metadata() ?? {},
+    }
+    params.finish()
+    return account.createCustomer(input)
+  })
+
+  routes.get('/customers/:id', ({ params, pathId }) => {
+    params.finish()
+    return account.customer(pathId)
+  })
+
+  routes.get('/payment_methods/:id', ({ params, pathId }) => {
+    params.finish()
+    return account.paymentMethod(pathId)
+  })
+
+  routes.post('/payment_methods/:id/detach', ({ params, pathId }) => {
+    params.finish()
+    return account.detachPaymentMethod(pathId)
   })
 
   routes.get('/payment_intents/:id', ({ params, pathId }) => {

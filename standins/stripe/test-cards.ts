@@ -10,6 +10,8 @@ export type CardOutcome =
 interface TestCard {
   funding: 'credit' | 'debit'
   outcome: CardOutcome
+  /** What a payment made without the cardholder present (`off_session`) meets, where it differs. */
+  offSession?: CardOutcome
 }
 
 const succeeds: CardOutcome = { result: 'succeeded' }
@@ -29,6 +31,17 @@ const TEST_CARDS: Record<string, TestCard> = {
   '5555555555554444': { funding: 'credit', outcome: succeeds },
   '378282246310005': { funding: 'credit', outcome: succeeds },
   '6011111111111117': { funding: 'credit', outcome: succeeds },
+  // Asks for authentication on every payment: the hosted page stands for the cardholder passing the
+  // challenge, and a payment off-session is refused for want of it.
+  '4000002760003184': {
+    funding: 'credit',
+    outcome: succeeds,
+    offSession: declined(
+      'authentication_required',
+      'authentication_required',
+      'Your card was declined. This transaction requires authentication.',
+    ),
+  },
   '4000000000000002': { funding: 'credit', outcome: declined('card_declined', 'generic_decline', 'Your card was declined.') },
   '4000000000009995': {
     funding: 'credit',
@@ -93,6 +106,7 @@ export interface CheckedCard {
   expMonth: number
   expYear: number
   outcome: CardOutcome
+  offSession: CardOutcome
 }
 
 export type CardCheck = { ok: true; card: CheckedCard } | { ok: false; field: keyof CardEntry; code: string; message: string }
@@ -132,6 +146,7 @@ export function checkCardEntry(entry: CardEntry, today: Date): CardCheck {
       expMonth,
       expYear,
       outcome: known?.outcome ?? LIVE_CARD_IN_TEST_MODE,
+      offSession: known?.offSession ?? known?.outcome ?? LIVE_CARD_IN_TEST_MODE,
     },
   }
 }
@@ -143,6 +158,7 @@ const TEST_PAYMENT_METHODS: Record<string, string> = {
   pm_card_mastercard: '5555555555554444',
   pm_card_chargeDeclined: '4000000000000002',
   pm_card_chargeDeclinedInsufficientFunds: '4000000000009995',
+  pm_card_authenticationRequired: '4000002760003184',
 }
 
 /** The card a test PaymentMethod id stands for, or null for an id that is not one of them. */
@@ -158,5 +174,6 @@ export function testPaymentMethod(id: string): CheckedCard | null {
     expMonth: 12,
     expYear: 2034,
     outcome: card.outcome,
+    offSession: card.offSession ?? card.outcome,
   }
 }

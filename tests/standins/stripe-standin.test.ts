@@ -14,7 +14,7 @@ import { randomUUID } from 'node:crypto'
 import { createServer, type Server } from 'node:http'
 import type { AddressInfo } from 'node:net'
 import Stripe from 'stripe'
-import { CARD_DECLINED, CARD_INSUFFICIENT_FUNDS, CARD_SUCCEEDS, submitCard } from '../support/checkout'
+import { CARD_ALWAYS_AUTHENTICATES, CARD_DECLINED, CARD_INSUFFICIENT_FUNDS, CARD_SUCCEEDS, submitCard } from '../support/checkout'
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest'
 import { startStripeStandIn, type StripeStandIn } from '../../standins/stripe/standin'
 import { passesLuhn } from '../../standins/stripe/test-cards'
@@ -616,6 +616,108 @@ describe.skipIf(againstRealStripe)('hosted page, webhooks and refunds (stand-in 
     const error = await caught(stripe.refunds.create({ payment_intent: after.payment_intent as string }))
     expect(error).toBeInstanceOf(Stripe.errors.StripeInvalidRequestError)
     expect(error.param).toBe('payment_intent')
+  })
+
+  // Saving a card at checkout and charging it later (docs.stripe.com/payments/checkout/save-and-reuse and
+  // the API reference for payment_intent_data.setup_future_usage, off_session and payment_methods/detach).
+  async function keptCard(cardNumber: string) {
+    const customer = await stripe.customers.create({ email: 'potter@example.com', metadata: { userId: 'u-1' } })
+    const { customer_email: _unused, ...rest } = depositSession()
+    const session = await stripe.checkout.sessions.create({
+      ...rest,
+      customer: customer.id,
+      payment_intent_data: { metadata: { requestId: 'r-1' }, setup_future_usage: 'off_session' },
+    })
+    expect((await submitCard(session.url as string, { cardNumber })).status).toBe(303)
+    const intent = await stripe.paymentIntents.retrieve((await stripe.checkout.sessions.retrieve(session.id)).payment_intent as string)
+    return { customer, intent, methodId: intent.payment_method as string }
+  }
+
+  it('attaches a card paid with setup_future_usage to the session’s Customer, and charges it off-session later', async () => {
+    const { customer, intent, methodId } = await keptCard(CARD_SUCCEEDS)
+    expect(intent.customer).toBe(customer.id)
+    expect(intent.setup_future_usage).toBe('off_session')
+    const method = await stripe.paymentMethods.retrieve(methodId)
+    expect(method.customer).toBe(customer.id)
+    expect(method.card?.last4).toBe('4242')
+    expect(method.card?.brand).toBe('visa')
+
+    const later = await stripe.paymentIntents.create({
+      amount: 6000,
+      currency: 'usd',
+      customer: customer.id,
+      payment_method: methodId,
+      off_session: true,
+      confirm: true,
+      metadata: { claimId: 'c-1' },
+    })
+    expect(later.status).toBe('succeeded')
+    expect(later.customer).toBe(customer.id)
+    expect(later.amount_received).toBe(6000)
+  })
+
+  it('leaves a card paid without setup_future_usage unattached, and refuses to charge it again', async () => {
+    const session = await stripe.checkout.sessions.create(depositSession())
+    await submitCard(session.url as string, { cardNumber: CARD_SUCCEEDS })
+    const intent = await stripe.paymentIntents.retrieve((await stripe.checkout.sessions.retrieve(session.id)).payment_intent as string)
+    expect((await stripe.paymentMethods.retrieve(intent.payment_method as string)).customer).toBeNull()
+    const customer = await stripe.customers.create({ email: 'potter@example.com' })
+    const error = await caught(
+      stripe.paymentIntents.create({
+        amount: 6000,
+        currency: 'usd',
+        customer: customer.id,
+        payment_method: intent.payment_method as string,
+        off_session: true,
+        confirm: true,
+      }),
+    )
+    expect(error).toBeInstanceOf(Stripe.errors.StripeInvalidRequestError)
+    expect(error.param).toBe('payment_method')
+  })
+
+  it('refuses both customer and customer_email on one session', async () => {
+    const customer = await stripe.customers.create({ email: 'potter@example.com' })
+    const error = await caught(stripe.checkout.sessions.create(depositSession({ customer: customer.id })))
+    expect(error).toBeInstanceOf(Stripe.errors.StripeInvalidRequestError)
+    expect(error.param).toBe('customer')
+  })
+
+  it('declines an off-session payment on a card that always asks for authentication, with authentication_required', async () => {
+    const { customer, methodId } = await keptCard(CARD_ALWAYS_AUTHENTICATES)
+    const error = await caught(
+      stripe.paymentIntents.create({
+        amount: 6000,
+        currency: 'usd',
+        customer: customer.id,
+        payment_method: methodId,
+        off_session: true,
+        confirm: true,
+      }),
+    )
+    expect(error).toBeInstanceOf(Stripe.errors.StripeCardError)
+    expect(error.statusCode).toBe(402)
+    // Stripe's code for an off-session payment the bank wants the cardholder to authenticate (error codes reference).
+    expect(error.code).toBe('authentication_required')
+    expect((error.payment_intent as Stripe.PaymentIntent | undefined)?.status).toBe('requires_payment_method')
+  })
+
+  it('detaches a kept card, after which it can no longer be charged', async () => {
+    const { customer, methodId } = await keptCard(CARD_SUCCEEDS)
+    expect((await stripe.paymentMethods.detach(methodId)).customer).toBeNull()
+    const error = await caught(
+      stripe.paymentIntents.create({
+        amount: 6000,
+        currency: 'usd',
+        customer: customer.id,
+        payment_method: methodId,
+        off_session: true,
+        confirm: true,
+      }),
+    )
+    expect(error).toBeInstanceOf(Stripe.errors.StripeInvalidRequestError)
+    const again = await caught(stripe.paymentMethods.detach(methodId))
+    expect(again).toBeInstanceOf(Stripe.errors.StripeInvalidRequestError)
   })
 
   it('records what the SDK sent, form-encoded with bracketed keys', async () => {

@@ -28,3 +28,5 @@ export async function submitCard(sessionUrl: string, card: CardForm): Promise<{ 
 export const CARD_SUCCEEDS = '4242 4242 4242 4242'
 export const CARD_DECLINED = '4000 0000 0000 0002'
 export const CARD_INSUFFICIENT_FUNDS = '4000 0000 0000 9995'
+/** Asks for authentication on every payment, so it cannot be charged off-session (Stripe testing docs, from memory). */
+export const CARD_ALWAYS_AUTHENTICATES = '4000 0027 6000 3184'

@@ -45,13 +45,14 @@ export async function sendAndPayDeposit(
   potter: HttpSession,
   firingId: string,
   pieces: unknown[] = [mug()],
+  { keepCard = false, cardNumber = CARD_SUCCEEDS }: { keepCard?: boolean; cardNumber?: string } = {},
 ) {
   const sent = await draftAndSend(potter, firingId, pieces)
   const accepted = await studio.post(`/api/requests/${sent.id}/accept`)
   if (accepted.status !== 200) throw new Error(`accept: ${accepted.status} ${JSON.stringify(accepted.body)}`)
-  const deposit = await potter.post(`/api/requests/${sent.id}/deposit`)
+  const deposit = await potter.post(`/api/requests/${sent.id}/deposit`, keepCard ? { keepCard } : undefined)
   if (deposit.status !== 200) throw new Error(`deposit: ${deposit.status} ${JSON.stringify(deposit.body)}`)
-  const paid = await submitCard(deposit.body.checkoutUrl, { cardNumber: CARD_SUCCEEDS })
+  const paid = await submitCard(deposit.body.checkoutUrl, { cardNumber })
   if (paid.status !== 303) throw new Error(`hosted page answered ${paid.status}`)
   await waitUntil(
     async () => (await app.ctx.db.query('SELECT state FROM firing_requests WHERE id = $1', [sent.id]))[0]?.state === 'deposit_paid',

@@ -1,7 +1,7 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query'
-import type { ClaimJson, IncidentJson, IncidentSummaryJson, StudioIncidentHistory } from '../../../../shared/api/incidents'
+import type { ClaimJson, ClaimPayAnswer, IncidentJson, IncidentSummaryJson, StudioIncidentHistory } from '../../../../shared/api/incidents'
 import type { PhotoJson } from '../../../../shared/api/photos'
-import type { ClaimBody, ClaimDecisionBody, IncidentBody } from '../../../../shared/schemas/incidents'
+import type { ClaimBody, ClaimDecisionBody, ClaimPayBody, IncidentBody } from '../../../../shared/schemas/incidents'
 import { api } from '../../../lib/api'
 import { keys } from '../../../lib/queryKeys'
 
@@ -71,8 +71,8 @@ export function useRaiseClaim(incident: Pick<IncidentJson, 'id' | 'requestId'>) 
 }
 
 export function usePayClaim(incident: Pick<IncidentJson, 'id' | 'requestId'>) {
-  return useIncidentChange(incident.id, incident.requestId, (claimId: string) =>
-    api<{ checkoutUrl: string }>(`/api/claims/${claimId}/accept`, { method: 'POST', body: {} }),
+  return useIncidentChange(incident.id, incident.requestId, ({ claimId, with: how }: { claimId: string; with: ClaimPayBody['with'] }) =>
+    api<ClaimPayAnswer>(`/api/claims/${claimId}/accept`, { method: 'POST', body: { with: how } }),
   )
 }
 

@@ -11,6 +11,7 @@ import { Alert } from '../../../components/ui/Alert'
 import { Badge } from '../../../components/ui/Badge'
 import { Button } from '../../../components/ui/Button'
 import { Card, PageHeader } from '../../../components/ui/Card'
+import { ConfirmDialog } from '../../../components/ui/ConfirmDialog'
 import { Field, Select, TextArea, TextInput } from '../../../components/ui/Field'
 import { Spinner } from '../../../components/ui/Spinner'
 import { ApiError } from '../../../lib/api'
@@ -142,8 +143,9 @@ function ClaimCard({ incident, claim }: { incident: IncidentJson; claim: ClaimJs
   const pay = usePayClaim(incident)
   const contest = useContestClaim(incident)
   const [contesting, setContesting] = useState(false)
+  const [payingKept, setPayingKept] = useState(false)
   const [reason, setReason] = useState('')
-  const error = (pay.error ?? contest.error) as ApiError | null
+  const error = (payingKept ? null : (pay.error ?? contest.error)) as ApiError | null
   return (
     <li className="rounded-control border border-slip-200 p-4" data-testid="claim">
       <div className="flex flex-wrap items-center justify-between gap-2">
@@ -162,12 +164,23 @@ function ClaimCard({ incident, claim }: { incident: IncidentJson; claim: ClaimJs
       )}
       {claim.actions.length > 0 && (
         <div className="mt-3 flex flex-wrap gap-2">
+          {claim.actions.includes('pay') && claim.keptCard && (
+            <Button busy={pay.isPending && pay.variables?.with === 'kept-card'} onClick={() => setPayingKept(true)}>
+              Pay {formatMoney(claim.amountCents, claim.currency)} with the kept card
+            </Button>
+          )}
           {claim.actions.includes('pay') && (
             <Button
-              busy={pay.isPending}
-              onClick={() => pay.mutate(claim.id, { onSuccess: ({ checkoutUrl }) => window.location.assign(checkoutUrl) })}
+              variant={claim.keptCard ? 'secondary' : 'primary'}
+              busy={pay.isPending && pay.variables?.with === 'checkout'}
+              onClick={() =>
+                pay.mutate(
+                  { claimId: claim.id, with: 'checkout' },
+                  { onSuccess: ({ checkoutUrl }) => checkoutUrl && window.location.assign(checkoutUrl) },
+                )
+              }
             >
-              Pay {formatMoney(claim.amountCents, claim.currency)} by card
+              {claim.keptCard ? 'Pay on a checkout page' : `Pay ${formatMoney(claim.amountCents, claim.currency)} by card`}
             </Button>
           )}
           {claim.actions.includes('contest') && !contesting && (
@@ -176,6 +189,20 @@ function ClaimCard({ incident, claim }: { incident: IncidentJson; claim: ClaimJs
             </Button>
           )}
         </div>
+      )}
+      {claim.keptCard && (
+        <ConfirmDialog
+          open={payingKept}
+          onClose={() => setPayingKept(false)}
+          title={`Pay ${formatMoney(claim.amountCents, claim.currency)} now?`}
+          confirmLabel={`Pay with ${claim.keptCard}`}
+          busy={pay.isPending}
+          problem={pay.isError ? (pay.error as ApiError).message : null}
+          onConfirm={() => pay.mutate({ claimId: claim.id, with: 'kept-card' }, { onSuccess: () => setPayingKept(false) })}
+        >
+          {claim.keptCard}, the card you kept at the deposit, is charged {formatMoney(claim.amountCents, claim.currency)} for “
+          {claim.chargeLabel.toLowerCase()}”. The studio and you get a receipt by mail.
+        </ConfirmDialog>
       )}
       {contesting && (
         <form

@@ -124,9 +124,17 @@ export function useWithdrawRequest() {
 /** Opens (or reuses) the hosted checkout for the deposit or the balance; the page then leaves for it. */
 export function useOpenCheckout() {
   return useMutation({
-    mutationFn: ({ id, purpose }: { id: string; purpose: 'deposit' | 'balance' }) =>
-      api<{ checkoutUrl: string; expiresAt: string }>(`/api/requests/${id}/${purpose}`, { method: 'POST' }),
+    mutationFn: ({ id, purpose, keepCard = false }: { id: string; purpose: 'deposit' | 'balance'; keepCard?: boolean }) =>
+      api<{ checkoutUrl: string; expiresAt: string }>(`/api/requests/${id}/${purpose}`, {
+        method: 'POST',
+        body: purpose === 'deposit' ? { keepCard } : undefined,
+      }),
   })
+}
+
+/** Forgets the card kept at the deposit: it is detached at Stripe and never charged again. */
+export function useForgetKeptCard() {
+  return useRequestChange(({ id }: { id: string }) => api<RequestView>(`/api/requests/${id}/kept-card`, { method: 'DELETE' }))
 }
 
 /** How often an open thread asks for new messages. */

@@ -4,7 +4,7 @@ import { requestWithdrawSchema } from '../../../../shared/schemas/requests'
 import { Alert } from '../../../components/ui/Alert'
 import { Button, ButtonLink } from '../../../components/ui/Button'
 import { Dialog } from '../../../components/ui/Dialog'
-import { Field, TextArea } from '../../../components/ui/Field'
+import { Checkbox, Field, TextArea } from '../../../components/ui/Field'
 import { ApiError } from '../../../lib/api'
 import { firingInWords } from '../../../lib/firingWords'
 import { formatShelves } from '../../../lib/units'
@@ -22,13 +22,25 @@ const problemOf = (error: unknown) => (error instanceof ApiError ? error.message
 const payableByCard = (view: RequestView, cents: number) => cents >= view.price.minimumOnlineCents
 
 /** Opens the payment provider's page for the deposit or the balance and leaves for it. */
-function CheckoutButton({ view, purpose, label }: { view: RequestView; purpose: 'deposit' | 'balance'; label: string }) {
+function CheckoutButton({
+  view,
+  purpose,
+  label,
+  keepCard = false,
+}: {
+  view: RequestView
+  purpose: 'deposit' | 'balance'
+  label: string
+  keepCard?: boolean
+}) {
   const checkout = useOpenCheckout()
   return (
     <div className="space-y-2">
       <Button
         busy={checkout.isPending || checkout.isSuccess}
-        onClick={() => checkout.mutate({ id: view.id, purpose }, { onSuccess: ({ checkoutUrl }) => window.location.assign(checkoutUrl) })}
+        onClick={() =>
+          checkout.mutate({ id: view.id, purpose, keepCard }, { onSuccess: ({ checkoutUrl }) => window.location.assign(checkoutUrl) })
+        }
       >
         {label}
       </Button>
@@ -49,10 +61,37 @@ function UnderCardMinimum({ view, cents }: { view: RequestView; cents: number })
   )
 }
 
+/**
+ * The deposit, with the choice to keep the card for a damage claim on this ask. Off by default: it is
+ * the potter's own choice, and the card is charged only for a claim they accept.
+ */
 export function PayDepositButton({ view, label }: { view: RequestView; label?: string }) {
+  const [keepCard, setKeepCard] = useState(false)
   const owed = view.price.depositOwedCents
   if (!payableByCard(view, owed)) return <UnderCardMinimum view={view} cents={owed} />
-  return <CheckoutButton view={view} purpose="deposit" label={label ?? `Pay the deposit · ${formatMoney(owed, view.price.currency)}`} />
+  return (
+    <div className="space-y-2">
+      <Checkbox
+        checked={keepCard}
+        onChange={(e) => setKeepCard(e.target.checked)}
+        label={
+          <>
+            Keep this card for a damage claim on this ask.{' '}
+            <span className="text-slip-600">
+              If {view.studio.name} claims for damage under its terms and you accept, it is paid in one step. It is never charged without
+              your yes, and you can forget it at any time.
+            </span>
+          </>
+        }
+      />
+      <CheckoutButton
+        view={view}
+        purpose="deposit"
+        keepCard={keepCard}
+        label={label ?? `Pay the deposit · ${formatMoney(owed, view.price.currency)}`}
+      />
+    </div>
+  )
 }
 
 export function PayBalanceButton({ view, label }: { view: RequestView; label?: string }) {

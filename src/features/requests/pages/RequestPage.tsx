@@ -16,6 +16,7 @@ import { useMe } from '../../auth/api/auth'
 import { useRequest, type RequestPolling } from '../api/requests'
 import type { RequestView } from '../api/types'
 import { FiringSummary } from '../components/FiringSummary'
+import { KeptCardLine } from '../components/KeptCardLine'
 import { Ledger } from '../components/Ledger'
 import { MessageThread } from '../components/MessageThread'
 import { PiecesTable } from '../components/PiecesTable'
@@ -448,6 +449,7 @@ function RequestDetail({ view, units, paidFor, unpaidFor, waitedOut }: DetailPro
                 <CounterRefunds view={view} />
               </div>
             )}
+            <KeptCardLine view={view} zone={zone} />
           </Card>
 
           <Card>
