@@ -62,7 +62,7 @@ function changedFields(studio: MemberStudio, values: StudioOutput, dirty: Partia
   }
   // Defaults shown but not touched stay defaults, so a studio keeps following them if they change.
   const chargesTouched = Object.values(dirty.policies?.damageCharges ?? {}).some(Boolean)
-  if (values.policies && !studio.policies.damageCharges && !chargesTouched) {
+  if (body.policies && values.policies && !studio.policies.damageCharges && !chargesTouched) {
     const { damageCharges: _shown, ...policies } = values.policies
     body.policies = policies
   }
