@@ -135,16 +135,23 @@ describe('a studio owner sets up a studio and crew in the browser', () => {
     await page.waitForURL(`**/studios/${studioId}/edit`)
     await page.getByLabel('Drop-off hours').fill('Tue–Sat 10 am–6 pm, side door')
     await page.getByLabel(/^Published/).check()
-    // Damage charges start at the defaults (shared/claims.ts) and are typed in dollars and cents.
+    await page.getByLabel('Earthenware').check()
+    await page.getByRole('button', { name: 'Save settings' }).click()
+    await page.getByText('Saved.').waitFor()
+    // Damage charges left at the defaults shown (shared/claims.ts) stay the defaults, not a copy of them.
+    const before = await page.evaluate(async (id) => (await fetch(`/api/studios/${id}`)).json(), studioId)
+    expect(before.policies.clayBodies).toContain('earthenware')
+    expect(before.policies.damageCharges).toBeUndefined()
+
+    // Typed in dollars and cents; a refused save keeps everything typed.
     const cleaning = page.getByLabel('Kiln cleaning after a blowout (USD)')
     expect(await cleaning.inputValue()).toBe('60')
+    await page.getByLabel('Shelf replaced (USD)').fill('0')
     await cleaning.fill('-5')
     await page.getByRole('button', { name: 'Save settings' }).click()
     await page.getByText('At least 0.').waitFor()
-    // Nothing typed is lost to a refused save.
-    expect(await page.getByLabel('Drop-off hours').inputValue()).toBe('Tue–Sat 10 am–6 pm, side door')
+    expect(await page.getByLabel('Shelf replaced (USD)').inputValue()).toBe('0')
     await cleaning.fill('75.50')
-    await page.getByLabel('Shelf replaced (USD)').fill('0')
     await page.getByRole('button', { name: 'Save settings' }).click()
     await page.getByText('Saved.').waitFor()
     const terms = await page.evaluate(async (id) => (await fetch(`/api/studios/${id}`)).json(), studioId)
