@@ -317,6 +317,8 @@ export async function incidentJson(ctx: AppContext, user: Pick<User, 'id' | 'rol
     viewerSide: side,
     canClaim: viewer.side === 'studio' && viewer.role === 'owner',
     damageCharges: damageChargesOf(studio.policies),
+    // The currency a claim on this ask is raised in (raiseClaim): the ask's quote's, else the studio's.
+    claimCurrency: ((request.standingQuote ?? request.quote)?.currency ?? studio.currency).toUpperCase(),
   }
 }
 

@@ -82,6 +82,8 @@ export interface IncidentJson extends IncidentSummaryJson {
   viewerSide: 'potter' | 'studio' | 'admin' | 'neighbour'
   canClaim: boolean
   damageCharges: DamageCharges
+  /** The currency of the charges and of a claim raised on this incident. */
+  claimCurrency: string
 }
 
 /** One row of a studio's incident history: counted by kiln, firing kind and phase. */

@@ -1,6 +1,8 @@
 // Kilns, firings and the studio's terms in plain words, as potters and studios read them.
 import type { Atmosphere, CoolingProfile, FiringKind, Kiln, KilnInterior, KilnKind } from '../../shared/firing/check'
 import { formatCone } from '../../shared/firing/cones'
+import { DAMAGE_CHARGE_KINDS, DAMAGE_CHARGE_LABELS, damageChargesOf } from '../../shared/claims'
+import { formatMoney } from '../../shared/dates'
 import type { StudioPolicies } from '../../shared/schemas/studios'
 import { formatLength, type UnitSystem } from './units'
 
@@ -95,4 +97,17 @@ export function policiesInWords(policies: StudioPolicies): string[] {
     withdrawing,
     `Once the studio takes your ware on, the space is held ${policies.depositHoldHours} hours for the deposit.`,
   ]
+}
+
+/**
+ * The most the studio may claim when a potter's ware damages the kiln, its shelves or other ware, one
+ * line a charge: "Kiln cleaning after a blowout: up to $60.00"; a charge of 0 is one it does not make.
+ */
+export function damageChargesInWords(policies: StudioPolicies, currency: string): string[] {
+  const charges = damageChargesOf(policies)
+  return DAMAGE_CHARGE_KINDS.map((kind) =>
+    charges[kind] > 0
+      ? `${DAMAGE_CHARGE_LABELS[kind]}: up to ${formatMoney(charges[kind], currency)}`
+      : `${DAMAGE_CHARGE_LABELS[kind]}: no charge`,
+  )
 }

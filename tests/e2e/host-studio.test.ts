@@ -1,7 +1,8 @@
 // In a real browser against the real server: a new studio owner sets up a studio by ZIP code, describes an
-// electric kiln in inches and °F, prices it, posts a firing in the studio's own time zone, publishes,
-// and a signed-out visitor sees the firing with its space left. Then the owner invites crew by mail;
-// the invitee registers through the mailed link, moves the firing on, and finds the prices closed to them.
+// electric kiln in inches and °F, prices it, posts a firing in the studio's own time zone, sets its damage
+// charges, publishes, and a signed-out visitor sees the firing with its space left and the charges. Then the
+// owner invites crew by mail; the invitee registers through the mailed link, moves the firing on, and finds
+// the prices closed to them.
 import type { Browser, BrowserContext, Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { EXAMPLE_MUG } from '../../shared/firing/examples'
@@ -134,8 +135,27 @@ describe('a studio owner sets up a studio and crew in the browser', () => {
     await page.waitForURL(`**/studios/${studioId}/edit`)
     await page.getByLabel('Drop-off hours').fill('Tue–Sat 10 am–6 pm, side door')
     await page.getByLabel(/^Published/).check()
+    await page.getByLabel('Earthenware').check()
     await page.getByRole('button', { name: 'Save settings' }).click()
     await page.getByText('Saved.').waitFor()
+    // Damage charges left at the defaults shown (shared/claims.ts) stay the defaults, not a copy of them.
+    const before = await page.evaluate(async (id) => (await fetch(`/api/studios/${id}`)).json(), studioId)
+    expect(before.policies.clayBodies).toContain('earthenware')
+    expect(before.policies.damageCharges).toBeUndefined()
+
+    // Typed in dollars and cents; a refused save keeps everything typed.
+    const cleaning = page.getByLabel('Kiln cleaning after a blowout (USD)')
+    expect(await cleaning.inputValue()).toBe('60')
+    await page.getByLabel('Shelf replaced (USD)').fill('0')
+    await cleaning.fill('-5')
+    await page.getByRole('button', { name: 'Save settings' }).click()
+    await page.getByText('At least 0.').waitFor()
+    expect(await page.getByLabel('Shelf replaced (USD)').inputValue()).toBe('0')
+    await cleaning.fill('75.50')
+    await page.getByRole('button', { name: 'Save settings' }).click()
+    await page.getByText('Saved.').waitFor()
+    const terms = await page.evaluate(async (id) => (await fetch(`/api/studios/${id}`)).json(), studioId)
+    expect(terms.policies.damageCharges).toEqual({ 'kiln-cleaning': 7550, 'shelf-ground': 2500, 'shelf-replaced': 0, 'other-ware': 15000 })
 
     const visitor = await newPage()
     await visitor.page.goto(`/studios/${studioId}`)
@@ -153,6 +173,10 @@ describe('a studio owner sets up a studio and crew in the browser', () => {
       new RegExp(`^webcal://.+/api/studios/${studioId}/calendar\\.ics$`),
     )
     expect(await visitor.page.getByText('Tue–Sat 10 am–6 pm, side door').isVisible()).toBe(true)
+    const charges = await visitor.page.getByTestId('damage-charges').textContent()
+    expect(charges).toContain('Kiln cleaning after a blowout: up to $75.50')
+    expect(charges).toContain('Shelf ground clean: up to $25.00')
+    expect(charges).toContain('Shelf replaced: no charge')
     expect(errors).toEqual([])
     expect(visitor.errors).toEqual([])
   })

@@ -290,3 +290,153 @@ describe('learning from incidents', () => {
     expect((await neighbour.session.get(`/api/requests/${requestId}/potter-record`)).status).toBe(404)
   })
 })
+
+describe('the studio’s own damage charges, and a claim upheld at the front desk', () => {
+  const charges = { 'kiln-cleaning': 5000, 'shelf-ground': 0, 'shelf-replaced': 7000, 'other-ware': 20000 }
+  let crackId: string
+  let claimId: string
+  const mailsTo = async (person: Person, template: string, containing: string) =>
+    (
+      (await app.ctx.db.query(
+        `SELECT m.body_text FROM outbound_mail m JOIN users u ON u.email = m.to_address WHERE u.id = $1 AND m.template = $2`,
+        [person.id, template],
+      )) as { body_text: string }[]
+    ).filter((m) => m.body_text.includes(containing))
+  const noticesOf = async (person: Person, kind: string) =>
+    (
+      (await app.ctx.db.query(`SELECT count(*)::int AS n FROM notices WHERE user_id = $1 AND kind = $2`, [person.id, kind])) as {
+        n: number
+      }[]
+    )[0].n
+
+  it('saves the charges through the studio’s terms, refusing bad ones by the field and keeping what was stored', async () => {
+    const before = (await owner.session.get(`/api/studios/${ids.studioId}`)).body
+    const saved = await owner.session.patch(`/api/studios/${ids.studioId}`, { policies: { ...before.policies, damageCharges: charges } })
+    expect(saved.status, JSON.stringify(saved.body)).toBe(200)
+    expect(saved.body.policies.damageCharges).toEqual(charges)
+    // Potters agree to a version of the terms; new charges are a new version.
+    expect(saved.body.policiesVersion).toBe(before.policiesVersion + 1)
+
+    for (const [kind, cents] of [
+      ['kiln-cleaning', -100],
+      ['shelf-replaced', 70.5],
+      ['other-ware', 1_000_001],
+      ['shelf-ground', '20'],
+    ] as const) {
+      const refused = await owner.session.patch(`/api/studios/${ids.studioId}`, {
+        policies: { ...before.policies, damageCharges: { ...charges, [kind]: cents } },
+      })
+      expect(refused.status, `${kind} = ${cents}`).toBe(400)
+      expect(Object.keys(refused.body.error.fields)).toEqual([`policies.damageCharges.${kind}`])
+    }
+    const after = (await owner.session.get(`/api/studios/${ids.studioId}`)).body
+    expect(after.policies.damageCharges).toEqual(charges)
+    expect(after.policiesVersion).toBe(saved.body.policiesVersion)
+    expect((await crew.session.patch(`/api/studios/${ids.studioId}`, { policies: { ...before.policies } })).status).toBe(403)
+  })
+
+  it('holds a claim to the saved charges: a cent over is refused as over the terms, the cap itself is taken', async () => {
+    const crack = await crew.session.post(`/api/firings/${ids.firingId}/incidents`, {
+      kind: 'crack',
+      crackEdge: 'sharp',
+      shelfDamage: true,
+      whereInKiln: 'Bottom shelf, front',
+      pieceTags: [tag],
+    })
+    expect(crack.status, JSON.stringify(crack.body)).toBe(201)
+    crackId = crack.body.id
+    expect(crack.body.damageCharges).toEqual(charges)
+    expect(crack.body.claimCurrency).toBe('USD')
+
+    const over = await owner.session.post(`/api/incidents/${crackId}/claims`, { chargeKind: 'shelf-replaced', amountCents: 7001 })
+    expect(over.status).toBe(400)
+    expect(over.body.error.code).toBe('over-terms')
+    expect(over.body.error.fields.amountCents).toMatch(/at most 70\.00/)
+    // A charge of 0 is one the studio does not make.
+    const none = await owner.session.post(`/api/incidents/${crackId}/claims`, { chargeKind: 'shelf-ground', amountCents: 100 })
+    expect(none.status).toBe(400)
+    expect(none.body.error.code).toBe('over-terms')
+    const atCap = await owner.session.post(`/api/incidents/${crackId}/claims`, {
+      chargeKind: 'shelf-replaced',
+      amountCents: 7000,
+      note: 'The bottom shelf cracked through under the piece.',
+    })
+    expect(atCap.status, JSON.stringify(atCap.body)).toBe(201)
+    claimId = atCap.body.id
+    expect(atCap.body).toMatchObject({ status: 'raised', amountCents: 7000, currency: 'USD' })
+  })
+
+  it('is contested, upheld by the front desk alone, both sides told, and then paid by the potter into the ledger', async () => {
+    // Only a contested claim is the desk's to decide.
+    const early = await admin.session.post(`/api/admin/claims/${claimId}/decide`, { decision: 'uphold' })
+    expect(early.status).toBe(409)
+    expect(early.body.error.code).toBe('bad-claim-state')
+
+    const contested = await potter.session.post(`/api/claims/${claimId}/contest`, {
+      reason: 'The shelf was cracked before my piece went on it.',
+    })
+    expect(contested.status, JSON.stringify(contested.body)).toBe(200)
+    expect((await owner.session.post(`/api/admin/claims/${claimId}/decide`, { decision: 'uphold' })).status).toBe(403)
+    expect((await potter.session.post(`/api/admin/claims/${claimId}/decide`, { decision: 'uphold' })).status).toBe(403)
+    expect((await admin.session.get(`/api/admin/claims`)).body.claims.map((c: { id: string }) => c.id)).toContain(claimId)
+
+    const noticesBefore = { potter: await noticesOf(potter, 'claim-decided'), studio: await noticesOf(owner, 'claim-decided') }
+    const deskNote = 'The photos show glaze run onto the shelf from this piece.'
+    const upheld = await admin.session.post(`/api/admin/claims/${claimId}/decide`, { decision: 'uphold', note: deskNote })
+    expect(upheld.status, JSON.stringify(upheld.body)).toBe(200)
+    expect(upheld.body).toMatchObject({ status: 'upheld', deskNote })
+    expect((await admin.session.post(`/api/admin/claims/${claimId}/decide`, { decision: 'waive' })).status).toBe(409)
+    expect((await admin.session.get(`/api/admin/claims`)).body.claims.map((c: { id: string }) => c.id)).not.toContain(claimId)
+
+    expect(await noticesOf(potter, 'claim-decided')).toBe(noticesBefore.potter + 1)
+    expect(await noticesOf(owner, 'claim-decided')).toBe(noticesBefore.studio + 1)
+    for (const [who, person] of [
+      ['potter', potter],
+      ['studio', owner],
+    ] as const) {
+      const mails = await mailsTo(person, 'claim-decided', deskNote)
+      expect(mails, who).toHaveLength(1)
+      expect(mails[0].body_text).toContain('upheld')
+    }
+
+    const potterSees = (await potter.session.get(`/api/incidents/${crackId}`)).body.claims.find((c: { id: string }) => c.id === claimId)
+    expect(potterSees).toMatchObject({ status: 'upheld', actions: ['pay'], deskNote })
+    const studioSees = (await owner.session.get(`/api/incidents/${crackId}`)).body.claims.find((c: { id: string }) => c.id === claimId)
+    expect(studioSees).toMatchObject({ status: 'upheld', actions: [] })
+    expect((await potter.session.post(`/api/claims/${claimId}/contest`, { reason: 'Still not my piece, I say.' })).status).toBe(409)
+    expect((await owner.session.post(`/api/claims/${claimId}/accept`)).status).toBe(403)
+
+    const accepted = await potter.session.post(`/api/claims/${claimId}/accept`)
+    expect(accepted.status, JSON.stringify(accepted.body)).toBe(200)
+    const paid = await submitCard(accepted.body.checkoutUrl, { cardNumber: CARD_SUCCEEDS })
+    expect(paid.status).toBe(303)
+    await waitUntil(
+      async () =>
+        (await potter.session.get(`/api/incidents/${crackId}`)).body.claims.find((c: { id: string }) => c.id === claimId).status === 'paid',
+      { what: 'the upheld claim’s webhook' },
+    )
+    expect(await mailsTo(owner, 'claim-paid', '70.00')).toHaveLength(1)
+
+    const view = (await potter.session.get(`/api/requests/${requestId}`)).body
+    expect(view.ledger.filter((e: { kind: string; amountCents: number }) => e.kind === 'claim' && e.amountCents === 7000)).toHaveLength(1)
+    const reasons = (view.timeline as { reason: string }[]).map((t) => t.reason)
+    const order = [
+      /^Damage claim raised: shelf replaced, \$70\.00/,
+      /^The potter contested the damage claim; it goes to the front desk: The shelf was cracked before/,
+      /^The front desk upheld the damage claim: The photos show glaze run/,
+      /^The potter agreed to pay the damage claim \(\$70\.00\)/,
+      /^Damage claim paid through Stripe: \$70\.00/,
+    ].map((pattern) => reasons.findIndex((r) => pattern.test(r)))
+    expect(
+      order.every((at) => at >= 0),
+      JSON.stringify(reasons),
+    ).toBe(true)
+    expect([...order].sort((a, b) => a - b)).toEqual(order)
+
+    // The ask was collected before: the claim's share is earned at once and the ledger still balances.
+    await moneyQuiet(app, { heldToo: true })
+    await checkLedgers(app)
+    const record = await owner.session.get(`/api/requests/${requestId}/potter-record`)
+    expect(record.body).toMatchObject({ count: 3, claimsPaid: 2, claimsWaived: 1 })
+  })
+})

@@ -234,7 +234,7 @@ function RaiseClaim({ incident }: { incident: IncidentJson }) {
   const [amount, setAmount] = useState('')
   const [note, setNote] = useState('')
   const cap = incident.damageCharges[kind]
-  const currency = incident.claims[0]?.currency ?? 'USD'
+  const currency = incident.claimCurrency
   const error = raise.error as ApiError | null
   return (
     <form
@@ -255,7 +255,10 @@ function RaiseClaim({ incident }: { incident: IncidentJson }) {
     >
       <h3 className="text-sm font-semibold text-slip-900">Claim a damage charge</h3>
       <div className="grid gap-3 sm:grid-cols-2">
-        <Field label="What for" hint={`Your terms: at most ${formatMoney(cap, currency)}.`}>
+        <Field
+          label="What for"
+          hint={cap > 0 ? `Your terms: at most ${formatMoney(cap, currency)}.` : 'Your terms name no charge for this.'}
+        >
           {(props) => (
             <Select {...props} value={kind} onChange={(e) => setKind(e.target.value as DamageChargeKind)}>
               {DAMAGE_CHARGE_KINDS.map((k) => (

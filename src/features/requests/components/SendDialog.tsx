@@ -8,7 +8,7 @@ import { Checkbox } from '../../../components/ui/Field'
 import { Spinner } from '../../../components/ui/Spinner'
 import { FindingsList, pieceName } from '../../../components/ware/CheckResults'
 import { ApiError } from '../../../lib/api'
-import { policiesInWords } from '../../../lib/firingWords'
+import { damageChargesInWords, policiesInWords } from '../../../lib/firingWords'
 import { requestKeys } from '../api/keys'
 import { useRequest, useSendRequest } from '../api/requests'
 import type { RequestView } from '../api/types'
@@ -151,6 +151,12 @@ function SendForm({ requestId, onClose, onSent }: { requestId: string; onClose: 
             <p className="mt-1 whitespace-pre-line text-sm text-slip-700">{policies.wareRequirements}</p>
           </>
         )}
+        <h4 className="mt-3 text-sm font-semibold">If your ware damages the kiln or other ware, at most</h4>
+        <ul className="mt-1 list-disc space-y-1 pl-5 text-sm text-slip-800" data-testid="send-damage-charges">
+          {damageChargesInWords(policies, view.price.currency).map((line) => (
+            <li key={line}>{line}</li>
+          ))}
+        </ul>
         <div className="mt-3">
           <Checkbox
             label={`I agree to ${view.studio.name}’s terms`}

@@ -19,7 +19,7 @@ import { FiringRows } from '../components/FiringRows'
 import { StudioNav } from '../components/StudioNav'
 import { FireAgainSummary, StudioReviews } from '../components/StudioReviews'
 import type { UnitSystem } from '../../../lib/units'
-import { kilnLimitsInWords, policiesInWords } from '../../../lib/firingWords'
+import { damageChargesInWords, kilnLimitsInWords, policiesInWords } from '../../../lib/firingWords'
 import { zoneAbbreviation } from '../zonedTime'
 
 // Leaflet and the basemap come after the studio's own details.
@@ -189,6 +189,13 @@ function StudioProfile({ studio }: { studio: Studio }) {
               <p className="mt-1 whitespace-pre-line text-sm text-slip-700">{studio.policies.wareRequirements}</p>
             </>
           )}
+          <h3 className="mt-4 text-sm font-semibold">If your ware damages the kiln or other ware</h3>
+          <p className="mt-1 text-sm text-slip-700">The most the studio may charge you, with the incident as evidence:</p>
+          <ul className="mt-1 list-disc space-y-1 pl-5 text-sm text-slip-800" data-testid="damage-charges">
+            {damageChargesInWords(studio.policies, studio.currency).map((line) => (
+              <li key={line}>{line}</li>
+            ))}
+          </ul>
         </Card>
       </section>
     </article>

@@ -4,14 +4,17 @@ import { lazy, Suspense, useMemo, useState } from 'react'
 import { useForm, useWatch, type FieldNamesMarkedBoolean } from 'react-hook-form'
 import { useParams } from 'react-router-dom'
 import type { z } from 'zod'
+import { DAMAGE_CHARGE_KINDS, DAMAGE_CHARGE_LABELS, damageChargesOf } from '../../../../shared/claims'
 import { CLAY_BODIES, studioPatchSchema, type StudioPatchBody } from '../../../../shared/schemas/studios'
 import { MapPlaceholder } from '../../../components/map/MapPlaceholder'
 import { Alert } from '../../../components/ui/Alert'
 import { Button, ButtonLink } from '../../../components/ui/Button'
 import { Card, PageHeader } from '../../../components/ui/Card'
 import { Checkbox, Field, Select, TextArea, TextInput } from '../../../components/ui/Field'
+import { MeasureField } from '../../../components/ui/MeasureField'
 import { Spinner } from '../../../components/ui/Spinner'
 import { applyServerErrors } from '../../../lib/forms'
+import { moneyMeasure } from '../../../lib/units'
 import { useStudio, useUpdateStudio } from '../api/studios'
 import { isMemberView, type MemberStudio } from '../api/types'
 import { ApiProblem } from '../components/ApiProblem'
@@ -41,7 +44,8 @@ function formValues(studio: MemberStudio): StudioInput {
     timezone: studio.timezone,
     currency: studio.currency,
     dropOffHours: studio.dropOffHours,
-    policies: studio.policies,
+    // A studio that has set no damage charges sees the defaults it is held to (shared/claims.ts).
+    policies: { ...studio.policies, damageCharges: damageChargesOf(studio.policies) },
     published: studio.published,
   }
 }
@@ -50,11 +54,17 @@ function formValues(studio: MemberStudio): StudioInput {
  * Only what was changed is sent: a new address alone moves the pin on the server, a dragged pin is
  * sent as lat and lng together and wins over the address.
  */
-function changedFields(values: StudioOutput, dirty: Partial<FieldNamesMarkedBoolean<StudioInput>>): StudioPatchBody {
+function changedFields(studio: MemberStudio, values: StudioOutput, dirty: Partial<FieldNamesMarkedBoolean<StudioInput>>): StudioPatchBody {
   const body: Record<string, unknown> = {}
   for (const key of Object.keys(dirty) as (keyof StudioOutput)[]) {
     if (key === 'lat' || key === 'lng') continue
     body[key] = values[key]
+  }
+  // Defaults shown but not touched stay defaults, so a studio keeps following them if they change.
+  const chargesTouched = Object.values(dirty.policies?.damageCharges ?? {}).some(Boolean)
+  if (body.policies && values.policies && !studio.policies.damageCharges && !chargesTouched) {
+    const { damageCharges: _shown, ...policies } = values.policies
+    body.policies = policies
   }
   if (dirty.lat || dirty.lng) Object.assign(body, { lat: values.lat, lng: values.lng })
   return body as StudioPatchBody
@@ -98,11 +108,12 @@ function StudioEditor({ studio }: { studio: MemberStudio }) {
     return timezone && !all.includes(timezone) ? [timezone, ...all] : all
   }, [timezone])
   const currencies = currency && !CURRENCIES.includes(currency) ? [currency, ...CURRENCIES] : CURRENCIES
+  const money = moneyMeasure(currency ?? studio.currency)
 
   const onSubmit = handleSubmit(async (values) => {
     setFormError(null)
     setSaved(false)
-    const body = changedFields(values, formState.dirtyFields)
+    const body = changedFields(studio, values, formState.dirtyFields)
     if (Object.keys(body).length === 0) return setSaved(true)
     try {
       const next = await update.mutateAsync(body)
@@ -278,6 +289,26 @@ function StudioEditor({ studio }: { studio: MemberStudio }) {
                     />
                   )}
                 </Field>
+              </div>
+            </fieldset>
+            <fieldset>
+              <legend className="mb-1 text-sm font-medium text-slip-800">When a potter’s ware does damage: the most you charge</legend>
+              <p className="mb-2 text-xs text-slip-600">
+                A claim you raise on an incident may ask up to these amounts. 0 means you do not charge for it, and a claim for it is
+                refused.
+              </p>
+              <div className="grid gap-4 sm:grid-cols-2">
+                {DAMAGE_CHARGE_KINDS.map((kind) => (
+                  <MeasureField
+                    key={kind}
+                    control={control}
+                    name={`policies.damageCharges.${kind}`}
+                    label={DAMAGE_CHARGE_LABELS[kind]}
+                    measure={money}
+                    // Money messages name no unit to convert.
+                    units="metric"
+                  />
+                ))}
               </div>
             </fieldset>
           </div>
