@@ -82,12 +82,17 @@ async function namesOfClaimRequest(manager: EntityManager, requestId: string) {
   return row
 }
 
+async function keptCardLabel(manager: EntityManager, requestId: string) {
+  const kept = await keptCardOf(manager, requestId)
+  return kept && cardLabel(kept.brand, kept.last4)
+}
+
 export async function claimsOfIncident(manager: EntityManager, incidentId: string, side: 'potter' | 'studio' | 'admin') {
   const claims = await manager.getRepository(Claim).find({ where: { incidentId }, order: { createdAt: 'ASC' } })
   if (!claims.length) return []
   const names = await namesOfClaimRequest(manager, claims[0].requestId)
-  const kept = side === 'potter' ? await keptCardOf(manager, claims[0].requestId) : null
-  return claims.map((c) => claimJson(c, names, side, kept && cardLabel(kept.brand, kept.last4)))
+  const kept = side === 'potter' ? await keptCardLabel(manager, claims[0].requestId) : null
+  return claims.map((c) => claimJson(c, names, side, kept))
 }
 
 /** The studio's owner raises a claim on the potter whose ware failed, within the studio's terms. */
@@ -123,7 +128,12 @@ export async function raiseClaim(ctx: AppContext, user: User, incidentId: string
     )
     await step.tellPotter(
       'claim-raised',
-      claimRaisedMail(factsOf(step.rc, ctx.config.publicUrl), claimFacts(claim), incidentUrl(ctx, claim)),
+      claimRaisedMail(
+        factsOf(step.rc, ctx.config.publicUrl),
+        claimFacts(claim),
+        incidentUrl(ctx, claim),
+        await keptCardLabel(step.manager, claim.requestId),
+      ),
     )
     return claimJson(claim, { potter: step.rc.potter.displayName, studio: step.rc.studio.name }, 'studio')
   })

@@ -112,6 +112,11 @@ describe('paying a damage claim with the kept card', () => {
     expect(seen.keptCard).toBe('Visa ending 4242')
     expect((await owner.session.get(`/api/incidents/${incidentId}`)).body.claims[0].keptCard).toBeNull()
     expect((await owner.session.post(`/api/claims/${claimId}/accept`, { with: 'kept-card' })).status).toBe(403)
+    const raisedMail: { body_text: string }[] = await app.ctx.db.query(
+      `SELECT body_text FROM outbound_mail WHERE to_address = $1 AND template = 'claim-raised'`,
+      [keeper.email],
+    )
+    expect(raisedMail.map((m) => m.body_text).join('\n')).toContain('You kept Visa ending 4242 at the deposit')
 
     // A double click: both answers say paid, and one payment is booked.
     const [first, second] = await Promise.all([

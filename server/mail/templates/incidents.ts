@@ -50,11 +50,14 @@ export function wareHurtMail(r: RequestFacts, i: IncidentFacts): MailContent {
   }
 }
 
-export function claimRaisedMail(r: RequestFacts, c: ClaimFacts, incidentUrl: string): MailContent {
+export function claimRaisedMail(r: RequestFacts, c: ClaimFacts, incidentUrl: string, keptCard: string | null = null): MailContent {
   return {
     subject: `${r.studioName} asks ${formatMoney(c.amountCents, c.currency)} for damage in ${when(r)}`,
     paragraphs: [
       `Under its terms, ${r.studioName} asks you to pay for damage your ware caused in ${when(r)}. You can pay it by card, or contest it and the Conewright front desk will look at both sides.`,
+      ...(keptCard
+        ? [`You kept ${keptCard} at the deposit, so you can pay in one step if you accept. Nothing is charged until you do.`]
+        : []),
       ...(c.note ? [`The studio’s note: “${c.note}”`] : []),
     ],
     details: claimRows(c),
