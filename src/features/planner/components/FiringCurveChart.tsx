@@ -3,7 +3,7 @@ import type { FiringSchedule, SegmentZone } from '../../../../shared/firing/sche
 import { cToF } from '../../../../shared/firing/units'
 import { curvePoints, zoneName, zoneSpans } from '../firingCurve'
 import { formatDuration, formatRate, formatTemperature, type TemperatureScale } from '../../../lib/units'
-import { ChoiceSwitch } from './ChoiceSwitch'
+import { ChoiceSwitch } from '../../../components/ui/ChoiceSwitch'
 
 // Zones where the clay is changing are tinted by what is happening: water (celadon), gases leaving
 // (ember), the silica inversions and the cone-setting climb (clay); plain climbs and cooling stay slip.

@@ -1,6 +1,7 @@
 import { useId, useState, type FormEvent } from 'react'
 import { CONES } from '../../../../shared/firing/cones'
 import { Button, ButtonLink } from '../../../components/ui/Button'
+import { ChoiceSwitch } from '../../../components/ui/ChoiceSwitch'
 import { Field, Select, TextInput } from '../../../components/ui/Field'
 import type { FieldErrors } from '../../../lib/api'
 import { DEFAULT_RADIUS_KM, hasOrigin, searchString, type SearchState } from '../searchState'
@@ -300,27 +301,5 @@ const UNIT_CHOICES: readonly { value: UnitSystem; label: string }[] = [
 
 /** Which units sizes and distances are shown and typed in; the search itself is in mm and km. */
 function UnitChoice({ value, onChange }: { value: UnitSystem; onChange: (units: UnitSystem) => void }) {
-  const name = useId()
-  return (
-    <fieldset className="space-y-1">
-      <legend className="text-sm font-medium text-slip-800">Units</legend>
-      <div className="inline-flex rounded-control border border-slip-300 bg-white p-0.5">
-        {UNIT_CHOICES.map((choice) => (
-          <label key={choice.value} className="cursor-pointer">
-            <input
-              type="radio"
-              className="peer sr-only"
-              name={name}
-              value={choice.value}
-              checked={value === choice.value}
-              onChange={() => onChange(choice.value)}
-            />
-            <span className="block rounded-control px-3 py-1.5 text-sm font-medium text-slip-700 peer-checked:bg-clay-600 peer-checked:text-white peer-focus-visible:outline-2 peer-focus-visible:outline-offset-2 peer-focus-visible:outline-clay-500">
-              {choice.label}
-            </span>
-          </label>
-        ))}
-      </div>
-    </fieldset>
-  )
+  return <ChoiceSwitch legend="Units" layout="stacked" value={value} choices={UNIT_CHOICES} onChange={onChange} />
 }

@@ -1,4 +1,4 @@
-import { useId } from 'react'
+import { ChoiceSwitch } from '../../../components/ui/ChoiceSwitch'
 import type { UnitSystem } from '../../../lib/units'
 
 const CHOICES: readonly { value: UnitSystem; label: string }[] = [
@@ -8,27 +8,5 @@ const CHOICES: readonly { value: UnitSystem; label: string }[] = [
 
 /** Which units the form shows; what is stored stays SI either way. */
 export function UnitSwitch({ value, onChange }: { value: UnitSystem; onChange: (units: UnitSystem) => void }) {
-  const name = useId()
-  return (
-    <fieldset className="flex items-center gap-2">
-      <legend className="float-left mr-2 text-sm text-slip-600">Units</legend>
-      <div className="inline-flex rounded-control border border-slip-300 bg-white p-0.5">
-        {CHOICES.map((choice) => (
-          <label key={choice.value} className="cursor-pointer">
-            <input
-              type="radio"
-              className="peer sr-only"
-              name={name}
-              value={choice.value}
-              checked={value === choice.value}
-              onChange={() => onChange(choice.value)}
-            />
-            <span className="block rounded-control px-3 py-1 text-sm font-medium text-slip-700 peer-checked:bg-clay-600 peer-checked:text-white peer-focus-visible:outline-2 peer-focus-visible:outline-offset-2 peer-focus-visible:outline-clay-500">
-              {choice.label}
-            </span>
-          </label>
-        ))}
-      </div>
-    </fieldset>
-  )
+  return <ChoiceSwitch legend="Units" value={value} choices={CHOICES} onChange={onChange} />
 }
