@@ -37,6 +37,7 @@ import { tell } from './notices'
 import { tagFrom } from './pieces'
 import { addPhotos, photoJson, type UploadedFile } from './photos'
 import { factsOf, loadRequest } from './request-context'
+import { remediesView } from './remedies'
 import { requestAction } from './request-door'
 
 const observationOf = (i: Pick<Incident, 'kind' | 'crackEdge' | 'shards' | 'neighboursHit' | 'shelfDamage' | 'elementDamage'>) =>
@@ -317,6 +318,7 @@ export async function incidentJson(ctx: AppContext, user: Pick<User, 'id' | 'rol
     viewerSide: side,
     canClaim: viewer.side === 'studio' && viewer.role === 'owner',
     damageCharges: damageChargesOf(studio.policies),
+    ...(await remediesView(manager, incident, studio.id, viewer, user.id)),
   }
 }
 

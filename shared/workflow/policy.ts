@@ -49,6 +49,8 @@ export const SYSTEM_ACTIONS = [
   // incident's and the claim's own rules (server/services/incidents.ts, shared/claims.ts), in any state.
   'incident',
   'claim',
+  // Making good to a potter whose pieces an incident hurt (server/services/remedies.ts): the studio's owner only.
+  'remedy',
 ] as const
 export type SystemAction = (typeof SYSTEM_ACTIONS)[number]
 
@@ -73,7 +75,8 @@ const TABLE: Table = {
     studio: ['results', 'counter-payment', 'collected', 'dispute', 'message'],
     admin: [],
   },
-  collected: { potter: ['rate', 'dispute', 'message'], studio: ['rate', 'dispute', 'message'], admin: [] },
+  // A credit for ware hurt in an incident, given after pickup, may leave money owed back at the counter.
+  collected: { potter: ['rate', 'dispute', 'message'], studio: ['rate', 'dispute', 'message', 'hand-back'], admin: [] },
   disputed: { potter: ['rate', 'message'], studio: ['rate', 'message', 'hand-back'], admin: [] },
   declined: ended,
   withdrawn: ended,
