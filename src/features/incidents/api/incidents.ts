@@ -1,7 +1,7 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query'
-import type { ClaimJson, IncidentJson, IncidentSummaryJson, StudioIncidentHistory } from '../../../../shared/api/incidents'
+import type { ClaimJson, IncidentJson, IncidentSummaryJson, RemedyJson, StudioIncidentHistory } from '../../../../shared/api/incidents'
 import type { PhotoJson } from '../../../../shared/api/photos'
-import type { ClaimBody, ClaimDecisionBody, IncidentBody } from '../../../../shared/schemas/incidents'
+import type { ClaimBody, ClaimDecisionBody, IncidentBody, RemedyBody } from '../../../../shared/schemas/incidents'
 import { api } from '../../../lib/api'
 import { keys } from '../../../lib/queryKeys'
 
@@ -86,4 +86,21 @@ export function useDecideClaim() {
   return useIncidentChange('', undefined, ({ claimId, body }: { claimId: string; body: ClaimDecisionBody }) =>
     api<ClaimJson>(`/api/admin/claims/${claimId}/decide`, { method: 'POST', body }),
   )
+}
+
+/**
+ * The studio's owner makes good to one hurt potter: the incident, that potter's ask (its timeline and
+ * money), the ask lists and the studio's money page change with it.
+ */
+export function useMakeGood(incident: Pick<IncidentJson, 'id' | 'studioId'>) {
+  const client = useQueryClient()
+  return useMutation({
+    mutationFn: (body: Partial<RemedyBody>) => api<RemedyJson>(`/api/incidents/${incident.id}/remedies`, { method: 'POST', body }),
+    onSuccess: (remedy) => {
+      void client.invalidateQueries({ queryKey: keys.incidents.detail(incident.id) })
+      void client.invalidateQueries({ queryKey: keys.requests.detail(remedy.requestId) })
+      void client.invalidateQueries({ queryKey: keys.requests.lists() })
+      void client.invalidateQueries({ queryKey: keys.studios.payouts(incident.studioId) })
+    },
+  })
 }
