@@ -91,6 +91,16 @@ async function remedyJsons(manager: EntityManager, remedies: IncidentRemedy[]): 
   })
 }
 
+/** The remedies of these incidents, only those on the given asks when `onAsks` is set (a potter's own). */
+export async function remediesOf(manager: EntityManager, incidentIds: string[], onAsks?: string[]): Promise<RemedyJson[]> {
+  if (!incidentIds.length || onAsks?.length === 0) return []
+  const remedies = await manager.getRepository(IncidentRemedy).find({
+    where: { incidentId: In(incidentIds), ...(onAsks ? { requestId: In(onAsks) } : {}) },
+    order: { createdAt: 'ASC' },
+  })
+  return remedyJsons(manager, remedies)
+}
+
 /**
  * What an incident's viewer sees of making good: the remedies that concern them (all of them for the
  * studio and the desk, those on their own asks for a potter), and for the studio's owner each hurt ask
@@ -99,7 +109,7 @@ async function remedyJsons(manager: EntityManager, remedies: IncidentRemedy[]): 
 export async function remediesView(
   manager: EntityManager,
   incident: Incident,
-  studioId: string,
+  studio: { id: string; currency: string },
   viewer: IncidentViewer,
   userId: string,
 ): Promise<{ remedies: RemedyJson[]; canMakeGood: boolean; hurtAsks: HurtAskJson[]; comingFirings: ComingFiringJson[] }> {
@@ -118,7 +128,7 @@ export async function remediesView(
   const hurtAsks: HurtAskJson[] = []
   for (const request of requests) {
     const money = await moneyOf(manager, request.id)
-    const currency = ((request.standingQuote ?? request.quote)?.currency ?? 'USD').toUpperCase()
+    const currency = ((request.standingQuote ?? request.quote)?.currency ?? studio.currency).toUpperCase()
     const refusal = creditRefusal({ state: request.state, creditableCents: money.net }, undefined, (c) => formatMoney(c, currency))
     hurtAsks.push({
       requestId: request.id,
@@ -136,7 +146,7 @@ export async function remediesView(
       given: given.filter((g) => g.requestId === request.id).map((g) => g.kind),
     })
   }
-  return { remedies, canMakeGood: true, hurtAsks, comingFirings: await comingFiringsOf(manager, studioId, incident.firingId) }
+  return { remedies, canMakeGood: true, hurtAsks, comingFirings: await comingFiringsOf(manager, studio.id, incident.firingId) }
 }
 
 /** The pieces named for a refire, read from their tags: each must be a piece of this ask the incident hurt. */

@@ -93,6 +93,11 @@ export interface IncidentSummaryJson {
   pieceTags: string[]
 }
 
+/** An incident in a firing's list, with what the studio did for hurt pieces as far as the viewer may see. */
+export interface FiringIncidentJson extends IncidentSummaryJson {
+  remedies: RemedyJson[]
+}
+
 export interface IncidentJson extends IncidentSummaryJson {
   studioId: string
   studioName: string

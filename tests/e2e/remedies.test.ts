@@ -150,6 +150,9 @@ describe('making good to a hurt potter', () => {
     expect(seen.overflow).toBeLessThanOrEqual(1)
     await hurt.goto(`/requests/${neighbourRequestId}`)
     await expect.poll(() => hurt.getByText(/Free refire promised for ware hurt in an incident/).count()).toBeGreaterThan(0)
+    const madeGood = hurt.getByRole('list', { name: 'Made good by the studio' })
+    await expect.poll(() => madeGood.textContent()).toContain(`Refire free: ${neighbourTag}`)
+    expect(await madeGood.textContent()).toContain(`Credit of ${formatMoney(half, 'USD')}`)
     await expect
       .poll(() => hurt.getByText(`Credit for ware hurt in an incident: ${formatMoney(half, 'USD')}`, { exact: false }).count())
       .toBeGreaterThan(0)

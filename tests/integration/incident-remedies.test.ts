@@ -198,6 +198,12 @@ describe('a free refire', () => {
     expect((await seen(neighbour)).remedies).toHaveLength(1)
     expect((await seen(counterNeighbour)).remedies).toEqual([])
     expect((await seen(potter)).remedies).toEqual([])
+    // The firing's list of incidents (on each ask's page) carries the same, as far as each may see.
+    const listed = async (person: Person) =>
+      ((await person.session.get(`/api/firings/${ids.firingId}/incidents`)).body.incidents as { remedies: unknown[] }[])[0].remedies
+    expect(await listed(neighbour)).toHaveLength(1)
+    expect(await listed(counterNeighbour)).toEqual([])
+    expect(await listed(crew)).toHaveLength(1)
     const studio = await seen(owner)
     expect(studio.remedies).toHaveLength(1)
     expect(studio.canMakeGood).toBe(true)

@@ -129,12 +129,17 @@ export function creditGivenMail(
     paragraphs: [
       to === 'potter'
         ? `Your pieces were hurt when another potter’s piece failed in ${when(r)} (${i.kindLabel.toLowerCase()}). ${r.studioName} makes good with a credit on your ask.`
-        : `You credited ${r.potterName} for pieces hurt in ${when(r)} (${i.kindLabel.toLowerCase()}). It is taken from your share of this ask.`,
+        : `You credited ${r.potterName} for pieces hurt in ${when(r)} (${i.kindLabel.toLowerCase()}).`,
       ...(to === 'potter'
         ? how
-        : credit.counterCents > 0
-          ? [`Hand ${formatMoney(credit.counterCents, credit.currency)} back at the counter and mark it on the ask.`]
-          : []),
+        : [
+            credit.onlineCents > 0
+              ? `${formatMoney(credit.onlineCents, credit.currency)} is refunded to the potter’s card and comes out of your share of this ask.`
+              : '',
+            credit.counterCents > 0
+              ? `Hand ${formatMoney(credit.counterCents, credit.currency)} back at the counter and mark it on the ask.`
+              : '',
+          ].filter(Boolean)),
       ...(i.note ? [`The studio’s note: “${i.note}”`] : []),
     ],
     details: [['Credit', formatMoney(credit.amountCents, credit.currency)]],

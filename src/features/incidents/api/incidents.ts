@@ -1,5 +1,5 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query'
-import type { ClaimJson, IncidentJson, IncidentSummaryJson, RemedyJson, StudioIncidentHistory } from '../../../../shared/api/incidents'
+import type { ClaimJson, FiringIncidentJson, IncidentJson, RemedyJson, StudioIncidentHistory } from '../../../../shared/api/incidents'
 import type { PhotoJson } from '../../../../shared/api/photos'
 import type { ClaimBody, ClaimDecisionBody, IncidentBody, RemedyBody } from '../../../../shared/schemas/incidents'
 import { api } from '../../../lib/api'
@@ -18,7 +18,7 @@ export function useIncident(id: string, awaitingPayment = false) {
 export function useFiringIncidents(firingId: string) {
   return useQuery({
     queryKey: keys.incidents.ofFiring(firingId),
-    queryFn: () => api<{ incidents: IncidentSummaryJson[] }>(`/api/firings/${firingId}/incidents`),
+    queryFn: () => api<{ incidents: FiringIncidentJson[] }>(`/api/firings/${firingId}/incidents`),
   })
 }
 
@@ -97,7 +97,7 @@ export function useMakeGood(incident: Pick<IncidentJson, 'id' | 'studioId'>) {
   return useMutation({
     mutationFn: (body: Partial<RemedyBody>) => api<RemedyJson>(`/api/incidents/${incident.id}/remedies`, { method: 'POST', body }),
     onSuccess: (remedy) => {
-      void client.invalidateQueries({ queryKey: keys.incidents.detail(incident.id) })
+      void client.invalidateQueries({ queryKey: keys.incidents.all })
       void client.invalidateQueries({ queryKey: keys.requests.detail(remedy.requestId) })
       void client.invalidateQueries({ queryKey: keys.requests.lists() })
       void client.invalidateQueries({ queryKey: keys.studios.payouts(incident.studioId) })
