@@ -10,6 +10,7 @@ import { FiringLog } from '../entities/FiringLog'
 import { FiringRequest } from '../entities/FiringRequest'
 import { Incident } from '../entities/Incident'
 import { IncidentPiece } from '../entities/IncidentPiece'
+import { IncidentRemedy } from '../entities/IncidentRemedy'
 import { Kiln } from '../entities/Kiln'
 import { LoadPlanRecord } from '../entities/LoadPlanRecord'
 import { LedgerEntry } from '../entities/LedgerEntry'
@@ -37,6 +38,7 @@ import { WarePiece } from '../entities/WarePiece'
 export const entities = [
   Incident,
   IncidentPiece,
+  IncidentRemedy,
   Claim,
   KeptCard,
   User,

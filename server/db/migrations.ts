@@ -17,6 +17,7 @@ import { ReviewsAfterPickup1796174002687 } from './migrations/1796174002687-Revi
 import { StudioPayouts1796174302372 } from './migrations/1796174302372-StudioPayouts'
 import { LoadPiecesAndPlans1796175115835 } from './migrations/1796175115835-LoadPiecesAndPlans'
 import { IncidentsAndClaims1796189313576 } from './migrations/1796189313576-IncidentsAndClaims'
+import { IncidentRemedies1796200407089 } from './migrations/1796200407089-IncidentRemedies'
 import { KeptCards1796200576439 } from './migrations/1796200576439-KeptCards'
 
 export const migrations: (new () => unknown)[] = [
@@ -37,5 +38,6 @@ export const migrations: (new () => unknown)[] = [
   StudioPayouts1796174302372,
   LoadPiecesAndPlans1796175115835,
   IncidentsAndClaims1796189313576,
+  IncidentRemedies1796200407089,
   KeptCards1796200576439,
 ]

@@ -6,6 +6,7 @@ import {
   claimDecisionSchema,
   claimPaySchema,
   incidentBodySchema,
+  remedyBodySchema,
 } from '../../shared/schemas/incidents'
 import { requireAuth, requireRole } from '../auth/guards'
 import { requireStudioMember, studioFromParam } from '../auth/studio-access'
@@ -20,6 +21,7 @@ import {
   reportIncident,
   studioIncidentHistory,
 } from '../services/incidents'
+import { makeGood } from '../services/remedies'
 import { receivePhotos } from './photos'
 
 /** An incident's photos carry no other field. */
@@ -55,6 +57,10 @@ export function incidentsRouter(ctx: AppContext) {
 
   router.post('/incidents/:id/claims', requireAuth, id, validateBody(claimBodySchema), async (req, res) => {
     res.status(201).json(await raiseClaim(ctx, req.user!, String(req.params.id), req.body))
+  })
+
+  router.post('/incidents/:id/remedies', requireAuth, id, validateBody(remedyBodySchema), async (req, res) => {
+    res.status(201).json(await makeGood(ctx, req.user!, String(req.params.id), req.body))
   })
 
   router.post('/claims/:id/accept', requireAuth, id, validateBody(claimPaySchema), async (req, res) => {

@@ -4,6 +4,7 @@
 // one door of the ask whose ware failed; potters whose pieces it hurt are told.
 import { In, type EntityManager } from 'typeorm'
 import type {
+  FiringIncidentJson,
   IncidentHistoryRow,
   IncidentJson,
   IncidentPieceJson,
@@ -37,6 +38,7 @@ import { tell } from './notices'
 import { tagFrom } from './pieces'
 import { addPhotos, photoJson, type UploadedFile } from './photos'
 import { factsOf, loadRequest } from './request-context'
+import { remediesOf, remediesView } from './remedies'
 import { requestAction } from './request-door'
 
 const observationOf = (i: Pick<Incident, 'kind' | 'crackEdge' | 'shards' | 'neighboursHit' | 'shelfDamage' | 'elementDamage'>) =>
@@ -319,11 +321,12 @@ export async function incidentJson(ctx: AppContext, user: Pick<User, 'id' | 'rol
     damageCharges: damageChargesOf(studio.policies),
     // The currency a claim on this ask is raised in (raiseClaim): the ask's quote's, else the studio's.
     claimCurrency: ((request.standingQuote ?? request.quote)?.currency ?? studio.currency).toUpperCase(),
+    ...(await remediesView(manager, incident, studio, viewer, user.id)),
   }
 }
 
 /** The incidents of a firing the person may see: all of them for its studio, their own or those that hurt their ware for a potter. */
-export async function firingIncidents(ctx: AppContext, user: Pick<User, 'id' | 'role'>, firingId: string): Promise<IncidentSummaryJson[]> {
+export async function firingIncidents(ctx: AppContext, user: Pick<User, 'id' | 'role'>, firingId: string): Promise<FiringIncidentJson[]> {
   const manager = ctx.db.manager
   const firing = await loadFiring(manager, firingId)
   const standing = await standingOnFiring(manager, firing, user)
@@ -341,7 +344,14 @@ export async function firingIncidents(ctx: AppContext, user: Pick<User, 'id' | '
     )
   }
   const incidents = await query.getMany()
-  return summariesOf(manager, incidents)
+  const summaries = await summariesOf(manager, incidents)
+  // What the studio did for hurt pieces: all of it for the studio, their own asks' for a potter.
+  const remedies = await remediesOf(
+    manager,
+    incidents.map((i) => i.id),
+    standing.side === 'potter' ? standing.own.map((r) => r.id) : undefined,
+  )
+  return summaries.map((summary) => ({ ...summary, remedies: remedies.filter((r) => r.incidentId === summary.id) }))
 }
 
 async function summariesOf(manager: EntityManager, incidents: Incident[]) {

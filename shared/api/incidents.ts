@@ -3,6 +3,7 @@
 import type { ClaimAction, ClaimStatus, DamageChargeKind, DamageCharges } from '../claims'
 import type { CrackEdge, Diagnosis, IncidentKind, IncidentPhase } from '../firing/incidents'
 import type { FiringKind } from '../firing/check'
+import type { RemedyKind } from '../remedies'
 import type { PhotoJson } from './photos'
 
 export interface IncidentPieceJson {
@@ -42,6 +43,50 @@ export interface ClaimJson {
 /** The answer to paying a claim: the checkout page to go to, or the claim paid with the kept card. */
 export type ClaimPayAnswer = { checkoutUrl: string; claim?: undefined } | { claim: ClaimJson; checkoutUrl?: undefined }
 
+/** What the studio did to make good to one potter whose pieces the incident hurt. */
+export interface RemedyJson {
+  id: string
+  incidentId: string
+  /** The hurt potter's own ask. */
+  requestId: string
+  potterName: string
+  kind: RemedyKind
+  kindLabel: string
+  /** A credit: the amount, the part refunded through Stripe and the part owed back at the counter. */
+  amountCents: number | null
+  onlineCents: number | null
+  counterCents: number | null
+  currency: string | null
+  /** A free refire: the pieces promised, and the firing named for it, if any. */
+  pieceTags: string[]
+  targetFiring: { id: string; date: string; kilnName: string } | null
+  note: string
+  at: string
+}
+
+/** One hurt potter's ask as the studio's owner sees it when making good: the pieces, the photos, the money. */
+export interface HurtAskJson {
+  requestId: string
+  potterName: string
+  pieces: { tag: string; label: string; photos: PhotoJson[] }[]
+  currency: string
+  /** Paid on the ask and not had back: the most a credit may be. */
+  creditableCents: number
+  /** Why a credit cannot be given now (the ware not yet picked up, nothing paid), or null. */
+  creditBlocked: string | null
+  /** The kinds already given for this ask on this incident (one of each). */
+  given: RemedyKind[]
+}
+
+/** A coming firing of the studio, to name for a free refire. */
+export interface ComingFiringJson {
+  id: string
+  date: string
+  kilnName: string
+  firingKind: FiringKind
+  cone: string
+}
+
 export interface IncidentSummaryJson {
   id: string
   firingId: string
@@ -51,6 +96,11 @@ export interface IncidentSummaryJson {
   reporterName: string
   at: string
   pieceTags: string[]
+}
+
+/** An incident in a firing's list, with what the studio did for hurt pieces as far as the viewer may see. */
+export interface FiringIncidentJson extends IncidentSummaryJson {
+  remedies: RemedyJson[]
 }
 
 export interface IncidentJson extends IncidentSummaryJson {
@@ -84,6 +134,14 @@ export interface IncidentJson extends IncidentSummaryJson {
   damageCharges: DamageCharges
   /** The currency of the charges and of a claim raised on this incident. */
   claimCurrency: string
+  /** What the studio did to make good: all of it for the studio and the desk, a potter's own for a potter. */
+  remedies: RemedyJson[]
+  /** The studio's owner may make good to hurt potters. */
+  canMakeGood: boolean
+  /** For the studio's owner: each hurt potter's ask. Empty for everyone else. */
+  hurtAsks: HurtAskJson[]
+  /** For the studio's owner: its coming firings, to name for a free refire. */
+  comingFirings: ComingFiringJson[]
 }
 
 /** One row of a studio's incident history: counted by kiln, firing kind and phase. */

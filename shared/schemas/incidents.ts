@@ -2,6 +2,7 @@
 import { z } from 'zod'
 import { CRACK_EDGES, INCIDENT_KINDS } from '../firing/incidents'
 import { DAMAGE_CHARGE_KINDS } from '../claims'
+import { REMEDY_KINDS } from '../remedies'
 import { text } from './text'
 
 const tag = text()
@@ -65,3 +66,29 @@ export const claimDecisionSchema = z.object({
   note: note(2000).default(''),
 })
 export type ClaimDecisionBody = z.infer<typeof claimDecisionSchema>
+
+/**
+ * The studio makes good to one potter whose pieces the incident hurt, on that potter's own ask: a
+ * credit of an amount, or a free refire of named pieces (in a coming firing it may name).
+ */
+export const remedyBodySchema = z
+  .object({
+    requestId: z.uuid({ error: 'Choose whose ask it is.' }),
+    kind: z.enum(REMEDY_KINDS, { error: 'Choose a credit or a free refire.' }),
+    amountCents: z
+      .number({ error: 'Enter an amount.' })
+      .int('Enter whole cents.')
+      .positive('Enter an amount above zero.')
+      .max(10_000_000, 'That amount is too large.')
+      .optional(),
+    tags: z.array(tag).max(100, 'At most 100 pieces.').default([]),
+    firingId: z.uuid({ error: 'Choose one of your coming firings.' }).optional(),
+    note: note(2000).default(''),
+  })
+  .superRefine((body, check) => {
+    if (body.kind === 'credit' && body.amountCents === undefined)
+      check.addIssue({ code: 'custom', path: ['amountCents'], message: 'Enter the amount to give back.' })
+    if (body.kind === 'refire' && !body.tags.length)
+      check.addIssue({ code: 'custom', path: ['tags'], message: 'Choose the pieces to refire.' })
+  })
+export type RemedyBody = z.infer<typeof remedyBodySchema>

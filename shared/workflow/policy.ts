@@ -51,6 +51,8 @@ export const SYSTEM_ACTIONS = [
   'claim',
   // A card kept at the deposit: noted when Stripe has kept it, and forgotten by the potter alone.
   'kept-card',
+  // Making good to a potter whose pieces an incident hurt (server/services/remedies.ts): the studio's owner only.
+  'remedy',
 ] as const
 export type SystemAction = (typeof SYSTEM_ACTIONS)[number]
 
@@ -75,7 +77,8 @@ const TABLE: Table = {
     studio: ['results', 'counter-payment', 'collected', 'dispute', 'message'],
     admin: [],
   },
-  collected: { potter: ['rate', 'dispute', 'message'], studio: ['rate', 'dispute', 'message'], admin: [] },
+  // A credit for ware hurt in an incident, given after pickup, may leave money owed back at the counter.
+  collected: { potter: ['rate', 'dispute', 'message'], studio: ['rate', 'dispute', 'message', 'hand-back'], admin: [] },
   disputed: { potter: ['rate', 'message'], studio: ['rate', 'message', 'hand-back'], admin: [] },
   declined: ended,
   withdrawn: ended,

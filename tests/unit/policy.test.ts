@@ -118,4 +118,12 @@ describe('the policy table', () => {
       expect(allowedActions(facts({ state, counterRefundDueCents: 100 }), 'potter')).toEqual(['message'])
     }
   })
+
+  it('lets the studio hand back counter money owed after pickup (a credit for hurt ware)', () => {
+    for (const state of ['collected'] as const) {
+      expect(allowedActions(facts({ state }), 'studio')).not.toContain('hand-back')
+      expect(allowedActions(facts({ state, counterRefundDueCents: 100 }), 'studio')).toContain('hand-back')
+      expect(allowedActions(facts({ state, counterRefundDueCents: 100 }), 'potter')).not.toContain('hand-back')
+    }
+  })
 })

@@ -107,3 +107,67 @@ export function claimDecidedMail(
     action: { label: 'See the incident', url: incidentUrl },
   }
 }
+
+/** What a mail about making good says of it. */
+export interface RemedyFacts {
+  incidentUrl: string
+  kindLabel: string
+  note: string
+}
+
+export function creditGivenMail(
+  r: RequestFacts,
+  i: RemedyFacts,
+  credit: { amountCents: number; onlineCents: number; counterCents: number; currency: string },
+  to: 'potter' | 'studio',
+): MailContent {
+  const how = [
+    credit.onlineCents > 0 ? `${formatMoney(credit.onlineCents, credit.currency)} goes back to the card you paid with.` : '',
+    credit.counterCents > 0
+      ? `${formatMoney(credit.counterCents, credit.currency)} of what you paid at the counter is handed back there: ${r.studioName} owes it to you.`
+      : '',
+  ].filter(Boolean)
+  return {
+    subject: `${r.studioName} credits ${formatMoney(credit.amountCents, credit.currency)} for your ware hurt in ${when(r)}`,
+    paragraphs: [
+      to === 'potter'
+        ? `Your pieces were hurt when another potter’s piece failed in ${when(r)} (${i.kindLabel.toLowerCase()}). ${r.studioName} makes good with a credit on your ask.`
+        : `You credited ${r.potterName} for pieces hurt in ${when(r)} (${i.kindLabel.toLowerCase()}).`,
+      ...(to === 'potter'
+        ? how
+        : [
+            credit.onlineCents > 0
+              ? `${formatMoney(credit.onlineCents, credit.currency)} is refunded to the potter’s card and comes out of your share of this ask.`
+              : '',
+            credit.counterCents > 0
+              ? `Hand ${formatMoney(credit.counterCents, credit.currency)} back at the counter and mark it on the ask.`
+              : '',
+          ].filter(Boolean)),
+      ...(i.note ? [`The studio’s note: “${i.note}”`] : []),
+    ],
+    details: [['Credit', formatMoney(credit.amountCents, credit.currency)]],
+    action: { label: 'See the incident', url: i.incidentUrl },
+  }
+}
+
+export function refirePromisedMail(
+  r: RequestFacts,
+  i: RemedyFacts,
+  refire: { tags: string[]; firing: { date: Date; kilnName: string } | null },
+  to: 'potter' | 'studio',
+): MailContent {
+  const where = refire.firing
+    ? `in the ${refire.firing.kilnName} firing of ${formatDate(refire.firing.date, r.timezone)}`
+    : 'in a coming firing'
+  return {
+    subject: `${r.studioName} will refire your hurt pieces free`,
+    paragraphs: [
+      to === 'potter'
+        ? `Your pieces were hurt when another potter’s piece failed in ${when(r)} (${i.kindLabel.toLowerCase()}). ${r.studioName} promises to refire them free ${where}.`
+        : `You promised ${r.potterName} a free refire of pieces hurt in ${when(r)}, ${where}.`,
+      ...(i.note ? [`The studio’s note: “${i.note}”`] : []),
+    ],
+    details: [['Pieces', refire.tags.join(', ')]],
+    action: { label: 'See the incident', url: i.incidentUrl },
+  }
+}

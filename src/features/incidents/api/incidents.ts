@@ -1,7 +1,14 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query'
-import type { ClaimJson, ClaimPayAnswer, IncidentJson, IncidentSummaryJson, StudioIncidentHistory } from '../../../../shared/api/incidents'
+import type {
+  ClaimJson,
+  ClaimPayAnswer,
+  FiringIncidentJson,
+  IncidentJson,
+  RemedyJson,
+  StudioIncidentHistory,
+} from '../../../../shared/api/incidents'
 import type { PhotoJson } from '../../../../shared/api/photos'
-import type { ClaimBody, ClaimDecisionBody, ClaimPayBody, IncidentBody } from '../../../../shared/schemas/incidents'
+import type { ClaimBody, ClaimDecisionBody, ClaimPayBody, IncidentBody, RemedyBody } from '../../../../shared/schemas/incidents'
 import { api } from '../../../lib/api'
 import { keys } from '../../../lib/queryKeys'
 
@@ -18,7 +25,7 @@ export function useIncident(id: string, awaitingPayment = false) {
 export function useFiringIncidents(firingId: string) {
   return useQuery({
     queryKey: keys.incidents.ofFiring(firingId),
-    queryFn: () => api<{ incidents: IncidentSummaryJson[] }>(`/api/firings/${firingId}/incidents`),
+    queryFn: () => api<{ incidents: FiringIncidentJson[] }>(`/api/firings/${firingId}/incidents`),
   })
 }
 
@@ -86,4 +93,21 @@ export function useDecideClaim() {
   return useIncidentChange('', undefined, ({ claimId, body }: { claimId: string; body: ClaimDecisionBody }) =>
     api<ClaimJson>(`/api/admin/claims/${claimId}/decide`, { method: 'POST', body }),
   )
+}
+
+/**
+ * The studio's owner makes good to one hurt potter: the incident, that potter's ask (its timeline and
+ * money), the ask lists and the studio's money page change with it.
+ */
+export function useMakeGood(incident: Pick<IncidentJson, 'id' | 'studioId'>) {
+  const client = useQueryClient()
+  return useMutation({
+    mutationFn: (body: Partial<RemedyBody>) => api<RemedyJson>(`/api/incidents/${incident.id}/remedies`, { method: 'POST', body }),
+    onSuccess: (remedy) => {
+      void client.invalidateQueries({ queryKey: keys.incidents.all })
+      void client.invalidateQueries({ queryKey: keys.requests.detail(remedy.requestId) })
+      void client.invalidateQueries({ queryKey: keys.requests.lists() })
+      void client.invalidateQueries({ queryKey: keys.studios.payouts(incident.studioId) })
+    },
+  })
 }

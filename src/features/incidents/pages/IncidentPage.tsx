@@ -16,6 +16,7 @@ import { Field, Select, TextArea, TextInput } from '../../../components/ui/Field
 import { Spinner } from '../../../components/ui/Spinner'
 import { ApiError } from '../../../lib/api'
 import { useContestClaim, useIncident, usePayClaim, useRaiseClaim } from '../api/incidents'
+import { MakeGood } from '../components/MakeGood'
 
 const CONFIDENCE_WORDS: Record<DiagnosisConfidence, string> = {
   high: 'Fairly sure: the firing’s log speaks for it',
@@ -284,7 +285,7 @@ function RaiseClaim({ incident }: { incident: IncidentJson }) {
   )
 }
 
-/** One incident: the facts and photos, the likely phase with its evidence and advice, and the damage claims. */
+/** One incident: the facts and photos, the likely phase with its evidence and advice, the damage claims, and making good to hurt potters. */
 export function IncidentPage() {
   const { id = '' } = useParams()
   const [params] = useSearchParams()
@@ -326,6 +327,7 @@ export function IncidentPage() {
             {data.canClaim && <RaiseClaim incident={data} />}
           </Card>
         )}
+        <MakeGood incident={data} />
       </div>
     </>
   )

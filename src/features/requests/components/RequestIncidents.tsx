@@ -1,14 +1,23 @@
 import { useQuery } from '@tanstack/react-query'
 import { Link } from 'react-router-dom'
-import type { IncidentSummaryJson, PotterIncidentRecord } from '../../../../shared/api/incidents'
+import type { FiringIncidentJson, PotterIncidentRecord, RemedyJson } from '../../../../shared/api/incidents'
 import type { RequestView } from '../../../../shared/api/requests'
-import { formatDate } from '../../../../shared/dates'
+import { formatDate, formatMoney } from '../../../../shared/dates'
 import { Card } from '../../../components/ui/Card'
 import { api } from '../../../lib/api'
 import { requestKeys } from '../api/keys'
 
 /** States in which the ware has been fired, so something may have gone wrong with it. */
 const FIRED_STATES: readonly RequestView['state'][] = ['fired', 'ready', 'collected', 'disputed']
+
+/** What the studio did for this ask's hurt pieces, in a line. */
+function remedyWords(remedy: RemedyJson, timezone: string): string {
+  if (remedy.kind === 'credit') return `Credit of ${formatMoney(remedy.amountCents ?? 0, remedy.currency ?? 'USD')}`
+  const where = remedy.targetFiring
+    ? ` in the ${remedy.targetFiring.kilnName} firing of ${formatDate(remedy.targetFiring.date, timezone)}`
+    : ''
+  return `Refire free: ${remedy.pieceTags.join(', ')}${where}`
+}
 
 /**
  * What went wrong in this firing as far as this ask goes: the incidents the viewer may see, and for a
@@ -18,7 +27,7 @@ export function RequestIncidents({ view }: { view: RequestView }) {
   const fired = FIRED_STATES.includes(view.state)
   const incidents = useQuery({
     queryKey: requestKeys.incidents.ofFiring(view.firing.id),
-    queryFn: () => api<{ incidents: IncidentSummaryJson[] }>(`/api/firings/${view.firing.id}/incidents`),
+    queryFn: () => api<{ incidents: FiringIncidentJson[] }>(`/api/firings/${view.firing.id}/incidents`),
     enabled: fired,
   })
   if (!fired) return null
@@ -34,6 +43,15 @@ export function RequestIncidents({ view }: { view: RequestView }) {
                 {incident.kindLabel}
               </Link>{' '}
               reported {formatDate(incident.at, view.studio.timezone)}
+              {incident.remedies.some((r) => r.requestId === view.id) && (
+                <ul className="mt-1 list-disc pl-5 text-slip-800" aria-label="Made good by the studio">
+                  {incident.remedies
+                    .filter((r) => r.requestId === view.id)
+                    .map((remedy) => (
+                      <li key={remedy.id}>{remedyWords(remedy, view.studio.timezone)}</li>
+                    ))}
+                </ul>
+              )}
             </li>
           ))}
         </ul>
