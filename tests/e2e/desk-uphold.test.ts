@@ -5,10 +5,10 @@
 import type { Browser, BrowserContext } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { DEFAULT_POLICIES } from '../../shared/schemas/studios'
-import { launchBrowser, openPage } from '../support/browser'
+import { launchBrowser, openPage, signIn } from '../support/browser'
 import { CARD_SUCCEEDS } from '../support/checkout'
 import { checkInAll, fireThrough } from '../support/money'
-import { createPerson, PERSON_PASSWORD, type Person } from '../support/people'
+import { createPerson, type Person } from '../support/people'
 import { mug, sendAndPayDeposit } from '../support/request-fixtures'
 import { publishedStudio } from '../support/studio-fixtures'
 import { startTestApp, type TestApp } from '../support/test-app'
@@ -66,11 +66,7 @@ afterAll(async () => {
 async function signedInPage(person: Person) {
   const opened = await openPage(browser, app.url)
   contexts.push(opened.context)
-  await opened.page.goto('/sign-in')
-  await opened.page.getByLabel('E-mail').fill(person.email)
-  await opened.page.getByLabel('Password').fill(PERSON_PASSWORD)
-  await opened.page.getByRole('button', { name: 'Sign in' }).click()
-  await opened.page.waitForURL((url) => !url.pathname.startsWith('/sign-in'))
+  await signIn(opened.page, person.email)
   return opened
 }
 

@@ -9,7 +9,7 @@ import { REQUEST_STATE_LABELS } from '../../shared/workflow/request-states'
 import { launchBrowser, openPage } from '../support/browser'
 import { DISPUTE_REASON, disputedRequest } from '../support/dispute-fixture'
 import { HttpSession } from '../support/http-client'
-import { seriousViolations, settled, sidewaysOverflow } from '../support/readability'
+import { readableAtBothWidths, settled } from '../support/readability'
 import { startTestApp, type TestApp } from '../support/test-app'
 
 const POTTER = 'wren.alvarado@demo.conewright.test'
@@ -56,18 +56,6 @@ afterAll(async () => {
 })
 
 /** axe at the desk's width and a phone's, and how far the phone view scrolls sideways. */
-async function readable() {
-  await page.setViewportSize({ width: 1280, height: 900 })
-  await settled(page)
-  const wide = await seriousViolations(page)
-  await page.setViewportSize({ width: 390, height: 844 })
-  await settled(page)
-  const narrow = await seriousViolations(page)
-  const overflow = await sidewaysOverflow(page)
-  await page.setViewportSize({ width: 1280, height: 900 })
-  return { problems: [...new Set([...wide, ...narrow])], overflow }
-}
-
 async function search(field: string, words: string) {
   await page.getByLabel(field).fill(words)
   await page.getByLabel(field).press('Enter')
@@ -83,7 +71,7 @@ describe('the front desk', () => {
       await settled(page)
       await page.getByRole('tab', { name: 'Studios' }).click()
       await page.getByTestId('desk-studio').first().waitFor()
-      expect(await readable()).toEqual({ problems: [], overflow: 0 })
+      expect(await readableAtBothWidths(page)).toEqual({ problems: [], overflow: 0 })
       await search('Name, town or owner', 'Okafor')
       await expect
         .poll(() => page.getByTestId('desk-studio').evaluateAll((rows) => rows.map((r) => r.getAttribute('data-studio-id'))))
@@ -120,7 +108,7 @@ describe('the front desk', () => {
 
       await search('Name or e-mail', '')
       await expect.poll(() => page.getByTestId('desk-account').count()).toBeGreaterThan(1)
-      expect(await readable()).toEqual({ problems: [], overflow: 0 })
+      expect(await readableAtBothWidths(page)).toEqual({ problems: [], overflow: 0 })
     },
     CEILING,
   )
@@ -148,7 +136,7 @@ describe('the front desk', () => {
       await expect.poll(() => photos.count()).toBe(3)
       for (const alt of await photos.evaluateAll((imgs) => imgs.map((img) => img.getAttribute('alt') ?? '')))
         expect(alt.trim()).not.toBe('')
-      expect(await readable()).toEqual({ problems: [], overflow: 0 })
+      expect(await readableAtBothWidths(page)).toEqual({ problems: [], overflow: 0 })
       expect(errors).toEqual([])
     },
     CEILING,

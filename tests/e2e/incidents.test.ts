@@ -9,9 +9,9 @@ import { CARD_SUCCEEDS } from '../support/checkout'
 import { clayPhoto } from '../support/dispute-fixture'
 import type { HttpSession } from '../support/http-client'
 import { checkInAll, fireThrough } from '../support/money'
-import { createPerson, PERSON_PASSWORD, type Person } from '../support/people'
-import { seriousViolations, settled, sidewaysOverflow } from '../support/readability'
-import { launchBrowser, openPage } from '../support/browser'
+import { createPerson, type Person } from '../support/people'
+import { readableAtBothWidths } from '../support/readability'
+import { launchBrowser, openPage, signIn } from '../support/browser'
 import { mug, sendAndPayDeposit } from '../support/request-fixtures'
 import { publishedStudio } from '../support/studio-fixtures'
 import { startTestApp, type TestApp } from '../support/test-app'
@@ -88,24 +88,8 @@ afterAll(async () => {
 async function signedInPage(person: Person) {
   const opened = await openPage(browser, app.url)
   contexts.push(opened.context)
-  await opened.page.goto('/sign-in')
-  await opened.page.getByLabel('E-mail').fill(person.email)
-  await opened.page.getByLabel('Password').fill(PERSON_PASSWORD)
-  await opened.page.getByRole('button', { name: 'Sign in' }).click()
-  await opened.page.waitForURL((url) => !url.pathname.startsWith('/sign-in'))
+  await signIn(opened.page, person.email)
   return opened.page
-}
-
-/** axe at a desk's width and a phone's, and how far the phone view scrolls sideways. */
-async function readable(page: Page) {
-  await settled(page)
-  const wide = await seriousViolations(page)
-  await page.setViewportSize({ width: 390, height: 844 })
-  await settled(page)
-  const narrow = await seriousViolations(page)
-  const overflow = await sidewaysOverflow(page)
-  await page.setViewportSize({ width: 1280, height: 900 })
-  return { problems: [...new Set([...wide, ...narrow])], overflow }
 }
 
 /** The studio reports an incident from the firing, with a photo; resolves on the incident's page. */
@@ -143,7 +127,7 @@ describe('incidents and who pays', () => {
     expect(await diagnosis.textContent()).toMatch(/The log climbed faster than planned here: Water smoking: climbed at up to 400 °C\/h/)
     await expect.poll(() => studio.getByRole('img').count()).toBeGreaterThan(0)
     await claim(studio, 'Kiln cleaning after a blowout', '45')
-    const { problems, overflow } = await readable(studio)
+    const { problems, overflow } = await readableAtBothWidths(studio)
     expect(problems).toEqual([])
     expect(overflow).toBeLessThanOrEqual(1)
 
@@ -201,7 +185,7 @@ describe('incidents and who pays', () => {
     const desk = await signedInPage(admin)
     await desk.goto('/front-desk/claims')
     await expect.poll(() => desk.getByText('The kiln was opened hot').count()).toBe(1)
-    const { problems, overflow } = await readable(desk)
+    const { problems, overflow } = await readableAtBothWidths(desk)
     expect(problems).toEqual([])
     expect(overflow).toBeLessThanOrEqual(1)
     await desk.getByLabel('The desk’s note to both sides').fill('The log shows the kiln opened hot: the studio’s cool, not the clay.')
@@ -218,7 +202,7 @@ describe('incidents and who pays', () => {
     const studio = await signedInPage(owner)
     await studio.goto(`/firings/${firingId}/incidents/new`)
     await studio.getByLabel('What happened').selectOption('crack')
-    const form = await readable(studio)
+    const form = await readableAtBothWidths(studio)
     expect(form.problems).toEqual([])
     expect(form.overflow).toBeLessThanOrEqual(1)
     const [{ studio_id }] = await app.ctx.db.query(`SELECT k.studio_id FROM firings f JOIN kilns k ON k.id = f.kiln_id WHERE f.id = $1`, [
@@ -226,7 +210,7 @@ describe('incidents and who pays', () => {
     ])
     await studio.goto(`/studios/${studio_id}/incidents`)
     await expect.poll(() => studio.getByRole('table').count()).toBe(1)
-    const history = await readable(studio)
+    const history = await readableAtBothWidths(studio)
     expect(history.problems).toEqual([])
     expect(history.overflow).toBeLessThanOrEqual(1)
   })

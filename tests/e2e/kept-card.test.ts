@@ -6,9 +6,9 @@ import type { Browser, BrowserContext, Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { CARD_SUCCEEDS } from '../support/checkout'
 import { checkInAll } from '../support/money'
-import { createPerson, PERSON_PASSWORD, type Person } from '../support/people'
-import { seriousViolations, settled, sidewaysOverflow } from '../support/readability'
-import { launchBrowser, openPage } from '../support/browser'
+import { createPerson, type Person } from '../support/people'
+import { readableAtBothWidths } from '../support/readability'
+import { launchBrowser, openPage, signIn } from '../support/browser'
 import { draftAndSend, mug } from '../support/request-fixtures'
 import { publishedStudio } from '../support/studio-fixtures'
 import { startTestApp, type TestApp } from '../support/test-app'
@@ -42,24 +42,8 @@ afterAll(async () => {
 async function signedInPage(person: Person) {
   const opened = await openPage(browser, app.url)
   contexts.push(opened.context)
-  await opened.page.goto('/sign-in')
-  await opened.page.getByLabel('E-mail').fill(person.email)
-  await opened.page.getByLabel('Password').fill(PERSON_PASSWORD)
-  await opened.page.getByRole('button', { name: 'Sign in' }).click()
-  await opened.page.waitForURL((url) => !url.pathname.startsWith('/sign-in'))
+  await signIn(opened.page, person.email)
   return opened.page
-}
-
-/** axe at a desk's width and a phone's, and how far the phone view scrolls sideways. */
-async function readable(page: Page) {
-  await settled(page)
-  const wide = await seriousViolations(page)
-  await page.setViewportSize({ width: 390, height: 844 })
-  await settled(page)
-  const narrow = await seriousViolations(page)
-  const overflow = await sidewaysOverflow(page)
-  await page.setViewportSize({ width: 1280, height: 900 })
-  return { problems: [...new Set([...wide, ...narrow])], overflow }
 }
 
 async function payOnHostedPage(page: Page) {
@@ -83,7 +67,7 @@ describe('a card kept at the deposit', () => {
     await payOnHostedPage(page)
     await page.waitForURL((url) => url.pathname === askPath)
     await expect.poll(() => page.getByTestId('kept-card').textContent(), { timeout: 60_000 }).toContain('Visa ending 4242')
-    const askReadable = await readable(page)
+    const askReadable = await readableAtBothWidths(page)
     expect(askReadable.problems).toEqual([])
     expect(askReadable.overflow).toBeLessThanOrEqual(1)
 
@@ -109,7 +93,7 @@ describe('a card kept at the deposit', () => {
     await dialog.getByRole('button', { name: 'Pay with Visa ending 4242' }).click()
     await expect.poll(() => page.getByTestId('claim').textContent()).toContain('Paid')
     expect(await page.getByRole('button', { name: /Pay on a checkout page/ }).count()).toBe(0)
-    const incidentReadable = await readable(page)
+    const incidentReadable = await readableAtBothWidths(page)
     expect(incidentReadable.problems).toEqual([])
     expect(incidentReadable.overflow).toBeLessThanOrEqual(1)
 

@@ -6,9 +6,9 @@
 import type { Browser, BrowserContext, Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { TAG_PATTERN } from '../../shared/firing/tags'
-import { launchBrowser, openPage } from '../support/browser'
+import { launchBrowser, openPage, signIn } from '../support/browser'
 import { CARD_SUCCEEDS, submitCard } from '../support/checkout'
-import { createPerson, PERSON_PASSWORD, type Person } from '../support/people'
+import { createPerson, type Person } from '../support/people'
 import { seriousViolations, sidewaysOverflow } from '../support/readability'
 import { draftAndSend, mug } from '../support/request-fixtures'
 import { electricKiln, firingBody, volumePriceList } from '../support/studio-fixtures'
@@ -74,11 +74,7 @@ afterAll(async () => {
 async function signedInPage(email: string, home: string, viewport = { width: 1280, height: 900 }) {
   const opened = await openPage(browser, app.url, { viewport })
   contexts.push(opened.context)
-  await opened.page.goto('/sign-in')
-  await opened.page.getByLabel('E-mail').fill(email)
-  await opened.page.getByLabel('Password').fill(PERSON_PASSWORD)
-  await opened.page.getByRole('button', { name: 'Sign in' }).click()
-  await opened.page.waitForURL(`**${home}`)
+  await signIn(opened.page, email, home)
   return opened
 }
 

@@ -5,10 +5,10 @@
 // fee; a desk refund after the transfer shows the part taken back. A crew member is shown none of it.
 import type { Browser, BrowserContext, Locator, Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { launchBrowser, openPage } from '../support/browser'
+import { launchBrowser, openPage, signIn } from '../support/browser'
 import { CARD_SUCCEEDS } from '../support/checkout'
 import { checkInAll, fireThrough, moneyQuiet, resultsAndReady } from '../support/money'
-import { createPerson, PERSON_PASSWORD, type Person } from '../support/people'
+import { createPerson, type Person } from '../support/people'
 import { draftAndSend, mug } from '../support/request-fixtures'
 import { publishedStudio } from '../support/studio-fixtures'
 import { startTestApp, type TestApp } from '../support/test-app'
@@ -73,11 +73,7 @@ afterAll(async () => {
 async function signedInPage(email: string, home: string) {
   const opened = await openPage(browser, app.url)
   contexts.push(opened.context)
-  await opened.page.goto('/sign-in')
-  await opened.page.getByLabel('E-mail').fill(email)
-  await opened.page.getByLabel('Password').fill(PERSON_PASSWORD)
-  await opened.page.getByRole('button', { name: 'Sign in' }).click()
-  await opened.page.waitForURL(`**${home}`)
+  await signIn(opened.page, email, home)
   return opened
 }
 

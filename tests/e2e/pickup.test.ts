@@ -9,10 +9,10 @@
 import type { Browser, BrowserContext, Locator, Page } from 'playwright-core'
 import sharp from 'sharp'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { launchBrowser, openPage } from '../support/browser'
+import { launchBrowser, openPage, signIn } from '../support/browser'
 import { CARD_SUCCEEDS, submitCard } from '../support/checkout'
 import { waitForMail } from '../support/mailbox'
-import { createPerson, PERSON_PASSWORD, type Person } from '../support/people'
+import { createPerson, type Person } from '../support/people'
 import { draftAndSend, mug } from '../support/request-fixtures'
 import { firingBody, publishedStudio } from '../support/studio-fixtures'
 import { startTestApp, type TestApp } from '../support/test-app'
@@ -96,11 +96,7 @@ async function newPage(viewport = { width: 1280, height: 900 }) {
 
 async function signedInPage(email: string, home: string) {
   const opened = await newPage()
-  await opened.page.goto('/sign-in')
-  await opened.page.getByLabel('E-mail').fill(email)
-  await opened.page.getByLabel('Password').fill(PERSON_PASSWORD)
-  await opened.page.getByRole('button', { name: 'Sign in' }).click()
-  await opened.page.waitForURL(`**${home}`)
+  await signIn(opened.page, email, home)
   return opened
 }
 

@@ -3,14 +3,14 @@
 // then, once the neighbour has picked up and paid, gives a credit that is refused over what was paid
 // and given at a lower amount; the neighbour sees what the studio did on the incident page and on the
 // ask's timeline. The section passes axe and fits a phone.
-import type { Browser, BrowserContext, Page } from 'playwright-core'
+import type { Browser, BrowserContext } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { formatMoney } from '../../shared/dates'
-import { launchBrowser, openPage } from '../support/browser'
+import { launchBrowser, openPage, signIn } from '../support/browser'
 import type { HttpSession } from '../support/http-client'
 import { checkInAll, fireThrough, moneyQuiet, payBalanceOnline, resultsAndReady } from '../support/money'
-import { createPerson, PERSON_PASSWORD, type Person } from '../support/people'
-import { seriousViolations, settled, sidewaysOverflow } from '../support/readability'
+import { createPerson, type Person } from '../support/people'
+import { readableAtBothWidths } from '../support/readability'
 import { mug, sendAndPayDeposit } from '../support/request-fixtures'
 import { firingBody, publishedStudio } from '../support/studio-fixtures'
 import { startTestApp, type TestApp } from '../support/test-app'
@@ -73,24 +73,8 @@ afterAll(async () => {
 async function signedInPage(person: Person) {
   const opened = await openPage(browser, app.url)
   contexts.push(opened.context)
-  await opened.page.goto('/sign-in')
-  await opened.page.getByLabel('E-mail').fill(person.email)
-  await opened.page.getByLabel('Password').fill(PERSON_PASSWORD)
-  await opened.page.getByRole('button', { name: 'Sign in' }).click()
-  await opened.page.waitForURL((url) => !url.pathname.startsWith('/sign-in'))
+  await signIn(opened.page, person.email)
   return opened.page
-}
-
-/** axe at a desk's width and a phone's, and how far the phone view scrolls sideways. */
-async function readable(page: Page) {
-  await settled(page)
-  const wide = await seriousViolations(page)
-  await page.setViewportSize({ width: 390, height: 844 })
-  await settled(page)
-  const narrow = await seriousViolations(page)
-  const overflow = await sidewaysOverflow(page)
-  await page.setViewportSize({ width: 1280, height: 900 })
-  return { problems: [...new Set([...wide, ...narrow])], overflow }
 }
 
 describe('making good to a hurt potter', () => {
@@ -114,7 +98,7 @@ describe('making good to a hurt potter', () => {
     await form.getByRole('button', { name: 'Promise the refire' }).click()
     await expect.poll(() => studio.getByTestId('remedy').count()).toBe(1)
     expect(await studio.getByTestId('remedy').textContent()).toContain(neighbourTag)
-    const { problems, overflow } = await readable(studio)
+    const { problems, overflow } = await readableAtBothWidths(studio)
     expect(problems).toEqual([])
     expect(overflow).toBeLessThanOrEqual(1)
 
@@ -145,7 +129,7 @@ describe('making good to a hurt potter', () => {
     await hurt.goto(incidentPath)
     await expect.poll(() => hurt.getByRole('heading', { name: 'What the studio did for your pieces' }).count()).toBe(1)
     await expect.poll(() => hurt.getByTestId('remedy').count()).toBe(2)
-    const seen = await readable(hurt)
+    const seen = await readableAtBothWidths(hurt)
     expect(seen.problems).toEqual([])
     expect(seen.overflow).toBeLessThanOrEqual(1)
     await hurt.goto(`/requests/${neighbourRequestId}`)

@@ -2,6 +2,7 @@ import { existsSync } from 'node:fs'
 import path from 'node:path'
 import { chromium, type Browser, type BrowserContext, type BrowserContextOptions, type Page } from 'playwright-core'
 import { repoRoot } from '../../server/config'
+import { PERSON_PASSWORD } from './people'
 
 /** Debian's Chromium, headless, with everything that would reach the network switched off. */
 export async function launchBrowser(): Promise<Browser> {
@@ -72,4 +73,13 @@ export async function openPage(
   const page = await context.newPage()
   page.setDefaultTimeout(60_000)
   return { page, errors: watchPageErrors(page), context }
+}
+
+/** Signs in through the sign-in form as a person would; resolves once the app has left it (for `home` when given). */
+export async function signIn(page: Page, email: string, home?: string) {
+  await page.goto('/sign-in')
+  await page.getByLabel('E-mail').fill(email)
+  await page.getByLabel('Password').fill(PERSON_PASSWORD)
+  await page.getByRole('button', { name: 'Sign in' }).click()
+  await (home ? page.waitForURL(`**${home}`) : page.waitForURL((url) => !url.pathname.startsWith('/sign-in')))
 }

@@ -41,3 +41,16 @@ export async function settled(page: Page) {
   await page.locator('main h1').first().waitFor()
   await expect.poll(() => page.locator('main .animate-spin, main [aria-busy="true"]').count()).toBe(0)
 }
+
+/** axe at a desk's width and at a phone's, and how far the phone view scrolls sideways; the page is left at the desk's width. */
+export async function readableAtBothWidths(page: Page) {
+  await page.setViewportSize({ width: 1280, height: 900 })
+  await settled(page)
+  const wide = await seriousViolations(page)
+  await page.setViewportSize({ width: 390, height: 844 })
+  await settled(page)
+  const narrow = await seriousViolations(page)
+  const overflow = await sidewaysOverflow(page)
+  await page.setViewportSize({ width: 1280, height: 900 })
+  return { problems: [...new Set([...wide, ...narrow])], overflow }
+}
