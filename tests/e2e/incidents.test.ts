@@ -171,7 +171,9 @@ describe('incidents and who pays', () => {
     // Common practice: a sharp crack through glaze and body opened on cooling; fast through 260–150 °C, at cristobalite.
     await expect.poll(() => diagnosis.textContent()).toContain('Cristobalite inversion on cooling')
     expect(await diagnosis.textContent()).toMatch(/cooled faster than planned/)
-    await claim(studio, 'Shelf ground clean', '20')
+    // Typed with a decimal comma, as many people write money.
+    await claim(studio, 'Shelf ground clean', '20,00')
+    await expect.poll(() => studio.getByTestId('claim').textContent()).toContain('Shelf ground clean: $20.00')
 
     const potterPage = await signedInPage(neighbour)
     await potterPage.goto(path)

@@ -72,7 +72,8 @@ function useIncidentChange<T, V>(incidentId: string, requestId: string | undefin
 }
 
 export function useRaiseClaim(incident: Pick<IncidentJson, 'id' | 'requestId'>) {
-  return useIncidentChange(incident.id, incident.requestId, (body: ClaimBody) =>
+  // An amount the form could not read is left out, and the server names it by the field.
+  return useIncidentChange(incident.id, incident.requestId, (body: Omit<ClaimBody, 'amountCents'> & { amountCents?: number }) =>
     api<ClaimJson>(`/api/incidents/${incident.id}/claims`, { method: 'POST', body }),
   )
 }

@@ -15,6 +15,7 @@ import { ConfirmDialog } from '../../../components/ui/ConfirmDialog'
 import { Field, Select, TextArea, TextInput } from '../../../components/ui/Field'
 import { Spinner } from '../../../components/ui/Spinner'
 import { ApiError } from '../../../lib/api'
+import { moneyMeasure, parseShown } from '../../../lib/units'
 import { useContestClaim, useIncident, usePayClaim, useRaiseClaim } from '../api/incidents'
 import { MakeGood } from '../components/MakeGood'
 
@@ -243,8 +244,11 @@ function RaiseClaim({ incident }: { incident: IncidentJson }) {
       aria-label="Claim a damage charge"
       onSubmit={(event) => {
         event.preventDefault()
+        // Typed as the currency is written ("45", "45.50", "45,50"); a blank or unreadable amount is left out for the server to name.
+        const shown = parseShown(amount)
+        const amountCents = shown === undefined || Number.isNaN(shown) ? undefined : moneyMeasure(currency).fromShown(shown)
         raise.mutate(
-          { chargeKind: kind, amountCents: Math.round(Number(amount) * 100), note },
+          { chargeKind: kind, amountCents, note },
           {
             onSuccess: () => {
               setAmount('')
