@@ -17,7 +17,6 @@ import {
 import { formatMoney } from '../../shared/dates'
 import { earnsPayout } from '../../shared/payouts'
 import type { ClaimBody, ClaimDecisionBody, ClaimPayBody } from '../../shared/schemas/incidents'
-import { cardLabel } from '../../shared/payments'
 import type { AppContext } from '../context'
 import { Claim } from '../entities/Claim'
 import { LedgerEntry } from '../entities/LedgerEntry'
@@ -27,7 +26,7 @@ import { badRequest, conflict, forbidden, notFound } from '../http/errors'
 import { isUuid } from '../http/validate'
 import { claimContestedMail, claimDecidedMail, claimPaidMail, claimRaisedMail, type ClaimFacts } from '../mail/templates/incidents'
 import { loadIncident } from './incident-access'
-import { keptCardOf, keptCardRefusal } from './kept-cards'
+import { keptCardLabel, keptCardOf, keptCardRefusal, type CardOnFile } from './kept-cards'
 import { openCheckout } from './payments'
 import { transferGroupOf } from './payouts'
 import { stripeFor } from './stripe'
@@ -82,16 +81,16 @@ async function namesOfClaimRequest(manager: EntityManager, requestId: string) {
   return row
 }
 
-async function keptCardLabel(manager: EntityManager, requestId: string) {
+async function keptCardNameOf(manager: EntityManager, requestId: string) {
   const kept = await keptCardOf(manager, requestId)
-  return kept && cardLabel(kept.brand, kept.last4)
+  return kept && keptCardLabel(kept)
 }
 
 export async function claimsOfIncident(manager: EntityManager, incidentId: string, side: 'potter' | 'studio' | 'admin') {
   const claims = await manager.getRepository(Claim).find({ where: { incidentId }, order: { createdAt: 'ASC' } })
   if (!claims.length) return []
   const names = await namesOfClaimRequest(manager, claims[0].requestId)
-  const kept = side === 'potter' ? await keptCardLabel(manager, claims[0].requestId) : null
+  const kept = side === 'potter' ? await keptCardNameOf(manager, claims[0].requestId) : null
   return claims.map((c) => claimJson(c, names, side, kept))
 }
 
@@ -132,7 +131,7 @@ export async function raiseClaim(ctx: AppContext, user: User, incidentId: string
         factsOf(step.rc, ctx.config.publicUrl),
         claimFacts(claim),
         incidentUrl(ctx, claim),
-        await keptCardLabel(step.manager, claim.requestId),
+        await keptCardNameOf(step.manager, claim.requestId),
       ),
     )
     return claimJson(claim, { potter: step.rc.potter.displayName, studio: step.rc.studio.name }, 'studio')
@@ -204,11 +203,8 @@ export async function acceptClaim(ctx: AppContext, user: User, claimId: string, 
  * Charges the kept card off-session. The key counts declined tries, so a retry of one try (a double
  * click, a lost answer) is the same payment at Stripe, and a try after a decline is a new one.
  */
-async function payWithKeptCard(
-  ctx: AppContext,
-  claim: Claim,
-  card: { stripeCustomerId: string; stripePaymentMethodId: string | null; brand: string | null; last4: string | null },
-): Promise<ClaimJson> {
+async function payWithKeptCard(ctx: AppContext, claim: Claim, card: CardOnFile): Promise<ClaimJson> {
+  const label = keptCardLabel(card)
   // `paidWith` tells the webhook this payment has no checkout page to book it (see payments.ts).
   const metadata = { requestId: claim.requestId, purpose: 'claim', claimId: claim.id, paidWith: 'kept-card' }
   let intent: Stripe.PaymentIntent
@@ -218,7 +214,7 @@ async function payWithKeptCard(
         amount: claim.amountCents,
         currency: claim.currency.toLowerCase(),
         customer: card.stripeCustomerId,
-        payment_method: card.stripePaymentMethodId!,
+        payment_method: card.stripePaymentMethodId,
         off_session: true,
         confirm: true,
         description: `Damage claim: ${DAMAGE_CHARGE_LABELS[claim.chargeKind]}`,
@@ -231,14 +227,14 @@ async function payWithKeptCard(
     if (!(error instanceof Stripe.errors.StripeCardError)) throw error
     await requestAction(ctx, null, claim.requestId, 'claim', async (step) => {
       await step.manager.increment(Claim, { id: claim.id, cardTries: claim.cardTries }, 'cardTries', 1)
-      await step.note(`The kept card (${cardLabel(card.brand, card.last4)}) was declined for the damage claim: ${error.message}`, {
+      await step.note(`The kept card (${label}) was declined for the damage claim: ${error.message}`, {
         claimId: claim.id,
       })
     })
     throw keptCardRefusal(error)
   }
   await requestAction(ctx, null, claim.requestId, 'claim', (step) =>
-    bookClaimPaid(step, claim.id, { sessionId: null, paymentIntentId: intent.id, card: cardLabel(card.brand, card.last4) }),
+    bookClaimPaid(step, claim.id, { sessionId: null, paymentIntentId: intent.id, card: label }),
   )
   const paid = await ctx.db.getRepository(Claim).findOneByOrFail({ id: claim.id })
   return claimJson(paid, await namesOfClaimRequest(ctx.db.manager, paid.requestId), 'potter')

@@ -16,6 +16,12 @@ import { stripeFor } from './stripe'
 
 export const KEEP_CARD_TASK = 'keep-card'
 
+/** A kept card that can be charged: Stripe has attached it and the potter has not forgotten it. */
+export type CardOnFile = KeptCard & { stripePaymentMethodId: string; keptAt: Date }
+
+/** The card as people name it: "Visa ending 4242". */
+export const keptCardLabel = (card: Pick<KeptCard, 'brand' | 'last4'>) => cardLabel(card.brand, card.last4)
+
 /** The potter's Stripe Customer: the one an earlier kept card made, or a new one. */
 export async function customerFor(ctx: AppContext, potter: Pick<User, 'id' | 'email' | 'displayName'>): Promise<string> {
   const earlier = await ctx.db.getRepository(KeptCard).findOne({ where: { userId: potter.id }, order: { agreedAt: 'DESC' } })
@@ -63,34 +69,27 @@ export async function keepCard(ctx: AppContext, payload: { requestId: string; pa
     ctx.log.warn(`deposit ${payload.paymentIntentId} for ${payload.requestId} was not kept on the potter's Customer; no card kept`)
     return
   }
-  const method = await stripe.paymentMethods.retrieve(methodId)
+  const { card } = await stripe.paymentMethods.retrieve(methodId)
+  const named = { brand: card?.brand ?? null, last4: card?.last4 ?? null }
   await requestAction(ctx, null, payload.requestId, 'kept-card', async (step) => {
     const { affected } = await step.manager.update(
       KeptCard,
       { requestId: payload.requestId, stripePaymentMethodId: IsNull(), forgottenAt: IsNull() },
-      { stripePaymentMethodId: methodId, brand: method.card?.brand ?? null, last4: method.card?.last4 ?? null, keptAt: new Date() },
+      { stripePaymentMethodId: methodId, ...named, keptAt: new Date() },
     )
-    if (!affected) return
-    await step.note(
-      `The potter’s card (${cardLabel(method.card?.brand ?? null, method.card?.last4 ?? null)}) is kept for damage claims they accept`,
-    )
+    if (affected) await step.note(`The potter’s card (${keptCardLabel(named)}) is kept for damage claims they accept`)
   })
 }
 
 /** The card kept for an ask, as the potter sees it; null when there is none or it was forgotten. */
-export async function keptCardOf(manager: EntityManager, requestId: string): Promise<KeptCard | null> {
+export async function keptCardOf(manager: EntityManager, requestId: string): Promise<CardOnFile | null> {
   const row = await manager.getRepository(KeptCard).findOneBy({ requestId })
-  return row?.stripePaymentMethodId && !row.forgottenAt ? row : null
+  return row?.stripePaymentMethodId && row.keptAt && !row.forgottenAt ? (row as CardOnFile) : null
 }
-
-export const keptCardJson = (row: KeptCard): KeptCardJson => ({
-  label: cardLabel(row.brand, row.last4),
-  keptAt: row.keptAt!.toISOString(),
-})
 
 export async function keptCardView(manager: EntityManager, requestId: string): Promise<KeptCardJson | null> {
   const row = await keptCardOf(manager, requestId)
-  return row ? keptCardJson(row) : null
+  return row && { label: keptCardLabel(row), keptAt: row.keptAt.toISOString() }
 }
 
 /** The potter forgets the card: detached from their Customer at Stripe, and never charged again. */
@@ -100,12 +99,12 @@ export async function forgetKeptCard(ctx: AppContext, potter: User, requestId: s
     const kept = await keptCardOf(step.manager, requestId)
     if (!kept) throw conflict('No card is kept for this ask.', 'no-kept-card')
     await step.manager.update(KeptCard, { requestId }, { forgottenAt: new Date() })
-    await step.note(`The potter asked us to forget their card (${cardLabel(kept.brand, kept.last4)})`)
+    await step.note(`The potter asked us to forget their card (${keptCardLabel(kept)})`)
     return kept
   })
   // Stripe is asked outside the transaction; a card already detached there is as good as forgotten.
   try {
-    await stripeFor(ctx.config).paymentMethods.detach(row.stripePaymentMethodId!)
+    await stripeFor(ctx.config).paymentMethods.detach(row.stripePaymentMethodId)
   } catch (error) {
     if (!(error instanceof Stripe.errors.StripeInvalidRequestError)) throw error
   }

@@ -113,6 +113,16 @@ function postalAddress(customer: CustomerEntry) {
   return { city: null, country: null, line1: null, line2: null, postal_code: customer.postalCode, state: null }
 }
 
+// Who paid, as the hosted page took it down.
+function billingDetails(customer: CustomerEntry) {
+  return { address: postalAddress(customer), email: customer.email, name: customer.name || null, phone: null, tax_id: null }
+}
+
+// The card as charges and PaymentMethods describe it.
+function cardDetails(card: CheckedCard) {
+  return { brand: card.brand, country: 'US', exp_month: card.expMonth, exp_year: card.expYear, funding: card.funding, last4: card.last4 }
+}
+
 // The charge one attempt makes: captured at once when the card succeeds, `failed` with the decline otherwise.
 function chargeForAttempt(
   intent: PaymentIntentObject,
@@ -132,13 +142,7 @@ function chargeForAttempt(
     application_fee: null,
     application_fee_amount: null,
     balance_transaction: outcome.result === 'succeeded' ? newId.balanceTransaction() : null,
-    billing_details: {
-      address: postalAddress(customer),
-      email: customer.email,
-      name: customer.name || null,
-      phone: null,
-      tax_id: null,
-    },
+    billing_details: billingDetails(customer),
     captured: outcome.result === 'succeeded',
     created,
     currency: intent.currency,
@@ -174,17 +178,7 @@ function chargeForAttempt(
     paid: outcome.result === 'succeeded',
     payment_intent: intent.id,
     payment_method: paymentMethod,
-    payment_method_details: {
-      type: 'card',
-      card: {
-        brand: card.brand,
-        country: 'US',
-        exp_month: card.expMonth,
-        exp_year: card.expYear,
-        funding: card.funding,
-        last4: card.last4,
-      },
-    },
+    payment_method_details: { type: 'card', card: cardDetails(card) },
     receipt_email: intent.receipt_email,
     receipt_url: null,
     refunded: false,
@@ -478,7 +472,7 @@ export class TestModeAccount {
       throw invalidRequest(`This Checkout Session is no longer open (status \`${session.status}\`).`)
     }
     const intent = this.intentFor(record, customer)
-    const paymentMethod = this.savePaymentMethod(card, customer, null)
+    const paymentMethod = this.savePaymentMethod(card, customer)
     const outcome = card.outcome
     const charge = chargeForAttempt(intent, card, customer, paymentMethod, this.seconds())
     this.charges.set(charge.id, charge)
@@ -623,27 +617,14 @@ export class TestModeAccount {
   }
 
   // Every card entered on the hosted page becomes a PaymentMethod, attached to no one until a payment sets it up.
-  private savePaymentMethod(card: CheckedCard, customer: CustomerEntry, attachedTo: string | null): string {
+  private savePaymentMethod(card: CheckedCard, customer: CustomerEntry): string {
     const method: PaymentMethodObject = {
       id: newId.paymentMethod(),
       object: 'payment_method',
-      billing_details: {
-        address: postalAddress(customer),
-        email: customer.email,
-        name: customer.name || null,
-        phone: null,
-        tax_id: null,
-      },
-      card: {
-        brand: card.brand,
-        country: 'US',
-        exp_month: card.expMonth,
-        exp_year: card.expYear,
-        funding: card.funding,
-        last4: card.last4,
-      },
+      billing_details: billingDetails(customer),
+      card: cardDetails(card),
       created: this.seconds(),
-      customer: attachedTo,
+      customer: null,
       livemode: false,
       metadata: {},
       type: 'card',
