@@ -5,7 +5,7 @@
 import type { Browser, BrowserContext } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { DEFAULT_POLICIES } from '../../shared/schemas/studios'
-import { launchBrowser, openPage, signIn } from '../support/browser'
+import { launchBrowser, openSignedIn } from '../support/browser'
 import { CARD_SUCCEEDS } from '../support/checkout'
 import { checkInAll, fireThrough } from '../support/money'
 import { createPerson, type Person } from '../support/people'
@@ -63,12 +63,7 @@ afterAll(async () => {
   await app?.close()
 })
 
-async function signedInPage(person: Person) {
-  const opened = await openPage(browser, app.url)
-  contexts.push(opened.context)
-  await signIn(opened.page, person.email)
-  return opened
-}
+const signedInPage = (person: Person) => openSignedIn(browser, app.url, contexts, person.email)
 
 describe('the front desk upholds a contested claim', () => {
   it('shows the studio’s cap by the claim form; the desk upholds the contested claim; the potter pays it with 4242', async () => {

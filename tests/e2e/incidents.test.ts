@@ -11,7 +11,7 @@ import type { HttpSession } from '../support/http-client'
 import { checkInAll, fireThrough } from '../support/money'
 import { createPerson, type Person } from '../support/people'
 import { readableAtBothWidths } from '../support/readability'
-import { launchBrowser, openPage, signIn } from '../support/browser'
+import { launchBrowser, openSignedIn } from '../support/browser'
 import { mug, sendAndPayDeposit } from '../support/request-fixtures'
 import { publishedStudio } from '../support/studio-fixtures'
 import { startTestApp, type TestApp } from '../support/test-app'
@@ -85,12 +85,7 @@ afterAll(async () => {
   await app?.close()
 })
 
-async function signedInPage(person: Person) {
-  const opened = await openPage(browser, app.url)
-  contexts.push(opened.context)
-  await signIn(opened.page, person.email)
-  return opened.page
-}
+const signedInPage = async (person: Person) => (await openSignedIn(browser, app.url, contexts, person.email)).page
 
 /** The studio reports an incident from the firing, with a photo; resolves on the incident's page. */
 async function report(page: Page, fill: (page: Page) => Promise<void>) {

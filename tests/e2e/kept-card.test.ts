@@ -8,7 +8,7 @@ import { CARD_SUCCEEDS } from '../support/checkout'
 import { checkInAll } from '../support/money'
 import { createPerson, type Person } from '../support/people'
 import { readableAtBothWidths } from '../support/readability'
-import { launchBrowser, openPage, signIn } from '../support/browser'
+import { launchBrowser, openSignedIn } from '../support/browser'
 import { draftAndSend, mug } from '../support/request-fixtures'
 import { publishedStudio } from '../support/studio-fixtures'
 import { startTestApp, type TestApp } from '../support/test-app'
@@ -39,12 +39,7 @@ afterAll(async () => {
   await app?.close()
 })
 
-async function signedInPage(person: Person) {
-  const opened = await openPage(browser, app.url)
-  contexts.push(opened.context)
-  await signIn(opened.page, person.email)
-  return opened.page
-}
+const signedInPage = async (person: Person) => (await openSignedIn(browser, app.url, contexts, person.email)).page
 
 async function payOnHostedPage(page: Page) {
   await page.locator('#cardNumber').fill(CARD_SUCCEEDS)

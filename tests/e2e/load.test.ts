@@ -6,7 +6,7 @@
 import type { Browser, BrowserContext, Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { TAG_PATTERN } from '../../shared/firing/tags'
-import { launchBrowser, openPage, signIn } from '../support/browser'
+import { launchBrowser, openSignedIn } from '../support/browser'
 import { CARD_SUCCEEDS, submitCard } from '../support/checkout'
 import { createPerson, type Person } from '../support/people'
 import { seriousViolations, sidewaysOverflow } from '../support/readability'
@@ -71,12 +71,8 @@ afterAll(async () => {
   await app?.close()
 })
 
-async function signedInPage(email: string, home: string, viewport = { width: 1280, height: 900 }) {
-  const opened = await openPage(browser, app.url, { viewport })
-  contexts.push(opened.context)
-  await signIn(opened.page, email, home)
-  return opened
-}
+const signedInPage = (email: string, home: string, viewport = { width: 1280, height: 900 }) =>
+  openSignedIn(browser, app.url, contexts, email, { home, viewport })
 
 describe('the load, from drop-off to unloading', () => {
   let crew: Page

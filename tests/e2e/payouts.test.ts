@@ -5,7 +5,7 @@
 // fee; a desk refund after the transfer shows the part taken back. A crew member is shown none of it.
 import type { Browser, BrowserContext, Locator, Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { launchBrowser, openPage, signIn } from '../support/browser'
+import { launchBrowser, openSignedIn } from '../support/browser'
 import { CARD_SUCCEEDS } from '../support/checkout'
 import { checkInAll, fireThrough, moneyQuiet, resultsAndReady } from '../support/money'
 import { createPerson, type Person } from '../support/people'
@@ -70,12 +70,7 @@ afterAll(async () => {
   await app?.close()
 })
 
-async function signedInPage(email: string, home: string) {
-  const opened = await openPage(browser, app.url)
-  contexts.push(opened.context)
-  await signIn(opened.page, email, home)
-  return opened
-}
+const signedInPage = (email: string, home: string) => openSignedIn(browser, app.url, contexts, email, { home })
 
 /** Fills the stand-in's hosted checkout form as a person would and submits it. */
 async function payOnHostedPage(page: Page) {

@@ -6,7 +6,7 @@
 import type { Browser, BrowserContext } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { formatMoney } from '../../shared/dates'
-import { launchBrowser, openPage, signIn } from '../support/browser'
+import { launchBrowser, openSignedIn } from '../support/browser'
 import type { HttpSession } from '../support/http-client'
 import { checkInAll, fireThrough, moneyQuiet, payBalanceOnline, resultsAndReady } from '../support/money'
 import { createPerson, type Person } from '../support/people'
@@ -70,12 +70,7 @@ afterAll(async () => {
   await app?.close()
 })
 
-async function signedInPage(person: Person) {
-  const opened = await openPage(browser, app.url)
-  contexts.push(opened.context)
-  await signIn(opened.page, person.email)
-  return opened.page
-}
+const signedInPage = async (person: Person) => (await openSignedIn(browser, app.url, contexts, person.email)).page
 
 describe('making good to a hurt potter', () => {
   it('the studio promises a free refire, then credits the neighbour after pickup; the neighbour sees both', async () => {

@@ -83,3 +83,17 @@ export async function signIn(page: Page, email: string, home?: string) {
   await page.getByRole('button', { name: 'Sign in' }).click()
   await (home ? page.waitForURL(`**${home}`) : page.waitForURL((url) => !url.pathname.startsWith('/sign-in')))
 }
+
+/** A fresh page on the app with the person signed in; its context joins `contexts`, for closing at the end. */
+export async function openSignedIn(
+  browser: Browser,
+  baseURL: string,
+  contexts: BrowserContext[],
+  email: string,
+  { home, ...options }: BrowserContextOptions & { home?: string } = {},
+) {
+  const opened = await openPage(browser, baseURL, options)
+  contexts.push(opened.context)
+  await signIn(opened.page, email, home)
+  return opened
+}
