@@ -31,7 +31,7 @@ import { openCheckout } from './payments'
 import { transferGroupOf } from './payouts'
 import { stripeFor } from './stripe'
 import { earnPayout } from './payouts'
-import { factsOf } from './request-context'
+import { askCurrency, factsOf } from './request-context'
 import { requestAction, type ActionStep } from './request-door'
 
 const claimFacts = (claim: Claim): ClaimFacts => ({
@@ -107,7 +107,7 @@ export async function raiseClaim(ctx: AppContext, user: User, incidentId: string
       [incidentId, body.chargeKind],
     )
     if (open.length) throw conflict('This incident already has a claim for that charge.', 'claim-exists')
-    const currency = ((step.rc.request.standingQuote ?? step.rc.request.quote)?.currency ?? step.rc.studio.currency).toUpperCase()
+    const currency = askCurrency(step.rc.request, step.rc.studio)
     const claim = await step.manager.getRepository(Claim).save({
       incidentId,
       requestId: incident.requestId,

@@ -37,7 +37,7 @@ import { incidentViewerOf, loadIncident, type IncidentRecord } from './incident-
 import { tell } from './notices'
 import { tagFrom } from './pieces'
 import { addPhotos, photoJson, type UploadedFile } from './photos'
-import { factsOf, loadRequest } from './request-context'
+import { askCurrency, factsOf, loadRequest } from './request-context'
 import { remediesOf, remediesView } from './remedies'
 import { requestAction } from './request-door'
 
@@ -320,7 +320,7 @@ export async function incidentJson(ctx: AppContext, user: Pick<User, 'id' | 'rol
     canClaim: viewer.side === 'studio' && viewer.role === 'owner',
     damageCharges: damageChargesOf(studio.policies),
     // The currency a claim on this ask is raised in (raiseClaim): the ask's quote's, else the studio's.
-    claimCurrency: ((request.standingQuote ?? request.quote)?.currency ?? studio.currency).toUpperCase(),
+    claimCurrency: askCurrency(request, studio),
     ...(await remediesView(manager, incident, studio, viewer, user.id)),
   }
 }

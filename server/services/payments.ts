@@ -20,7 +20,7 @@ import { enqueueJob, type JobOptions } from '../jobs/queue'
 import { paymentReceivedMail } from '../mail/templates/pickup'
 import { refundedMail } from '../mail/templates/requests'
 import { tell } from './notices'
-import { factsOf, loadRequest } from './request-context'
+import { askCurrency, factsOf, loadRequest } from './request-context'
 import { inTransaction, requestAction, requestActionIn, type ActionStep } from './request-door'
 import { stripeFor } from './stripe'
 import { enqueuePayoutIfEarned, handleTransferEvent, moneyQueueOf, transferGroupOf } from './payouts'
@@ -89,7 +89,7 @@ export async function openCheckout(
   if (open && open.expiresAt.getTime() > Date.now() + 5 * 60_000 && open.amountCents === amountCents && open.keepsCard === keepsCard)
     return open
   if (amountCents <= 0) throw conflict('Nothing is owed.', 'nothing-owed')
-  const currency = ((rc.request.standingQuote ?? rc.request.quote)?.currency ?? rc.studio.currency).toLowerCase()
+  const currency = askCurrency(rc.request, rc.studio).toLowerCase()
   if (!payableOnline(amountCents, currency)) {
     throw conflict(
       `${formatMoney(amountCents, currency.toUpperCase())} is less than a card can be charged; pay it at the studio’s counter.`,

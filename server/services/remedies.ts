@@ -25,7 +25,7 @@ import { incidentViewerOf, loadIncident, type IncidentViewer } from './incident-
 import { enqueueRefund, moneyOf } from './payments'
 import { tagFrom } from './pieces'
 import { photoJson } from './photos'
-import { factsOf } from './request-context'
+import { askCurrency, factsOf } from './request-context'
 import { requestAction, type ActionStep } from './request-door'
 
 /** Firing statuses before loading: a firing that can still take a refire. */
@@ -128,7 +128,7 @@ export async function remediesView(
   const hurtAsks: HurtAskJson[] = []
   for (const request of requests) {
     const money = await moneyOf(manager, request.id)
-    const currency = ((request.standingQuote ?? request.quote)?.currency ?? studio.currency).toUpperCase()
+    const currency = askCurrency(request, studio)
     const refusal = creditRefusal({ state: request.state, creditableCents: money.net }, undefined, (c) => formatMoney(c, currency))
     hurtAsks.push({
       requestId: request.id,
@@ -200,7 +200,7 @@ export async function makeGood(ctx: AppContext, user: User, incidentId: string, 
     const mailFacts = factsOf(rc, ctx.config.publicUrl)
     if (body.kind === 'credit') {
       const amount = body.amountCents!
-      const currency = ((rc.request.standingQuote ?? rc.request.quote)?.currency ?? rc.studio.currency).toUpperCase()
+      const currency = askCurrency(rc.request, rc.studio)
       const money = await moneyOf(manager, rc.request.id)
       const refusal = creditRefusal({ state: rc.request.state, creditableCents: money.net }, amount, (c) => formatMoney(c, currency))
       if (refusal)

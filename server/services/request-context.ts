@@ -22,6 +22,10 @@ export interface RequestContext {
 }
 
 /** Who is looking at a request: its potter, one of the studio's people, or an admin. */
+/** The currency of an ask's money, as an upper-case ISO code: its standing quote's, else its quote's, else the studio's. */
+export const askCurrency = (request: Pick<FiringRequest, 'standingQuote' | 'quote'>, studio: Pick<Studio, 'currency'>) =>
+  ((request.standingQuote ?? request.quote)?.currency ?? studio.currency).toUpperCase()
+
 export type Viewer = { side: 'potter' } | { side: 'studio'; role: 'owner' | 'crew' } | { side: 'admin' }
 
 export async function loadRequest(manager: EntityManager, id: string, { lock = false } = {}): Promise<RequestContext> {
